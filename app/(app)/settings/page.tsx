@@ -1,0 +1,27 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { ThemePicker } from "./_components/theme-picker";
+import { SignOutButton } from "./_components/sign-out-button";
+
+export const metadata: Metadata = { title: "Settings" };
+
+/** Settings live on the device (theme, callouts) so they work offline. */
+export default function SettingsPage() {
+  return (
+    <div className="space-y-6">
+      <h1 className="text-2xl font-extrabold">Settings</h1>
+      <section aria-labelledby="theme-h" className="space-y-2">
+        <h2 id="theme-h" className="text-lg font-bold">
+          Screen
+        </h2>
+        <ThemePicker />
+      </section>
+      <section className="space-y-2">
+        <Link href="/cautions" className="font-bold underline">
+          Safety cautions
+        </Link>
+      </section>
+      <SignOutButton />
+    </div>
+  );
+}

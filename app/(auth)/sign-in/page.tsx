@@ -1,0 +1,23 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Suspense } from "react";
+import { SignInForm } from "./_components/sign-in-form";
+
+export const metadata: Metadata = { title: "Sign in" };
+
+export default function SignInPage() {
+  return (
+    <>
+      <h1 className="text-xl font-bold">Sign in</h1>
+      <Suspense>
+        <SignInForm />
+      </Suspense>
+      <p>
+        New here?{" "}
+        <Link href="/sign-up" className="font-bold underline">
+          Create an account
+        </Link>
+      </p>
+    </>
+  );
+}

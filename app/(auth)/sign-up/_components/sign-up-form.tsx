@@ -1,0 +1,59 @@
+"use client";
+
+import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
+import { useState, type FormEvent } from "react";
+import { Button } from "@/components/ui/button";
+import { TextField } from "@/components/ui/field";
+import { signUpSchema } from "@/lib/validations/auth";
+
+type Errors = Partial<Record<"name" | "email" | "password" | "form", string>>;
+
+/** Name, e-mail, password; validated here and again on the server with the same schema. */
+export function SignUpForm() {
+  const router = useRouter();
+  const [errors, setErrors] = useState<Errors>({});
+  const [busy, setBusy] = useState(false);
+
+  async function onSubmit(e: FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    const parsed = signUpSchema.safeParse({ name: form.get("name"), email: form.get("email"), password: form.get("password") });
+    if (!parsed.success) {
+      const next: Errors = {};
+      for (const issue of parsed.error.issues) next[issue.path[0] as keyof Errors] ??= issue.message;
+      return setErrors(next);
+    }
+    setBusy(true);
+    setErrors({});
+    const res = await fetch("/api/account/sign-up", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(parsed.data),
+    }).catch(() => null);
+    if (!res?.ok) {
+      setBusy(false);
+      const body = (await res?.json().catch(() => null)) as { error?: { message?: string } } | null;
+      return setErrors({ form: body?.error?.message ?? "Could not reach the server. Try again when online." });
+    }
+    const signed = await signIn("credentials", { email: parsed.data.email, password: parsed.data.password, redirect: false });
+    setBusy(false);
+    if (!signed || signed.error) return setErrors({ form: "Could not sign you in with these details. If you already have an account, sign in instead." });
+    router.replace("/");
+    router.refresh();
+  }
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+      <TextField id="name" name="name" label="Name" autoComplete="name" required error={errors.name} />
+      <TextField id="email" name="email" type="email" label="E-mail" autoComplete="email" required error={errors.email} />
+      <TextField id="password" name="password" type="password" label="Password (at least 10 characters)" autoComplete="new-password" required error={errors.password} />
+      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
+        {errors.form}
+      </p>
+      <Button type="submit" disabled={busy} className="w-full">
+        {busy ? "Creating…" : "Create account"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,45 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import type { ReactNode } from "react";
+import { Providers } from "@/components/providers";
+import { ThemeScript } from "@/components/shell/theme-script";
+import "./globals.css";
+
+const inter = localFont({
+  src: [
+    { path: "./fonts/inter-latin-400-normal.woff2", weight: "400" },
+    { path: "./fonts/inter-latin-600-normal.woff2", weight: "600" },
+    { path: "./fonts/inter-latin-700-normal.woff2", weight: "700" },
+    { path: "./fonts/inter-latin-800-normal.woff2", weight: "800" },
+  ],
+  variable: "--font-inter",
+  display: "swap",
+});
+
+export const metadata: Metadata = {
+  title: { default: "Windowcall", template: "%s · Windowcall" },
+  description: "Time task windows and flights at the field, score them by the class rules, and read a season of practice.",
+  applicationName: "Windowcall",
+  appleWebApp: { capable: true, title: "Windowcall", statusBarStyle: "default" },
+  icons: { icon: "/icons/icon-192.png", apple: "/icons/icon-192.png" },
+};
+
+export const viewport: Viewport = {
+  themeColor: "#000000",
+  width: "device-width",
+  initialScale: 1,
+  viewportFit: "cover",
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en" className={inter.variable} data-theme="outdoor" suppressHydrationWarning>
+      <head>
+        <ThemeScript />
+      </head>
+      <body className="min-h-dvh font-sans antialiased">
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

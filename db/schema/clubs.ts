@@ -1,0 +1,51 @@
+import { index, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { clubRoleEnum } from "./enums";
+import { users } from "./users";
+
+export const clubs = pgTable("clubs", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  name: text("name").notNull(),
+  slug: text("slug").notNull().unique(),
+  homeField: text("home_field"),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const memberships = pgTable(
+  "memberships",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    clubId: uuid("club_id").notNull().references(() => clubs.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    role: clubRoleEnum("role").notNull().default("member"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique("memberships_club_user_uq").on(t.clubId, t.userId), index("memberships_user_id_idx").on(t.userId)],
+);
+
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    clubId: uuid("club_id").notNull().references(() => clubs.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: clubRoleEnum("role").notNull().default("member"),
+    tokenHash: text("token_hash").notNull().unique(),
+    invitedBy: uuid("invited_by").notNull().references(() => users.id),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+  },
+  (t) => [index("invitations_club_id_idx").on(t.clubId)],
+);
+
+/** A pilot lets a coach read their season; revoking keeps the row for the record. */
+export const coachGrants = pgTable(
+  "coach_grants",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    pilotId: uuid("pilot_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    coachId: uuid("coach_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [index("coach_grants_coach_id_idx").on(t.coachId), index("coach_grants_pilot_id_idx").on(t.pilotId)],
+);

@@ -1,0 +1,37 @@
+import { sql } from "drizzle-orm";
+import { bigint, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { runs } from "./sessions";
+import { users } from "./users";
+
+/**
+ * The append-only log of the flight line (SYNC.md §1). Each event is stored once: unique id,
+ * unique (device, seq). Raw device times are kept beside the corrected time so a better clock
+ * estimate can re-correct later.
+ */
+export const events = pgTable(
+  "events",
+  {
+    id: uuid("id").primaryKey(),
+    runId: uuid("run_id").notNull().references(() => runs.id, { onDelete: "cascade" }),
+    deviceId: text("device_id").notNull(),
+    seq: integer("seq").notNull(),
+    recordedBy: uuid("recorded_by").notNull().references(() => users.id),
+    kind: text("kind").notNull(),
+    body: jsonb("body").notNull(),
+    wallMs: doublePrecision("wall_ms").notNull(),
+    monoMs: doublePrecision("mono_ms").notNull(),
+    pageId: text("page_id").notNull(),
+    offsetThetaMs: doublePrecision("offset_theta_ms"),
+    offsetDeltaMs: doublePrecision("offset_delta_ms"),
+    offsetMeasuredAtMs: doublePrecision("offset_measured_at_ms"),
+    correctedMs: doublePrecision("corrected_ms").notNull(),
+    uncertaintyMs: doublePrecision("uncertainty_ms"),
+    serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(sql`nextval('sync_seq')`),
+    receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    unique("events_device_seq_uq").on(t.deviceId, t.seq),
+    index("events_run_id_idx").on(t.runId),
+    index("events_server_seq_idx").on(t.serverSeq),
+  ],
+);

@@ -1,0 +1,64 @@
+import { sql } from "drizzle-orm";
+import {
+  bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, smallint, text, timestamp, unique, uuid,
+} from "drizzle-orm/pg-core";
+import { clubs } from "./clubs";
+import { fieldDays } from "./contests";
+import { guestPilots, users } from "./users";
+
+const nextSeq = sql`nextval('sync_seq')`;
+
+/** A visit to a field: where, when, conditions. Created on a phone (client id). */
+export const fieldSessions = pgTable(
+  "field_sessions",
+  {
+    id: uuid("id").primaryKey(),
+    ownerId: uuid("owner_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    clubId: uuid("club_id").references(() => clubs.id, { onDelete: "set null" }),
+    fieldDayId: uuid("field_day_id").references(() => fieldDays.id, { onDelete: "set null" }),
+    fieldName: text("field_name").notNull(),
+    latitude: doublePrecision("latitude"),
+    longitude: doublePrecision("longitude"),
+    /** { windMs?, gustMs?, temperatureC?, notes? } */
+    conditions: jsonb("conditions").notNull().default({}),
+    startedAt: timestamp("started_at", { withTimezone: true }).notNull(),
+    serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("field_sessions_owner_id_idx").on(t.ownerId), index("field_sessions_server_seq_idx").on(t.serverSeq)],
+);
+
+/** One task window timed on the line, for 1–4 pilots (lanes). The full task definition is stored with it. */
+export const runs = pgTable(
+  "runs",
+  {
+    id: uuid("id").primaryKey(),
+    sessionId: uuid("session_id").notNull().references(() => fieldSessions.id, { onDelete: "cascade" }),
+    createdBy: uuid("created_by").notNull().references(() => users.id),
+    /** The task definition as the engine reads it, whole (editions change; RULES.md). */
+    task: jsonb("task").notNull(),
+    taskCode: text("task_code").notNull(),
+    edition: text("edition").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
+    serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
+  },
+  (t) => [index("runs_session_id_idx").on(t.sessionId), index("runs_server_seq_idx").on(t.serverSeq)],
+);
+
+/** A pilot in a run, and the server's official result for them, derived from the events. */
+export const runLanes = pgTable(
+  "run_lanes",
+  {
+    runId: uuid("run_id").notNull().references(() => runs.id, { onDelete: "cascade" }),
+    lane: smallint("lane").notNull(),
+    pilotUserId: uuid("pilot_user_id").references(() => users.id, { onDelete: "set null" }),
+    guestPilotId: uuid("guest_pilot_id").references(() => guestPilots.id, { onDelete: "set null" }),
+    pilotName: text("pilot_name").notNull(),
+    resultTenths: integer("result_tenths"),
+    /** The points-lost breakdown and flights as last derived (a cache of a pure function of the events). */
+    derived: jsonb("derived"),
+    needsReview: boolean("needs_review").notNull().default(false),
+    reviewReason: text("review_reason"),
+  },
+  (t) => [unique("run_lanes_run_lane_uq").on(t.runId, t.lane), index("run_lanes_pilot_user_id_idx").on(t.pilotUserId)],
+);

@@ -1,0 +1,54 @@
+import { bigint, doublePrecision, index, pgSequence, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { ackStatusEnum } from "./enums";
+import { users } from "./users";
+
+/**
+ * One server-wide, strictly increasing change number. Every row a device may pull carries
+ * the value it got at its last change; pushes take an advisory lock so numbers commit in order
+ * and a pull cursor never skips a row (SYNC.md §3).
+ */
+export const syncSeq = pgSequence("sync_seq", { startWith: 1 });
+
+/** A phone or browser, known by the id it generated; it belongs to the user who first pushed from it. */
+export const devices = pgTable(
+  "devices",
+  {
+    id: text("id").primaryKey(),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    label: text("label"),
+    lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("devices_user_id_idx").on(t.userId)],
+);
+
+/** NTP-style exchanges as measured by a device (T1..T4 in ms; RFC 5905 §8). */
+export const clockSamples = pgTable(
+  "clock_samples",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    deviceId: text("device_id").notNull().references(() => devices.id, { onDelete: "cascade" }),
+    t1: doublePrecision("t1").notNull(),
+    t2: doublePrecision("t2").notNull(),
+    t3: doublePrecision("t3").notNull(),
+    t4: doublePrecision("t4").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("clock_samples_device_id_idx").on(t.deviceId)],
+);
+
+/** Items the server refused, kept for the record and for support (the device keeps its copy too). */
+export const syncRejections = pgTable(
+  "sync_rejections",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    itemId: text("item_id").notNull(),
+    deviceId: text("device_id").notNull(),
+    userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
+    status: ackStatusEnum("status").notNull().default("rejected"),
+    reason: text("reason").notNull(),
+    serverSeq: bigint("server_seq", { mode: "number" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sync_rejections_device_id_idx").on(t.deviceId)],
+);

@@ -1,0 +1,87 @@
+import { z } from "zod";
+
+/**
+ * The append-only event log of the flight line (SYNC.md §1).
+ *
+ * Every tap is one event. Flights, results and scores are derived from a run's
+ * events by the task engine (`lib/tasks`), the same code on phone and server.
+ * A correction or an undo is a new event that names the one it supersedes;
+ * nothing is edited or deleted in place.
+ *
+ * A *run* is one task window timed on the line: one task, 1–4 *lanes* (a lane is
+ * one pilot). A solo practice run has one lane.
+ */
+
+/** When and where an event was recorded, kept raw so the server can re-correct it later (SYNC.md §4). */
+export const stampSchema = z.object({
+  /** Device wall clock (ms since the Unix epoch) at the input event's own timestamp. */
+  wallMs: z.number().finite(),
+  /** Monotonic time (performance.timeOrigin-relative ms) of the input event. */
+  monoMs: z.number().finite().nonnegative(),
+  /** Id of the page lifetime the monotonic time belongs to (a reload starts a new one). */
+  pageId: z.string().min(1).max(64),
+  /** The device's best offset estimate at that moment (server time − device time), if any. */
+  offset: z
+    .object({
+      thetaMs: z.number().finite(),
+      deltaMs: z.number().finite().nonnegative(),
+      measuredAtWallMs: z.number().finite(),
+    })
+    .nullable(),
+});
+export type Stamp = z.infer<typeof stampSchema>;
+
+const lane = z.number().int().min(0).max(3);
+
+/** What happened, by kind. Times of timed kinds are in the envelope's `stamp`. */
+export const eventBodySchema = z.discriminatedUnion("kind", [
+  /** The working-time start signal (for task C: the launch signal of the next attempt). */
+  z.object({ kind: z.literal("window-start") }),
+  /** A model left the hand. */
+  z.object({ kind: z.literal("launch"), lane }),
+  /** A model came to rest or was caught. */
+  z.object({ kind: z.literal("landing"), lane }),
+  /** Task E (or a custom "call your target" task): the target announced before the next launch. */
+  z.object({ kind: z.literal("target"), lane, targetSec: z.number().int().min(1).max(3600) }),
+  /** Task E: the pilot calls "end of working time" — one attempt only follows. */
+  z.object({ kind: z.literal("end-call"), lane }),
+  /** A flight scores zero (landing outside the field, a lost part, forbidden airspace). */
+  z.object({
+    kind: z.literal("invalid"),
+    lane,
+    flightIndex: z.number().int().min(0).max(99),
+    reason: z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]),
+  }),
+  /** A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5). */
+  z.object({
+    kind: z.literal("penalty"),
+    lane,
+    points: z.number().int().min(1).max(1000),
+    reason: z.string().min(1).max(200),
+  }),
+  /** Moves a timed event to another time (ms on the same clock as its stamp). */
+  z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: z.number().finite() }),
+  /** Undo: the named event no longer counts. */
+  z.object({ kind: z.literal("void"), targetId: z.string().uuid() }),
+  /** The run was closed by its timekeeper (after the landing window). */
+  z.object({ kind: z.literal("run-end") }),
+]);
+export type EventBody = z.infer<typeof eventBodySchema>;
+export type EventKind = EventBody["kind"];
+
+/** One event as stored on the device, pushed to the server and pulled back. */
+export const runEventSchema = z.object({
+  id: z.string().uuid(), // UUIDv7, client-generated
+  runId: z.string().uuid(),
+  deviceId: z.string().min(1).max(64),
+  /** Per-device sequence number, strictly increasing from 1. */
+  seq: z.number().int().positive(),
+  /** The signed-in user who recorded it (filled by the server from the session). */
+  recordedBy: z.string().optional(),
+  stamp: stampSchema,
+  body: eventBodySchema,
+});
+export type RunEvent = z.infer<typeof runEventSchema>;
+
+/** The kinds whose stamp is the moment that matters (a tap on the line). */
+export const TIMED_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "launch", "landing"]);
