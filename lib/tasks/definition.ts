@@ -1,0 +1,124 @@
+import { z } from "zod";
+
+/**
+ * Task definitions are data. A run stores its whole definition (not only a letter),
+ * tagged with its edition, because task letters and rules change between editions
+ * (RULES.md "Earlier editions"). Custom practice tasks are built from the same parts.
+ *
+ * Three shapes cover every task of the 2025 edition:
+ * - `window`: flights inside one working time, counted by a rule (last / best / all),
+ *   each capped by a uniform cap or matched to a ladder of targets (A, B, D, F–N).
+ * - `poker`: the pilot announces each target; the reached target is credited (E).
+ * - `all-up`: one attempt per launch signal, all pilots together (C).
+ */
+
+export const taskLetterSchema = z.enum(["A", "B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "M", "N"]);
+export type TaskLetter = z.infer<typeof taskLetterSchema>;
+
+export const editionSchema = z.enum(["F3K-2025", "custom"]);
+export type Edition = z.infer<typeof editionSchema>;
+
+const seconds = z.number().int().min(1).max(3600);
+
+export const countingSchema = z.discriminatedUnion("rule", [
+  /** Every flight counts (bounded by the launch limit or the ladder's length). */
+  z.object({ rule: z.literal("all") }),
+  /** The last n flights count; a new launch pushes the oldest out (A, B, J). */
+  z.object({ rule: z.literal("last"), n: z.number().int().min(1).max(20) }),
+  /** The n longest flights count (F, G, H, I, N). */
+  z.object({ rule: z.literal("best"), n: z.number().int().min(1).max(20) }),
+]);
+export type Counting = z.infer<typeof countingSchema>;
+
+export const ladderSchema = z.object({
+  /** in-order: flight k flies step k (K, M); any-order: longest flight ↔ longest target (H). */
+  order: z.enum(["in-order", "any-order"]),
+  targetsSec: z.array(seconds).min(1).max(12),
+});
+export type Ladder = z.infer<typeof ladderSchema>;
+
+const common = {
+  edition: editionSchema,
+  /** The rulebook letter for catalogue tasks; null for a custom task. */
+  letter: taskLetterSchema.nullable(),
+  name: z.string().min(1).max(80),
+};
+
+export const windowTaskSchema = z.object({
+  ...common,
+  kind: z.literal("window"),
+  workingTimeSec: z.number().int().min(30).max(3600),
+  /** A model in the air at the end of working time must land within this (F3K.7: 30 s). */
+  landingWindowSec: z.number().int().min(0).max(300),
+  /** Launches beyond this many do not count; null = unlimited. */
+  launchLimit: z.number().int().min(1).max(50).nullable(),
+  counting: countingSchema,
+  /** Uniform per-flight maximum; null with a ladder (the targets cap) or for "no cap". */
+  capSec: seconds.nullable(),
+  ladder: ladderSchema.nullable(),
+  /** F3K.7 sum cap: total ≤ working time − 1 s per scored flight. */
+  sumCap: z.boolean(),
+});
+
+export const pokerTaskSchema = z.object({
+  ...common,
+  kind: z.literal("poker"),
+  workingTimeSec: z.number().int().min(30).max(3600),
+  landingWindowSec: z.number().int().min(0).max(300),
+  /** At most this many reached targets are credited (E: 3). */
+  maxTargets: z.number().int().min(1).max(10),
+  /**
+   * What the "end of working time" call credits (AMBIGUOUS in RULES.md, see poker.ts):
+   * "flown" = the flight's time up to the end of working time;
+   * "airborne-at-end" = the same, but only if the model is still flying at the end.
+   */
+  endCall: z.enum(["flown", "airborne-at-end", "not-allowed"]),
+  sumCap: z.boolean(),
+});
+
+export const allUpTaskSchema = z.object({
+  ...common,
+  kind: z.literal("all-up"),
+  attempts: z.number().int().min(1).max(10),
+  /** A launch later than this after the signal scores zero (C: 3 s). */
+  launchWindowMs: z.number().int().min(0).max(60_000),
+  /** A landing later than this after the signal scores zero (C: 3:33). */
+  landingDeadlineSec: z.number().int().min(1).max(3600),
+  capSec: seconds,
+});
+
+export const taskDefinitionSchema = z
+  .discriminatedUnion("kind", [windowTaskSchema, pokerTaskSchema, allUpTaskSchema])
+  .superRefine((def, ctx) => {
+    if (def.kind !== "window") return;
+    const issue = (message: string) => ctx.addIssue({ code: "custom", message });
+    if (def.capSec !== null && def.capSec > def.workingTimeSec) issue("The cap is longer than the working time.");
+    if (def.ladder === null) {
+      if (def.counting.rule === "all" && def.launchLimit === null && def.capSec === null) {
+        // Allowed: "fly as much as you can" — the sum cap bounds it.
+      }
+      return;
+    }
+    if (def.capSec !== null) issue("A ladder task takes its caps from the targets; set capSec to null.");
+    const steps = def.ladder.targetsSec.length;
+    if (def.ladder.targetsSec.some((t) => t > def.workingTimeSec)) issue("A target is longer than the working time.");
+    if (def.ladder.order === "in-order") {
+      if (def.counting.rule === "best") issue("An in-order ladder counts all or the last flights, not the best.");
+      if (def.counting.rule === "all" && def.launchLimit !== steps)
+        issue(`An in-order ladder counting all flights needs a launch limit of ${steps}.`);
+    } else if (def.counting.rule === "all") {
+      issue("An any-order ladder counts the best or the last flights.");
+    }
+    if (def.counting.rule !== "all" && def.counting.n !== steps)
+      issue(`The ladder has ${steps} targets, so ${steps} flights must count.`);
+  });
+
+export type WindowTask = z.infer<typeof windowTaskSchema>;
+export type PokerTask = z.infer<typeof pokerTaskSchema>;
+export type AllUpTask = z.infer<typeof allUpTaskSchema>;
+export type TaskDefinition = z.infer<typeof taskDefinitionSchema>;
+
+/** Parses a definition (catalogue or custom); throws a ZodError with readable messages. */
+export function parseTaskDefinition(input: unknown): TaskDefinition {
+  return taskDefinitionSchema.parse(input);
+}

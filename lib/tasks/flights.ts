@@ -1,0 +1,107 @@
+import { applyUndoAndCorrections, type TimelineEvent } from "./timeline";
+
+/** A launch and (once it happens) its landing, in absolute timeline ms. */
+export type RawFlight = {
+  /** Position among the lane's flights in launch order; `invalid` events refer to it. */
+  index: number;
+  launchAtMs: number;
+  landAtMs: number | null;
+  launchId: string;
+  landId: string | null;
+};
+
+export type InvalidReason = "landing-outside-field" | "part-lost" | "forbidden-airspace" | "other";
+
+export type LaneCall =
+  | { kind: "target"; atMs: number; targetSec: number; id: string }
+  | { kind: "end-call"; atMs: number; id: string };
+
+/** Everything one pilot's lane recorded, with undo and corrections applied. */
+export type LaneLog = {
+  lane: number;
+  flights: RawFlight[];
+  invalid: Map<number, InvalidReason>;
+  penalties: { id: string; points: number; reason: string }[];
+  calls: LaneCall[];
+  /** Taps that did not change the flights: a launch while flying, a landing with none open. */
+  ignored: { id: string; reason: "launch-while-flying" | "landing-without-flight" }[];
+};
+
+export type RunLog = {
+  /** Every effective window-start in time order (task C: one launch signal per attempt). */
+  signalsMs: number[];
+  runEndMs: number | null;
+  lanes: LaneLog[];
+};
+
+/**
+ * Pairs launches and landings per lane into flights.
+ *
+ * A landing closes the lane's open flight; a landing with no open flight is ignored, and
+ * a launch while a flight is open is ignored. Nothing is debounced: a landing and a
+ * launch 0.3 s apart are two real taps (RULES.md "common practice").
+ * `laneCount` fixes the number of lanes; by default it is 1 + the highest lane seen.
+ */
+export function pairFlights(events: readonly TimelineEvent[], laneCount?: number): RunLog {
+  const effective = applyUndoAndCorrections(events);
+  let lanesNeeded = laneCount ?? 1;
+  if (laneCount === undefined) {
+    for (const e of effective) if ("lane" in e.body) lanesNeeded = Math.max(lanesNeeded, e.body.lane + 1);
+  }
+  const lanes: LaneLog[] = Array.from({ length: lanesNeeded }, (_, lane) => ({
+    lane,
+    flights: [],
+    invalid: new Map(),
+    penalties: [],
+    calls: [],
+    ignored: [],
+  }));
+  const open: (RawFlight | null)[] = lanes.map(() => null);
+  const signalsMs: number[] = [];
+  let runEndMs: number | null = null;
+
+  for (const e of effective) {
+    const body = e.body;
+    if (body.kind === "window-start") signalsMs.push(e.atMs);
+    else if (body.kind === "run-end") runEndMs = runEndMs === null ? e.atMs : Math.max(runEndMs, e.atMs);
+    if (!("lane" in body)) continue;
+    const log = lanes[body.lane];
+    if (!log) continue; // a lane outside laneCount
+    switch (body.kind) {
+      case "launch": {
+        if (open[body.lane]) {
+          log.ignored.push({ id: e.id, reason: "launch-while-flying" });
+          break;
+        }
+        const flight: RawFlight = { index: log.flights.length, launchAtMs: e.atMs, landAtMs: null, launchId: e.id, landId: null };
+        log.flights.push(flight);
+        open[body.lane] = flight;
+        break;
+      }
+      case "landing": {
+        const flight = open[body.lane];
+        if (!flight) {
+          log.ignored.push({ id: e.id, reason: "landing-without-flight" });
+          break;
+        }
+        flight.landAtMs = e.atMs;
+        flight.landId = e.id;
+        open[body.lane] = null;
+        break;
+      }
+      case "invalid":
+        log.invalid.set(body.flightIndex, body.reason);
+        break;
+      case "penalty":
+        log.penalties.push({ id: e.id, points: body.points, reason: body.reason });
+        break;
+      case "target":
+        log.calls.push({ kind: "target", atMs: e.atMs, targetSec: body.targetSec, id: e.id });
+        break;
+      case "end-call":
+        log.calls.push({ kind: "end-call", atMs: e.atMs, id: e.id });
+        break;
+    }
+  }
+  return { signalsMs, runEndMs, lanes };
+}

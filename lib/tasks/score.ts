@@ -1,0 +1,96 @@
+import type { TaskDefinition } from "./definition";
+import { countWindowFlights, type Pick } from "./counting";
+import type { LaneLog, RunLog } from "./flights";
+import { countPokerFlights, type PokerState } from "./poker";
+import { sumCapTenths } from "./limits";
+import { timeAllUpFlights, timeWindowFlights, type Clock, type FlightReason, type TimedFlight } from "./timing";
+
+export type FlightStatus = "counted" | "capped" | "not-counted" | "invalid" | "open";
+
+/** One flight as the timer and the logbook show it (times relative to working-time start). */
+export type ScoredFlight = TimedFlight & {
+  status: FlightStatus;
+  reason: FlightReason | null;
+  /** Counts toward the result (its credit may still be 0 if it is invalid). */
+  counted: boolean;
+  /** What this flight adds to the result, in tenths (before the sum cap). */
+  creditedTenths: number;
+  /** The cap or target of the slot this flight fills, in tenths. */
+  slotCapTenths: number | null;
+  /** Task E / called targets: the target this flight attempted. */
+  targetSec: number | null;
+};
+
+export type LaneScore = {
+  lane: number;
+  flights: ScoredFlight[];
+  /** Sum of credited tenths before the F3K.7 sum cap. */
+  rawTenths: number;
+  /** The sum cap that applied (tenths), or null for tasks without one. */
+  sumCapTenths: number | null;
+  /** The task result in tenths of a second. */
+  resultTenths: number;
+  penaltyPoints: number;
+  poker: PokerState | null;
+};
+
+/** Scores one lane: timing rules, then the counting rule, then the sum cap (F3K.7). */
+export function scoreLane(def: TaskDefinition, run: RunLog, log: LaneLog, clock: Clock): LaneScore {
+  let timed: TimedFlight[];
+  let picks: Pick[];
+  let targetOf: (number | null)[] = [];
+  let poker: PokerState | null = null;
+  if (def.kind === "all-up") {
+    timed = timeAllUpFlights(def, run.signalsMs, log, clock);
+    picks = timed.map((f) => {
+      if (f.excludedReason) return { counted: false, slotCapTenths: null, creditedTenths: 0, reason: f.excludedReason };
+      const cap = def.capSec * 10;
+      return { counted: true, slotCapTenths: cap, creditedTenths: f.zeroReason ? 0 : Math.min(f.timeTenths, cap), reason: f.zeroReason };
+    });
+  } else {
+    timed = timeWindowFlights(def, run.signalsMs[0] ?? null, log, clock);
+    if (def.kind === "window") picks = countWindowFlights(def, timed);
+    else {
+      const result = countPokerFlights(def, timed, log.calls);
+      picks = result.picks;
+      targetOf = result.targetOf;
+      poker = result.state;
+    }
+  }
+
+  let rawTenths = 0;
+  let scored = 0;
+  const flights = timed.map((f, i): ScoredFlight => {
+    const pick = picks[i]!;
+    rawTenths += pick.creditedTenths;
+    if (pick.creditedTenths > 0) scored += 1;
+    return {
+      ...f,
+      status: statusOf(f, pick),
+      reason: pick.reason,
+      counted: pick.counted,
+      creditedTenths: pick.creditedTenths,
+      slotCapTenths: pick.slotCapTenths,
+      targetSec: targetOf[i] ?? (def.kind === "window" && def.ladder && pick.slotCapTenths !== null ? pick.slotCapTenths / 10 : null),
+    };
+  });
+  // "Scored flights" for F3K.7 = flights that add time to the result (choice: a counted
+  // zero does not cost its one second).
+  const cap = sumCapTenths(def, scored);
+  return {
+    lane: log.lane,
+    flights,
+    rawTenths,
+    sumCapTenths: cap,
+    resultTenths: cap === null ? rawTenths : Math.min(rawTenths, cap),
+    penaltyPoints: log.penalties.reduce((sum, p) => sum + p.points, 0),
+    poker,
+  };
+}
+
+function statusOf(f: TimedFlight, pick: Pick): FlightStatus {
+  if (f.open) return "open";
+  if (f.zeroReason && !f.excludedReason) return "invalid";
+  if (!pick.counted) return "not-counted";
+  return pick.slotCapTenths !== null && f.timeTenths > pick.slotCapTenths ? "capped" : "counted";
+}

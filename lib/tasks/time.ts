@@ -1,0 +1,40 @@
+/**
+ * Rule arithmetic on time: integer milliseconds in, integer tenths of a second out.
+ *
+ * Flight times are recorded to 0.1 s and never rounded up (F3K.7: 183.96 s → 183.9 s),
+ * so every conversion here truncates, and nothing downstream uses float seconds.
+ */
+
+/** Milliseconds → whole tenths of a second, truncated toward zero; negative durations are 0. */
+export function msToTenths(ms: number): number {
+  if (!(ms > 0)) return 0;
+  // A stamp may carry sub-millisecond noise (e.g. 183999.9999): drop it first, then
+  // divide an integer by 100 with integer arithmetic only.
+  const whole = Math.floor(ms);
+  return (whole - (whole % 100)) / 100;
+}
+
+/** Whole seconds → tenths (exact for integers). */
+export function secToTenths(sec: number): number {
+  return sec * 10;
+}
+
+/** Tenths → seconds as the float nearest the tenth (e.g. 5690 → 569, 1425 → 142.5). */
+export function tenthsToSec(tenths: number): number {
+  return tenths / 10;
+}
+
+/** Seconds (a multiple of 0.1, possibly carrying float noise) → integer tenths. */
+export function secToTenthsRounded(sec: number): number {
+  return Math.round(sec * 10);
+}
+
+/** Formats tenths as `m:ss.t` for messages (e.g. 1839 → "3:03.9"). */
+export function formatTenths(tenths: number): string {
+  const sign = tenths < 0 ? "-" : "";
+  const t = Math.abs(Math.trunc(tenths));
+  const minutes = Math.floor(t / 600);
+  const rest = t - minutes * 600;
+  const seconds = Math.floor(rest / 10);
+  return `${sign}${minutes}:${String(seconds).padStart(2, "0")}.${rest % 10}`;
+}
