@@ -1,0 +1,96 @@
+import Dexie, { type EntityTable, type Table } from "dexie";
+import type { ClockEstimate, TimeSample } from "@/lib/clock";
+import type { RunEvent } from "@/lib/events/schema";
+import type { RunEntity, SessionEntity } from "./entities";
+
+/**
+ * The device's one IndexedDB database (SYNC.md §2), browser only.
+ */
+
+/** What an outbox entry stands for; its id is the id of that event, session or run. */
+export type OutboxKind = "event" | "session" | "run";
+
+/** One item not yet acknowledged by the server. */
+export type OutboxEntry = {
+  id: string;
+  kind: OutboxKind;
+  /** Device wall time it was queued (for display). */
+  createdAt: number;
+  /**
+   * Local, strictly increasing queue position, allocated in the writing transaction:
+   * sends follow it, so a run always goes before its events even if the wall clock
+   * was stepped back in between.
+   */
+  queueSeq: number;
+  /** Failed push attempts so far. */
+  attempts: number;
+  lastError?: string;
+  /** Set when the server (or the device's own validation) refused it: kept, never resent. */
+  rejected?: { reason: string };
+};
+
+/** One /api/time exchange kept for the clock filter, grouped by measurement burst. */
+export type ClockSampleRow = TimeSample & { id: number; burstId: number };
+
+/** Typed values of the `meta` table. */
+export type MetaValues = {
+  deviceId: string;
+  /** The seq the next recorded event gets (per device, from 1). */
+  nextSeq: number;
+  /** The queueSeq the next outbox entry gets. */
+  nextQueueSeq: number;
+  /** The server sequence number pulled up to. */
+  pullCursor: number;
+  /** Id of the last clock measurement burst. */
+  clockBurst: number;
+  /** The offset estimate of the latest successful burst. */
+  clockEstimate: ClockEstimate;
+};
+export type MetaKey = keyof MetaValues;
+export type MetaRow = { key: MetaKey; value: MetaValues[MetaKey] };
+
+export type WindowcallDb = Dexie & {
+  events: Table<RunEvent, string>;
+  outbox: Table<OutboxEntry, string>;
+  sessions: Table<SessionEntity, string>;
+  runs: Table<RunEntity, string>;
+  meta: Table<MetaRow, MetaKey>;
+  clockSamples: EntityTable<ClockSampleRow, "id">;
+};
+
+export const DB_NAME = "windowcall";
+
+/** Open (lazily, on first use) a Windowcall database; tests pass their own name. */
+export function createWindowcallDb(name: string = DB_NAME): WindowcallDb {
+  const db = new Dexie(name) as WindowcallDb;
+  // Schema history. Old versions are never edited: a change adds
+  // db.version(n + 1).stores({...changed tables only}).upgrade(tx => ...) below.
+  db.version(1).stores({
+    events: "id, runId, [deviceId+seq]",
+    outbox: "id, queueSeq, kind",
+    sessions: "id, ownerId, startedAtWallMs",
+    runs: "id, sessionId",
+    meta: "key",
+    clockSamples: "++id, burstId",
+  });
+  return db;
+}
+
+let shared: WindowcallDb | undefined;
+
+/** The app's database, created on first call (never at import, so server rendering is safe). */
+export function getWindowcallDb(): WindowcallDb {
+  shared ??= createWindowcallDb();
+  return shared;
+}
+
+/** Read a typed meta value. */
+export async function getMeta<K extends MetaKey>(db: WindowcallDb, key: K): Promise<MetaValues[K] | undefined> {
+  const row = await db.meta.get(key);
+  return row?.value as MetaValues[K] | undefined;
+}
+
+/** Write a typed meta value. */
+export async function setMeta<K extends MetaKey>(db: WindowcallDb, key: K, value: MetaValues[K]): Promise<void> {
+  await db.meta.put({ key, value });
+}

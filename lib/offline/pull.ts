@@ -1,0 +1,51 @@
+import type { RunEvent } from "@/lib/events/schema";
+import { pullReplySchema } from "@/lib/validations/sync";
+import { getMeta, setMeta, type WindowcallDb } from "./db";
+import type { RunEntity, SessionEntity } from "./entities";
+import { requestJson, type FetchLike, type HttpResult } from "./http";
+
+export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string };
+
+/** How a pull ended: ok with the number of items stored, or the failure to report. */
+export type PullOutcome = { kind: "ok"; items: number } | Exclude<HttpResult<unknown>, { kind: "ok" }>;
+
+/** Safety stop for a server that keeps saying "more" (pages of a normal catch-up are far fewer). */
+const MAX_PAGES = 1000;
+
+/**
+ * Fetch everything changed since the stored cursor, page by page, until `hasMore` is false.
+ * Each page's records and the advanced cursor are stored in one transaction (bulkPut, so a
+ * page seen twice changes nothing); a failure leaves the cursor at the last stored page.
+ */
+export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
+  const { db } = deps;
+  let cursor = (await getMeta(db, "pullCursor")) ?? 0;
+  let stored = 0;
+  for (let page = 0; page < MAX_PAGES; page++) {
+    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}`;
+    const r = await requestJson(deps.fetch, url, { method: "GET" }, pullReplySchema);
+    if (r.kind !== "ok") return r;
+    const { items, nextCursor, hasMore } = r.value;
+    if (nextCursor < cursor || (hasMore && nextCursor === cursor)) {
+      return { kind: "bad-reply", message: `pull cursor did not advance (${cursor} → ${nextCursor})` };
+    }
+    const events: RunEvent[] = [];
+    const sessions: SessionEntity[] = [];
+    const runs: RunEntity[] = [];
+    for (const item of items) {
+      if (item.type === "event") events.push(item.data);
+      else if (item.type === "session") sessions.push(item.data);
+      else runs.push(item.data);
+    }
+    await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta], async () => {
+      await db.sessions.bulkPut(sessions);
+      await db.runs.bulkPut(runs);
+      await db.events.bulkPut(events);
+      await setMeta(db, "pullCursor", nextCursor);
+    });
+    stored += items.length;
+    cursor = nextCursor;
+    if (!hasMore) return { kind: "ok", items: stored };
+  }
+  return { kind: "bad-reply", message: `pull still had more after ${MAX_PAGES} pages` };
+}

@@ -1,0 +1,51 @@
+import { PUSH_BATCH_SIZE, pushReplySchema } from "@/lib/validations/sync";
+import type { WindowcallDb } from "./db";
+import { describeFailure, postJson, requestJson, type FetchLike, type HttpResult } from "./http";
+import { applyAcks, listPending, loadPayload, markAttemptFailed, markRejected } from "./outbox";
+
+export type PushDeps = { db: WindowcallDb; fetch: FetchLike; deviceId: string; baseUrl?: string };
+
+/** How a push pass ended: ok with counts, or the failure to report and back off from. */
+export type PushOutcome =
+  | { kind: "ok"; acked: number; rejected: number }
+  | Exclude<HttpResult<unknown>, { kind: "ok" }>;
+
+/**
+ * Send the outbox in queue order, in batches of at most 200, until nothing sendable is left.
+ * Entries are deleted only when the server acknowledges them (applied or duplicate);
+ * rejected ones are kept with the reason. A failed request counts an attempt on every entry
+ * of its batch and ends the pass. Entries the reply does not mention stay queued; a reply
+ * that answers for none of the batch is treated as a failure, so the pass cannot spin.
+ */
+export async function pushOutbox(deps: PushDeps): Promise<PushOutcome> {
+  const { db } = deps;
+  let acked = 0;
+  let rejected = 0;
+  for (;;) {
+    const entries = await listPending(db, PUSH_BATCH_SIZE);
+    if (entries.length === 0) return { kind: "ok", acked, rejected };
+    const { payload, sentIds, invalid } = await loadPayload(db, entries);
+    if (invalid.length > 0) {
+      await markRejected(db, invalid);
+      rejected += invalid.length;
+    }
+    if (sentIds.length === 0) continue;
+
+    const body = { deviceId: deps.deviceId, ...payload };
+    const r = await requestJson(deps.fetch, `${deps.baseUrl ?? ""}/api/sync/push`, postJson(body), pushReplySchema);
+    if (r.kind !== "ok") {
+      await markAttemptFailed(db, sentIds, describeFailure(r));
+      return r;
+    }
+    const result = await applyAcks(db, sentIds, r.value.acks);
+    if (result.answered.size === 0) {
+      const failure = { kind: "bad-reply", message: "the server acknowledged none of the items sent" } as const;
+      await markAttemptFailed(db, sentIds, describeFailure(failure));
+      return failure;
+    }
+    acked += result.accepted;
+    rejected += result.rejected;
+    const unanswered = sentIds.filter((id) => !result.answered.has(id));
+    if (unanswered.length > 0) await markAttemptFailed(db, unanswered, "not acknowledged by the server");
+  }
+}

@@ -1,0 +1,73 @@
+import { z } from "zod";
+import { runEventSchema } from "@/lib/events/schema";
+import { runEntitySchema, sessionEntitySchema } from "@/lib/offline/entities";
+
+/**
+ * The sync protocol between a device and the server (SYNC.md §3). One schema per message,
+ * parsed by the route handlers before any I/O and by the sync client on every reply.
+ */
+
+/** Most items one push may carry (the client sends at most PUSH_BATCH_SIZE). */
+export const PUSH_MAX_ITEMS = 500;
+/** Batch size the sync client uses. */
+export const PUSH_BATCH_SIZE = 200;
+
+// POST /api/sync/push — body
+export const pushRequestSchema = z
+  .object({
+    deviceId: z.string().min(1).max(64),
+    sessions: z.array(sessionEntitySchema),
+    runs: z.array(runEntitySchema),
+    events: z.array(runEventSchema),
+  })
+  .refine((r) => r.sessions.length + r.runs.length + r.events.length <= PUSH_MAX_ITEMS, {
+    message: `at most ${PUSH_MAX_ITEMS} items per push`,
+  });
+export type PushRequest = z.infer<typeof pushRequestSchema>;
+
+/** The server's verdict on one pushed item, by its id. */
+export const ackSchema = z.object({
+  id: z.string().min(1),
+  status: z.enum(["applied", "duplicate", "rejected"]),
+  reason: z.string().max(500).optional(),
+});
+export type Ack = z.infer<typeof ackSchema>;
+
+// POST /api/sync/push — reply
+export const pushReplySchema = z.object({
+  acks: z.array(ackSchema),
+  serverSeq: z.number().int().nonnegative(),
+});
+export type PushReply = z.infer<typeof pushReplySchema>;
+
+// GET /api/sync/pull?cursor=N — query
+export const pullQuerySchema = z.object({
+  cursor: z.coerce.number().int().nonnegative().default(0),
+});
+export type PullQuery = z.infer<typeof pullQuerySchema>;
+
+const seq = z.number().int().positive();
+
+/** One changed record, tagged with the server sequence number it was assigned. */
+export const pullItemSchema = z.discriminatedUnion("type", [
+  z.object({ type: z.literal("event"), seq, data: runEventSchema }),
+  z.object({ type: z.literal("session"), seq, data: sessionEntitySchema }),
+  z.object({ type: z.literal("run"), seq, data: runEntitySchema }),
+]);
+export type PullItem = z.infer<typeof pullItemSchema>;
+
+// GET /api/sync/pull — reply
+export const pullReplySchema = z.object({
+  items: z.array(pullItemSchema),
+  nextCursor: z.number().int().nonnegative(),
+  hasMore: z.boolean(),
+});
+export type PullReply = z.infer<typeof pullReplySchema>;
+
+// POST /api/time — body: the device's send time T1
+export const timeRequestSchema = z.object({ t1: z.number() });
+export type TimeRequest = z.infer<typeof timeRequestSchema>;
+
+// POST /api/time — reply: T1 echoed, server receive time T2 and send time T3
+export const timeReplySchema = z.object({ t1: z.number(), t2: z.number(), t3: z.number() });
+export type TimeReply = z.infer<typeof timeReplySchema>;
