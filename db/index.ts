@@ -5,17 +5,23 @@ import * as schema from "./schema";
 
 export type Database = NodePgDatabase<typeof schema>;
 
-const globalForDb = globalThis as unknown as { windowcallPool?: Pool };
+const cache = globalThis as unknown as { windowcallPool?: Pool; windowcallDb?: Database };
 
-function makePool(): Pool {
-  const url = process.env.DATABASE_URL;
-  if (!url) throw new Error("DATABASE_URL is not set (run `npm start`, which writes it)");
-  return new Pool({ connectionString: url, max: 10 });
+/** The one pool of the process, made on first use (the build imports modules without a database). */
+export function getPool(): Pool {
+  if (!cache.windowcallPool) {
+    const url = process.env.DATABASE_URL;
+    if (!url) throw new Error("DATABASE_URL is not set (run `npm start`, which sets it)");
+    cache.windowcallPool = new Pool({ connectionString: url, max: 10 });
+  }
+  return cache.windowcallPool;
 }
 
-/** The one pool of the process (cached on globalThis so dev reloads reuse it). */
-export const pool: Pool = globalForDb.windowcallPool ?? makePool();
-globalForDb.windowcallPool = pool;
+function getDb(): Database {
+  return (cache.windowcallDb ??= drizzle(getPool(), { schema }));
+}
 
-/** The one Drizzle client. */
-export const db: Database = drizzle(pool, { schema });
+/** The one Drizzle client (cached on globalThis so dev reloads reuse it). */
+export const db: Database = new Proxy({} as Database, {
+  get: (_target, prop) => Reflect.get(getDb(), prop),
+});

@@ -3,6 +3,7 @@ set -euo pipefail
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
+export NEXT_TELEMETRY_DISABLED=1
 
 say() { printf '\033[1m[windowcall]\033[0m %s\n' "$*"; }
 die() { printf '\033[31m[windowcall] %s\033[0m\n' "$*" >&2; exit 1; }

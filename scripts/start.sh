@@ -1,0 +1,25 @@
+#!/usr/bin/env bash
+# npm start — install what is missing, start PostgreSQL on loopback, migrate, seed the demo club,
+# build and serve on http://localhost:3000 (PORT overrides). Ctrl-C stops the app and the database.
+source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
+
+export PORT="${PORT:-3000}"
+ensure_node_modules
+bash scripts/db.sh up
+ensure_env_file
+export DATABASE_URL="$(bash scripts/db.sh url windowcall)"
+export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
+npx tsx scripts/migrate.ts
+npx tsx --conditions=react-server scripts/seed.ts
+port_in_use "$PORT" && die "port $PORT is already taken: stop what runs there or run PORT=3100 npm start"
+say "building the app (next build --webpack, about a minute)"
+npx next build --webpack >.data-build.log 2>&1 || { tail -40 .data-build.log; die "build failed (full log: .data-build.log)"; }
+rm -f .data-build.log
+
+stop() { say "stopping"; [ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null; wait "${APP_PID:-}" 2>/dev/null; bash scripts/db.sh stop; exit 0; }
+trap stop INT TERM
+npx next start -p "$PORT" &
+APP_PID=$!
+say "Windowcall is on http://localhost:$PORT — demo accounts are in the README. Ctrl-C stops it."
+wait "$APP_PID"
+bash scripts/db.sh stop

@@ -1,0 +1,50 @@
+#!/usr/bin/env bash
+# npm test — the same provisioning as npm start (plus Chromium), a fresh test database, then
+# typecheck, lint, unit, integration (real PostgreSQL), production build and end-to-end (Chromium).
+# Ends with one line per suite and a closing count. Exit status is non-zero when any suite fails.
+source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
+
+ensure_node_modules
+ensure_chromium_installed
+WAS_RUNNING=0; bash scripts/db.sh running && WAS_RUNNING=1
+bash scripts/db.sh up
+ensure_env_file
+
+ADMIN_URL="$(bash scripts/db.sh url postgres)"
+psql "$ADMIN_URL" -qc "drop database if exists windowcall_test with (force)" -c "create database windowcall_test" >/dev/null
+export DATABASE_URL="$(bash scripts/db.sh url windowcall_test)"
+export E2E_PORT="${E2E_PORT:-$(free_port 3310)}"
+export NEXTAUTH_URL="http://localhost:$E2E_PORT"
+npx tsx scripts/migrate.ts
+npx tsx --conditions=react-server scripts/seed.ts
+
+declare -a NAMES=() RESULTS=()
+run_suite() {
+  local name="$1"; shift
+  say "── $name: $*"
+  local start=$SECONDS status=passed
+  "$@" || status=FAILED
+  NAMES+=("$name"); RESULTS+=("$status ($((SECONDS - start)) s)")
+}
+
+run_suite typecheck npx tsc --noEmit
+run_suite lint npx eslint . --max-warnings=0
+run_suite unit npx vitest run --project unit
+run_suite integration npx vitest run --project integration
+run_suite build npx next build --webpack
+if [ "${RESULTS[-1]%% *}" = passed ]; then
+  run_suite e2e npx playwright test
+else
+  NAMES+=(e2e); RESULTS+=("FAILED (not run: the build failed)")
+fi
+
+[ "$WAS_RUNNING" = 1 ] || bash scripts/db.sh stop
+
+echo
+passed=0; failed=0
+for i in "${!NAMES[@]}"; do
+  printf '%-12s %s\n' "${NAMES[$i]}" "${RESULTS[$i]}"
+  case "${RESULTS[$i]}" in passed*) passed=$((passed + 1)) ;; *) failed=$((failed + 1)) ;; esac
+done
+echo "suites: $passed passed, $failed failed"
+[ "$failed" = 0 ]

@@ -1,0 +1,2 @@
+// Stands in for the 'server-only' guard outside Next (Vitest).
+export {};
