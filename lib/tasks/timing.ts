@@ -24,6 +24,7 @@ export type FlightReason =
 /** A flight with the timing rules applied, before the counting rule picks what counts. */
 export type TimedFlight = {
   index: number;
+  launchId: string;
   launchAtMs: number;
   landAtMs: number | null;
   /** Launch relative to working-time start (task C: to its attempt's signal). */
@@ -68,12 +69,12 @@ export function timeWindowFlights(def: WindowTask | PokerTask, startMs: number |
   return log.flights.map((f) => {
     const t = blank(f, base, log, clock);
     if (startMs !== null && f.launchAtMs >= endAtMs) return { ...t, excludedReason: "launched-after-working-time" };
-    launches += 1;
-    if (limit !== null && launches > limit) return { ...t, excludedReason: "beyond-launch-limit" };
     const landAt = t.open ? clock!.nowMs : f.landAtMs;
     if (startMs !== null && landAt !== null) {
       t.inWindowTenths = msToTenths(Math.min(landAt, endAtMs) - Math.max(f.launchAtMs, startMs));
     }
+    launches += 1;
+    if (limit !== null && launches > limit) return { ...t, excludedReason: "beyond-launch-limit" };
     let zero: FlightReason | null = null;
     if (t.markedInvalid) zero = "marked-invalid";
     else if (startMs === null || f.launchAtMs < startMs) zero = "launched-before-working-time";
@@ -122,6 +123,7 @@ function blank(f: RawFlight, base: number, log: LaneLog, clock: Clock): TimedFli
   const open = f.landAtMs === null && clock !== null;
   return {
     index: f.index,
+    launchId: f.launchId,
     launchAtMs: f.launchAtMs,
     landAtMs: f.landAtMs,
     launchMs: f.launchAtMs - base,

@@ -1,0 +1,26 @@
+/**
+ * The F3K task engine: pure TypeScript, no framework imports, the same code in the
+ * browser (live score) and on the server (official score).
+ */
+export { scoreTask, type FlightInput, type ScoreTaskInput, type ScoreTaskResult } from "./score-task";
+export { foldRun, type FoldedRun } from "./fold";
+export { liveState, phaseOf, type LiveState, type LaneLive, type LiveFlight, type Phase } from "./live";
+export { pointsLost, type PointsLost } from "./breakdown";
+export { CATALOGUE, CATALOGUE_EDITION, getCatalogueTask, listVariants } from "./catalogue";
+export { buildCustomTask, customTaskInputSchema, type CustomTaskInput } from "./custom";
+export {
+  parseTaskDefinition,
+  taskDefinitionSchema,
+  taskLetterSchema,
+  type TaskDefinition,
+  type TaskLetter,
+  type WindowTask,
+  type PokerTask,
+  type AllUpTask,
+} from "./definition";
+export { maxResultTenths, sumCapTenths, isWindowBound } from "./limits";
+export { msToTenths, tenthsToSec, formatTenths } from "./time";
+export type { TimelineEvent } from "./timeline";
+export type { ScoredFlight, FlightStatus, LaneScore } from "./score";
+export type { FlightReason } from "./timing";
+export type { LiveWarning, WarningCode } from "./warnings";
