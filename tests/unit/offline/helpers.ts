@@ -1,0 +1,103 @@
+import { v7 as uuidv7 } from "uuid";
+import type { RunEvent, Stamp } from "@/lib/events/schema";
+import { createWindowcallDb, type WindowcallDb } from "@/lib/offline/db";
+import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { Timers } from "@/lib/offline/sync-client";
+import { pushRequestSchema, type Ack, type PushRequest } from "@/lib/validations/sync";
+
+/** A fresh, uniquely named database (fake-indexeddb, see tests/unit/setup.ts). */
+export function freshDb(): WindowcallDb {
+  return createWindowcallDb(`test-${uuidv7()}`);
+}
+
+export const stamp = (wallMs = 1_700_000_000_000): Stamp => ({ wallMs, monoMs: 1234.5, pageId: "page-1", offset: null });
+
+/** Timers the test fires by hand. */
+export class ManualTimers implements Timers {
+  private next = 1;
+  readonly pending = new Map<number, { fn: () => void; ms: number }>();
+  set(fn: () => void, ms: number): number {
+    const id = this.next++;
+    this.pending.set(id, { fn, ms });
+    return id;
+  }
+  clear(handle: unknown): void {
+    this.pending.delete(handle as number);
+  }
+  delays(): number[] {
+    return [...this.pending.values()].map((t) => t.ms);
+  }
+  /** Fire every pending timer once. */
+  fireAll(): void {
+    const due = [...this.pending.entries()];
+    this.pending.clear();
+    for (const [, t] of due) t.fn();
+  }
+}
+
+type Item = { type: "event"; data: RunEvent } | { type: "session"; data: SessionEntity } | { type: "run"; data: RunEntity };
+
+/**
+ * An in-memory stand-in for the sync routes: applies each item once by id (a second push is
+ * a "duplicate"), keeps a server sequence for pulls, and can be told to fail or misbehave.
+ */
+export class FakeServer {
+  readonly log: { seq: number; item: Item }[] = [];
+  readonly pushes: PushRequest[] = [];
+  readonly requests: string[] = [];
+  rejectIds = new Map<string, string>();
+  /** Ids the server applies but leaves out of its reply. */
+  silentIds = new Set<string>();
+  /** Responses to use for the next requests, before normal handling. */
+  failures: ("throw" | number)[] = [];
+  pullPageSize = 100;
+
+  fetch = async (url: string, init?: RequestInit): Promise<Response> => {
+    this.requests.push(`${init?.method ?? "GET"} ${url}`);
+    const failure = this.failures.shift();
+    if (failure === "throw") throw new TypeError("Failed to fetch");
+    if (typeof failure === "number") return Response.json({ error: { code: "x", message: "boom" } }, { status: failure });
+    if (url.startsWith("/api/sync/push")) return this.push(JSON.parse(String(init?.body)));
+    if (url.startsWith("/api/sync/pull")) return this.pull(Number(new URL(url, "http://x").searchParams.get("cursor")));
+    return new Response("not found", { status: 404 });
+  };
+
+  private push(body: unknown): Response {
+    const req = pushRequestSchema.parse(body); // the client must speak the protocol exactly
+    this.pushes.push(req);
+    const acks: Ack[] = [];
+    const items: Item[] = [
+      ...req.sessions.map((data) => ({ type: "session" as const, data })),
+      ...req.runs.map((data) => ({ type: "run" as const, data })),
+      ...req.events.map((data) => ({ type: "event" as const, data })),
+    ];
+    for (const item of items) {
+      const id = item.data.id;
+      const reason = this.rejectIds.get(id);
+      let ack: Ack;
+      if (reason) ack = { id, status: "rejected", reason };
+      else if (this.log.some((l) => l.item.data.id === id)) ack = { id, status: "duplicate" };
+      else {
+        this.log.push({ seq: this.log.length + 1, item });
+        ack = { id, status: "applied" };
+      }
+      if (!this.silentIds.has(id)) acks.push(ack);
+    }
+    return Response.json({ acks, serverSeq: this.log.length });
+  }
+
+  private pull(cursor: number): Response {
+    const after = this.log.filter((l) => l.seq > cursor);
+    const page = after.slice(0, this.pullPageSize);
+    const nextCursor = page.at(-1)?.seq ?? cursor;
+    return Response.json({
+      items: page.map((l) => ({ type: l.item.type, seq: l.seq, data: l.item.data })),
+      nextCursor,
+      hasMore: after.length > page.length,
+    });
+  }
+
+  eventIds(): string[] {
+    return this.log.filter((l) => l.item.type === "event").map((l) => l.item.data.id);
+  }
+}

@@ -1,0 +1,101 @@
+import { v7 as uuidv7 } from "uuid";
+import { afterEach, describe, expect, it } from "vitest";
+import { getMeta, setMeta, type WindowcallDb } from "@/lib/offline/db";
+import { recordEvent } from "@/lib/offline/record";
+import { SyncClient } from "@/lib/offline/sync-client";
+import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
+
+const dbs: WindowcallDb[] = [];
+afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = () => {
+  const db = freshDb();
+  dbs.push(db);
+  return db;
+};
+
+/** A server that already holds a session, a run and `n` events pushed by another phone. */
+async function serverWithData(n: number) {
+  const server = new FakeServer();
+  const other = open();
+  const phone = new SyncClient({ db: other, fetch: server.fetch, timers: new ManualTimers() });
+  const { createSessionLocal, createRunLocal } = await import("@/lib/offline/record");
+  const session = await createSessionLocal(other, { ownerId: "u1", fieldName: "East field", conditions: {}, startedAtWallMs: 1 });
+  const run = await createRunLocal(other, { sessionId: session.id, task: {}, lanes: [{ lane: 0, pilotName: "P" }], createdAtWallMs: 2 });
+  for (let i = 0; i < n; i++) await recordEvent(other, { runId: run.id, body: { kind: "launch", lane: 0 }, stamp: stamp() });
+  await phone.flush();
+  return { server, session, run };
+}
+
+describe("pull", () => {
+  it("pages until hasMore is false, storing every item and the cursor", async () => {
+    const { server, session, run } = await serverWithData(5); // 7 items in the log
+    server.pullPageSize = 3;
+    const db = open();
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
+    expect(await client.pull()).toEqual({ kind: "ok", items: 7 });
+    expect(server.requests.filter((r) => r.includes("/pull"))).toEqual([
+      "GET /api/sync/pull?cursor=0",
+      "GET /api/sync/pull?cursor=3",
+      "GET /api/sync/pull?cursor=6",
+    ]);
+    expect(await db.sessions.get(session.id)).toEqual(session);
+    expect(await db.runs.get(run.id)).toEqual(run);
+    expect(await db.events.count()).toBe(5);
+    expect(await getMeta(db, "pullCursor")).toBe(7);
+  });
+
+  it("is idempotent: pulling the same pages again changes nothing", async () => {
+    const { server } = await serverWithData(4);
+    server.pullPageSize = 2;
+    const db = open();
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
+    await client.pull();
+    const snapshot = { events: await db.events.toArray(), sessions: await db.sessions.toArray(), runs: await db.runs.toArray() };
+    await setMeta(db, "pullCursor", 0); // as if the cursor write had been lost
+    await client.pull();
+    expect({ events: await db.events.toArray(), sessions: await db.sessions.toArray(), runs: await db.runs.toArray() }).toEqual(snapshot);
+  });
+
+  it("continues from the stored cursor", async () => {
+    const { server } = await serverWithData(2);
+    const db = open();
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
+    await client.pull();
+    await client.pull();
+    expect(server.requests.filter((r) => r.includes("/pull")).at(-1)).toBe("GET /api/sync/pull?cursor=4");
+  });
+
+  it("stops with an error when the server's cursor does not advance", async () => {
+    const db = open();
+    let calls = 0;
+    const fetch = async () => {
+      calls++;
+      return Response.json({ items: [], nextCursor: 0, hasMore: true });
+    };
+    const client = new SyncClient({ db, fetch, timers: new ManualTimers() });
+    expect(await client.pull()).toMatchObject({ kind: "bad-reply", message: expect.stringMatching(/did not advance/) });
+    expect(calls).toBe(1);
+    expect(client.status().lastError).toMatch(/did not advance/);
+  });
+
+  it("keeps what earlier pages stored when a later page fails", async () => {
+    const { server } = await serverWithData(3);
+    server.pullPageSize = 2;
+    const db = open();
+    const flaky = async (url: string, init?: RequestInit) =>
+      url.endsWith("cursor=2") ? new Response("", { status: 502 }) : server.fetch(url, init);
+    const client = new SyncClient({ db, fetch: flaky, timers: new ManualTimers() });
+    expect(await client.pull()).toMatchObject({ kind: "http", status: 502 });
+    expect(await getMeta(db, "pullCursor")).toBe(2);
+    expect((await db.sessions.count()) + (await db.runs.count())).toBe(2);
+  });
+
+  it("brings this device's own pushed events back without duplicating them", async () => {
+    const server = new FakeServer();
+    const db = open();
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
+    const ev = await recordEvent(db, { runId: uuidv7(), body: { kind: "window-start" }, stamp: stamp() });
+    await client.sync();
+    expect(await db.events.toArray()).toEqual([ev]);
+  });
+});
