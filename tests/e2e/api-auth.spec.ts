@@ -1,0 +1,57 @@
+import { expect, test, type APIRequestContext } from "@playwright/test";
+import { DEMO_PASSWORD } from "./support/auth";
+
+/** Credentials sign-in over HTTP, as STACK.md describes (csrf, then the callback). */
+async function signIn(request: APIRequestContext, email: string, password = DEMO_PASSWORD) {
+  const { csrfToken } = await (await request.get("/api/auth/csrf")).json();
+  return request.post("/api/auth/callback/credentials", {
+    form: { csrfToken, email, password, json: "true" },
+  });
+}
+
+test("an admin-only route answers 401 signed out, 403 to a pilot, 200 to an admin", async ({ playwright, baseURL }) => {
+  const anon = await playwright.request.newContext({ baseURL });
+  const signedOut = await anon.get("/api/admin/users");
+  expect(signedOut.status()).toBe(401);
+  expect((await signedOut.json()).error.code).toBe("unauthorized");
+
+  const pilot = await playwright.request.newContext({ baseURL });
+  expect((await signIn(pilot, "tobi@example.com")).ok()).toBe(true);
+  const forbidden = await pilot.get("/api/admin/users");
+  expect(forbidden.status()).toBe(403);
+
+  const admin = await playwright.request.newContext({ baseURL });
+  expect((await signIn(admin, "admin@example.com")).ok()).toBe(true);
+  const ok = await admin.get("/api/admin/users");
+  expect(ok.status()).toBe(200);
+  const body = await ok.json();
+  expect(body.users.map((u: { email: string }) => u.email)).toContain("ada@example.com");
+  expect(JSON.stringify(body)).not.toContain("password");
+});
+
+test("a wrong password is refused with 401 and repeated failures are throttled", async ({ playwright, baseURL }) => {
+  const ctx = await playwright.request.newContext({ baseURL });
+  const wrong = await signIn(ctx, "lena@example.com", "wrong-password");
+  expect(wrong.status()).toBe(401);
+  for (let i = 0; i < 5; i++) await signIn(ctx, "lena@example.com", "wrong-password");
+  // Even the right password is refused while the address is locked; the session stays empty.
+  await signIn(ctx, "lena@example.com");
+  const session = await (await ctx.get("/api/auth/session")).json();
+  expect(session).toEqual({});
+});
+
+test("sign-up rejects bad input with a clear message and creates nothing", async ({ playwright, baseURL }) => {
+  const ctx = await playwright.request.newContext({ baseURL });
+  const res = await ctx.post("/api/account/sign-up", { data: { name: "", email: "not-an-address", password: "x" } });
+  expect(res.status()).toBe(422);
+  const body = await res.json();
+  expect(body.error.code).toBe("invalid_input");
+  expect([...new Set(body.error.issues.map((i: { path: string }) => i.path))].sort()).toEqual(["email", "name", "password"]);
+  const notJson = await ctx.post("/api/account/sign-up", { data: "{", headers: { "content-type": "application/json" } });
+  expect(notJson.status()).toBe(400);
+});
+
+test("health reports the database", async ({ request }) => {
+  const res = await request.get("/api/health");
+  expect(await res.json()).toEqual({ ok: true, database: "up" });
+});
