@@ -57,6 +57,9 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
     ignored: [],
   }));
   const open: (RawFlight | null)[] = lanes.map(() => null);
+  // A landing with no open flight at the same instant as a launch (a zero-length flight
+  // whose taps sorted landing-first) is held until that launch, then applied.
+  const held: ({ atMs: number; id: string } | null)[] = lanes.map(() => null);
   const signalsMs: number[] = [];
   let runEndMs: number | null = null;
 
@@ -76,12 +79,21 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
         const flight: RawFlight = { index: log.flights.length, launchAtMs: e.atMs, landAtMs: null, launchId: e.id, landId: null };
         log.flights.push(flight);
         open[body.lane] = flight;
+        const landing = held[body.lane];
+        if (landing && landing.atMs === e.atMs) {
+          flight.landAtMs = landing.atMs;
+          flight.landId = landing.id;
+          open[body.lane] = null;
+          held[body.lane] = null;
+          log.ignored = log.ignored.filter((x) => x.id !== landing.id);
+        }
         break;
       }
       case "landing": {
         const flight = open[body.lane];
         if (!flight) {
           log.ignored.push({ id: e.id, reason: "landing-without-flight" });
+          held[body.lane] = { atMs: e.atMs, id: e.id };
           break;
         }
         flight.landAtMs = e.atMs;

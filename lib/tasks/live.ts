@@ -5,7 +5,6 @@ import { bestPossibleAllUp, bestPossiblePoker, bestPossibleWindow, type Outlook 
 import { nextTargets } from "./next-target";
 import type { LaneScore, ScoredFlight } from "./score";
 import type { TimelineEvent } from "./timeline";
-import { msToTenths } from "./time";
 import { laneWarnings, type LiveWarning } from "./warnings";
 
 export type Phase = "not-started" | "working" | "landing-window" | "ended";
@@ -62,7 +61,9 @@ export function liveState(definition: TaskDefinition, events: readonly TimelineE
   const landedOnly = foldAt(definition, events.filter((e) => !isOpenLaunch(e, run.lanes)), nowMs, run.lanes.length);
   const clock = phaseOf(definition, run.signalsMs, nowMs);
   const lanes = run.lanes.map((lane, i): LaneLive => {
-    const outlook: Outlook = { timeLeftTenths: msToTenths(clock.flyLeftMs), launchOpen: clock.launchOpen };
+    // Rounded up: the flight in the air is timed in whole tenths too, and the bound must not
+    // lose the tenth that truncating the two parts separately would drop.
+    const outlook: Outlook = { timeLeftTenths: Math.ceil(clock.flyLeftMs / 100), launchOpen: clock.launchOpen };
     const best =
       definition.kind === "window"
         ? bestPossibleWindow(definition, lane, outlook)
