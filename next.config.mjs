@@ -12,7 +12,7 @@ const revision = (() => {
 })();
 
 /** Pages the field needs with no signal, precached at install (tests/e2e/offline.spec.ts checks them). */
-const offlineRoutes = ["/offline", "/settings", "/cautions"];
+const offlineRoutes = ["/offline", "/settings", "/cautions", "/field", "/field/new", "/field/run", "/logbook", "/logbook/run"];
 
 const withSerwist = withSerwistInit({
   swSrc: "worker/sw.ts",

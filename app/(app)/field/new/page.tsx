@@ -1,0 +1,3 @@
+export default function NewWindowPage() {
+  return <h1 className="text-2xl font-extrabold">New task window</h1>;
+}

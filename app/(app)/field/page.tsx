@@ -1,0 +1,3 @@
+export default function FieldPage() {
+  return <h1 className="text-2xl font-extrabold">Field</h1>;
+}
