@@ -93,12 +93,8 @@ export const taskDefinitionSchema = z
     if (def.kind !== "window") return;
     const issue = (message: string) => ctx.addIssue({ code: "custom", message });
     if (def.capSec !== null && def.capSec > def.workingTimeSec) issue("The cap is longer than the working time.");
-    if (def.ladder === null) {
-      if (def.counting.rule === "all" && def.launchLimit === null && def.capSec === null) {
-        // Allowed: "fly as much as you can" — the sum cap bounds it.
-      }
-      return;
-    }
+    // No ladder: any cap and counting rule is allowed ("all", no cap, no limit is bounded by the sum cap).
+    if (def.ladder === null) return;
     if (def.capSec !== null) issue("A ladder task takes its caps from the targets; set capSec to null.");
     const steps = def.ladder.targetsSec.length;
     if (def.ladder.targetsSec.some((t) => t > def.workingTimeSec)) issue("A target is longer than the working time.");
