@@ -11,3 +11,26 @@ const script = `try{var t=localStorage.getItem(${JSON.stringify(THEME_KEY)});if(
 export function ThemeScript() {
   return <script dangerouslySetInnerHTML={{ __html: script }} />;
 }
+
+/** The scheme now on the page. */
+export function readTheme(): Theme {
+  const t = document.documentElement.dataset.theme as Theme | undefined;
+  return t && THEMES.includes(t) ? t : "outdoor";
+}
+
+/** Applies a scheme and remembers it on this device. */
+export function applyTheme(next: Theme): void {
+  document.documentElement.dataset.theme = next;
+  try {
+    localStorage.setItem(THEME_KEY, next);
+  } catch {
+    /* private mode: the choice lasts for this page only */
+  }
+}
+
+/** Calls back whenever the scheme changes. */
+export function subscribeTheme(onChange: () => void): () => void {
+  const observer = new MutationObserver(onChange);
+  observer.observe(document.documentElement, { attributes: true, attributeFilter: ["data-theme"] });
+  return () => observer.disconnect();
+}
