@@ -4,14 +4,14 @@ import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { NAV_ITEMS } from "./nav-items";
 
-/** Thumb-reach navigation: five screens, each a 64 px target, the current one marked by a bar and bold text. */
+/** Thumb-reach navigation: the main screens, each a 64 px target, the current one marked by a bar and bold text. */
 export function BottomNav() {
   const path = usePathname();
   return (
     <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-line bg-raised pb-[env(safe-area-inset-bottom)]">
-      <ul className="mx-auto grid max-w-xl grid-cols-5">
+      <ul className="mx-auto grid max-w-xl grid-cols-4">
         {NAV_ITEMS.map((item) => {
-          const current = path === item.href || path.startsWith(item.href + "/");
+          const current = item.href === "/" ? path === "/" : path === item.href || path.startsWith(item.href + "/");
           return (
             <li key={item.href}>
               <Link
