@@ -1,4 +1,4 @@
-import { bigint, doublePrecision, index, pgSequence, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { bigint, doublePrecision, index, pgSequence, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { ackStatusEnum } from "./enums";
 import { users } from "./users";
 
@@ -35,6 +35,25 @@ export const clockSamples = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("clock_samples_device_id_idx").on(t.deviceId)],
+);
+
+/**
+ * A device's clock offset estimates (lib/clock ClockEstimate), from push requests and from the
+ * offsets its events carried. The server interpolates between them to re-correct the device's
+ * events recorded across an offline period (SYNC.md §4).
+ */
+export const deviceClockEstimates = pgTable(
+  "device_clock_estimates",
+  {
+    deviceId: text("device_id").notNull().references(() => devices.id, { onDelete: "cascade" }),
+    /** θ = server time − device wall time, ms. */
+    thetaMs: doublePrecision("theta_ms").notNull(),
+    /** δ, round trip of the chosen exchange, ms. */
+    deltaMs: doublePrecision("delta_ms").notNull(),
+    measuredAtWallMs: doublePrecision("measured_at_wall_ms").notNull(),
+    receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique("device_clock_estimates_device_measured_uq").on(t.deviceId, t.measuredAtWallMs)],
 );
 
 /** Items the server refused, kept for the record and for support (the device keeps its copy too). */

@@ -1,7 +1,11 @@
 import Dexie, { type EntityTable, type Table } from "dexie";
 import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
+import type { LaneResult } from "@/lib/validations/sync";
 import type { RunEntity, SessionEntity } from "./entities";
+
+/** A run as kept on the device: the entity plus, once pulled, the server's derived results. */
+export type StoredRun = RunEntity & { results?: LaneResult[] };
 
 /**
  * The device's one IndexedDB database (SYNC.md §2), browser only.
@@ -45,6 +49,8 @@ export type MetaValues = {
   clockBurst: number;
   /** The offset estimate of the latest successful burst. */
   clockEstimate: ClockEstimate;
+  /** measuredAtWallMs of the newest clock estimate the server has acknowledged receiving. */
+  clockSentAt: number;
 };
 export type MetaKey = keyof MetaValues;
 export type MetaRow = { key: MetaKey; value: MetaValues[MetaKey] };
@@ -53,7 +59,7 @@ export type WindowcallDb = Dexie & {
   events: Table<RunEvent, string>;
   outbox: Table<OutboxEntry, string>;
   sessions: Table<SessionEntity, string>;
-  runs: Table<RunEntity, string>;
+  runs: Table<StoredRun, string>;
   meta: Table<MetaRow, MetaKey>;
   clockSamples: EntityTable<ClockSampleRow, "id">;
 };

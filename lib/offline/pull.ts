@@ -1,7 +1,7 @@
 import type { RunEvent } from "@/lib/events/schema";
 import { pullReplySchema } from "@/lib/validations/sync";
-import { getMeta, setMeta, type WindowcallDb } from "./db";
-import type { RunEntity, SessionEntity } from "./entities";
+import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
+import type { SessionEntity } from "./entities";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
 
 export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string };
@@ -31,11 +31,15 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     }
     const events: RunEvent[] = [];
     const sessions: SessionEntity[] = [];
-    const runs: RunEntity[] = [];
+    const runs: StoredRun[] = [];
     for (const item of items) {
       if (item.type === "event") events.push(item.data);
       else if (item.type === "session") sessions.push(item.data);
-      else runs.push(item.data);
+      else {
+        // a run in someone else's session comes with that session; results are the server's
+        if (item.session) sessions.push(item.session);
+        runs.push(item.results ? { ...item.data, results: item.results } : item.data);
+      }
     }
     await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta], async () => {
       await db.sessions.bulkPut(sessions);

@@ -12,6 +12,16 @@ export const PUSH_MAX_ITEMS = 500;
 /** Batch size the sync client uses. */
 export const PUSH_BATCH_SIZE = 200;
 
+/** Most clock estimates one push may carry (the device keeps at most 32 bursts). */
+export const PUSH_MAX_CLOCK_ESTIMATES = 64;
+
+/** One offset measurement of the device (lib/clock ClockEstimate), sent so the server can interpolate. */
+export const clockEstimateSchema = z.object({
+  thetaMs: z.number().finite(),
+  deltaMs: z.number().finite().nonnegative(),
+  measuredAtWallMs: z.number().finite(),
+});
+
 // POST /api/sync/push — body
 export const pushRequestSchema = z
   .object({
@@ -19,6 +29,11 @@ export const pushRequestSchema = z
     sessions: z.array(sessionEntitySchema),
     runs: z.array(runEntitySchema),
     events: z.array(runEventSchema),
+    /**
+     * The device's offset measurements (oldest first). Optional: the server stores them and
+     * re-corrects this device's events between the estimates before and after an offline period.
+     */
+    clockEstimates: z.array(clockEstimateSchema).max(PUSH_MAX_CLOCK_ESTIMATES).optional(),
   })
   .refine((r) => r.sessions.length + r.runs.length + r.events.length <= PUSH_MAX_ITEMS, {
     message: `at most ${PUSH_MAX_ITEMS} items per push`,
@@ -48,11 +63,41 @@ export type PullQuery = z.infer<typeof pullQuerySchema>;
 
 const seq = z.number().int().positive();
 
+/** One device's account of a lane, as the server derived it (every version is kept; SYNC.md §3). */
+export const laneVersionSchema = z.object({
+  deviceId: z.string(),
+  /** Recorded by someone other than the lane's pilot (an official timekeeper). */
+  official: z.boolean(),
+  /** The version the official result uses. */
+  chosen: z.boolean(),
+  resultTenths: z.number().int(),
+});
+
+/** The server's official result for one lane of a run (derived from every device's events). */
+export const laneResultSchema = z.object({
+  lane: z.number().int().min(0).max(3),
+  resultTenths: z.number().int().nullable(),
+  penaltyPoints: z.number().int().nonnegative(),
+  /** The clocks cannot settle a launch or landing against a signal given on another device. */
+  needsReview: z.boolean(),
+  reviewReason: z.string().nullable(),
+  versions: z.array(laneVersionSchema),
+});
+export type LaneResult = z.infer<typeof laneResultSchema>;
+
 /** One changed record, tagged with the server sequence number it was assigned. */
 export const pullItemSchema = z.discriminatedUnion("type", [
   z.object({ type: z.literal("event"), seq, data: runEventSchema }),
   z.object({ type: z.literal("session"), seq, data: sessionEntitySchema }),
-  z.object({ type: z.literal("run"), seq, data: runEntitySchema }),
+  z.object({
+    type: z.literal("run"),
+    seq,
+    data: runEntitySchema,
+    /** The run's session when the user does not own it (a timekeeper's session they fly in). */
+    session: sessionEntitySchema.optional(),
+    /** The server's derived results per lane (absent before the first derivation). */
+    results: z.array(laneResultSchema).optional(),
+  }),
 ]);
 export type PullItem = z.infer<typeof pullItemSchema>;
 
