@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { hashPassword } from "@/lib/auth/password";
 import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, memberships, runLanes, runs, users } from "../schema";
+import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
 import { v7 as uuidv7 } from "uuid";
@@ -64,6 +65,8 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
         }
       }
     }
+    // results are derived from the events, as a push would (SYNC.md §1)
+    await deriveAllRuns(tx);
   });
   return "seeded";
 }

@@ -1,0 +1,16 @@
+// GET /api/sync/pull?cursor=N — everything the user may see that changed after server sequence number N, paged
+import { db } from "@/db";
+import { listChanges } from "@/db/queries/sync-pull";
+import { route, toValidationError } from "@/lib/api";
+import { requireUser } from "@/lib/auth/session";
+import { pullQuerySchema } from "@/lib/validations/sync";
+
+export const dynamic = "force-dynamic";
+
+export const GET = route(async (request: Request) => {
+  const user = await requireUser();
+  const parsed = pullQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!parsed.success) throw toValidationError(parsed.error);
+  const reply = await listChanges(db, { userId: user.id, cursor: parsed.data.cursor });
+  return Response.json(reply, { headers: { "cache-control": "no-store" } });
+});

@@ -1,0 +1,88 @@
+import "server-only";
+import { inArray, sql } from "drizzle-orm";
+import type { ClockEstimate } from "@/lib/clock";
+import type { EventBody } from "@/lib/events/schema";
+import { deriveRun, type DerivationEvent } from "@/lib/sync/derive";
+import { uncertaintyOf } from "@/lib/sync/correct-events";
+import { parseTaskDefinition } from "@/lib/tasks";
+import { deviceClockEstimates, events, runLanes, runs } from "../schema";
+import { lockSync, type Tx } from "./sync-db";
+
+type EventRow = typeof events.$inferSelect;
+
+/** A stored event row as the derivation reads it (raw stamp, corrected time, bound). */
+export function toDerivationEvent(row: EventRow): DerivationEvent {
+  const offset =
+    row.offsetThetaMs !== null && row.offsetDeltaMs !== null && row.offsetMeasuredAtMs !== null
+      ? { thetaMs: row.offsetThetaMs, deltaMs: row.offsetDeltaMs, measuredAtWallMs: row.offsetMeasuredAtMs }
+      : null;
+  return {
+    id: row.id,
+    deviceId: row.deviceId,
+    seq: row.seq,
+    recordedBy: row.recordedBy,
+    stamp: { wallMs: row.wallMs, monoMs: row.monoMs, pageId: row.pageId, offset },
+    body: row.body as EventBody,
+    correctedMs: row.correctedMs,
+    uncertaintyMs: uncertaintyOf(row.uncertaintyMs),
+  };
+}
+
+/** Every clock estimate of the given devices, by device. */
+export async function listDeviceEstimates(tx: Tx, deviceIds: readonly string[]): Promise<Map<string, ClockEstimate[]>> {
+  const out = new Map<string, ClockEstimate[]>();
+  if (deviceIds.length === 0) return out;
+  const rows = await tx.select().from(deviceClockEstimates).where(inArray(deviceClockEstimates.deviceId, [...deviceIds]));
+  for (const r of rows) {
+    const list = out.get(r.deviceId) ?? [];
+    list.push({ thetaMs: r.thetaMs, deltaMs: r.deltaMs, measuredAtWallMs: r.measuredAtWallMs });
+    out.set(r.deviceId, list);
+  }
+  return out;
+}
+
+/**
+ * Re-derive the official results of these runs from their stored events (lib/sync/derive.ts)
+ * and store them in run_lanes (result, derived flights/breakdown/versions, review flag). Each
+ * run gets a new server_seq so devices pull the new results. Takes the sync lock.
+ */
+export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
+  const ids = [...new Set(runIds)];
+  if (ids.length === 0) return;
+  await lockSync(tx);
+  const [runRows, laneRows, eventRows] = await Promise.all([
+    tx.select({ id: runs.id, task: runs.task }).from(runs).where(inArray(runs.id, ids)),
+    tx.select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId }).from(runLanes).where(inArray(runLanes.runId, ids)),
+    tx.select().from(events).where(inArray(events.runId, ids)),
+  ]);
+  const estimates = await listDeviceEstimates(tx, [...new Set(eventRows.map((e) => e.deviceId))]);
+  const updates = [];
+  for (const run of runRows) {
+    const lanes = laneRows.filter((l) => l.runId === run.id).sort((a, b) => a.lane - b.lane);
+    const derived = deriveRun({
+      task: parseTaskDefinition(run.task),
+      lanes,
+      events: eventRows.filter((e) => e.runId === run.id).map(toDerivationEvent),
+      estimatesByDevice: estimates,
+    });
+    for (const d of derived) {
+      updates.push(
+        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${JSON.stringify(d.derived)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
+      );
+    }
+  }
+  for (let i = 0; i < updates.length; i += 500) {
+    await tx.execute(sql`
+      update run_lanes set result_tenths = v.result, derived = v.derived, needs_review = v.review, review_reason = v.reason
+      from (values ${sql.join(updates.slice(i, i + 500), sql`, `)}) as v(run_id, lane, result, derived, review, reason)
+      where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane`);
+  }
+  await tx.execute(sql`update runs set server_seq = nextval('sync_seq') where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)})`);
+}
+
+/** Derive every run in the database (the demo seed stores events without results). */
+export async function deriveAllRuns(tx: Tx, chunk = 200): Promise<number> {
+  const all = await tx.select({ id: runs.id }).from(runs).orderBy(runs.serverSeq);
+  for (let i = 0; i < all.length; i += chunk) await deriveAndStoreRuns(tx, all.slice(i, i + chunk).map((r) => r.id));
+  return all.length;
+}

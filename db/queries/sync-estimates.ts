@@ -1,0 +1,55 @@
+import "server-only";
+import { and, eq, gt, lt, sql } from "drizzle-orm";
+import type { ClockEstimate } from "@/lib/clock";
+import { affectedWallRange, correctStamp } from "@/lib/sync/correct-events";
+import { deviceClockEstimates, events } from "../schema";
+import { toDerivationEvent } from "./runs";
+import type { Tx } from "./sync-db";
+
+/**
+ * Store a device's clock estimates (from the push and from its events' stamps) and re-correct
+ * its stored events whose offset the new ones change — interpolating across the offline
+ * period between the estimate before and the one after (SYNC.md §4). Returns every estimate
+ * of the device and the runs whose events moved (to re-derive). Call under the sync lock.
+ */
+export async function storeClockEstimates(
+  tx: Tx,
+  deviceId: string,
+  incoming: readonly ClockEstimate[],
+): Promise<{ estimates: ClockEstimate[]; movedRuns: Set<string> }> {
+  const existing = await tx
+    .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
+    .from(deviceClockEstimates)
+    .where(eq(deviceClockEstimates.deviceId, deviceId));
+  const known = new Set(existing.map((e) => e.measuredAtWallMs));
+  const fresh = new Map<number, ClockEstimate>();
+  for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);
+  const added = [...fresh.values()];
+  const movedRuns = new Set<string>();
+  if (added.length === 0) return { estimates: existing, movedRuns };
+
+  await tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing();
+  const all = [...existing, ...added];
+  const range = affectedWallRange(all, added);
+  if (!range) return { estimates: all, movedRuns };
+
+  const [lo, hi] = range;
+  const where = [eq(events.deviceId, deviceId)];
+  if (Number.isFinite(lo)) where.push(gt(events.wallMs, lo));
+  if (Number.isFinite(hi)) where.push(lt(events.wallMs, hi));
+  const rows = await tx.select().from(events).where(and(...where));
+  const changes = [];
+  for (const row of rows) {
+    const c = correctStamp(toDerivationEvent(row).stamp, all);
+    if (c.correctedMs === row.correctedMs && c.uncertaintyMs === row.uncertaintyMs) continue;
+    changes.push(sql`(${row.id}::uuid, ${c.correctedMs}::double precision, ${c.uncertaintyMs}::double precision)`);
+    movedRuns.add(row.runId);
+  }
+  for (let i = 0; i < changes.length; i += 500) {
+    await tx.execute(sql`
+      update events set corrected_ms = v.corrected, uncertainty_ms = v.uncertainty
+      from (values ${sql.join(changes.slice(i, i + 500), sql`, `)}) as v(id, corrected, uncertainty)
+      where events.id = v.id`);
+  }
+  return { estimates: all, movedRuns };
+}

@@ -1,0 +1,54 @@
+import type { EventBody } from "@/lib/events/schema";
+
+/**
+ * Who may write what in a push (SYNC.md §3; the server checks every item). Pure decisions
+ * on facts the caller looked up; each returns null when allowed, else the reason the device
+ * shows beside the refused item.
+ */
+
+export type RunFacts = { id: string; createdBy: string; lanes: readonly { lane: number; pilotUserId: string | null }[] };
+export type TargetFacts = { runId: string; recordedBy: string } | null;
+
+/**
+ * An event may be written by the run's creator (its timekeeper: any event) or by a pilot of
+ * one of its lanes (self-timing: their own lane's events, the run's signals, and undo or
+ * correction of events they recorded themselves). Lane events must name a lane of the run;
+ * undo and corrections must name an event of the same run already on the server.
+ */
+export function eventRefusal(userId: string, run: RunFacts, body: EventBody, target: TargetFacts): string | null {
+  const isCreator = run.createdBy === userId;
+  const ownLanes = new Set(run.lanes.filter((l) => l.pilotUserId === userId).map((l) => l.lane));
+  if (!isCreator && ownLanes.size === 0) return "You neither created this run nor fly in it.";
+  if ("lane" in body) {
+    if (!run.lanes.some((l) => l.lane === body.lane)) return `Lane ${body.lane + 1} is not part of this run.`;
+    if (!isCreator && !ownLanes.has(body.lane)) return `Only the run's timekeeper or lane ${body.lane + 1}'s pilot may record for that lane.`;
+    return null;
+  }
+  if (body.kind === "void" || body.kind === "correct") {
+    if (!target || target.runId !== run.id) return "The event it amends is not in this run on the server.";
+    if (!isCreator && target.recordedBy !== userId) return "Only the run's timekeeper may amend someone else's record.";
+  }
+  return null;
+}
+
+/** Whether the user may add a run to this session: their own, or a club day of a club they belong to. */
+export function runSessionRefusal(
+  userId: string,
+  session: { ownerId: string; fieldDayClubId: string | null } | null,
+  clubIds: ReadonlySet<string>,
+): string | null {
+  if (!session) return "Its session is not on the server (sessions are sent first, so it was refused or never sent).";
+  if (session.ownerId === userId) return null;
+  if (session.fieldDayClubId !== null && clubIds.has(session.fieldDayClubId)) return null;
+  return "You can add runs only to your own sessions or to a club day of your club.";
+}
+
+/**
+ * A lane may name as pilot the run's creator or someone who shares a club with them: naming
+ * a stranger would put runs into their logbook. Anyone else is timed as a named guest.
+ */
+export function pilotRefusal(userId: string, lane: number, pilotUserId: string, sharesClub: boolean, exists: boolean): string | null {
+  if (!exists) return `Lane ${lane + 1}: no such user; time this pilot as a named guest.`;
+  if (pilotUserId === userId || sharesClub) return null;
+  return `Lane ${lane + 1}: that pilot is not in a club with you; time them as a named guest.`;
+}

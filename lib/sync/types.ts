@@ -1,0 +1,93 @@
+import type { ClockEstimate } from "@/lib/clock";
+import type { EventBody, Stamp } from "@/lib/events/schema";
+import type { PointsLost, TaskDefinition } from "@/lib/tasks";
+
+/**
+ * Types of the server-side derivation (SYNC.md §1, §3): a run's stored events from every
+ * device → one official result per lane, every device's version kept beside it.
+ */
+
+/** One stored event with its place on the server timeline. */
+export type DerivationEvent = {
+  id: string;
+  deviceId: string;
+  seq: number;
+  /** The signed-in user who pushed it (a device belongs to one user). */
+  recordedBy: string;
+  stamp: Stamp;
+  body: EventBody;
+  /** Server time of the stamp (lib/clock correctTime). */
+  correctedMs: number;
+  /** ± bound of `correctedMs`; Infinity when the device never measured its clock. */
+  uncertaintyMs: number;
+};
+
+export type DerivationInput = {
+  task: TaskDefinition;
+  lanes: readonly { lane: number; pilotUserId: string | null }[];
+  events: readonly DerivationEvent[];
+  /** Each device's clock estimates, to put a `correct` event's wall time on the server timeline. */
+  estimatesByDevice: ReadonlyMap<string, readonly ClockEstimate[]>;
+};
+
+/** One device's record of a lane (or of the run's signals), as a candidate in the conflict rules. */
+export type Source = {
+  deviceId: string;
+  recordedBy: string;
+  /** Recorded by someone who is not the lane's pilot (for signals: not a pilot of any lane). */
+  official: boolean;
+  /** Corrected time of its first event in question. */
+  firstAtMs: number;
+  /** The events it contributes, with the voids and corrections that name them. */
+  events: DerivationEvent[];
+};
+
+/** A flight as the run page draws it (times relative to working-time start; corrected clock). */
+export type DerivedFlight = {
+  index: number;
+  launchMs: number;
+  landMs: number | null;
+  status: string;
+  reason: string | null;
+  timeTenths: number;
+  creditedTenths: number;
+  targetSec: number | null;
+};
+
+/** One device's version of a lane: what it says, on the corrected clock. */
+export type LaneVersion = {
+  deviceId: string;
+  recordedBy: string;
+  official: boolean;
+  chosen: boolean;
+  resultTenths: number;
+  firstAtMs: number;
+  /** Largest uncertainty among its events (null = unbounded: no clock measurement). */
+  uncertaintyMs: number | null;
+  eventCount: number;
+  flights: { launchAtMs: number; landAtMs: number | null }[];
+};
+
+/** A launch or landing the clocks cannot place on one side of a boundary. */
+export type ReviewItem = { eventId: string; boundary: string; atMs: number; boundaryMs: number; marginMs: number | null };
+
+/** What run_lanes.derived holds (JSON: no Infinity, unbounded is null). */
+export type LaneDerived = {
+  signal: { deviceId: string; official: boolean; atMs: number[]; uncertaintyMs: number | null } | null;
+  source: { deviceId: string; official: boolean } | null;
+  flights: DerivedFlight[];
+  breakdown: PointsLost | null;
+  versions: LaneVersion[];
+  review: ReviewItem[];
+  ended: boolean;
+};
+
+export type LaneDerivation = {
+  lane: number;
+  /** null when no device recorded anything for this lane. */
+  resultTenths: number | null;
+  penaltyPoints: number;
+  needsReview: boolean;
+  reviewReason: string | null;
+  derived: LaneDerived;
+};
