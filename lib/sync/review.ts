@@ -58,8 +58,8 @@ export function describeReview(items: readonly ReviewItem[], flightIndexOf: (eve
   const parts = items.slice(0, 3).map((r) => {
     const n = flightIndexOf(r.eventId);
     const who = n === null ? "A flight" : `Flight ${n + 1}`;
-    const diff = ((r.atMs - r.boundaryMs) / 1000).toFixed(1);
-    const bound = r.marginMs === null ? "a clock never measured" : `clocks ±${(r.marginMs / 1000).toFixed(1)} s`;
+    const diff = ((r.atMs - r.boundaryMs) / 1000).toFixed(2);
+    const bound = r.marginMs === null ? "a clock never measured" : `clocks ±${(r.marginMs / 1000).toFixed(2)} s`;
     return `${who}: ${diff} s from the ${r.boundary} timed on another device (${bound})`;
   });
   const more = items.length > 3 ? ` (+${items.length - 3} more)` : "";

@@ -1,0 +1,114 @@
+import { describe, expect, it } from "vitest";
+import { deriveRun } from "@/lib/sync/derive";
+import { getCatalogueTask, scoreTask } from "@/lib/tasks";
+import { backToBack } from "../tasks/helpers";
+import { device, estimatesOf } from "./helpers";
+
+const H = getCatalogueTask("H");
+const PILOT = "pilot-user";
+const KEEPER = "timekeeper-user";
+const solo = [{ lane: 0, pilotUserId: PILOT }];
+
+describe("deriveRun: one device", () => {
+  it("F3K.11.8 task H: flights 63, 239, 182, 90 → 569 s, the same as scoreTask", () => {
+    const phone = device("phone", PILOT);
+    phone.at(0, { kind: "window-start" });
+    phone.flights(0, [63, 239, 182, 90], 1000);
+    const [lane] = deriveRun({ task: H, lanes: solo, events: phone.events, estimatesByDevice: estimatesOf(phone) });
+    // RULES.md, F3K.11.8 example: 60 + 239 + 180 + 90 = 569 s
+    expect(lane!.resultTenths).toBe(5690);
+    expect(lane!.resultTenths).toBe(scoreTask({ task: "H", flights: backToBack([63, 239, 182, 90], 1000, 1000) }).tenths);
+    expect(lane!.needsReview).toBe(false);
+    expect(lane!.derived.flights.map((f) => f.creditedTenths)).toEqual([600, 2390, 1800, 900]);
+    expect(lane!.derived.breakdown?.scoredTenths).toBe(5690);
+    expect(lane!.derived.versions).toHaveLength(1);
+  });
+
+  it("a lane nobody recorded has no result (null, not zero)", () => {
+    const phone = device("phone", PILOT);
+    phone.at(0, { kind: "window-start" });
+    phone.flights(0, [100], 1000);
+    const lanes = [{ lane: 0, pilotUserId: PILOT }, { lane: 1, pilotUserId: null }];
+    const [, empty] = deriveRun({ task: H, lanes, events: phone.events, estimatesByDevice: estimatesOf(phone) });
+    expect(empty!.resultTenths).toBeNull();
+    expect(empty!.derived.versions).toEqual([]);
+  });
+
+  it("a correction moves a landing on the target device's clock, put on the server timeline", () => {
+    // the phone runs 10 min slow: server = device wall + 600 000 ms
+    const phone = device("phone", PILOT, { thetaMs: 600_000 });
+    phone.at(0, { kind: "window-start" });
+    phone.at(1000, { kind: "launch", lane: 0 });
+    const landing = phone.at(101_000, { kind: "landing", lane: 0 }); // 100 s
+    // corrected to a device wall time 20 s earlier → an 80 s flight
+    phone.at(120_000, { kind: "correct", targetId: landing.id, wallMs: landing.stamp.wallMs - 20_000 });
+    const [lane] = deriveRun({ task: H, lanes: solo, events: phone.events, estimatesByDevice: estimatesOf(phone) });
+    expect(lane!.derived.flights[0]!.timeTenths).toBe(800);
+  });
+});
+
+describe("deriveRun: conflict rules (SYNC.md §3)", () => {
+  it("an official timekeeper's record beats the pilot's own, and both stay as versions", () => {
+    const keeper = device("keeper-phone", KEEPER);
+    const self = device("pilot-phone", PILOT);
+    keeper.at(0, { kind: "window-start" });
+    keeper.flights(0, [60, 120], 1000);
+    self.flights(0, [62, 125], 900); // the pilot started earlier — precedence still goes to the official
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...self.events, ...keeper.events], estimatesByDevice: estimatesOf(keeper, self) });
+    expect(lane!.derived.source).toEqual({ deviceId: "keeper-phone", official: true });
+    expect(lane!.resultTenths).toBe(1800);
+    expect(lane!.derived.versions.map((v) => [v.deviceId, v.official, v.chosen, v.resultTenths])).toEqual([
+      ["keeper-phone", true, true, 1800],
+      ["pilot-phone", false, false, 62 * 10 + 125 * 10],
+    ]);
+  });
+
+  it("between two officials the earlier corrected first event wins, whatever the phones' own clocks say", () => {
+    // b's wall clock reads 5 min ahead (θ = −300 s): its raw times look later than a's, its corrected ones are earlier
+    const a = device("a-phone", "official-a");
+    const b = device("b-phone", "official-b", { thetaMs: -300_000 });
+    a.at(0, { kind: "window-start" });
+    b.flights(0, [50], 1000);
+    a.flights(0, [55], 1200);
+    expect(b.events[0]!.stamp.wallMs).toBeGreaterThan(a.events[1]!.stamp.wallMs);
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...a.events, ...b.events], estimatesByDevice: estimatesOf(a, b) });
+    expect(lane!.derived.source?.deviceId).toBe("b-phone");
+    expect(lane!.resultTenths).toBe(500);
+  });
+
+  it("a tie on precedence and time goes to the smaller device id", () => {
+    const z = device("z-phone", "official-z");
+    const a = device("a-phone", "official-a");
+    z.at(0, { kind: "window-start" });
+    z.flights(0, [70], 1000);
+    a.flights(0, [40], 1000);
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...z.events, ...a.events], estimatesByDevice: estimatesOf(z, a) });
+    expect(lane!.derived.source?.deviceId).toBe("a-phone");
+    expect(lane!.resultTenths).toBe(400);
+  });
+
+  it("a record its device undid entirely is not a candidate", () => {
+    const keeper = device("keeper-phone", KEEPER);
+    const self = device("pilot-phone", PILOT);
+    keeper.at(0, { kind: "window-start" });
+    const launch = keeper.at(1000, { kind: "launch", lane: 0 });
+    keeper.at(1500, { kind: "void", targetId: launch.id });
+    self.flights(0, [90], 2000);
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...keeper.events, ...self.events], estimatesByDevice: estimatesOf(keeper, self) });
+    expect(lane!.derived.source?.deviceId).toBe("pilot-phone");
+    expect(lane!.resultTenths).toBe(900);
+  });
+
+  it("the run's signal comes from an official over a pilot's own start tap", () => {
+    const keeper = device("keeper-phone", KEEPER);
+    const self = device("pilot-phone", PILOT);
+    self.at(-5000, { kind: "window-start" }); // the pilot's own early start
+    keeper.at(0, { kind: "window-start" });
+    self.flights(0, [60], -2000); // launched 2 s before the official signal: scores zero
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...self.events, ...keeper.events], estimatesByDevice: estimatesOf(keeper, self) });
+    expect(lane!.derived.signal?.deviceId).toBe("keeper-phone");
+    expect(lane!.derived.flights[0]!.reason).toBe("launched-before-working-time");
+    expect(lane!.resultTenths).toBe(0);
+    expect(lane!.needsReview).toBe(false); // 2 s is far outside the ±40 ms the clocks allow
+  });
+});
