@@ -1,3 +1,9 @@
+import type { Metadata } from "next";
+import { FieldHome } from "@/components/field/field-home";
+
+export const metadata: Metadata = { title: "Field" };
+
+/** Static shell (precached for offline use); everything shown is read from this phone's database. */
 export default function FieldPage() {
-  return <h1 className="text-2xl font-extrabold">Field</h1>;
+  return <FieldHome />;
 }

@@ -1,0 +1,72 @@
+"use client";
+
+import type { RunLane } from "@/lib/offline/entities";
+import type { LaneLive, LiveState, TaskDefinition } from "@/lib/tasks";
+import { FlightList } from "./flight-list";
+import { LanePanel } from "./lane-panel";
+import { LaneTools } from "./lane-tools";
+import { TapControl } from "./tap-control";
+import { TargetPicker } from "./target-picker";
+import type { useRunActions } from "./use-run-actions";
+
+type Props = { task: TaskDefinition; live: LiveState; lanes: readonly RunLane[]; actions: ReturnType<typeof useRunActions> };
+
+/** Every lane of the window (one pilot each, up to four) and the closing control. */
+export function LaneArea({ task, live, lanes, actions }: Props) {
+  const solo = lanes.length === 1;
+  const over = live.phase === "ended";
+  const anyInAir = live.lanes.some((l) => l.currentFlightMs !== null);
+  return (
+    <div className="space-y-5">
+      {lanes.map((l) => {
+        const lane = live.lanes[l.lane];
+        if (!lane) return null;
+        const label = solo ? l.pilotName : `Lane ${l.lane + 1} · ${l.pilotName}`;
+        const inAir = lane.currentFlightMs !== null;
+        const showControl = !over || inAir;
+        const list = <FlightList flights={lane.flights} laneLabel={label} onSetTime={(i, t) => actions.setTime(l.lane, i, t)} onInvalid={(i, r) => actions.invalid(l.lane, i, r)} />;
+        const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r)} />;
+        return (
+          <LanePanel
+            key={l.lane}
+            lane={lane}
+            label={label}
+            solo={solo}
+            elapsedMs={live.elapsedMs}
+            picker={needsTarget(task, lane, live) ? (
+              <TargetPicker
+                laneLabel={label}
+                secondsLeft={live.workingTimeLeftMs === null ? null : Math.floor(live.workingTimeLeftMs / 1000)}
+                allowEndCall={task.kind === "poker" && task.endCall !== "not-allowed"}
+                onTarget={(s, t) => void actions.target(l.lane, s, t)}
+                onEndCall={(t) => void actions.endCall(l.lane, t)}
+              />
+            ) : null}
+            control={showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
+            tools={tools}
+            list={solo ? list : <details><summary className="min-h-12 cursor-pointer py-3 font-bold">Flights and fixes</summary>{list}</details>}
+          />
+        );
+      })}
+      {live.phase === "ended" || (live.phase === "landing-window" && !anyInAir) ? (
+        <button type="button" onClick={() => void actions.close()} className="min-h-touch w-full rounded-2xl bg-accent text-2xl font-extrabold text-accent-ink">
+          Close the window and see the result
+        </button>
+      ) : (
+        <details className="rounded-xl border-2 border-line p-3">
+          <summary className="min-h-12 cursor-pointer py-3 font-bold">End this window early</summary>
+          <button type="button" onClick={() => void actions.close()} className="min-h-touch w-full rounded-xl border-2 border-danger font-bold text-danger">
+            Close the window now
+          </button>
+        </details>
+      )}
+    </div>
+  );
+}
+
+/** Task E: the picker shows while no target is pending and target places are left. */
+function needsTarget(task: TaskDefinition, lane: LaneLive, live: LiveState): boolean {
+  if (task.kind !== "poker" || live.phase !== "working" || lane.nextTargetSec !== null) return false;
+  const reached = lane.flights.filter((f) => (f.status === "counted" || f.status === "capped") && f.creditedTenths > 0).length;
+  return reached < task.maxTargets;
+}

@@ -1,0 +1,117 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import type { RunEvent } from "@/lib/events/schema";
+import { isRunOpen } from "@/lib/field/lane-tap";
+import { parsePrepPlan, prepPlanKey, prepStageAt, type PrepPlan } from "@/lib/field/prep-plan";
+import { buildTimeline } from "@/lib/field/timeline";
+import type { TimeSource } from "@/lib/field/time-source";
+import { getPageId } from "@/lib/offline/device";
+import { requestPersistence } from "@/lib/offline/storage";
+import { liveState } from "@/lib/tasks";
+import { AuditList } from "./audit-list";
+import { ClockPanel } from "./clock-panel";
+import { LaneArea } from "./lane-area";
+import { PrepPanel } from "./prep-panel";
+import { RunHeader } from "./run-header";
+import { RunSummary } from "./run-summary";
+import { describeWrite } from "./announce";
+import { useFieldProfile } from "./use-field-profile";
+import { useNotifyWrite } from "./use-notify-write";
+import { useNow } from "./use-now";
+import { useRecorder } from "./use-recorder";
+import { useRunActions } from "./use-run-actions";
+import type { RunData } from "./use-run-data";
+
+const PERSIST_ASKED = "windowcall.storage.persist-asked";
+
+/** The live window: a pure function of the stored events and "now", redrawn every frame. */
+export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "ready" }>; clocks: TimeSource }) {
+  const { run, task, deviceId, estimate } = data;
+  const laneCount = run.lanes.length;
+  const notify = useNotifyWrite();
+  const { profile } = useFieldProfile();
+  const [said, setSaid] = useState({ text: "", n: 0 });
+  const onWritten = (event: RunEvent, all: readonly RunEvent[]) => {
+    notify();
+    const ctx = { deviceId, pageId: getPageId(), wallNow: clocks.wallNow(), monoNow: clocks.monoNow(), thetaMs: estimate?.thetaMs ?? null };
+    const text = describeWrite(event, task, buildTimeline(all, ctx), ctx.wallNow, run.lanes);
+    if (text) setSaid((s) => ({ text, n: s.n + 1 }));
+  };
+  const recorder = useRecorder({ runId: run.id, stored: data.events, clocks, estimate, onWritten });
+  const actions = useRunActions({ task, laneCount, deviceId, estimate, clocks, record: recorder.record, stampInput: recorder.stampInput });
+  const open = isRunOpen(recorder.events);
+  const now = useNow(clocks, open);
+  const ctx = { deviceId, pageId: getPageId(), wallNow: now.wall, monoNow: now.mono, thetaMs: estimate?.thetaMs ?? null };
+  const timeline = buildTimeline(recorder.events, ctx);
+  const live = liveState(task, timeline, now.wall, { laneCount });
+
+  // Rendered only in the browser (the run is read from IndexedDB), so localStorage is there.
+  const [plan] = useState<PrepPlan | null>(() => parsePrepPlan(localStorage.getItem(prepPlanKey(run.id))));
+  const stage = plan && live.phase === "not-started" ? prepStageAt(plan, now.wall) : null;
+  const { startAt, tap, start } = actions;
+  useEffect(() => {
+    if (open && stage?.stage === "due") void startAt(stage.startsAtWallMs);
+  }, [open, stage?.stage, stage?.startsAtWallMs, startAt]);
+
+  useEffect(() => {
+    if (localStorage.getItem(PERSIST_ASKED)) return;
+    localStorage.setItem(PERSIST_ASKED, "1");
+    void requestPersistence();
+  }, []);
+
+  // A Bluetooth clicker sends Space / Enter: they drive the solo lane (or give the start).
+  const notStarted = live.phase === "not-started";
+  useEffect(() => {
+    if (laneCount !== 1 || !open) return;
+    const onKey = (e: KeyboardEvent) => {
+      if ((e.key !== " " && e.key !== "Enter") || e.repeat) return;
+      const el = e.target as HTMLElement | null;
+      if (el && el !== document.body && el.closest("input, textarea, select, button, a, summary")) return;
+      e.preventDefault();
+      if (notStarted) void start(e.timeStamp);
+      else void tap(0, e.timeStamp);
+    };
+    // After a finger presses a secondary button, drop its focus so the next clicker press
+    // taps the lane instead of pressing that button again.
+    const onPointerUp = () => {
+      if (document.activeElement instanceof HTMLButtonElement) document.activeElement.blur();
+    };
+    window.addEventListener("keydown", onKey);
+    document.addEventListener("pointerup", onPointerUp);
+    return () => {
+      window.removeEventListener("keydown", onKey);
+      document.removeEventListener("pointerup", onPointerUp);
+    };
+  }, [laneCount, open, notStarted, start, tap]);
+
+  return (
+    <div className="space-y-5">
+      <RunHeader task={task} run={run} session={data.session} />
+      {recorder.error ? (
+        <div role="alert" className="rounded-xl border-4 border-danger p-3 font-bold text-danger">
+          <span aria-hidden>⛔ </span>
+          {recorder.error.message}
+        </div>
+      ) : null}
+      <p aria-live="assertive" className="sr-only" data-testid="announcer">
+        {said.text}
+        {said.n % 2 ? "\u200b" : ""}
+      </p>
+      {!open ? (
+        <RunSummary runId={run.id} task={task} timeline={timeline} lanes={run.lanes} />
+      ) : notStarted ? (
+        <PrepPanel stage={stage} onStart={(t) => void start(t)} />
+      ) : (
+        <>
+          <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} />
+        </>
+      )}
+      <details className="rounded-xl border-2 border-line p-3">
+        <summary className="min-h-12 cursor-pointer py-3 font-bold">Corrections and undo log</summary>
+        <AuditList events={recorder.events} lanes={run.lanes} deviceId={deviceId} myName={profile?.name ?? null} />
+      </details>
+    </div>
+  );
+}

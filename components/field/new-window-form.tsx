@@ -1,0 +1,112 @@
+"use client";
+
+import { useState } from "react";
+import { TextField } from "@/components/ui/field";
+import { planNewWindow, type NewWindowErrors, type WhoFlies } from "@/lib/field/new-window";
+import { prepPlanKey } from "@/lib/field/prep-plan";
+import { getWindowcallDb } from "@/lib/offline/db";
+import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
+import { isQuotaError } from "@/lib/offline/storage";
+import type { TaskLetter } from "@/lib/tasks";
+import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput, type CustomDraft } from "./custom-task-fields";
+import { PlaceFields } from "./place-fields";
+import { TaskChooser, type TaskKey } from "./task-chooser";
+import { useFieldProfile } from "./use-field-profile";
+import { useIsClient } from "./use-is-client";
+import { useNotifyWrite } from "./use-notify-write";
+import { WhoFliesFields } from "./who-flies-fields";
+
+export const LAST_FIELD_KEY = "windowcall.field.last-field";
+
+/** /field/new: where, conditions, who flies, which task, and an optional countdown. */
+export function NewWindowForm() {
+  // The form remembers the last field in localStorage, so it renders in the browser only.
+  return useIsClient() ? <NewWindowFormInner /> : <p aria-busy="true">Loading the form…</p>;
+}
+
+function NewWindowFormInner() {
+  const { profile, loading } = useFieldProfile();
+  const notify = useNotifyWrite();
+  const [fieldName, setFieldName] = useState(() => localStorage.getItem(LAST_FIELD_KEY) ?? "");
+  const [position, setPosition] = useState<{ lat: number; lon: number } | null>(null);
+  const [cond, setCond] = useState({ windMs: "", gustMs: "", temperatureC: "", notes: "" });
+  const [who, setWho] = useState<WhoFlies>({ mode: "me" });
+  const [taskKey, setTaskKey] = useState<TaskKey>("H:600");
+  const [custom, setCustom] = useState<CustomDraft>(EMPTY_CUSTOM);
+  const [prepMin, setPrepMin] = useState("");
+  const [noFly, setNoFly] = useState(false);
+  const [errors, setErrors] = useState<NewWindowErrors & { save?: string }>({});
+  const [busy, setBusy] = useState(false);
+
+  const submit = async () => {
+    if (!profile) return setErrors({ save: "Sign in once with signal on this phone; after that the field timer works with none." });
+    const [letter, variant] = taskKey.split(":");
+    const task = taskKey === "custom" ? { source: "custom" as const, input: toCustomInput(custom) } : { source: "catalogue" as const, letter: letter as TaskLetter, variant: Number(variant) };
+    const wallNow = Date.now();
+    const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow);
+    if (!out.ok) return setErrors(out.errors);
+    setErrors({});
+    setBusy(true);
+    try {
+      const db = getWindowcallDb();
+      const session = await createSessionLocal(db, out.plan.session);
+      const run = await createRunLocal(db, { ...out.plan.run, sessionId: session.id });
+      localStorage.setItem(LAST_FIELD_KEY, out.plan.session.fieldName);
+      if (out.plan.prep) localStorage.setItem(prepPlanKey(run.id), JSON.stringify({ beganAtWallMs: Date.now(), ...out.plan.prep }));
+      notify();
+      // A full navigation: offline, the service worker serves the one precached run shell.
+      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
+      window.location.assign(`/field/run?id=${run.id}`);
+    } catch (e) {
+      setBusy(false);
+      setErrors({ save: isQuotaError(e) ? "The phone's storage is full: nothing was saved. Free some space and try again." : `Nothing was saved: ${e instanceof Error ? e.message : String(e)}` });
+    }
+  };
+
+  const problems = Object.values(errors).filter(Boolean);
+  return (
+    <form
+      className="space-y-6"
+      noValidate
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit();
+      }}
+    >
+      <PlaceFields fieldName={fieldName} onFieldName={setFieldName} position={position} onPosition={setPosition} error={errors.fieldName} />
+      <fieldset className="space-y-3">
+        <legend className="text-lg font-bold">Conditions (optional)</legend>
+        <div className="grid grid-cols-3 gap-2">
+          <TextField id="wind" label="Wind m/s" inputMode="decimal" value={cond.windMs} onChange={(e) => setCond({ ...cond, windMs: e.target.value })} error={errors.windMs} />
+          <TextField id="gusts" label="Gusts m/s" inputMode="decimal" value={cond.gustMs} onChange={(e) => setCond({ ...cond, gustMs: e.target.value })} error={errors.gustMs} />
+          <TextField id="temp" label="Temp °C" inputMode="decimal" value={cond.temperatureC} onChange={(e) => setCond({ ...cond, temperatureC: e.target.value })} error={errors.temperatureC} />
+        </div>
+        <TextField id="notes" label="Notes" value={cond.notes} onChange={(e) => setCond({ ...cond, notes: e.target.value })} />
+      </fieldset>
+      <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} error={errors.who} />
+      <TaskChooser value={taskKey} onChange={setTaskKey} />
+      {taskKey === "custom" ? <CustomTaskFields draft={custom} onChange={setCustom} /> : null}
+      {errors.task ? (
+        <p role="alert" className="rounded-lg border-2 border-danger p-3 font-semibold text-danger">
+          The task does not work: {errors.task}
+        </p>
+      ) : null}
+      <fieldset className="space-y-3">
+        <legend className="text-lg font-bold">Before the working time (optional)</legend>
+        <TextField id="prep" label="Preparation countdown, minutes" inputMode="decimal" value={prepMin} onChange={(e) => setPrepMin(e.target.value)} error={errors.prepMin} />
+        <label className="flex min-h-touch items-center gap-3">
+          <input type="checkbox" checked={noFly} onChange={(e) => setNoFly(e.target.checked)} className="h-6 w-6" />
+          <span>Add the no-fly minute before the start (F3K.9)</span>
+        </label>
+      </fieldset>
+      {problems.length > 0 && !errors.task ? (
+        <p role="alert" className="font-semibold text-danger">
+          {errors.save ?? "Please fix the marked entries."}
+        </p>
+      ) : null}
+      <button type="submit" disabled={busy || loading} className="min-h-touch w-full rounded-2xl bg-accent text-xl font-extrabold text-accent-ink disabled:opacity-50">
+        {busy ? "Saving…" : "Set up the window"}
+      </button>
+    </form>
+  );
+}

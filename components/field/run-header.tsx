@@ -1,0 +1,21 @@
+import { describeTask } from "@/lib/field/describe-task";
+import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { TaskDefinition } from "@/lib/tasks";
+
+/** Which task, for whom, where: small and quiet above the figures. */
+export function RunHeader({ task, run, session }: { task: TaskDefinition; run: RunEntity; session: SessionEntity | undefined }) {
+  const who = run.lanes.map((l) => l.pilotName).join(", ");
+  return (
+    <header className="space-y-1">
+      <h1 className="text-xl font-extrabold">
+        {task.letter ? `Task ${task.letter} · ` : ""}
+        {task.name}
+      </h1>
+      <p className="text-sm text-muted">{describeTask(task)}</p>
+      <p className="text-sm">
+        {who}
+        {session ? ` · ${session.fieldName}` : ""}
+      </p>
+    </header>
+  );
+}
