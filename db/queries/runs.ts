@@ -50,11 +50,13 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
   await lockSync(tx);
-  const [runRows, laneRows, eventRows] = await Promise.all([
-    tx.select({ id: runs.id, task: runs.task }).from(runs).where(inArray(runs.id, ids)),
-    tx.select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId }).from(runLanes).where(inArray(runLanes.runId, ids)),
-    tx.select().from(events).where(inArray(events.runId, ids)),
-  ]);
+  // one connection: queries in a transaction run one after another
+  const runRows = await tx.select({ id: runs.id, task: runs.task }).from(runs).where(inArray(runs.id, ids));
+  const laneRows = await tx
+    .select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId })
+    .from(runLanes)
+    .where(inArray(runLanes.runId, ids));
+  const eventRows = await tx.select().from(events).where(inArray(events.runId, ids));
   const estimates = await listDeviceEstimates(tx, [...new Set(eventRows.map((e) => e.deviceId))]);
   const updates = [];
   for (const run of runRows) {

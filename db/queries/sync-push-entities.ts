@@ -56,14 +56,12 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   if (items.length === 0) return [];
   const { tx } = ctx;
   const sessionIds = [...new Set(items.map((r) => r.sessionId))];
-  const [existing, sessionRows] = await Promise.all([
-    tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, items.map((r) => r.id))),
-    tx
-      .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId, fieldDayClubId: fieldDays.clubId })
-      .from(fieldSessions)
-      .leftJoin(fieldDays, eq(fieldDays.id, fieldSessions.fieldDayId))
-      .where(inArray(fieldSessions.id, sessionIds)),
-  ]);
+  const existing = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, items.map((r) => r.id)));
+  const sessionRows = await tx
+    .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId, fieldDayClubId: fieldDays.clubId })
+    .from(fieldSessions)
+    .leftJoin(fieldDays, eq(fieldDays.id, fieldSessions.fieldDayId))
+    .where(inArray(fieldSessions.id, sessionIds));
   const creators = new Map(existing.map((r) => [r.id, r.createdBy]));
   const sessionsById = new Map(sessionRows.map((s) => [s.id, s]));
   const pilots = await pilotFacts(ctx, items);
@@ -112,14 +110,13 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
 async function pilotFacts(ctx: PushContext, items: readonly RunEntity[]) {
   const ids = [...new Set(items.flatMap((r) => r.lanes.flatMap((l) => (l.pilotUserId && isUuid(l.pilotUserId) ? [l.pilotUserId] : []))))];
   if (ids.length === 0) return { exists: new Set<string>(), sharesClub: new Set<string>() };
-  const [found, mates] = await Promise.all([
-    ctx.tx.select({ id: users.id }).from(users).where(inArray(users.id, ids)),
+  const found = await ctx.tx.select({ id: users.id }).from(users).where(inArray(users.id, ids));
+  const mates =
     ctx.clubIds.size === 0
-      ? Promise.resolve([])
-      : ctx.tx
+      ? []
+      : await ctx.tx
           .select({ id: memberships.userId })
           .from(memberships)
-          .where(and(inArray(memberships.userId, ids), inArray(memberships.clubId, [...ctx.clubIds]))),
-  ]);
+          .where(and(inArray(memberships.userId, ids), inArray(memberships.clubId, [...ctx.clubIds])));
   return { exists: new Set(found.map((r) => r.id)), sharesClub: new Set(mates.map((r) => r.id)) };
 }

@@ -22,17 +22,20 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const { tx } = ctx;
   const runIds = [...new Set(items.map((e) => e.runId))];
   const targetIds = items.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
-  const [runRows, laneRows, clashes, targetRows] = await Promise.all([
-    tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, runIds)),
-    tx.select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId }).from(runLanes).where(inArray(runLanes.runId, runIds)),
-    tx
-      .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
-      .from(events)
-      .where(or(inArray(events.id, items.map((e) => e.id)), and(eq(events.deviceId, ctx.deviceId), inArray(events.seq, items.map((e) => e.seq))))),
+  // one connection: queries in a transaction run one after another
+  const runRows = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, runIds));
+  const laneRows = await tx
+    .select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId })
+    .from(runLanes)
+    .where(inArray(runLanes.runId, runIds));
+  const clashes = await tx
+    .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
+    .from(events)
+    .where(or(inArray(events.id, items.map((e) => e.id)), and(eq(events.deviceId, ctx.deviceId), inArray(events.seq, items.map((e) => e.seq)))));
+  const targetRows =
     targetIds.length === 0
-      ? Promise.resolve([])
-      : tx.select({ id: events.id, runId: events.runId, recordedBy: events.recordedBy }).from(events).where(inArray(events.id, targetIds)),
-  ]);
+      ? []
+      : await tx.select({ id: events.id, runId: events.runId, recordedBy: events.recordedBy }).from(events).where(inArray(events.id, targetIds));
   const runFacts = new Map<string, RunFacts>(
     runRows.map((r) => [r.id, { id: r.id, createdBy: r.createdBy, lanes: laneRows.filter((l) => l.runId === r.id) }]),
   );
