@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
+import { SyncStatus } from "@/components/sync/sync-status";
 
 /** The slim top bar: the name (home) on the left, status on the right. */
 export function TopBar({ right }: { right?: ReactNode }) {
@@ -9,7 +10,10 @@ export function TopBar({ right }: { right?: ReactNode }) {
         <Link href="/" className="text-lg font-extrabold tracking-tight">
           Windowcall
         </Link>
-        <div className="flex items-center gap-3 text-sm">{right}</div>
+        <div className="flex items-center gap-3 text-sm">
+          <SyncStatus />
+          {right}
+        </div>
       </div>
     </header>
   );

@@ -51,6 +51,8 @@ export type MetaValues = {
   clockEstimate: ClockEstimate;
   /** measuredAtWallMs of the newest clock estimate the server has acknowledged receiving. */
   clockSentAt: number;
+  /** The signed-in user, cached while online so offline pages know who is timing. */
+  profile: { id: string; name: string; email: string };
 };
 export type MetaKey = keyof MetaValues;
 export type MetaRow = { key: MetaKey; value: MetaValues[MetaKey] };

@@ -1,0 +1,63 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { useSession } from "next-auth/react";
+import { createContext, useContext, useEffect, useState, type ReactNode } from "react";
+import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
+import { requestPersistence } from "@/lib/offline/storage";
+import { startSyncInBrowser } from "@/lib/offline/sync-browser";
+import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
+
+type SyncContextValue = { client: SyncClient; status: SyncStatus | null };
+
+const SyncContext = createContext<SyncContextValue | null>(null);
+
+/**
+ * The page's one sync client (SYNC.md §2): created once, started in the browser (flush on
+ * start, on `online`, on becoming visible), with persistent storage requested once. Also
+ * keeps the signed-in user's profile in the device database while online, so pages that
+ * open offline know who is timing. Constructing the client touches no storage, so this is
+ * safe to render on the server; it starts only in an effect.
+ */
+export function SyncProvider({ children }: { children: ReactNode }) {
+  const [client] = useState(() => createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init) }));
+  const [status, setStatus] = useState<SyncStatus | null>(null);
+  const { data: session, status: authStatus } = useSession();
+
+  useEffect(() => {
+    const unsubscribe = client.subscribe(setStatus);
+    const stop = startSyncInBrowser(client);
+    void requestPersistence();
+    return () => {
+      unsubscribe();
+      stop();
+    };
+  }, [client]);
+
+  const user = session?.user;
+  useEffect(() => {
+    if (authStatus !== "authenticated" || !user?.id) return;
+    const profile = { id: user.id, name: user.name ?? "", email: user.email ?? "" };
+    const db = getWindowcallDb();
+    void (async () => {
+      const cached = await getMeta(db, "profile");
+      if (cached?.id !== profile.id || cached.name !== profile.name || cached.email !== profile.email) await setMeta(db, "profile", profile);
+    })().catch(() => undefined);
+    // signed in again after the server said 401: leave the signed-out state and sync
+    if (client.status().state === "signed-out") void client.resume();
+  }, [authStatus, user?.id, user?.name, user?.email, client]);
+
+  return <SyncContext.Provider value={{ client, status }}>{children}</SyncContext.Provider>;
+}
+
+/** The sync client and its latest status (null until the first report). */
+export function useSync(): SyncContextValue {
+  const value = useContext(SyncContext);
+  if (!value) throw new Error("useSync needs <SyncProvider> above it");
+  return value;
+}
+
+/** The signed-in user as last seen online (undefined while loading, null if never cached). */
+export function useLocalProfile(): MetaValues["profile"] | null | undefined {
+  return useLiveQuery(async () => (await getMeta(getWindowcallDb(), "profile")) ?? null, []);
+}
