@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ThemePicker } from "./_components/theme-picker";
 import { SignOutButton } from "./_components/sign-out-button";
+import { CalloutSettingsForm } from "./_components/callout-settings";
 
 export const metadata: Metadata = { title: "Settings" };
 
@@ -15,6 +16,12 @@ export default function SettingsPage() {
           Screen
         </h2>
         <ThemePicker />
+      </section>
+      <section aria-labelledby="callouts-h" className="space-y-2">
+        <h2 id="callouts-h" className="text-lg font-bold">
+          Callouts
+        </h2>
+        <CalloutSettingsForm />
       </section>
       <section className="space-y-2">
         <Link href="/cautions" className="font-bold underline">
