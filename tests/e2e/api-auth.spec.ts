@@ -47,7 +47,7 @@ test("sign-up rejects bad input with a clear message and creates nothing", async
   const body = await res.json();
   expect(body.error.code).toBe("invalid_input");
   expect([...new Set(body.error.issues.map((i: { path: string }) => i.path))].sort()).toEqual(["email", "name", "password"]);
-  const notJson = await ctx.post("/api/account/sign-up", { data: "{", headers: { "content-type": "application/json" } });
+  const notJson = await ctx.post("/api/account/sign-up", { data: Buffer.from("{"), headers: { "content-type": "application/json" } });
   expect(notJson.status()).toBe(400);
 });
 
