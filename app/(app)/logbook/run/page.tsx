@@ -1,3 +1,14 @@
+import type { Metadata } from "next";
+import { Suspense } from "react";
+import { RunReview } from "./_components/run-review";
+
+export const metadata: Metadata = { title: "Run" };
+
+/** Static shell (precached for offline use); the run is read from the phone's database by its ?id=. */
 export default function LogbookRunPage() {
-  return <h1 className="text-2xl font-extrabold">Run</h1>;
+  return (
+    <Suspense fallback={<p aria-busy="true">Reading the run…</p>}>
+      <RunReview />
+    </Suspense>
+  );
 }

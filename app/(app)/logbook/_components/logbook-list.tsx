@@ -1,0 +1,87 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import type { ClockEstimate } from "@/lib/clock";
+import type { RunEvent } from "@/lib/events/schema";
+import { secondsText } from "@/lib/field/display";
+import { formatDate } from "@/lib/format";
+import { getMeta, getWindowcallDb, type StoredRun } from "@/lib/offline/db";
+import type { SessionEntity } from "@/lib/offline/entities";
+import { scoreStoredRun, taskTitle } from "./run-results";
+
+/** Every session on this phone, newest first, with its runs and results (read from IndexedDB only). */
+export function LogbookList() {
+  const data = useLiveQuery(async () => {
+    const db = getWindowcallDb();
+    const sessions = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
+    const runs = await db.runs.where("sessionId").anyOf(sessions.map((s) => s.id)).toArray();
+    const events = await db.events.where("runId").anyOf(runs.map((r) => r.id)).toArray();
+    return { sessions, runs, events, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
+  }, []);
+
+  if (!data) return <p aria-busy="true">Reading this phone’s logbook…</p>;
+  if (data.sessions.length === 0) {
+    return (
+      <div className="card space-y-2 rounded-xl border border-line bg-raised p-4">
+        <p className="font-semibold">Nothing in the logbook on this phone yet.</p>
+        <p className="text-muted">Time a window at the field — it works with no signal. Sessions timed on your other phones arrive here after they sync.</p>
+        <a href="/field" className="inline-flex min-h-touch items-center font-bold underline">
+          Go to the field
+        </a>
+      </div>
+    );
+  }
+  const runsOf = (s: SessionEntity) => data.runs.filter((r) => r.sessionId === s.id).sort((a, b) => a.createdAtWallMs - b.createdAtWallMs);
+  return (
+    <ol className="space-y-4" aria-label="Sessions">
+      {data.sessions.map((s) => (
+        <li key={s.id} className="card space-y-2 rounded-xl border border-line bg-raised p-4">
+          <h2 className="text-lg font-bold">{formatDate(new Date(s.startedAtWallMs))}</h2>
+          <p>
+            {s.fieldName}
+            <span className="block text-sm text-muted">{conditionsText(s.conditions)}</span>
+          </p>
+          <RunRows runs={runsOf(s)} data={data} />
+        </li>
+      ))}
+    </ol>
+  );
+}
+
+type Data = { events: RunEvent[]; deviceId: string | null; estimate: ClockEstimate | null };
+
+function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
+  if (runs.length === 0) return <p className="text-sm text-muted">No runs in this session.</p>;
+  return (
+    <ul className="divide-y-2 divide-line border-t-2 border-line" aria-label="Runs">
+      {runs.map((r) => {
+        const scored = scoreStoredRun(r, data.events.filter((e) => e.runId === r.id), data.deviceId, data.estimate);
+        return (
+          <li key={r.id}>
+            <a href={`/logbook/run?id=${r.id}`} className="flex min-h-touch items-center justify-between gap-3 py-2">
+              <span className="font-semibold">{scored.task ? taskTitle(scored.task) : "Unreadable task"}</span>
+              <span className="figures text-right text-sm">
+                {r.lanes.map((l) => (
+                  <span key={l.lane} className="block">
+                    {r.lanes.length > 1 ? `${l.pilotName} ` : ""}
+                    <b>{scored.task ? `${secondsText(scored.folded.lanes[l.lane]?.resultTenths ?? 0)} s` : "—"}</b>
+                  </span>
+                ))}
+              </span>
+              <span aria-hidden="true">›</span>
+            </a>
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+function conditionsText(c: SessionEntity["conditions"]): string {
+  const parts = [
+    c.windMs !== undefined ? `wind ${c.windMs} m/s${c.gustMs !== undefined ? `, gusts ${c.gustMs}` : ""}` : null,
+    c.temperatureC !== undefined ? `${c.temperatureC} °C` : null,
+    c.notes ? c.notes : null,
+  ].filter(Boolean);
+  return parts.length ? parts.join(" · ") : "No conditions noted";
+}

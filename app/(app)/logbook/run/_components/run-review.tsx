@@ -1,0 +1,69 @@
+"use client";
+
+import { useSearchParams } from "next/navigation";
+import { Breakdown, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
+import { describeTask } from "@/lib/field/describe-task";
+import { secondsText } from "@/lib/field/display";
+import { formatDate } from "@/lib/format";
+import { scoreStoredRun, taskTitle } from "../../_components/run-results";
+import { useLogbookRun } from "./use-logbook-run";
+import { Versions } from "./versions";
+
+/** One run from the logbook: each pilot's result, strip, flights and lost points; the corrections; other phones' versions. */
+export function RunReview() {
+  const id = useSearchParams().get("id");
+  const data = useLogbookRun(id);
+  if (!data) return <p aria-busy="true">Reading the run…</p>;
+  const { run, session, events } = data;
+  if (!run) {
+    return (
+      <div className="space-y-2">
+        <h1 className="text-2xl font-extrabold">Run not found</h1>
+        <p>This run is not on this phone. If it was timed on another phone, it appears after both have synced.</p>
+        <a href="/logbook" className="font-bold underline">Back to the logbook</a>
+      </div>
+    );
+  }
+  const scored = scoreStoredRun(run, events, data.deviceId, data.estimate);
+  if (!scored.task) return <p role="alert">{scored.error}</p>;
+  const { task, folded } = scored;
+  const names = data.profile ? { [data.profile.id]: data.profile.name } : {};
+  return (
+    <div className="space-y-6">
+      <header className="space-y-1">
+        <a href="/logbook" className="text-sm font-bold underline">‹ Logbook</a>
+        <h1 className="text-2xl font-extrabold">{taskTitle(task)}</h1>
+        <p className="text-sm text-muted">{describeTask(task)}</p>
+        {session ? <p className="text-sm">{formatDate(new Date(session.startedAtWallMs))} · {session.fieldName}</p> : null}
+        {folded.windowStartMs === null ? <p className="font-semibold text-warn">The working time was never started, so no flight scores.</p> : null}
+      </header>
+      {run.lanes.map((l) => {
+        const lane = folded.lanes[l.lane];
+        if (!lane) return null;
+        return (
+          <section key={l.lane} aria-labelledby={`lane-${l.lane}`} className="space-y-3">
+            <h2 id={`lane-${l.lane}`} className="flex items-baseline justify-between gap-3 border-b-2 border-line pb-1">
+              <span className="text-xl font-bold">{l.pilotName}</span>
+              <span className="figures text-3xl font-extrabold" data-testid={`lane-result-${l.lane}`}>{secondsText(lane.resultTenths)} s</span>
+            </h2>
+            {lane.sumCapTenths !== null && lane.rawTenths > lane.sumCapTenths ? (
+              <p className="text-sm text-muted">Flights add up to {secondsText(lane.rawTenths)} s; the working time allows {secondsText(lane.sumCapTenths)} s (F3K.7).</p>
+            ) : null}
+            <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
+            <FlightsTable flights={lane.flights} label={l.pilotName} />
+            <h3 className="text-lg font-bold">Where the points went</h3>
+            <Breakdown definition={task} lane={lane} />
+          </section>
+        );
+      })}
+      <section aria-labelledby="versions-h" className="space-y-2">
+        <h2 id="versions-h" className="text-lg font-bold">Official result and other phones</h2>
+        <Versions run={run} deviceId={data.deviceId} />
+      </section>
+      <section aria-labelledby="corrections-h" className="space-y-2">
+        <h2 id="corrections-h" className="text-lg font-bold">Corrections</h2>
+        <CorrectionsList events={events} lanes={run.lanes} deviceId={data.deviceId} names={names} />
+      </section>
+    </div>
+  );
+}

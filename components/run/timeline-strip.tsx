@@ -1,0 +1,121 @@
+import { formatTenths } from "@/lib/format";
+import { STATUS_MARK, secondsText } from "@/lib/field/display";
+import type { LiveFlight, TaskDefinition } from "@/lib/tasks";
+import { stripLayout, type StripSegment } from "./strip-layout";
+
+type Props = {
+  definition: TaskDefinition;
+  /** The lane's flights (LaneScore.flights or LaneLive.flights). */
+  flights: readonly LiveFlight[];
+  /** Live screens: ms since the start, to draw the flight in the air up to now. */
+  nowMs?: number | null;
+  /** Names the strip for screen readers, e.g. the pilot. */
+  label: string;
+};
+
+const W = 1000;
+const TOP = 16; // room for target ticks
+const H = 34; // strip height
+const SCALE_Y = TOP + H + 4;
+
+const fillOf = (s: StripSegment) =>
+  s.status === "invalid" ? "url(#strip-hatch)" : s.status === "not-counted" ? "rgb(var(--air) / 0.35)" : "rgb(var(--air))";
+
+/**
+ * The working time as one horizontal strip: each flight a filled block (air), the ground
+ * the gaps between, targets as ticks above, the landing window hatched after the end, a
+ * minute scale below. Status is drawn by shape too (hatched = scores zero, pale = not
+ * counted, a notch at a capped flight's cap), and the whole is repeated as text.
+ */
+export function TimelineStrip({ definition, flights, nowMs = null, label }: Props) {
+  const layout = stripLayout(definition, flights, nowMs);
+  const span = Math.max(1, layout.toMs - layout.fromMs);
+  const x = (ms: number) => ((ms - layout.fromMs) / span) * W;
+  const captionId = `strip-${label.replace(/\W+/g, "-")}`;
+  return (
+    <figure className="space-y-1">
+      <svg viewBox={`0 0 ${W} ${SCALE_Y + 26}`} className="block h-auto w-full" role="img" aria-labelledby={captionId} data-testid="timeline-strip">
+        <defs>
+          <pattern id="strip-hatch" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+            <rect width="8" height="8" fill="rgb(var(--raised))" />
+            <line x1="0" y1="0" x2="0" y2="8" stroke="rgb(var(--ink))" strokeWidth="3" />
+          </pattern>
+          <pattern id="strip-window" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(-45)">
+            <line x1="0" y1="0" x2="0" y2="6" stroke="rgb(var(--muted))" strokeWidth="1.5" />
+          </pattern>
+        </defs>
+        {layout.working.map((b) => (
+          <rect key={b.fromMs} x={x(b.fromMs)} y={TOP} width={x(b.toMs) - x(b.fromMs)} height={H} fill="rgb(var(--ground))" stroke="rgb(var(--ink))" strokeWidth="2" />
+        ))}
+        {layout.landing.map((b) => (
+          <rect key={`lw${b.fromMs}`} x={x(b.fromMs)} y={TOP} width={x(b.toMs) - x(b.fromMs)} height={H} fill="url(#strip-window)" stroke="rgb(var(--ink))" strokeWidth="1" strokeDasharray="4 3" />
+        ))}
+        {layout.segments.map((s) => (
+          <rect
+            key={s.flight}
+            data-flight={s.flight + 1}
+            data-status={s.status}
+            x={x(s.fromMs)}
+            y={TOP + 3}
+            width={Math.max(2, x(s.toMs) - x(s.fromMs))}
+            height={H - 6}
+            fill={fillOf(s)}
+            stroke="rgb(var(--air))"
+            strokeWidth="1.5"
+            strokeDasharray={s.status === "open" ? "5 3" : undefined}
+          />
+        ))}
+        {layout.segments.map((s) => {
+          const cap = s.status === "capped" ? capSecOf(definition, flights.find((f) => f.index === s.flight)) : null;
+          if (cap === null) return null;
+          const at = x(s.fromMs + cap * 1000);
+          return <line key={`cap${s.flight}`} x1={at} x2={at} y1={TOP + 3} y2={TOP + H - 3} stroke="rgb(var(--raised))" strokeWidth="3" />;
+        })}
+        {layout.ticks.map((t) => (
+          <path key={`t${t.flight}`} d={`M ${x(t.atMs) - 7} 2 L ${x(t.atMs) + 7} 2 L ${x(t.atMs)} ${TOP - 1} Z`} fill="rgb(var(--ink))" data-target={t.targetSec} />
+        ))}
+        {layout.scale.map((m) => (
+          <g key={`m${m.atMs}`}>
+            <line x1={x(m.atMs)} x2={x(m.atMs)} y1={TOP + H} y2={SCALE_Y + 4} stroke="rgb(var(--ink))" strokeWidth="2" />
+            <text x={x(m.atMs)} y={SCALE_Y + 22} fontSize="20" textAnchor={m.atMs === layout.fromMs ? "start" : "middle"} fill="rgb(var(--ink))" className="figures">
+              {m.label}
+            </text>
+          </g>
+        ))}
+      </svg>
+      <figcaption id={captionId} className="sr-only">
+        {`${label}: working time as a strip. `}
+        {describeStrip(definition, flights, nowMs)}
+      </figcaption>
+      <p className="text-xs text-muted" aria-hidden="true">
+        ▮ in the air · ▯ on the ground · ▨ scores zero · ▼ target{layout.landing.length ? " · ⫽ landing window" : ""}
+      </p>
+    </figure>
+  );
+}
+
+/** The strip in words: each flight with its time and status, and the ground time before it. */
+export function describeStrip(definition: TaskDefinition, flights: readonly LiveFlight[], nowMs: number | null = null): string {
+  const layout = stripLayout(definition, flights, nowMs);
+  if (layout.segments.length === 0) return "No flights.";
+  const groundBefore = new Map(layout.gaps.map((g) => [g.beforeFlight, g.tenths]));
+  return layout.segments
+    .map((s) => {
+      const ground = groundBefore.get(s.flight);
+      const target = flights.find((f) => f.index === s.flight)?.targetSec;
+      return [
+        ground !== undefined ? `${secondsText(ground)} s on the ground, then` : null,
+        `flight ${s.flight + 1} from ${formatTenths(Math.trunc(s.fromMs / 100))} for ${secondsText(s.airTenths)} s,`,
+        STATUS_MARK[s.status].label + (target ? `, target ${target} s` : "") + ".",
+      ]
+        .filter(Boolean)
+        .join(" ");
+    })
+    .join(" ");
+}
+
+/** The cap or target a capped flight was cut at, in seconds. */
+function capSecOf(def: TaskDefinition, f: LiveFlight | undefined): number | null {
+  if (!f) return null;
+  return f.targetSec ?? (def.kind === "window" || def.kind === "all-up" ? def.capSec : null);
+}
