@@ -1,6 +1,7 @@
 "use client";
 
 import { useEffect, useState } from "react";
+import { CalloutCaption, useCallouts, useWakeLock, WakeLockNote } from "@/components/callouts";
 import type { RunEvent } from "@/lib/events/schema";
 import { isRunOpen } from "@/lib/field/lane-tap";
 import { parsePrepPlan, prepPlanKey, prepStageAt, type PrepPlan } from "@/lib/field/prep-plan";
@@ -49,6 +50,12 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   // Rendered only in the browser (the run is read from IndexedDB), so localStorage is there.
   const [plan] = useState<PrepPlan | null>(() => parsePrepPlan(localStorage.getItem(prepPlanKey(run.id))));
   const stage = plan && live.phase === "not-started" ? prepStageAt(plan, now.wall) : null;
+  // Callouts each frame (said once each) and the screen kept awake while the window is open.
+  const laneNames: string[] = [];
+  for (const l of run.lanes) laneNames[l.lane] = l.pilotName;
+  const calloutPlan = plan ? { startAtMs: plan.beganAtWallMs + (plan.prepSec + plan.noFlySec) * 1000, preparationSec: plan.prepSec, noFlySec: plan.noFlySec } : null;
+  const callouts = useCallouts(task, open ? live : null, now.wall, { runKey: run.id, laneNames, plan: calloutPlan });
+  const wake = useWakeLock(open);
   const { startAt, tap, start } = actions;
   useEffect(() => {
     if (open && stage?.stage === "due") void startAt(stage.startsAtWallMs);
@@ -94,6 +101,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
           {recorder.error.message}
         </div>
       ) : null}
+      {open ? <WakeLockNote state={wake} /> : null}
+      {open ? <CalloutCaption callout={callouts.last} /> : null}
       <p aria-live="assertive" className="sr-only" data-testid="announcer">
         {said.text}
         {said.n % 2 ? "\u200b" : ""}
