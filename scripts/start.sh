@@ -12,12 +12,16 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 port_in_use "$PORT" && die "port $PORT is already taken: stop what runs there or run PORT=3100 npm start"
-say "building the app (next build --webpack, about a minute)"
-npx next build --webpack >.data-build.log 2>&1 || { tail -40 .data-build.log; die "build failed (full log: .data-build.log)"; }
-rm -f .data-build.log
-
 stop() { say "stopping"; [ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null; wait "${APP_PID:-}" 2>/dev/null; bash scripts/db.sh stop; exit 0; }
 trap stop INT TERM
+
+# Rebuild only when a source file is newer than the last build.
+if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib worker db public next.config.mjs tailwind.config.ts package-lock.json \
+     -type f -newer .next/BUILD_ID ! -name 'sw.js*' ! -name 'swe-worker-*' 2>/dev/null | head -1)" ]; then
+  say "building the app (next build --webpack, about a minute)"
+  npx next build --webpack >.data-build.log 2>&1 || { tail -40 .data-build.log; die "build failed (full log: .data-build.log)"; }
+  rm -f .data-build.log
+fi
 npx next start -p "$PORT" &
 APP_PID=$!
 say "Windowcall is on http://localhost:$PORT — demo accounts are in the README. Ctrl-C stops it."
