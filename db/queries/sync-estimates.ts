@@ -17,6 +17,7 @@ export async function storeClockEstimates(
   deviceId: string,
   incoming: readonly ClockEstimate[],
 ): Promise<{ estimates: ClockEstimate[]; movedRuns: Set<string> }> {
+  const movedRuns = new Set<string>();
   const existing = await tx
     .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
     .from(deviceClockEstimates)
@@ -25,7 +26,6 @@ export async function storeClockEstimates(
   const fresh = new Map<number, ClockEstimate>();
   for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);
   const added = [...fresh.values()];
-  const movedRuns = new Set<string>();
   if (added.length === 0) return { estimates: existing, movedRuns };
 
   await tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing();

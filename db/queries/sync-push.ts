@@ -1,5 +1,5 @@
 import "server-only";
-import { eq, sql } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import { ForbiddenError } from "@/lib/errors";
 import type { PushReply, PushRequest } from "@/lib/validations/sync";
@@ -16,11 +16,10 @@ import { applyEvents } from "./sync-push-events";
  * 403 (their items are not looked at). Refreshes last_seen_at for the owner.
  */
 export async function claimDevice(tx: Tx, deviceId: string, userId: string): Promise<void> {
-  await tx.insert(devices).values({ id: deviceId, userId }).onConflictDoNothing();
   const [row] = await tx
-    .update(devices)
-    .set({ lastSeenAt: sql`now()` })
-    .where(eq(devices.id, deviceId))
+    .insert(devices)
+    .values({ id: deviceId, userId })
+    .onConflictDoUpdate({ target: devices.id, set: { lastSeenAt: sql`now()` } })
     .returning({ userId: devices.userId });
   if (row?.userId !== userId) throw new ForbiddenError("This device is registered to another account. Sign in as that account to send its records.");
 }
@@ -36,7 +35,9 @@ export async function applyPush(db: Database, userId: string, req: PushRequest):
   return db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
     await lockSync(tx);
-    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds: await listUserClubIds(tx, userId), acks: [] };
+    const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
+    const clubIds = needsClubs ? await listUserClubIds(tx, userId) : new Set<string>();
+    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds, acks: [] };
 
     const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
     const clock = await storeClockEstimates(tx, req.deviceId, [...(req.clockEstimates ?? []), ...offsets]);
