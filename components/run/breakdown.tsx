@@ -1,14 +1,15 @@
 import { secondsText } from "@/lib/field/display";
+import { Swatch, type SwatchKind } from "./swatch";
 import { pointsLost, type LaneScore, type PointsLost, type TaskDefinition } from "@/lib/tasks";
 
 type Props = { definition: TaskDefinition; lane: LaneScore };
 
-const PARTS: { key: keyof PointsLost["parts"]; label: string; mark: string }[] = [
-  { key: "groundTime", label: "Time on the ground", mark: "▯" },
-  { key: "overCap", label: "Flown beyond the cap or target", mark: "▲" },
-  { key: "shortOfTarget", label: "Short of the cap or target", mark: "▽" },
-  { key: "notCounted", label: "Flights that did not count", mark: "□" },
-  { key: "invalid", label: "Flights that scored zero", mark: "✕" },
+const PARTS: { key: keyof PointsLost["parts"]; label: string; mark: SwatchKind }[] = [
+  { key: "groundTime", label: "Time on the ground", mark: "ground" },
+  { key: "overCap", label: "Flown beyond the cap or target", mark: "capped" },
+  { key: "shortOfTarget", label: "Short of the cap or target", mark: "short" },
+  { key: "notCounted", label: "Flights that did not count", mark: "pale" },
+  { key: "invalid", label: "Flights that scored zero", mark: "zero" },
 ];
 
 /**
@@ -38,7 +39,7 @@ export function Breakdown({ definition, lane }: Props) {
             return (
               <tr key={p.key} className={v === 0 ? "text-muted" : ""} data-part={p.key}>
                 <th scope="row" className="py-1 text-left font-normal">
-                  <span aria-hidden="true">{p.mark} </span>
+                  <Swatch kind={p.mark} />{" "}
                   {p.label}
                   <span className="mt-0.5 block h-1.5 bg-line/40" aria-hidden="true">
                     <span className="block h-1.5 bg-ink" style={{ width: `${share}%` }} />

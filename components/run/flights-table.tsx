@@ -11,13 +11,13 @@ export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[
   if (flights.length === 0) return <p className="text-muted">No flights.</p>;
   return (
     <div className="overflow-x-auto rounded-xl border-2 border-line">
-      <table className="figures w-full text-sm" aria-label={`Flights, ${label}`}>
+      <table className="figures w-full text-sm [&_td]:whitespace-nowrap [&_td:last-child]:whitespace-normal" aria-label={`Flights, ${label}`}>
         <thead className="bg-surface text-left">
           <tr>
-            <th scope="col" className="px-2 py-2">#</th>
+            <th scope="col" className="py-2 pl-2">#</th>
             <th scope="col" className="px-2 py-2">Launch</th>
             <th scope="col" className="px-2 py-2">Landing</th>
-            <th scope="col" className="px-2 py-2 text-right">Time</th>
+            <th scope="col" className="px-2 py-2 text-right">Time&nbsp;s</th>
             <th scope="col" className="px-2 py-2 text-right">Adds</th>
             <th scope="col" className="px-2 py-2">Status</th>
           </tr>
@@ -33,7 +33,7 @@ export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[
                 <td className="px-2 py-2 text-muted">{f.index + 1}{f.attempt !== null ? <span className="block text-xs">att. {f.attempt + 1}</span> : null}</td>
                 <td className="px-2 py-2">{formatTenths(Math.trunc(f.launchMs / 100))}</td>
                 <td className="px-2 py-2">{f.landMs === null ? "—" : formatTenths(Math.trunc(f.landMs / 100))}</td>
-                <td className="px-2 py-2 text-right font-bold" data-testid="flight-time">{time === null ? "—" : `${secondsText(time)} s`}</td>
+                <td className="px-2 py-2 text-right font-bold" data-testid="flight-time">{time === null ? "—" : secondsText(time)}</td>
                 <td className="px-2 py-2 text-right">{secondsText(f.creditedTenths)}</td>
                 <td className="px-2 py-2">
                   <span aria-hidden="true">{mark.symbol} </span>

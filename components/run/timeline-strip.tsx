@@ -1,6 +1,7 @@
 import { formatTenths } from "@/lib/format";
 import { STATUS_MARK, secondsText } from "@/lib/field/display";
 import type { LiveFlight, TaskDefinition } from "@/lib/tasks";
+import { StripLegend } from "./strip-legend";
 import { stripLayout, type StripSegment } from "./strip-layout";
 
 type Props = {
@@ -13,10 +14,11 @@ type Props = {
   label: string;
 };
 
-const W = 1000;
-const TOP = 16; // room for target ticks
-const H = 34; // strip height
-const SCALE_Y = TOP + H + 4;
+// Drawn in units close to CSS pixels on a phone (≈ 360 px wide), so text and ticks stay legible.
+const W = 360;
+const TOP = 12; // room for target ticks
+const H = 36; // strip height
+const SCALE_Y = TOP + H + 3;
 
 const fillOf = (s: StripSegment) =>
   s.status === "invalid" ? "url(#strip-hatch)" : s.status === "not-counted" ? "rgb(var(--air) / 0.35)" : "rgb(var(--air))";
@@ -34,7 +36,7 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
   const captionId = `strip-${label.replace(/\W+/g, "-")}`;
   return (
     <figure className="space-y-1">
-      <svg viewBox={`0 0 ${W} ${SCALE_Y + 26}`} className="block h-auto w-full" role="img" aria-labelledby={captionId} data-testid="timeline-strip">
+      <svg viewBox={`-6 0 ${W + 12} ${SCALE_Y + 18}`} className="block h-auto w-full" role="img" aria-labelledby={captionId} data-testid="timeline-strip">
         <defs>
           <pattern id="strip-hatch" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
             <rect width="8" height="8" fill="rgb(var(--raised))" />
@@ -72,12 +74,12 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
           return <line key={`cap${s.flight}`} x1={at} x2={at} y1={TOP + 3} y2={TOP + H - 3} stroke="rgb(var(--raised))" strokeWidth="3" />;
         })}
         {layout.ticks.map((t) => (
-          <path key={`t${t.flight}`} d={`M ${x(t.atMs) - 7} 2 L ${x(t.atMs) + 7} 2 L ${x(t.atMs)} ${TOP - 1} Z`} fill="rgb(var(--ink))" data-target={t.targetSec} />
+          <path key={`t${t.flight}`} d={`M ${x(t.atMs) - 5} 1 L ${x(t.atMs) + 5} 1 L ${x(t.atMs)} ${TOP + 4} Z`} stroke="rgb(var(--raised))" strokeWidth="1" fill="rgb(var(--ink))" data-target={t.targetSec} />
         ))}
         {layout.scale.map((m) => (
           <g key={`m${m.atMs}`}>
-            <line x1={x(m.atMs)} x2={x(m.atMs)} y1={TOP + H} y2={SCALE_Y + 4} stroke="rgb(var(--ink))" strokeWidth="2" />
-            <text x={x(m.atMs)} y={SCALE_Y + 22} fontSize="20" textAnchor={m.atMs === layout.fromMs ? "start" : "middle"} fill="rgb(var(--ink))" className="figures">
+            <line x1={x(m.atMs)} x2={x(m.atMs)} y1={TOP + H} y2={SCALE_Y + 3} stroke="rgb(var(--ink))" strokeWidth="1.5" />
+            <text x={x(m.atMs)} y={SCALE_Y + 16} fontSize="12" fontWeight="600" textAnchor={m.label.endsWith("min") || m.label.startsWith("#") ? "start" : "middle"} fill="rgb(var(--ink))" className="figures">
               {m.label}
             </text>
           </g>
@@ -87,9 +89,7 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
         {`${label}: working time as a strip. `}
         {describeStrip(definition, flights, nowMs)}
       </figcaption>
-      <p className="text-xs text-muted" aria-hidden="true">
-        ▮ in the air · ▯ on the ground · ▨ scores zero · ▼ target{layout.landing.length ? " · ⫽ landing window" : ""}
-      </p>
+      <StripLegend landing={layout.landing.length > 0} />
     </figure>
   );
 }
