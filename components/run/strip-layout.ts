@@ -49,7 +49,7 @@ export function stripLayout(def: TaskDefinition, flights: readonly LiveFlight[],
     if (def.landingWindowSec > 0) landing.push({ label: "landing window", fromMs: block, toMs: block + def.landingWindowSec * 1000 });
     const minutes = def.workingTimeSec / 60;
     const step = minutes > 12 ? 5 : 1;
-    for (let m = 0; m <= minutes; m += step) scale.push({ atMs: m * 60_000, label: m === 0 ? "0 min" : String(m) });
+    for (let m = 0; m <= minutes; m += step) scale.push({ atMs: m * 60_000, label: String(m) });
   }
 
   const segments: StripSegment[] = [];

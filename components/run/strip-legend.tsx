@@ -11,6 +11,7 @@ export function StripLegend({ landing }: { landing: boolean }) {
     ["target", "target"],
   ];
   if (landing) items.push(["window", "landing window"]);
+  // The scale below the strip counts minutes from the start.
   return (
     <ul className="flex flex-wrap gap-x-3 gap-y-1 text-xs text-muted" aria-hidden="true">
       {items.map(([kind, text]) => (
@@ -18,6 +19,7 @@ export function StripLegend({ landing }: { landing: boolean }) {
           <Swatch kind={kind} /> {text}
         </li>
       ))}
+      <li className="whitespace-nowrap">scale: minutes</li>
     </ul>
   );
 }

@@ -62,7 +62,7 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
               <span className="font-semibold">{scored.task ? taskTitle(scored.task) : "Unreadable task"}</span>
               <span className="figures text-right text-sm">
                 {r.lanes.map((l) => (
-                  <span key={l.lane} className="block">
+                  <span key={l.lane} className="block whitespace-nowrap">
                     {r.lanes.length > 1 ? `${l.pilotName} ` : ""}
                     <b>{scored.task ? `${secondsText(scored.folded.lanes[l.lane]?.resultTenths ?? 0)} s` : "—"}</b>
                   </span>
