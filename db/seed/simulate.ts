@@ -35,7 +35,7 @@ function aimFor(task: TaskDefinition, flightIndex: number): number {
 
 /**
  * One pilot's window as taps: the working-time signal, then launch/landing pairs until the
- * working time is over. Better pilots relaunch faster and land nearer their aim.
+ * working time is over, and the timekeeper closing the run after the landing window. Better pilots relaunch faster and land nearer their aim.
  */
 export function simulateWindow(task: TaskDefinition, skill: number, random: () => number): SimulatedEvent[] {
   const out: SimulatedEvent[] = [{ atOffsetMs: 0, body: { kind: "window-start" } }];
@@ -52,5 +52,7 @@ export function simulateWindow(task: TaskDefinition, skill: number, random: () =
     out.push({ atOffsetMs: land, body: { kind: "landing", lane: 0 } });
     t = land + Math.round((0.6 + (1 - skill) * 9 + random() * 4) * 1000);
   }
+  const lastMs = out[out.length - 1]?.atOffsetMs ?? 0;
+  out.push({ atOffsetMs: Math.max(lastMs, endMs + task.landingWindowSec * 1000) + 2000, body: { kind: "run-end" } });
   return out;
 }
