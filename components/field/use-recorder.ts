@@ -41,9 +41,13 @@ export function useRecorder({ runId, stored, clocks, estimate, onWritten }: Opti
     latest.current = events;
   }, [events]);
 
-  /** A stamp for an input: its own timeStamp when that is on this page's clock. */
+  /** A stamp for an input: its own timeStamp when that is on this page's clock, else "now". */
   const stampInput = useCallback(
-    (eventTimeStamp: number): Stamp => stampFromInput(inputMonoOf(eventTimeStamp, clocks.monoNow()).monoMs, estimate, clocks, getPageId()),
+    (eventTimeStamp: number): Stamp => {
+      const monoNow = clocks.monoNow();
+      const mono = clocks.inputsOnMonoClock() ? inputMonoOf(eventTimeStamp, monoNow).monoMs : monoNow;
+      return stampFromInput(mono, estimate, clocks, getPageId());
+    },
     [clocks, estimate],
   );
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { formatCountdown, formatRunning, secondsText } from "@/lib/field/display";
 import { inputMonoOf, MAX_INPUT_LAG_MS, stampForMoment } from "@/lib/field/input-time";
 import { parseFlightTime } from "@/lib/field/flight-fix";
-import { manualTimeSource } from "@/lib/field/time-source";
+import { isNativePerformanceNow, manualTimeSource } from "@/lib/field/time-source";
 
 describe("inputMonoOf", () => {
   it("keeps the input's own timestamp when it lies on the page's monotonic clock", () => {
@@ -53,5 +53,20 @@ describe("parseFlightTime", () => {
     expect(parseFlightTime("1:75")).toBeNull();
     expect(parseFlightTime("abc")).toBeNull();
     expect(parseFlightTime("63.45")).toBeNull();
+  });
+});
+
+describe("isNativePerformanceNow", () => {
+  it("tells a built-in clock function from a replacement written in script", () => {
+    const original = performance.now;
+    try {
+      // Node's performance.now is itself script, so a built-in stands in for the browser's.
+      performance.now = Date.now;
+      expect(isNativePerformanceNow()).toBe(true);
+      performance.now = () => 42;
+      expect(isNativePerformanceNow()).toBe(false);
+    } finally {
+      performance.now = original;
+    }
   });
 });
