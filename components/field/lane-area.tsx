@@ -1,5 +1,6 @@
 "use client";
 
+import { TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/offline/entities";
 import type { LaneLive, LiveState, TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
@@ -33,6 +34,7 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
             label={label}
             solo={solo}
             elapsedMs={live.elapsedMs}
+            strip={<TimelineStrip definition={task} flights={lane.flights} nowMs={live.elapsedMs} label={label} />}
             picker={needsTarget(task, lane, live) ? (
               <TargetPicker
                 laneLabel={label}

@@ -10,6 +10,7 @@ type Props = {
   solo: boolean;
   /** ms since working-time start (for time on the ground), or null. */
   elapsedMs: number | null;
+  strip: ReactNode;
   control: ReactNode;
   picker: ReactNode;
   tools: ReactNode;
@@ -17,7 +18,7 @@ type Props = {
 };
 
 /** One pilot's lane: the current flight in large figures, the score lines, the big control. */
-export function LanePanel({ lane, label, solo, elapsedMs, control, picker, tools, list }: Props) {
+export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker, tools, list }: Props) {
   const inAir = lane.currentFlightMs !== null;
   const lastLanded = [...lane.flights].reverse().find((f) => f.landMs !== null);
   const groundMs = !inAir && lastLanded?.landMs != null && elapsedMs !== null ? Math.max(0, elapsedMs - lastLanded.landMs) : null;
@@ -35,6 +36,7 @@ export function LanePanel({ lane, label, solo, elapsedMs, control, picker, tools
         <Figure term="Best possible" value={secondsText(lane.bestPossibleTenths)} />
         <Figure term={lane.nextTargetSec !== null ? "Next target" : inAir ? "If it lands now" : "Launches left"} value={nextValue(lane, inAir)} />
       </dl>
+      {strip}
       {lane.penaltyPoints > 0 ? <p className="font-bold">Penalty: −{lane.penaltyPoints} points</p> : null}
       {lane.remainingTargetsSec.length > 1 ? <p className="text-sm">Targets still open: {lane.remainingTargetsSec.join(", ")} s</p> : null}
       {lane.warnings.length > 0 ? (

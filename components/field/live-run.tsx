@@ -8,9 +8,8 @@ import { parsePrepPlan, prepPlanKey, prepStageAt, type PrepPlan } from "@/lib/fi
 import { buildTimeline } from "@/lib/field/timeline";
 import type { TimeSource } from "@/lib/field/time-source";
 import { getPageId } from "@/lib/offline/device";
-import { requestPersistence } from "@/lib/offline/storage";
 import { liveState } from "@/lib/tasks";
-import { AuditList } from "./audit-list";
+import { CorrectionsList } from "@/components/run";
 import { ClockPanel } from "./clock-panel";
 import { LaneArea } from "./lane-area";
 import { PrepPanel } from "./prep-panel";
@@ -23,8 +22,6 @@ import { useNow } from "./use-now";
 import { useRecorder } from "./use-recorder";
 import { useRunActions } from "./use-run-actions";
 import type { RunData } from "./use-run-data";
-
-const PERSIST_ASKED = "windowcall.storage.persist-asked";
 
 /** The live window: a pure function of the stored events and "now", redrawn every frame. */
 export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "ready" }>; clocks: TimeSource }) {
@@ -61,11 +58,7 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
     if (open && stage?.stage === "due") void startAt(stage.startsAtWallMs);
   }, [open, stage?.stage, stage?.startsAtWallMs, startAt]);
 
-  useEffect(() => {
-    if (localStorage.getItem(PERSIST_ASKED)) return;
-    localStorage.setItem(PERSIST_ASKED, "1");
-    void requestPersistence();
-  }, []);
+  // Persistent storage is requested once per page by the sync provider.
 
   // A Bluetooth clicker sends Space / Enter: they drive the solo lane (or give the start).
   const notStarted = live.phase === "not-started";
@@ -119,7 +112,7 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
       )}
       <details className="rounded-xl border-2 border-line p-3">
         <summary className="min-h-12 cursor-pointer py-3 font-bold">Corrections and undo log</summary>
-        <AuditList events={recorder.events} lanes={run.lanes} deviceId={deviceId} myName={profile?.name ?? null} />
+        <CorrectionsList events={recorder.events} lanes={run.lanes} deviceId={deviceId} names={profile ? { [profile.id]: profile.name } : undefined} />
       </details>
     </div>
   );

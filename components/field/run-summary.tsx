@@ -1,3 +1,4 @@
+import { Breakdown, TimelineStrip } from "@/components/run";
 import { secondsText } from "@/lib/field/display";
 import type { RunLane } from "@/lib/offline/entities";
 import { foldRun, pointsLost, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
@@ -27,12 +28,16 @@ export function RunSummary({ runId, task, timeline, lanes }: Props) {
                 of {secondsText(lost.maxTenths)} s possible · {secondsText(lost.lostTenths)} s lost
                 {lane.penaltyPoints > 0 ? ` · penalty −${lane.penaltyPoints} points` : ""}
               </p>
+              <div className="mt-3 space-y-3">
+                <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
+                <Breakdown definition={task} lane={lane} />
+              </div>
             </li>
           );
         })}
       </ul>
       <a href={`/logbook/run?id=${runId}`} className="flex min-h-touch items-center justify-center rounded-xl border-2 border-ink font-bold">
-        Where the points went →
+        Full review in the logbook →
       </a>
       <a href="/field" className="flex min-h-touch items-center justify-center rounded-xl bg-accent font-bold text-accent-ink">
         Back to the field

@@ -1,9 +1,12 @@
 "use client";
 
+import { useSync } from "@/components/sync/sync-provider";
+
 /**
- * Tells the sync layer that a local write is waiting, so it pushes soon (debounced,
- * single-flight, SYNC.md §2). A no-op until the sync provider is mounted.
+ * Tells the sync client that a local write is waiting, so it pushes soon (debounced,
+ * single-flight, SYNC.md §2). Called only after the write is stored.
  */
 export function useNotifyWrite(): () => void {
-  return () => {};
+  const { client } = useSync();
+  return () => client.notifyWrite();
 }

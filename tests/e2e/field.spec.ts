@@ -1,4 +1,4 @@
-import { expect, test, type Locator, type Page } from "@playwright/test";
+import { expect, test, type BrowserContext, type Locator, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
 
 /**
@@ -6,7 +6,8 @@ import { signInAs } from "./support/auth";
  * load, on Playwright's controlled clock (it fakes Date, performance.now, timers and frames).
  */
 
-const T0 = new Date("2026-05-02T09:00:00Z");
+// Tomorrow 09:00 UTC: later than every seeded or earlier run, so the field home lists it first.
+const T0 = new Date((Math.floor(Date.now() / 86_400_000) + 1) * 86_400_000 + 9 * 3_600_000);
 test.use({ viewport: { width: 390, height: 844 } });
 test.describe.configure({ timeout: 150_000 });
 
@@ -19,12 +20,40 @@ async function workerReady(page: Page) {
   });
 }
 
-/** Signs in, lets the worker take control, installs the controlled clock and opens the set-up form. */
-async function openSetUp(page: Page) {
+/** Waits until the sync layer has kept the signed-in profile on the device (for offline use). */
+async function profileCached(page: Page) {
+  await expect
+    .poll(() =>
+      page.evaluate(
+        () =>
+          new Promise<boolean>((resolve) => {
+            const req = indexedDB.open("windowcall");
+            req.onsuccess = () => {
+              const get = req.result.transaction("meta").objectStore("meta").get("profile");
+              get.onsuccess = () => resolve(Boolean(get.result));
+              get.onerror = () => resolve(false);
+            };
+            req.onerror = () => resolve(false);
+          }),
+      ),
+    )
+    .toBe(true);
+}
+
+/**
+ * Signs in once online, lets the worker take control and the profile be cached, then cuts
+ * the network, installs the controlled clock and opens the set-up form from the precache.
+ */
+async function openSetUpOffline(page: Page, context: BrowserContext) {
   await signInAs(page, "ada@example.com");
   await workerReady(page);
+  await profileCached(page);
+  await context.setOffline(true);
   await page.clock.install({ time: T0 });
-  await page.goto("/field/new");
+  await page.goto("/field/new").catch(() => null); // offline: served by the worker
+  await expect(page.getByRole("heading", { name: "New task window" })).toBeVisible();
+  await page.clock.runFor(1_000); // let the page's timers run once before pausing
+  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
   await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
   // Paused from here: time moves only by runFor, so every reading below is exact.
   await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
@@ -93,9 +122,8 @@ async function fly(page: Page, steps: [string, number, "Launch" | "Landed"][]) {
 }
 
 test("solo H offline: four flights, a reload mid-flight, exact result (F3K.11.8)", async ({ page, context }) => {
-  await openSetUp(page);
+  await openSetUpOffline(page, context);
   await chooseTaskH(page);
-  await context.setOffline(true);
   await createAndStart(page);
   // The solo lane is named after the signed-in pilot.
   const me = (await page.getByRole("button", { name: /^Launch, / }).getAttribute("aria-label"))!.replace(/^Launch, /, "");
@@ -126,13 +154,23 @@ test("solo H offline: four flights, a reload mid-flight, exact result (F3K.11.8)
   // Points lost, worked by hand: H's maximum is the F3K.7 sum cap 600 − 4 = 596.0 s, so
   // 27.0 s are lost = 5.0 s flown beyond targets (63.0 against 60, 182.0 against 180) +
   // 22.0 s on the ground (600 − 574.0 s airtime = 26.0 s, less the 4 × 1 s F3K.7 allows).
-  await expect(page.getByRole("listitem", { name: /^Result, / })).toContainText("of 596.0 s possible · 27.0 s lost");
+  const result = page.getByRole("listitem", { name: /^Result, / });
+  await expect(result).toContainText("of 596.0 s possible · 27.0 s lost");
+  await expect(result.locator("[data-part=groundTime]")).toContainText("22.0 s");
+  await expect(result.locator("[data-part=overCap]")).toContainText("5.0 s");
+  await expect(result.locator("[data-part=shortOfTarget]")).toContainText("0.0 s");
+  // The field home lists it as finished (with its result), not as open.
+  const runId = new URL(page.url()).searchParams.get("id");
+  await page.goto("/field").catch(() => null);
+  const finished = page.locator(`a[href="/logbook/run?id=${runId}"]`);
+  await settle(page, finished, 50);
+  await expect(finished).toContainText("569.0 s");
+  await expect(page.locator(`a[href="/field/run?id=${runId}"]`)).toHaveCount(0);
 });
 
 test("two lanes offline: two pilots, different flights, both exact (F3K.11.8 matching)", async ({ page, context }) => {
-  await openSetUp(page);
+  await openSetUpOffline(page, context);
   await chooseTaskH(page, ["Kit Marsh", "Rowan Vale"]);
-  await context.setOffline(true);
   await createAndStart(page);
   const a = "Lane 1 · Kit Marsh";
   const b = "Lane 2 · Rowan Vale";
@@ -169,9 +207,8 @@ test("two lanes offline: two pilots, different flights, both exact (F3K.11.8 mat
 });
 
 test("the working-time clock does not drift over a full window", async ({ page, context }) => {
-  await openSetUp(page);
+  await openSetUpOffline(page, context);
   await chooseTaskH(page);
-  await context.setOffline(true);
   const spent = await createAndStart(page);
   const left = page.getByTestId("working-time-left");
   const label = page.getByRole("region", { name: "Working time" });
