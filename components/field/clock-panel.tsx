@@ -14,7 +14,7 @@ export function ClockPanel({ live, workingTimeSec }: { live: LiveState; workingT
   const elapsed = Math.min(totalMs, Math.max(0, live.elapsedMs ?? 0));
   const minutes = Math.floor(workingTimeSec / 60);
   return (
-    <section aria-label="Working time" className="space-y-2">
+    <section aria-label="Working time" className="space-y-1">
       <div className="flex items-end justify-between">
         <p className="font-bold uppercase tracking-wide">{label}</p>
         {live.attempt ? (
@@ -23,7 +23,7 @@ export function ClockPanel({ live, workingTimeSec }: { live: LiveState; workingT
           </p>
         ) : null}
       </div>
-      <p className="figures text-center text-[6.5rem] font-extrabold leading-none" data-testid="working-time-left" role="timer" aria-live="off">
+      <p className="figures text-center text-[6rem] font-extrabold leading-none" data-testid="working-time-left" role="timer" aria-live="off">
         {formatCountdown(ms)}
       </p>
       <div aria-hidden className="relative h-5 overflow-hidden rounded border-2 border-ink bg-raised">

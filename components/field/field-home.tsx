@@ -51,7 +51,7 @@ export function FieldHome() {
               <li key={r.run.id}>
                 <a href={`/logbook/run?id=${r.run.id}`} className="card flex min-h-touch items-center justify-between gap-3 rounded-xl border border-line bg-raised p-3">
                   <RunLine row={r} />
-                  <span className="figures text-right font-bold">{r.resultsTenths.map((t) => `${secondsText(t)} s`).join(" · ")}</span>
+                  <span className="figures whitespace-nowrap text-right font-bold">{r.resultsTenths.map((t) => `${secondsText(t)} s`).join(" · ")}</span>
                 </a>
               </li>
             ))}
@@ -71,8 +71,9 @@ function RunLine({ row }: { row: FieldRunRow }) {
     <span className="min-w-0">
       <span className="block font-bold">{t ? `${t.letter ? `${t.letter} · ` : ""}${t.name}` : "Unknown task"}</span>
       <span className="block truncate text-sm text-muted">
-        {row.run.lanes.map((l) => l.pilotName).join(", ")} · {row.session?.fieldName ?? "field not synced"} · {when.format(new Date(row.run.createdAtWallMs))}
+        {row.run.lanes.map((l) => l.pilotName).join(", ")} · {row.session?.fieldName ?? "field not synced"}
       </span>
+      <span className="figures block text-sm text-muted">{when.format(new Date(row.run.createdAtWallMs))}</span>
     </span>
   );
 }

@@ -17,7 +17,10 @@ type Props = {
   list: ReactNode;
 };
 
-/** One pilot's lane: the current flight in large figures, the score lines, the big control. */
+/**
+ * One pilot's lane: the current flight in large figures, the score lines, the warnings,
+ * then the big control (within thumb reach without scrolling on a phone), then the strip.
+ */
 export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker, tools, list }: Props) {
   const inAir = lane.currentFlightMs !== null;
   const lastLanded = [...lane.flights].reverse().find((f) => f.landMs !== null);
@@ -36,9 +39,7 @@ export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker
         <Figure term="Best possible" value={secondsText(lane.bestPossibleTenths)} />
         <Figure term={lane.nextTargetSec !== null ? "Next target" : inAir ? "If it lands now" : "Launches left"} value={nextValue(lane, inAir)} />
       </dl>
-      {strip}
       {lane.penaltyPoints > 0 ? <p className="font-bold">Penalty: −{lane.penaltyPoints} points</p> : null}
-      {lane.remainingTargetsSec.length > 1 ? <p className="text-sm">Targets still open: {lane.remainingTargetsSec.join(", ")} s</p> : null}
       {lane.warnings.length > 0 ? (
         <ul className="space-y-1">
           {lane.warnings.map((w) => (
@@ -51,6 +52,8 @@ export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker
       ) : null}
       {picker}
       {control}
+      {strip}
+      {lane.remainingTargetsSec.length > 1 ? <p className="text-sm">Targets still open: {lane.remainingTargetsSec.join(", ")} s</p> : null}
       {tools}
       {list}
     </section>

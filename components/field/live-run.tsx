@@ -13,6 +13,7 @@ import { CorrectionsList } from "@/components/run";
 import { ClockPanel } from "./clock-panel";
 import { LaneArea } from "./lane-area";
 import { PrepPanel } from "./prep-panel";
+import { SignalElsewhereButton, SignalElsewhereNote, useSignalElsewhere } from "./signal-elsewhere";
 import { RunHeader } from "./run-header";
 import { RunSummary } from "./run-summary";
 import { describeWrite } from "./announce";
@@ -61,7 +62,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   // Persistent storage is requested once per page by the sync provider.
 
   // A Bluetooth clicker sends Space / Enter: they drive the solo lane (or give the start).
-  const notStarted = live.phase === "not-started";
+  const [signalElsewhere, setSignalElsewhere] = useSignalElsewhere(run.id);
+  const notStarted = live.phase === "not-started" && !signalElsewhere;
   useEffect(() => {
     if (laneCount !== 1 || !open) return;
     const onKey = (e: KeyboardEvent) => {
@@ -103,7 +105,15 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
       {!open ? (
         <RunSummary runId={run.id} task={task} timeline={timeline} lanes={run.lanes} />
       ) : notStarted ? (
-        <PrepPanel stage={stage} onStart={(t) => void start(t)} />
+        <>
+          <PrepPanel stage={stage} onStart={(t) => void start(t)} />
+          <SignalElsewhereButton onChoose={() => setSignalElsewhere(true)} />
+        </>
+      ) : live.phase === "not-started" ? (
+        <>
+          <SignalElsewhereNote onUndo={() => setSignalElsewhere(false)} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} />
+        </>
       ) : (
         <>
           <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} />

@@ -6,15 +6,14 @@ import type { TaskDefinition } from "@/lib/tasks";
 export function RunHeader({ task, run, session }: { task: TaskDefinition; run: RunEntity; session: SessionEntity | undefined }) {
   const who = run.lanes.map((l) => l.pilotName).join(", ");
   return (
-    <header className="space-y-1">
-      <h1 className="text-xl font-extrabold">
+    <header>
+      <h1 className="truncate text-base font-extrabold">
         {task.letter ? `Task ${task.letter} · ` : ""}
         {task.name}
       </h1>
-      <p className="text-sm text-muted">{describeTask(task)}</p>
-      <p className="text-sm">
+      <p className="truncate text-sm text-muted">
         {who}
-        {session ? ` · ${session.fieldName}` : ""}
+        {session ? ` · ${session.fieldName}` : ""} · {describeTask(task)}
       </p>
     </header>
   );

@@ -20,7 +20,7 @@ type Props = {
  */
 export function TapControl({ action, laneLabel, inAir, size, disabled, onTap }: Props) {
   const press = useInstantPress(onTap, disabled);
-  const height = size === "solo" ? "min-h-[38vh]" : "min-h-28";
+  const height = size === "solo" ? "min-h-[34vh]" : "min-h-28";
   return (
     <button
       type="button"
