@@ -9,7 +9,7 @@ import { signInAs } from "./support/auth";
 // Tomorrow 09:00 UTC: later than every seeded or earlier run, so the field home lists it first.
 const T0 = new Date((Math.floor(Date.now() / 86_400_000) + 1) * 86_400_000 + 9 * 3_600_000);
 test.use({ viewport: { width: 390, height: 844 } });
-test.describe.configure({ timeout: 150_000 });
+test.describe.configure({ timeout: 240_000 }); // long fake windows on a busy 2-core machine
 
 async function workerReady(page: Page) {
   await page.evaluate(async () => {
