@@ -10,7 +10,7 @@ ensure_chromium_installed
 bash scripts/db.sh up
 ensure_env_file
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_e2e)"
-export E2E_PORT="${E2E_PORT:-$(free_port 3310)}"
+export E2E_PORT="${E2E_PORT:-$(free_port 3410)}"
 export NEXTAUTH_URL="http://localhost:$E2E_PORT"
 if [ "${RESET_DB:-1}" = 1 ]; then
   psql "$(bash scripts/db.sh url postgres)" -qc "drop database if exists windowcall_e2e with (force)" -c "create database windowcall_e2e" >/dev/null

@@ -13,8 +13,6 @@ ensure_env_file
 ADMIN_URL="$(bash scripts/db.sh url postgres)"
 psql "$ADMIN_URL" -qc "drop database if exists windowcall_test with (force)" -c "create database windowcall_test" >/dev/null
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_test)"
-export E2E_PORT="${E2E_PORT:-$(free_port 3310)}"
-export NEXTAUTH_URL="http://localhost:$E2E_PORT"
 npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 
@@ -33,6 +31,9 @@ run_suite unit npx vitest run --project unit
 run_suite integration npx vitest run --project integration
 run_suite build npx next build --webpack
 if [ "${RESULTS[-1]%% *}" = passed ]; then
+  # Chosen just before use, so another checkout's server cannot take it in between.
+  export E2E_PORT="${E2E_PORT:-$(free_port 3310)}"
+  export NEXTAUTH_URL="http://localhost:$E2E_PORT"
   run_suite e2e npx playwright test
 else
   NAMES+=(e2e); RESULTS+=("FAILED (not run: the build failed)")
