@@ -12,7 +12,11 @@ export type SessionSummary = {
   taskCodes: string[];
 };
 
-/** Sessions the user owns or flew in (as a lane pilot), newest first. */
+/**
+ * Sessions the user owns or flew in (as a lane pilot), newest first. The counts name their tables
+ * in plain SQL: a column interpolated into a select's sql`` renders without its table and would
+ * bind to the inner query.
+ */
 export async function listRecentSessions(db: Database, params: { userId: string; limit: number }): Promise<SessionSummary[]> {
   const flewIn = exists(
     db
@@ -27,8 +31,8 @@ export async function listRecentSessions(db: Database, params: { userId: string;
       fieldName: fieldSessions.fieldName,
       startedAt: fieldSessions.startedAt,
       conditions: fieldSessions.conditions,
-      runCount: sql<number>`(select count(*)::int from ${runs} where ${runs.sessionId} = ${fieldSessions.id})`,
-      taskCodes: sql<string[]>`coalesce((select array_agg(distinct ${runs.taskCode}) from ${runs} where ${runs.sessionId} = ${fieldSessions.id}), '{}')`,
+      runCount: sql<number>`(select count(*)::int from runs r where r.session_id = "field_sessions"."id")`,
+      taskCodes: sql<string[]>`coalesce((select array_agg(distinct r.task_code order by r.task_code) from runs r where r.session_id = "field_sessions"."id"), '{}')`,
     })
     .from(fieldSessions)
     .where(or(eq(fieldSessions.ownerId, params.userId), flewIn))
