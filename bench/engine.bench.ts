@@ -6,17 +6,8 @@
  */
 import { CATALOGUE, foldRun, scoreTask, type FlightInput, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
 import { rankPilots, scoreRound, type GroupResult } from "@/lib/scoring";
+import { mulberry32 } from "@/lib/random";
 
-function mulberry32(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const rand = mulberry32(20250501);
 const int = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1));
 

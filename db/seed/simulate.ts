@@ -2,17 +2,8 @@ import type { EventBody } from "@/lib/events/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { TaskDefinition, TaskLetter } from "@/lib/tasks/definition";
 
-/** Small seeded PRNG (mulberry32) so the demo season is the same on every machine. */
-export function makeRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The demo season's seeded random numbers (the same on every machine). */
+export { mulberry32 as makeRandom } from "@/lib/random";
 
 export type SimulatedEvent = { atOffsetMs: number; body: EventBody };
 

@@ -20,16 +20,8 @@ export type Op = "create" | "record" | "sync" | "kill" | "measure" | "deliver";
 export type Step = { device: number; op: Op; n: number };
 export type Scenario = { devices: { user: number; skewMs: number }[]; steps: Step[]; seed: number; faultRate: number };
 
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from "@/lib/random";
+export { mulberry32 };
 
 const noTimers = { set: () => 0, clear: () => undefined };
 const TASKS: TaskLetter[] = ["H", "B", "J", "F"];
