@@ -2,6 +2,7 @@
 
 import { secondsText } from "@/lib/field/display";
 import { FirstUseCautions } from "./first-use-cautions";
+import { PlanEditor } from "./plan-editor";
 import { useFieldRuns, type FieldRunRow } from "./use-field-runs";
 import { useIsClient } from "./use-is-client";
 
@@ -37,6 +38,7 @@ export function FieldHome() {
       <a href="/field/new" className="flex min-h-[5.5rem] items-center justify-center rounded-2xl bg-accent text-2xl font-extrabold text-accent-ink">
         Start a task window
       </a>
+      {client ? <PlanEditor /> : null}
       <section aria-labelledby="recent-title" className="space-y-2">
         <h2 id="recent-title" className="text-lg font-bold">
           Recent results on this phone

@@ -3,6 +3,7 @@
 import { useState } from "react";
 import { TextField } from "@/components/ui/field";
 import { planNewWindow, type NewWindowErrors, type WhoFlies } from "@/lib/field/new-window";
+import { catalogueChoiceOf, planProgressKey, progressAfter } from "@/lib/field/practice-plan";
 import { prepPlanKey } from "@/lib/field/prep-plan";
 import { getWindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
@@ -10,7 +11,7 @@ import { isQuotaError } from "@/lib/offline/storage";
 import type { TaskLetter } from "@/lib/tasks";
 import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput, type CustomDraft } from "./custom-task-fields";
 import { PlaceFields } from "./place-fields";
-import { TaskChooser, type TaskKey } from "./task-chooser";
+import { PlanTaskChooser, TaskChooser, type PlanPick, type TaskKey } from "./task-chooser";
 import { useFieldProfile } from "./use-field-profile";
 import { useIsClient } from "./use-is-client";
 import { useNotifyWrite } from "./use-notify-write";
@@ -33,6 +34,7 @@ function NewWindowFormInner() {
   const [who, setWho] = useState<WhoFlies>({ mode: "me" });
   const [taskKey, setTaskKey] = useState<TaskKey>("H:600");
   const [custom, setCustom] = useState<CustomDraft>(EMPTY_CUSTOM);
+  const [planPick, setPlanPick] = useState<PlanPick | null>(null);
   const [prepMin, setPrepMin] = useState("");
   const [noFly, setNoFly] = useState(false);
   const [errors, setErrors] = useState<NewWindowErrors & { save?: string }>({});
@@ -41,10 +43,15 @@ function NewWindowFormInner() {
   const submit = async () => {
     if (!profile) return setErrors({ save: "Sign in once with signal on this phone; after that the field timer works with none." });
     const [letter, variant] = taskKey.split(":");
-    const task = taskKey === "custom" ? { source: "custom" as const, input: toCustomInput(custom) } : { source: "catalogue" as const, letter: letter as TaskLetter, variant: Number(variant) };
+    // A plan item is a catalogue task: it is checked as one, and its stored definition becomes the run's task.
+    const planItem = taskKey === "plan" && planPick ? planPick.plan.items[planPick.itemIndex] : undefined;
+    const planChoice = planItem ? catalogueChoiceOf(planItem) : null;
+    if (taskKey === "plan" && !planChoice) return setErrors({ task: planPick ? "This plan task has no rulebook letter; choose another." : "Choose a practice plan and one of its tasks." });
+    const task = planChoice ? { source: "catalogue" as const, ...planChoice } : taskKey === "custom" ? { source: "custom" as const, input: toCustomInput(custom) } : { source: "catalogue" as const, letter: letter as TaskLetter, variant: Number(variant) };
     const wallNow = Date.now();
     const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow);
     if (!out.ok) return setErrors(out.errors);
+    if (planItem) out.plan.run.task = structuredClone(planItem) as unknown as Record<string, unknown>;
     setErrors({});
     setBusy(true);
     try {
@@ -52,6 +59,7 @@ function NewWindowFormInner() {
       const session = await createSessionLocal(db, out.plan.session);
       const run = await createRunLocal(db, { ...out.plan.run, sessionId: session.id });
       localStorage.setItem(LAST_FIELD_KEY, out.plan.session.fieldName);
+      if (planPick && planItem) localStorage.setItem(planProgressKey(planPick.plan.id), JSON.stringify(progressAfter(planPick.plan, planPick.itemIndex)));
       if (out.plan.prep) localStorage.setItem(prepPlanKey(run.id), JSON.stringify({ beganAtWallMs: Date.now(), ...out.plan.prep }));
       notify();
       // A full navigation: offline, the service worker serves the one precached run shell.
@@ -86,6 +94,7 @@ function NewWindowFormInner() {
       <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} error={errors.who} />
       <TaskChooser value={taskKey} onChange={setTaskKey} />
       {taskKey === "custom" ? <CustomTaskFields draft={custom} onChange={setCustom} /> : null}
+      {taskKey === "plan" ? <PlanTaskChooser pick={planPick} onPick={setPlanPick} /> : null}
       {errors.task ? (
         <p role="alert" className="rounded-lg border-2 border-danger p-3 font-semibold text-danger">
           The task does not work: {errors.task}

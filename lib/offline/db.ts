@@ -1,6 +1,7 @@
 import Dexie, { type EntityTable, type Table } from "dexie";
 import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
+import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneResult } from "@/lib/validations/sync";
 import type { RunEntity, SessionEntity } from "./entities";
 
@@ -64,6 +65,8 @@ export type WindowcallDb = Dexie & {
   runs: Table<StoredRun, string>;
   meta: Table<MetaRow, MetaKey>;
   clockSamples: EntityTable<ClockSampleRow, "id">;
+  /** The pilot's own practice plans (device only for now; not synced). */
+  plans: Table<PracticePlan, string>;
 };
 
 export const DB_NAME = "windowcall";
@@ -80,6 +83,10 @@ export function createWindowcallDb(name: string = DB_NAME): WindowcallDb {
     runs: "id, sessionId",
     meta: "key",
     clockSamples: "++id, burstId",
+  });
+  // Version 2: the pilot's practice plans (old versions are never edited).
+  db.version(2).stores({
+    plans: "id, createdAtWallMs",
   });
   return db;
 }
