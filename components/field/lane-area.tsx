@@ -6,6 +6,7 @@ import type { LaneLive, LiveState, TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
 import { LanePanel } from "./lane-panel";
 import { LaneTools } from "./lane-tools";
+import { NextAttemptControl } from "./next-attempt";
 import { TapControl } from "./tap-control";
 import { TargetPicker } from "./target-picker";
 import type { useRunActions } from "./use-run-actions";
@@ -50,6 +51,9 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
           />
         );
       })}
+      {over && !anyInAir && live.attempt && live.attempt.index + 1 < live.attempt.of ? (
+        <NextAttemptControl attempt={live.attempt.index + 2} of={live.attempt.of} onSignal={(t) => void actions.start(t)} />
+      ) : null}
       {live.phase === "ended" || (live.phase === "landing-window" && !anyInAir) ? (
         <button type="button" onClick={() => void actions.close()} className="min-h-touch w-full rounded-2xl bg-accent text-2xl font-extrabold text-accent-ink">
           Close the window and see the result

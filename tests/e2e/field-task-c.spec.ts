@@ -1,0 +1,50 @@
+import { expect, test, type Locator, type Page } from "@playwright/test";
+import { signInAs } from "./support/auth";
+
+/** Task C (F3K.11.3): one launch signal per attempt, each attempt with its own 3:33 deadline. */
+const T0 = new Date("2026-05-02T09:00:00Z");
+test.use({ viewport: { width: 390, height: 844 } });
+test.describe.configure({ timeout: 150_000 });
+
+async function press(page: Page, target: Locator) {
+  await target.scrollIntoViewIfNeeded();
+  const box = await target.boundingBox();
+  if (!box) throw new Error("control not on screen");
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.down();
+  await page.mouse.up();
+}
+
+async function settle(page: Page, target: Locator) {
+  for (let spent = 0; spent < 5_000; spent += 20) {
+    if (await target.isVisible()) return;
+    await page.clock.runFor(20);
+  }
+  throw new Error("the page did not settle");
+}
+
+test("task C gives the next attempt's signal once an attempt is over", async ({ page }) => {
+  await signInAs(page, "tobi@example.com");
+  await page.clock.install({ time: T0 });
+  await page.goto("/field/new");
+  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
+  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
+  await page.getByLabel("Field").fill("North Meadow");
+  await page.getByRole("radio", { name: /^C · All up, last down · 3 attempts/ }).check();
+  await page.getByRole("button", { name: "Set up the window" }).click();
+  await expect(page).toHaveURL(/\/field\/run\?id=/);
+  const start = page.getByRole("button", { name: "Start working time" });
+  await settle(page, start);
+  await press(page, start);
+  await settle(page, page.getByText("Attempt 1 of 3"));
+  await press(page, page.getByRole("button", { name: /^Launch, / }));
+  await page.clock.runFor(100_000);
+  await press(page, page.getByRole("button", { name: /^Landed, / }));
+  await page.clock.runFor(120_000); // past the 3:33 deadline of attempt 1
+  await page.evaluate(() => document.dispatchEvent(new Event("visibilitychange")));
+  const next = page.getByRole("button", { name: "Launch signal, attempt 2 of 3" });
+  await settle(page, next);
+  await press(page, next);
+  await settle(page, page.getByText("Attempt 2 of 3"));
+  await expect(page.getByRole("button", { name: /^Launch, / })).toBeVisible();
+});
