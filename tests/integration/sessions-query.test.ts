@@ -16,9 +16,10 @@ describe("listRecentSessions", () => {
     for (const s of sessions) {
       const rows = await db.select({ code: runs.taskCode }).from(runs).where(eq(runs.sessionId, s.id));
       expect(s.runCount).toBe(rows.length);
-      expect(s.runCount).toBeGreaterThanOrEqual(2);
       expect(s.taskCodes).toEqual([...new Set(rows.map((r) => r.code))].sort());
     }
+    // Other integration tests add sessions of their own; the seeded season has 2–3 runs a session.
+    expect(sessions.some((s) => s.runCount >= 2)).toBe(true);
     const times = sessions.map((s) => s.startedAt.getTime());
     expect(times).toEqual([...times].sort((a, b) => b - a));
   });
