@@ -11,10 +11,13 @@ bash scripts/db.sh up
 ensure_env_file
 
 ADMIN_URL="$(bash scripts/db.sh url postgres)"
-psql "$ADMIN_URL" -qc "drop database if exists windowcall_test with (force)" -c "create database windowcall_test" >/dev/null
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_test)"
-npx tsx scripts/migrate.ts
-npx tsx --conditions=react-server scripts/seed.ts
+# A freshly migrated and seeded test database, so each suite that writes starts from the demo.
+fresh_test_db() {
+  psql "$ADMIN_URL" -qc "drop database if exists windowcall_test with (force)" -c "create database windowcall_test" >/dev/null &&
+    npx tsx scripts/migrate.ts && npx tsx --conditions=react-server scripts/seed.ts
+}
+fresh_test_db || die "could not prepare the test database"
 
 declare -a NAMES=() RESULTS=()
 run_suite() {
@@ -34,6 +37,7 @@ if [ "${RESULTS[-1]%% *}" = passed ]; then
   # Chosen just before use, so another checkout's server cannot take it in between.
   export E2E_PORT="${E2E_PORT:-$(free_port 3310)}"
   export NEXTAUTH_URL="http://localhost:$E2E_PORT"
+  fresh_test_db || die "could not prepare the test database"
   run_suite e2e npx playwright test
 else
   NAMES+=(e2e); RESULTS+=("FAILED (not run: the build failed)")

@@ -232,7 +232,12 @@ test("the recorded launch time is the input event's own timestamp", async ({ pag
   await signInAs(page, "ada@example.com");
   await page.goto("/field/new");
   await chooseTaskH(page);
-  await createAndStart(page);
+  // No controlled clock here (settle would install one): the page keeps the browser's own
+  // performance.now, the clock event.timeStamp is on, so the app must store that stamp itself.
+  await page.getByRole("button", { name: "Set up the window" }).click();
+  await press(page, page.getByRole("button", { name: "Start working time" }));
+  await expect(page.getByTestId("working-time-left")).toBeVisible();
+  expect(await page.evaluate(() => /\[native code\]/.test(Function.prototype.toString.call(performance.now)))).toBe(true);
   await page.evaluate(() => {
     const w = window as unknown as { seen: number[] };
     w.seen = [];
