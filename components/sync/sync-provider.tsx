@@ -2,8 +2,9 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
-import { createContext, useContext, useEffect, useState, type ReactNode } from "react";
+import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
+import { switchDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
 import { startSyncInBrowser } from "@/lib/offline/sync-browser";
 import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
@@ -16,12 +17,15 @@ const SyncContext = createContext<SyncContextValue | null>(null);
  * The page's one sync client (SYNC.md §2): created once, started in the browser (flush on
  * start, on `online`, on becoming visible), with persistent storage requested once. Also
  * keeps the signed-in user's profile in the device database while online, so pages that
- * open offline know who is timing. Constructing the client touches no storage, so this is
+ * open offline know who is timing, and moves to that account's own device database when a
+ * different account signs in on this browser (device-user.ts). Constructing the client touches no storage, so this is
  * safe to render on the server; it starts only in an effect.
  */
 export function SyncProvider({ children }: { children: ReactNode }) {
-  const [client] = useState(() => createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init) }));
+  const [client, setClient] = useState(newClient);
   const [status, setStatus] = useState<SyncStatus | null>(null);
+  // Bumped when another account signs in here: the pages below remount on its database.
+  const [generation, setGeneration] = useState(0);
   const { data: session, status: authStatus } = useSession();
 
   useEffect(() => {
@@ -37,6 +41,15 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const user = session?.user;
   useEffect(() => {
     if (authStatus !== "authenticated" || !user?.id) return;
+    if (switchDeviceUser(user.id)) {
+      // Another account signed in (rare): the stored choice changed outside React, so the client
+      // and the pages below must follow it now.
+      // eslint-disable-next-line react-hooks/set-state-in-effect
+      setStatus(null);
+      setClient(newClient());
+      setGeneration((g) => g + 1);
+      return; // this effect runs again with the new client
+    }
     const profile = { id: user.id, name: user.name ?? "", email: user.email ?? "" };
     const db = getWindowcallDb();
     void (async () => {
@@ -47,7 +60,16 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     if (client.status().state === "signed-out") void client.resume();
   }, [authStatus, user?.id, user?.name, user?.email, client]);
 
-  return <SyncContext.Provider value={{ client, status }}>{children}</SyncContext.Provider>;
+  return (
+    <SyncContext.Provider value={{ client, status }}>
+      <Fragment key={generation}>{children}</Fragment>
+    </SyncContext.Provider>
+  );
+}
+
+/** A sync client on the database of the account in use. */
+function newClient(): SyncClient {
+  return createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init) });
 }
 
 /** The sync client and its latest status (null until the first report). */

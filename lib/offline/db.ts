@@ -3,13 +3,14 @@ import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneResult } from "@/lib/validations/sync";
+import { BASE_DB_NAME, currentDbName } from "./device-user";
 import type { RunEntity, SessionEntity } from "./entities";
 
 /** A run as kept on the device: the entity plus, once pulled, the server's derived results. */
 export type StoredRun = RunEntity & { results?: LaneResult[] };
 
 /**
- * The device's one IndexedDB database (SYNC.md §2), browser only.
+ * The device's IndexedDB database (SYNC.md §2), one per account signed in here; browser only.
  */
 
 /** What an outbox entry stands for; its id is the id of that event, session or run. */
@@ -69,10 +70,8 @@ export type WindowcallDb = Dexie & {
   plans: Table<PracticePlan, string>;
 };
 
-export const DB_NAME = "windowcall";
-
 /** Open (lazily, on first use) a Windowcall database; tests pass their own name. */
-export function createWindowcallDb(name: string = DB_NAME): WindowcallDb {
+export function createWindowcallDb(name: string = BASE_DB_NAME): WindowcallDb {
   const db = new Dexie(name) as WindowcallDb;
   // Schema history. Old versions are never edited: a change adds
   // db.version(n + 1).stores({...changed tables only}).upgrade(tx => ...) below.
@@ -93,9 +92,13 @@ export function createWindowcallDb(name: string = DB_NAME): WindowcallDb {
 
 let shared: WindowcallDb | undefined;
 
-/** The app's database, created on first call (never at import, so server rendering is safe). */
+/**
+ * The signed-in account's device database (see device-user.ts), opened on first call (never
+ * at import, so server rendering is safe) and again after the account in use changes.
+ */
 export function getWindowcallDb(): WindowcallDb {
-  shared ??= createWindowcallDb();
+  const name = currentDbName();
+  if (shared?.name !== name) shared = createWindowcallDb(name);
   return shared;
 }
 

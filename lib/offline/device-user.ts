@@ -1,0 +1,78 @@
+/**
+ * Which account's records this browser is showing, and where each account's records live.
+ *
+ * A phone may be shared (a club's timing phone, a family tablet): every account that signs in
+ * gets its own device database — its own device id, event sequence, outbox, pull cursor and
+ * cached profile — so one account's unsent records are never pushed under another's session,
+ * and one account's records are not listed to the next. The choice is kept in localStorage
+ * because pages opening offline must know it synchronously, before any IndexedDB read.
+ *
+ * The first account ever to sign in on a browser takes the base database name, which also
+ * holds anything recorded before anyone signed in.
+ */
+
+/** The part of `Storage` used here (localStorage in a browser, a Map in tests). */
+export type KeyValueStore = Pick<Storage, "getItem" | "setItem">;
+
+export const BASE_DB_NAME = "windowcall";
+const CURRENT_KEY = "windowcall.deviceUser";
+const NAMES_KEY = "windowcall.deviceDbs";
+
+type Names = Record<string, string>;
+
+function readNames(store: KeyValueStore): Names {
+  try {
+    const parsed: unknown = JSON.parse(store.getItem(NAMES_KEY) ?? "{}");
+    if (!parsed || typeof parsed !== "object" || Array.isArray(parsed)) return {};
+    return Object.fromEntries(Object.entries(parsed).filter((e): e is [string, string] => typeof e[1] === "string"));
+  } catch {
+    return {};
+  }
+}
+
+/** The browser's localStorage, or null where there is none (server rendering, storage blocked). */
+export function browserStore(): KeyValueStore | null {
+  try {
+    return typeof window === "undefined" ? null : window.localStorage;
+  } catch {
+    return null;
+  }
+}
+
+/** The account this browser last signed in as, or null if none has yet. */
+export function currentDeviceUser(store: KeyValueStore | null = browserStore()): string | null {
+  if (!store) return null;
+  try {
+    return store.getItem(CURRENT_KEY);
+  } catch {
+    return null;
+  }
+}
+
+/** The device database name of the account now in use (the base name before any sign-in). */
+export function currentDbName(store: KeyValueStore | null = browserStore()): string {
+  const user = currentDeviceUser(store);
+  if (!store || !user) return BASE_DB_NAME;
+  return readNames(store)[user] ?? BASE_DB_NAME;
+}
+
+/**
+ * Make `userId` the account in use, giving it a database name on its first sign-in here.
+ * Returns true when that changed which database is in use.
+ */
+export function switchDeviceUser(userId: string, store: KeyValueStore | null = browserStore()): boolean {
+  if (!store) return false;
+  const before = currentDbName(store);
+  try {
+    const names = readNames(store);
+    if (!names[userId]) {
+      const taken = new Set(Object.values(names));
+      names[userId] = taken.has(BASE_DB_NAME) ? `${BASE_DB_NAME}-${userId}` : BASE_DB_NAME;
+      store.setItem(NAMES_KEY, JSON.stringify(names));
+    }
+    store.setItem(CURRENT_KEY, userId);
+  } catch {
+    return false; // storage refused the write: stay on the database in use
+  }
+  return currentDbName(store) !== before;
+}

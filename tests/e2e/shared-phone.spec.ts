@@ -1,0 +1,97 @@
+import { expect, test, type Page } from "@playwright/test";
+import pg from "pg";
+import { signInAs } from "./support/auth";
+
+/**
+ * One phone, two accounts (a club's timing phone): each account records into its own device
+ * database with its own device id, so what one account left unsent is neither pushed under the
+ * other's session (which the server refuses: a device belongs to one user) nor listed to it,
+ * and it goes to the server when its own account signs in again.
+ */
+const PASSWORD = "one-phone-two-pilots";
+test.describe.configure({ timeout: 120_000 });
+test.use({ viewport: { width: 390, height: 844 } });
+
+async function signUp(page: Page, name: string, tag: string): Promise<string> {
+  const email = `${tag}-${Date.now()}@example.com`;
+  const made = await page.request.post("/api/account/sign-up", { data: { name, email, password: PASSWORD } });
+  expect(made.status()).toBe(201);
+  return email;
+}
+
+/** Sets up a solo window of task A at `field`, starts it and flies one flight; returns the run id. */
+async function flyOneFlight(page: Page, field: string): Promise<string> {
+  await page.goto("/field/new");
+  await page.getByLabel("Field").fill(field);
+  await page.getByRole("radio", { name: /^A · / }).first().check();
+  await page.getByRole("button", { name: "Set up the window" }).click();
+  await expect(page).toHaveURL(/\/field\/run\?id=/);
+  const runId = new URL(page.url()).searchParams.get("id")!;
+  await page.getByRole("button", { name: "Start working time" }).click();
+  await page.getByRole("button", { name: /^Launch, / }).click();
+  await page.getByRole("button", { name: /^Landed, / }).click();
+  await expect(page.getByRole("button", { name: /^Launch, / })).toBeVisible();
+  return runId;
+}
+
+async function signOut(page: Page) {
+  await page.goto("/settings");
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+}
+
+test("two accounts on one phone keep their own records, and nothing unsent is lost or refused", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  const eventsOf = async (runId: string) =>
+    (await db.query<{ device_id: string; user_id: string }>(
+      "select e.device_id, d.user_id from events e join devices d on d.id = e.device_id where e.run_id = $1",
+      [runId],
+    )).rows;
+  const userIdOf = async (email: string) => (await db.query<{ id: string }>("select id from users where email = $1", [email])).rows[0]!.id;
+  try {
+    const first = await signUp(page, "Oona Reed", "first");
+    const second = await signUp(page, "Bram Teller", "second");
+
+    // The first account flies with the server unreachable for pushes: its records stay unsent.
+    await signInAs(page, first, PASSWORD);
+    await page.route("**/api/sync/push", (route) => route.abort());
+    const firstRun = await flyOneFlight(page, "Shared Phone Meadow");
+    await expect(page.getByRole("banner")).toContainText(/unsent/);
+    await signOut(page);
+    await page.unroute("**/api/sync/push");
+
+    // The second account, same browser: its own records reach the server under its own device.
+    await signInAs(page, second, PASSWORD);
+    const secondRun = await flyOneFlight(page, "Borrowed Phone Strip");
+    await expect.poll(async () => (await eventsOf(secondRun)).length, { timeout: 30_000 }).toBeGreaterThanOrEqual(3);
+    const secondEvents = await eventsOf(secondRun);
+    expect(new Set(secondEvents.map((e) => e.user_id))).toEqual(new Set([await userIdOf(second)]));
+    // … nothing of the first account's was sent with them, and the second is not shown it.
+    expect(await eventsOf(firstRun)).toEqual([]);
+    await page.goto("/logbook");
+    await expect(page.getByRole("main")).toContainText("Borrowed Phone Strip");
+    await expect(page.getByRole("main")).not.toContainText("Shared Phone Meadow");
+    await expect(page.getByRole("banner")).toContainText("Synced");
+    await expect(page.getByRole("banner")).toContainText("Refused by the server (0)");
+    await signOut(page);
+
+    // The first account returns: what it left unsent goes now, under its own device, refused by nobody.
+    await signInAs(page, first, PASSWORD);
+    await expect.poll(async () => (await eventsOf(firstRun)).length, { timeout: 30_000 }).toBeGreaterThanOrEqual(3);
+    const firstEvents = await eventsOf(firstRun);
+    expect(new Set(firstEvents.map((e) => e.user_id))).toEqual(new Set([await userIdOf(first)]));
+    const devices = [firstEvents[0]!.device_id, secondEvents[0]!.device_id];
+    expect(devices[0]).not.toBe(devices[1]);
+    const { rows: refused } = await db.query(
+      "select 1 from sync_rejections where device_id = any($1)",
+      [devices],
+    );
+    expect(refused).toEqual([]);
+    await page.goto("/logbook");
+    await expect(page.getByRole("main")).toContainText("Shared Phone Meadow");
+    await expect(page.getByRole("main")).not.toContainText("Borrowed Phone Strip");
+  } finally {
+    await db.end();
+  }
+});
