@@ -17,8 +17,9 @@ type Row = { type: "session" | "run" | "event"; seq: string; id: string };
  * (not revoked); the events of all those runs. A run in someone else's session carries that
  * session with it; every run carries its derived results.
  *
- * Known limit: visibility is decided now, so rows that became visible (a new coach grant)
- * with numbers below the user's cursor are not sent again; the coach desk reads the server.
+ * Visibility is decided now, so rows that became visible through a new coach grant may lie
+ * below the user's cursor: every reply carries `scope`, a fingerprint of the active grants, and
+ * a device that sees it change pulls again from 0.
  */
 export async function listChanges(db: Executor, params: { userId: string; cursor: number; limit?: number }): Promise<PullReply> {
   const limit = params.limit ?? PULL_PAGE_SIZE;
@@ -46,9 +47,17 @@ export async function listChanges(db: Executor, params: { userId: string; cursor
     ) changes order by seq limit ${limit + 1}`);
   const rows = res.rows.slice(0, limit);
   const hasMore = res.rows.length > limit;
-  const items = await loadItems(db, userId, rows);
+  const [items, scope] = await Promise.all([loadItems(db, userId, rows), visibilityScope(db, userId)]);
   const last = rows.at(-1);
-  return { items, nextCursor: last ? Number(last.seq) : cursor, hasMore };
+  return { items, nextCursor: last ? Number(last.seq) : cursor, hasMore, scope };
+}
+
+/** Fingerprint of the pilots whose runs the user sees as their coach ("" with no grants). */
+async function visibilityScope(db: Executor, userId: string): Promise<string> {
+  const res = await db.execute<{ scope: string }>(sql`
+    select coalesce(md5(string_agg(pilot_id::text, ',' order by pilot_id)), '') as scope
+    from coach_grants where coach_id = ${userId} and revoked_at is null`);
+  return res.rows[0]?.scope ?? "";
 }
 
 const ids = (rows: Row[], type: Row["type"]) => rows.filter((r) => r.type === type).map((r) => sql`${r.id}::uuid`);

@@ -47,6 +47,8 @@ export type MetaValues = {
   nextQueueSeq: number;
   /** The server sequence number pulled up to. */
   pullCursor: number;
+  /** The server's visibility fingerprint at that cursor (see pullReplySchema.scope). */
+  pullScope: string;
   /** Id of the last clock measurement burst. */
   clockBurst: number;
   /** The offset estimate of the latest successful burst. */

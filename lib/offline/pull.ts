@@ -20,12 +20,17 @@ const MAX_PAGES = 1000;
 export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
   const { db } = deps;
   let cursor = (await getMeta(db, "pullCursor")) ?? 0;
+  const knownScope = (await getMeta(db, "pullScope")) ?? "";
   let stored = 0;
   for (let page = 0; page < MAX_PAGES; page++) {
     const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}`;
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pullReplySchema);
     if (r.kind !== "ok") return r;
-    const { items, nextCursor, hasMore } = r.value;
+    const { items, nextCursor, hasMore, scope } = r.value;
+    if (page === 0 && cursor > 0 && scope !== undefined && scope !== knownScope) {
+      cursor = 0; // what the user may see changed: older rows may be newly visible, so start over
+      continue;
+    }
     if (nextCursor < cursor || (hasMore && nextCursor === cursor)) {
       return { kind: "bad-reply", message: `pull cursor did not advance (${cursor} → ${nextCursor})` };
     }
@@ -46,6 +51,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       await db.runs.bulkPut(runs);
       await db.events.bulkPut(events);
       await setMeta(db, "pullCursor", nextCursor);
+      if (scope !== undefined) await setMeta(db, "pullScope", scope);
     });
     stored += items.length;
     cursor = nextCursor;

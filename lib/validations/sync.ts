@@ -106,6 +106,11 @@ export const pullReplySchema = z.object({
   items: z.array(pullItemSchema),
   nextCursor: z.number().int().nonnegative(),
   hasMore: z.boolean(),
+  /**
+   * Fingerprint of what the user may see beyond their own records (their active coach grants).
+   * When it changes, rows below the cursor may have become visible: the device pulls from 0 again.
+   */
+  scope: z.string().max(64).optional(),
 });
 export type PullReply = z.infer<typeof pullReplySchema>;
 

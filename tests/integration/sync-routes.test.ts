@@ -1,7 +1,7 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { devices, events, syncRejections } from "@/db/schema";
+import { coachGrants, devices, events, syncRejections } from "@/db/schema";
 import { POST as timeRoute } from "@/app/api/time/route";
 import { actAs } from "./support/session";
 import { db, demoUser, getPool } from "./support/db";
@@ -185,7 +185,7 @@ describe("GET /api/sync/pull", () => {
     }
     expect(viaRoute).toEqual(seen);
     const again = await pull(cursor);
-    expect(again.body).toEqual({ items: [], nextCursor: cursor, hasMore: false });
+    expect(again.body).toEqual({ items: [], nextCursor: cursor, hasMore: false, scope: expect.any(String) });
   });
 
   it("shows a coach the runs of a pilot who granted access, not of one who did not", async () => {
@@ -201,6 +201,34 @@ describe("GET /api/sync/pull", () => {
     }
     expect(pilots.has(ada.id)).toBe(true);
     expect(pilots.has(lena.id)).toBe(false); // the seed gives Lena no coach grant
+  });
+
+  it("changes the pull scope when a pilot grants access later, and a pull from 0 then brings their older runs", async () => {
+    const mara = await demoUser("mara@example.com");
+    const lena = await demoUser("lena@example.com");
+    actAs(mara);
+    const pilotsFrom = async (from: number) => {
+      const pilots = new Set<string>();
+      let cursor = from;
+      let scope: string | undefined;
+      for (let hasMore = true; hasMore; ) {
+        const { body } = await pull(cursor);
+        for (const i of body.items) if (i.type === "run") for (const l of i.data.lanes) if (l.pilotUserId) pilots.add(l.pilotUserId);
+        ({ nextCursor: cursor, hasMore, scope } = body);
+      }
+      return { pilots, cursor, scope };
+    };
+    const before = await pilotsFrom(0);
+    const [grant] = await db.insert(coachGrants).values({ pilotId: lena.id, coachId: mara.id }).returning();
+    try {
+      const caughtUp = await pilotsFrom(before.cursor);
+      expect(caughtUp.pilots.has(lena.id)).toBe(false); // her runs lie below the coach's cursor …
+      expect(caughtUp.scope).not.toBe(before.scope); // … so the reply says what may be seen changed
+      expect((await pilotsFrom(0)).pilots.has(lena.id)).toBe(true);
+    } finally {
+      await db.delete(coachGrants).where(eq(coachGrants.id, grant!.id));
+    }
+    expect((await pilotsFrom(0)).scope).toBe(before.scope);
   });
 });
 

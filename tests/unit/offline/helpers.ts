@@ -51,6 +51,8 @@ export class FakeServer {
   /** Responses to use for the next requests, before normal handling. */
   failures: ("throw" | number)[] = [];
   pullPageSize = 100;
+  /** The visibility fingerprint pull replies carry (undefined: an older server that sends none). */
+  scope: string | undefined = undefined;
 
   fetch = async (url: string, init?: RequestInit): Promise<Response> => {
     this.requests.push(`${init?.method ?? "GET"} ${url}`);
@@ -94,6 +96,7 @@ export class FakeServer {
       items: page.map((l) => ({ type: l.item.type, seq: l.seq, data: l.item.data })),
       nextCursor,
       hasMore: after.length > page.length,
+      ...(this.scope === undefined ? {} : { scope: this.scope }),
     });
   }
 

@@ -65,6 +65,26 @@ describe("pull", () => {
     expect(server.requests.filter((r) => r.includes("/pull")).at(-1)).toBe("GET /api/sync/pull?cursor=4");
   });
 
+  it("pulls from 0 again when what the user may see changed (a new coach grant), then carries on", async () => {
+    const { server } = await serverWithData(3);
+    server.scope = "";
+    const db = open();
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
+    await client.pull();
+    expect(await getMeta(db, "pullScope")).toBe("");
+    await db.events.clear(); // stands for rows the server had not shown this user before the grant
+    server.scope = "grant-1";
+    expect(await client.pull()).toEqual({ kind: "ok", items: 5 });
+    expect(await db.events.count()).toBe(3);
+    expect(await getMeta(db, "pullScope")).toBe("grant-1");
+    await client.pull();
+    expect(server.requests.filter((r) => r.includes("/pull")).slice(-3)).toEqual([
+      "GET /api/sync/pull?cursor=5",
+      "GET /api/sync/pull?cursor=0",
+      "GET /api/sync/pull?cursor=5",
+    ]);
+  });
+
   it("stops with an error when the server's cursor does not advance", async () => {
     const db = open();
     let calls = 0;
