@@ -2,7 +2,7 @@
 
 import { useId, useState } from "react";
 import { parseFlightTime } from "@/lib/field/flight-fix";
-import { secondsText } from "@/lib/field/display";
+import { formatRunning, secondsText } from "@/lib/field/display";
 import type { InvalidReason } from "./flight-list";
 
 const REASONS: { value: InvalidReason; label: string }[] = [
@@ -15,51 +15,37 @@ const REASONS: { value: InvalidReason; label: string }[] = [
 type Props = {
   flightNumber: number;
   currentTenths: number | null;
+  /** The launch as tenths of working time elapsed (negative before the signal). */
+  launchTenths: number;
   onSetTime: (tenths: number) => Promise<unknown>;
+  onSetLaunch: (tenths: number) => Promise<string | null>;
   onInvalid: (reason: InvalidReason) => Promise<unknown>;
 };
 
-/** Correct a landed flight's time or mark it invalid; both are new events, nothing is overwritten. */
-export function FlightFix({ flightNumber, currentTenths, onSetTime, onInvalid }: Props) {
+/**
+ * Correct a landed flight's time (moves the landing) or its launch (the landing stays), or mark
+ * it invalid; each is a new event, nothing is overwritten.
+ */
+export function FlightFix({ flightNumber, currentTenths, launchTenths, onSetTime, onSetLaunch, onInvalid }: Props) {
   const id = useId();
-  const [text, setText] = useState(currentTenths === null ? "" : secondsText(currentTenths));
   const [reason, setReason] = useState<InvalidReason>("landing-outside-field");
-  const [error, setError] = useState<string | null>(null);
   return (
     <div className="mt-2 space-y-3 rounded-lg bg-surface p-3">
-      <form
-        className="flex items-end gap-2"
-        onSubmit={(e) => {
-          e.preventDefault();
-          const tenths = parseFlightTime(text);
-          if (tenths === null) return setError("Type the time as seconds (63.4) or minutes:seconds (1:03.4).");
-          setError(null);
-          void onSetTime(tenths);
+      <TimeForm
+        label={`Correct time of flight ${flightNumber} (s)`}
+        initial={currentTenths === null ? "" : secondsText(currentTenths)}
+        submit="Set time"
+        onSubmit={async (tenths) => {
+          await onSetTime(tenths);
+          return null;
         }}
-      >
-        <div className="flex-1">
-          <label htmlFor={`${id}-t`} className="block text-sm font-semibold">
-            Correct time of flight {flightNumber} (s)
-          </label>
-          <input
-            id={`${id}-t`}
-            inputMode="decimal"
-            value={text}
-            onChange={(e) => setText(e.target.value)}
-            aria-invalid={error ? true : undefined}
-            aria-describedby={error ? `${id}-e` : undefined}
-            className="figures min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-lg"
-          />
-        </div>
-        <button type="submit" className="min-h-12 rounded-lg bg-accent px-4 font-bold text-accent-ink">
-          Set time
-        </button>
-      </form>
-      {error ? (
-        <p id={`${id}-e`} className="text-sm font-semibold text-danger">
-          {error}
-        </p>
-      ) : null}
+      />
+      <TimeForm
+        label={`Launch of flight ${flightNumber}, working time elapsed (m:ss.s)`}
+        initial={launchTenths < 0 ? "" : formatRunning(launchTenths * 100)}
+        submit="Set launch"
+        onSubmit={onSetLaunch}
+      />
       <div className="flex items-end gap-2">
         <div className="flex-1">
           <label htmlFor={`${id}-r`} className="block text-sm font-semibold">
@@ -83,5 +69,56 @@ export function FlightFix({ flightNumber, currentTenths, onSetTime, onInvalid }:
         </button>
       </div>
     </div>
+  );
+}
+
+type TimeFormProps = {
+  label: string;
+  initial: string;
+  submit: string;
+  /** Resolves to why the time was refused, or null. */
+  onSubmit: (tenths: number) => Promise<string | null>;
+};
+
+/** One typed time ("63.4" or "1:03.4") with its own message for unreadable or refused input. */
+function TimeForm({ label, initial, submit, onSubmit }: TimeFormProps) {
+  const id = useId();
+  const [text, setText] = useState(initial);
+  const [error, setError] = useState<string | null>(null);
+  return (
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        const tenths = parseFlightTime(text);
+        if (tenths === null) return setError("Type the time as seconds (63.4) or minutes:seconds (1:03.4).");
+        setError(null);
+        void onSubmit(tenths).then(setError);
+      }}
+    >
+      <div className="flex items-end gap-2">
+        <div className="flex-1">
+          <label htmlFor={`${id}-t`} className="block text-sm font-semibold">
+            {label}
+          </label>
+          <input
+            id={`${id}-t`}
+            inputMode="decimal"
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+            aria-invalid={error ? true : undefined}
+            aria-describedby={error ? `${id}-e` : undefined}
+            className="figures min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-lg"
+          />
+        </div>
+        <button type="submit" className="min-h-12 rounded-lg bg-accent px-4 font-bold text-accent-ink">
+          {submit}
+        </button>
+      </div>
+      {error ? (
+        <p id={`${id}-e`} role="alert" className="mt-1 text-sm font-semibold text-danger">
+          {error}
+        </p>
+      ) : null}
+    </form>
   );
 }

@@ -9,12 +9,14 @@ type Props = {
   flights: LiveFlight[];
   laneLabel: string;
   onSetTime: (flightIndex: number, tenths: number) => Promise<boolean>;
+  /** Resolves to why the launch could not move, or null once stored. */
+  onSetLaunch: (flightIndex: number, tenths: number) => Promise<string | null>;
   onInvalid: (flightIndex: number, reason: InvalidReason) => Promise<boolean>;
 };
 export type InvalidReason = "landing-outside-field" | "part-lost" | "forbidden-airspace" | "other";
 
 /** The lane's flights, newest first: time, what it adds, and its status as a word and a shape. */
-export function FlightList({ flights, laneLabel, onSetTime, onInvalid }: Props) {
+export function FlightList({ flights, laneLabel, onSetTime, onSetLaunch, onInvalid }: Props) {
   const [fixing, setFixing] = useState<number | null>(null);
   if (flights.length === 0) return <p className="text-muted">No flights yet.</p>;
   return (
@@ -50,7 +52,13 @@ export function FlightList({ flights, laneLabel, onSetTime, onInvalid }: Props) 
               <FlightFix
                 flightNumber={f.index + 1}
                 currentTenths={raw}
+                launchTenths={Math.floor(f.launchMs / 100)}
                 onSetTime={async (t) => (await onSetTime(f.index, t)) && setFixing(null)}
+                onSetLaunch={async (t) => {
+                  const refused = await onSetLaunch(f.index, t);
+                  if (refused === null) setFixing(null);
+                  return refused;
+                }}
                 onInvalid={async (r) => (await onInvalid(f.index, r)) && setFixing(null)}
               />
             ) : null}

@@ -26,7 +26,15 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
         const label = solo ? l.pilotName : `Lane ${l.lane + 1} · ${l.pilotName}`;
         const inAir = lane.currentFlightMs !== null;
         const showControl = !over || inAir;
-        const list = <FlightList flights={lane.flights} laneLabel={label} onSetTime={(i, t) => actions.setTime(l.lane, i, t)} onInvalid={(i, r) => actions.invalid(l.lane, i, r)} />;
+        const list = (
+          <FlightList
+            flights={lane.flights}
+            laneLabel={label}
+            onSetTime={(i, t) => actions.setTime(l.lane, i, t)}
+            onSetLaunch={(i, t) => actions.setLaunch(l.lane, i, t)}
+            onInvalid={(i, r) => actions.invalid(l.lane, i, r)}
+          />
+        );
         const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r)} />;
         return (
           <LanePanel

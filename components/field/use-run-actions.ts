@@ -3,7 +3,7 @@
 import { useCallback } from "react";
 import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody, RunEvent, Stamp } from "@/lib/events/schema";
-import { flightTimeCorrection } from "@/lib/field/flight-fix";
+import { flightTimeCorrection, launchTimeCorrection } from "@/lib/field/flight-fix";
 import { stampForMoment } from "@/lib/field/input-time";
 import { tapKindFor, undoTargetFor } from "@/lib/field/lane-tap";
 import { buildTimeline, type TimelineContext } from "@/lib/field/timeline";
@@ -57,6 +57,18 @@ export function useRunActions({ task, laneCount, deviceId, estimate, clocks, rec
       ),
     setTime: (lane: number, flightIndex: number, tenths: number) =>
       ok(record(now(), (evs) => flightTimeCorrection(buildTimeline(evs, ctxNow()), evs, lane, flightIndex, laneCount, tenths))),
+    /** Moves a flight's launch to `tenths` of working time; resolves to why not, or null when stored. */
+    setLaunch: async (lane: number, flightIndex: number, tenths: number): Promise<string | null> => {
+      let refused: string | null = null;
+      const stored = await ok(
+        record(now(), (evs) => {
+          const fix = launchTimeCorrection(buildTimeline(evs, ctxNow()), evs, lane, flightIndex, laneCount, tenths);
+          if ("error" in fix) refused = fix.error;
+          return "body" in fix ? fix.body : null;
+        }),
+      );
+      return stored ? null : (refused ?? "The correction was not stored.");
+    },
     invalid: (lane: number, flightIndex: number, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightIndex, reason }),
     penalty: (lane: number, points: number, reason: string) => fixed({ kind: "penalty", lane, points, reason }),
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),

@@ -262,6 +262,50 @@ test("the recorded launch time is the input event's own timestamp", async ({ pag
   expect(stored).toEqual(seen);
 });
 
+test("a flight's launch is corrected on its own and the landing stays; a launch after the landing is refused", async ({ page, context }) => {
+  await openSetUpOffline(page, context);
+  await chooseTaskH(page);
+  const spent = await createAndStart(page);
+  const me = (await page.getByRole("button", { name: /^Launch, / }).getAttribute("aria-label"))!.replace(/^Launch, /, "");
+  await fly(page, [
+    [me, 10_000 - spent, "Launch"], // 10.0 s into the working time
+    [me, 70_000, "Landed"], // 80.0 → 70.0 s
+  ]);
+  const flights = page.getByRole("list", { name: `Flights, ${me}` });
+  await expect(flights).toContainText("70.0 s");
+  await page.getByRole("button", { name: "Fix flight 1" }).click();
+  const launchAt = page.getByLabel("Launch of flight 1, working time elapsed (m:ss.s)");
+  await expect(launchAt).toHaveValue("0:10.0");
+  // The timekeeper saw the release 2.5 s after the tap: 80.0 − 12.5 = 67.5 s.
+  await launchAt.fill("0:12.5");
+  await page.getByRole("button", { name: "Set launch" }).click();
+  await expect(flights).toContainText("67.5 s");
+  // H matches a flight to whichever target scores best (F3K.11.8): 67.5 s all counts against 2, 3 or 4 min.
+  await expect(page.getByTestId("result-0")).toHaveText("67.5");
+  // A launch typed after its own landing would pair the flights differently: refused, nothing changes.
+  await page.getByRole("button", { name: "Fix flight 1" }).click();
+  await launchAt.fill("1:30.0");
+  await page.getByRole("button", { name: "Set launch" }).click();
+  await expect(page.getByRole("alert").filter({ hasText: "The launch must come before this flight's landing." })).toBeVisible();
+  await expect(flights).toContainText("67.5 s");
+  // Both the tap and its correction are kept (nothing overwritten): one launch, one correct event.
+  const runId = new URL(page.url()).searchParams.get("id");
+  const kinds = await page.evaluate(async (runId) => {
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const req = indexedDB.open("windowcall");
+      req.onsuccess = () => resolve(req.result);
+      req.onerror = () => reject(req.error);
+    });
+    const all = await new Promise<{ runId: string; body: { kind: string } }[]>((resolve) => {
+      const req = db.transaction("events").objectStore("events").getAll();
+      req.onsuccess = () => resolve(req.result);
+    });
+    return all.filter((e) => e.runId === runId).map((e) => e.body.kind);
+  }, runId);
+  expect(kinds.filter((k) => k === "launch")).toHaveLength(1);
+  expect(kinds.filter((k) => k === "correct")).toHaveLength(1);
+});
+
 test("a clicker's Space and Enter drive the solo lane", async ({ page }) => {
   await signInAs(page, "ada@example.com");
   await page.goto("/field/new");
