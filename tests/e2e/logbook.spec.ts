@@ -77,10 +77,11 @@ async function seriousViolations(page: Page) {
   return violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
 }
 
-test.use({ viewport: { width: 390, height: 844 } });
-
 // The demo season would arrive by sync pull and race the fixture; the logbook needs no
 // network anyway, so sync is cut off and the phone's database holds only what the test puts there.
+// The service worker is kept out: it would send /api requests itself, where routes cannot see them.
+test.use({ viewport: { width: 390, height: 844 }, serviceWorkers: "block" });
+
 test.beforeEach(async ({ page }) => {
   await page.route("**/api/sync/**", (route) => route.abort());
 });

@@ -10,7 +10,8 @@ import { signInAs } from "./support/auth";
  */
 const PASSWORD = "one-phone-two-pilots";
 test.describe.configure({ timeout: 120_000 });
-test.use({ viewport: { width: 390, height: 844 } });
+// No service worker: it would send /api requests itself, where the blocked push could not be seen.
+test.use({ viewport: { width: 390, height: 844 }, serviceWorkers: "block" });
 
 async function signUp(page: Page, name: string, tag: string): Promise<string> {
   const email = `${tag}-${Date.now()}@example.com`;
