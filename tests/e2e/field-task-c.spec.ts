@@ -1,27 +1,11 @@
-import { expect, test, type Locator, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { signInAs } from "./support/auth";
+import { press, settle } from "./support/field";
 
 /** Task C (F3K.11.3): one launch signal per attempt, each attempt with its own 3:33 deadline. */
 const T0 = new Date("2026-05-02T09:00:00Z");
 test.use({ viewport: { width: 390, height: 844 } });
 test.describe.configure({ timeout: 150_000 });
-
-async function press(page: Page, target: Locator) {
-  await target.scrollIntoViewIfNeeded();
-  const box = await target.boundingBox();
-  if (!box) throw new Error("control not on screen");
-  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-  await page.mouse.down();
-  await page.mouse.up();
-}
-
-async function settle(page: Page, target: Locator) {
-  for (let spent = 0; spent < 5_000; spent += 20) {
-    if (await target.isVisible()) return;
-    await page.clock.runFor(20);
-  }
-  throw new Error("the page did not settle");
-}
 
 test("task C gives the next attempt's signal once an attempt is over", async ({ page }) => {
   await signInAs(page, "tobi@example.com");

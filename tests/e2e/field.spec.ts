@@ -1,5 +1,6 @@
-import { expect, test, type BrowserContext, type Locator, type Page } from "@playwright/test";
+import { expect, test, type BrowserContext, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
+import { press, settle, storedEvents, workerReady } from "./support/field";
 
 /**
  * The field timer in a real Chromium with the real service worker, offline after the first
@@ -10,15 +11,6 @@ import { signInAs } from "./support/auth";
 const T0 = new Date((Math.floor(Date.now() / 86_400_000) + 1) * 86_400_000 + 9 * 3_600_000);
 test.use({ viewport: { width: 390, height: 844 } });
 test.describe.configure({ timeout: 240_000 }); // long fake windows on a busy 2-core machine
-
-async function workerReady(page: Page) {
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-    if (!navigator.serviceWorker.controller) {
-      await new Promise((resolve) => navigator.serviceWorker.addEventListener("controllerchange", resolve, { once: true }));
-    }
-  });
-}
 
 /** Waits until the sync layer has kept the signed-in profile on the device (for offline use). */
 async function profileCached(page: Page) {
@@ -69,30 +61,9 @@ async function chooseTaskH(page: Page, group?: string[]) {
 }
 
 /** A real touch-like press (trusted pointerdown) without Playwright's frame-based waiting. */
-async function press(page: Page, target: Locator) {
-  await target.evaluate((el) => el.scrollIntoView({ block: "center" }));
-  const box = await target.boundingBox();
-  if (!box) throw new Error("control not on screen");
-  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-  await page.mouse.down();
-  await page.mouse.up();
-}
-
 /** Redraw now: the screen re-reads the clocks when the page becomes visible. */
 async function redraw(page: Page) {
   await page.evaluate(() => document.dispatchEvent(new Event("visibilitychange")));
-}
-
-/**
- * Lets a freshly loaded page run its timers until `target` shows (the paused clock holds
- * them otherwise); returns the fake ms that took.
- */
-async function settle(page: Page, target: Locator, stepMs = 16): Promise<number> {
-  for (let spent = 0; spent < 5_000; spent += stepMs) {
-    if (await target.isVisible()) return spent;
-    await page.clock.runFor(stepMs);
-  }
-  throw new Error("the page did not settle");
 }
 
 /** Creates the window and gives the start signal; returns the fake ms spent after the signal. */
@@ -246,18 +217,8 @@ test("the recorded launch time is the input event's own timestamp", async ({ pag
   const me = (await page.getByRole("button", { name: /^Launch, / }).getAttribute("aria-label"))!.replace(/^Launch, /, "");
   await tap(page, me, "Launch");
   const runId = new URL(page.url()).searchParams.get("id");
-  const { seen, stored } = await page.evaluate(async (runId) => {
-    const db = await new Promise<IDBDatabase>((resolve, reject) => {
-      const req = indexedDB.open("windowcall");
-      req.onsuccess = () => resolve(req.result);
-      req.onerror = () => reject(req.error);
-    });
-    const all = await new Promise<{ runId: string; body: { kind: string }; stamp: { monoMs: number } }[]>((resolve) => {
-      const req = db.transaction("events").objectStore("events").getAll();
-      req.onsuccess = () => resolve(req.result);
-    });
-    return { seen: (window as unknown as { seen: number[] }).seen, stored: all.filter((e) => e.runId === runId && e.body.kind === "launch").map((e) => e.stamp.monoMs) };
-  }, runId);
+  const seen = await page.evaluate(() => (window as unknown as { seen: number[] }).seen);
+  const stored = (await storedEvents(page, runId!)).filter((e) => e.body.kind === "launch").map((e) => e.stamp.monoMs);
   expect(seen).toHaveLength(1);
   expect(stored).toEqual(seen);
 });
@@ -290,18 +251,7 @@ test("a flight's launch is corrected on its own and the landing stays; a launch 
   await expect(flights).toContainText("67.5 s");
   // Both the tap and its correction are kept (nothing overwritten): one launch, one correct event.
   const runId = new URL(page.url()).searchParams.get("id");
-  const kinds = await page.evaluate(async (runId) => {
-    const db = await new Promise<IDBDatabase>((resolve, reject) => {
-      const req = indexedDB.open("windowcall");
-      req.onsuccess = () => resolve(req.result);
-      req.onerror = () => reject(req.error);
-    });
-    const all = await new Promise<{ runId: string; body: { kind: string } }[]>((resolve) => {
-      const req = db.transaction("events").objectStore("events").getAll();
-      req.onsuccess = () => resolve(req.result);
-    });
-    return all.filter((e) => e.runId === runId).map((e) => e.body.kind);
-  }, runId);
+  const kinds = (await storedEvents(page, runId!)).map((e) => e.body.kind);
   expect(kinds.filter((k) => k === "launch")).toHaveLength(1);
   expect(kinds.filter((k) => k === "correct")).toHaveLength(1);
 });

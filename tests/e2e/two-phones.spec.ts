@@ -1,6 +1,7 @@
-import { expect, test, type Locator, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
+import { press, workerReady } from "./support/field";
 
 /**
  * Two phones, one window (SYNC.md §4): phone A gives the working-time signal, phone B — whose
@@ -14,28 +15,6 @@ const SKEW_MS = -15 * 60_000;
 const PASSWORD = "two-phones-one-window";
 test.describe.configure({ timeout: 180_000 });
 test.use({ viewport: { width: 390, height: 844 } });
-
-async function workerReady(page: Page) {
-  await page.evaluate(async () => {
-    await navigator.serviceWorker.ready;
-    if (!navigator.serviceWorker.controller) {
-      await new Promise((resolve) => navigator.serviceWorker.addEventListener("controllerchange", resolve, { once: true }));
-    }
-  });
-}
-
-/** A trusted press (pointerdown then up) in the middle of the control; returns the real time around it. */
-async function press(page: Page, target: Locator): Promise<{ before: number; after: number }> {
-  await target.scrollIntoViewIfNeeded();
-  const box = await target.boundingBox();
-  if (!box) throw new Error("control not on screen");
-  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-  const before = Date.now();
-  await page.mouse.down();
-  const after = Date.now();
-  await page.mouse.up();
-  return { before, after };
-}
 
 function pause(ms: number) {
   return new Promise((resolve) => setTimeout(resolve, ms));
