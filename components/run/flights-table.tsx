@@ -1,6 +1,5 @@
-import { formatTenths } from "@/lib/format";
 import { reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
-import { msToTenths, type LiveFlight } from "@/lib/tasks";
+import { formatTenths, msToTenths, type LiveFlight } from "@/lib/tasks";
 
 /**
  * A lane's flights in launch order: launch and landing (m:ss.t from the working-time start;

@@ -1,6 +1,5 @@
-import { formatTenths } from "@/lib/format";
 import { STATUS_MARK, secondsText } from "@/lib/field/display";
-import type { LiveFlight, TaskDefinition } from "@/lib/tasks";
+import { formatTenths, type LiveFlight, type TaskDefinition } from "@/lib/tasks";
 import { StripLegend } from "./strip-legend";
 import { stripLayout, type StripSegment } from "./strip-layout";
 

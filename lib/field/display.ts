@@ -1,4 +1,4 @@
-import type { FlightStatus } from "@/lib/tasks";
+import { formatTenths, type FlightStatus } from "@/lib/tasks";
 
 /**
  * Working time left as m:ss, rounded UP to the whole second: the clock reads 0:00 only
@@ -11,10 +11,7 @@ export function formatCountdown(ms: number): string {
 
 /** A running flight as m:ss.t, truncated to the tenth like the rules time it (F3K.7). */
 export function formatRunning(ms: number): string {
-  const t = Math.max(0, Math.floor(Math.floor(ms) / 100));
-  const minutes = Math.floor(t / 600);
-  const seconds = Math.floor((t % 600) / 10);
-  return `${minutes}:${String(seconds).padStart(2, "0")}.${t % 10}`;
+  return formatTenths(Math.max(0, Math.floor(Math.floor(ms) / 100)));
 }
 
 /** Tenths as plain seconds with one decimal, e.g. 5690 → "569.0". */

@@ -29,12 +29,11 @@ export function secToTenthsRounded(sec: number): number {
   return Math.round(sec * 10);
 }
 
-/** Formats tenths as `m:ss.t` for messages (e.g. 1839 → "3:03.9"). */
+/** Tenths as `m:ss.t` (e.g. 1839 → "3:03.9"), truncated, never rounded up; a minus sign when negative. */
 export function formatTenths(tenths: number): string {
-  const sign = tenths < 0 ? "-" : "";
+  const sign = tenths < 0 ? "−" : "";
   const t = Math.abs(Math.trunc(tenths));
   const minutes = Math.floor(t / 600);
-  const rest = t - minutes * 600;
-  const seconds = Math.floor(rest / 10);
-  return `${sign}${minutes}:${String(seconds).padStart(2, "0")}.${rest % 10}`;
+  const seconds = Math.floor((t % 600) / 10);
+  return `${sign}${minutes}:${String(seconds).padStart(2, "0")}.${t % 10}`;
 }
