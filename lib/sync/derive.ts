@@ -2,7 +2,7 @@ import { correctTime } from "@/lib/clock";
 import { foldRun, pointsLost, type LaneScore, type TimelineEvent } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import { describeReview, uncertainBoundaries, type TimedSignal } from "./review";
-import { laneSources, signalSources } from "./sources";
+import { laneRulings, laneSources, signalSources } from "./sources";
 import type { DerivationEvent, DerivationInput, LaneDerivation, LaneVersion, Source } from "./types";
 
 export type { DerivationEvent, DerivationInput, LaneDerivation, LaneDerived, LaneVersion, ReviewItem } from "./types";
@@ -41,12 +41,12 @@ export function deriveRun(input: DerivationInput): LaneDerivation[] {
   const signals = effectiveSignals(signalEvents, toTimeline);
   const ended = applyUndoAndCorrections(signalEvents.map(toTimeline)).some((e) => e.body.kind === "run-end");
 
-  const score = (source: Source | null, lane: number): LaneScore =>
-    foldRun(input.task, [...signalEvents, ...(source?.events ?? [])].map(toTimeline), { laneCount }).lanes[lane]!;
-
   return input.lanes.map(({ lane, pilotUserId }): LaneDerivation => {
     const candidates = laneSources(input.events, lane, pilotUserId, toTimeline);
     const chosen = candidates[0] ?? null;
+    const rulings = laneRulings(input.events, lane, pilotUserId, new Set(candidates.map((c) => c.deviceId)));
+    const score = (source: Source | null, lane: number): LaneScore =>
+      foldRun(input.task, [...signalEvents, ...rulings, ...(source?.events ?? [])].map(toTimeline), { laneCount }).lanes[lane]!;
     const laneScore = score(chosen, lane);
     const versions = candidates.map((c, i): LaneVersion => {
       const s = i === 0 ? laneScore : score(c, lane);

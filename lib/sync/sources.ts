@@ -10,10 +10,12 @@ import type { DerivationEvent, Source } from "./types";
  *   2. then the earlier corrected time of the record's first event,
  *   3. then the device id, as the last tie-break.
  * Records are never merged tap by tap: pairing one phone's launch with another's landing
- * would produce flights nobody timed.
+ * would produce flights nobody timed. Penalties are rulings, not timing: the chosen record's
+ * own, plus those an official gave from a phone that timed none of the lane (laneRulings).
  */
 
-const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call", "invalid", "penalty"]);
+/** What makes a lane's timing record (an `invalid` mark names a flight of that record). */
+const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call", "invalid"]);
 const SIGNAL_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "run-end"]);
 
 /** Orders candidate sources by the conflict rules (best first). */
@@ -39,6 +41,8 @@ export function withAmendments(base: readonly DerivationEvent[], all: readonly D
   }
   return out;
 }
+
+const onLane = (e: DerivationEvent, lane: number) => "lane" in e.body && e.body.lane === lane;
 
 function byDevice(events: readonly DerivationEvent[], keep: (e: DerivationEvent) => boolean): Map<string, DerivationEvent[]> {
   const groups = new Map<string, DerivationEvent[]>();
@@ -82,7 +86,7 @@ export function laneSources(
   toTimeline: ToTimeline,
 ): Source[] {
   const out: Source[] = [];
-  const groups = byDevice(events, (e) => LANE_KINDS.has(e.body.kind) && "lane" in e.body && e.body.lane === lane);
+  const groups = byDevice(events, (e) => LANE_KINDS.has(e.body.kind) && onLane(e, lane));
   for (const [deviceId, base] of groups) {
     const amended = withAmendments(base, events);
     const effective = applyUndoAndCorrections(amended.map(toTimeline));
@@ -93,8 +97,28 @@ export function laneSources(
       recordedBy,
       official: pilotUserId === null || recordedBy !== pilotUserId,
       firstAtMs: Math.min(...effective.map((e) => e.atMs)),
-      events: amended,
+      events: [...amended, ...withAmendments(penaltiesOn(events, lane, (e) => e.deviceId === deviceId), events)],
     });
   }
   return out.sort(compareSources);
+}
+
+function penaltiesOn(events: readonly DerivationEvent[], lane: number, keep: (e: DerivationEvent) => boolean): DerivationEvent[] {
+  return events.filter((e) => e.body.kind === "penalty" && onLane(e, lane) && keep(e));
+}
+
+/**
+ * Penalties for a lane given by an official (anyone but the lane's pilot) from a phone that
+ * timed none of the lane — a field director's phone — with their undos. They apply to
+ * whichever timing record is chosen; a phone that also timed the lane keeps its penalties
+ * in its own record, so one ruling is never counted twice.
+ */
+export function laneRulings(
+  events: readonly DerivationEvent[],
+  lane: number,
+  pilotUserId: string | null,
+  timingDevices: ReadonlySet<string>,
+): DerivationEvent[] {
+  const rulings = penaltiesOn(events, lane, (e) => !timingDevices.has(e.deviceId) && (pilotUserId === null || e.recordedBy !== pilotUserId));
+  return withAmendments(rulings, events);
 }

@@ -112,3 +112,49 @@ describe("deriveRun: conflict rules (SYNC.md §3)", () => {
     expect(lane!.needsReview).toBe(false); // 2 s is far outside the ±40 ms the clocks allow
   });
 });
+
+describe("deriveRun: penalties are rulings, not timing records", () => {
+  const DIRECTOR = "field-director";
+
+  it("a penalty from an official's phone that timed nothing applies to the chosen record and never replaces it", () => {
+    const self = device("pilot-phone", PILOT);
+    const director = device("director-phone", DIRECTOR);
+    self.at(0, { kind: "window-start" });
+    self.flights(0, [60, 120], 1000);
+    director.at(200_000, { kind: "penalty", lane: 0, points: 100, reason: "Landed in the safety area" });
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...self.events, ...director.events], estimatesByDevice: estimatesOf(self, director) });
+    // Official over self-timing must not hand the lane to a phone with no flights on it.
+    expect(lane!.derived.source?.deviceId).toBe("pilot-phone");
+    expect(lane!.resultTenths).toBe(1800);
+    expect(lane!.penaltyPoints).toBe(100);
+    expect(lane!.derived.versions.map((v) => v.deviceId)).toEqual(["pilot-phone"]);
+  });
+
+  it("an undone ruling counts nothing; the pilot cannot give a ruling from a second phone of their own", () => {
+    const keeper = device("keeper-phone", KEEPER);
+    const director = device("director-phone", DIRECTOR);
+    const spare = device("pilot-spare", PILOT);
+    keeper.at(0, { kind: "window-start" });
+    keeper.flights(0, [60], 1000);
+    const ruling = director.at(100_000, { kind: "penalty", lane: 0, points: 100, reason: "Wrong field" });
+    director.at(101_000, { kind: "void", targetId: ruling.id });
+    spare.at(102_000, { kind: "penalty", lane: 0, points: 300, reason: "Self-reported" });
+    const events = [...keeper.events, ...director.events, ...spare.events];
+    const [lane] = deriveRun({ task: H, lanes: solo, events, estimatesByDevice: estimatesOf(keeper, director, spare) });
+    expect(lane!.derived.source?.deviceId).toBe("keeper-phone");
+    expect(lane!.penaltyPoints).toBe(0);
+  });
+
+  it("a penalty on a phone that also timed the lane stays with that record only: one ruling is not counted twice", () => {
+    const keeper = device("keeper-phone", KEEPER);
+    const second = device("second-keeper", "other-keeper");
+    keeper.at(0, { kind: "window-start" });
+    keeper.flights(0, [60], 1000);
+    keeper.at(70_000, { kind: "penalty", lane: 0, points: 100, reason: "Launched outside the launch area" });
+    second.flights(0, [61], 1200);
+    second.at(70_500, { kind: "penalty", lane: 0, points: 100, reason: "Launched outside the launch area" });
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...keeper.events, ...second.events], estimatesByDevice: estimatesOf(keeper, second) });
+    expect(lane!.derived.source?.deviceId).toBe("keeper-phone");
+    expect(lane!.penaltyPoints).toBe(100);
+  });
+});
