@@ -37,6 +37,12 @@ export class ValidationError extends AppError {
   }
 }
 
+export class ConflictError extends AppError {
+  constructor(code: string, message: string) {
+    super(code, message, 409);
+  }
+}
+
 export class RateLimitError extends AppError {
   constructor(message = "Too many attempts. Wait a few minutes and try again.") {
     super("rate_limited", message, 429);

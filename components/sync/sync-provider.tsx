@@ -4,7 +4,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
-import { switchDeviceUser } from "@/lib/offline/device-user";
+import { currentDeviceUser, switchDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
 import { startSyncInBrowser } from "@/lib/offline/sync-browser";
 import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
@@ -18,8 +18,8 @@ const SyncContext = createContext<SyncContextValue | null>(null);
  * start, on `online`, on becoming visible), with persistent storage requested once. Also
  * keeps the signed-in user's profile in the device database while online, so pages that
  * open offline know who is timing, and moves to that account's own device database when a
- * different account signs in on this browser (device-user.ts). Constructing the client touches no storage, so this is
- * safe to render on the server; it starts only in an effect.
+ * different account signs in on this browser (device-user.ts). Constructing the client
+ * touches no storage, so this is safe to render on the server; it starts only in an effect.
  */
 export function SyncProvider({ children }: { children: ReactNode }) {
   const [client, setClient] = useState(newClient);
@@ -67,9 +67,13 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   );
 }
 
-/** A sync client on the database of the account in use. */
+/**
+ * A sync client on the database of the account in use, naming that account (read once: a client
+ * still finishing a request after a switch must not speak for the new account).
+ */
 function newClient(): SyncClient {
-  return createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init) });
+  const account = currentDeviceUser();
+  return createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init), account: () => account });
 }
 
 /** The sync client and its latest status (null until the first report). */

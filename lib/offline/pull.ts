@@ -4,7 +4,7 @@ import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "./entities";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
 
-export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string };
+export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string; account?: string | null };
 
 /** How a pull ended: ok with the number of items stored, or the failure to report. */
 export type PullOutcome = { kind: "ok"; items: number } | Exclude<HttpResult<unknown>, { kind: "ok" }>;
@@ -23,7 +23,8 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
   const knownScope = (await getMeta(db, "pullScope")) ?? "";
   let stored = 0;
   for (let page = 0; page < MAX_PAGES; page++) {
-    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}`;
+    const account = deps.account ? `&account=${encodeURIComponent(deps.account)}` : "";
+    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}${account}`;
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pullReplySchema);
     if (r.kind !== "ok") return r;
     const { items, nextCursor, hasMore, scope } = r.value;

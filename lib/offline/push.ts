@@ -5,7 +5,14 @@ import { getMeta, setMeta, type WindowcallDb } from "./db";
 import { describeFailure, postJson, requestJson, type FetchLike, type HttpResult } from "./http";
 import { applyAcks, listPending, loadPayload, markAttemptFailed, markRejected } from "./outbox";
 
-export type PushDeps = { db: WindowcallDb; fetch: FetchLike; deviceId: string; baseUrl?: string };
+export type PushDeps = {
+  db: WindowcallDb;
+  fetch: FetchLike;
+  deviceId: string;
+  baseUrl?: string;
+  /** The account whose device database this is, if known (the server refuses any other session). */
+  account?: string | null;
+};
 
 /** How a push pass ended: ok with counts, or the failure to report and back off from. */
 export type PushOutcome =
@@ -46,7 +53,7 @@ export async function pushOutbox(deps: PushDeps): Promise<PushOutcome> {
     }
     if (sentIds.length === 0 && entries.length > 0) continue;
 
-    const body = { deviceId: deps.deviceId, ...payload, clockEstimates };
+    const body = { deviceId: deps.deviceId, ...(deps.account ? { account: deps.account } : {}), ...payload, clockEstimates };
     const r = await requestJson(deps.fetch, `${deps.baseUrl ?? ""}/api/sync/push`, postJson(body), pushReplySchema);
     if (r.kind !== "ok") {
       await markAttemptFailed(db, sentIds, describeFailure(r));

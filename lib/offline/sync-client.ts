@@ -31,6 +31,7 @@ export class SyncClient {
   private readonly baseUrl: string;
   private readonly debounceMs: number;
   private readonly clockMaxAgeMs: number;
+  private readonly account: () => string | null;
 
   private current: Omit<SyncStatus, "offset"> = {
     unsent: 0, rejected: [], lastSyncAt: null, lastError: null, state: "idle", nextRetryAt: null,
@@ -55,6 +56,7 @@ export class SyncClient {
     this.baseUrl = options.baseUrl ?? "";
     this.debounceMs = options.debounceMs ?? 500;
     this.clockMaxAgeMs = options.clockMaxAgeMs ?? 10 * 60_000;
+    this.account = options.account ?? (() => null);
   }
 
   /** The latest status snapshot. */
@@ -105,7 +107,7 @@ export class SyncClient {
       const deviceId = await getDeviceId(this.db);
       do {
         this.flushAgain = false;
-        outcome = await pushOutbox({ db: this.db, fetch: this.fetch, deviceId, baseUrl: this.baseUrl });
+        outcome = await pushOutbox({ db: this.db, fetch: this.fetch, deviceId, baseUrl: this.baseUrl, account: this.account() });
       } while (this.flushAgain && outcome.kind === "ok");
     } catch (e) {
       outcome = { kind: "local", message: e instanceof Error ? e.message : String(e) };
@@ -126,7 +128,7 @@ export class SyncClient {
     this.update({ state: "syncing" });
     let outcome: PullResult;
     try {
-      outcome = await pullAll({ db: this.db, fetch: this.fetch, baseUrl: this.baseUrl });
+      outcome = await pullAll({ db: this.db, fetch: this.fetch, baseUrl: this.baseUrl, account: this.account() });
     } catch (e) {
       outcome = { kind: "local", message: e instanceof Error ? e.message : String(e) };
     }

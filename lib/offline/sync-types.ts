@@ -41,4 +41,9 @@ export type SyncClientOptions = {
   debounceMs?: number;
   /** Re-measure the clock on becoming visible when the estimate is older than this. */
   clockMaxAgeMs?: number;
+  /**
+   * The account whose device database this is, named in every push and pull so the server
+   * refuses them under another account's session (a shared phone; device-user.ts).
+   */
+  account?: () => string | null;
 };

@@ -1,3 +1,4 @@
+import { ConflictError } from "@/lib/errors";
 import type { EventBody } from "@/lib/events/schema";
 
 /**
@@ -51,4 +52,15 @@ export function pilotRefusal(userId: string, lane: number, pilotUserId: string, 
   if (!exists) return `Lane ${lane + 1}: no such user; time this pilot as a named guest.`;
   if (pilotUserId === userId || sharesClub) return null;
   return `Lane ${lane + 1}: that pilot is not in a club with you; time them as a named guest.`;
+}
+
+/**
+ * A shared phone keeps one device database per account (lib/offline/device-user.ts). A request
+ * that names the database's account must come from that account's session: otherwise another
+ * account's records would be sent, or the device id claimed, under the wrong session.
+ */
+export function assertSameAccount(sessionUserId: string, account: string | undefined): void {
+  if (account !== undefined && account !== sessionUserId) {
+    throw new ConflictError("other_account", "This phone's records belong to another account: sign in as that account to sync them.");
+  }
 }

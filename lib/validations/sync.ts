@@ -26,6 +26,8 @@ export const clockEstimateSchema = z.object({
 export const pushRequestSchema = z
   .object({
     deviceId: z.string().min(1).max(64),
+    /** The account whose device database this is (see device-user.ts); refused if not the session's. */
+    account: z.string().uuid().optional(),
     sessions: z.array(sessionEntitySchema),
     runs: z.array(runEntitySchema),
     events: z.array(runEventSchema),
@@ -58,6 +60,8 @@ export type PushReply = z.infer<typeof pushReplySchema>;
 // GET /api/sync/pull?cursor=N — query
 export const pullQuerySchema = z.object({
   cursor: z.coerce.number().int().nonnegative().default(0),
+  /** As in a push: the account whose device database asks. */
+  account: z.string().uuid().optional(),
 });
 export type PullQuery = z.infer<typeof pullQuerySchema>;
 

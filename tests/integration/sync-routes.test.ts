@@ -57,6 +57,20 @@ describe("POST /api/sync/push — access", () => {
     const [row] = await db.select().from(devices).where(eq(devices.id, dev));
     expect(row?.userId).toBe(ada.id);
   });
+
+  it("refuses with 409 a push or pull that names another account's device database, claiming nothing", async () => {
+    const ada = await demoUser("ada@example.com");
+    const tobi = await demoUser("tobi@example.com");
+    actAs(tobi);
+    const dev = deviceId();
+    const res = await push({ deviceId: dev, account: ada.id, sessions: [session(ada.id)], runs: [], events: [] });
+    expect(res.status).toBe(409);
+    expect(res.body.error?.code).toBe("other_account");
+    expect(await db.select().from(devices).where(eq(devices.id, dev))).toEqual([]);
+    expect((await pull(`0&account=${ada.id}`)).status).toBe(409);
+    expect((await push({ deviceId: dev, account: tobi.id, sessions: [], runs: [], events: [] })).status).toBe(200);
+    expect((await pull(`0&account=${tobi.id}`)).status).toBe(200);
+  });
 });
 
 describe("POST /api/sync/push — items", () => {

@@ -85,6 +85,17 @@ describe("pull", () => {
     ]);
   });
 
+  it("names the device database's account in every push and pull (a shared phone; device-user.ts)", async () => {
+    const server = new FakeServer();
+    const db = open();
+    const account = "0190a7c2-0000-7000-8000-000000000001";
+    const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers(), account: () => account });
+    await recordEvent(db, { runId: uuidv7(), body: { kind: "window-start" }, stamp: stamp() });
+    await client.sync();
+    expect(server.pushes.map((p) => (p as { account?: string }).account)).toEqual([account]);
+    expect(server.requests.filter((r) => r.includes("/pull"))).toEqual([`GET /api/sync/pull?cursor=0&account=${account}`]);
+  });
+
   it("stops with an error when the server's cursor does not advance", async () => {
     const db = open();
     let calls = 0;

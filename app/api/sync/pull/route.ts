@@ -3,6 +3,7 @@ import { db } from "@/db";
 import { listChanges } from "@/db/queries/sync-pull";
 import { route, toValidationError } from "@/lib/api";
 import { requireUser } from "@/lib/auth/session";
+import { assertSameAccount } from "@/lib/sync/authorise";
 import { pullQuerySchema } from "@/lib/validations/sync";
 
 export const dynamic = "force-dynamic";
@@ -11,6 +12,7 @@ export const GET = route(async (request: Request) => {
   const user = await requireUser();
   const parsed = pullQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!parsed.success) throw toValidationError(parsed.error);
+  assertSameAccount(user.id, parsed.data.account);
   const reply = await listChanges(db, { userId: user.id, cursor: parsed.data.cursor });
   return Response.json(reply, { headers: { "cache-control": "no-store" } });
 });
