@@ -47,6 +47,7 @@ export function CalloutSettingsForm() {
         <input type="checkbox" className="h-6 w-6" checked={settings.muted} onChange={(e) => set({ muted: e.target.checked })} />
         <span className="font-semibold">Mute all callouts</span>
       </label>
+      {settings.muted ? <p className="text-sm text-muted">Muted: the field screen plays nothing. The choices below apply once you unmute.</p> : null}
 
       <fieldset className="space-y-2">
         <legend className="font-bold">Sound</legend>
