@@ -237,6 +237,7 @@ test("a flight's launch is corrected on its own and the landing stays; a launch 
   await page.getByRole("button", { name: "Fix flight 1" }).click();
   const launchAt = page.getByLabel("Launch of flight 1, working time elapsed (m:ss.s)");
   await expect(launchAt).toHaveValue("0:10.0");
+  if (process.env.SHOTS) await page.screenshot({ path: "/tmp/flight-fix.png", fullPage: true });
   // The timekeeper saw the release 2.5 s after the tap: 80.0 − 12.5 = 67.5 s.
   await launchAt.fill("0:12.5");
   await page.getByRole("button", { name: "Set launch" }).click();
