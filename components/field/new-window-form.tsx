@@ -12,6 +12,7 @@ import type { TaskLetter } from "@/lib/tasks";
 import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput, type CustomDraft } from "./custom-task-fields";
 import { PlaceFields } from "./place-fields";
 import { PlanTaskChooser, TaskChooser, type PlanPick, type TaskKey } from "./task-chooser";
+import { useClubMates } from "./use-club-mates";
 import { useFieldProfile } from "./use-field-profile";
 import { useIsClient } from "./use-is-client";
 import { useNotifyWrite } from "./use-notify-write";
@@ -27,6 +28,7 @@ export function NewWindowForm() {
 
 function NewWindowFormInner() {
   const { profile, loading } = useFieldProfile();
+  const mates = useClubMates();
   const notify = useNotifyWrite();
   const [fieldName, setFieldName] = useState(() => localStorage.getItem(LAST_FIELD_KEY) ?? "");
   const [position, setPosition] = useState<{ lat: number; lon: number } | null>(null);
@@ -49,7 +51,7 @@ function NewWindowFormInner() {
     if (taskKey === "plan" && !planChoice) return setErrors({ task: planPick ? "This plan task has no rulebook letter; choose another." : "Choose a practice plan and one of its tasks." });
     const task = planChoice ? { source: "catalogue" as const, ...planChoice } : taskKey === "custom" ? { source: "custom" as const, input: toCustomInput(custom) } : { source: "catalogue" as const, letter: letter as TaskLetter, variant: Number(variant) };
     const wallNow = Date.now();
-    const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow);
+    const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow, mates);
     if (!out.ok) return setErrors(out.errors);
     if (planItem) out.plan.run.task = structuredClone(planItem) as unknown as Record<string, unknown>;
     setErrors({});
@@ -91,7 +93,7 @@ function NewWindowFormInner() {
         </div>
         <TextField id="notes" label="Notes" value={cond.notes} onChange={(e) => setCond({ ...cond, notes: e.target.value })} />
       </fieldset>
-      <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} error={errors.who} />
+      <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} mates={mates} error={errors.who} />
       <TaskChooser value={taskKey} onChange={setTaskKey} />
       {taskKey === "custom" ? <CustomTaskFields draft={custom} onChange={setCustom} /> : null}
       {taskKey === "plan" ? <PlanTaskChooser pick={planPick} onPick={setPlanPick} /> : null}

@@ -47,6 +47,7 @@ export function planNewWindow(
   values: NewWindowValues,
   profile: { id: string; name: string },
   wallNow: number,
+  mates: readonly ClubMate[] = [],
 ): { ok: true; plan: NewWindowPlan } | { ok: false; errors: NewWindowErrors } {
   const errors: NewWindowErrors = {};
   const fieldName = values.fieldName.trim();
@@ -61,7 +62,7 @@ export function planNewWindow(
   const prepMin = optionalNumber(values.prepMin, 0, 60);
   if (prepMin === "bad") errors.prepMin = "Preparation is a number of minutes from 0 to 60.";
 
-  const lanes = lanesFor(values.who, profile);
+  const lanes = lanesFor(values.who, profile, mates);
   if (typeof lanes === "string") errors.who = lanes;
 
   let task: TaskDefinition | null = null;
@@ -91,12 +92,32 @@ export function planNewWindow(
   };
 }
 
-/** The run's lanes for who flies; a message when the names do not make a lane. */
-export function lanesFor(who: WhoFlies, profile: { id: string; name: string }): RunEntity["lanes"] | string {
+/** Someone who shares a club with the user (kept on the device for offline set-up). */
+export type ClubMate = { id: string; name: string };
+
+/**
+ * The club mate a typed name stands for: the one whose name it is (ignoring case and outer
+ * spaces), or null when none or several have that name — then the pilot is timed as a guest.
+ */
+export function matchMate(name: string, mates: readonly ClubMate[]): ClubMate | null {
+  const key = name.trim().toLocaleLowerCase();
+  if (!key) return null;
+  const hits = mates.filter((m) => m.name.trim().toLocaleLowerCase() === key);
+  return hits.length === 1 ? hits[0]! : null;
+}
+
+/**
+ * The run's lanes for who flies; a message when the names do not make a lane. A name that is
+ * a club mate's links the lane to their account, so the run reaches their logbook too.
+ */
+export function lanesFor(who: WhoFlies, profile: { id: string; name: string }, mates: readonly ClubMate[] = []): RunEntity["lanes"] | string {
   if (who.mode === "me") return [{ lane: 0, pilotName: profile.name || "Me", pilotUserId: profile.id }];
   const names = (who.mode === "partner" ? [who.name] : who.names).map((n) => n.trim()).filter(Boolean);
   if (names.length === 0) return who.mode === "partner" ? "Give your partner's name." : "Give at least one pilot's name.";
   if (names.length > MAX_LANES) return `One window times at most ${MAX_LANES} pilots.`;
   if (names.some((n) => n.length > 120)) return "Keep each name under 120 characters.";
-  return names.map((pilotName, lane) => ({ lane, pilotName }));
+  return names.map((pilotName, lane) => {
+    const mate = matchMate(pilotName, mates);
+    return mate ? { lane, pilotName: mate.name, pilotUserId: mate.id } : { lane, pilotName };
+  });
 }

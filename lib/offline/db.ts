@@ -57,6 +57,8 @@ export type MetaValues = {
   clockSentAt: number;
   /** The signed-in user, cached while online so offline pages know who is timing. */
   profile: { id: string; name: string; email: string };
+  /** People who share a club with that user, cached while online (lanes can name them offline). */
+  clubMates: { id: string; name: string }[];
 };
 export type MetaKey = keyof MetaValues;
 export type MetaRow = { key: MetaKey; value: MetaValues[MetaKey] };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { describeTask } from "@/lib/field/describe-task";
-import { planNewWindow, type NewWindowValues } from "@/lib/field/new-window";
+import { lanesFor, matchMate, planNewWindow, type NewWindowValues } from "@/lib/field/new-window";
 import { prepStageAt } from "@/lib/field/prep-plan";
 import { getCatalogueTask } from "@/lib/tasks";
 
@@ -63,5 +63,26 @@ describe("prepStageAt", () => {
     expect(prepStageAt(plan, 10_000)).toEqual({ stage: "preparation", leftMs: 300_000, startsAtWallMs: 370_000 });
     expect(prepStageAt(plan, 310_000)).toEqual({ stage: "no-fly", leftMs: 60_000, startsAtWallMs: 370_000 });
     expect(prepStageAt(plan, 370_000)).toEqual({ stage: "due", startsAtWallMs: 370_000 });
+  });
+});
+
+describe("lanes that name club mates", () => {
+  const mates = [
+    { id: "u-kit", name: "Kit Marsh" },
+    { id: "u-rowan-1", name: "Rowan Vale" },
+    { id: "u-rowan-2", name: "Rowan Vale" },
+  ];
+  it("links a name that is exactly one club mate's (ignoring case and spaces), with their own spelling", () => {
+    expect(matchMate("  kit marsh ", mates)).toEqual({ id: "u-kit", name: "Kit Marsh" });
+    expect(lanesFor({ mode: "partner", name: "kit MARSH" }, profile, mates)).toEqual([{ lane: 0, pilotName: "Kit Marsh", pilotUserId: "u-kit" }]);
+  });
+  it("times a name shared by two mates, or nobody's, as a named guest", () => {
+    expect(matchMate("Rowan Vale", mates)).toBeNull();
+    expect(matchMate("Kit", mates)).toBeNull();
+    expect(lanesFor({ mode: "group", names: ["Rowan Vale", "", "Kit Marsh", "Pat Guest"] }, profile, mates)).toEqual([
+      { lane: 0, pilotName: "Rowan Vale" },
+      { lane: 1, pilotName: "Kit Marsh", pilotUserId: "u-kit" },
+      { lane: 2, pilotName: "Pat Guest" },
+    ]);
   });
 });
