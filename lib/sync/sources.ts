@@ -10,12 +10,15 @@ import type { DerivationEvent, Source } from "./types";
  *   2. then the earlier corrected time of the record's first event,
  *   3. then the device id, as the last tie-break.
  * Records are never merged tap by tap: pairing one phone's launch with another's landing
- * would produce flights nobody timed. Penalties are rulings, not timing: the chosen record's
- * own, plus those an official gave from a phone that timed none of the lane (laneRulings).
+ * would produce flights nobody timed. Penalties and invalid marks are rulings, not timing: the
+ * chosen record's own, plus those an official gave from a phone that timed none of the lane
+ * (laneRulings).
  */
 
-/** What makes a lane's timing record (an `invalid` mark names a flight of that record). */
-const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call", "invalid"]);
+/** What makes a lane's timing record. */
+const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call"]);
+/** Rulings on a lane: they judge flights, they do not time them. */
+const RULING_KINDS: ReadonlySet<EventKind> = new Set(["invalid", "penalty"]);
 const SIGNAL_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "run-end"]);
 
 /** Orders candidate sources by the conflict rules (best first). */
@@ -97,21 +100,22 @@ export function laneSources(
       recordedBy,
       official: pilotUserId === null || recordedBy !== pilotUserId,
       firstAtMs: Math.min(...effective.map((e) => e.atMs)),
-      events: [...amended, ...withAmendments(penaltiesOn(events, lane, (e) => e.deviceId === deviceId), events)],
+      events: [...amended, ...withAmendments(rulingsOn(events, lane, (e) => e.deviceId === deviceId), events)],
     });
   }
   return out.sort(compareSources);
 }
 
-function penaltiesOn(events: readonly DerivationEvent[], lane: number, keep: (e: DerivationEvent) => boolean): DerivationEvent[] {
-  return events.filter((e) => e.body.kind === "penalty" && onLane(e, lane) && keep(e));
+function rulingsOn(events: readonly DerivationEvent[], lane: number, keep: (e: DerivationEvent) => boolean): DerivationEvent[] {
+  return events.filter((e) => RULING_KINDS.has(e.body.kind) && onLane(e, lane) && keep(e));
 }
 
 /**
- * Penalties for a lane given by an official (anyone but the lane's pilot) from a phone that
- * timed none of the lane — a field director's phone — with their undos. They apply to
- * whichever timing record is chosen; a phone that also timed the lane keeps its penalties
- * in its own record, so one ruling is never counted twice.
+ * Penalties and invalid marks for a lane given by an official (anyone but the lane's pilot)
+ * from a phone that timed none of the lane — a field director's phone — with their undos.
+ * They apply to whichever timing record is chosen (an invalid mark names the flight by its
+ * number in the lane); a phone that also timed the lane keeps its rulings in its own record,
+ * so one ruling is never counted twice.
  */
 export function laneRulings(
   events: readonly DerivationEvent[],
@@ -119,6 +123,6 @@ export function laneRulings(
   pilotUserId: string | null,
   timingDevices: ReadonlySet<string>,
 ): DerivationEvent[] {
-  const rulings = penaltiesOn(events, lane, (e) => !timingDevices.has(e.deviceId) && (pilotUserId === null || e.recordedBy !== pilotUserId));
+  const rulings = rulingsOn(events, lane, (e) => !timingDevices.has(e.deviceId) && (pilotUserId === null || e.recordedBy !== pilotUserId));
   return withAmendments(rulings, events);
 }

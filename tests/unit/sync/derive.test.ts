@@ -130,6 +130,18 @@ describe("deriveRun: penalties are rulings, not timing records", () => {
     expect(lane!.derived.versions.map((v) => v.deviceId)).toEqual(["pilot-phone"]);
   });
 
+  it("an invalid mark from an official's phone that timed nothing zeroes that flight of the chosen record (F3K.6.2)", () => {
+    const self = device("pilot-phone", PILOT);
+    const director = device("director-phone", DIRECTOR);
+    self.at(0, { kind: "window-start" });
+    self.flights(0, [60, 120], 1000);
+    director.at(200_000, { kind: "invalid", lane: 0, flightIndex: 1, reason: "landing-outside-field" });
+    const [lane] = deriveRun({ task: H, lanes: solo, events: [...self.events, ...director.events], estimatesByDevice: estimatesOf(self, director) });
+    expect(lane!.derived.source?.deviceId).toBe("pilot-phone");
+    expect(lane!.derived.flights.map((f) => f.creditedTenths)).toEqual([600, 0]);
+    expect(lane!.resultTenths).toBe(600);
+  });
+
   it("an undone ruling counts nothing; the pilot cannot give a ruling from a second phone of their own", () => {
     const keeper = device("keeper-phone", KEEPER);
     const director = device("director-phone", DIRECTOR);
