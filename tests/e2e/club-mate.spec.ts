@@ -29,6 +29,7 @@ test("a partner named from the club list offline gets the run in their own recor
     await page.getByRole("radio", { name: /A partner/ }).check();
     await page.getByLabel("Partner's name").fill("tobi okafor");
     await expect(page.getByText("Club mate: the run goes to Tobi Okafor’s logbook too.")).toBeVisible();
+    if (process.env.SHOTS) await page.screenshot({ path: "/tmp/club-mate-page.png" });
     await page.getByRole("radio", { name: /^A · / }).first().check();
     await page.getByRole("button", { name: "Set up the window" }).click();
     await expect(page).toHaveURL(/\/field\/run\?id=/);
