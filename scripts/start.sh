@@ -12,7 +12,18 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 port_in_use "$PORT" && die "port $PORT is already taken: stop what runs there or run PORT=3100 npm start"
-stop() { say "stopping"; [ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null; wait "${APP_PID:-}" 2>/dev/null; bash scripts/db.sh stop; exit 0; }
+# The server runs in a session of its own: on Ctrl-C Next.js ends its whole process group, which
+# must not take this script with it before the database is stopped. Stopping ignores further signals.
+stop() {
+  trap '' INT TERM
+  say "stopping"
+  if [ -n "${APP_PID:-}" ]; then
+    kill -TERM -- "-$APP_PID" 2>/dev/null || true
+    wait "$APP_PID" 2>/dev/null || true # the server's own exit status must not end this (set -e)
+  fi
+  bash scripts/db.sh stop
+  exit 0
+}
 trap stop INT TERM
 
 # Rebuild only when a source file is newer than the last build.
@@ -22,8 +33,10 @@ if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib worker db public n
   npx next build --webpack >.data-build.log 2>&1 || { tail -40 .data-build.log; die "build failed (full log: .data-build.log)"; }
   rm -f .data-build.log
 fi
-npx next start -p "$PORT" &
+setsid npx next start -p "$PORT" &
 APP_PID=$!
 say "Windowcall is on http://localhost:$PORT — demo accounts are in the README. Ctrl-C stops it."
-wait "$APP_PID"
+status=0
+wait "$APP_PID" || status=$? # the server ended on its own: stop the database too, keep its status
 bash scripts/db.sh stop
+exit "$status"
