@@ -4,7 +4,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
-import { currentDeviceUser, switchDeviceUser } from "@/lib/offline/device-user";
+import { currentDeviceUser, giveOwnDatabase, switchDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
 import { startSyncInBrowser } from "@/lib/offline/sync-browser";
 import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
@@ -41,20 +41,24 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const user = session?.user;
   useEffect(() => {
     if (authStatus !== "authenticated" || !user?.id) return;
-    if (switchDeviceUser(user.id)) {
-      // Another account signed in (rare): the stored choice changed outside React, so the client
-      // and the pages below must follow it now.
-      // eslint-disable-next-line react-hooks/set-state-in-effect
+    // Another account signed in (rare): the stored choice changed outside React, so the client
+    // and the pages below must follow it now.
+    const follow = () => {
       setStatus(null);
       setClient(newClient());
       setGeneration((g) => g + 1);
+    };
+    if (switchDeviceUser(user.id)) {
+      follow();
       return; // this effect runs again with the new client
     }
     const profile = { id: user.id, name: user.name ?? "", email: user.email ?? "" };
     const db = getWindowcallDb();
     void (async () => {
       const cached = await getMeta(db, "profile");
-      if (cached?.id !== profile.id || cached.name !== profile.name || cached.email !== profile.email) await setMeta(db, "profile", profile);
+      // This database holds another account's records (localStorage was cleared): use a fresh one.
+      if (cached && cached.id !== profile.id) return giveOwnDatabase(profile.id) ? follow() : undefined;
+      if (cached?.name !== profile.name || cached.email !== profile.email) await setMeta(db, "profile", profile);
     })().catch(() => undefined);
     // signed in again after the server said 401: leave the signed-out state and sync
     if (client.status().state === "signed-out") void client.resume();

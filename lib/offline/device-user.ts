@@ -76,3 +76,21 @@ export function switchDeviceUser(userId: string, store: KeyValueStore | null = b
   }
   return currentDbName(store) !== before;
 }
+
+/**
+ * Give `userId` a database of its own (`windowcall-<id>`) and make it the one in use: for when
+ * the database it was given turns out to hold another account's records (this browser's
+ * localStorage was cleared while its IndexedDB was kept). Returns true when that changed it.
+ */
+export function giveOwnDatabase(userId: string, store: KeyValueStore | null = browserStore()): boolean {
+  if (!store) return false;
+  const own = `${BASE_DB_NAME}-${userId}`;
+  if (currentDbName(store) === own) return false;
+  try {
+    store.setItem(NAMES_KEY, JSON.stringify({ ...readNames(store), [userId]: own }));
+    store.setItem(CURRENT_KEY, userId);
+  } catch {
+    return false;
+  }
+  return currentDbName(store) === own;
+}

@@ -96,3 +96,30 @@ test("two accounts on one phone keep their own records, and nothing unsent is lo
     await db.end();
   }
 });
+
+test("an account handed another's database (site storage partly cleared) moves to one of its own", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const first = await signUp(page, "Cato Brin", "kept");
+    const second = await signUp(page, "Dara Holt", "cleared");
+    await signInAs(page, first, PASSWORD);
+    const firstRun = await flyOneFlight(page, "Cleared Storage Field");
+    await expect.poll(async () => (await db.query("select 1 from events where run_id = $1", [firstRun])).rowCount, { timeout: 30_000 }).toBe(3);
+    await signOut(page);
+    await page.evaluate(() => localStorage.clear()); // IndexedDB is kept: the next account is handed the first one's database
+
+    await signInAs(page, second, PASSWORD);
+    await page.goto("/logbook");
+    await expect(page.getByRole("main")).toContainText("Nothing in the logbook on this phone yet.");
+    const secondRun = await flyOneFlight(page, "Fresh Start Strip");
+    await expect.poll(async () => (await db.query("select 1 from events where run_id = $1", [secondRun])).rowCount, { timeout: 30_000 }).toBe(3);
+    const { rows } = await db.query<{ email: string }>(
+      "select distinct u.email from events e join devices d on d.id = e.device_id join users u on u.id = d.user_id where e.run_id = $1",
+      [secondRun],
+    );
+    expect(rows.map((r) => r.email)).toEqual([second]);
+  } finally {
+    await db.end();
+  }
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { BASE_DB_NAME, currentDbName, currentDeviceUser, switchDeviceUser, type KeyValueStore } from "@/lib/offline/device-user";
+import { BASE_DB_NAME, currentDbName, currentDeviceUser, giveOwnDatabase, switchDeviceUser, type KeyValueStore } from "@/lib/offline/device-user";
 
 function memoryStore(): KeyValueStore & { data: Map<string, string> } {
   const data = new Map<string, string>();
@@ -43,5 +43,16 @@ describe("device databases per account", () => {
     };
     expect(switchDeviceUser("tobi", refusing)).toBe(false);
     expect(currentDbName(refusing)).toBe(BASE_DB_NAME);
+  });
+
+  it("moves an account off a database that turns out to be another's (localStorage cleared, IndexedDB kept)", () => {
+    const store = memoryStore(); // cleared: the next account to sign in is handed the base database
+    switchDeviceUser("tobi", store);
+    expect(currentDbName(store)).toBe(BASE_DB_NAME);
+    expect(giveOwnDatabase("tobi", store)).toBe(true);
+    expect(currentDbName(store)).toBe(`${BASE_DB_NAME}-tobi`);
+    expect(giveOwnDatabase("tobi", store)).toBe(false);
+    expect(switchDeviceUser("ada", store)).toBe(true); // the base database is free again for its owner
+    expect(currentDbName(store)).toBe(BASE_DB_NAME);
   });
 });
