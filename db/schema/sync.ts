@@ -56,7 +56,10 @@ export const deviceClockEstimates = pgTable(
   (t) => [unique("device_clock_estimates_device_measured_uq").on(t.deviceId, t.measuredAtWallMs)],
 );
 
-/** Items the server refused, kept for the record and for support (the device keeps its copy too). */
+/**
+ * Items the server refused, kept for the record and for support (the device keeps its copy too).
+ * One row per device and item: a replayed refusal adds nothing.
+ */
 export const syncRejections = pgTable(
   "sync_rejections",
   {
@@ -69,5 +72,5 @@ export const syncRejections = pgTable(
     serverSeq: bigint("server_seq", { mode: "number" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("sync_rejections_device_id_idx").on(t.deviceId)],
+  (t) => [unique("sync_rejections_device_item_uq").on(t.deviceId, t.itemId)],
 );
