@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { AppError, ValidationError, type ErrorBody } from "./errors";
+import { AppError, PayloadTooLargeError, ValidationError, type ErrorBody } from "./errors";
 
 /** Maps any thrown value to `{ error: { code, message } }` with the right status; never leaks internals. */
 export function handleApiError(error: unknown): Response {
@@ -23,11 +23,54 @@ export function toValidationError(error: z.ZodError): ValidationError {
   return new ValidationError(summary, issues);
 }
 
-/** Reads a JSON body and parses it with the schema before any I/O; a bad body is a 400/422, not a crash. */
-export async function parseJson<T extends z.ZodType>(request: Request, schema: T): Promise<z.infer<T>> {
+/** Byte caps on request bodies: a push carries up to 500 items; anything else is small. */
+export const BODY_LIMIT = { default: 64 * 1024, push: 1024 * 1024 } as const;
+
+/**
+ * The body as text, refusing (413) as soon as more than `maxBytes` have arrived: the stream is
+ * counted while it is read, so a missing or false Content-Length changes nothing.
+ */
+export async function readBody(request: Request, maxBytes: number): Promise<string> {
+  const declared = Number(request.headers.get("content-length"));
+  if (Number.isFinite(declared) && declared > maxBytes) throw new PayloadTooLargeError(maxBytes);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read().catch(() => {
+      throw new AppError("bad_body", "The request body could not be read.", 400);
+    });
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw new PayloadTooLargeError(maxBytes);
+    }
+    chunks.push(value);
+  }
+  const bytes = new Uint8Array(size);
+  let at = 0;
+  for (const c of chunks) {
+    bytes.set(c, at);
+    at += c.byteLength;
+  }
+  return new TextDecoder().decode(bytes);
+}
+
+/**
+ * Reads a JSON body of at most `maxBytes` (default 64 kB; over it → 413) and parses it with the
+ * schema before any I/O; a bad body is a 400/422, not a crash.
+ */
+export async function parseJson<T extends z.ZodType>(
+  request: Request,
+  schema: T,
+  options: { maxBytes?: number } = {},
+): Promise<z.infer<T>> {
+  const text = await readBody(request, options.maxBytes ?? BODY_LIMIT.default);
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     throw new AppError("bad_json", "The request body is not valid JSON.", 400);
   }

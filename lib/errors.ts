@@ -43,6 +43,12 @@ export class ConflictError extends AppError {
   }
 }
 
+export class PayloadTooLargeError extends AppError {
+  constructor(maxBytes: number) {
+    super("too_large", `The request body is larger than ${Math.round(maxBytes / 1024)} kB.`, 413);
+  }
+}
+
 export class RateLimitError extends AppError {
   constructor(message = "Too many attempts. Wait a few minutes and try again.") {
     super("rate_limited", message, 429);

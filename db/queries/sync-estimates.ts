@@ -1,6 +1,6 @@
 import "server-only";
-import { and, eq, gt, lt, sql } from "drizzle-orm";
-import type { ClockEstimate } from "@/lib/clock";
+import { and, eq, gt, inArray, lt, sql } from "drizzle-orm";
+import { MAX_ESTIMATES_PER_DEVICE, pruneEstimates, type ClockEstimate } from "@/lib/clock";
 import { affectedWallRange, correctStamp } from "@/lib/sync/correct-events";
 import { deviceClockEstimates, events } from "../schema";
 import { toDerivationEvent } from "./runs";
@@ -8,9 +8,11 @@ import type { Tx } from "./sync-db";
 
 /**
  * Store a device's clock estimates (from the push and from its events' stamps) and re-correct
- * its stored events whose offset the new ones change — interpolating across the offline
- * period between the estimate before and the one after (SYNC.md §4). Returns every estimate
- * of the device and the runs whose events moved (to re-derive). Call under the sync lock.
+ * its stored events whose offset the change moves — interpolating across the offline period
+ * between the estimate before and the one after (SYNC.md §4). At most MAX_ESTIMATES_PER_DEVICE
+ * are kept (pruneEstimates: coverage in time first, then the smallest δ); a pruned estimate the
+ * device sends again is pruned again, not stored. Returns the device's estimates and the runs
+ * whose events moved (to re-derive). Call under the sync lock.
  */
 export async function storeClockEstimates(
   tx: Tx,
@@ -25,12 +27,20 @@ export async function storeClockEstimates(
   const known = new Set(existing.map((e) => e.measuredAtWallMs));
   const fresh = new Map<number, ClockEstimate>();
   for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);
-  const added = [...fresh.values()];
-  if (added.length === 0) return { estimates: existing, movedRuns };
+  if (fresh.size === 0 && existing.length <= MAX_ESTIMATES_PER_DEVICE) return { estimates: existing, movedRuns };
 
-  await tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing();
-  const all = [...existing, ...added];
-  const range = affectedWallRange(all, added);
+  const candidates = [...existing, ...fresh.values()];
+  const all = pruneEstimates(candidates);
+  const keep = new Set(all.map((e) => e.measuredAtWallMs));
+  const added = [...fresh.values()].filter((e) => keep.has(e.measuredAtWallMs));
+  const dropped = existing.filter((e) => !keep.has(e.measuredAtWallMs));
+  if (added.length > 0) await tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing();
+  if (dropped.length > 0) {
+    await tx
+      .delete(deviceClockEstimates)
+      .where(and(eq(deviceClockEstimates.deviceId, deviceId), inArray(deviceClockEstimates.measuredAtWallMs, dropped.map((e) => e.measuredAtWallMs))));
+  }
+  const range = affectedWallRange(candidates, [...added, ...dropped]);
   if (!range) return { estimates: all, movedRuns };
 
   const [lo, hi] = range;

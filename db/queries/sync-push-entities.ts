@@ -1,9 +1,10 @@
 import "server-only";
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { Ack } from "@/lib/validations/sync";
+import { MAX_RUNS_PER_DAY } from "@/lib/validations/sync-push";
 import { fieldDays, fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { isDateMs, isUuid, type Tx } from "./sync-db";
 
@@ -65,6 +66,7 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   const creators = new Map(existing.map((r) => [r.id, r.createdBy]));
   const sessionsById = new Map(sessionRows.map((s) => [s.id, s]));
   const pilots = await pilotFacts(ctx, items);
+  const perDay = await runsPerDay(ctx, items);
   const freshRuns: (typeof runs.$inferInsert)[] = [];
   const freshLanes: (typeof runLanes.$inferInsert)[] = [];
   const seen = new Set<string>();
@@ -83,6 +85,9 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
       (!task.success ? `The task definition is not valid: ${task.error.issues[0]?.message ?? "?"}` : null) ??
       (!isDateMs(r.createdAtWallMs) ? "The run's creation time is not a valid date." : null) ??
       runSessionRefusal(ctx.userId, sessionsById.get(r.sessionId) ?? null, ctx.clubIds) ??
+      ((perDay.get(utcDay(r.createdAtWallMs)) ?? 0) >= MAX_RUNS_PER_DAY
+        ? `You already have ${MAX_RUNS_PER_DAY} runs on that day, the most one account may record per day.`
+        : null) ??
       r.lanes
         .map((l) => (l.pilotUserId === undefined ? null : pilotRefusal(ctx.userId, l.lane, l.pilotUserId, pilots.sharesClub.has(l.pilotUserId), pilots.exists.has(l.pilotUserId))))
         .find((x) => x !== null) ??
@@ -92,8 +97,10 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
       continue;
     }
     seen.add(r.id);
+    perDay.set(utcDay(r.createdAtWallMs), (perDay.get(utcDay(r.createdAtWallMs)) ?? 0) + 1);
     freshRuns.push({
-      id: r.id, sessionId: r.sessionId, createdBy: ctx.userId, task: r.task, taskCode: task.data.letter ?? "custom",
+      // only the parsed task is stored: fields the engine does not know are dropped
+      id: r.id, sessionId: r.sessionId, createdBy: ctx.userId, task: task.data, taskCode: task.data.letter ?? "custom",
       edition: task.data.edition, createdAt: new Date(r.createdAtWallMs),
     });
     for (const l of r.lanes) freshLanes.push({ runId: r.id, lane: l.lane, pilotUserId: l.pilotUserId ?? null, pilotName: l.pilotName });
@@ -104,6 +111,21 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
     await tx.insert(runLanes).values(freshLanes).onConflictDoNothing();
   }
   return freshRuns.map((r) => r.id!);
+}
+
+const DAY_MS = 86_400_000;
+const utcDay = (ms: number) => Math.floor(ms / DAY_MS);
+
+/** How many runs the pushing user already has on each UTC day the pushed runs fall on. */
+async function runsPerDay(ctx: PushContext, items: readonly RunEntity[]): Promise<Map<number, number>> {
+  const days = items.map((r) => utcDay(r.createdAtWallMs));
+  const [from, to] = [Math.min(...days), Math.max(...days) + 1];
+  const rows = await ctx.tx
+    .select({ day: sql<number>`floor(extract(epoch from ${runs.createdAt}) / 86400)::int`, n: sql<number>`count(*)::int` })
+    .from(runs)
+    .where(and(eq(runs.createdBy, ctx.userId), gte(runs.createdAt, new Date(from * DAY_MS)), lt(runs.createdAt, new Date(to * DAY_MS))))
+    .groupBy(sql`1`);
+  return new Map(rows.map((r) => [Number(r.day), Number(r.n)]));
 }
 
 /** Which named pilots exist, and which share a club with the pushing user. */

@@ -1,9 +1,10 @@
 import "server-only";
-import { and, eq, inArray, or } from "drizzle-orm";
+import { and, eq, inArray, or, sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
 import { correctStamp } from "@/lib/sync/correct-events";
+import { MAX_EVENTS_PER_RUN } from "@/lib/validations/sync-push";
 import { events, runLanes, runs } from "../schema";
 import { reject, type PushContext } from "./sync-push-entities";
 
@@ -39,6 +40,12 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const runFacts = new Map<string, RunFacts>(
     runRows.map((r) => [r.id, { id: r.id, createdBy: r.createdBy, lanes: laneRows.filter((l) => l.runId === r.id) }]),
   );
+  const counts = await tx
+    .select({ runId: events.runId, n: sql<number>`count(*)::int` })
+    .from(events)
+    .where(inArray(events.runId, runIds))
+    .groupBy(events.runId);
+  const perRun = new Map(counts.map((c) => [c.runId, Number(c.n)]));
   const byId = new Map(clashes.map((c) => [c.id, c]));
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
   const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy }]));
@@ -70,6 +77,11 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
       reject(ctx, e.id, refusal);
       continue;
     }
+    if ((perRun.get(e.runId) ?? 0) >= MAX_EVENTS_PER_RUN) {
+      reject(ctx, e.id, `The run already holds ${MAX_EVENTS_PER_RUN} events, the most one run may hold.`);
+      continue;
+    }
+    perRun.set(e.runId, (perRun.get(e.runId) ?? 0) + 1);
     const { offset } = e.stamp;
     const corrected = correctStamp(e.stamp, estimates);
     fresh.push({

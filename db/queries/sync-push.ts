@@ -2,7 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import { ForbiddenError } from "@/lib/errors";
-import type { PushReply, PushRequest } from "@/lib/validations/sync";
+import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
 import { deriveAndStoreRuns } from "./runs";
@@ -28,16 +28,17 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * Apply one push (SYNC.md §3) in ONE transaction: claim the device, take the sync lock (so
  * server_seq values commit in order), store clock estimates and re-correct what they move,
  * then sessions, runs and events — each checked, each stored once — then re-derive every
- * affected run's results. Refusals are acknowledged with their reason and recorded in
- * sync_rejections. Returns one ack per item and the last server sequence number.
+ * affected run's results. Refusals — `refused`, the items that failed their schema, and those
+ * refused here — are acknowledged with their reason and recorded in sync_rejections once per
+ * device and item. Returns one ack per item and the last server sequence number.
  */
-export async function applyPush(db: Database, userId: string, req: PushRequest): Promise<PushReply> {
+export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = []): Promise<PushReply> {
   return db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
     await lockSync(tx);
     const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
     const clubIds = needsClubs ? await listUserClubIds(tx, userId) : new Set<string>();
-    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds, acks: [] };
+    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds, acks: [...refused] };
 
     const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
     const clock = await storeClockEstimates(tx, req.deviceId, [...(req.clockEstimates ?? []), ...offsets]);
@@ -47,11 +48,12 @@ export async function applyPush(db: Database, userId: string, req: PushRequest):
     const touched = await applyEvents(ctx, req.events, clock.estimates);
     await deriveAndStoreRuns(tx, [...newRuns, ...touched, ...clock.movedRuns]);
 
-    const refused = ctx.acks.filter((a) => a.status === "rejected");
-    if (refused.length > 0) {
-      await tx.insert(syncRejections).values(
-        refused.map((a) => ({ itemId: a.id, deviceId: req.deviceId, userId, reason: a.reason ?? "rejected" })),
-      );
+    const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
+    if (rejections.size > 0) {
+      await tx
+        .insert(syncRejections)
+        .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
+        .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] });
     }
     return { acks: ctx.acks, serverSeq: await currentServerSeq(tx) };
   });

@@ -24,3 +24,4 @@ export {
   type BoundaryVerdict,
 } from "./correct";
 export { estimateFromSamples } from "./estimate";
+export { pruneEstimates, MAX_ESTIMATES_PER_DEVICE } from "./prune";

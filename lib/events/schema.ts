@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { durationMs, epochMs, int4, MAX_DELAY_MS, MAX_OFFSET_MS, text } from "@/lib/validations/bounds";
 
 /**
  * The append-only event log of the flight line (SYNC.md §1).
@@ -12,22 +13,26 @@ import { z } from "zod";
  * one pilot). A solo practice run has one lane.
  */
 
+/**
+ * A device's clock offset estimate (lib/clock ClockEstimate): θ = server time − device time,
+ * δ the round trip of the exchange it came from, and when (device wall time) it was measured.
+ */
+export const clockEstimateSchema = z.object({
+  thetaMs: z.number().finite().min(-MAX_OFFSET_MS).max(MAX_OFFSET_MS),
+  deltaMs: z.number().finite().min(0).max(MAX_DELAY_MS),
+  measuredAtWallMs: epochMs,
+});
+
 /** When and where an event was recorded, kept raw so the server can re-correct it later (SYNC.md §4). */
 export const stampSchema = z.object({
   /** Device wall clock (ms since the Unix epoch) at the input event's own timestamp. */
-  wallMs: z.number().finite(),
+  wallMs: epochMs,
   /** Monotonic time (performance.timeOrigin-relative ms) of the input event. */
-  monoMs: z.number().finite().nonnegative(),
+  monoMs: durationMs,
   /** Id of the page lifetime the monotonic time belongs to (a reload starts a new one). */
-  pageId: z.string().min(1).max(64),
+  pageId: text(64).min(1),
   /** The device's best offset estimate at that moment (server time − device time), if any. */
-  offset: z
-    .object({
-      thetaMs: z.number().finite(),
-      deltaMs: z.number().finite().nonnegative(),
-      measuredAtWallMs: z.number().finite(),
-    })
-    .nullable(),
+  offset: clockEstimateSchema.nullable(),
 });
 export type Stamp = z.infer<typeof stampSchema>;
 
@@ -57,10 +62,10 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
     kind: z.literal("penalty"),
     lane,
     points: z.number().int().min(1).max(1000),
-    reason: z.string().min(1).max(200),
+    reason: text(200).min(1),
   }),
   /** Moves a timed event to another time (ms on the same clock as its stamp). */
-  z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: z.number().finite() }),
+  z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: epochMs }),
   /** Undo: the named event no longer counts. */
   z.object({ kind: z.literal("void"), targetId: z.string().uuid() }),
   /** The run was closed by its timekeeper (after the landing window). */
@@ -73,11 +78,11 @@ export type EventKind = EventBody["kind"];
 export const runEventSchema = z.object({
   id: z.string().uuid(), // UUIDv7, client-generated
   runId: z.string().uuid(),
-  deviceId: z.string().min(1).max(64),
-  /** Per-device sequence number, strictly increasing from 1. */
-  seq: z.number().int().positive(),
+  deviceId: text(64).min(1),
+  /** Per-device sequence number, strictly increasing from 1 (a PostgreSQL integer). */
+  seq: int4(1),
   /** The signed-in user who recorded it (filled by the server from the session). */
-  recordedBy: z.string().optional(),
+  recordedBy: text(64).optional(),
   stamp: stampSchema,
   body: eventBodySchema,
 });

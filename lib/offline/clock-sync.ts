@@ -1,5 +1,5 @@
 import { estimateFromSamples, FILTER_SIZE, type ClockEstimate, type TimeSample } from "@/lib/clock";
-import { timeReplySchema } from "@/lib/validations/sync";
+import { clockEstimateSchema, timeReplySchema } from "@/lib/validations/sync";
 import { getMeta, setMeta, type WindowcallDb } from "./db";
 import { postJson, requestJson, type FetchLike } from "./http";
 
@@ -27,7 +27,7 @@ export async function measureClock(deps: ClockDeps, exchanges = EXCHANGES_PER_BU
   }
   if (samples.length === 0) return null;
   const kept = samples.slice(-FILTER_SIZE);
-  const estimate = estimateFromSamples(kept);
+  const estimate = usable(estimateFromSamples(kept));
 
   await deps.db.transaction("rw", [deps.db.clockSamples, deps.db.meta], async () => {
     const burstId = ((await getMeta(deps.db, "clockBurst")) ?? 0) + 1;
@@ -37,6 +37,11 @@ export async function measureClock(deps: ClockDeps, exchanges = EXCHANGES_PER_BU
     if (estimate) await setMeta(deps.db, "clockEstimate", estimate);
   });
   return estimate;
+}
+
+/** An estimate the protocol can carry (bounded θ and δ; clockEstimateSchema), else null. */
+function usable(e: ClockEstimate | null): ClockEstimate | null {
+  return e && clockEstimateSchema.safeParse(e).success ? e : null;
 }
 
 /** One estimate per stored burst, oldest first: the device's history for interpolation. */
@@ -50,7 +55,7 @@ export async function listClockEstimates(db: WindowcallDb): Promise<ClockEstimat
   }
   const out: ClockEstimate[] = [];
   for (const samples of bursts.values()) {
-    const e = estimateFromSamples(samples);
+    const e = usable(estimateFromSamples(samples));
     if (e) out.push(e);
   }
   return out;

@@ -1,34 +1,38 @@
 import { z } from "zod";
+import { epochMs, jsonProblem, text } from "@/lib/validations/bounds";
 
 /**
  * Field sessions and runs created on a device, stored locally (lib/offline/db.ts), pushed
  * to the server and pulled back. Plain zod only, so the server can import these schemas.
  */
 
-const userId = z.string().min(1).max(64);
+const userId = text(64).min(1);
+
+/** Bounds of a run's stored task JSON (a catalogue task is about 300 bytes). */
+export const TASK_LIMITS = { maxBytes: 8192, maxDepth: 6 } as const;
 
 /** One outing to a field: where, when, in what conditions. */
 export const sessionEntitySchema = z.object({
   id: z.uuid(), // UUIDv7, client-generated
   ownerId: userId,
-  fieldName: z.string().trim().min(1).max(120),
+  fieldName: text(120).trim().min(1),
   position: z.object({ lat: z.number().min(-90).max(90), lon: z.number().min(-180).max(180) }).optional(),
   conditions: z.object({
     windMs: z.number().min(0).max(60).optional(),
     gustMs: z.number().min(0).max(80).optional(),
     temperatureC: z.number().min(-50).max(60).optional(),
-    notes: z.string().max(2000).optional(),
+    notes: text(2000).optional(),
   }),
   /** Device wall clock when the session started (ms since the Unix epoch). */
-  startedAtWallMs: z.number(),
-  clubId: z.string().min(1).max(64).optional(),
+  startedAtWallMs: epochMs,
+  clubId: text(64).min(1).optional(),
 });
 export type SessionEntity = z.infer<typeof sessionEntitySchema>;
 
 /** One pilot's lane in a run. */
 export const runLaneSchema = z.object({
   lane: z.number().int().min(0).max(3),
-  pilotName: z.string().trim().min(1).max(120),
+  pilotName: text(120).trim().min(1),
   pilotUserId: userId.optional(),
 });
 export type RunLane = z.infer<typeof runLaneSchema>;
@@ -37,14 +41,20 @@ export type RunLane = z.infer<typeof runLaneSchema>;
 export const runEntitySchema = z.object({
   id: z.uuid(), // UUIDv7, client-generated
   sessionId: z.uuid(),
-  /** The task definition as stored JSON; its shape belongs to lib/tasks, opaque here. */
-  task: z.record(z.string(), z.unknown()),
+  /**
+   * The task definition as stored JSON; its shape belongs to lib/tasks (the server parses it
+   * with taskDefinitionSchema and stores only that), bounded here in size, depth and text.
+   */
+  task: z.record(z.string(), z.unknown()).superRefine((task, ctx) => {
+    const problem = jsonProblem(task, TASK_LIMITS);
+    if (problem) ctx.addIssue({ code: "custom", message: `The task ${problem}.` });
+  }),
   lanes: z
     .array(runLaneSchema)
     .min(1)
     .max(4)
     .refine((lanes) => new Set(lanes.map((l) => l.lane)).size === lanes.length, "lane numbers must be unique"),
   /** Device wall clock when the run was created. */
-  createdAtWallMs: z.number(),
+  createdAtWallMs: epochMs,
 });
 export type RunEntity = z.infer<typeof runEntitySchema>;

@@ -21,18 +21,24 @@ export async function listRejected(db: WindowcallDb): Promise<{ id: string; kind
 
 export type PushPayload = { sessions: SessionEntity[]; runs: RunEntity[]; events: RunEvent[] };
 
+/** Bytes of items one push carries at most: well under the server's 1 MB cap (lib/api.ts). */
+export const PUSH_MAX_BYTES = 768 * 1024;
+
 /**
  * The records behind outbox entries, checked with the protocol's schemas. An entry whose
  * record is missing or fails validation is returned in `invalid`: it would fail on the
  * server every time, so it is rejected locally rather than blocking everything behind it.
+ * Stops before the items would pass `maxBytes` (the rest go in the next push).
  */
 export async function loadPayload(
   db: WindowcallDb,
   entries: readonly OutboxEntry[],
+  maxBytes = PUSH_MAX_BYTES,
 ): Promise<{ payload: PushPayload; sentIds: string[]; invalid: { id: string; reason: string }[] }> {
   const payload: PushPayload = { sessions: [], runs: [], events: [] };
   const sentIds: string[] = [];
   const invalid: { id: string; reason: string }[] = [];
+  let bytes = 0;
   for (const entry of entries) {
     const table = entry.kind === "event" ? db.events : entry.kind === "session" ? db.sessions : db.runs;
     const schema = entry.kind === "event" ? runEventSchema : entry.kind === "session" ? sessionEntitySchema : runEntitySchema;
@@ -46,6 +52,9 @@ export async function loadPayload(
       invalid.push({ id: entry.id, reason: `invalid ${entry.kind}: ${parsed.error.issues[0]?.message ?? "?"}` });
       continue;
     }
+    const size = new TextEncoder().encode(JSON.stringify(parsed.data)).length;
+    if (sentIds.length > 0 && bytes + size > maxBytes) break;
+    bytes += size;
     if (entry.kind === "event") payload.events.push(parsed.data as RunEvent);
     else if (entry.kind === "session") payload.sessions.push(parsed.data as SessionEntity);
     else payload.runs.push(parsed.data as RunEntity);

@@ -1,5 +1,5 @@
 import { v7 as uuidv7 } from "uuid";
-import { runEventSchema, type EventBody, type RunEvent, type Stamp } from "@/lib/events/schema";
+import { clockEstimateSchema, runEventSchema, type EventBody, type RunEvent, type Stamp } from "@/lib/events/schema";
 import { getMeta, setMeta, type OutboxKind, type WindowcallDb } from "./db";
 import { getDeviceId } from "./device";
 import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "./entities";
@@ -37,7 +37,10 @@ export async function recordEvent(
   return db.transaction("rw", [db.events, db.outbox, db.meta], async () => {
     const deviceId = await getDeviceId(db);
     const seq = await takeCounter(db, "nextSeq");
-    const event = runEventSchema.parse({ id: uuidv7(), runId: input.runId, deviceId, seq, stamp: input.stamp, body: input.body });
+    // an offset the protocol cannot carry (an absurd exchange) must not cost the tap: record it without
+    const offset = input.stamp.offset && clockEstimateSchema.safeParse(input.stamp.offset).success ? input.stamp.offset : null;
+    const stamp = { ...input.stamp, offset };
+    const event = runEventSchema.parse({ id: uuidv7(), runId: input.runId, deviceId, seq, stamp, body: input.body });
     await db.events.add(event);
     await enqueue(db, event.id, "event", now());
     return event;

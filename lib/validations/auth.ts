@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { text } from "./bounds";
 
 export const emailSchema = z
   .string()
@@ -15,7 +16,7 @@ export const passwordSchema = z
   .refine((p) => new Set(p).size >= 4, "Use a less repetitive password.");
 
 export const signUpSchema = z.object({
-  name: z.string().trim().min(1, "Enter your name.").max(80, "Use at most 80 characters."),
+  name: text(80).trim().min(1, "Enter your name.").max(80, "Use at most 80 characters."),
   email: emailSchema,
   password: passwordSchema,
 });

@@ -1,6 +1,9 @@
 import { z } from "zod";
-import { runEventSchema } from "@/lib/events/schema";
+import { clockEstimateSchema, runEventSchema } from "@/lib/events/schema";
 import { runEntitySchema, sessionEntitySchema } from "@/lib/offline/entities";
+import { EPOCH_MS_MAX, text } from "./bounds";
+
+export { clockEstimateSchema };
 
 /**
  * The sync protocol between a device and the server (SYNC.md §3). One schema per message,
@@ -15,22 +18,15 @@ export const PUSH_BATCH_SIZE = 200;
 /** Most clock estimates one push may carry (the device keeps at most 32 bursts). */
 export const PUSH_MAX_CLOCK_ESTIMATES = 64;
 
-/** One offset measurement of the device (lib/clock ClockEstimate), sent so the server can interpolate. */
-export const clockEstimateSchema = z.object({
-  thetaMs: z.number().finite(),
-  deltaMs: z.number().finite().nonnegative(),
-  measuredAtWallMs: z.number().finite(),
-});
-
 // POST /api/sync/push — body
 export const pushRequestSchema = z
   .object({
-    deviceId: z.string().min(1).max(64),
+    deviceId: text(64).min(1),
     /** The account whose device database this is (see device-user.ts); refused if not the session's. */
     account: z.string().uuid().optional(),
-    sessions: z.array(sessionEntitySchema),
-    runs: z.array(runEntitySchema),
-    events: z.array(runEventSchema),
+    sessions: z.array(sessionEntitySchema).max(PUSH_MAX_ITEMS),
+    runs: z.array(runEntitySchema).max(PUSH_MAX_ITEMS),
+    events: z.array(runEventSchema).max(PUSH_MAX_ITEMS),
     /**
      * The device's offset measurements (oldest first). Optional: the server stores them and
      * re-corrects this device's events between the estimates before and after an offline period.
@@ -59,7 +55,7 @@ export type PushReply = z.infer<typeof pushReplySchema>;
 
 // GET /api/sync/pull?cursor=N — query
 export const pullQuerySchema = z.object({
-  cursor: z.coerce.number().int().nonnegative().default(0),
+  cursor: z.coerce.number().int().nonnegative().max(Number.MAX_SAFE_INTEGER).default(0),
   /** As in a push: the account whose device database asks. */
   account: z.string().uuid().optional(),
 });
@@ -119,7 +115,7 @@ export const pullReplySchema = z.object({
 export type PullReply = z.infer<typeof pullReplySchema>;
 
 // POST /api/time — body: the device's send time T1
-export const timeRequestSchema = z.object({ t1: z.number() });
+export const timeRequestSchema = z.object({ t1: z.number().finite().min(-EPOCH_MS_MAX).max(EPOCH_MS_MAX) });
 export type TimeRequest = z.infer<typeof timeRequestSchema>;
 
 // POST /api/time — reply: T1 echoed, server receive time T2 and send time T3

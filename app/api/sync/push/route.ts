@@ -1,21 +1,31 @@
 // POST /api/sync/push — apply a device's queued sessions, runs and events; acknowledge each one
 import { db } from "@/db";
 import { applyPush } from "@/db/queries/sync-push";
-import { parseJson, route } from "@/lib/api";
+import { BODY_LIMIT, parseJson, route } from "@/lib/api";
 import { requireUser } from "@/lib/auth/session";
+import { ValidationError } from "@/lib/errors";
 import { assertSameAccount } from "@/lib/sync/authorise";
-import { pushRequestSchema } from "@/lib/validations/sync";
+import { pushEnvelopeSchema, readPush, UnnamedItemError } from "@/lib/validations/sync-push";
 
 export const dynamic = "force-dynamic";
 
 /**
- * 401 signed out, 422 for a malformed body (before any database work), 403 when the device id
- * belongs to another account, 409 when the body names another account's device database. Otherwise every item gets an ack: applied, duplicate (already
- * stored: the device may forget it) or rejected with the reason (SYNC.md §3).
+ * 401 signed out, 413 over 1 MB, 422 for a malformed envelope or an item without a usable id
+ * (before any database work), 403 when the device id belongs to another account, 409 when the
+ * body names another account's device database. Otherwise every item gets an ack: applied,
+ * duplicate (already stored: the device may forget it) or rejected with the reason — an item
+ * that fails its own schema included, so the rest of the batch still applies (SYNC.md §3).
  */
 export const POST = route(async (request: Request) => {
   const user = await requireUser();
-  const body = await parseJson(request, pushRequestSchema);
-  assertSameAccount(user.id, body.account);
-  return Response.json(await applyPush(db, user.id, body), { headers: { "cache-control": "no-store" } });
+  const envelope = await parseJson(request, pushEnvelopeSchema, { maxBytes: BODY_LIMIT.push });
+  let read: ReturnType<typeof readPush>;
+  try {
+    read = readPush(envelope);
+  } catch (e) {
+    if (e instanceof UnnamedItemError) throw new ValidationError(e.message, [{ path: e.path, message: "an item needs an id" }]);
+    throw e;
+  }
+  assertSameAccount(user.id, read.request.account);
+  return Response.json(await applyPush(db, user.id, read.request, read.refused), { headers: { "cache-control": "no-store" } });
 });
