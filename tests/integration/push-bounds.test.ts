@@ -180,3 +180,23 @@ describe("growth caps", () => {
     expect(stored[0]?.n).toBe(200);
   });
 });
+
+describe("clock estimates per device", () => {
+  it("keeps at most 32, still bracketing an offline period, and replays change nothing", async () => {
+    actAs(await demoUser("ada@example.com"));
+    const phone = recorder(deviceId());
+    const base = 1_767_000_000_000;
+    const online = Array.from({ length: 90 }, (_, i) => ({ thetaMs: 200, deltaMs: 10 + ((i * 37) % 50), measuredAtWallMs: base + i * 60_000 }));
+    const afterGap = { thetaMs: 900, deltaMs: 25, measuredAtWallMs: base + 90 * 60_000 + 6 * 3_600_000 };
+    for (let i = 0; i < 90; i += 30) await push({ deviceId: phone.id, sessions: [], runs: [], events: [], clockEstimates: online.slice(i, i + 30) });
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [], clockEstimates: [afterGap] });
+    const count = async () => (await db.execute<{ n: number }>(sql`select count(*)::int as n from device_clock_estimates where device_id = ${phone.id}`)).rows[0]?.n;
+    expect(await count()).toBe(32);
+    const rows = await db.execute<{ m: number }>(sql`select measured_at_wall_ms as m from device_clock_estimates where device_id = ${phone.id} order by 1`);
+    const times = rows.rows.map((r) => Number(r.m));
+    expect(times).toContain(afterGap.measuredAtWallMs);
+    expect(online.at(-1)!.measuredAtWallMs - times.at(-2)!).toBeLessThanOrEqual(10 * 60_000);
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [], clockEstimates: online.slice(-32) });
+    expect(await count()).toBe(32);
+  });
+});
