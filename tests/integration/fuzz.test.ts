@@ -1,0 +1,215 @@
+import "./support/session";
+import fc from "fast-check";
+import { readdirSync } from "node:fs";
+import { join, relative, sep } from "node:path";
+import { sql } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { users } from "@/db/schema";
+import { BODY_LIMIT } from "@/lib/api";
+import { getCatalogueTask } from "@/lib/tasks";
+import { actAs } from "./support/session";
+import { db, getPool } from "./support/db";
+
+/**
+ * Issue #9: arbitrary and oversized input to EVERY route handler under app/api — random JSON,
+ * huge strings, NUL characters, huge, negative and fractional numbers, deep nesting, wrong
+ * content types, and valid bodies with one field replaced by such a value. Never a 5xx, and a
+ * 4xx writes nothing (exact row counts of every table, and the sync sequence, before and after).
+ *
+ * The routes come from the file system: a route (or a method) this file does not know how to
+ * drive fails the test, so a new route must be added to ROUTES below.
+ */
+
+afterAll(async () => {
+  await getPool().end();
+});
+
+type Input = "json" | "query" | "none" | { skip: string };
+const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "DELETE", Input>>> = {
+  "/api/account/sign-up": { POST: "json" },
+  "/api/admin/users": { GET: "none" },
+  "/api/auth/[...nextauth]": {
+    GET: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
+    POST: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
+  },
+  "/api/club-mates": { GET: "none" },
+  "/api/health": { GET: "none" },
+  "/api/sync/pull": { GET: "query" },
+  "/api/sync/push": { POST: "json" },
+  "/api/time": { POST: "json" },
+};
+const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
+type Method = (typeof METHODS)[number];
+type Handler = (request: Request, context?: unknown) => Promise<Response>;
+
+/** Every app/api/**\/route.ts with the methods it exports. */
+async function discoverRoutes(): Promise<{ path: string; handlers: Partial<Record<Method, Handler>> }[]> {
+  const root = join(process.cwd(), "app");
+  const files = (readdirSync(join(root, "api"), { recursive: true }) as string[]).filter((f) => f.endsWith(`${sep}route.ts`) || f === "route.ts");
+  const out = [];
+  for (const file of files) {
+    const abs = join(root, "api", file);
+    const path = "/" + relative(root, abs).split(sep).slice(0, -1).join("/");
+    const mod = (await import(abs)) as Partial<Record<Method, Handler>>;
+    const handlers: Partial<Record<Method, Handler>> = {};
+    for (const m of METHODS) if (typeof mod[m] === "function") handlers[m] = mod[m];
+    out.push({ path, handlers });
+  }
+  return out.sort((a, b) => a.path.localeCompare(b.path));
+}
+
+/** Exact row counts of every table and the sync sequence: any insert or delete changes it. */
+let countAll: () => Promise<string>;
+beforeAll(async () => {
+  const tables = await db.execute<{ t: string }>(sql`select tablename as t from pg_tables where schemaname = 'public' and tablename not like '%drizzle%' order by 1`);
+  const parts = tables.rows.map((r) => sql`select ${r.t} as t, count(*)::int as n from ${sql.identifier(r.t)}`);
+  const query = sql`${sql.join(parts, sql` union all `)} union all select 'sync_seq', last_value::int from sync_seq`;
+  countAll = async () => JSON.stringify((await db.execute(query)).rows);
+});
+
+const EVIL: unknown[] = [
+  "\u0000", "a\u0000b", "\ud800", "x".repeat(5000), "", " ", "<script>", "../../etc", "💥".repeat(50),
+  2 ** 31, 2 ** 53, -1, -(2 ** 31) - 1, 0.5, 1e308, -1e308, Number.MAX_VALUE, 8.64e15 + 1, -8.7e15,
+  null, true, [], {}, [[[[[[[[[[]]]]]]]]]], { __proto__: { admin: true } }, { constructor: "x" },
+];
+const evilValue = fc.oneof(
+  { weight: 4, arbitrary: fc.constantFrom(...EVIL) },
+  { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 3 }) },
+  { weight: 1, arbitrary: fc.string({ unit: "binary", maxLength: 40 }) },
+);
+
+/** A valid body for each JSON route, fresh ids each time, for `userId`. */
+function template(path: string, userId: string): Record<string, unknown> {
+  if (path === "/api/time") return { t1: Date.now() };
+  if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
+  const sessionId = uuidv7();
+  const runId = uuidv7();
+  const deviceId = `fuzz-${uuidv7()}`;
+  const offset = { thetaMs: 12, deltaMs: 30, measuredAtWallMs: 1_767_000_000_000 };
+  return {
+    deviceId,
+    account: userId,
+    sessions: [{ id: sessionId, ownerId: userId, fieldName: "Fuzz Field", conditions: { windMs: 3, notes: "calm" }, startedAtWallMs: 1_767_000_000_000 }],
+    runs: [{ id: runId, sessionId, task: getCatalogueTask("A"), lanes: [{ lane: 0, pilotName: "Fuzz", pilotUserId: userId }], createdAtWallMs: 1_767_000_000_000 }],
+    events: [
+      { id: uuidv7(), runId, deviceId, seq: 1, stamp: { wallMs: 1_767_000_001_000, monoMs: 5, pageId: "p1", offset }, body: { kind: "window-start" } },
+      { id: uuidv7(), runId, deviceId, seq: 2, stamp: { wallMs: 1_767_000_002_000, monoMs: 6, pageId: "p1", offset: null }, body: { kind: "penalty", lane: 0, points: 100, reason: "line" } },
+    ],
+    clockEstimates: [offset],
+  };
+}
+
+/** Every path to a value inside `v` (objects and arrays), the root included; `leaves` keeps only primitives. */
+function paths(v: unknown, leaves: boolean, at: (string | number)[] = []): (string | number)[][] {
+  const out: (string | number)[][] = [];
+  const container = v !== null && typeof v === "object";
+  if (!leaves || !container) out.push(at);
+  if (Array.isArray(v)) v.forEach((x, i) => out.push(...paths(x, leaves, [...at, i])));
+  else if (container) for (const [k, x] of Object.entries(v as object)) out.push(...paths(x, leaves, [...at, k]));
+  return out;
+}
+
+function replaced(v: unknown, at: (string | number)[], value: unknown): unknown {
+  if (at.length === 0) return value;
+  const [head, ...rest] = at;
+  const copy = (Array.isArray(v) ? [...v] : { ...(v as object) }) as Record<string | number, unknown>;
+  copy[head!] = replaced(copy[head!], rest, value);
+  return copy;
+}
+
+/** What goes in a body: a valid body with one value replaced, or raw junk of any size. */
+const bodyArb = fc.oneof(
+  { weight: 5, arbitrary: fc.record({ kind: fc.constant("mutate" as const), pick: fc.nat(), leaf: fc.integer({ min: 0, max: 4 }).map((n) => n > 0), value: evilValue, drop: fc.integer({ min: 0, max: 5 }).map((n) => n === 0) }) },
+  { weight: 2, arbitrary: fc.record({ kind: fc.constant("json" as const), value: fc.jsonValue() }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant("text" as const), value: fc.string({ unit: "binary", maxLength: 200 }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant("huge" as const), bytes: fc.constantFrom(70_000, 1_100_000), nul: fc.boolean() }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant("deep" as const), depth: fc.constantFrom(100, 10_000, 200_000) }) },
+);
+const contentTypeArb = fc.constantFrom("application/json", "application/json", "text/plain", "application/x-www-form-urlencoded", "multipart/form-data; boundary=x", null);
+
+type Body = typeof bodyArb extends fc.Arbitrary<infer T> ? T : never;
+
+function bodyText(b: Body, base: Record<string, unknown>): string {
+  switch (b.kind) {
+    case "mutate": {
+      const all = paths(base, b.leaf);
+      const at = all[b.pick % all.length]!;
+      const value = b.drop && at.length > 0 ? undefined : b.value;
+      return JSON.stringify(replaced(base, at, value)) ?? "null";
+    }
+    case "json":
+      return JSON.stringify(b.value);
+    case "text":
+      return b.value;
+    case "huge":
+      return JSON.stringify({ ...base, pad: (b.nul ? "\u0000" : "x").repeat(b.bytes) });
+    case "deep":
+      return "[".repeat(b.depth) + "]".repeat(b.depth);
+  }
+}
+
+const queryArb = fc.array(
+  fc.tuple(
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor"),
+    fc.oneof(fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()), fc.string({ maxLength: 30 })),
+  ),
+  { maxLength: 4 },
+);
+
+describe("fuzz: every route under app/api", () => {
+  let user: { id: string; email: string; name: string; role: "member" };
+  beforeAll(async () => {
+    const email = `fuzz-${uuidv7()}@example.com`;
+    const [row] = await db.insert(users).values({ email, name: "Fuzz Pilot" }).returning();
+    user = { id: row!.id, email, name: row!.name, role: "member" };
+  });
+
+  it("knows how to drive every route handler and method", async () => {
+    const found = await discoverRoutes();
+    expect(found.length).toBeGreaterThan(5);
+    for (const { path, handlers } of found) {
+      const known = ROUTES[path];
+      expect(known, `${path} is not covered by the fuzz test: add it to ROUTES`).toBeDefined();
+      for (const m of Object.keys(handlers)) expect(known?.[m as Method], `${m} ${path} is not covered by the fuzz test`).toBeDefined();
+    }
+  });
+
+  it("never answers 5xx, and a 4xx changes nothing", async () => {
+    const found = await discoverRoutes();
+    const runs = Number(process.env.FUZZ_RUNS ?? 60);
+    for (const { path, handlers } of found) {
+      for (const [method, handler] of Object.entries(handlers) as [Method, Handler][]) {
+        const input = ROUTES[path]?.[method];
+        if (!input || typeof input === "object") continue;
+        const signedInArb = fc.integer({ min: 0, max: 4 }).map((n) => n > 0);
+        const arb = input === "json" ? fc.tuple(bodyArb, contentTypeArb, signedInArb) : fc.tuple(queryArb, fc.constant(null), signedInArb);
+        await fc.assert(
+          fc.asyncProperty(arb, async ([shape, contentType, signedIn]) => {
+            actAs(signedIn ? user : null);
+            let request: Request;
+            let bytes = 0;
+            if (input === "json") {
+              const body = bodyText(shape as Body, template(path, user.id));
+              bytes = new TextEncoder().encode(body).length;
+              request = new Request(`http://test${path}`, { method, body, headers: contentType ? { "content-type": contentType } : {} });
+            } else {
+              const qs = new URLSearchParams(shape as [string, string][]).toString();
+              request = new Request(`http://test${path}${qs ? `?${qs}` : ""}`, { method });
+            }
+            const before = await countAll();
+            const res = await handler(request, { params: Promise.resolve({}) });
+            expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
+            if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
+            if (res.status >= 400) {
+              expect(await countAll(), `${method} ${path} answered ${res.status} but wrote`).toBe(before);
+              const reply = (await res.json()) as { error?: { code?: unknown; message?: unknown } };
+              expect(typeof reply.error?.message).toBe("string");
+            }
+          }),
+          { numRuns: input === "json" ? runs : Math.ceil(runs / 2), seed: Number(process.env.FUZZ_SEED ?? 909), endOnFailure: true },
+        );
+      }
+    }
+  });
+});
