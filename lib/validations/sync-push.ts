@@ -53,7 +53,8 @@ function readItems<T>(schema: z.ZodType<T>, kind: string, items: readonly unknow
     if (id === null) throw new UnnamedItemError(`${kind}s.${i}`);
     const issue = parsed.error.issues[0];
     const where = issue?.path.length ? `${issue.path.join(".")}: ` : "";
-    refused.push({ id, status: "rejected", reason: `Invalid ${kind}: ${where}${issue?.message ?? "does not match the protocol"}`.slice(0, 500) });
+    const reason = `Invalid ${kind}: ${where}${issue?.message ?? "does not match the protocol"}`.slice(0, 500);
+    refused.push({ id, status: "rejected", reason: textProblem(reason) ? `Invalid ${kind}.` : reason });
   });
   return ok;
 }
