@@ -1,9 +1,10 @@
 import "server-only";
-import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
+import { and, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { Ack } from "@/lib/validations/sync";
+import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { MAX_RUNS_PER_DAY } from "@/lib/validations/sync-push";
 import { fieldDays, fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { isDateMs, isUuid, type Tx } from "./sync-db";
@@ -119,11 +120,12 @@ const utcDay = (ms: number) => Math.floor(ms / DAY_MS);
 /** How many runs the pushing user already has on each UTC day the pushed runs fall on. */
 async function runsPerDay(ctx: PushContext, items: readonly RunEntity[]): Promise<Map<number, number>> {
   const days = items.map((r) => utcDay(r.createdAtWallMs));
-  const [from, to] = [Math.min(...days), Math.max(...days) + 1];
+  // the last day may end past what the schema lets a date be (EPOCH_MS_MAX): clamp
+  const [from, to] = [Math.min(...days) * DAY_MS, Math.min((Math.max(...days) + 1) * DAY_MS, EPOCH_MS_MAX)];
   const rows = await ctx.tx
     .select({ day: sql<number>`floor(extract(epoch from ${runs.createdAt}) / 86400)::int`, n: sql<number>`count(*)::int` })
     .from(runs)
-    .where(and(eq(runs.createdBy, ctx.userId), gte(runs.createdAt, new Date(from * DAY_MS)), lt(runs.createdAt, new Date(to * DAY_MS))))
+    .where(and(eq(runs.createdBy, ctx.userId), gte(runs.createdAt, new Date(from)), lte(runs.createdAt, new Date(to))))
     .groupBy(sql`1`);
   return new Map(rows.map((r) => [Number(r.day), Number(r.n)]));
 }

@@ -9,11 +9,12 @@ import { z } from "zod";
 export const INT4_MAX = 2_147_483_647;
 
 /**
- * Milliseconds since the Unix epoch that both a JS `Date` (±8.64e15) and a PostgreSQL
- * `timestamptz` (4713 BC – 294276 AD) can hold. Device clocks can be wildly wrong (a phone
- * reset to 1970), so anything from the epoch to the end of Date's range is accepted.
+ * Milliseconds since the Unix epoch that a JS `Date` and a PostgreSQL `timestamptz` both hold
+ * in the ISO form the driver sends (years 0000–9999: a Date past 9999 prints as "+010000-…",
+ * which PostgreSQL cannot parse). Device clocks can be wildly wrong (a phone reset to 1970), so
+ * anything from the epoch to the end of year 9999 is accepted.
  */
-export const EPOCH_MS_MAX = 8.64e15;
+export const EPOCH_MS_MAX = 253_402_300_799_999; // 9999-12-31T23:59:59.999Z
 
 /** A device's clock offset from the server: a phone reset to 1970 is still inside (≈ 56 years). */
 export const MAX_OFFSET_MS = 100 * 365.25 * 86_400_000;

@@ -70,7 +70,7 @@ beforeAll(async () => {
 
 const EVIL: unknown[] = [
   "\u0000", "a\u0000b", "\ud800", "x".repeat(5000), "", " ", "<script>", "../../etc", "💥".repeat(50),
-  2 ** 31, 2 ** 53, -1, -(2 ** 31) - 1, 0.5, 1e308, -1e308, Number.MAX_VALUE, 8.64e15 + 1, -8.7e15,
+  2 ** 31, 2 ** 53, -1, -(2 ** 31) - 1, 0.5, 1e308, -1e308, Number.MAX_VALUE, 253_402_300_799_999, 253_402_300_800_000, 8.64e15, -8.7e15,
   null, true, [], {}, [[[[[[[[[[]]]]]]]]]], { __proto__: { admin: true } }, { constructor: "x" },
 ];
 const evilValue = fc.oneof(

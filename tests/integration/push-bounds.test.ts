@@ -6,6 +6,7 @@ import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { POST as timeRoute } from "@/app/api/time/route";
 import { POST as signUpRoute } from "@/app/api/account/sign-up/route";
 import { GET as pullRoute } from "@/app/api/sync/pull/route";
+import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { actAs } from "./support/session";
 import { db, demoUser, getPool } from "./support/db";
 import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
@@ -69,7 +70,7 @@ describe("values the database cannot hold are refused, never a 500", () => {
     const phone = recorder(deviceId());
     const s = session(ada.id);
     const nulSession = session(ada.id, { fieldName: "Meadow\u0000" });
-    const farSession = session(ada.id, { startedAtWallMs: 9e15 });
+    const farSession = session(ada.id, { startedAtWallMs: EPOCH_MS_MAX + 1 });
     const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]);
     const good = phone.at(r.id, T0, { kind: "window-start" });
     const bigSeq = { ...phone.at(r.id, T0 + 1000, { kind: "launch", lane: 0 }), seq: 2 ** 31 };
@@ -83,6 +84,17 @@ describe("values the database cannot hold are refused, never a 500", () => {
     expect(byId.get(good.id)?.status).toBe("applied");
     for (const bad of [nulSession.id, farSession.id, bigSeq.id, nulPage.id]) expect(byId.get(bad)).toMatchObject({ status: "rejected", reason: expect.stringMatching(/^Invalid/) });
     expect(await db.select({ id: events.id }).from(events).where(eq(events.runId, r.id))).toEqual([{ id: good.id }]);
+  });
+
+  it("takes a run created at the last instant the schema allows (9999-12-31) without a 500", async () => {
+    const ada = await demoUser("ada@example.com");
+    actAs(ada);
+    const phone = recorder(deviceId());
+    const s = session(ada.id);
+    const last = { ...run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]), createdAtWallMs: EPOCH_MS_MAX };
+    const res = await push({ deviceId: phone.id, sessions: [s], runs: [last], events: [] });
+    expect(res.status).toBe(200);
+    expect(res.body.acks.find((a) => a.id === last.id)?.status).toBe("applied");
   });
 
   it("drops a clock estimate of 1.7e308 instead of storing Infinity; an event carrying it is refused alone", async () => {
