@@ -2,7 +2,7 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
-import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
+import { createContext, Fragment, useContext, useEffect, useState, useSyncExternalStore, type ReactNode } from "react";
 import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
 import { currentDeviceUser, giveOwnDatabase, switchDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
@@ -27,16 +27,21 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   // Bumped when another account signs in here: the pages below remount on its database.
   const [generation, setGeneration] = useState(0);
   const { data: session, status: authStatus } = useSession();
+  // Signed-out pages call no signed-in API: sync starts once the session is known to be signed
+  // in — or, offline (next-auth cannot ask the server, so it says "unauthenticated"), straight
+  // away, so a field page opened with no signal still syncs when the signal returns.
+  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  // once started it stays started: the signal returning must not stop a client started offline
+  const [started, setStarted] = useState(false);
+  if (!started && (authStatus === "authenticated" || (authStatus === "unauthenticated" && !online))) setStarted(true);
 
+  useEffect(() => client.subscribe(setStatus), [client]);
   useEffect(() => {
-    const unsubscribe = client.subscribe(setStatus);
+    if (!started) return;
     const stop = startSyncInBrowser(client);
     void requestPersistence();
-    return () => {
-      unsubscribe();
-      stop();
-    };
-  }, [client]);
+    return stop;
+  }, [client, started]);
 
   const user = session?.user;
   useEffect(() => {
@@ -69,6 +74,16 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       <Fragment key={generation}>{children}</Fragment>
     </SyncContext.Provider>
   );
+}
+
+/** Re-render on the browser's online/offline events. */
+function subscribeOnline(onChange: () => void): () => void {
+  window.addEventListener("online", onChange);
+  window.addEventListener("offline", onChange);
+  return () => {
+    window.removeEventListener("online", onChange);
+    window.removeEventListener("offline", onChange);
+  };
 }
 
 /**
