@@ -17,6 +17,12 @@ afterAll(async () => {
   await getPool().end();
 });
 
+async function freshUser(prefix: string) {
+  const email = `${prefix}-${Date.now()}-${Math.random().toString(36).slice(2)}@example.com`;
+  const [row] = await db.insert(users).values({ email, name: "Test Pilot" }).returning();
+  return { id: row!.id, email, name: row!.name, role: "member" as const };
+}
+
 const json = (url: string, body: string, headers: Record<string, string> = {}) =>
   new Request(url, { method: "POST", body, headers: { "content-type": "application/json", ...headers } });
 
@@ -155,7 +161,7 @@ describe("per-item verdicts", () => {
 
 describe("growth caps", () => {
   it("refuses events beyond 20,000 in one run, with the reason", async () => {
-    const ada = await demoUser("ada@example.com");
+    const ada = await freshUser("full"); // its own account: the 20,000 rows would slow every pull of a demo pilot
     actAs(ada);
     const phone = recorder(deviceId());
     const s = session(ada.id);
@@ -178,9 +184,8 @@ describe("growth caps", () => {
   });
 
   it("refuses runs beyond 200 on one day for one account", async () => {
-    const email = `busy-${Date.now()}@example.com`;
-    const [busy] = await db.insert(users).values({ email, name: "Busy Pilot" }).returning();
-    actAs({ id: busy!.id, email, name: "Busy Pilot", role: "member" });
+    const busy = await freshUser("busy");
+    actAs(busy);
     const phone = recorder(deviceId());
     const s = session(busy!.id);
     const day = Array.from({ length: 201 }, (_, i) => ({ ...run(s.id, [{ lane: 0, pilotName: "Busy" }]), createdAtWallMs: 1_767_000_000_000 + i * 1000 }));
