@@ -9,7 +9,8 @@ const reply = (status: number, code: string, message: string) => Response.json({
  * A guard in front of next-auth's own endpoints (app/api/auth/[...nextauth]): it answers the
  * requests next-auth would turn into a 500 with a 4xx instead — a GET to the credentials
  * callback ("not supported", 500), a body over 64 kB or a JSON body that does not parse (thrown
- * from its body reader) — and maps anything else it throws on odd input to a 400.
+ * from its body reader) — and maps anything else it throws, or answers with a 5xx, on odd input
+ * (a callbackUrl that is no URL) to a 400.
  */
 export function guardAuthHandler<C>(handler: Handler<C>): Handler<C> {
   return async (request, context) => {
@@ -26,11 +27,19 @@ export function guardAuthHandler<C>(handler: Handler<C>): Handler<C> {
         return reply(400, "bad_json", "The request body is not valid JSON.");
       }
     }
+    let response: Response;
     try {
-      return await handler(request, context);
+      response = await handler(request, context);
     } catch (e) {
       console.error("[auth] request refused", e);
       return reply(400, "bad_request", "This sign-in request could not be read.");
     }
+    // next-auth answers 500 only to what its own checks refuse in the request (a callbackUrl
+    // parameter or cookie that is no URL, a provider type that has no such callback)
+    if (response.status >= 500) {
+      console.error("[auth] next-auth refused a request with", response.status);
+      return reply(400, "bad_request", "This sign-in request could not be read.");
+    }
+    return response;
   };
 }

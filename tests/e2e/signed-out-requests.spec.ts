@@ -32,6 +32,7 @@ test("next-auth's endpoints answer odd requests with a 4xx, never a 5xx", async 
     request.post("/api/auth/callback/credentials", { headers: { "content-type": "application/x-www-form-urlencoded" }, data: `email=${"a".repeat(70_000)}` }),
     request.get("/api/auth/signin?callbackUrl=http%3A%2F%2F%5B"),
     request.get("/api/auth/session", { headers: { cookie: "next-auth.session-token=%%%garbage" } }),
+    request.get("/api/auth/csrf", { headers: { cookie: "next-auth.callback-url=http%3A%2F%2F%5B" } }),
   ];
   for (const res of await Promise.all(odd)) expect(res.status(), `${res.url()} answered ${res.status()}`).toBeLessThan(500);
 });
