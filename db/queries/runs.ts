@@ -42,7 +42,14 @@ export async function listDeviceEstimates(tx: Tx, deviceIds: readonly string[]):
 }
 
 /**
- * Re-derive the official results of these runs from their stored events (lib/sync/derive.ts)
+ * Timekeepers a contest assigned to a run: the only official recorders (lib/sync/sources.ts).
+ * Contests do not assign timekeepers yet (db/schema/contests.ts), so no record is official;
+ * the contest work replaces this with a lookup per run.
+ */
+const NO_OFFICIALS: ReadonlySet<string> = new Set();
+
+/**
+ * Re-derive the results of these runs from their stored events (lib/sync/derive.ts)
  * and store them in run_lanes (result, derived flights/breakdown/versions, review flag). Each
  * run gets a new server_seq so devices pull the new results. Takes the sync lock.
  */
@@ -51,7 +58,7 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
   if (ids.length === 0) return;
   await lockSync(tx);
   // one connection: queries in a transaction run one after another
-  const runRows = await tx.select({ id: runs.id, task: runs.task }).from(runs).where(inArray(runs.id, ids));
+  const runRows = await tx.select({ id: runs.id, task: runs.task, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, ids));
   const laneRows = await tx
     .select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId })
     .from(runLanes)
@@ -63,7 +70,9 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
     const lanes = laneRows.filter((l) => l.runId === run.id).sort((a, b) => a.lane - b.lane);
     const derived = deriveRun({
       task: parseTaskDefinition(run.task),
+      createdBy: run.createdBy,
       lanes,
+      officials: NO_OFFICIALS,
       events: eventRows.filter((e) => e.runId === run.id).map(toDerivationEvent),
       estimatesByDevice: estimates,
     });

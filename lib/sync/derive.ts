@@ -2,10 +2,10 @@ import { correctTime } from "@/lib/clock";
 import { foldRun, pointsLost, type LaneScore, type TimelineEvent } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import { describeReview, uncertainBoundaries, type TimedSignal } from "./review";
-import { laneRulings, laneSources, signalSources } from "./sources";
+import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
 import type { DerivationEvent, DerivationInput, LaneDerivation, LaneVersion, Source } from "./types";
 
-export type { DerivationEvent, DerivationInput, LaneDerivation, LaneDerived, LaneVersion, ReviewItem } from "./types";
+export type { DerivationEvent, DerivationInput, LaneDerivation, LaneDerived, LaneVersion, ReviewItem, RulingNote } from "./types";
 
 const finite = (n: number): number | null => (Number.isFinite(n) ? n : null);
 
@@ -25,26 +25,29 @@ function timelineMapper(input: DerivationInput): (e: DerivationEvent) => Timelin
 }
 
 /**
- * The official result of every lane of a run from all its stored events (SYNC.md §1, §3, §4):
- * events go on the server timeline by their corrected times; the conflict rules
- * (lib/sync/sources.ts) pick one device's record for the run's signals and one per lane; the
- * task engine folds them; every other device's record is scored the same way and kept as a
- * version. A launch or landing judged against a signal given on another device that the
- * clocks cannot place (judgeBoundary → "uncertain") marks the lane for review. Pure.
+ * The result of every lane of a run from all its stored events (SYNC.md §1, §3, §4): events go
+ * on the server timeline by their corrected times; the conflict rules (lib/sync/sources.ts)
+ * pick one device's record for the run's signals and one per lane; the task engine folds them
+ * with the rulings that count; every other device's record is scored the same way and kept as
+ * a version, and rulings that do not count are kept as notes. Whether the result counts in a
+ * pilot's own record is a separate question (lib/sync/consent.ts). A launch or landing judged
+ * against a signal given on another device that the clocks cannot place (judgeBoundary →
+ * "uncertain") marks the lane for review. Pure.
  */
 export function deriveRun(input: DerivationInput): LaneDerivation[] {
   const toTimeline = timelineMapper(input);
-  const pilotIds = new Set(input.lanes.flatMap((l) => (l.pilotUserId ? [l.pilotUserId] : [])));
+  const roles = { officials: input.officials, createdBy: input.createdBy };
   const laneCount = Math.max(1, ...input.lanes.map((l) => l.lane + 1));
-  const signalSource = signalSources(input.events, pilotIds, toTimeline)[0] ?? null;
+  const signalSource = signalSources(input.events, roles, toTimeline)[0] ?? null;
   const signalEvents = signalSource?.events ?? [];
   const signals = effectiveSignals(signalEvents, toTimeline);
   const ended = applyUndoAndCorrections(signalEvents.map(toTimeline)).some((e) => e.body.kind === "run-end");
 
   return input.lanes.map(({ lane, pilotUserId }): LaneDerivation => {
-    const candidates = laneSources(input.events, lane, pilotUserId, toTimeline);
+    const candidates = laneSources(input.events, lane, pilotUserId, roles, toTimeline);
     const chosen = candidates[0] ?? null;
-    const rulings = laneRulings(input.events, lane, pilotUserId, new Set(candidates.map((c) => c.deviceId)));
+    const rulings = laneRulings(input.events, lane, input.officials, new Set(candidates.map((c) => c.deviceId)));
+    const notes = rulingNotes(input.events, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
     const score = (source: Source | null, lane: number): LaneScore =>
       foldRun(input.task, [...signalEvents, ...rulings, ...(source?.events ?? [])].map(toTimeline), { laneCount }).lanes[lane]!;
     const laneScore = score(chosen, lane);
@@ -88,6 +91,7 @@ export function deriveRun(input: DerivationInput): LaneDerivation[] {
         breakdown: chosen ? pointsLost(input.task, laneScore) : null,
         versions,
         review,
+        notes,
         ended,
       },
     };

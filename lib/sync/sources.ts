@@ -1,18 +1,22 @@
 import type { EventKind } from "@/lib/events/schema";
 import type { TimelineEvent } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
-import type { DerivationEvent, Source } from "./types";
+import type { DerivationEvent, RulingNote, Source } from "./types";
 
 /**
  * The conflict rules of SYNC.md §3. When several devices recorded the same lane (or gave the
  * run's signals), one device's record is used whole and the others stay as versions:
- *   1. an official timekeeper (a recorder who is not that lane's pilot) over self-timing,
- *   2. then the earlier corrected time of the record's first event,
- *   3. then the device id, as the last tie-break.
+ *   1. an official record: one made by a timekeeper a contest assigned to the run. Nobody else
+ *      is official — a partner or a club mate holding the watch is a recorder like any other;
+ *   2. then the lane pilot's own record (for the run's signals: the run creator's, who set the
+ *      window up): a club mate's record never displaces what the pilot timed themselves;
+ *   3. then the earlier corrected time of the record's first event;
+ *   4. then the device id, as the last tie-break.
  * Records are never merged tap by tap: pairing one phone's launch with another's landing
- * would produce flights nobody timed. Penalties and invalid marks are rulings, not timing: the
- * chosen record's own, plus those an official gave from a phone that timed none of the lane
- * (laneRulings).
+ * would produce flights nobody timed. Penalties and invalid marks are rulings, not timing, and
+ * only an official or the pilot themselves can make one: an official's from any phone
+ * (laneRulings), the pilot's own in the record they timed. A ruling anyone else recorded is
+ * kept as a note (rulingNotes) and never changes the result.
  */
 
 /** What makes a lane's timing record. */
@@ -24,6 +28,7 @@ const SIGNAL_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "run-end"]
 /** Orders candidate sources by the conflict rules (best first). */
 export function compareSources(a: Source, b: Source): number {
   if (a.official !== b.official) return a.official ? -1 : 1;
+  if (a.own !== b.own) return a.own ? -1 : 1;
   if (a.firstAtMs !== b.firstAtMs) return a.firstAtMs - b.firstAtMs;
   return a.deviceId < b.deviceId ? -1 : a.deviceId > b.deviceId ? 1 : 0;
 }
@@ -60,11 +65,14 @@ function byDevice(events: readonly DerivationEvent[], keep: (e: DerivationEvent)
 
 type ToTimeline = (e: DerivationEvent) => TimelineEvent;
 
+/** Who counts as what for one run: the contest's assigned timekeepers and the run's creator. */
+export type RunRoles = { officials: ReadonlySet<string>; createdBy: string };
+
 /**
  * Candidates for the run's signals (window start, run end), best first: devices whose
- * window-start survives their undos. Official = recorded by someone flying no lane of the run.
+ * window-start survives their undos. Official = an assigned timekeeper; own = the run's creator.
  */
-export function signalSources(events: readonly DerivationEvent[], pilotIds: ReadonlySet<string>, toTimeline: ToTimeline): Source[] {
+export function signalSources(events: readonly DerivationEvent[], roles: RunRoles, toTimeline: ToTimeline): Source[] {
   const out: Source[] = [];
   for (const [deviceId, base] of byDevice(events, (e) => SIGNAL_KINDS.has(e.body.kind))) {
     const amended = withAmendments(base, events);
@@ -72,20 +80,24 @@ export function signalSources(events: readonly DerivationEvent[], pilotIds: Read
     const first = starts[0];
     if (!first) continue;
     const recordedBy = base[0]!.recordedBy;
-    out.push({ deviceId, recordedBy, official: !pilotIds.has(recordedBy), firstAtMs: first.atMs, events: amended });
+    out.push({
+      deviceId, recordedBy, official: roles.officials.has(recordedBy), own: recordedBy === roles.createdBy, firstAtMs: first.atMs, events: amended,
+    });
   }
   return out.sort(compareSources);
 }
 
 /**
  * Candidates for one lane, best first: devices with at least one lane event that survives
- * their undos. Official = recorded by someone other than the lane's pilot (every recorder of
- * a guest's lane is official).
+ * their undos. Official = an assigned timekeeper; own = the lane's pilot (a guest's lane has no
+ * own record). A record carries its device's rulings on the lane only when it is official or
+ * the pilot's own: a partner's penalty is a note, not part of what they timed.
  */
 export function laneSources(
   events: readonly DerivationEvent[],
   lane: number,
   pilotUserId: string | null,
+  roles: RunRoles,
   toTimeline: ToTimeline,
 ): Source[] {
   const out: Source[] = [];
@@ -95,13 +107,10 @@ export function laneSources(
     const effective = applyUndoAndCorrections(amended.map(toTimeline));
     if (effective.length === 0) continue;
     const recordedBy = base[0]!.recordedBy;
-    out.push({
-      deviceId,
-      recordedBy,
-      official: pilotUserId === null || recordedBy !== pilotUserId,
-      firstAtMs: Math.min(...effective.map((e) => e.atMs)),
-      events: [...amended, ...withAmendments(rulingsOn(events, lane, (e) => e.deviceId === deviceId), events)],
-    });
+    const official = roles.officials.has(recordedBy);
+    const own = pilotUserId !== null && recordedBy === pilotUserId;
+    const rulings = official || own ? withAmendments(rulingsOn(events, lane, (e) => e.deviceId === deviceId && e.recordedBy === recordedBy), events) : [];
+    out.push({ deviceId, recordedBy, official, own, firstAtMs: Math.min(...effective.map((e) => e.atMs)), events: [...amended, ...rulings] });
   }
   return out.sort(compareSources);
 }
@@ -111,18 +120,44 @@ function rulingsOn(events: readonly DerivationEvent[], lane: number, keep: (e: D
 }
 
 /**
- * Penalties and invalid marks for a lane given by an official (anyone but the lane's pilot)
- * from a phone that timed none of the lane — a field director's phone — with their undos.
- * They apply to whichever timing record is chosen (an invalid mark names the flight by its
- * number in the lane); a phone that also timed the lane keeps its rulings in its own record,
- * so one ruling is never counted twice.
+ * Penalties and invalid marks for a lane given by an official (an assigned timekeeper) from a
+ * phone that timed none of the lane — a field director's phone — with their undos. They apply
+ * to whichever timing record is chosen (an invalid mark names the flight by its number in the
+ * lane); a phone that also timed the lane keeps its rulings in its own record, so one ruling is
+ * never counted twice.
  */
 export function laneRulings(
   events: readonly DerivationEvent[],
   lane: number,
-  pilotUserId: string | null,
+  officials: ReadonlySet<string>,
   timingDevices: ReadonlySet<string>,
 ): DerivationEvent[] {
-  const rulings = rulingsOn(events, lane, (e) => !timingDevices.has(e.deviceId) && (pilotUserId === null || e.recordedBy !== pilotUserId));
+  const rulings = rulingsOn(events, lane, (e) => !timingDevices.has(e.deviceId) && officials.has(e.recordedBy));
   return withAmendments(rulings, events);
+}
+
+/**
+ * The lane's rulings that stand (not undone) but do not count: every one not among `applied`
+ * (the events the chosen record and the officials' rulings contributed). Kept as notes so the
+ * pilot sees a partner's penalty before accepting the run, and the partner sees it was not applied.
+ */
+export function rulingNotes(
+  events: readonly DerivationEvent[],
+  lane: number,
+  applied: ReadonlySet<string>,
+  toTimeline: ToTimeline,
+): RulingNote[] {
+  const byId = new Map(events.map((e) => [e.id, e]));
+  const standing = applyUndoAndCorrections(withAmendments(rulingsOn(events, lane, () => true), events).map(toTimeline));
+  const out: RulingNote[] = [];
+  for (const t of standing) {
+    const e = byId.get(t.id);
+    if (!e || applied.has(e.id)) continue;
+    if (e.body.kind === "penalty") {
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, reason: e.body.reason });
+    } else if (e.body.kind === "invalid") {
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "invalid", points: null, flightIndex: e.body.flightIndex, reason: e.body.reason });
+    }
+  }
+  return out;
 }

@@ -24,7 +24,14 @@ export type DerivationEvent = {
 
 export type DerivationInput = {
   task: TaskDefinition;
+  /** Who created the run (its timekeeper at the field): their signals go before a lane pilot's own. */
+  createdBy: string;
   lanes: readonly { lane: number; pilotUserId: string | null }[];
+  /**
+   * Users a contest assigned to time this run: only their records are official. Empty until
+   * contests assign timekeepers (db/schema/contests.ts has no such assignment yet).
+   */
+  officials: ReadonlySet<string>;
   events: readonly DerivationEvent[];
   /** Each device's clock estimates, to put a `correct` event's wall time on the server timeline. */
   estimatesByDevice: ReadonlyMap<string, readonly ClockEstimate[]>;
@@ -34,8 +41,10 @@ export type DerivationInput = {
 export type Source = {
   deviceId: string;
   recordedBy: string;
-  /** Recorded by someone who is not the lane's pilot (for signals: not a pilot of any lane). */
+  /** Recorded by a timekeeper a contest assigned to the run (DerivationInput.officials). */
   official: boolean;
+  /** Recorded by the lane's own pilot (for signals: by the run's creator). */
+  own: boolean;
   /** Corrected time of its first event in question. */
   firstAtMs: number;
   /** The events it contributes, with the voids and corrections that name them. */
@@ -68,6 +77,21 @@ export type LaneVersion = {
   flights: { launchAtMs: number; landAtMs: number | null }[];
 };
 
+/**
+ * A penalty or invalid mark that does not count: given by someone who is neither an official
+ * nor the lane's pilot (a partner at practice), or by the pilot from a phone that did not time
+ * the lane. Shown beside the result so the pilot sees it before accepting the run.
+ */
+export type RulingNote = {
+  eventId: string;
+  deviceId: string;
+  recordedBy: string;
+  kind: "penalty" | "invalid";
+  points: number | null;
+  flightIndex: number | null;
+  reason: string;
+};
+
 /** A launch or landing the clocks cannot place on one side of a boundary. */
 export type ReviewItem = { eventId: string; boundary: string; atMs: number; boundaryMs: number; marginMs: number | null };
 
@@ -79,6 +103,8 @@ export type LaneDerived = {
   breakdown: PointsLost | null;
   versions: LaneVersion[];
   review: ReviewItem[];
+  /** Rulings recorded for the lane that do not count (absent in results derived before notes existed). */
+  notes?: RulingNote[];
   ended: boolean;
 };
 

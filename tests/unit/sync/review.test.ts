@@ -14,7 +14,7 @@ function signalElsewhere(launchMs: number, boundMs: { keeper: number; pilot: num
   keeper.at(0, { kind: "window-start" });
   pilot.at(launchMs, { kind: "launch", lane: 0 });
   pilot.at(launchMs + 60_000, { kind: "landing", lane: 0 });
-  return deriveRun({ task, lanes, events: [...keeper.events, ...pilot.events], estimatesByDevice: estimatesOf(keeper, pilot) })[0]!;
+  return deriveRun({ createdBy: "keeper-user", officials: new Set(), task, lanes, events: [...keeper.events, ...pilot.events], estimatesByDevice: estimatesOf(keeper, pilot) })[0]!;
 }
 
 describe("launches judged against a signal given on another device (SYNC.md §4)", () => {
@@ -49,7 +49,7 @@ describe("launches judged against a signal given on another device (SYNC.md §4)
     phone.at(0, { kind: "window-start" });
     phone.at(10, { kind: "launch", lane: 0 });
     phone.at(60_010, { kind: "landing", lane: 0 });
-    const [lane] = deriveRun({ task: H, lanes, events: phone.events, estimatesByDevice: estimatesOf(phone) });
+    const [lane] = deriveRun({ createdBy: "keeper-user", officials: new Set(), task: H, lanes, events: phone.events, estimatesByDevice: estimatesOf(phone) });
     expect(lane!.needsReview).toBe(false);
   });
 
@@ -65,7 +65,7 @@ describe("launches judged against a signal given on another device (SYNC.md §4)
     keeper.at(0, { kind: "window-start" });
     pilot.at(500_000, { kind: "launch", lane: 0 });
     pilot.at(630_010, { kind: "landing", lane: 0 }); // 10 min working time + 30 s landing window, 10 ms late
-    const [lane] = deriveRun({ task: H, lanes, events: [...keeper.events, ...pilot.events], estimatesByDevice: estimatesOf(keeper, pilot) });
+    const [lane] = deriveRun({ createdBy: "keeper-user", officials: new Set(), task: H, lanes, events: [...keeper.events, ...pilot.events], estimatesByDevice: estimatesOf(keeper, pilot) });
     expect(lane!.derived.review.map((r) => r.boundary)).toEqual(["end of the landing window"]);
   });
 });
