@@ -12,3 +12,6 @@ export const ackStatusEnum = pgEnum("ack_status", ["applied", "duplicate", "reje
 export const contestStatusEnum = pgEnum("contest_status", ["draft", "open", "running", "finished"]);
 
 export const paymentStatusEnum = pgEnum("payment_status", ["pending", "paid", "failed", "refunded"]);
+
+/** A pilot's decision on a lane someone else recorded for them (lib/sync/consent.ts); no row = pending. */
+export const laneConsentStatusEnum = pgEnum("lane_consent_status", ["accepted", "disputed", "hidden"]);

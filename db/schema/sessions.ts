@@ -1,9 +1,10 @@
 import { sql } from "drizzle-orm";
 import {
-  bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, smallint, text, timestamp, unique, uuid,
+  bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, smallint, text, timestamp, unique, uuid,
 } from "drizzle-orm/pg-core";
 import { clubs } from "./clubs";
 import { fieldDays } from "./contests";
+import { laneConsentStatusEnum } from "./enums";
 import { guestPilots, users } from "./users";
 
 const nextSeq = sql`nextval('sync_seq')`;
@@ -61,4 +62,23 @@ export const runLanes = pgTable(
     reviewReason: text("review_reason"),
   },
   (t) => [unique("run_lanes_run_lane_uq").on(t.runId, t.lane), index("run_lanes_pilot_user_id_idx").on(t.pilotUserId)],
+);
+
+/**
+ * A pilot's decision on a lane someone else recorded for them (lib/sync/consent.ts): accepted
+ * (counts in their record), disputed (with a reason the recorder sees) or hidden (left out of
+ * their lists). No row means pending. Deciding again replaces the row; the run and its events
+ * stay whatever the pilot decides.
+ */
+export const laneConsents = pgTable(
+  "lane_consents",
+  {
+    runId: uuid("run_id").notNull().references(() => runs.id, { onDelete: "cascade" }),
+    lane: smallint("lane").notNull(),
+    pilotUserId: uuid("pilot_user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    status: laneConsentStatusEnum("status").notNull(),
+    reason: text("reason"),
+    decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.lane] }), index("lane_consents_pilot_user_id_idx").on(t.pilotUserId)],
 );
