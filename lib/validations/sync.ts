@@ -2,6 +2,7 @@ import { z } from "zod";
 import { clockEstimateSchema, runEventSchema } from "@/lib/events/schema";
 import { runEntitySchema, sessionEntitySchema } from "@/lib/offline/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
+import { laneConsentSchema, recorderSchema } from "./consent";
 
 export { clockEstimateSchema };
 
@@ -66,14 +67,23 @@ const seq = z.number().int().positive();
 /** One device's account of a lane, as the server derived it (every version is kept; SYNC.md §3). */
 export const laneVersionSchema = z.object({
   deviceId: z.string(),
-  /** Recorded by someone other than the lane's pilot (an official timekeeper). */
+  /** Recorded by a timekeeper a contest assigned to the run (lib/sync/sources.ts). */
   official: z.boolean(),
   /** The version the official result uses. */
   chosen: z.boolean(),
   resultTenths: z.number().int(),
 });
 
-/** The server's official result for one lane of a run (derived from every device's events). */
+/** A penalty or invalid mark recorded for the lane that does not count (lib/sync/types.ts RulingNote). */
+export const rulingNoteSchema = z.object({
+  kind: z.enum(["penalty", "invalid"]),
+  recordedBy: z.string().max(64),
+  points: z.number().int().nullable(),
+  flightIndex: z.number().int().nullable(),
+  reason: z.string().max(200),
+});
+
+/** The server's result for one lane of a run (derived from every device's events). */
 export const laneResultSchema = z.object({
   lane: z.number().int().min(0).max(3),
   resultTenths: z.number().int().nullable(),
@@ -82,6 +92,8 @@ export const laneResultSchema = z.object({
   needsReview: z.boolean(),
   reviewReason: z.string().nullable(),
   versions: z.array(laneVersionSchema),
+  /** Rulings that do not count: a non-official's penalties and invalid marks. */
+  notes: z.array(rulingNoteSchema).optional(),
 });
 export type LaneResult = z.infer<typeof laneResultSchema>;
 
@@ -97,6 +109,10 @@ export const pullItemSchema = z.discriminatedUnion("type", [
     session: sessionEntitySchema.optional(),
     /** The server's derived results per lane (absent before the first derivation). */
     results: z.array(laneResultSchema).optional(),
+    /** Who created the run, so a pilot it was recorded for sees "recorded by …". */
+    recordedBy: recorderSchema.optional(),
+    /** Each named pilot's lane: counted as their own, pending their decision, or decided. */
+    consents: z.array(laneConsentSchema).optional(),
   }),
 ]);
 export type PullItem = z.infer<typeof pullItemSchema>;

@@ -157,7 +157,12 @@ describe("POST /api/sync/push — items", () => {
       ({ nextCursor: cursor, hasMore } = page.body);
     }
     expect(found?.session?.id).toBe(s.id); // Ines's session comes with the run
-    expect(found?.results?.[0]?.resultTenths).toBe(500); // the timekeeper's record is official
+    // Ines holds no contest assignment, so neither record is official: the pilot's own goes first
+    expect(found?.results?.[0]?.resultTenths).toBe(520);
+    expect(found?.results?.[0]?.versions).toEqual([
+      expect.objectContaining({ official: false, chosen: true, resultTenths: 520 }),
+      expect.objectContaining({ official: false, chosen: false, resultTenths: 500 }),
+    ]);
     expect(found?.results?.[0]?.versions).toHaveLength(2);
   });
 });

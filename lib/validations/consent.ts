@@ -1,0 +1,42 @@
+import { z } from "zod";
+import { CONSENT_REASON_MAX } from "@/lib/sync/consent";
+
+/**
+ * Runs recorded for someone else (lib/sync/consent.ts): the pilot's decision on one lane, and
+ * each lane's standing as the pull carries it to the phones.
+ */
+
+// POST /api/runs/[runId]/lanes/[lane]/consent — path
+export const laneConsentParamsSchema = z.object({
+  runId: z.uuid(),
+  lane: z.coerce.number().int().min(0).max(3),
+});
+
+// POST /api/runs/[runId]/lanes/[lane]/consent — body
+export const laneConsentRequestSchema = z
+  .object({
+    decision: z.enum(["accepted", "disputed", "hidden"]),
+    /** Why the pilot disputes it, for the recorder (required for a dispute, ignored otherwise). */
+    reason: z
+      .string()
+      .trim()
+      .max(CONSENT_REASON_MAX, `at most ${CONSENT_REASON_MAX} characters`)
+      .refine((s) => !s.includes("\u0000"), "must not contain NUL characters")
+      .optional(),
+  })
+  .refine((b) => b.decision !== "disputed" || (b.reason !== undefined && b.reason.length > 0), {
+    message: "Say briefly what is wrong with the record, for the person who recorded it.",
+    path: ["reason"],
+  });
+export type LaneConsentRequest = z.infer<typeof laneConsentRequestSchema>;
+
+/** One lane's standing in its pilot's record, as the pull and the consent route answer it. */
+export const laneConsentSchema = z.object({
+  lane: z.number().int().min(0).max(3),
+  status: z.enum(["own", "pending", "accepted", "disputed", "hidden"]),
+  reason: z.string().max(CONSENT_REASON_MAX).nullable(),
+});
+export type LaneConsent = z.infer<typeof laneConsentSchema>;
+
+/** Who created a run (its recorder), by name, so a pilot's logbook can say "recorded by …". */
+export const recorderSchema = z.object({ id: z.string().max(64), name: z.string().max(200) });
