@@ -2,12 +2,16 @@ import Dexie, { type EntityTable, type Table } from "dexie";
 import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PracticePlan } from "@/lib/field/practice-plan";
+import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult } from "@/lib/validations/sync";
 import { BASE_DB_NAME, currentDbName } from "./device-user";
 import type { RunEntity, SessionEntity } from "./entities";
 
-/** A run as kept on the device: the entity plus, once pulled, the server's derived results. */
-export type StoredRun = RunEntity & { results?: LaneResult[] };
+/**
+ * A run as kept on the device: the entity plus, once pulled, the server's derived results, who
+ * recorded it and each named pilot's consent (lib/sync/consent.ts).
+ */
+export type StoredRun = RunEntity & { results?: LaneResult[]; recordedBy?: { id: string; name: string }; consents?: LaneConsent[] };
 
 /**
  * The device's IndexedDB database (SYNC.md §2), one per account signed in here; browser only.

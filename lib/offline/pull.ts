@@ -44,7 +44,11 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       else {
         // a run in someone else's session comes with that session; results are the server's
         if (item.session) sessions.push(item.session);
-        runs.push(item.results ? { ...item.data, results: item.results } : item.data);
+        const run: StoredRun = { ...item.data };
+        if (item.results) run.results = item.results;
+        if (item.recordedBy) run.recordedBy = item.recordedBy;
+        if (item.consents) run.consents = item.consents;
+        runs.push(run);
       }
     }
     await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta], async () => {

@@ -5,18 +5,27 @@ import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
+import { consentFor, listedInLogbook } from "@/lib/offline/consent";
 import { getMeta, getWindowcallDb, type StoredRun } from "@/lib/offline/db";
 import type { SessionEntity } from "@/lib/offline/entities";
+import { ConsentBar, RecordedFor } from "./consent-bar";
 import { scoreStoredRun, taskTitle } from "./run-results";
 
-/** Every session on this phone, newest first, with its runs and results (read from IndexedDB only). */
+/**
+ * Every session on this phone, newest first, with its runs and results (read from IndexedDB
+ * only). A run someone else recorded for the pilot says so, with accept / dispute / hide; hidden
+ * ones are left out, and so is a session whose every run is hidden.
+ */
 export function LogbookList() {
   const data = useLiveQuery(async () => {
     const db = getWindowcallDb();
-    const sessions = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
-    const runs = await db.runs.where("sessionId").anyOf(sessions.map((s) => s.id)).toArray();
+    const me = (await getMeta(db, "profile"))?.id ?? null;
+    const stored = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
+    const all = await db.runs.where("sessionId").anyOf(stored.map((s) => s.id)).toArray();
+    const runs = all.filter((r) => listedInLogbook(r, me));
+    const sessions = stored.filter((s) => runs.some((r) => r.sessionId === s.id) || !all.some((r) => r.sessionId === s.id));
     const events = await db.events.where("runId").anyOf(runs.map((r) => r.id)).toArray();
-    return { sessions, runs, events, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
+    return { sessions, runs, events, me, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
   }, []);
 
   if (!data) return <p aria-busy="true">Reading this phone’s logbook…</p>;
@@ -48,7 +57,7 @@ export function LogbookList() {
   );
 }
 
-type Data = { events: RunEvent[]; deviceId: string | null; estimate: ClockEstimate | null };
+type Data = { events: RunEvent[]; me: string | null; deviceId: string | null; estimate: ClockEstimate | null };
 
 function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
   if (runs.length === 0) return <p className="text-sm text-muted">No runs in this session.</p>;
@@ -56,10 +65,14 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
     <ul className="divide-y-2 divide-line border-t-2 border-line" aria-label="Runs">
       {runs.map((r) => {
         const scored = scoreStoredRun(r, data.events.filter((e) => e.runId === r.id), data.deviceId, data.estimate);
+        const title = scored.task ? taskTitle(scored.task) : "Unreadable task";
+        const consent = consentFor(r, data.me);
+        const recorder = r.recordedBy?.name ?? "someone else";
+        const pilotName = (lane: number) => r.lanes.find((l) => l.lane === lane)?.pilotName ?? `Lane ${lane + 1}`;
         return (
-          <li key={r.id}>
+          <li key={r.id} className="space-y-2 pb-2">
             <a href={`/logbook/run?id=${r.id}`} className="flex min-h-touch items-center justify-between gap-3 py-2">
-              <span className="font-semibold">{scored.task ? taskTitle(scored.task) : "Unreadable task"}</span>
+              <span className="font-semibold">{title}</span>
               <span className="figures text-right text-sm">
                 {r.lanes.map((l) => (
                   <span key={l.lane} className="block whitespace-nowrap">
@@ -70,6 +83,8 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
               </span>
               <span aria-hidden="true">›</span>
             </a>
+            {consent ? <ConsentBar runId={r.id} consent={consent} recorder={recorder} label={`${title}, recorded by ${recorder}`} /> : null}
+            {r.recordedBy?.id === data.me && r.consents ? <RecordedFor consents={r.consents} pilotName={pilotName} /> : null}
           </li>
         );
       })}

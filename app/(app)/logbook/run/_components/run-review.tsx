@@ -5,6 +5,8 @@ import { Breakdown, CorrectionsList, FlightsTable, TimelineStrip } from "@/compo
 import { describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
+import { consentFor } from "@/lib/offline/consent";
+import { ConsentBar, RecordedFor } from "../../_components/consent-bar";
 import { scoreStoredRun, taskTitle } from "../../_components/run-results";
 import { useLogbookRun } from "./use-logbook-run";
 import { Versions } from "./versions";
@@ -28,6 +30,10 @@ export function RunReview() {
   if (!scored.task) return <p role="alert">{scored.error}</p>;
   const { task, folded } = scored;
   const names = data.profile ? { [data.profile.id]: data.profile.name } : {};
+  const me = data.profile?.id ?? null;
+  const consent = consentFor(run, me);
+  const recorder = run.recordedBy?.name ?? "someone else";
+  const pilotName = (lane: number) => run.lanes.find((l) => l.lane === lane)?.pilotName ?? `Lane ${lane + 1}`;
   return (
     <div className="space-y-6">
       <header className="space-y-1">
@@ -37,6 +43,8 @@ export function RunReview() {
         {session ? <p className="text-sm">{formatDate(new Date(session.startedAtWallMs))} · {session.fieldName}</p> : null}
         {folded.windowStartMs === null ? <p className="font-semibold text-warn">The working time was never started, so no flight scores.</p> : null}
       </header>
+      {consent ? <ConsentBar runId={run.id} consent={consent} recorder={recorder} label={`Recorded by ${recorder}`} /> : null}
+      {run.recordedBy?.id === me && run.consents ? <RecordedFor consents={run.consents} pilotName={pilotName} /> : null}
       {run.lanes.map((l) => {
         const lane = folded.lanes[l.lane];
         if (!lane) return null;
@@ -57,8 +65,8 @@ export function RunReview() {
         );
       })}
       <section aria-labelledby="versions-h" className="space-y-2">
-        <h2 id="versions-h" className="text-lg font-bold">Official result and other phones</h2>
-        <Versions run={run} deviceId={data.deviceId} />
+        <h2 id="versions-h" className="text-lg font-bold">Server result and each phone’s version</h2>
+        <Versions run={run} deviceId={data.deviceId} recorder={run.recordedBy ?? null} />
       </section>
       <section aria-labelledby="corrections-h" className="space-y-2">
         <h2 id="corrections-h" className="text-lg font-bold">Corrections</h2>
