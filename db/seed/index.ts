@@ -4,6 +4,7 @@ import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
+import { seedRecordedFor } from "./recorded-for";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
 import { v7 as uuidv7 } from "uuid";
 
@@ -65,6 +66,13 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
         }
       }
     }
+    const person = (key: string) => {
+      const p = DEMO_PEOPLE.find((x) => x.key === key)!;
+      return { id: ids.get(key)!, name: p.name, skill: p.skill ?? 0.5 };
+    };
+    await seedRecordedFor(tx, {
+      clubId: club!.id, field: DEMO_CLUB.homeField, startedAt: SEASON_START + 37 * WEEK + 7 * 3600_000, keeper: person("tobi"), pilot: person("ada"),
+    });
     // results are derived from the events, as a push would (SYNC.md §1)
     await deriveAllRuns(tx);
   });
