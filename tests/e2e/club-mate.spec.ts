@@ -6,7 +6,8 @@ import { workerReady } from "./support/field";
 /**
  * A timekeeper times a club mate with no signal: the mate's name, offered from the club list
  * the phone kept, links the lane to the mate's account, so once synced the run is in the
- * mate's own record too (the server allows naming people who share a club: lib/sync/authorise.ts).
+ * mate's logbook too, counted once they accept it (the server allows naming people who share a
+ * club: lib/sync/authorise.ts).
  */
 test.use({ viewport: { width: 390, height: 844 } });
 test.describe.configure({ timeout: 120_000 });
@@ -48,10 +49,18 @@ test("a partner named from the club list offline gets the run in their own recor
       .poll(async () => (await db.query("select count(*)::int as n from events where run_id = $1", [runId])).rows[0].n, { timeout: 30_000 })
       .toBe(3);
 
-    // The mate signs in elsewhere and finds the session among their own.
+    // The mate signs in elsewhere, finds the run in the logbook as recorded by Ada, and once
+    // accepted the session counts among their own (README "Runs recorded for you").
     const other = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const tobiPage = await other.newPage();
     await signInAs(tobiPage, "tobi@example.com");
+    await expect(tobiPage.getByRole("list", { name: "Recent sessions" })).not.toContainText(field);
+    await tobiPage.goto(`/logbook/run?id=${runId}`);
+    const recorded = tobiPage.getByRole("group", { name: "Recorded by Ada Fenwick" });
+    await expect(recorded).toContainText("Not in your record until you accept it.", { timeout: 30_000 });
+    await recorded.getByRole("button", { name: "Accept" }).click();
+    await expect(recorded).toContainText("You accepted it");
+    await tobiPage.goto("/");
     await expect(tobiPage.getByRole("list", { name: "Recent sessions" })).toContainText(field);
     await other.close();
   } finally {

@@ -1,0 +1,52 @@
+import "./support/session";
+import { afterAll, describe, expect, it } from "vitest";
+import { v7 as uuidv7 } from "uuid";
+import { clubs, memberships, users } from "@/db/schema";
+import { requireClubRole } from "@/lib/auth/session";
+import { actAs } from "./support/session";
+import { db, getPool } from "./support/db";
+
+afterAll(async () => {
+  await getPool().end();
+});
+
+/** A club with one account per role, and an officer of another club. */
+async function club() {
+  const tag = uuidv7();
+  const [home, away] = await db.insert(clubs).values([{ name: `Home ${tag}`, slug: `home-${tag}` }, { name: `Away ${tag}`, slug: `away-${tag}` }]).returning();
+  const person = async (role: "member" | "coach" | "officer", clubId: string, global: "member" | "admin" = "member") => {
+    const [u] = await db.insert(users).values({ email: `${role}-${global}-${uuidv7()}@example.com`, name: role, role: global }).returning();
+    await db.insert(memberships).values({ clubId, userId: u!.id, role });
+    return { id: u!.id, email: u!.email, name: u!.name, role: global };
+  };
+  return {
+    clubId: home!.id,
+    member: await person("member", home!.id),
+    coach: await person("coach", home!.id),
+    officer: await person("officer", home!.id),
+    otherOfficer: await person("officer", away!.id),
+    admin: await person("member", away!.id, "admin"),
+  };
+}
+
+const statusOf = async (clubId: string, role: "member" | "coach" | "officer") =>
+  requireClubRole(clubId, role).then(() => 200, (e: { status?: number }) => e.status ?? 500);
+
+describe("requireClubRole, the guard of every club-scoped route", () => {
+  it("401 signed out; 403 below the role or outside the club; officers pass coach checks; site admins pass all", async () => {
+    const c = await club();
+    actAs(null);
+    expect(await statusOf(c.clubId, "member")).toBe(401);
+    actAs(c.member);
+    expect([await statusOf(c.clubId, "member"), await statusOf(c.clubId, "coach")]).toEqual([200, 403]);
+    actAs(c.coach);
+    expect([await statusOf(c.clubId, "coach"), await statusOf(c.clubId, "officer")]).toEqual([200, 403]);
+    actAs(c.officer);
+    expect([await statusOf(c.clubId, "coach"), await statusOf(c.clubId, "officer")]).toEqual([200, 200]);
+    actAs(c.otherOfficer);
+    expect(await statusOf(c.clubId, "member")).toBe(403);
+    expect(await statusOf("not-a-club-id", "member")).toBe(403);
+    actAs(c.admin);
+    expect(await statusOf(c.clubId, "officer")).toBe(200);
+  });
+});
