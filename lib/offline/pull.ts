@@ -1,5 +1,5 @@
 import type { RunEvent } from "@/lib/events/schema";
-import { pullReplySchema } from "@/lib/validations/sync";
+import { pullReplySchema, type PullItem } from "@/lib/validations/sync";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "./entities";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
@@ -44,11 +44,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       else {
         // a run in someone else's session comes with that session; results are the server's
         if (item.session) sessions.push(item.session);
-        const run: StoredRun = { ...item.data };
-        if (item.results) run.results = item.results;
-        if (item.recordedBy) run.recordedBy = item.recordedBy;
-        if (item.consents) run.consents = item.consents;
-        runs.push(run);
+        runs.push(storedRunOf(item));
       }
     }
     await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta], async () => {
@@ -63,4 +59,13 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     if (!hasMore) return { kind: "ok", items: stored };
   }
   return { kind: "bad-reply", message: `pull still had more after ${MAX_PAGES} pages` };
+}
+
+/** A pulled run as the device keeps it: the entity with the server's results, recorder and consents. */
+export function storedRunOf(item: Extract<PullItem, { type: "run" }>): StoredRun {
+  const run: StoredRun = { ...item.data };
+  if (item.results) run.results = item.results;
+  if (item.recordedBy) run.recordedBy = item.recordedBy;
+  if (item.consents) run.consents = item.consents;
+  return run;
 }

@@ -1,6 +1,7 @@
 import { isDeepStrictEqual } from "node:util";
 import type { Database } from "@/db";
 import { listChanges } from "@/db/queries/sync-pull";
+import { storedRunOf } from "@/lib/offline/pull";
 import { serverEvents, type SimWorld } from "./sync-sim";
 
 /**
@@ -65,7 +66,7 @@ async function fullView(db: Database, userId: string) {
       else if (item.type === "event") events.set(item.data.id, item.data);
       else {
         if (item.session) sessions.set(item.session.id, item.session);
-        runs.set(item.data.id, item.results ? { ...item.data, results: item.results } : item.data);
+        runs.set(item.data.id, storedRunOf(item));
       }
     }
     cursor = page.nextCursor;
