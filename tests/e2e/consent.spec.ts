@@ -69,6 +69,7 @@ test("a pilot accepts one run a club mate recorded for them, which then counts, 
     await expect(recorded).toHaveCount(2, { timeout: 30_000 });
     await expect(recorded.first()).toContainText("Not in your record until you accept it.");
     await expect(recorded.nth(1)).toHaveAttribute("data-consent", "pending");
+    if (process.env.SHOTS) await page.screenshot({ path: "/tmp/consent-logbook.png", fullPage: true });
 
     await recorded.first().getByRole("button", { name: "Accept" }).click();
     await expect(recorded.first()).toContainText("You accepted it: it counts in your record.");
@@ -76,6 +77,7 @@ test("a pilot accepts one run a club mate recorded for them, which then counts, 
     await recorded.nth(1).getByLabel(/What is wrong with it/).fill("My flight was 1:40, not 1:33");
     await recorded.nth(1).getByRole("button", { name: "Send dispute" }).click();
     await expect(recorded.nth(1)).toContainText("You disputed it: it does not count in your record.");
+    if (process.env.SHOTS) await page.screenshot({ path: "/tmp/consent-decided.png", fullPage: true });
 
     // Home's sessions count the accepted run only.
     await page.goto("/");
