@@ -37,7 +37,7 @@ export function ConsentBar({ runId, consent, recorder, label }: { runId: string;
 
   const offer = (["accepted", "disputed", "hidden"] as const).filter((d) => d !== consent.status);
   return (
-    <div role="group" aria-label={label} className="space-y-2 rounded-lg border-2 border-warn p-3" data-consent={consent.status}>
+    <div role="group" aria-label={label} className={`space-y-2 rounded-lg border-2 p-3 ${consent.status === "accepted" ? "border-line" : "border-warn"}`} data-consent={consent.status}>
       <p>
         <span className="font-bold">Recorded by {recorder}.</span> {STANDING[consent.status]}
         {consent.status === "disputed" && consent.reason ? <span className="block text-sm">Your reason: “{consent.reason}”</span> : null}
