@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { CONSENT_REASON_MAX } from "@/lib/sync/consent";
+import { text } from "./bounds";
 
 /**
  * Runs recorded for someone else (lib/sync/consent.ts): the pilot's decision on one lane, and
@@ -17,11 +18,8 @@ export const laneConsentRequestSchema = z
   .object({
     decision: z.enum(["accepted", "disputed", "hidden"]),
     /** Why the pilot disputes it, for the recorder (required for a dispute, ignored otherwise). */
-    reason: z
-      .string()
-      .trim()
-      .max(CONSENT_REASON_MAX, `at most ${CONSENT_REASON_MAX} characters`)
-      .refine((s) => !s.includes("\u0000"), "must not contain NUL characters")
+    reason: text(CONSENT_REASON_MAX)
+      .transform((s) => s.trim())
       .optional(),
   })
   .refine((b) => b.decision !== "disputed" || (b.reason !== undefined && b.reason.length > 0), {

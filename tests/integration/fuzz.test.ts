@@ -34,6 +34,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
     POST: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
   },
   "/api/club-mates": { GET: "none" },
+  "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
   "/api/sync/pull": { GET: "query" },
   "/api/sync/push": { POST: "json" },
@@ -82,6 +83,7 @@ const evilValue = fc.oneof(
 /** A valid body for each JSON route, fresh ids each time, for `userId`. */
 function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/time") return { t1: Date.now() };
+  if (path.endsWith("/consent")) return { decision: "disputed", reason: "The second flight was longer" };
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -198,7 +200,9 @@ describe("fuzz: every route under app/api", () => {
               request = new Request(`http://test${path}${qs ? `?${qs}` : ""}`, { method });
             }
             const before = await countAll();
-            const res = await handler(request, { params: Promise.resolve({}) });
+            // a dynamic route gets the params of a run nobody recorded for the fuzz user (a valid body is a 404)
+            const params = path.includes("[runId]") ? { runId: uuidv7(), lane: "0" } : {};
+            const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
             if (res.status >= 400) {

@@ -12,9 +12,9 @@ type Context = { params: Promise<{ runId: string; lane: string }> };
 
 export const POST = route(async (request: Request, context: Context) => {
   const user = await requireUser();
+  const body = await parseJson(request, laneConsentRequestSchema);
   const params = laneConsentParamsSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError("No run recorded for you at that lane.");
-  const body = await parseJson(request, laneConsentRequestSchema);
   const outcome = await decideLaneConsent(db, {
     userId: user.id, runId: params.data.runId, lane: params.data.lane, decision: body.decision, reason: body.reason ?? null,
   });
