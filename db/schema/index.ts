@@ -6,3 +6,4 @@ export * from "./sessions";
 export * from "./events";
 export * from "./sync";
 export * from "./coaching";
+export * from "./limits";

@@ -1,5 +1,4 @@
-import { sql } from "drizzle-orm";
-import { index, integer, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { index, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { globalRoleEnum } from "./enums";
 
 export const users = pgTable("users", {
@@ -22,14 +21,6 @@ export const accounts = pgTable(
   },
   (t) => [primaryKey({ columns: [t.provider, t.providerAccountId] }), index("accounts_user_id_idx").on(t.userId)],
 );
-
-/** Failed sign-in attempts per key (an e-mail or an address), for throttling. */
-export const signInThrottles = pgTable("sign_in_throttles", {
-  key: text("key").primaryKey(),
-  failures: integer("failures").notNull().default(0),
-  windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull().default(sql`now()`),
-  lockedUntil: timestamp("locked_until", { withTimezone: true }),
-});
 
 /** A pilot timed without an account: a named guest, claimable later by a user. */
 export const guestPilots = pgTable(
