@@ -2,20 +2,13 @@ import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/db";
-import { clearSignInFailures, getUserByEmail, isThrottled, recordSignInFailure } from "@/db/queries/users";
+import { getUserByEmail, upgradePasswordHash } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/auth";
-import { verifyPassword } from "./password";
+import { AttemptThrottledError, beginSignInAttempt } from "./attempts";
+import { clientAddress } from "./client-address";
+import { hashPassword, needsRehash, verifyPassword } from "./password";
 
-const PER_EMAIL_LIMIT = 5;
-const PER_ADDRESS_LIMIT = 30;
-
-function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  return first || "local";
-}
-
-/** next-auth: e-mail + password, JWT session in a cookie, throttled per e-mail and per address. */
+/** next-auth: e-mail + password (argon2id), JWT session in a cookie, attempts limited by attempts.ts. */
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
   pages: { signIn: "/sign-in" },
@@ -26,19 +19,18 @@ export const authOptions: NextAuthOptions = {
       async authorize(credentials, req) {
         const parsed = signInSchema.safeParse(credentials);
         if (!parsed.success) return null;
-        const emailKey = `email:${parsed.data.email}`;
-        const addressKey = `addr:${clientAddress(req?.headers)}`;
-        if ((await isThrottled(db, emailKey)) || (await isThrottled(db, addressKey))) {
-          throw new Error("throttled");
-        }
-        const user = await getUserByEmail(db, parsed.data.email);
-        if (!(await verifyPassword(parsed.data.password, user?.passwordHash))) {
-          await recordSignInFailure(db, emailKey, PER_EMAIL_LIMIT);
-          await recordSignInFailure(db, addressKey, PER_ADDRESS_LIMIT);
-          return null;
-        }
-        await clearSignInFailures(db, emailKey);
-        return { id: user!.id, email: user!.email, name: user!.name, role: user!.role };
+        const { email, password } = parsed.data;
+        // counted before the password is checked (attempts.ts); "throttled:<minutes>" for the form
+        const attempt = await beginSignInAttempt(email, clientAddress(req?.headers)).catch((error: unknown) => {
+          if (error instanceof AttemptThrottledError) throw new Error(`throttled:${Math.max(1, Math.ceil(error.retryAfterMs / 60_000))}`);
+          throw error;
+        });
+        const user = await getUserByEmail(db, email);
+        const ok = await verifyPassword(password, user?.passwordHash); // a dummy hash when there is no account
+        if (!ok || !user?.passwordHash) return null;
+        await attempt.succeeded();
+        if (needsRehash(user.passwordHash)) await upgradePasswordHash(db, user.id, user.passwordHash, await hashPassword(password));
+        return { id: user.id, email: user.email, name: user.name, role: user.role };
       },
     }),
   ],

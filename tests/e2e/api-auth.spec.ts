@@ -31,17 +31,26 @@ test("an admin-only route answers 401 signed out, 403 to a pilot, 200 to an admi
 
 test("a wrong password is refused with 401 and repeated failures are throttled", async ({ playwright, baseURL }) => {
   const ctx = await playwright.request.newContext({ baseURL });
-  // An account of its own, so no demo pilot that other tests sign in as is locked out.
+  // An account of its own, so no demo pilot that other tests sign in as is slowed down.
   const email = `locked-${Date.now()}@example.com`;
   const made = await ctx.post("/api/account/sign-up", { data: { name: "Ivo Lark", email, password: "right-password-1" } });
   expect(made.status()).toBe(201);
   const wrong = await signIn(ctx, email, "wrong-password");
   expect(wrong.status()).toBe(401);
+  expect((await wrong.json()).url).toContain("error=CredentialsSignin");
   for (let i = 0; i < 5; i++) await signIn(ctx, email, "wrong-password");
-  // Even the right password is refused while the e-mail is locked (5 failures); the session stays empty.
-  await signIn(ctx, email, "right-password-1");
-  const session = await (await ctx.get("/api/auth/session")).json();
-  expect(session).toEqual({});
+  // Even the right password waits while this account's gate from this address is shut; the session stays empty.
+  const waiting = await signIn(ctx, email, "right-password-1");
+  expect(waiting.status()).toBe(401);
+  expect((await waiting.json()).url).toMatch(/error=throttled%3A\d+/);
+  expect(await (await ctx.get("/api/auth/session")).json()).toEqual({});
+
+  // Another account behind the same address is not held up by it (all loopback requests share one).
+  const other = await playwright.request.newContext({ baseURL });
+  const otherEmail = `neighbour-${Date.now()}@example.com`;
+  expect((await other.post("/api/account/sign-up", { data: { name: "Oda Fell", email: otherEmail, password: "right-password-2" } })).status()).toBe(201);
+  expect((await signIn(other, otherEmail, "right-password-2")).ok()).toBe(true);
+  expect((await (await other.get("/api/auth/session")).json()).user.email).toBe(otherEmail);
 });
 
 test("sign-up rejects bad input with a clear message and creates nothing", async ({ playwright, baseURL }) => {

@@ -1,4 +1,4 @@
-import { expect, test } from "@playwright/test";
+import { expect, test, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
 
 test("a demo pilot signs in and sees the seeded sessions", async ({ page }) => {
@@ -24,15 +24,38 @@ test("a wrong password gets one generic message and no session", async ({ page }
   await expect(page).toHaveURL(/\/sign-in$/);
 });
 
-test("a new user signs up and sees the empty state", async ({ page }) => {
+/** Fills the sign-up form and sends it. */
+async function signUp(page: Page, name: string, email: string, password: string) {
   await page.goto("/sign-up");
-  await page.getByLabel("Name").fill("Wren Tally");
-  await page.getByLabel("E-mail").fill(`wren-${Date.now()}@example.com`);
-  await page.getByLabel(/^Password/).fill("short");
+  await page.getByLabel("Name").fill(name);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel(/^Password/).fill(password);
   await page.getByRole("button", { name: "Create account" }).click();
+}
+
+test("a new user signs up, signs in and sees the empty state", async ({ page }) => {
+  const email = `wren-${Date.now()}@example.com`;
+  await signUp(page, "Wren Tally", email, "short");
   await expect(page.getByText("Use at least 10 characters.")).toBeVisible();
   await page.getByLabel(/^Password/).fill("kestrel-over-the-ridge");
   await page.getByRole("button", { name: "Create account" }).click();
+  await expect(page.getByRole("status")).toHaveText("Done. Sign in with this e-mail and the password you chose.");
+  await expect(page.getByLabel("E-mail")).toHaveValue(email);
+  await page.getByLabel("Password").fill("kestrel-over-the-ridge");
+  await page.getByRole("button", { name: "Sign in" }).click();
   await expect(page.getByRole("heading", { name: "Hello, Wren" })).toBeVisible();
   await expect(page.getByText("No sessions yet.")).toBeVisible();
+});
+
+test("signing up with a taken address says what a new address gets", async ({ page }) => {
+  // Ada's address is taken; the page must not say so (it used to end in "if you already have an account").
+  const shown: string[] = [];
+  for (const email of ["ada@example.com", `new-${Date.now()}@example.com`]) {
+    await signUp(page, "Someone Else", email, "gliding-along-the-ridge");
+    const status = page.getByRole("status");
+    await expect(status).toBeVisible();
+    shown.push((await page.getByRole("main").innerText()).replace(email, "<e-mail>"));
+  }
+  expect(shown[0]).toBe(shown[1]);
+  expect(shown[0]).not.toMatch(/already/i);
 });

@@ -7,10 +7,19 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { signInSchema } from "@/lib/validations/auth";
 
-const MESSAGES: Record<string, string> = {
-  throttled: "Too many attempts. Wait a few minutes and try again.",
-  CredentialsSignin: "E-mail or password is wrong.",
-};
+const WRONG = "E-mail or password is wrong.";
+
+/**
+ * What a failed sign-in says. "throttled:<minutes>" comes from the attempt limits (lib/auth/attempts.ts),
+ * which count unknown addresses exactly like accounts, so neither message tells whether one exists.
+ */
+export function signInErrorMessage(error: string | undefined): string {
+  const throttled = /^throttled(?::(\d+))?$/.exec(error ?? "");
+  if (!throttled) return WRONG;
+  const minutes = Number(throttled[1] ?? 0);
+  const wait = minutes > 90 ? "later today" : `in ${minutes || "a few"} minute${minutes === 1 ? "" : "s"}`;
+  return `Too many attempts for this e-mail from this network. Try again ${wait}, or from another network.`;
+}
 
 /** E-mail + password; the same message for an unknown address and a wrong password. */
 export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
@@ -28,7 +37,7 @@ export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
     setError(null);
     const res = await signIn("credentials", { ...parsed.data, redirect: false });
     setBusy(false);
-    if (!res || res.error) return setError(MESSAGES[res?.error ?? ""] ?? MESSAGES.CredentialsSignin!);
+    if (!res || res.error) return setError(signInErrorMessage(res?.error ?? undefined));
     router.replace(params.get("next") ?? "/");
     router.refresh();
   }

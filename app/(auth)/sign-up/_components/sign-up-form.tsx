@@ -1,19 +1,23 @@
 "use client";
 
-import { signIn } from "next-auth/react";
-import { useRouter } from "next/navigation";
-import { useState, type FormEvent } from "react";
+import { Suspense, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { signUpSchema } from "@/lib/validations/auth";
+import { SignInForm } from "../../sign-in/_components/sign-in-form";
 
 type Errors = Partial<Record<"name" | "email" | "password" | "form", string>>;
 
-/** Name, e-mail, password; validated here and again on the server with the same schema. */
+/**
+ * Name, e-mail, password; validated here and again on the server with the same schema. The server
+ * answers the same whether or not the address was taken, and so does this page: it never signs in by
+ * itself (a taken address would fail where a new one succeeds) but asks for an ordinary sign-in, which
+ * answers like any other. Until e-mail confirmation exists, that sign-in is where a taken address shows.
+ */
 export function SignUpForm() {
-  const router = useRouter();
   const [errors, setErrors] = useState<Errors>({});
   const [busy, setBusy] = useState(false);
+  const [made, setMade] = useState<string | null>(null);
 
   async function onSubmit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -31,16 +35,25 @@ export function SignUpForm() {
       headers: { "content-type": "application/json" },
       body: JSON.stringify(parsed.data),
     }).catch(() => null);
+    setBusy(false);
     if (!res?.ok) {
-      setBusy(false);
       const body = (await res?.json().catch(() => null)) as { error?: { message?: string } } | null;
       return setErrors({ form: body?.error?.message ?? "Could not reach the server. Try again when online." });
     }
-    const signed = await signIn("credentials", { email: parsed.data.email, password: parsed.data.password, redirect: false });
-    setBusy(false);
-    if (!signed || signed.error) return setErrors({ form: "Could not sign you in with these details. If you already have an account, sign in instead." });
-    router.replace("/");
-    router.refresh();
+    setMade(parsed.data.email);
+  }
+
+  if (made !== null) {
+    return (
+      <div className="space-y-4">
+        <p role="status" className="font-semibold">
+          Done. Sign in with this e-mail and the password you chose.
+        </p>
+        <Suspense>
+          <SignInForm initialEmail={made} />
+        </Suspense>
+      </div>
+    );
   }
 
   return (

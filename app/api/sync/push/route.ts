@@ -2,6 +2,7 @@
 import { db } from "@/db";
 import { applyPush } from "@/db/queries/sync-push";
 import { BODY_LIMIT, parseJson, route } from "@/lib/api";
+import { pushLimit } from "@/lib/auth/limits";
 import { requireUser } from "@/lib/auth/session";
 import { ValidationError } from "@/lib/errors";
 import { assertSameAccount } from "@/lib/sync/authorise";
@@ -10,7 +11,7 @@ import { pushEnvelopeSchema, readPush, UnnamedItemError } from "@/lib/validation
 export const dynamic = "force-dynamic";
 
 /**
- * 401 signed out, 413 over 1 MB, 422 for a malformed envelope or an item without a usable id
+ * 401 signed out, 413 over 1 MB, 429 past 120 pushes a minute (lib/auth/limits.ts), 422 for a malformed envelope or an item without a usable id
  * (before any database work), 403 when the device id belongs to another account, 409 when the
  * body names another account's device database. Otherwise every item gets an ack: applied,
  * duplicate (already stored: the device may forget it) or rejected with the reason — an item
@@ -27,5 +28,7 @@ export const POST = route(async (request: Request) => {
     throw e;
   }
   assertSameAccount(user.id, read.request.account);
+  const tooMany = await pushLimit(user.id);
+  if (tooMany) return tooMany;
   return Response.json(await applyPush(db, user.id, read.request, read.refused), { headers: { "cache-control": "no-store" } });
 });
