@@ -33,13 +33,13 @@ describe("POST /api/account/sign-up", () => {
   const post = (body: unknown) =>
     signUpRoute(new Request("http://test/api/account/sign-up", { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } }));
 
-  it("creates an account with a bcrypt hash, never the password", async () => {
+  it("creates an account with an argon2id hash, never the password", async () => {
     const email = `kite-${Date.now()}@example.com`;
     const res = await post({ name: "Kite Ames", email: email.toUpperCase(), password: "thermal-hunter-42" });
     expect(res.status).toBe(201);
     const [row] = await db.select().from(users).where(eq(users.email, email));
     expect(row?.name).toBe("Kite Ames");
-    expect(row?.passwordHash).toMatch(/^\$2[aby]\$10\$/);
+    expect(row?.passwordHash).toMatch(/^\$argon2id\$/);
     expect(await verifyPassword("thermal-hunter-42", row?.passwordHash)).toBe(true);
   });
 
