@@ -51,8 +51,20 @@ describe("sign-in attempt limits (lib/auth/attempts.ts)", () => {
     });
   });
 
-  it("X-Forwarded-For from the client gives no fresh allowance unless TRUST_PROXY is set", async () => {
-    const email = await makeAccount("spoofed", RIGHT);
+  it("without TRUST_PROXY a client's X-Forwarded-For cannot frame another address", async () => {
+    // Next fills X-Forwarded-For with the socket's address only when the client sent none, so a
+    // stranger can write anyone's address there; the victim's own requests carry their real one.
+    const victim = freshAddress();
+    await withTrustProxy(null, async () => {
+      const targets = await Promise.all(Array.from({ length: 12 }, (_, i) => makeAccount(`spoof${i}`, RIGHT)));
+      for (const email of targets) for (let i = 0; i < 3; i++) await attempt(email, `guess-${i}`, victim);
+      const mine = await makeAccount("framed", RIGHT);
+      expect(await attempt(mine, RIGHT, victim)).toBe("signed in");
+    });
+  });
+
+  it("without TRUST_PROXY a fresh X-Forwarded-For on every guess gives no fresh allowance", async () => {
+    const email = await makeAccount("rotating", RIGHT);
     const outcomes = await withTrustProxy(null, async () => {
       const out: Outcome[] = [];
       for (let i = 0; i < 8; i++) out.push(await attempt(email, `guess-${i}`, freshAddress()));
