@@ -4,7 +4,8 @@ import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { users } from "@/db/schema";
 import { db, getPool } from "./support/db";
-import { attempt, makeAccount, withTrustProxy } from "./support/sign-in";
+import { makeAccount, withTrustProxy } from "./support/accounts";
+import { attempt } from "./support/sign-in";
 
 afterAll(async () => {
   await getPool().end();

@@ -5,7 +5,7 @@ import { users } from "@/db/schema";
 import { POST as signUpRoute } from "@/app/api/account/sign-up/route";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
-import { freshAddress, makeAccount, withTrustProxy } from "./support/sign-in";
+import { freshAddress, makeAccount, withTrustProxy } from "./support/accounts";
 import { deviceId, push, pushRequest } from "./sync-fixtures";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
 

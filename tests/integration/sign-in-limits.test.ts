@@ -1,7 +1,8 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
 import { getPool } from "./support/db";
-import { attempt, freshAddress, makeAccount, withTrustProxy, type Outcome } from "./support/sign-in";
+import { freshAddress, makeAccount, withTrustProxy } from "./support/accounts";
+import { attempt, type Outcome } from "./support/sign-in";
 
 afterAll(async () => {
   await getPool().end();
