@@ -28,6 +28,8 @@ function build() {
     addressFailures: make("address-fail", 300, DAY),
     /** Sign-ups per address. */
     signUps: make("sign-up", 30, HOUR),
+    /** Sign-ups of all callers together when no address is visible (TRUST_PROXY unset): each costs an argon2id hash. */
+    signUpsUnseen: make("sign-up-unseen", 300, HOUR),
     /** Pushes per account: a phone pushes every few seconds at most; this is far above that. */
     pushes: make("push", 120, 60),
   };

@@ -9,10 +9,11 @@ import { clientAddress } from "./client-address";
  * answers a ready 429 (with Retry-After) or null, so a route adds one line.
  */
 
-/** Sign-ups per address (30 an hour; one shared bucket when the address is unknown, see client-address.ts). */
+/** Sign-ups per address: 30 an hour; 300 an hour for everyone together when no address is visible (client-address.ts). */
 export async function signUpLimit(request: Request): Promise<Response | null> {
-  const limiter = getLimiters().signUps;
-  const res = await count(limiter, clientAddress(Object.fromEntries(request.headers)) ?? "local");
+  const address = clientAddress(Object.fromEntries(request.headers));
+  const limiter = address ? getLimiters().signUps : getLimiters().signUpsUnseen;
+  const res = await count(limiter, address ?? "all");
   if (res.consumedPoints <= limiter.points) return null;
   return tooMany("Too many new accounts from this network. Try again later.", res.msBeforeNext);
 }
