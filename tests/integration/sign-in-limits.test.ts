@@ -1,6 +1,8 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
-import { getPool } from "./support/db";
+import { eq } from "drizzle-orm";
+import { rateLimits } from "@/db/schema";
+import { db, getPool } from "./support/db";
 import { freshAddress, makeAccount, withTrustProxy } from "./support/accounts";
 import { attempt, type Outcome } from "./support/sign-in";
 
@@ -102,5 +104,26 @@ describe("sign-in attempt limits (lib/auth/attempts.ts)", () => {
       return out;
     });
     expect(await run(ghost)).toEqual(await run(real));
+  });
+
+  it("after three failures a pair waits, and each wait doubles", async () => {
+    const email = await makeAccount("waits", RIGHT);
+    const gate = `pair-gate:${email}|local`;
+    const waitLeft = async () => ((await db.select().from(rateLimits).where(eq(rateLimits.key, gate)))[0]?.expire ?? 0) - Date.now();
+    const openGate = () => db.update(rateLimits).set({ expire: Date.now() - 1 }).where(eq(rateLimits.key, gate));
+    await withTrustProxy(null, async () => {
+      for (let i = 0; i < 3; i++) expect(await attempt(email, `typo-${i}`)).toBe("wrong");
+      expect(await attempt(email, RIGHT)).toBe("throttled");
+      expect(await waitLeft()).toBeGreaterThan(50_000);
+      expect(await waitLeft()).toBeLessThanOrEqual(60_000);
+      await openGate(); // as if the minute had passed
+      expect(await attempt(email, "typo-3")).toBe("wrong");
+      expect(await waitLeft()).toBeGreaterThan(110_000);
+      expect(await waitLeft()).toBeLessThanOrEqual(120_000);
+      await openGate();
+      expect(await attempt(email, RIGHT)).toBe("signed in");
+      // a success clears the pair: three free attempts again
+      for (let i = 0; i < 3; i++) expect(await attempt(email, `typo-again-${i}`)).toBe("wrong");
+    });
   });
 });
