@@ -59,3 +59,28 @@ test("signing up with a taken address says what a new address gets", async ({ pa
   expect(shown[0]).toBe(shown[1]);
   expect(shown[0]).not.toMatch(/already/i);
 });
+
+test("after three wrong passwords the form says to wait, without saying whether the account exists", async ({ page }) => {
+  const shown: string[] = [];
+  for (const email of [`kept-${Date.now()}@example.com`, `nobody-${Date.now()}@example.com`]) {
+    if (email.startsWith("kept")) {
+      const made = await page.request.post("/api/account/sign-up", { data: { name: "Kit Rowe", email, password: "the-right-password" } });
+      expect(made.status()).toBe(201);
+    }
+    await page.goto("/sign-in");
+    await page.getByLabel("E-mail").fill(email);
+    const alert = page.getByRole("main").getByRole("alert");
+    for (let i = 0; i < 3; i++) {
+      await page.getByLabel("Password").fill(`wrong-password-${i}`);
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await expect(alert).toHaveText("E-mail or password is wrong.");
+      await expect(page.getByRole("button", { name: "Sign in" })).toBeEnabled();
+    }
+    await page.getByLabel("Password").fill("the-right-password");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect(alert).toHaveText(/^Too many attempts/);
+    shown.push((await alert.innerText()).trim());
+  }
+  expect(shown[0]).toBe("Too many attempts for this e-mail from this network. Try again in 1 minute, or from another network.");
+  expect(shown[1]).toBe(shown[0]);
+});
