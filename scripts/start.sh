@@ -1,9 +1,11 @@
 #!/usr/bin/env bash
 # npm start — install what is missing, start PostgreSQL on loopback, migrate, seed the demo club,
 # build and serve on http://localhost:3000 (PORT overrides). Ctrl-C stops the app and the database.
+# Listens on 127.0.0.1 only, unless HOST says otherwise (HOST=0.0.0.0 to reach it from a phone on the LAN).
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 
 export PORT="${PORT:-3000}"
+export HOST="${HOST:-127.0.0.1}"
 ensure_node_modules
 bash scripts/db.sh up
 ensure_env_file
@@ -33,9 +35,9 @@ if [ ! -f .next/BUILD_ID ] || [ -n "$(find app components lib worker db public n
   npx next build --webpack >.data-build.log 2>&1 || { tail -40 .data-build.log; die "build failed (full log: .data-build.log)"; }
   rm -f .data-build.log
 fi
-setsid npx next start -p "$PORT" &
+setsid npx next start -H "$HOST" -p "$PORT" &
 APP_PID=$!
-say "Windowcall is on http://localhost:$PORT — demo accounts are in the README. Ctrl-C stops it."
+say "Windowcall is on http://localhost:$PORT (listening on $HOST) — demo accounts are in the README. Ctrl-C stops it."
 status=0
 wait "$APP_PID" || status=$? # the server ended on its own: stop the database too, keep its status
 bash scripts/db.sh stop
