@@ -22,11 +22,30 @@ const withSerwist = withSerwistInit({
   disable: process.env.NODE_ENV === "development" && !process.env.WINDOWCALL_SW_DEV,
 });
 
+/**
+ * Headers on every response, assets and the service worker included. The per-request ones (the
+ * nonce-based Content-Security-Policy, HSTS over HTTPS) are set in proxy.ts.
+ * Permissions: the field timer keeps the screen awake and may read the position of a new field;
+ * nothing else it does needs a permission (vibration is not one).
+ */
+const securityHeaders = [
+  { key: "X-Content-Type-Options", value: "nosniff" },
+  { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
+  { key: "X-Frame-Options", value: "DENY" },
+  {
+    key: "Permissions-Policy",
+    value: "camera=(), microphone=(), geolocation=(self), screen-wake-lock=(self), payment=(), usb=(), display-capture=()",
+  },
+];
+
 /** @type {import("next").NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
   typedRoutes: false,
+  async headers() {
+    return [{ source: "/:path*", headers: securityHeaders }];
+  },
 };
 
 export default withSerwist(nextConfig);

@@ -8,8 +8,9 @@ export type Theme = (typeof THEMES)[number];
 
 const script = `try{var t=localStorage.getItem(${JSON.stringify(THEME_KEY)});if(["outdoor","light","dark"].indexOf(t)<0)t="outdoor";document.documentElement.dataset.theme=t}catch(e){document.documentElement.dataset.theme="outdoor"}`;
 
-export function ThemeScript() {
-  return <script dangerouslySetInnerHTML={{ __html: script }} />;
+/** The inline script, carrying this response's CSP nonce (browsers hide it from the DOM, hence the warning opt-out). */
+export function ThemeScript({ nonce }: { nonce?: string }) {
+  return <script nonce={nonce} suppressHydrationWarning dangerouslySetInnerHTML={{ __html: script }} />;
 }
 
 /** The scheme now on the page. */

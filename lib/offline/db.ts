@@ -110,6 +110,12 @@ export function getWindowcallDb(): WindowcallDb {
   return shared;
 }
 
+/** Close the shared database (at sign-out); the next getWindowcallDb() opens the one then in use. */
+export function releaseWindowcallDb(): void {
+  shared?.close();
+  shared = undefined;
+}
+
 /** Read a typed meta value. */
 export async function getMeta<K extends MetaKey>(db: WindowcallDb, key: K): Promise<MetaValues[K] | undefined> {
   const row = await db.meta.get(key);

@@ -9,12 +9,18 @@
  *
  * The first account ever to sign in on a browser takes the base database name, which also
  * holds anything recorded before anyone signed in.
+ *
+ * Signing out (sign-out.ts) leaves no account in use: the account's database is deleted, or kept
+ * sealed while it still holds unsent records, until that account signs in here again. Signed out,
+ * the browser uses a database no account holds (the base one if free, else `windowcall-guest`).
  */
 
 /** The part of `Storage` used here (localStorage in a browser, a Map in tests). */
 export type KeyValueStore = Pick<Storage, "getItem" | "setItem">;
 
 export const BASE_DB_NAME = "windowcall";
+/** The database used signed out while an account still holds the base one. */
+export const GUEST_DB_NAME = `${BASE_DB_NAME}-guest`;
 const CURRENT_KEY = "windowcall.deviceUser";
 const NAMES_KEY = "windowcall.deviceDbs";
 
@@ -43,7 +49,7 @@ export function browserStore(): KeyValueStore | null {
 export function currentDeviceUser(store: KeyValueStore | null = browserStore()): string | null {
   if (!store) return null;
   try {
-    return store.getItem(CURRENT_KEY);
+    return store.getItem(CURRENT_KEY) || null; // "" after a sign-out
   } catch {
     return null;
   }
@@ -51,9 +57,12 @@ export function currentDeviceUser(store: KeyValueStore | null = browserStore()):
 
 /** The device database name of the account now in use (the base name before any sign-in). */
 export function currentDbName(store: KeyValueStore | null = browserStore()): string {
+  if (!store) return BASE_DB_NAME;
   const user = currentDeviceUser(store);
-  if (!store || !user) return BASE_DB_NAME;
-  return readNames(store)[user] ?? BASE_DB_NAME;
+  const names = readNames(store);
+  if (user && names[user]) return names[user];
+  // Signed out (or never signed in): never another account's database.
+  return Object.values(names).includes(BASE_DB_NAME) ? GUEST_DB_NAME : BASE_DB_NAME;
 }
 
 /**
@@ -93,4 +102,27 @@ export function giveOwnDatabase(userId: string, store: KeyValueStore | null = br
     return false;
   }
   return currentDbName(store) === own;
+}
+
+/**
+ * Sign-out on this browser: no account is in use any more. With `keep` (unsent records) the
+ * account keeps its database name, sealed until it signs in here again; otherwise the name is
+ * released (the caller deletes the database). Returns the account's database name, or null when
+ * no account was in use.
+ */
+export function forgetDeviceUser(keep: boolean, store: KeyValueStore | null = browserStore()): string | null {
+  const user = currentDeviceUser(store);
+  if (!store || !user) return null;
+  const names = readNames(store);
+  const name = names[user] ?? null;
+  try {
+    if (!keep && name) {
+      delete names[user];
+      store.setItem(NAMES_KEY, JSON.stringify(names));
+    }
+    store.setItem(CURRENT_KEY, "");
+  } catch {
+    return null;
+  }
+  return name;
 }

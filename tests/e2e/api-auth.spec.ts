@@ -1,4 +1,5 @@
 import { expect, test, type APIRequestContext } from "@playwright/test";
+import { sameOrigin } from "./support/api";
 import { DEMO_PASSWORD } from "./support/auth";
 
 /** Credentials sign-in over HTTP, as STACK.md describes (csrf, then the callback). */
@@ -30,7 +31,7 @@ test("an admin-only route answers 401 signed out, 403 to a pilot, 200 to an admi
 });
 
 test("a wrong password is refused with 401 and repeated failures are throttled", async ({ playwright, baseURL }) => {
-  const ctx = await playwright.request.newContext({ baseURL });
+  const ctx = await playwright.request.newContext({ baseURL, extraHTTPHeaders: sameOrigin(baseURL) });
   // An account of its own, so no demo pilot that other tests sign in as is slowed down.
   const email = `locked-${Date.now()}@example.com`;
   const made = await ctx.post("/api/account/sign-up", { data: { name: "Ivo Lark", email, password: "right-password-1" } });
@@ -54,7 +55,7 @@ test("a wrong password is refused with 401 and repeated failures are throttled",
 });
 
 test("sign-up rejects bad input with a clear message and creates nothing", async ({ playwright, baseURL }) => {
-  const ctx = await playwright.request.newContext({ baseURL });
+  const ctx = await playwright.request.newContext({ baseURL, extraHTTPHeaders: sameOrigin(baseURL) });
   const res = await ctx.post("/api/account/sign-up", { data: { name: "", email: "not-an-address", password: "x" } });
   expect(res.status()).toBe(422);
   const body = await res.json();

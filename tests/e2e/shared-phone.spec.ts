@@ -1,6 +1,7 @@
 import { expect, test, type Page } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
+import { workerReady } from "./support/field";
 
 /**
  * One phone, two accounts (a club's timing phone): each account records into its own device
@@ -15,7 +16,7 @@ test.use({ viewport: { width: 390, height: 844 }, serviceWorkers: "block" });
 
 async function signUp(page: Page, name: string, tag: string): Promise<string> {
   const email = `${tag}-${Date.now()}@example.com`;
-  const made = await page.request.post("/api/account/sign-up", { data: { name, email, password: PASSWORD } });
+  const made = await page.request.post("/api/account/sign-up", { headers: { origin: new URL(test.info().project.use.baseURL!).origin }, data: { name, email, password: PASSWORD } });
   expect(made.status()).toBe(201);
   return email;
 }
@@ -35,10 +36,23 @@ async function flyOneFlight(page: Page, field: string): Promise<string> {
   return runId;
 }
 
-async function signOut(page: Page) {
+/** Signs out from the settings; with unsent records, the pilot is told how many and keeps them. */
+async function signOut(page: Page, unsent = 0) {
   await page.goto("/settings");
   await page.getByRole("button", { name: "Sign out" }).click();
-  await expect(page).toHaveURL(/\/sign-in/);
+  if (unsent > 0) {
+    const warning = page.getByRole("alertdialog");
+    await expect(warning).toContainText(`${unsent} records not sent yet`);
+    await expect(warning).toContainText("sent when you sign in here again");
+    await warning.getByRole("button", { name: "Sign out and keep them" }).click();
+  }
+  await expect(page).toHaveURL(/\/sign-in$/);
+}
+
+/** The banner's count of records not yet sent. */
+async function unsentCount(page: Page): Promise<number> {
+  await expect(page.getByRole("banner")).toContainText(/\d+ unsent/);
+  return Number((await page.getByRole("banner").textContent())!.match(/(\d+) unsent/)![1]);
 }
 
 test("two accounts on one phone keep their own records, and nothing unsent is lost or refused", async ({ page }) => {
@@ -58,8 +72,9 @@ test("two accounts on one phone keep their own records, and nothing unsent is lo
     await signInAs(page, first, PASSWORD);
     await page.route("**/api/sync/push", (route) => route.abort());
     const firstRun = await flyOneFlight(page, "Shared Phone Meadow");
-    await expect(page.getByRole("banner")).toContainText(/unsent/);
-    await signOut(page);
+    const unsent = await unsentCount(page);
+    expect(unsent).toBeGreaterThanOrEqual(5); // the session, the run and three taps
+    await signOut(page, unsent); // told how many, and they are kept
     await page.unroute("**/api/sync/push");
 
     // The second account, same browser: its own records reach the server under its own device.
@@ -122,4 +137,65 @@ test("an account handed another's database (site storage partly cleared) moves t
   } finally {
     await db.end();
   }
+});
+
+test.describe("with the service worker", () => {
+  test.use({ serviceWorkers: "allow" });
+
+  test("after sign-out, the next person on the phone sees none of the account's records, offline included", async ({ page, context }) => {
+    const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+    await db.connect();
+    try {
+      const first = await signUp(page, "Runa Falk", "leaving");
+      await signInAs(page, first, PASSWORD);
+      await workerReady(page);
+      const run = await flyOneFlight(page, "Private Meadow");
+      await expect.poll(async () => (await db.query("select 1 from events where run_id = $1", [run])).rowCount, { timeout: 30_000 }).toBe(3);
+      await expect(page.getByRole("banner")).toContainText("Synced");
+      await page.goto("/"); // rendered with the account's name and sessions, kept in the worker's page cache
+      await expect(page.getByRole("heading", { name: "Hello, Runa" })).toBeVisible();
+      await page.goto("/logbook");
+      await expect(page.getByRole("main")).toContainText("Private Meadow");
+      await signOut(page); // nothing unsent: no question asked
+
+      // The next person picks the phone up with no signal.
+      await context.setOffline(true);
+      await page.goto("/logbook").catch(() => null);
+      await expect(page.getByRole("main")).toContainText("Nothing in the logbook on this phone yet.");
+      await expect(page.getByRole("main")).not.toContainText("Private Meadow");
+      await page.goto("/").catch(() => null);
+      await expect(page.getByRole("heading", { name: "No signal" })).toBeVisible(); // the cached home page is gone
+      await expect(page.locator("body")).not.toContainText("Runa");
+      const stored = await page.evaluate(async () => {
+        const found: string[] = [];
+        for (const { name } of await indexedDB.databases()) {
+          if (!name) continue;
+          const idb = await new Promise<IDBDatabase>((resolve, reject) => {
+            const open = indexedDB.open(name);
+            open.onsuccess = () => resolve(open.result);
+            open.onerror = () => reject(open.error);
+          });
+          if (idb.objectStoreNames.contains("sessions")) {
+            const all = await new Promise<{ fieldName: string }[]>((resolve) => {
+              const req = idb.transaction("sessions").objectStore("sessions").getAll();
+              req.onsuccess = () => resolve(req.result);
+            });
+            found.push(...all.map((s) => s.fieldName));
+          }
+          idb.close();
+        }
+        return found;
+      });
+      expect(stored).not.toContain("Private Meadow");
+
+      // Back online, another account signs in: it is not shown the first one's records either.
+      await context.setOffline(false);
+      const second = await signUp(page, "Sten Ovid", "arriving");
+      await signInAs(page, second, PASSWORD);
+      await page.goto("/logbook");
+      await expect(page.getByRole("main")).toContainText("Nothing in the logbook on this phone yet.");
+    } finally {
+      await db.end();
+    }
+  });
 });

@@ -1,5 +1,6 @@
 import { expect, test } from "@playwright/test";
 import pg from "pg";
+import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
 import { press, workerReady } from "./support/field";
 
@@ -20,7 +21,7 @@ function pause(ms: number) {
   return new Promise((resolve) => setTimeout(resolve, ms));
 }
 
-test("a signal on one phone and flights on another, clocks 15 min apart, score as on one clock", async ({ browser }) => {
+test("a signal on one phone and flights on another, clocks 15 min apart, score as on one clock", async ({ browser, baseURL }) => {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   try {
@@ -31,7 +32,7 @@ test("a signal on one phone and flights on another, clocks 15 min apart, score a
     await b.clock.install({ time: Date.now() + SKEW_MS }); // runs at the true rate, 15 min behind
 
     const email = `pair-${Date.now()}@example.com`;
-    const made = await a.request.post("/api/account/sign-up", { data: { name: "Pia Marsh", email, password: PASSWORD } });
+    const made = await a.request.post("/api/account/sign-up", { headers: sameOrigin(baseURL), data: { name: "Pia Marsh", email, password: PASSWORD } });
     expect(made.status()).toBe(201);
     for (const page of [a, b]) {
       await signInAs(page, email, PASSWORD);

@@ -5,6 +5,7 @@ import { useRouter, useSearchParams } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { safeNextPath } from "@/lib/security/safe-next";
 import { signInSchema } from "@/lib/validations/auth";
 
 const WRONG = "E-mail or password is wrong.";
@@ -38,7 +39,7 @@ export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
     const res = await signIn("credentials", { ...parsed.data, redirect: false });
     setBusy(false);
     if (!res || res.error) return setError(signInErrorMessage(res?.error ?? undefined));
-    router.replace(params.get("next") ?? "/");
+    router.replace(safeNextPath(params.get("next"))); // only a path on this site: never leave it
     router.refresh();
   }
 
