@@ -51,8 +51,14 @@ async function signOut(page: Page, unsent = 0) {
 
 /** The banner's count of records not yet sent. */
 async function unsentCount(page: Page): Promise<number> {
-  await expect(page.getByRole("banner")).toContainText(/\d+ unsent/);
-  return Number((await page.getByRole("banner").textContent())!.match(/(\d+) unsent/)![1]);
+  let count = 0;
+  await expect
+    .poll(async () => {
+      count = Number((await page.getByRole("banner").innerText()).match(/(\d+) unsent/)?.[1] ?? 0);
+      return count;
+    })
+    .toBeGreaterThan(0);
+  return count;
 }
 
 test("two accounts on one phone keep their own records, and nothing unsent is lost or refused", async ({ page }) => {
