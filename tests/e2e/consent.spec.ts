@@ -16,7 +16,8 @@ test.describe.configure({ timeout: 120_000 });
 
 async function signUp(page: Page, name: string, tag: string): Promise<string> {
   const email = `${tag}-${Date.now()}@example.com`;
-  const made = await page.request.post("/api/account/sign-up", { data: { name, email, password: PASSWORD } });
+  const origin = new URL(test.info().project.use.baseURL!).origin; // writes must come from the site (proxy.ts)
+  const made = await page.request.post("/api/account/sign-up", { headers: { origin }, data: { name, email, password: PASSWORD } });
   expect(made.ok()).toBe(true);
   return email;
 }
