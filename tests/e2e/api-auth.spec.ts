@@ -47,7 +47,7 @@ test("a wrong password is refused with 401 and repeated failures are throttled",
   expect(await (await ctx.get("/api/auth/session")).json()).toEqual({});
 
   // Another account behind the same address is not held up by it (all loopback requests share one).
-  const other = await playwright.request.newContext({ baseURL });
+  const other = await playwright.request.newContext({ baseURL, extraHTTPHeaders: sameOrigin(baseURL) });
   const otherEmail = `neighbour-${Date.now()}@example.com`;
   expect((await other.post("/api/account/sign-up", { data: { name: "Oda Fell", email: otherEmail, password: "right-password-2" } })).status()).toBe(201);
   expect((await signIn(other, otherEmail, "right-password-2")).ok()).toBe(true);
