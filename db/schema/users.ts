@@ -7,6 +7,12 @@ export const users = pgTable("users", {
   name: text("name").notNull(),
   passwordHash: text("password_hash"),
   role: globalRoleEnum("role").notNull().default("member"),
+  /** Set when an admin disables the account or its owner deletes it: it can no longer sign in or act. */
+  disabledAt: timestamp("disabled_at", { withTimezone: true }),
+  /** Set when the owner deleted the account: the row stays as an anonymous tombstone (lib/auth/session.ts). */
+  deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  /** Session generation: every session token carries the value it was issued under; bumping it signs all of them out. */
+  sessionVersion: integer("session_version").notNull().default(0),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 
