@@ -37,3 +37,39 @@ export async function listClubRoles(db: Database, userId: string) {
 export async function upgradePasswordHash(db: Database, id: string, from: string, to: string): Promise<void> {
   await db.update(users).set({ passwordHash: to }).where(and(eq(users.id, id), eq(users.passwordHash, from)));
 }
+
+/** What a session needs to know about its account, read fresh on every request (no password hash). */
+export type SessionAccount = Pick<UserRow, "id" | "email" | "name" | "role" | "disabledAt" | "sessionVersion">;
+
+/** The account behind a session token, or undefined when it no longer exists. */
+export async function getSessionAccount(db: Database, id: string): Promise<SessionAccount | undefined> {
+  const [row] = await db
+    .select({
+      id: users.id, email: users.email, name: users.name, role: users.role,
+      disabledAt: users.disabledAt, sessionVersion: users.sessionVersion,
+    })
+    .from(users)
+    .where(eq(users.id, id))
+    .limit(1);
+  return row;
+}
+
+/** Signs out every session of the account (tokens carry the old generation); returns the new generation. */
+export async function bumpSessionVersion(db: Database, userId: string): Promise<number | undefined> {
+  const [row] = await db
+    .update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .returning({ sessionVersion: users.sessionVersion });
+  return row?.sessionVersion;
+}
+
+/** Replaces the password hash and signs out every session of the account, in one statement. */
+export async function updatePassword(db: Database, userId: string, passwordHash: string): Promise<number | undefined> {
+  const [row] = await db
+    .update(users)
+    .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .returning({ sessionVersion: users.sessionVersion });
+  return row?.sessionVersion;
+}

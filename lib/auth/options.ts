@@ -2,6 +2,7 @@ import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { authorizeCredentials } from "./authorize";
+import { sessionCallbacks, sessionLogger } from "./session-callbacks";
 
 /** next-auth: e-mail + password (argon2id), JWT session in a cookie, checked by authorize.ts. */
 export const authOptions: NextAuthOptions = {
@@ -14,20 +15,7 @@ export const authOptions: NextAuthOptions = {
       authorize: (credentials, req) => authorizeCredentials(credentials, req?.headers),
     }),
   ],
-  callbacks: {
-    async jwt({ token, user }) {
-      if (user) {
-        token.uid = user.id;
-        token.role = (user as { role?: "member" | "admin" }).role ?? "member";
-      }
-      return token;
-    },
-    async session({ session, token }) {
-      if (session.user) {
-        session.user.id = token.uid as string;
-        session.user.role = (token.role as "member" | "admin") ?? "member";
-      }
-      return session;
-    },
-  },
+  // The account is re-read on every session check (session-callbacks.ts): no stale role or account.
+  callbacks: sessionCallbacks,
+  logger: sessionLogger,
 };

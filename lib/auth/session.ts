@@ -1,19 +1,27 @@
 import "server-only";
 import { getServerSession } from "next-auth";
 import { db } from "@/db";
-import { listClubRoles } from "@/db/queries/users";
+import { getSessionAccount, listClubRoles } from "@/db/queries/users";
 import { ForbiddenError, UnauthorizedError } from "@/lib/errors";
+import { isAccountId, sessionVerdict } from "./account-state";
 import { authOptions } from "./options";
 
 export type SessionUser = { id: string; email: string; name: string; role: "member" | "admin" };
 export type ClubRole = "member" | "coach" | "officer";
 
-/** The signed-in user, or null. */
+/**
+ * The signed-in user, or null. The account, its name and its role are read from the database on
+ * every call (no cache): a deleted, disabled or demoted account, or a token from an older
+ * session generation, takes effect on the next request. Server components call this too, so a
+ * revoked token is signed out there as well.
+ */
 export async function getSessionUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
   const u = session?.user;
-  if (!u?.id) return null;
-  return { id: u.id, email: u.email ?? "", name: u.name ?? "", role: u.role ?? "member" };
+  if (!isAccountId(u?.id)) return null;
+  const account = await getSessionAccount(db, u.id);
+  if (sessionVerdict(account, u.sessionVersion) !== "current" || !account) return null;
+  return { id: account.id, email: account.email, name: account.name, role: account.role };
 }
 
 /** The signed-in user; throws 401 when signed out. Every route handler calls this (or requireRole). */

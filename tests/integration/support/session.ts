@@ -5,7 +5,9 @@ import { vi } from "vitest";
  * that one module boundary (the real sign-in flow is covered end to end in tests/e2e/api-auth.spec.ts)
  * and keep everything else real: the handler, zod, Drizzle and PostgreSQL.
  */
-export const sessionState: { user: { id: string; email: string; name: string; role: "member" | "admin" } | null } = {
+export type MockSessionUser = { id: string; email: string; name: string; role: "member" | "admin"; sessionVersion?: number };
+
+export const sessionState: { user: MockSessionUser | null } = {
   user: null,
 };
 
