@@ -1,0 +1,63 @@
+import "server-only";
+import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
+import type { Database } from "../index";
+import { clubs, coachGrants, devices, events, fieldSessions, memberships, practicePlans, runLanes, runs, users } from "../schema";
+
+/** The format of "export all my data"; bump when its shape changes. */
+export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
+
+/**
+ * Everything Windowcall holds about one account, for "export all my data" (never a password
+ * hash): the account; club memberships; coach grants it gave and received; devices; practice
+ * plans; field sessions it owns; runs in those sessions, runs it created and runs where it flies
+ * a lane, each with all lanes and their results; the events it recorded or that belong to its
+ * lanes (a run-wide event such as the window start belongs to every lane).
+ */
+export async function exportAccount(db: Database, userId: string) {
+  const [account] = await db
+    .select({ id: users.id, email: users.email, name: users.name, role: users.role, createdAt: users.createdAt })
+    .from(users)
+    .where(eq(users.id, userId));
+  if (!account) return undefined;
+  const myRun = sql`(${runs.createdBy} = ${userId}
+    or ${runs.sessionId} in (select id from field_sessions where owner_id = ${userId})
+    or exists (select 1 from run_lanes l where l.run_id = ${runs.id} and l.pilot_user_id = ${userId}))`;
+  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows] = await Promise.all([
+    db.select({ clubId: clubs.id, club: clubs.name, role: memberships.role, since: memberships.createdAt })
+      .from(memberships).innerJoin(clubs, eq(clubs.id, memberships.clubId)).where(eq(memberships.userId, userId)),
+    db.select({ coachId: coachGrants.coachId, coach: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
+      .from(coachGrants).innerJoin(users, eq(users.id, coachGrants.coachId)).where(eq(coachGrants.pilotId, userId)),
+    db.select({ pilotId: coachGrants.pilotId, pilot: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
+      .from(coachGrants).innerJoin(users, eq(users.id, coachGrants.pilotId)).where(eq(coachGrants.coachId, userId)),
+    db.select({ id: devices.id, label: devices.label, createdAt: devices.createdAt, lastSeenAt: devices.lastSeenAt })
+      .from(devices).where(eq(devices.userId, userId)),
+    db.select({ id: practicePlans.id, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
+      .from(practicePlans).where(eq(practicePlans.pilotId, userId)),
+    db.select().from(fieldSessions).where(eq(fieldSessions.ownerId, userId)).orderBy(asc(fieldSessions.startedAt)),
+    db.select().from(runs).where(myRun).orderBy(asc(runs.createdAt)),
+  ]);
+  const runIds = runRows.map((r) => r.id);
+  const [lanes, eventRows] = runIds.length
+    ? await Promise.all([
+        db.select().from(runLanes).where(inArray(runLanes.runId, runIds)).orderBy(asc(runLanes.lane)),
+        db.select().from(events).where(and(inArray(events.runId, runIds), or(eq(events.recordedBy, userId), sql`exists (
+            select 1 from run_lanes l where l.run_id = ${events.runId} and l.pilot_user_id = ${userId}
+            and (${events.body}->>'lane' is null or (${events.body}->>'lane')::int = l.lane))`)))
+          .orderBy(asc(events.correctedMs)),
+      ])
+    : [[], []];
+  return {
+    format: ACCOUNT_EXPORT_FORMAT,
+    exportedAt: new Date().toISOString(),
+    account,
+    memberships: clubRoles,
+    coachGrants: { given: grantsGiven, received: grantsReceived },
+    devices: myDevices,
+    practicePlans: plans,
+    sessions,
+    runs: runRows.map((r) => ({ ...r, lanes: lanes.filter((l) => l.runId === r.id) })),
+    events: eventRows,
+  };
+}
+
+export type AccountExport = NonNullable<Awaited<ReturnType<typeof exportAccount>>>;
