@@ -1,0 +1,127 @@
+import "./support/session";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { and, eq } from "drizzle-orm";
+import { fieldSessions, runs } from "@/db/schema";
+import { actAs, type MockSessionUser } from "./support/session";
+import { db, getPool } from "./support/db";
+import { ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
+import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
+
+/**
+ * The authorisation matrix: every route handler on disk (app/api/**\/route.ts × exported method)
+ * must have a row here, and each row is called in-process as each actor: signed out, the owner of
+ * the records (Ada), another pilot (Tobi), a coach with the owner's grant (Mara), a coach without
+ * one, an officer of another club, and a site admin. A new route without a row fails the first
+ * test. Adding a row is one line: pick a shape below (signedIn, adminOnly, ownerOnly, ownAccount,
+ * publicByDesign) and give it the request's body or query if it needs one.
+ */
+
+type Status = number | readonly number[];
+type Ctx = { actor: Exclude<Actor, "signedOut">; user: MockSessionUser; cast: Cast };
+type Protected = {
+  expect: Record<Actor, Status>;
+  /** "fresh": the row changes or deletes the caller's own account, so each actor is a fresh twin. */
+  cast?: "seeded" | "fresh";
+  query?: string;
+  body?: (ctx: Ctx | null) => unknown;
+  params?: Record<string, string | string[]>;
+  /** Checks on a 2xx reply beyond its status (what the actor got to see). */
+  check?: (ctx: Ctx, res: Response) => Promise<void>;
+};
+type Row = Protected | { publicByDesign: string };
+
+const NOT_ALLOWED = [403, 404] as const;
+const everyone = (status: Status) => Object.fromEntries(ACTORS.map((a) => [a, status])) as Record<Actor, Status>;
+const signedIn = (row: Omit<Protected, "expect"> = {}): Protected => ({ ...row, expect: { ...everyone(200), signedOut: 401 } });
+const adminOnly = (row: Omit<Protected, "expect"> = {}): Protected => ({ ...row, expect: { ...everyone(NOT_ALLOWED), signedOut: 401, admin: 200 } });
+const ownerOnly = (row: Omit<Protected, "expect"> = {}): Protected => ({ ...row, expect: { ...everyone(NOT_ALLOWED), signedOut: 401, owner: 200 } });
+/** Routes that act on the caller's own account only (no id in the request): every signed-in actor gets 200 for itself. */
+const ownAccount = (row: Omit<Protected, "expect" | "cast"> = {}): Protected => ({ ...signedIn(row), cast: "fresh" });
+const publicByDesign = (reason: string): Row => ({ publicByDesign: reason });
+
+/** Which actors find runs or events of the owner's seeded sessions in their first pull page (seeded first, so on it). */
+const seesOwnersRuns = (who: Partial<Record<Actor, true>>) => async (ctx: Ctx, res: Response) => {
+  const own = await db.select({ id: runs.id }).from(runs).innerJoin(fieldSessions, eq(fieldSessions.id, runs.sessionId))
+    .where(and(eq(fieldSessions.ownerId, ctx.cast.owner.id), eq(fieldSessions.fieldName, "Five Acre Meadow")));
+  const ids = new Set(own.map((r) => r.id));
+  const body = (await res.json()) as { items: { type: string; data: { id: string; runId?: string } }[] };
+  const sees = body.items.some((i) => (i.type === "run" && ids.has(i.data.id)) || (i.type === "event" && ids.has(i.data.runId ?? "")));
+  expect({ actor: ctx.actor, seesOwnersRuns: sees }).toEqual({ actor: ctx.actor, seesOwnersRuns: !!who[ctx.actor] });
+};
+
+const exportsOwnAccountOnly = async (ctx: Ctx, res: Response) => {
+  const data = (await res.json()) as { account: { id: string } };
+  expect(data.account.id).toBe(ctx.user.id);
+};
+
+const ROWS: Record<string, Row> = {
+  "GET /api/health": publicByDesign("a liveness probe for the process manager: says only whether the app reaches its database"),
+  "POST /api/account/sign-up": publicByDesign("creating an account needs no account; the answer is the same for a taken address"),
+  "GET /api/auth/[...nextauth]": publicByDesign("next-auth's own endpoints (csrf, providers, session — {} when signed out)"),
+  "POST /api/auth/[...nextauth]": publicByDesign("next-auth's own sign-in and sign-out, guarded by its CSRF token"),
+  "GET /api/admin/users": adminOnly(),
+  "GET /api/club-mates": signedIn(),
+  "POST /api/time": signedIn({ body: () => ({ t1: 1 }) }),
+  "GET /api/sync/pull": signedIn({ query: "?cursor=0", check: seesOwnersRuns({ owner: true, coachWithGrant: true }) }),
+  "POST /api/sync/push": ownerOnly({ body: () => ({ deviceId: "demo-phone-ada", sessions: [], runs: [], events: [] }) }),
+  "GET /api/account/export": signedIn({ check: exportsOwnAccountOnly }),
+  "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
+  "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
+  "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),
+};
+
+/** Files declaring server actions, each with the test that checks its authorisation (none exist yet). */
+const SERVER_ACTIONS: Record<string, string> = {};
+
+let handlers: RouteHandler[] = [];
+let seeded: Cast;
+
+beforeAll(async () => {
+  handlers = await discoverRouteHandlers();
+  seeded = await seededCast();
+});
+
+afterAll(async () => {
+  actAs(null);
+  await getPool().end();
+});
+
+function request(handler: RouteHandler, row: Protected, ctx: Ctx | null): Request {
+  const init: RequestInit = { method: handler.method, headers: { "content-type": "application/json" } };
+  if (row.body) init.body = JSON.stringify(row.body(ctx));
+  return new Request(`http://test${handler.path}${row.query ?? ""}`, init);
+}
+
+const matches = (status: number, expected: Status) => (typeof expected === "number" ? status === expected : expected.includes(status));
+
+describe("authorisation matrix", () => {
+  it("has a row for every route handler on disk and none for a handler that is gone", () => {
+    const keys = handlers.map((h) => h.key);
+    expect(keys.filter((k) => !(k in ROWS)), "route handlers without a row").toEqual([]);
+    expect(Object.keys(ROWS).filter((k) => !keys.includes(k)), "rows without a route handler").toEqual([]);
+  });
+
+  it("has a row for every file of server actions", () => {
+    expect(discoverServerActionFiles().filter((f) => !(f in SERVER_ACTIONS))).toEqual([]);
+  });
+
+  const protectedRows = Object.entries(ROWS).filter((e): e is [string, Protected] => !("publicByDesign" in e[1]));
+  it.each(protectedRows)("%s answers each actor as designed", async (key, row) => {
+    const handler = handlers.find((h) => h.key === key);
+    expect(handler, `no handler for ${key}`).toBeDefined();
+    const cast = row.cast === "fresh" ? await freshCast() : seeded;
+    const context = { params: Promise.resolve(row.params ?? {}) };
+    const actual: Partial<Record<Actor, number>> = {};
+    const expected: Partial<Record<Actor, Status>> = {};
+    for (const actor of ACTORS) {
+      const user = actor === "signedOut" ? null : cast[actor];
+      const ctx = actor === "signedOut" || !user ? null : { actor, user, cast };
+      actAs(user);
+      const res = await handler!.handler(request(handler!, row, ctx), context);
+      actual[actor] = res.status;
+      expected[actor] = matches(res.status, row.expect[actor]) ? res.status : row.expect[actor];
+      if (ctx && row.check && res.status < 300) await row.check(ctx, res);
+    }
+    expect(actual).toEqual(expected);
+  });
+});
