@@ -3,6 +3,7 @@ import Link from "next/link";
 import { ThemePicker } from "./_components/theme-picker";
 import { SignOutButton } from "./_components/sign-out-button";
 import { CalloutSettingsForm } from "./_components/callout-settings";
+import { AccountSettings } from "./_components/account-settings";
 
 export const metadata: Metadata = { title: "Settings" };
 
@@ -27,6 +28,12 @@ export default function SettingsPage() {
         <Link href="/cautions" className="font-bold underline">
           Safety cautions
         </Link>
+      </section>
+      <section aria-labelledby="account-h" className="space-y-2">
+        <h2 id="account-h" className="text-lg font-bold">
+          Account
+        </h2>
+        <AccountSettings />
       </section>
       <SignOutButton />
     </div>

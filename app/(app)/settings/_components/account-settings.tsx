@@ -1,0 +1,53 @@
+"use client";
+
+import { useSession } from "next-auth/react";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { accountRequest, signOutHere } from "./account-request";
+import { ChangePasswordForm } from "./change-password-form";
+import { DeleteAccountForm } from "./delete-account-form";
+
+/**
+ * The Settings page's account section. The page is precached for the field, so this half is a
+ * client component that asks next-auth who is signed in; every change goes to /api/account/*
+ * and needs a connection.
+ */
+export function AccountSettings() {
+  const { data: session, status } = useSession();
+  const [error, setError] = useState<string | null>(null);
+  if (status === "loading") return <p className="text-muted">Loading your account…</p>;
+  const user = session?.user;
+  if (!user?.email) return <p className="text-muted">Sign in (with a connection) to manage your account.</p>;
+
+  async function signOutEverywhere() {
+    const reply = await accountRequest("/api/account/sign-out-everywhere", "POST", {});
+    if (!reply.ok) return setError(reply.message ?? "Could not sign out everywhere.");
+    await signOutHere("?signedOut=everywhere");
+  }
+
+  return (
+    <div className="space-y-6">
+      <p>
+        Signed in as <span className="font-bold">{user.name}</span> ({user.email})
+      </p>
+      <ChangePasswordForm email={user.email} />
+      <div className="space-y-2">
+        <h3 className="font-bold">Sign out everywhere</h3>
+        <p className="text-muted">Signs this account out on every phone and browser, this one included.</p>
+        <Button type="button" variant="secondary" onClick={signOutEverywhere}>
+          Sign out everywhere
+        </Button>
+        <p role="alert" className="font-semibold text-danger empty:hidden">
+          {error}
+        </p>
+      </div>
+      <div className="space-y-2">
+        <h3 className="font-bold">Your data</h3>
+        <a href="/api/account/export" download className="font-bold underline">
+          Download all my data (JSON)
+        </a>
+      </div>
+      <DeleteAccountForm />
+    </div>
+  );
+}
