@@ -80,7 +80,7 @@ test("a pilot changes their password, exports their data, signs out everywhere a
     const phone = await other.newPage();
     await signInAs(phone, email, SECOND);
     await page.goto("/settings");
-    await page.getByRole("button", { name: "Sign out everywhere" }).click();
+    await page.getByRole("button", { name: "Sign every device out" }).click();
     await expect(page).toHaveURL(/\/sign-in/);
     await phone.goto("/");
     await expect(phone).toHaveURL(/\/sign-in/);

@@ -34,8 +34,9 @@ export function AccountSettings() {
       <div className="space-y-2">
         <h3 className="font-bold">Sign out everywhere</h3>
         <p className="text-muted">Signs this account out on every phone and browser, this one included.</p>
+        {/* not "Sign out …": the plain Sign out button keeps a name no other button contains */}
         <Button type="button" variant="secondary" onClick={signOutEverywhere}>
-          Sign out everywhere
+          Sign every device out
         </Button>
         <p role="alert" className="font-semibold text-danger empty:hidden">
           {error}
