@@ -4,17 +4,17 @@ import { getUserById } from "@/db/queries/users";
 import { AppError } from "@/lib/errors";
 import { verifyPassword } from "./password";
 
-/** 403 `wrong_password` when the signed-in user's password does not match (changing it, deleting the account). */
-export async function confirmPassword(userId: string, password: string, field: string): Promise<void> {
+/**
+ * Checks the password the signed-in user typed to confirm an account change (changing the
+ * password, deleting the account): 403 `wrong_password` when it is not theirs; nothing changes then.
+ */
+export async function confirmPassword(userId: string, password: string): Promise<void> {
   const user = await getUserById(db, userId);
-  if (!(await verifyPassword(password, user?.passwordHash))) {
-    throw new WrongPasswordError(field);
-  }
+  if (!(await verifyPassword(password, user?.passwordHash))) throw new WrongPasswordError();
 }
 
-/** The password typed to confirm an account change is not the account's; `field` names the form field. */
 export class WrongPasswordError extends AppError {
-  constructor(readonly field: string) {
+  constructor() {
     super("wrong_password", "That is not your current password.", 403);
   }
 }
