@@ -2,7 +2,7 @@ import "./support/session";
 import fc from "fast-check";
 import { readdirSync } from "node:fs";
 import { join, relative, sep } from "node:path";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { users } from "@/db/schema";
@@ -27,6 +27,10 @@ afterAll(async () => {
 
 type Input = "json" | "query" | "none" | { skip: string };
 const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "DELETE", Input>>> = {
+  "/api/account": { DELETE: "json" },
+  "/api/account/export": { GET: "none" },
+  "/api/account/password": { POST: "json" },
+  "/api/account/sign-out-everywhere": { POST: "json" },
   "/api/account/sign-up": { POST: "json" },
   "/api/admin/users": { GET: "none" },
   "/api/auth/[...nextauth]": {
@@ -84,6 +88,10 @@ const evilValue = fc.oneof(
 function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/time") return { t1: Date.now() };
   if (path.endsWith("/consent")) return { decision: "disputed", reason: "The second flight was longer" };
+  // the fuzz user has no password, so a well-formed change or deletion is refused (403) and writes nothing
+  if (path === "/api/account") return { password: "thermal-hunter-42" };
+  if (path === "/api/account/password") return { currentPassword: "thermal-hunter-42", newPassword: "launch-window-77" };
+  if (path === "/api/account/sign-out-everywhere") return {};
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -136,7 +144,7 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
   switch (b.kind) {
     case "mutate": {
       const all = paths(base, b.leaf);
-      const at = all[b.pick % all.length]!;
+      const at = all.length ? all[b.pick % all.length]! : []; // an empty template ({}) has no leaves: replace the root
       const value = b.drop && at.length > 0 ? undefined : b.value;
       return JSON.stringify(replaced(base, at, value)) ?? "null";
     }
@@ -188,7 +196,9 @@ describe("fuzz: every route under app/api", () => {
         const arb = input === "json" ? fc.tuple(bodyArb, contentTypeArb, signedInArb) : fc.tuple(queryArb, fc.constant(null), signedInArb);
         await fc.assert(
           fc.asyncProperty(arb, async ([shape, contentType, signedIn]) => {
-            actAs(signedIn ? user : null);
+            // the session follows the account's generation: "sign out everywhere" must not sign the fuzz out of later routes
+            const [row] = signedIn ? await db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, user.id)) : [];
+            actAs(signedIn ? { ...user, sessionVersion: row?.v ?? 0 } : null);
             let request: Request;
             let bytes = 0;
             if (input === "json") {
