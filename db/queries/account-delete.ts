@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray, isNotNull, ne, notExists, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import {
-  accounts, coachGrants, coachNotes, contestEntries, devices, fieldSessions, memberships, practicePlans, runLanes, runs,
+  accounts, coachGrants, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
   syncRejections, users,
 } from "../schema";
 import { lockSync } from "./sync-db";
@@ -13,7 +13,7 @@ export const DELETED_PILOT_NAME = "Deleted pilot";
 /**
  * Deletes an account the way its owner asked, keeping what other people's records need:
  * - removed: memberships, coach grants (both ways), devices and their clock data, sign-in
- *   methods, sync rejections, the practice plans it received, the coach notes it wrote, and every
+ *   methods, sync rejections, its consent decisions, the practice plans it received, the coach notes it wrote, and every
  *   run in its own sessions that no other account flies in (events and lanes go with them), then
  *   its sessions left empty;
  * - kept without the name: runs where another account flies a lane (with their session), lanes
@@ -39,6 +39,7 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
     await tx
       .delete(fieldSessions)
       .where(and(eq(fieldSessions.ownerId, userId), notExists(tx.select({ one: sql`1` }).from(runs).where(eq(runs.sessionId, fieldSessions.id)))));
+    await tx.delete(laneConsents).where(eq(laneConsents.pilotUserId, userId)); // its lanes become anonymous below
     const touched = await tx
       .update(runLanes)
       .set({ pilotUserId: null, pilotName: DELETED_PILOT_NAME })

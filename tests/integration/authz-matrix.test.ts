@@ -65,6 +65,11 @@ const ROWS: Record<string, Row> = {
   "GET /api/sync/pull": signedIn({ query: "?cursor=0", check: seesOwnersRuns({ owner: true, coachWithGrant: true }) }),
   "POST /api/sync/push": ownerOnly({ body: () => ({ deviceId: "demo-phone-ada", sessions: [], runs: [], events: [] }) }),
   "GET /api/account/export": signedIn({ check: exportsOwnAccountOnly }),
+  // a run nobody recorded for anyone: 404 for every signed-in actor (the pilot's own 200 is in consent.test.ts)
+  "POST /api/runs/[runId]/lanes/[lane]/consent": {
+    ...signedIn({ params: { runId: "01890000-0000-7000-8000-000000000000", lane: "0" }, body: () => ({ decision: "accepted" }) }),
+    expect: { ...everyone(404), signedOut: 401 },
+  },
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),
