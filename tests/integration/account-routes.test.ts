@@ -53,6 +53,27 @@ describe("POST /api/account/password", () => {
   });
 });
 
+describe("password confirmations are counted like sign-in attempts (lib/auth/attempts.ts)", () => {
+  it("after three wrong current passwords, even the right one waits (429) and nothing changes", async () => {
+    const pilot = await freshUser("pw-guess", { passwordHash: await hashPassword(PASSWORD) });
+    const before = await hashOf(pilot.id);
+    actAs(pilot);
+    const statuses = [];
+    for (const guess of ["guess-one-aaa", "guess-two-bbb", "guess-three-ccc"]) {
+      statuses.push((await changePassword({ currentPassword: guess, newPassword: "launch-window-77" })).status);
+    }
+    // two free attempts, the third opens the pair's gate (README: "What is protected and how")
+    expect(statuses.slice(0, 2)).toEqual([403, 403]);
+    const right = await changePassword({ currentPassword: PASSWORD, newPassword: "launch-window-77" });
+    expect(right.status).toBe(429);
+    expect((await right.json()).error.code).toBe("rate_limited");
+    const del = await deleteAccount({ password: PASSWORD });
+    expect(del.status).toBe(429);
+    expect(await hashOf(pilot.id)).toBe(before);
+    expect((await db.select().from(users).where(eq(users.id, pilot.id)))[0]?.deletedAt).toBeNull();
+  });
+});
+
 describe("POST /api/account/sign-out-everywhere", () => {
   it("is 401 signed out; signed in, every token of the account is refused afterwards", async () => {
     actAs(null);

@@ -17,7 +17,7 @@ export const dynamic = "force-dynamic";
 export const DELETE = route(async (request: Request) => {
   const user = await requireUser();
   const input = await parseJson(request, deleteAccountSchema);
-  await confirmPassword(user.id, input.password);
+  await confirmPassword(user.id, input.password, request);
   if (!(await deleteAccount(db, user.id))) throw new UnauthorizedError();
   return Response.json({ ok: true }, { headers: { "cache-control": "no-store" } });
 });

@@ -19,7 +19,7 @@ export const dynamic = "force-dynamic";
 export const POST = route(async (request: Request) => {
   const user = await requireUser();
   const input = await parseJson(request, changePasswordSchema);
-  await confirmPassword(user.id, input.currentPassword);
+  await confirmPassword(user.id, input.currentPassword, request);
   const generation = await updatePassword(db, user.id, await hashPassword(input.newPassword));
   if (generation === undefined) throw new UnauthorizedError();
   return Response.json({ ok: true, signedOut: true }, { headers: { "cache-control": "no-store" } });
