@@ -46,11 +46,12 @@ export function runSessionRefusal(
 
 /**
  * A lane may name as pilot the run's creator or someone who shares a club with them: naming
- * a stranger would put runs into their logbook. Anyone else is timed as a named guest.
+ * a stranger would put runs into their logbook. Anyone else is timed as a named guest. An id
+ * that names no account gets the very same answer as a stranger's, so a push cannot be used to
+ * learn which account ids exist.
  */
 export function pilotRefusal(userId: string, lane: number, pilotUserId: string, sharesClub: boolean, exists: boolean): string | null {
-  if (!exists) return `Lane ${lane + 1}: no such user; time this pilot as a named guest.`;
-  if (pilotUserId === userId || sharesClub) return null;
+  if (exists && (pilotUserId === userId || sharesClub)) return null;
   return `Lane ${lane + 1}: that pilot is not in a club with you; time them as a named guest.`;
 }
 
