@@ -1,6 +1,7 @@
 import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
+import { storedFieldNames } from "./support/stored";
 
 // A fresh account of its own (demo accounts are used by other specs and must stay as they are).
 const email = `swift-${Date.now()}@example.com`;
@@ -13,6 +14,9 @@ async function signUp(page: Page) {
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel(/^Password/).fill(FIRST);
   await page.getByRole("button", { name: "Create account" }).click();
+  // sign-up then asks for an ordinary sign-in (it reveals nothing about a taken address)
+  await expect(page.getByRole("status")).toHaveText("Done. Sign in with this e-mail and the password you chose.");
+  await signInAs(page, email, FIRST);
   await expect(page.getByRole("heading", { name: "Hello, Swift" })).toBeVisible();
 }
 
@@ -80,8 +84,11 @@ test("a pilot changes their password, exports their data, signs out everywhere a
     const phone = await other.newPage();
     await signInAs(phone, email, SECOND);
     await page.goto("/settings");
+    // the phone has pulled the account's session into its device database by now
+    await expect.poll(() => storedFieldNames(page), { timeout: 20_000 }).toContain("Export Meadow");
     await page.getByRole("button", { name: "Sign every device out" }).click();
     await expect(page).toHaveURL(/\/sign-in/);
+    expect(await storedFieldNames(page)).not.toContain("Export Meadow"); // cleared from this phone too
     await phone.goto("/");
     await expect(phone).toHaveURL(/\/sign-in/);
     expect(await phone.evaluate(async () => (await fetch("/api/auth/session")).json())).toEqual({});
