@@ -2,6 +2,7 @@ import { expect, test, type Page } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
 import { workerReady } from "./support/field";
+import { storedFieldNames } from "./support/stored";
 
 /**
  * One phone, two accounts (a club's timing phone): each account records into its own device
@@ -172,26 +173,7 @@ test.describe("with the service worker", () => {
       await page.goto("/").catch(() => null);
       await expect(page.getByRole("heading", { name: "No signal" })).toBeVisible(); // the cached home page is gone
       await expect(page.locator("body")).not.toContainText("Runa");
-      const stored = await page.evaluate(async () => {
-        const found: string[] = [];
-        for (const { name } of await indexedDB.databases()) {
-          if (!name) continue;
-          const idb = await new Promise<IDBDatabase>((resolve, reject) => {
-            const open = indexedDB.open(name);
-            open.onsuccess = () => resolve(open.result);
-            open.onerror = () => reject(open.error);
-          });
-          if (idb.objectStoreNames.contains("sessions")) {
-            const all = await new Promise<{ fieldName: string }[]>((resolve) => {
-              const req = idb.transaction("sessions").objectStore("sessions").getAll();
-              req.onsuccess = () => resolve(req.result);
-            });
-            found.push(...all.map((s) => s.fieldName));
-          }
-          idb.close();
-        }
-        return found;
-      });
+      const stored = await storedFieldNames(page);
       expect(stored).not.toContain("Private Meadow");
 
       // Back online, another account signs in: it is not shown the first one's records either.

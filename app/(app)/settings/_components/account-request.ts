@@ -1,6 +1,8 @@
 "use client";
 
 import { signOut } from "next-auth/react";
+import { getWindowcallDb } from "@/lib/offline/db";
+import { clearAccountOnDevice } from "@/lib/offline/sign-out";
 
 export type AccountReply = { ok: boolean; status: number; code?: string; message?: string; issues?: { path: string; message: string }[] };
 
@@ -24,10 +26,12 @@ export function fieldErrors<K extends string>(issues: { path: PropertyKey[] | st
 }
 
 /**
- * Signs this browser out and loads the sign-in page afresh on the origin in use (a full load, so
- * nothing of the signed-in pages stays in memory).
+ * Signs this browser out, clears this account from the phone as the sign-out button does
+ * (lib/offline/sign-out.ts: unsent records stay sealed for this account, nothing else is kept), and
+ * loads the sign-in page afresh on the origin in use (a full load, so nothing stays in memory).
  */
 export async function signOutHere(query = ""): Promise<void> {
   await signOut({ redirect: false }).catch(() => undefined);
+  await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
   window.location.assign(new URL(`/sign-in${query}`, window.location.origin).href);
 }
