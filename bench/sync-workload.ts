@@ -1,6 +1,6 @@
 import { v7 as uuidv7 } from "uuid";
 import type { RunEvent } from "@/lib/events/schema";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { getCatalogueTask } from "@/lib/tasks";
 import type { PushRequest } from "@/lib/validations/sync";
 

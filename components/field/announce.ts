@@ -1,6 +1,6 @@
 import type { RunEvent } from "@/lib/events/schema";
 import { secondsText } from "@/lib/field/display";
-import type { RunLane } from "@/lib/offline/entities";
+import type { RunLane } from "@/lib/events/entities";
 import { liveState, msToTenths, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
 
 /**

@@ -1,7 +1,7 @@
 "use client";
 
 import { TimelineStrip } from "@/components/run";
-import type { RunLane } from "@/lib/offline/entities";
+import type { RunLane } from "@/lib/events/entities";
 import type { LaneLive, LiveState, TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
 import { LanePanel } from "./lane-panel";

@@ -1,5 +1,5 @@
 import { describeTask } from "@/lib/field/describe-task";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import type { TaskDefinition } from "@/lib/tasks";
 
 /** Which task, for whom, where: small and quiet above the figures. */

@@ -1,6 +1,6 @@
 import { Breakdown, TimelineStrip } from "@/components/run";
 import { secondsText } from "@/lib/field/display";
-import type { RunLane } from "@/lib/offline/entities";
+import type { RunLane } from "@/lib/events/entities";
 import { foldRun, pointsLost, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
 
 type Props = { runId: string; task: TaskDefinition; timeline: readonly TimelineEvent[]; lanes: readonly RunLane[] };

@@ -5,7 +5,7 @@ import { isRunOpen } from "@/lib/field/lane-tap";
 import { buildTimeline } from "@/lib/field/timeline";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import { getPageId } from "@/lib/offline/device";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { foldRun, parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
 
 export type FieldRunRow = {

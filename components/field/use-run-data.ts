@@ -6,7 +6,7 @@ import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import { getDeviceId } from "@/lib/offline/device";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
 
 export type RunData =

@@ -1,5 +1,5 @@
 import type { RunEvent } from "@/lib/events/schema";
-import type { RunLane } from "@/lib/offline/entities";
+import type { RunLane } from "@/lib/events/entities";
 
 type Props = {
   events: readonly RunEvent[];

@@ -1,7 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { consentStatus, type ConsentDecision } from "@/lib/sync/consent";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult, PullItem } from "@/lib/validations/sync";

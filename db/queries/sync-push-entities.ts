@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, gte, inArray, lte, sql } from "drizzle-orm";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { Ack } from "@/lib/validations/sync";

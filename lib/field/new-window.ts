@@ -1,5 +1,5 @@
 import { ZodError } from "zod";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { buildCustomTask, getCatalogueTask, type CustomTaskInput, type TaskDefinition, type TaskLetter } from "@/lib/tasks";
 
 /** Who flies in the window: the signed-in pilot alone, a partner timed by them, or a group. */

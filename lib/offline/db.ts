@@ -5,7 +5,7 @@ import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult } from "@/lib/validations/sync";
 import { BASE_DB_NAME, currentDbName } from "./device-user";
-import type { RunEntity, SessionEntity } from "./entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 
 /**
  * A run as kept on the device: the entity plus, once pulled, the server's derived results, who

@@ -1,7 +1,7 @@
 import { runEventSchema, type RunEvent } from "@/lib/events/schema";
 import type { Ack } from "@/lib/validations/sync";
 import type { OutboxEntry, WindowcallDb } from "./db";
-import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "./entities";
+import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "@/lib/events/entities";
 
 /** Outbox entries waiting to be sent (not rejected), in queue order. */
 export async function listPending(db: WindowcallDb, limit: number): Promise<OutboxEntry[]> {

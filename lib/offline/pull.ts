@@ -1,7 +1,7 @@
 import type { RunEvent } from "@/lib/events/schema";
 import { pullReplySchema, type PullItem } from "@/lib/validations/sync";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
-import type { SessionEntity } from "./entities";
+import type { SessionEntity } from "@/lib/events/entities";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
 
 export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string; account?: string | null };

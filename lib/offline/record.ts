@@ -2,7 +2,7 @@ import { v7 as uuidv7 } from "uuid";
 import { clockEstimateSchema, runEventSchema, type EventBody, type RunEvent, type Stamp } from "@/lib/events/schema";
 import { getMeta, setMeta, type OutboxKind, type WindowcallDb } from "./db";
 import { getDeviceId } from "./device";
-import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "./entities";
+import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "@/lib/events/entities";
 
 /**
  * Local writes (SYNC.md §2): every write puts the record AND its outbox entry in one Dexie

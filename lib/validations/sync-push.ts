@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { runEventSchema } from "@/lib/events/schema";
-import { runEntitySchema, sessionEntitySchema } from "@/lib/offline/entities";
+import { runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { textProblem } from "./bounds";
 import { clockEstimateSchema, PUSH_MAX_CLOCK_ESTIMATES, PUSH_MAX_ITEMS, pushRequestSchema, type Ack, type PushRequest } from "./sync";
 

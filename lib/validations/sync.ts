@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { clockEstimateSchema, runEventSchema } from "@/lib/events/schema";
-import { runEntitySchema, sessionEntitySchema } from "@/lib/offline/entities";
+import { runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
 

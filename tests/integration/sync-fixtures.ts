@@ -1,7 +1,7 @@
 import { v7 as uuidv7 } from "uuid";
 import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody, RunEvent } from "@/lib/events/schema";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { getCatalogueTask } from "@/lib/tasks";
 import type { PushReply, PushRequest } from "@/lib/validations/sync";
 import { POST as pushRoute } from "@/app/api/sync/push/route";

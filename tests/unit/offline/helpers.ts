@@ -1,7 +1,7 @@
 import { v7 as uuidv7 } from "uuid";
 import type { RunEvent, Stamp } from "@/lib/events/schema";
 import { createWindowcallDb, type WindowcallDb } from "@/lib/offline/db";
-import type { RunEntity, SessionEntity } from "@/lib/offline/entities";
+import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import type { Timers } from "@/lib/offline/sync-client";
 import { pushRequestSchema, type Ack, type PushRequest } from "@/lib/validations/sync";
 

@@ -7,7 +7,7 @@ import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
 import { consentFor, listedInLogbook } from "@/lib/offline/consent";
 import { getMeta, getWindowcallDb, type StoredRun } from "@/lib/offline/db";
-import type { SessionEntity } from "@/lib/offline/entities";
+import type { SessionEntity } from "@/lib/events/entities";
 import { ConsentBar, RecordedFor } from "./consent-bar";
 import { scoreStoredRun, taskTitle } from "./run-results";
 

@@ -2,7 +2,7 @@ import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import { buildTimeline } from "@/lib/field/timeline";
 import { getPageId } from "@/lib/offline/device";
-import type { RunEntity } from "@/lib/offline/entities";
+import type { RunEntity } from "@/lib/events/entities";
 import { foldRun, parseTaskDefinition, type FoldedRun, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
 
 export type ScoredRun = { task: TaskDefinition; timeline: TimelineEvent[]; folded: FoldedRun } | { task: null; error: string };

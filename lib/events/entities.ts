@@ -2,8 +2,9 @@ import { z } from "zod";
 import { epochMs, jsonProblem, text } from "@/lib/validations/bounds";
 
 /**
- * Field sessions and runs created on a device, stored locally (lib/offline/db.ts), pushed
- * to the server and pulled back. Plain zod only, so the server can import these schemas.
+ * Field sessions and runs: created on a device, stored there (lib/offline/db.ts), pushed to the
+ * server and pulled back. Part of the sync contract with lib/events/schema.ts: plain zod, no
+ * browser or server code, imported by both sides.
  */
 
 const userId = text(64).min(1);
