@@ -3,7 +3,7 @@
 import { useId, useState } from "react";
 import { parseFlightTime } from "@/lib/field/flight-fix";
 import { formatRunning, secondsText } from "@/lib/field/display";
-import type { InvalidReason } from "./flight-list";
+import type { InvalidReason } from "@/lib/events/schema";
 
 const REASONS: { value: InvalidReason; label: string }[] = [
   { value: "landing-outside-field", label: "Landed outside the field" },

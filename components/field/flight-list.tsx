@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
+import type { InvalidReason } from "@/lib/events/schema";
 import { msToTenths, type LiveFlight } from "@/lib/tasks";
 import { FlightFix } from "./flight-fix";
 
@@ -13,7 +14,6 @@ type Props = {
   onSetLaunch: (flightIndex: number, tenths: number) => Promise<string | null>;
   onInvalid: (flightIndex: number, reason: InvalidReason) => Promise<boolean>;
 };
-export type InvalidReason = "landing-outside-field" | "part-lost" | "forbidden-airspace" | "other";
 
 /** The lane's flights, newest first: time, what it adds, and its status as a word and a shape. */
 export function FlightList({ flights, laneLabel, onSetTime, onSetLaunch, onInvalid }: Props) {

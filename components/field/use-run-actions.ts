@@ -12,7 +12,7 @@ import { getPageId } from "@/lib/offline/device";
 import type { TaskDefinition } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import type { BodyFor } from "./use-recorder";
-import type { InvalidReason } from "./flight-list";
+import type { InvalidReason } from "@/lib/events/schema";
 
 type Deps = {
   task: TaskDefinition;

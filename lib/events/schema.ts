@@ -38,6 +38,10 @@ export type Stamp = z.infer<typeof stampSchema>;
 
 const lane = z.number().int().min(0).max(3);
 
+/** Why a flight is marked invalid (F3K.6.2 landing outside the field, F3K.2.2 a lost part, F3K.4.4 airspace). */
+export const invalidReasonSchema = z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]);
+export type InvalidReason = z.infer<typeof invalidReasonSchema>;
+
 /** What happened, by kind. Times of timed kinds are in the envelope's `stamp`. */
 export const eventBodySchema = z.discriminatedUnion("kind", [
   /** The working-time start signal (for task C: the launch signal of the next attempt). */
@@ -55,7 +59,7 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
     kind: z.literal("invalid"),
     lane,
     flightIndex: z.number().int().min(0).max(99),
-    reason: z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]),
+    reason: invalidReasonSchema,
   }),
   /** A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5). */
   z.object({

@@ -2,7 +2,7 @@ import type { WindowTask } from "./definition";
 import type { FlightReason, TimedFlight } from "./timing";
 
 /** What the counting rule decided for one flight. */
-export type Pick = { counted: boolean; slotCapTenths: number | null; creditedTenths: number; reason: FlightReason | null };
+export type CountDecision = { counted: boolean; slotCapTenths: number | null; creditedTenths: number; reason: FlightReason | null };
 
 /**
  * Applies a window task's counting rule (last n / best n / all) and its caps or ladder.
@@ -13,8 +13,8 @@ export type Pick = { counted: boolean; slotCapTenths: number | null; creditedTen
  * Any-order ladders match the longest flight to the longest target, the next to the next
  * (F3K.11.8); that matching is also the one that maximises the result.
  */
-export function countWindowFlights(def: WindowTask, flights: readonly TimedFlight[]): Pick[] {
-  const picks: Pick[] = flights.map((f) => ({
+export function countWindowFlights(def: WindowTask, flights: readonly TimedFlight[]): CountDecision[] {
+  const picks: CountDecision[] = flights.map((f) => ({
     counted: false,
     slotCapTenths: null,
     creditedTenths: 0,

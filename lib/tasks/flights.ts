@@ -1,3 +1,4 @@
+import type { InvalidReason } from "@/lib/events/schema";
 import { applyUndoAndCorrections, type TimelineEvent } from "./timeline";
 
 /** A launch and (once it happens) its landing, in absolute timeline ms. */
@@ -10,7 +11,7 @@ export type RawFlight = {
   landId: string | null;
 };
 
-export type InvalidReason = "landing-outside-field" | "part-lost" | "forbidden-airspace" | "other";
+export type { InvalidReason } from "@/lib/events/schema";
 
 export type LaneCall =
   | { kind: "target"; atMs: number; targetSec: number; id: string }

@@ -4,7 +4,8 @@
  */
 export { scoreTask, type FlightInput, type ScoreTaskInput, type ScoreTaskResult } from "./score-task";
 export { foldRun, type FoldedRun } from "./fold";
-export { liveState, phaseOf, type LiveState, type LaneLive, type LiveFlight, type Phase } from "./live";
+export { liveState, type LiveState, type LaneLive, type LiveFlight } from "./live";
+export { phaseOf, type Phase, type RunClock } from "./run-clock";
 export { pointsLost, type PointsLost } from "./breakdown";
 export { CATALOGUE, CATALOGUE_EDITION, getCatalogueTask, listVariants } from "./catalogue";
 export { buildCustomTask, customTaskInputSchema, type CustomTaskInput } from "./custom";

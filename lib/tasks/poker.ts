@@ -1,6 +1,6 @@
 import type { PokerTask } from "./definition";
 import type { LaneCall } from "./flights";
-import type { Pick } from "./counting";
+import type { CountDecision } from "./counting";
 import type { TimedFlight } from "./timing";
 
 /** Where a poker lane stands after its flights: used by the live state. */
@@ -14,7 +14,7 @@ export type PokerState = {
   done: boolean;
 };
 
-export type PokerResult = { picks: Pick[]; targetOf: (number | null)[]; state: PokerState };
+export type PokerResult = { picks: CountDecision[]; targetOf: (number | null)[]; state: PokerState };
 
 /**
  * Task E (F3K.11.5): each flight attempts the announced target; reaching or exceeding it
@@ -33,7 +33,7 @@ export type PokerResult = { picks: Pick[]; targetOf: (number | null)[]; state: P
  *   still airborne at the end ("airborne-at-end", a setting); launches after it do not count.
  */
 export function countPokerFlights(def: PokerTask, flights: readonly TimedFlight[], calls: readonly LaneCall[]): PokerResult {
-  const picks: Pick[] = [];
+  const picks: CountDecision[] = [];
   const targetOf: (number | null)[] = [];
   const endMs = def.workingTimeSec * 1000;
   let pending: number | null = null;

@@ -1,5 +1,5 @@
 import type { TaskDefinition } from "./definition";
-import { countWindowFlights, type Pick } from "./counting";
+import { countWindowFlights, type CountDecision } from "./counting";
 import type { LaneLog, RunLog } from "./flights";
 import { countPokerFlights, type PokerState } from "./poker";
 import { sumCapTenths } from "./limits";
@@ -37,7 +37,7 @@ export type LaneScore = {
 /** Scores one lane: timing rules, then the counting rule, then the sum cap (F3K.7). */
 export function scoreLane(def: TaskDefinition, run: RunLog, log: LaneLog, clock: Clock): LaneScore {
   let timed: TimedFlight[];
-  let picks: Pick[];
+  let picks: CountDecision[];
   let targetOf: (number | null)[] = [];
   let poker: PokerState | null = null;
   if (def.kind === "all-up") {
@@ -88,7 +88,7 @@ export function scoreLane(def: TaskDefinition, run: RunLog, log: LaneLog, clock:
   };
 }
 
-function statusOf(f: TimedFlight, pick: Pick): FlightStatus {
+function statusOf(f: TimedFlight, pick: CountDecision): FlightStatus {
   if (f.open) return "open";
   if (f.zeroReason && !f.excludedReason) return "invalid";
   if (!pick.counted) return "not-counted";

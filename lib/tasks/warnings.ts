@@ -1,5 +1,5 @@
 import type { TaskDefinition } from "./definition";
-import type { RunClock } from "./live";
+import type { RunClock } from "./run-clock";
 import type { LaneScore } from "./score";
 import { formatTenths } from "./time";
 
