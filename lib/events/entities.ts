@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { epochMs, jsonProblem, text } from "@/lib/validations/bounds";
+import { epochMs, jsonProblem, text } from "./bounds";
 
 /**
  * Field sessions and runs: created on a device, stored there (lib/offline/db.ts), pushed to the

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { durationMs, epochMs, int4, MAX_DELAY_MS, MAX_OFFSET_MS, text } from "@/lib/validations/bounds";
+import { durationMs, epochMs, int4, MAX_DELAY_MS, MAX_OFFSET_MS, text } from "./bounds";
 
 /**
  * The append-only event log of the flight line (SYNC.md §1).
