@@ -91,6 +91,3 @@ export const runEventSchema = z.object({
   body: eventBodySchema,
 });
 export type RunEvent = z.infer<typeof runEventSchema>;
-
-/** The kinds whose stamp is the moment that matters (a tap on the line). */
-export const TIMED_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "launch", "landing"]);

@@ -14,19 +14,9 @@ export function msToTenths(ms: number): number {
   return (whole - (whole % 100)) / 100;
 }
 
-/** Whole seconds → tenths (exact for integers). */
-export function secToTenths(sec: number): number {
-  return sec * 10;
-}
-
 /** Tenths → seconds as the float nearest the tenth (e.g. 5690 → 569, 1425 → 142.5). */
 export function tenthsToSec(tenths: number): number {
   return tenths / 10;
-}
-
-/** Seconds (a multiple of 0.1, possibly carrying float noise) → integer tenths. */
-export function secToTenthsRounded(sec: number): number {
-  return Math.round(sec * 10);
 }
 
 /** Tenths as `m:ss.t` (e.g. 1839 → "3:03.9"), truncated, never rounded up; a minus sign when negative. */
