@@ -8,9 +8,9 @@
 import { v7 as uuidv7 } from "uuid";
 import type { RunEvent } from "@/lib/events/schema";
 import { tapKindFor } from "@/lib/field/lane-tap";
-import { buildTimeline } from "@/lib/field/timeline";
+import { placedTimeline, placeOnRun } from "@/lib/offline/run-result";
 import { createWindowcallDb } from "@/lib/offline/db";
-import { getDeviceId, getPageId, stampFromInput } from "@/lib/offline/device";
+import { getDeviceId, stampFromInput } from "@/lib/offline/device";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
 import { getCatalogueTask } from "@/lib/tasks";
 
@@ -48,9 +48,8 @@ async function setup() {
     const t0 = e.timeStamp;
     const stamp = stampFromInput(t0, null);
     queue = queue.then(async () => {
-      const ctx = { deviceId, pageId: getPageId(), wallNow: Date.now(), monoNow: performance.now(), thetaMs: null };
-      const at = ctx.wallNow - (ctx.monoNow - stamp.monoMs);
-      const kind = tapKindFor(task, buildTimeline(events, ctx), at, 0, 1);
+      const view = { deviceId, me: null, estimate: null };
+      const kind = tapKindFor(task, placedTimeline(events, view), placeOnRun(events, view, stamp), 0, 1);
       events.push(await recordEvent(db, { runId, body: { kind, lane: 0 }, stamp }));
       results.tap.push(performance.now() - t0);
       if (events.length > TAPS_PER_RUN) await newRun();

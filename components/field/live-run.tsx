@@ -5,9 +5,9 @@ import { CalloutCaption, useCallouts, useWakeLock, WakeLockNote } from "@/compon
 import type { RunEvent } from "@/lib/events/schema";
 import { isRunOpen } from "@/lib/field/lane-tap";
 import { parsePrepPlan, prepPlanKey, prepStageAt, type PrepPlan } from "@/lib/field/prep-plan";
-import { buildTimeline } from "@/lib/field/timeline";
 import type { TimeSource } from "@/lib/field/time-source";
 import { getPageId } from "@/lib/offline/device";
+import { phoneResult, placeOnRun, type PhoneView } from "@/lib/offline/run-result";
 import { liveState } from "@/lib/tasks";
 import { CorrectionsList } from "@/components/run";
 import { ClockPanel } from "./clock-panel";
@@ -31,19 +31,24 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   const notify = useNotifyWrite();
   const { profile } = useFieldProfile();
   const [said, setSaid] = useState({ text: "", n: 0 });
+  const view: PhoneView = { deviceId, me: profile?.id ?? null, estimate };
+  const nowOnRun = (all: readonly RunEvent[], wallMs: number, monoMs: number) => placeOnRun(all, view, { wallMs, monoMs, pageId: getPageId(), offset: estimate });
   const onWritten = (event: RunEvent, all: readonly RunEvent[]) => {
     notify();
-    const ctx = { deviceId, pageId: getPageId(), wallNow: clocks.wallNow(), monoNow: clocks.monoNow(), thetaMs: estimate?.thetaMs ?? null };
-    const text = describeWrite(event, task, buildTimeline(all, ctx), ctx.wallNow, run.lanes);
+    const result = phoneResult(run, task, all, view);
+    const text = describeWrite(event, task, result.timeline, nowOnRun(all, clocks.wallNow(), clocks.monoNow()), run.lanes);
     if (text) setSaid((s) => ({ text, n: s.n + 1 }));
   };
   const recorder = useRecorder({ runId: run.id, stored: data.events, clocks, estimate, onWritten });
-  const actions = useRunActions({ task, laneCount, deviceId, estimate, clocks, record: recorder.record, stampInput: recorder.stampInput });
+  const actions = useRunActions({ task, laneCount, view, clocks, record: recorder.record, stampInput: recorder.stampInput });
   const open = isRunOpen(recorder.events);
   const now = useNow(clocks, open);
-  const ctx = { deviceId, pageId: getPageId(), wallNow: now.wall, monoNow: now.mono, thetaMs: estimate?.thetaMs ?? null };
-  const timeline = buildTimeline(recorder.events, ctx);
-  const live = liveState(task, timeline, now.wall, { laneCount });
+  // The one result function (lib/results), as the logbook and the server use it; "now" on its timeline.
+  const result = phoneResult(run, task, recorder.events, view);
+  const nowMs = nowOnRun(recorder.events, now.wall, now.mono);
+  const live = liveState(task, result.timeline, nowMs, { laneCount });
+  // The countdown plan is in device wall time; callouts compare on the run's timeline.
+  const wallToRun = nowMs - now.wall;
 
   // Rendered only in the browser (the run is read from IndexedDB), so localStorage is there.
   const [plan] = useState<PrepPlan | null>(() => parsePrepPlan(localStorage.getItem(prepPlanKey(run.id))));
@@ -51,8 +56,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   // Callouts each frame (said once each) and the screen kept awake while the window is open.
   const laneNames: string[] = [];
   for (const l of run.lanes) laneNames[l.lane] = l.pilotName;
-  const calloutPlan = plan ? { startAtMs: plan.beganAtWallMs + (plan.prepSec + plan.noFlySec) * 1000, preparationSec: plan.prepSec, noFlySec: plan.noFlySec } : null;
-  const callouts = useCallouts(task, open ? live : null, now.wall, { runKey: run.id, laneNames, plan: calloutPlan });
+  const calloutPlan = plan ? { startAtMs: plan.beganAtWallMs + (plan.prepSec + plan.noFlySec) * 1000 + wallToRun, preparationSec: plan.prepSec, noFlySec: plan.noFlySec } : null;
+  const callouts = useCallouts(task, open ? live : null, nowMs, { runKey: run.id, laneNames, plan: calloutPlan });
   const wake = useWakeLock(open);
   const { startAt, tap, start } = actions;
   useEffect(() => {
@@ -103,7 +108,7 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
         {said.n % 2 ? "\u200b" : ""}
       </p>
       {!open ? (
-        <RunSummary runId={run.id} task={task} timeline={timeline} lanes={run.lanes} />
+        <RunSummary runId={run.id} task={task} result={result} lanes={run.lanes} />
       ) : notStarted ? (
         <>
           <PrepPanel stage={stage} onStart={(t) => void start(t)} />

@@ -1,13 +1,15 @@
 import { Breakdown, TimelineStrip } from "@/components/run";
 import { secondsText } from "@/lib/field/display";
 import type { RunLane } from "@/lib/events/entities";
-import { foldRun, pointsLost, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
+import type { PhoneResult } from "@/lib/offline/run-result";
+import { pointsLost, type TaskDefinition } from "@/lib/tasks";
+import { ClockNote } from "@/components/run";
 
-type Props = { runId: string; task: TaskDefinition; timeline: readonly TimelineEvent[]; lanes: readonly RunLane[] };
+type Props = { runId: string; task: TaskDefinition; result: PhoneResult; lanes: readonly RunLane[] };
 
 /** The closed window: each pilot's result, what was possible, and the way to the full review. */
-export function RunSummary({ runId, task, timeline, lanes }: Props) {
-  const folded = foldRun(task, timeline, { laneCount: lanes.length });
+export function RunSummary({ runId, task, result, lanes }: Props) {
+  const { folded } = result;
   return (
     <section aria-labelledby="summary-title" className="space-y-4">
       <h2 id="summary-title" className="text-2xl font-extrabold">
@@ -28,6 +30,7 @@ export function RunSummary({ runId, task, timeline, lanes }: Props) {
                 of {secondsText(lost.maxTenths)} s possible · {secondsText(lost.lostTenths)} s lost
                 {lane.penaltyPoints > 0 ? ` · penalty −${lane.penaltyPoints} points` : ""}
               </p>
+              <ClockNote derivation={result.lanes.find((d) => d.lane === l.lane)} />
               <div className="mt-3 space-y-3">
                 <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
                 <Breakdown definition={task} lane={lane} />

@@ -2,11 +2,10 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { isRunOpen } from "@/lib/field/lane-tap";
-import { buildTimeline } from "@/lib/field/timeline";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
-import { getPageId } from "@/lib/offline/device";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
-import { foldRun, parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
+import { phoneResult } from "@/lib/offline/run-result";
+import { parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
 
 export type FieldRunRow = {
   run: RunEntity;
@@ -25,8 +24,11 @@ export function useFieldRuns(): FieldRunRow[] | undefined {
   return useLiveQuery(async () => {
     const db = getWindowcallDb();
     const runs = (await db.runs.toArray()).sort((a, b) => b.createdAtWallMs - a.createdAtWallMs).slice(0, RECENT);
-    const deviceId = (await getMeta(db, "deviceId")) ?? "";
-    const ctx = { deviceId, pageId: getPageId(), wallNow: Date.now(), monoNow: performance.now(), thetaMs: null };
+    const view = {
+      deviceId: (await getMeta(db, "deviceId")) ?? null,
+      me: (await getMeta(db, "profile"))?.id ?? null,
+      estimate: (await getMeta(db, "clockEstimate")) ?? null,
+    };
     return Promise.all(
       runs.map(async (run): Promise<FieldRunRow> => {
         const [session, events] = await Promise.all([db.sessions.get(run.sessionId), db.events.where("runId").equals(run.id).toArray()]);
@@ -37,8 +39,7 @@ export function useFieldRuns(): FieldRunRow[] | undefined {
           task = null;
         }
         const open = isRunOpen(events);
-        const timeline = buildTimeline(events, ctx);
-        const resultsTenths = task && !open ? foldRun(task, timeline, { laneCount: run.lanes.length }).lanes.map((l) => l.resultTenths) : [];
+        const resultsTenths = task && !open ? phoneResult(run, task, events, view).folded.lanes.map((l) => l.resultTenths) : [];
         return { run, session, task, open, started: events.some((e) => e.body.kind === "window-start"), resultsTenths };
       }),
     );

@@ -14,10 +14,7 @@ export function formatRunning(ms: number): string {
   return formatTenths(Math.max(0, Math.floor(Math.floor(ms) / 100)));
 }
 
-/** Tenths as plain seconds with one decimal, e.g. 5690 → "569.0". */
-export function secondsText(tenths: number): string {
-  return (Math.trunc(tenths) / 10).toFixed(1);
-}
+export { secondsText } from "@/lib/tasks";
 
 /** How a flight's status is drawn: a word and a shape, never colour alone. */
 export const STATUS_MARK: Record<FlightStatus, { symbol: string; label: string }> = {

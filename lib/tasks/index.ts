@@ -20,7 +20,7 @@ export {
   type AllUpTask,
 } from "./definition";
 export { maxResultTenths, sumCapTenths, isWindowBound } from "./limits";
-export { msToTenths, tenthsToSec, formatTenths } from "./time";
+export { msToTenths, tenthsToSec, formatTenths, secondsText } from "./time";
 export type { TimelineEvent } from "./timeline";
 export type { ScoredFlight, FlightStatus, LaneScore } from "./score";
 export type { FlightReason } from "./timing";

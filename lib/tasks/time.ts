@@ -27,3 +27,8 @@ export function formatTenths(tenths: number): string {
   const seconds = Math.floor((t % 600) / 10);
   return `${sign}${minutes}:${String(seconds).padStart(2, "0")}.${t % 10}`;
 }
+
+/** Tenths as plain seconds with one decimal, e.g. 5690 → "569.0" (truncated, never rounded up). */
+export function secondsText(tenths: number): string {
+  return (Math.trunc(tenths) / 10).toFixed(1);
+}

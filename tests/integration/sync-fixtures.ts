@@ -44,7 +44,7 @@ export function recorder(id: string, opts: { thetaMs?: number; estimate?: ClockE
   return {
     id,
     at(runId: string, trueMs: number, body: EventBody, offset: ClockEstimate | null = estimate): RunEvent {
-      return { id: uuidv7(), runId, deviceId: id, seq: ++seq, stamp: { wallMs: trueMs - thetaMs, monoMs: 1000 + seq, pageId: `page-${id}`, offset }, body };
+      return { id: uuidv7(), runId, deviceId: id, seq: ++seq, stamp: { wallMs: trueMs - thetaMs, monoMs: trueMs, pageId: `page-${id}`, offset }, body };
     },
     /** Launch and landing events for flights of `secs`, back to back from `fromMs`, 1 s between. */
     flights(runId: string, lane: number, secs: readonly number[], fromMs: number): RunEvent[] {

@@ -9,7 +9,8 @@ export function stored(body: EventBody, stamp: Partial<Stamp> & { wallMs: number
     runId: "00000000-0000-7000-8000-999999999999",
     deviceId,
     seq: n,
-    stamp: { monoMs: 0, pageId: "page-1", offset: null, ...stamp },
+    // By default the steady clock runs with the wall clock (a device whose wall clock was not stepped).
+    stamp: { monoMs: stamp.wallMs, pageId: "page-1", offset: null, ...stamp },
     body,
   };
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { flightTimeCorrection, launchTimeCorrection } from "@/lib/field/flight-fix";
 import { isRunOpen, tapKindFor, undoTargetFor } from "@/lib/field/lane-tap";
-import { buildTimeline } from "@/lib/field/timeline";
+import { placedTimeline } from "@/lib/offline/run-result";
 import { getCatalogueTask, liveState, type TimelineEvent } from "@/lib/tasks";
 import { eventLog } from "../tasks/helpers";
 import { stored } from "./helpers";
@@ -58,15 +58,15 @@ describe("undoTargetFor", () => {
 
 describe("flightTimeCorrection", () => {
   it("moves the landing so the flight scores exactly the typed time", () => {
-    const ctx = { deviceId: "device-a", pageId: "page-2", wallNow: 2_000_000, monoNow: 9, thetaMs: null };
+    const ctx = { deviceId: "device-a", me: null, estimate: null };
     const start = stored({ kind: "window-start" }, { wallMs: 1_000_000.25 });
     const launch = stored({ kind: "launch", lane: 0 }, { wallMs: 1_001_000.7 });
     const landing = stored({ kind: "landing", lane: 0 }, { wallMs: 1_064_000.3 });
     const events = [start, launch, landing];
-    const body = flightTimeCorrection(buildTimeline(events, ctx), events, 0, 0, 1, 598);
+    const body = flightTimeCorrection(placedTimeline(events, ctx), events, 0, 0, 1, 598);
     expect(body?.targetId).toBe(landing.id);
     const fixed = [...events, stored(body!, { wallMs: 1_900_000 })];
-    const state = liveState(H, buildTimeline(fixed, ctx), 2_000_000, { laneCount: 1 });
+    const state = liveState(H, placedTimeline(fixed, ctx), 2_000_000, { laneCount: 1 });
     expect(state.lanes[0]?.flights[0]?.timeTenths).toBe(598);
   });
   it("refuses a flight still in the air", () => {
@@ -78,7 +78,7 @@ describe("flightTimeCorrection", () => {
 });
 
 describe("launchTimeCorrection", () => {
-  const ctx = { deviceId: "device-a", pageId: "page-2", wallNow: 2_000_000, monoNow: 9, thetaMs: null };
+  const ctx = { deviceId: "device-a", me: null, estimate: null };
   const start = stored({ kind: "window-start" }, { wallMs: 1_000_000.25 });
   const launch1 = stored({ kind: "launch", lane: 0 }, { wallMs: 1_001_000.7 });
   const land1 = stored({ kind: "landing", lane: 0 }, { wallMs: 1_064_000.3 });
@@ -88,18 +88,18 @@ describe("launchTimeCorrection", () => {
 
   it("moves the launch to the typed working time and keeps the landing: the flight time follows", () => {
     // Launch typed as 0:02.5 into working time, landing 64.00005 s after the signal: 61.50005 s → 61.5 s (F3K.7 tenths).
-    const fix = launchTimeCorrection(buildTimeline(events, ctx), events, 0, 0, 1, 25);
+    const fix = launchTimeCorrection(placedTimeline(events, ctx), events, 0, 0, 1, 25);
     if (!("body" in fix)) throw new Error(fix.error);
     expect(fix.body.targetId).toBe(launch1.id);
     const fixed = [...events, stored(fix.body, { wallMs: 1_900_000 })];
-    const state = liveState(H, buildTimeline(fixed, ctx), 2_000_000, { laneCount: 1 });
+    const state = liveState(H, placedTimeline(fixed, ctx), 2_000_000, { laneCount: 1 });
     expect(state.lanes[0]?.flights[0]?.launchMs).toBe(2500);
     expect(state.lanes[0]?.flights[0]?.timeTenths).toBe(615);
     expect(state.lanes[0]?.flights[1]?.timeTenths).toBe(300);
   });
 
   it("refuses a launch at or after its own landing, or before the lane's previous landing", () => {
-    const timeline = buildTimeline(events, ctx);
+    const timeline = placedTimeline(events, ctx);
     expect(launchTimeCorrection(timeline, events, 0, 0, 1, 641)).toEqual({ error: "The launch must come before this flight's landing." });
     expect(launchTimeCorrection(timeline, events, 0, 1, 1, 600)).toEqual({ error: "The launch must come after the previous flight's landing." });
     expect(launchTimeCorrection(timeline, events, 0, 5, 1, 10)).toEqual({ error: "There is no such flight to correct." });

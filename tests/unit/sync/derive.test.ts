@@ -254,3 +254,20 @@ describe("deriveRun: penalties are rulings, not timing records", () => {
     expect(lane!.derived.notes).toEqual([]);
   });
 });
+
+describe("deriveRun: a phone whose wall clock jumped during the run", () => {
+  it("takes the flight's duration from the phone's steady clock and flags the lane with both times", () => {
+    const phone = device("phone", PILOT);
+    phone.at(0, { kind: "window-start" });
+    const launch = phone.at(1000, { kind: "launch", lane: 0 });
+    const landing = phone.at(570_500, { kind: "landing", lane: 0 }); // 569.5 s on the steady clock
+    // ... but the wall clock was stepped back 532.3 s during the flight
+    landing.stamp = { ...landing.stamp, wallMs: launch.stamp.wallMs + 37_200 };
+    const N = getCatalogueTask("N");
+    const [lane] = deriveRun({ ...own, task: N, lanes: solo, events: phone.events, estimatesByDevice: estimatesOf(phone) });
+    // Task N: the best flight counts up to 599 s (RULES.md F3K.11 table).
+    expect(lane!.resultTenths).toBe(5695);
+    expect(lane!.needsReview).toBe(true);
+    expect(lane!.reviewReason).toContain("569.5 s by the phone's steady clock, 37.2 s by its wall clock");
+  });
+});

@@ -64,7 +64,7 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
   return (
     <ul className="divide-y-2 divide-line border-t-2 border-line" aria-label="Runs">
       {runs.map((r) => {
-        const scored = scoreStoredRun(r, data.events.filter((e) => e.runId === r.id), data.deviceId, data.estimate);
+        const scored = scoreStoredRun(r, data.events.filter((e) => e.runId === r.id), { deviceId: data.deviceId, me: data.me, estimate: data.estimate });
         const title = scored.task ? taskTitle(scored.task) : "Unreadable task";
         const consent = consentFor(r, data.me);
         const recorder = r.recordedBy?.name ?? "someone else";

@@ -1,27 +1,22 @@
-import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
-import { buildTimeline } from "@/lib/field/timeline";
-import { getPageId } from "@/lib/offline/device";
-import type { RunEntity } from "@/lib/events/entities";
-import { foldRun, parseTaskDefinition, type FoldedRun, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
+import type { StoredRun } from "@/lib/offline/db";
+import { phoneResult, type PhoneResult, type PhoneView } from "@/lib/offline/run-result";
+import { parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
 
-export type ScoredRun = { task: TaskDefinition; timeline: TimelineEvent[]; folded: FoldedRun } | { task: null; error: string };
+export type ScoredRun = ({ task: TaskDefinition } & PhoneResult) | { task: null; error: string };
 
 /**
- * A stored run scored on this device: its own stored task definition (not the catalogue's
- * current one), its events placed on one timeline as the field screen places them, folded
- * by the task engine. Browser only (reads the page's monotonic clock).
+ * A stored run scored on this device by its own stored task definition (not the catalogue's
+ * current one) through the one result function, as the field screen and the server score it.
  */
-export function scoreStoredRun(run: RunEntity, events: readonly RunEvent[], deviceId: string | null, estimate: ClockEstimate | null): ScoredRun {
+export function scoreStoredRun(run: StoredRun, events: readonly RunEvent[], view: PhoneView): ScoredRun {
   let task: TaskDefinition;
   try {
     task = parseTaskDefinition(run.task);
   } catch {
     return { task: null, error: "This run's task definition cannot be read on this device." };
   }
-  const ctx = { deviceId: deviceId ?? "", pageId: getPageId(), wallNow: Date.now(), monoNow: performance.now(), thetaMs: estimate?.thetaMs ?? null };
-  const timeline = buildTimeline(events, ctx);
-  return { task, timeline, folded: foldRun(task, timeline, { laneCount: run.lanes.length }) };
+  return { task, ...phoneResult(run, task, events, view) };
 }
 
 /** "Task G · Five longest flights", or the custom task's name. */

@@ -1,7 +1,7 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { Breakdown, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
+import { Breakdown, ClockNote, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
 import { describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
@@ -26,7 +26,7 @@ export function RunReview() {
       </div>
     );
   }
-  const scored = scoreStoredRun(run, events, data.deviceId, data.estimate);
+  const scored = scoreStoredRun(run, events, { deviceId: data.deviceId, me: data.profile?.id ?? null, estimate: data.estimate });
   if (!scored.task) return <p role="alert">{scored.error}</p>;
   const { task, folded } = scored;
   const names = data.profile ? { [data.profile.id]: data.profile.name } : {};
@@ -57,6 +57,7 @@ export function RunReview() {
             {lane.sumCapTenths !== null && lane.rawTenths > lane.sumCapTenths ? (
               <p className="text-sm text-muted">Flights add up to {secondsText(lane.rawTenths)} s; the working time allows {secondsText(lane.sumCapTenths)} s (F3K.7).</p>
             ) : null}
+            <ClockNote derivation={scored.lanes.find((d) => d.lane === l.lane)} />
             <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
             <h3 className="text-lg font-bold">Where the points went</h3>

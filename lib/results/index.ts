@@ -1,0 +1,8 @@
+/**
+ * From a run's events to its results: one pure path for the field screen, the logbook, the
+ * run page, the server's derivation and (later) contest results.
+ */
+export { runResult, type RunResult } from "./run-result";
+export { placeEvents, placeStamp, type ClockStep, type Estimates, type PlacedEvent, type RecordedEvent } from "./place";
+export { describeClockFlags } from "./clock-flags";
+export type * from "./types";

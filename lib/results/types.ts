@@ -1,0 +1,116 @@
+import type { ClockEstimate } from "@/lib/clock";
+import type { PointsLost, TaskDefinition } from "@/lib/tasks";
+import type { PlacedEvent, RecordedEvent } from "./place";
+
+/**
+ * Types of the server-side derivation (SYNC.md §1, §3): a run's stored events from every
+ * device → one official result per lane, every device's version kept beside it.
+ */
+
+/** One event with its place on the run's timeline (lib/results/place.ts). */
+export type DerivationEvent = PlacedEvent<RecordedEvent>;
+
+export type DerivationInput = {
+  task: TaskDefinition;
+  /** Who created the run (its timekeeper at the field): their signals go before a lane pilot's own. */
+  createdBy: string;
+  lanes: readonly { lane: number; pilotUserId: string | null }[];
+  /**
+   * Users a contest assigned to time this run: only their records are official. Empty until
+   * contests assign timekeepers (db/schema/contests.ts has no such assignment yet).
+   */
+  officials: ReadonlySet<string>;
+  /** Every event of the run, from every device (placed on the timeline by lib/results/place.ts). */
+  events: readonly RecordedEvent[];
+  /** Each device's clock estimates (server: all it stored; a phone: what it knows). */
+  estimatesByDevice: ReadonlyMap<string, readonly ClockEstimate[]>;
+};
+
+/** One device's record of a lane (or of the run's signals), as a candidate in the conflict rules. */
+export type Source = {
+  deviceId: string;
+  recordedBy: string;
+  /** Recorded by a timekeeper a contest assigned to the run (DerivationInput.officials). */
+  official: boolean;
+  /** Recorded by the lane's own pilot (for signals: by the run's creator). */
+  own: boolean;
+  /** Corrected time of its first event in question. */
+  firstAtMs: number;
+  /** The events it contributes, with the voids and corrections that name them. */
+  events: DerivationEvent[];
+};
+
+/** A flight as the run page draws it (times relative to working-time start; corrected clock). */
+export type DerivedFlight = {
+  index: number;
+  launchMs: number;
+  landMs: number | null;
+  status: string;
+  reason: string | null;
+  timeTenths: number;
+  creditedTenths: number;
+  targetSec: number | null;
+};
+
+/** One device's version of a lane: what it says, on the corrected clock. */
+export type LaneVersion = {
+  deviceId: string;
+  recordedBy: string;
+  official: boolean;
+  chosen: boolean;
+  resultTenths: number;
+  firstAtMs: number;
+  /** Largest uncertainty among its events (null = unbounded: no clock measurement). */
+  uncertaintyMs: number | null;
+  eventCount: number;
+  flights: { launchAtMs: number; landAtMs: number | null }[];
+};
+
+/**
+ * A penalty or invalid mark that does not count: given by someone who is neither an official
+ * nor the lane's pilot (a partner at practice), or by the pilot from a phone that did not time
+ * the lane. Shown beside the result so the pilot sees it before accepting the run.
+ */
+export type RulingNote = {
+  eventId: string;
+  deviceId: string;
+  recordedBy: string;
+  kind: "penalty" | "invalid";
+  points: number | null;
+  flightIndex: number | null;
+  reason: string;
+};
+
+/** A launch or landing the clocks cannot place on one side of a boundary. */
+export type ReviewItem = { eventId: string; boundary: string; atMs: number; boundaryMs: number; marginMs: number | null };
+
+/**
+ * A wall-clock step inside the lane's record: the steady (monotonic) time is used, the wall
+ * time is shown beside it. `flightIndex` when both events are one flight's launch and landing.
+ */
+export type ClockFlag = { deviceId: string; flightIndex: number | null; monoTenths: number; wallTenths: number };
+
+/** What run_lanes.derived holds (JSON: no Infinity, unbounded is null). */
+export type LaneDerived = {
+  signal: { deviceId: string; official: boolean; atMs: number[]; uncertaintyMs: number | null } | null;
+  source: { deviceId: string; official: boolean } | null;
+  flights: DerivedFlight[];
+  breakdown: PointsLost | null;
+  versions: LaneVersion[];
+  review: ReviewItem[];
+  /** Where the phone that timed the lane saw its wall clock jump against its steady clock (absent before this check existed). */
+  clock?: ClockFlag[];
+  /** Rulings recorded for the lane that do not count (absent in results derived before notes existed). */
+  notes?: RulingNote[];
+  ended: boolean;
+};
+
+export type LaneDerivation = {
+  lane: number;
+  /** null when no device recorded anything for this lane. */
+  resultTenths: number | null;
+  penaltyPoints: number;
+  needsReview: boolean;
+  reviewReason: string | null;
+  derived: LaneDerived;
+};
