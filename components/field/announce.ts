@@ -29,8 +29,10 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
       return "Undone";
     case "correct":
       return "Time corrected";
-    case "invalid":
-      return `Flight ${b.flightIndex + 1} marked invalid${laneSuffix(b.lane)}`;
+    case "invalid": {
+      const flight = liveState(task, timeline, nowMs, { laneCount: lanes.length }).lanes[b.lane]?.flights.find((f) => f.launchId === b.flightId);
+      return `${flight ? `Flight ${flight.index + 1}` : "Flight"} marked invalid${laneSuffix(b.lane)}`;
+    }
     case "penalty":
       return `Penalty ${b.points} points${laneSuffix(b.lane)}`;
     case "run-end":

@@ -12,7 +12,8 @@ type Props = {
   onSetTime: (flightIndex: number, tenths: number) => Promise<boolean>;
   /** Resolves to why the launch could not move, or null once stored. */
   onSetLaunch: (flightIndex: number, tenths: number) => Promise<string | null>;
-  onInvalid: (flightIndex: number, reason: InvalidReason) => Promise<boolean>;
+  /** Marks the flight launched by event `flightId` invalid. */
+  onInvalid: (flightId: string, reason: InvalidReason) => Promise<boolean>;
 };
 
 /** The lane's flights, newest first: time, what it adds, and its status as a word and a shape. */
@@ -59,7 +60,7 @@ export function FlightList({ flights, laneLabel, onSetTime, onSetLaunch, onInval
                   if (refused === null) setFixing(null);
                   return refused;
                 }}
-                onInvalid={async (r) => (await onInvalid(f.index, r)) && setFixing(null)}
+                onInvalid={async (r) => (await onInvalid(f.launchId, r)) && setFixing(null)}
               />
             ) : null}
           </li>

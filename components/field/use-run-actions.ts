@@ -62,7 +62,8 @@ export function useRunActions({ task, laneCount, view, clocks, record, stampInpu
       );
       return stored ? null : (refused ?? "The correction was not stored.");
     },
-    invalid: (lane: number, flightIndex: number, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightIndex, reason }),
+    /** Marks the flight launched by event `flightId` invalid: keyed by its launch, so an undo elsewhere cannot move it. */
+    invalid: (lane: number, flightId: string, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightId, reason }),
     penalty: (lane: number, points: number, reason: string) => fixed({ kind: "penalty", lane, points, reason }),
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),
     endCall: (lane: number, timeStamp: number) => fixed({ kind: "end-call", lane }, stampInput(timeStamp)),

@@ -67,8 +67,11 @@ function describe(e: RunEvent, byId: Map<string, RunEvent>, laneName: (lane: num
       const moved = Math.round((b.wallMs - t.stamp.wallMs) / 100) / 10;
       return `Moved the ${WORDS[t.body.kind]}${of(t)} by ${moved >= 0 ? "+" : "−"}${Math.abs(moved).toFixed(1)} s`;
     }
-    case "invalid":
-      return `Flight ${b.flightIndex + 1} of ${laneName(b.lane)} scores zero: ${b.reason.replaceAll("-", " ")}`;
+    case "invalid": {
+      const launch = b.flightId ? byId.get(b.flightId) : undefined;
+      const which = launch ? `The flight launched at ${clock.format(new Date(launch.stamp.wallMs))}` : b.flightIndex !== undefined ? `Flight ${b.flightIndex + 1}` : "A flight";
+      return `${which} of ${laneName(b.lane)} scores zero: ${b.reason.replaceAll("-", " ")}`;
+    }
     case "penalty":
       return `Penalty −${b.points} points for ${laneName(b.lane)}: ${b.reason}`;
     default:

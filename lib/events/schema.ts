@@ -54,19 +54,31 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("target"), lane, targetSec: z.number().int().min(1).max(3600) }),
   /** Task E: the pilot calls "end of working time" — one attempt only follows. */
   z.object({ kind: z.literal("end-call"), lane }),
-  /** A flight scores zero (landing outside the field, a lost part, forbidden airspace). */
-  z.object({
-    kind: z.literal("invalid"),
-    lane,
-    flightIndex: z.number().int().min(0).max(99),
-    reason: invalidReasonSchema,
-  }),
-  /** A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5). */
+  /**
+   * A flight scores zero (landing outside the field, a lost part, forbidden airspace). The flight
+   * is named by its launch event's id (`flightId`), so an undo of another flight cannot move the
+   * mark. Events recorded before that named it by position (`flightIndex`, 0-based in the lane's
+   * flights when the mark was recorded) are still read: the engine maps them once to a launch.
+   */
+  z
+    .object({
+      kind: z.literal("invalid"),
+      lane,
+      flightId: z.string().uuid().optional(),
+      flightIndex: z.number().int().min(0).max(99).optional(),
+      reason: invalidReasonSchema,
+    })
+    .refine((b) => b.flightId !== undefined || b.flightIndex !== undefined, "an invalid mark names its flight (flightId)"),
+  /**
+   * A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5); `flightId`
+   * names the launch of the attempt it was given in, when it belongs to one.
+   */
   z.object({
     kind: z.literal("penalty"),
     lane,
     points: z.number().int().min(1).max(1000),
     reason: text(200).min(1),
+    flightId: z.string().uuid().optional(),
   }),
   /** Moves a timed event to another time (ms on the same clock as its stamp). */
   z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: epochMs }),

@@ -47,10 +47,11 @@ export function runResult(input: DerivationInput): RunResult {
     const candidates = laneSources(placed, lane, pilotUserId, roles, toTimeline);
     const chosen = candidates[0] ?? null;
     const rulings = laneRulings(placed, lane, input.officials, new Set(candidates.map((c) => c.deviceId)));
-    const notes = rulingNotes(placed, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
+    const notesRaw = rulingNotes(placed, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
     const score = (source: Source | null, lane: number): LaneScore =>
       foldRun(input.task, [...signalEvents, ...rulings, ...(source?.events ?? [])].map(toTimeline), { laneCount }).lanes[lane]!;
     const laneScore = score(chosen, lane);
+    const notes = notesRaw.map((n) => (n.flightId ? { ...n, flightIndex: laneScore.flights.find((f) => f.launchId === n.flightId)?.index ?? null } : n));
     for (const e of [...rulings, ...(chosen?.events ?? [])]) counted.set(e.id, e);
     const versions = candidates.map((c, i): LaneVersion => {
       const s = i === 0 ? laneScore : score(c, lane);

@@ -122,8 +122,7 @@ function rulingsOn(events: readonly DerivationEvent[], lane: number, keep: (e: D
 /**
  * Penalties and invalid marks for a lane given by an official (an assigned timekeeper) from a
  * phone that timed none of the lane — a field director's phone — with their undos. They apply
- * to whichever timing record is chosen (an invalid mark names the flight by its number in the
- * lane); a phone that also timed the lane keeps its rulings in its own record, so one ruling is
+ * to whichever timing record is chosen (an invalid mark names the flight by its launch event's id); a phone that also timed the lane keeps its rulings in its own record, so one ruling is
  * never counted twice.
  */
 export function laneRulings(
@@ -154,9 +153,9 @@ export function rulingNotes(
     const e = byId.get(t.id);
     if (!e || applied.has(e.id)) continue;
     if (e.body.kind === "penalty") {
-      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, reason: e.body.reason });
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, flightId: e.body.flightId ?? null, reason: e.body.reason });
     } else if (e.body.kind === "invalid") {
-      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "invalid", points: null, flightIndex: e.body.flightIndex, reason: e.body.reason });
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "invalid", points: null, flightIndex: e.body.flightIndex ?? null, flightId: e.body.flightId ?? null, reason: e.body.reason });
     }
   }
   return out;

@@ -77,7 +77,10 @@ export type RulingNote = {
   recordedBy: string;
   kind: "penalty" | "invalid";
   points: number | null;
+  /** The flight's number in the lane (0-based) in the result, when it names one. */
   flightIndex: number | null;
+  /** The launch event id of the flight it names (absent on marks recorded by position). */
+  flightId?: string | null;
   reason: string;
 };
 

@@ -3,7 +3,7 @@ import { applyUndoAndCorrections, type TimelineEvent } from "./timeline";
 
 /** A launch and (once it happens) its landing, in absolute timeline ms. */
 export type RawFlight = {
-  /** Position among the lane's flights in launch order; `invalid` events refer to it. */
+  /** Position among the lane's flights in launch order (what the screens number). */
   index: number;
   launchAtMs: number;
   landAtMs: number | null;
@@ -21,8 +21,9 @@ export type LaneCall =
 export type LaneLog = {
   lane: number;
   flights: RawFlight[];
-  invalid: Map<number, InvalidReason>;
-  penalties: { id: string; points: number; reason: string }[];
+  /** Invalid marks by the launch event id of the flight they name. */
+  invalid: Map<string, InvalidReason>;
+  penalties: { id: string; points: number; reason: string; flightId: string | null }[];
   calls: LaneCall[];
   /** Taps that did not change the flights: a launch while flying, a landing with none open. */
   ignored: { id: string; reason: "launch-while-flying" | "landing-without-flight" }[];
@@ -45,6 +46,7 @@ export type RunLog = {
  */
 export function pairFlights(events: readonly TimelineEvent[], laneCount?: number): RunLog {
   const effective = applyUndoAndCorrections(events);
+  const legacy = legacyInvalidTargets(events, effective);
   let lanesNeeded = laneCount ?? 1;
   if (laneCount === undefined) {
     for (const e of effective) if ("lane" in e.body) lanesNeeded = Math.max(lanesNeeded, e.body.lane + 1);
@@ -102,11 +104,13 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
         open[body.lane] = null;
         break;
       }
-      case "invalid":
-        log.invalid.set(body.flightIndex, body.reason);
+      case "invalid": {
+        const flightId = body.flightId ?? legacy.get(e.id);
+        if (flightId) log.invalid.set(flightId, body.reason);
         break;
+      }
       case "penalty":
-        log.penalties.push({ id: e.id, points: body.points, reason: body.reason });
+        log.penalties.push({ id: e.id, points: body.points, reason: body.reason, flightId: body.flightId ?? null });
         break;
       case "target":
         log.calls.push({ kind: "target", atMs: e.atMs, targetSec: body.targetSec, id: e.id });
@@ -117,4 +121,22 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
     }
   }
   return { signalsMs, runEndMs, lanes };
+}
+
+/**
+ * Invalid marks recorded before marks named their flight by launch id carry its position
+ * instead. Each is mapped once to the launch it meant: the flight at that position among the
+ * flights as they stood when the mark was recorded (events up to its time, with the undos made
+ * by then), so a later undo of another flight does not move it.
+ */
+function legacyInvalidTargets(events: readonly TimelineEvent[], effective: readonly TimelineEvent[]): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const mark of effective) {
+    const body = mark.body;
+    if (body.kind !== "invalid" || body.flightId !== undefined || body.flightIndex === undefined) continue;
+    const before = events.filter((e) => e.atMs <= mark.atMs && e.id !== mark.id && e.body.kind !== "invalid");
+    const flight = pairFlights(before).lanes[body.lane]?.flights[body.flightIndex];
+    if (flight) out.set(mark.id, flight.launchId);
+  }
+  return out;
 }

@@ -11,7 +11,7 @@ import { laneWarnings, type LiveWarning } from "./warnings";
 /** A flight as the timer draws it on the working-time strip (ms from working-time start). */
 export type LiveFlight = Pick<
   ScoredFlight,
-  "index" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths"
+  "index" | "launchId" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths" | "slotCapTenths"
 >;
 
 export type LaneLive = {
@@ -111,6 +111,6 @@ function isOpenLaunch(e: TimelineEvent, lanes: readonly LaneScore[]): boolean {
 }
 
 function toLive(f: ScoredFlight): LiveFlight {
-  const { index, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths } = f;
-  return { index, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths };
+  const { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths } = f;
+  return { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths };
 }

@@ -134,6 +134,6 @@ function blank(f: RawFlight, base: number, log: LaneLog, clock: Clock): TimedFli
     inWindowTenths: 0,
     zeroReason: null,
     excludedReason: null,
-    markedInvalid: log.invalid.get(f.index) ?? null,
+    markedInvalid: log.invalid.get(f.launchId) ?? null,
   };
 }

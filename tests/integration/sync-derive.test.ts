@@ -101,6 +101,9 @@ describe("server derivation through push", () => {
       const e = phone.at(r.id, trueMs, { kind, lane: 0 });
       // device wall = true − θ(true); θ grows linearly from the measurement
       e.stamp.wallMs = trueMs - rate * (trueMs - before.measuredAtWallMs);
+      // The page was reloaded between launch and landing: inside one page lifetime the steady
+      // clock would time the flight (lib/results/place.ts); across pages the corrected wall clock does.
+      e.stamp.pageId = `${e.stamp.pageId}-${kind}`;
       return e;
     };
     const evs = [at(T0 + 10_000, "launch"), at(T0 + 100_000, "landing")];
