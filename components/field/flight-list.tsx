@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import { reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
+import { creditedTargetText, reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
 import type { InvalidReason } from "@/lib/events/schema";
 import { msToTenths, type LiveFlight } from "@/lib/tasks";
 import { FlightFix } from "./flight-fix";
@@ -35,7 +35,7 @@ export function FlightList({ flights, laneLabel, onSetTime, onSetLaunch, onInval
                 <span aria-hidden>{mark.symbol} </span>
                 {mark.label}
                 {f.status !== "open" && f.creditedTenths > 0 ? ` · +${secondsText(f.creditedTenths)}` : ""}
-                {f.targetSec !== null ? ` · target ${f.targetSec} s` : ""}
+                {creditedTargetText(f) ? ` · ${creditedTargetText(f)}` : ""}
                 {why ? <span className="block text-muted">{why}</span> : null}
               </span>
               {f.status !== "open" ? (

@@ -1,7 +1,7 @@
 "use client";
 
 import type { ReactNode } from "react";
-import { formatRunning, secondsText } from "@/lib/field/display";
+import { clockText, formatRunning, secondsText } from "@/lib/field/display";
 import type { LaneLive } from "@/lib/tasks";
 
 type Props = {
@@ -53,7 +53,11 @@ export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker
       {picker}
       {control}
       {strip}
-      {lane.remainingTargetsSec.length > 1 ? <p className="text-sm">Targets still open: {lane.remainingTargetsSec.join(", ")} s</p> : null}
+      {lane.hints.length > 0 ? (
+        <p className="figures text-sm font-semibold" data-testid={`hints-${lane.lane}`}>
+          Next flight: {lane.hints.map((h) => `fly ${clockText(h.sec)} → +${secondsText(h.gainTenths)}`).join(" · ")}
+        </p>
+      ) : null}
       {tools}
       {list}
     </section>

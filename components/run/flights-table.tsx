@@ -1,4 +1,4 @@
-import { reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
+import { creditedTargetText, reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
 import { formatTenths, msToTenths, type LiveFlight } from "@/lib/tasks";
 
 /**
@@ -37,7 +37,7 @@ export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[
                 <td className="px-2 py-2">
                   <span aria-hidden="true">{mark.symbol} </span>
                   {mark.label}
-                  {f.targetSec !== null ? <span className="block text-xs text-muted">target {f.targetSec} s</span> : null}
+                  {creditedTargetText(f) ? <span className="block text-xs text-muted">{creditedTargetText(f)}</span> : null}
                   {why ? <span className="block text-xs text-muted">{why}</span> : null}
                 </td>
               </tr>

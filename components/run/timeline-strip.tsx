@@ -1,4 +1,4 @@
-import { STATUS_MARK, secondsText } from "@/lib/field/display";
+import { clockText, creditedTargetText, STATUS_MARK, secondsText } from "@/lib/field/display";
 import { formatTenths, type LiveFlight, type TaskDefinition } from "@/lib/tasks";
 import { StripLegend } from "./strip-legend";
 import { stripLayout, type StripSegment } from "./strip-layout";
@@ -72,6 +72,16 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
           const at = x(s.fromMs + cap * 1000);
           return <line key={`cap${s.flight}`} x1={at} x2={at} y1={TOP + 3} y2={TOP + H - 3} stroke="rgb(var(--raised))" strokeWidth="3" />;
         })}
+        {layout.segments.map((s) => {
+          const f = flights.find((g) => g.index === s.flight);
+          const credited = f && definition.kind === "window" && definition.ladder && (f.status === "counted" || f.status === "capped") ? f.targetSec : null;
+          if (credited === null || credited === undefined || x(s.toMs) - x(s.fromMs) < 30) return null;
+          return (
+            <text key={`c${s.flight}`} x={x(s.fromMs) + 3} y={TOP + H / 2 + 4} fontSize="11" fontWeight="700" fill="rgb(var(--raised))" className="figures" data-credited={credited}>
+              {clockText(credited)}
+            </text>
+          );
+        })}
         {layout.ticks.map((t) => (
           <path key={`t${t.flight}`} d={`M ${x(t.atMs) - 5} 1 L ${x(t.atMs) + 5} 1 L ${x(t.atMs)} ${TOP + 4} Z`} stroke="rgb(var(--raised))" strokeWidth="1" fill="rgb(var(--ink))" data-target={t.targetSec} />
         ))}
@@ -101,11 +111,12 @@ export function describeStrip(definition: TaskDefinition, flights: readonly Live
   return layout.segments
     .map((s) => {
       const ground = groundBefore.get(s.flight);
-      const target = flights.find((f) => f.index === s.flight)?.targetSec;
+      const f = flights.find((g) => g.index === s.flight);
+      const target = f ? creditedTargetText(f) : null;
       return [
         ground !== undefined ? `${secondsText(ground)} s on the ground, then` : null,
         `flight ${s.flight + 1} from ${formatTenths(Math.trunc(s.fromMs / 100))} for ${secondsText(s.airTenths)} s,`,
-        STATUS_MARK[s.status].label + (target ? `, target ${target} s` : "") + ".",
+        STATUS_MARK[s.status].label + (target ? `, ${target}` : "") + ".",
       ]
         .filter(Boolean)
         .join(" ");

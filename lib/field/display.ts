@@ -16,6 +16,21 @@ export function formatRunning(ms: number): string {
 
 export { secondsText } from "@/lib/tasks";
 
+/** Whole seconds as m:ss, e.g. 120 → "2:00" (how a pilot says a target). */
+export function clockText(sec: number): string {
+  return `${Math.floor(sec / 60)}:${String(sec % 60).padStart(2, "0")}`;
+}
+
+/**
+ * The target a flight is credited to, in the pilot's terms ("for the 3:00 target"), or null.
+ * Ladders (H, K, M): the step the engine matched the flight to; task E: the target it attempted.
+ */
+export function creditedTargetText(f: { targetSec: number | null; status: string; creditedTenths: number }): string | null {
+  if (f.targetSec === null) return null;
+  const counts = f.status === "counted" || f.status === "capped";
+  return counts ? `for the ${clockText(f.targetSec)} target` : `target ${clockText(f.targetSec)}`;
+}
+
 /** How a flight's status is drawn: a word and a shape, never colour alone. */
 export const STATUS_MARK: Record<FlightStatus, { symbol: string; label: string }> = {
   counted: { symbol: "■", label: "counts" },

@@ -7,6 +7,7 @@ export { foldRun, type FoldedRun } from "./fold";
 export { liveState, type LiveState, type LaneLive, type LiveFlight } from "./live";
 export { phaseOf, type Phase, type RunClock } from "./run-clock";
 export { pointsLost, type PointsLost } from "./breakdown";
+export type { LengthHint } from "./hints";
 export { CATALOGUE, CATALOGUE_EDITION, getCatalogueTask, listVariants } from "./catalogue";
 export { buildCustomTask, customTaskInputSchema, type CustomTaskInput } from "./custom";
 export {

@@ -2,6 +2,7 @@ import type { TaskDefinition } from "./definition";
 import { foldAt } from "./fold";
 import { maxResultTenths } from "./limits";
 import { bestPossibleAllUp, bestPossiblePoker, bestPossibleWindow, type Outlook } from "./best-possible";
+import { lengthHints, type LengthHint } from "./hints";
 import { nextTargets } from "./next-target";
 import type { LaneScore, ScoredFlight } from "./score";
 import type { TimelineEvent } from "./timeline";
@@ -29,6 +30,8 @@ export type LaneLive = {
   nextTargetSec: number | null;
   /** Targets not yet flown (ladders: in order for in-order ladders). */
   remainingTargetsSec: number[];
+  /** Any-order ladders (H): what a flight of each target length launched now still adds. */
+  hints: LengthHint[];
   /** Launches that may still count, or null when unlimited. */
   launchesLeft: number | null;
   penaltyPoints: number;
@@ -71,15 +74,17 @@ export function liveState(definition: TaskDefinition, events: readonly TimelineE
           : bestPossibleAllUp(definition, lane, run.signalsMs, nowMs);
     const open = lane.flights.find((f) => f.open) ?? null;
     const targets = nextTargets(definition, lane, outlook);
+    const landedTenths = landedOnly.lanes[i]?.resultTenths ?? 0;
     return {
       lane: lane.lane,
       flights: lane.flights.map(toLive),
       currentFlightMs: open ? nowMs - open.launchAtMs : null,
-      resultTenths: landedOnly.lanes[i]?.resultTenths ?? 0,
+      resultTenths: landedTenths,
       ifLandedNowTenths: lane.resultTenths,
       bestPossibleTenths: Math.max(best, lane.resultTenths),
       nextTargetSec: targets.next,
       remainingTargetsSec: targets.remaining,
+      hints: open ? [] : lengthHints(definition, events, clock, nowMs, lane.lane, run.lanes.length, landedTenths),
       launchesLeft: launchesLeft(definition, lane),
       penaltyPoints: lane.penaltyPoints,
       warnings: laneWarnings(definition, lane, clock, run.signalsMs, nowMs),

@@ -136,7 +136,7 @@ test("the run page shows the flights, the result, the breakdown summing to the l
   const strip = page.getByTestId("timeline-strip");
   await expect(strip.locator("[data-flight]")).toHaveCount(4);
   await expect(strip.locator("[data-target]")).toHaveCount(4);
-  await expect(page.locator("figcaption")).toContainText("flight 1 from 0:01.0 for 241.3 s, counts, capped, target 240 s.");
+  await expect(page.locator("figcaption")).toContainText("flight 1 from 0:01.0 for 241.3 s, counts, capped, for the 4:00 target.");
 
   const corrections = page.getByRole("list", { name: "Corrections" }).getByRole("listitem");
   await expect(corrections).toHaveCount(2);
