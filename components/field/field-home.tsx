@@ -1,6 +1,7 @@
 "use client";
 
 import { secondsText } from "@/lib/field/display";
+import { DiscardButton } from "./discard-button";
 import { FirstUseCautions } from "./first-use-cautions";
 import { PlanEditor } from "./plan-editor";
 import { useFieldRuns, type FieldRunRow } from "./use-field-runs";
@@ -13,7 +14,8 @@ export function FieldHome() {
   const client = useIsClient();
   const rows = useFieldRuns();
   const open = rows?.filter((r) => r.open) ?? [];
-  const done = rows?.filter((r) => !r.open).slice(0, 10) ?? [];
+  // A window set up but never started is left out of results (it can be deleted while open).
+  const done = rows?.filter((r) => !r.open && r.started).slice(0, 10) ?? [];
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-extrabold">Field</h1>
@@ -25,11 +27,12 @@ export function FieldHome() {
           </h2>
           <ul className="space-y-2">
             {open.map((r) => (
-              <li key={r.run.id}>
+              <li key={r.run.id} className="space-y-1">
                 <a href={`/field/run?id=${r.run.id}`} className="card flex min-h-touch items-center justify-between gap-3 rounded-xl border border-line bg-raised p-3">
                   <RunLine row={r} />
                   <span className="font-bold">{r.started ? "Resume →" : "Open →"}</span>
                 </a>
+                {r.started ? null : <DiscardButton runId={r.run.id} what={r.task?.name ?? "window"} />}
               </li>
             ))}
           </ul>
@@ -53,7 +56,7 @@ export function FieldHome() {
               <li key={r.run.id}>
                 <a href={`/logbook/run?id=${r.run.id}`} className="card flex min-h-touch items-center justify-between gap-3 rounded-xl border border-line bg-raised p-3">
                   <RunLine row={r} />
-                  <span className="figures whitespace-nowrap text-right font-bold">{r.resultsTenths.map((t) => `${secondsText(t)} s`).join(" · ")}</span>
+                  <span className="figures whitespace-nowrap text-right font-bold">{r.resultsTenths.map((t) => (t === null ? "—" : `${secondsText(t)} s`)).join(" · ")}</span>
                 </a>
               </li>
             ))}

@@ -5,6 +5,7 @@ import { isRunOpen } from "@/lib/field/lane-tap";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { phoneResult } from "@/lib/offline/run-result";
+import { wasStarted } from "@/lib/results";
 import { parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
 
 export type FieldRunRow = {
@@ -13,8 +14,8 @@ export type FieldRunRow = {
   task: TaskDefinition | null;
   open: boolean;
   started: boolean;
-  /** Per lane result in tenths (finished runs). */
-  resultsTenths: number[];
+  /** Per lane result in tenths (finished runs; null: no result, e.g. a lane nobody timed). */
+  resultsTenths: (number | null)[];
 };
 
 const RECENT = 30;
@@ -39,8 +40,8 @@ export function useFieldRuns(): FieldRunRow[] | undefined {
           task = null;
         }
         const open = isRunOpen(events);
-        const resultsTenths = task && !open ? phoneResult(run, task, events, view).folded.lanes.map((l) => l.resultTenths) : [];
-        return { run, session, task, open, started: events.some((e) => e.body.kind === "window-start"), resultsTenths };
+        const resultsTenths = task && !open ? phoneResult(run, task, events, view).lanes.map((l) => l.resultTenths) : [];
+        return { run, session, task, open, started: wasStarted(events), resultsTenths };
       }),
     );
   }, []);

@@ -5,4 +5,5 @@
 export { runResult, type RunResult } from "./run-result";
 export { placeEvents, placeStamp, type ClockStep, type Estimates, type PlacedEvent, type RecordedEvent } from "./place";
 export { describeClockFlags } from "./clock-flags";
+export { wasStarted } from "./started";
 export type * from "./types";

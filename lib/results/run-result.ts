@@ -3,6 +3,7 @@ import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import { clockFlags, describeClockFlags } from "./clock-flags";
 import { placeEvents, type ClockStep } from "./place";
 import { describeReview, uncertainBoundaries, type TimedSignal } from "./review";
+import { wasStarted } from "./started";
 import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
 import type { DerivationEvent, DerivationInput, LaneDerivation, LaneVersion, Source } from "./types";
 
@@ -17,6 +18,8 @@ export type RunResult = {
   timeline: TimelineEvent[];
   /** Every wall-clock step seen in the run's records (lib/results/place.ts). */
   steps: ClockStep[];
+  /** False for a window set up but never started (lib/results/started.ts): no result anywhere. */
+  started: boolean;
 };
 
 /**
@@ -41,6 +44,8 @@ export function runResult(input: DerivationInput): RunResult {
   const signals = effectiveSignals(signalEvents);
   const ended = applyUndoAndCorrections(signalEvents.map(toTimeline)).some((e) => e.body.kind === "run-end");
 
+  // A window set up but never started is left out of results: no lane has one (not 0.0).
+  const started = wasStarted(placed);
   const counted = new Map<string, DerivationEvent>();
   for (const e of signalEvents) counted.set(e.id, e);
   const lanes = input.lanes.map(({ lane, pilotUserId }): LaneDerivation => {
@@ -76,7 +81,7 @@ export function runResult(input: DerivationInput): RunResult {
 
     return {
       lane,
-      resultTenths: chosen ? laneScore.resultTenths : null,
+      resultTenths: chosen && started ? laneScore.resultTenths : null,
       penaltyPoints: laneScore.penaltyPoints,
       needsReview: review.length > 0 || clock.length > 0,
       reviewReason: reasons.length > 0 ? reasons.join("; ") : null,
@@ -101,7 +106,7 @@ export function runResult(input: DerivationInput): RunResult {
       },
     };
   });
-  return { lanes, timeline: [...counted.values()].map(toTimeline), steps };
+  return { lanes, timeline: [...counted.values()].map(toTimeline), steps, started };
 }
 
 /** The chosen signal record's effective window starts, in order, with their bounds. */

@@ -9,7 +9,9 @@ import { consentFor, listedInLogbook } from "@/lib/offline/consent";
 import { getMeta, getWindowcallDb, type StoredRun } from "@/lib/offline/db";
 import type { SessionEntity } from "@/lib/events/entities";
 import { ConsentBar, RecordedFor } from "./consent-bar";
-import { scoreStoredRun, taskTitle } from "./run-results";
+import { DiscardButton } from "@/components/field/discard-button";
+import { wasStarted } from "@/lib/results";
+import { scoreStoredRun, taskTitle, type ScoredRun } from "./run-results";
 
 /**
  * Every session on this phone, newest first, with its runs and results (read from IndexedDB
@@ -22,9 +24,11 @@ export function LogbookList() {
     const me = (await getMeta(db, "profile"))?.id ?? null;
     const stored = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
     const all = await db.runs.where("sessionId").anyOf(stored.map((s) => s.id)).toArray();
-    const runs = all.filter((r) => listedInLogbook(r, me));
+    const listed = all.filter((r) => listedInLogbook(r, me));
+    const events = await db.events.where("runId").anyOf(listed.map((r) => r.id)).toArray();
+    // A window someone else set up for this pilot and never started is not theirs to see.
+    const runs = listed.filter((r) => !r.recordedBy || r.recordedBy.id === me || wasStarted(events.filter((e) => e.runId === r.id)));
     const sessions = stored.filter((s) => runs.some((r) => r.sessionId === s.id) || !all.some((r) => r.sessionId === s.id));
-    const events = await db.events.where("runId").anyOf(runs.map((r) => r.id)).toArray();
     return { sessions, runs, events, me, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
   }, []);
 
@@ -65,6 +69,7 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
     <ul className="divide-y-2 divide-line border-t-2 border-line" aria-label="Runs">
       {runs.map((r) => {
         const scored = scoreStoredRun(r, data.events.filter((e) => e.runId === r.id), { deviceId: data.deviceId, me: data.me, estimate: data.estimate });
+        const started = scored.task ? scored.started : true;
         const title = scored.task ? taskTitle(scored.task) : "Unreadable task";
         const consent = consentFor(r, data.me);
         const recorder = r.recordedBy?.name ?? "someone else";
@@ -77,12 +82,18 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
                 {r.lanes.map((l) => (
                   <span key={l.lane} className="block whitespace-nowrap">
                     {r.lanes.length > 1 ? `${l.pilotName} ` : ""}
-                    <b>{scored.task ? `${secondsText(scored.folded.lanes[l.lane]?.resultTenths ?? 0)} s` : "—"}</b>
+                    <b>{laneText(scored, l.lane)}</b>
                   </span>
                 ))}
               </span>
               <span aria-hidden="true">›</span>
             </a>
+            {started ? null : (
+              <div className="space-y-1">
+                <p className="text-sm text-muted">Set up, never started: no result.</p>
+                <DiscardButton runId={r.id} what={title} />
+              </div>
+            )}
             {consent ? <ConsentBar runId={r.id} consent={consent} recorder={recorder} label={`${title}, recorded by ${recorder}`} /> : null}
             {r.recordedBy?.id === data.me && r.consents ? <RecordedFor consents={r.consents} pilotName={pilotName} /> : null}
           </li>
@@ -90,6 +101,13 @@ function RunRows({ runs, data }: { runs: StoredRun[]; data: Data }) {
       })}
     </ul>
   );
+}
+
+/** A lane's result as the one result function gives it: null (nobody timed it, never started) is "—", never 0.0. */
+function laneText(scored: ScoredRun, lane: number): string {
+  if (!scored.task) return "—";
+  const t = scored.lanes.find((d) => d.lane === lane)?.resultTenths ?? null;
+  return t === null ? "—" : `${secondsText(t)} s`;
 }
 
 function conditionsText(c: SessionEntity["conditions"]): string {

@@ -2,6 +2,7 @@
 
 import { useSearchParams } from "next/navigation";
 import { Breakdown, ClockNote, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
+import { DiscardButton } from "@/components/field/discard-button";
 import { describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
@@ -41,18 +42,26 @@ export function RunReview() {
         <h1 className="text-2xl font-extrabold">{taskTitle(task)}</h1>
         <p className="text-sm text-muted">{describeTask(task)}</p>
         {session ? <p className="text-sm">{formatDate(new Date(session.startedAtWallMs))} · {session.fieldName}</p> : null}
-        {folded.windowStartMs === null ? <p className="font-semibold text-warn">The working time was never started, so no flight scores.</p> : null}
+        {!scored.started ? (
+          <div className="space-y-1">
+            <p className="font-semibold text-warn">Set up, never started: this window has no result.</p>
+            {!run.recordedBy || run.recordedBy.id === me ? <DiscardButton runId={run.id} what={taskTitle(task)} /> : null}
+          </div>
+        ) : folded.windowStartMs === null ? (
+          <p className="font-semibold text-warn">The working time was never started, so no flight scores.</p>
+        ) : null}
       </header>
       {consent ? <ConsentBar runId={run.id} consent={consent} recorder={recorder} label={`Recorded by ${recorder}`} /> : null}
       {run.recordedBy?.id === me && run.consents ? <RecordedFor consents={run.consents} pilotName={pilotName} /> : null}
       {run.lanes.map((l) => {
         const lane = folded.lanes[l.lane];
         if (!lane) return null;
+        const laneResult = scored.lanes.find((d) => d.lane === l.lane)?.resultTenths ?? null;
         return (
           <section key={l.lane} aria-labelledby={`lane-${l.lane}`} className="space-y-3">
             <h2 id={`lane-${l.lane}`} className="flex items-baseline justify-between gap-3 border-b-2 border-line pb-1">
               <span className="text-xl font-bold">{l.pilotName}</span>
-              <span className="figures text-3xl font-extrabold" data-testid={`lane-result-${l.lane}`}>{secondsText(lane.resultTenths)} s</span>
+              <span className="figures text-3xl font-extrabold" data-testid={`lane-result-${l.lane}`}>{laneResult === null ? "—" : `${secondsText(laneResult)} s`}</span>
             </h2>
             {lane.sumCapTenths !== null && lane.rawTenths > lane.sumCapTenths ? (
               <p className="text-sm text-muted">Flights add up to {secondsText(lane.rawTenths)} s; the working time allows {secondsText(lane.sumCapTenths)} s (F3K.7).</p>
