@@ -71,3 +71,32 @@ describe("one path from events to result (ours)", () => {
     );
   });
 });
+
+describe("the device clock offset, applied on the phone as on the server (SYNC.md §4)", () => {
+  it("a launch 10 s after a signal given on another phone counts on both, though this phone's clock is 30 s slow", () => {
+    const N = getCatalogueTask("N");
+    const A = "phone-a"; // times the lane; its clock runs 30 s behind the server
+    const B = "phone-b"; // gives the working-time signal; its clock is right
+    const offA = { thetaMs: 30_000, deltaMs: 20, measuredAtWallMs: 1_799_999_000_000 };
+    const offB = { thetaMs: 0, deltaMs: 20, measuredAtWallMs: 1_800_000_000_000 };
+    const T = 1_800_000_100_000; // server time of the signal
+    const ev = (deviceId: string, recordedBy: string, serverMs: number, offset: typeof offA, body: RunEvent["body"]): RunEvent & { recordedBy: string } => ({
+      id: id(), runId: "00000000-0000-7000-8000-999999999999", deviceId, seq: 1, recordedBy,
+      stamp: { wallMs: serverMs - offset.thetaMs, monoMs: serverMs - 1_800_000_000_000, pageId: `page-${deviceId}`, offset }, body,
+    });
+    const events = [
+      ev(B, "keeper", T, offB, { kind: "window-start" }),
+      ev(A, ME, T + 10_000, offA, { kind: "launch", lane: 0 }),
+      ev(A, ME, T + 100_000, offA, { kind: "landing", lane: 0 }),
+    ];
+    const run = { lanes: [{ lane: 0, pilotName: "Ada", pilotUserId: ME }], recordedBy: { id: "keeper", name: "Keeper" } };
+    // Phone A knows only its own clock estimate; the server knows both phones'.
+    const phone = phoneResult(run, N, events, { deviceId: A, me: ME, estimate: offA });
+    const server = runResult({
+      task: N, createdBy: "keeper", lanes: [{ lane: 0, pilotUserId: ME }], officials: new Set(), events, estimatesByDevice: new Map([[A, [offA]], [B, [offB]]]),
+    });
+    expect(server.lanes[0]!.resultTenths).toBe(900);
+    expect(phone.lanes[0]!.resultTenths).toBe(900);
+    expect(phone.folded.lanes[0]!.resultTenths).toBe(900);
+  });
+});
