@@ -1,7 +1,7 @@
 import type { RunEvent } from "@/lib/events/schema";
 import { secondsText } from "@/lib/field/display";
 import type { RunLane } from "@/lib/events/entities";
-import { liveState, msToTenths, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
+import { liveState, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
 
 /**
  * What a screen reader hears after a write is stored: "Launch, lane 1", "Landed 59.8 s",
@@ -18,7 +18,7 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
     case "landing": {
       const lane = liveState(task, timeline, nowMs, { laneCount: lanes.length }).lanes[b.lane];
       const flight = lane ? [...lane.flights].reverse().find((f) => f.landMs !== null) : undefined;
-      const time = flight && flight.landMs !== null ? ` ${secondsText(msToTenths(flight.landMs - flight.launchMs))} s` : "";
+      const time = flight && flight.landMs !== null && flight.airTenths !== null ? ` ${secondsText(flight.airTenths)} s` : "";
       return `Landed${time}${laneSuffix(b.lane)}`;
     }
     case "target":

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { creditedTargetText, reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
 import type { InvalidReason } from "@/lib/events/schema";
-import { msToTenths, type LiveFlight } from "@/lib/tasks";
+import type { LiveFlight } from "@/lib/tasks";
 import { FlightFix } from "./flight-fix";
 
 type Props = {
@@ -24,7 +24,7 @@ export function FlightList({ flights, laneLabel, onSetTime, onSetLaunch, onInval
     <ol aria-label={`Flights, ${laneLabel}`} className="divide-y-2 divide-line rounded-xl border-2 border-line">
       {[...flights].reverse().map((f) => {
         const mark = STATUS_MARK[f.status];
-        const raw = f.landMs === null ? null : msToTenths(f.landMs - f.launchMs);
+        const raw = f.landMs === null ? null : f.airTenths;
         const why = f.status === "counted" || f.status === "open" ? null : reasonText(f.reason);
         return (
           <li key={f.index} className="px-3 py-2">

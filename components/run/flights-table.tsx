@@ -1,5 +1,5 @@
 import { creditedTargetText, reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
-import { formatTenths, msToTenths, type LiveFlight } from "@/lib/tasks";
+import { formatTenths, type LiveFlight } from "@/lib/tasks";
 
 /**
  * A lane's flights in launch order: launch and landing (m:ss.t from the working-time start;
@@ -23,7 +23,7 @@ export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[
         </thead>
         <tbody>
           {flights.map((f) => {
-            const flown = f.landMs === null ? null : msToTenths(f.landMs - f.launchMs);
+            const flown = f.landMs === null ? null : f.airTenths;
             const time = f.status === "invalid" || f.timeTenths === 0 ? flown : f.timeTenths;
             const mark = STATUS_MARK[f.status];
             const why = f.status === "counted" ? null : reasonText(f.reason);

@@ -58,7 +58,7 @@ export function stripLayout(def: TaskDefinition, flights: readonly LiveFlight[],
     const end = f.landMs ?? nowMs;
     if (end === null) continue; // never landed and not live: nothing to draw but the row in the table
     const o = offsetOf(f);
-    segments.push({ flight: f.index, fromMs: o + f.launchMs, toMs: o + Math.max(end, f.launchMs), status: f.status, airTenths: msToTenths(end - f.launchMs) });
+    segments.push({ flight: f.index, fromMs: o + f.launchMs, toMs: o + Math.max(end, f.launchMs), status: f.status, airTenths: f.landMs !== null && f.airTenths !== null ? f.airTenths : msToTenths(end - f.launchMs) });
     if (f.targetSec !== null) ticks.push({ flight: f.index, atMs: o + f.launchMs + f.targetSec * 1000, targetSec: f.targetSec });
   }
 

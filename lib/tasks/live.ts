@@ -12,7 +12,7 @@ import { laneWarnings, type LiveWarning } from "./warnings";
 /** A flight as the timer draws it on the working-time strip (ms from working-time start). */
 export type LiveFlight = Pick<
   ScoredFlight,
-  "index" | "launchId" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths" | "slotCapTenths"
+  "index" | "launchId" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths" | "slotCapTenths" | "airTenths"
 >;
 
 export type LaneLive = {
@@ -116,6 +116,6 @@ function isOpenLaunch(e: TimelineEvent, lanes: readonly LaneScore[]): boolean {
 }
 
 function toLive(f: ScoredFlight): LiveFlight {
-  const { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths } = f;
-  return { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths };
+  const { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths, airTenths } = f;
+  return { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths, slotCapTenths, airTenths };
 }

@@ -36,6 +36,11 @@ export type TimedFlight = {
   open: boolean;
   /** Time by the timing rules in tenths (0 when `zeroReason` is set). */
   timeTenths: number;
+  /**
+   * The whole flight as timed, launch to landing (in the air: to now), in tenths; null when it
+   * never landed. The one flight time every screen shows: nothing recomputes it from launchMs/landMs.
+   */
+  airTenths: number | null;
   /** Airtime inside the working time in tenths, valid or not (for the points-lost breakdown). */
   inWindowTenths: number;
   /** The flight scores zero by rule. */
@@ -130,6 +135,7 @@ function blank(f: RawFlight, base: number, log: LaneLog, clock: Clock): TimedFli
     landMs: f.landAtMs === null ? null : f.landAtMs - base,
     attempt: null,
     open,
+    airTenths: open ? msToTenths(clock!.nowMs - f.launchAtMs) : f.landAtMs === null ? null : msToTenths(f.landAtMs - f.launchAtMs),
     timeTenths: 0,
     inWindowTenths: 0,
     zeroReason: null,

@@ -62,7 +62,9 @@ describe("one path from events to result (ours)", () => {
           expect(server.lanes[0]!.resultTenths).toBe(lane.resultTenths);
           expect(phone.lanes[0]!.resultTenths).toBe(lane.resultTenths);
           expect(live.resultTenths).toBe(lane.resultTenths);
-          const shown = lane.flights.reduce((sum, f) => sum + (f.landMs === null ? 0 : msToTenths(f.landMs - f.launchMs)), 0);
+          // what the flight list, the flight table and the strip show for each flight
+          const shown = lane.flights.reduce((sum, f) => sum + (f.airTenths ?? 0), 0);
+          expect(lane.flights.map((f) => f.airTenths)).toEqual(lane.flights.map((f) => (f.landMs === null ? null : msToTenths(f.landAtMs! - f.launchAtMs))));
           expect(lane.resultTenths).toBeLessThanOrEqual(shown);
           expect(server.lanes[0]!.derived.flights.map((f) => f.creditedTenths)).toEqual(lane.flights.map((f) => f.creditedTenths));
         },
