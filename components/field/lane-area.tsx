@@ -35,7 +35,7 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
             onInvalid={(i, r) => actions.invalid(l.lane, i, r)}
           />
         );
-        const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r)} />;
+        const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r, lane.flights.at(-1)?.launchId ?? null)} />;
         return (
           <LanePanel
             key={l.lane}
