@@ -35,6 +35,8 @@ const E_RESULT = "135.0";
 async function setUp(page: Page, task: RegExp, group: string[] | null): Promise<string[]> {
   await page.goto("/field/new");
   await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
+  // Paused from here: time moves only by runFor, so every reading below is exact.
+  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
   await page.getByLabel("Field").fill("Long Acre");
   if (group) {
     await page.getByRole("radio", { name: /Several pilots/ }).check();
@@ -133,8 +135,6 @@ for (const [name, task, steps, expected] of [
     test(`task ${name} on ${group ? "four lanes" : "one lane"}: the same result on the field, the logbook, the run page and the server`, async ({ page }) => {
       await signInAs(page, "ada@example.com");
       await page.clock.install({ time: T0 });
-      await page.goto("/field");
-      await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
       await flyAndRead(page, task, group, steps as Step[], expected);
     });
   }
