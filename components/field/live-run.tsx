@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { CalloutCaption, useCallouts, useWakeLock, WakeLockNote } from "@/components/callouts";
 import type { RunEvent } from "@/lib/events/schema";
 import { isRunOpen } from "@/lib/field/lane-tap";
@@ -31,7 +31,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   const notify = useNotifyWrite();
   const { profile } = useFieldProfile();
   const [said, setSaid] = useState({ text: "", n: 0 });
-  const view: PhoneView = { deviceId, me: profile?.id ?? null, estimate };
+  const me = profile?.id ?? null;
+  const view: PhoneView = useMemo(() => ({ deviceId, me, estimate }), [deviceId, me, estimate]);
   const nowOnRun = (all: readonly RunEvent[], wallMs: number, monoMs: number) => placeOnRun(all, view, { wallMs, monoMs, pageId: getPageId(), offset: estimate });
   const onWritten = (event: RunEvent, all: readonly RunEvent[]) => {
     notify();
@@ -44,7 +45,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   const open = isRunOpen(recorder.events);
   const now = useNow(clocks, open);
   // The one result function (lib/results), as the logbook and the server use it; "now" on its timeline.
-  const result = phoneResult(run, task, recorder.events, view);
+  // It depends on the events only, not on "now": computed once per write, not every frame.
+  const result = useMemo(() => phoneResult(run, task, recorder.events, view), [run, task, recorder.events, view]);
   const nowMs = nowOnRun(recorder.events, now.wall, now.mono);
   const live = liveState(task, result.timeline, nowMs, { laneCount });
   // The countdown plan is in device wall time; callouts compare on the run's timeline.
