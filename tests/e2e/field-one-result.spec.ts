@@ -81,12 +81,20 @@ async function serverResults(page: Page, runId: string): Promise<(number | null)
     .poll(
       async () => {
         await page.clock.runFor(2_000); // the sync client's timers run on the controlled clock
-        const res = await page.request.get("/api/sync/pull?cursor=0");
-        if (!res.ok()) return null;
-        const body = (await res.json()) as { items: { type: string; data: { id: string }; results?: { lane: number; resultTenths: number | null }[] }[] };
-        const run = body.items.filter((i) => i.type === "run" && i.data.id === runId).at(-1);
+        type Item = { type: string; data: { id: string; runId?: string }; results?: { lane: number; resultTenths: number | null }[] };
+        const items: Item[] = [];
+        // every page of the pull, as the phone reads it
+        for (let cursor = 0, more = true; more; ) {
+          const res = await page.request.get(`/api/sync/pull?cursor=${cursor}`);
+          if (!res.ok()) return null;
+          const body = (await res.json()) as { items: Item[]; nextCursor: number; hasMore: boolean };
+          items.push(...body.items);
+          more = body.hasMore && body.nextCursor > cursor;
+          cursor = body.nextCursor;
+        }
+        const run = items.filter((i) => i.type === "run" && i.data.id === runId).at(-1);
         const results = run?.results ?? [];
-        const events = body.items.filter((i) => i.type === "event" && (i.data as unknown as { runId: string }).runId === runId).length;
+        const events = items.filter((i) => i.type === "event" && i.data.runId === runId).length;
         found = results.sort((a, b) => a.lane - b.lane).map((r) => r.resultTenths);
         return events > 0 && results.length > 0 && results.every((r) => r.resultTenths !== null) ? found : null;
       },
