@@ -33,6 +33,10 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
       return `Flight ${b.flightIndex + 1} marked invalid${laneSuffix(b.lane)}`;
     case "penalty":
       return `Penalty ${b.points} points${laneSuffix(b.lane)}`;
+    case "unsigned":
+      return `Result not signed${laneSuffix(b.lane)}`;
+    case "reflight":
+      return `Re-flight granted${laneSuffix(b.lane)}`;
     case "run-end":
       return "Window closed";
   }

@@ -22,7 +22,7 @@ import type { DerivationEvent, RulingNote, Source } from "./types";
 /** What makes a lane's timing record. */
 const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call"]);
 /** Rulings on a lane: they judge flights, they do not time them. */
-const RULING_KINDS: ReadonlySet<EventKind> = new Set(["invalid", "penalty"]);
+const RULING_KINDS: ReadonlySet<EventKind> = new Set(["invalid", "penalty", "unsigned", "reflight"]);
 const SIGNAL_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "run-end"]);
 
 /** Orders candidate sources by the conflict rules (best first). */

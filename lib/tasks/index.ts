@@ -6,6 +6,7 @@ export { scoreTask, type FlightInput, type ScoreTaskInput, type ScoreTaskResult 
 export { foldRun, type FoldedRun } from "./fold";
 export { liveState, phaseOf, type LiveState, type LaneLive, type LiveFlight, type Phase } from "./live";
 export { pointsLost, type PointsLost } from "./breakdown";
+export { applyPenaltyRules, type PenaltyVerdict, type PenaltyOutcome, type RecordedPenalty } from "./penalty-rules";
 export { CATALOGUE, CATALOGUE_EDITION, getCatalogueTask, listVariants } from "./catalogue";
 export { buildCustomTask, customTaskInputSchema, type CustomTaskInput } from "./custom";
 export {
