@@ -20,6 +20,9 @@ export type Edition = z.infer<typeof editionSchema>;
 
 const seconds = z.number().int().min(1).max(3600);
 
+/** Task C: how many attempts a round may have (F3K.11.3: 3 to 5). */
+export const ALL_UP_ATTEMPTS = { min: 3, max: 5 } as const;
+
 export const countingSchema = z.discriminatedUnion("rule", [
   /** Every flight counts (bounded by the launch limit or the ladder's length). */
   z.object({ rule: z.literal("all") }),
@@ -79,7 +82,8 @@ export const pokerTaskSchema = z.object({
 export const allUpTaskSchema = z.object({
   ...common,
   kind: z.literal("all-up"),
-  attempts: z.number().int().min(1).max(10),
+  /** Task C is flown in 3 to 5 attempts (F3K.11.3). */
+  attempts: z.number().int().min(ALL_UP_ATTEMPTS.min, "Task C has at least 3 attempts.").max(ALL_UP_ATTEMPTS.max, "Task C has at most 5 attempts."),
   /** A launch later than this after the signal scores zero (C: 3 s). */
   launchWindowMs: z.number().int().min(0).max(60_000),
   /** A landing later than this after the signal scores zero (C: 3:33). */

@@ -19,6 +19,8 @@ export {
   type PokerTask,
   type AllUpTask,
 } from "./definition";
+export { TARGET_SHOWN_WITHIN_MS } from "./poker";
+export { ALL_UP_ATTEMPTS } from "./definition";
 export { maxResultTenths, sumCapTenths, isWindowBound } from "./limits";
 export { msToTenths, tenthsToSec, formatTenths } from "./time";
 export type { TimelineEvent } from "./timeline";
