@@ -50,8 +50,8 @@ export const PENALTY_CAUSES = [
 ] as const;
 export type PenaltyCause = (typeof PENALTY_CAUSES)[number];
 
-/** Why a re-flight is granted (F3K.9.6, F3K.4.2, F3K.5). */
-export const REFLIGHT_CAUSES = ["organiser", "launch-collision", "outsider-moved-model", "rain", "other"] as const;
+/** The grounds for a re-flight, and only these (F3K.9.6: organiser's fault; F3K.4.2: a collision during a launch; an outsider moving the model; F3K.5: rain). */
+export const REFLIGHT_CAUSES = ["organiser", "launch-collision", "outsider-moved-model", "rain"] as const;
 export type ReflightCause = (typeof REFLIGHT_CAUSES)[number];
 /** Where the re-flight is flown (F3K.9.6), which decides which result stands (lib/scoring/reflight.ts). */
 export const REFLIGHT_PLACEMENTS = ["later-group", "new-group", "original-group"] as const;

@@ -111,3 +111,16 @@ describe("the penalty event on the wire", () => {
     expect(eventBodySchema.safeParse({ kind: "reflight", lane: 1, cause: "rain", placement: "new-group", reason: "x".repeat(201) }).success).toBe(false);
   });
 });
+
+describe("re-flights on the run (F3K.9.6)", () => {
+  it("a granted re-flight is carried on the lane with its cause and placement, and undo removes it", () => {
+    const { log } = twoFlights();
+    const grant = log.add(130_000, { kind: "reflight", lane: 0, cause: "launch-collision", placement: "later-group", reason: "hit at launch by lane 2's model" });
+    const lane = foldRun(G, log.events).lanes[0]!;
+    expect(lane.reflights).toEqual([{ id: grant, cause: "launch-collision", placement: "later-group", reason: "hit at launch by lane 2's model" }]);
+    // The first flight's result is still shown: which one stands is settled when both are known.
+    expect(lane.resultTenths).toBe(1100);
+    log.add(131_000, { kind: "void", targetId: grant });
+    expect(foldRun(G, log.events).lanes[0]!.reflights).toEqual([]);
+  });
+});
