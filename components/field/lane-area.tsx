@@ -35,7 +35,18 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
             onInvalid={(i, r) => actions.invalid(l.lane, i, r)}
           />
         );
-        const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r)} />;
+        const tools = (
+          <LaneTools
+            laneLabel={label}
+            canUndo={lane.flights.length > 0}
+            undoWhat={null}
+            onUndo={() => void actions.undo(l.lane)}
+            flights={lane.flights}
+            onPenalty={(p) => actions.penalty(l.lane, p)}
+            onUnsigned={() => actions.ruling({ kind: "unsigned", lane: l.lane })}
+            onReflight={(cause, placement) => actions.ruling({ kind: "reflight", lane: l.lane, cause, placement })}
+          />
+        );
         return (
           <LanePanel
             key={l.lane}

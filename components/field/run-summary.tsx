@@ -1,4 +1,4 @@
-import { Breakdown, TimelineStrip } from "@/components/run";
+import { Breakdown, Rulings, TimelineStrip } from "@/components/run";
 import { secondsText } from "@/lib/field/display";
 import type { RunLane } from "@/lib/offline/entities";
 import { foldRun, pointsLost, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
@@ -30,6 +30,7 @@ export function RunSummary({ runId, task, timeline, lanes }: Props) {
               </p>
               <div className="mt-3 space-y-3">
                 <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
+                <Rulings lane={lane} label={l.pilotName} />
                 <Breakdown definition={task} lane={lane} />
               </div>
             </li>

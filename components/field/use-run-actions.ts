@@ -13,6 +13,7 @@ import type { TaskDefinition } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import type { BodyFor } from "./use-recorder";
 import type { InvalidReason } from "./flight-list";
+import type { PenaltyInput } from "./ruling-form";
 
 type Deps = {
   task: TaskDefinition;
@@ -70,7 +71,9 @@ export function useRunActions({ task, laneCount, deviceId, estimate, clocks, rec
       return stored ? null : (refused ?? "The correction was not stored.");
     },
     invalid: (lane: number, flightIndex: number, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightIndex, reason }),
-    penalty: (lane: number, points: number, reason: string) => fixed({ kind: "penalty", lane, points, reason }),
+    penalty: (lane: number, p: PenaltyInput) => fixed({ kind: "penalty", lane, ...p }),
+    /** "Not signed" or a re-flight grant on a lane. */
+    ruling: (body: Extract<EventBody, { kind: "unsigned" | "reflight" }>) => fixed(body),
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),
     endCall: (lane: number, timeStamp: number) => fixed({ kind: "end-call", lane }, stampInput(timeStamp)),
     close: () => fixed({ kind: "run-end" }),

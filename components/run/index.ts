@@ -11,3 +11,4 @@ export { stripLayout, type StripLayout } from "./strip-layout";
 export { Breakdown } from "./breakdown";
 export { FlightsTable } from "./flights-table";
 export { CorrectionsList } from "./corrections-list";
+export { Rulings } from "./rulings";

@@ -40,11 +40,19 @@ export const ladderSchema = z.object({
 });
 export type Ladder = z.infer<typeof ladderSchema>;
 
+/**
+ * How an exact half of 0.1 point rounds when results are normalised (F3K.9.1, AMBIGUOUS in the
+ * rules): stored with the task so a run scores the same on every screen and in a contest.
+ */
+export const halfRoundingSchema = z.enum(["half-up", "half-even", "down"]);
+
 const common = {
   edition: editionSchema,
   /** The rulebook letter for catalogue tasks; null for a custom task. */
   letter: taskLetterSchema.nullable(),
   name: z.string().min(1).max(80),
+  /** Absent: "half-up", our default (lib/tasks/rule-settings.ts). */
+  halves: halfRoundingSchema.optional(),
 };
 
 export const windowTaskSchema = z.object({

@@ -27,3 +27,12 @@ export type { TimelineEvent } from "./timeline";
 export type { ScoredFlight, FlightStatus, LaneScore } from "./score";
 export type { FlightReason } from "./timing";
 export type { LiveWarning, WarningCode } from "./warnings";
+export {
+  DEFAULT_RULE_SETTINGS,
+  END_CALL_LABEL,
+  HALVES_LABEL,
+  ruleSettingsOf,
+  ruleSettingsSchema,
+  withRuleSettings,
+  type RuleSettings,
+} from "./rule-settings";

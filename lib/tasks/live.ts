@@ -12,7 +12,7 @@ export type Phase = "not-started" | "working" | "landing-window" | "ended";
 /** A flight as the timer draws it on the working-time strip (ms from working-time start). */
 export type LiveFlight = Pick<
   ScoredFlight,
-  "index" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths"
+  "index" | "launchId" | "launchMs" | "landMs" | "attempt" | "open" | "status" | "reason" | "targetSec" | "creditedTenths" | "timeTenths"
 >;
 
 export type LaneLive = {
@@ -158,6 +158,6 @@ function isOpenLaunch(e: TimelineEvent, lanes: readonly LaneScore[]): boolean {
 }
 
 function toLive(f: ScoredFlight): LiveFlight {
-  const { index, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths } = f;
-  return { index, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths };
+  const { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths } = f;
+  return { index, launchId, launchMs, landMs, attempt, open, status, reason, targetSec, creditedTenths, timeTenths };
 }

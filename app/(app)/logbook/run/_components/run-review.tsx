@@ -1,8 +1,8 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { Breakdown, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
-import { describeTask } from "@/lib/field/describe-task";
+import { Breakdown, CorrectionsList, FlightsTable, Rulings, TimelineStrip } from "@/components/run";
+import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
 import { consentFor } from "@/lib/offline/consent";
@@ -40,6 +40,7 @@ export function RunReview() {
         <a href="/logbook" className="text-sm font-bold underline">‹ Logbook</a>
         <h1 className="text-2xl font-extrabold">{taskTitle(task)}</h1>
         <p className="text-sm text-muted">{describeTask(task)}</p>
+        <p className="text-sm text-muted" data-testid="rule-settings">{describeRuleSettings(task)}</p>
         {session ? <p className="text-sm">{formatDate(new Date(session.startedAtWallMs))} · {session.fieldName}</p> : null}
         {folded.windowStartMs === null ? <p className="font-semibold text-warn">The working time was never started, so no flight scores.</p> : null}
       </header>
@@ -59,6 +60,7 @@ export function RunReview() {
             ) : null}
             <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
+            <Rulings lane={lane} label={l.pilotName} />
             <h3 className="text-lg font-bold">Where the points went</h3>
             <Breakdown definition={task} lane={lane} />
           </section>
