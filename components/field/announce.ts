@@ -35,6 +35,10 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
     }
     case "penalty":
       return `Penalty ${b.points} points${laneSuffix(b.lane)}`;
+    case "unsigned":
+      return `Result not signed${laneSuffix(b.lane)}`;
+    case "reflight":
+      return `Re-flight granted${laneSuffix(b.lane)}`;
     case "run-end":
       return "Window closed";
   }

@@ -2,7 +2,7 @@
 
 import { TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/events/entities";
-import type { LaneLive, LiveState, TaskDefinition } from "@/lib/tasks";
+import { TARGET_SHOWN_WITHIN_MS, type LaneLive, type LiveState, type TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
 import { LanePanel } from "./lane-panel";
 import { LaneTools } from "./lane-tools";
@@ -35,7 +35,18 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
             onInvalid={(i, r) => actions.invalid(l.lane, i, r)}
           />
         );
-        const tools = <LaneTools laneLabel={label} canUndo={lane.flights.length > 0} undoWhat={null} onUndo={() => void actions.undo(l.lane)} onPenalty={(p, r) => actions.penalty(l.lane, p, r, lane.flights.at(-1)?.launchId ?? null)} />;
+        const tools = (
+          <LaneTools
+            laneLabel={label}
+            canUndo={lane.flights.length > 0}
+            undoWhat={null}
+            onUndo={() => void actions.undo(l.lane)}
+            flights={lane.flights}
+            onPenalty={(p) => actions.penalty(l.lane, p)}
+            onUnsigned={() => actions.ruling({ kind: "unsigned", lane: l.lane })}
+            onReflight={(cause, placement) => actions.ruling({ kind: "reflight", lane: l.lane, cause, placement })}
+          />
+        );
         return (
           <LanePanel
             key={l.lane}
@@ -81,6 +92,8 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
 /** Task E: the picker shows while no target is pending and target places are left. */
 function needsTarget(task: TaskDefinition, lane: LaneLive, live: LiveState): boolean {
   if (task.kind !== "poker" || live.phase !== "working" || lane.nextTargetSec !== null) return false;
+  // Announced before the launch, or shown right after release; later the engine refuses it (F3K.11.5).
+  if (lane.currentFlightMs !== null && lane.currentFlightMs > TARGET_SHOWN_WITHIN_MS) return false;
   const reached = lane.flights.filter((f) => (f.status === "counted" || f.status === "capped") && f.creditedTenths > 0).length;
   return reached < task.maxTargets;
 }

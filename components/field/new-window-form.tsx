@@ -8,9 +8,10 @@ import { prepPlanKey } from "@/lib/field/prep-plan";
 import { getWindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
 import { isQuotaError } from "@/lib/offline/storage";
-import type { TaskLetter } from "@/lib/tasks";
+import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings, type RuleSettings, type TaskLetter } from "@/lib/tasks";
 import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput, type CustomDraft } from "./custom-task-fields";
 import { PlaceFields } from "./place-fields";
+import { RuleSettingsFields } from "./rule-settings-fields";
 import { PlanTaskChooser, TaskChooser, type PlanPick, type TaskKey } from "./task-chooser";
 import { useClubMates } from "./use-club-mates";
 import { useFieldProfile } from "./use-field-profile";
@@ -37,6 +38,7 @@ function NewWindowFormInner() {
   const [taskKey, setTaskKey] = useState<TaskKey>("H:600");
   const [custom, setCustom] = useState<CustomDraft>(EMPTY_CUSTOM);
   const [planPick, setPlanPick] = useState<PlanPick | null>(null);
+  const [settings, setSettings] = useState<RuleSettings>(DEFAULT_RULE_SETTINGS);
   const [prepMin, setPrepMin] = useState("");
   const [noFly, setNoFly] = useState(false);
   const [errors, setErrors] = useState<NewWindowErrors & { save?: string }>({});
@@ -54,6 +56,9 @@ function NewWindowFormInner() {
     const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow, mates);
     if (!out.ok) return setErrors(out.errors);
     if (planItem) out.plan.run.task = structuredClone(planItem) as unknown as Record<string, unknown>;
+    const parsed = taskDefinitionSchema.safeParse(out.plan.run.task);
+    if (!parsed.success) return setErrors({ task: parsed.error.issues.map((i) => i.message).join(" ") });
+    out.plan.run.task = withRuleSettings(parsed.data, settings) as unknown as Record<string, unknown>;
     setErrors({});
     setBusy(true);
     try {
@@ -97,6 +102,7 @@ function NewWindowFormInner() {
       <TaskChooser value={taskKey} onChange={setTaskKey} />
       {taskKey === "custom" ? <CustomTaskFields draft={custom} onChange={setCustom} /> : null}
       {taskKey === "plan" ? <PlanTaskChooser pick={planPick} onPick={setPlanPick} /> : null}
+      <RuleSettingsFields value={settings} onChange={setSettings} showEndCall={taskKey.startsWith("E:") || taskKey === "plan"} />
       {errors.task ? (
         <p role="alert" className="rounded-lg border-2 border-danger p-3 font-semibold text-danger">
           The task does not work: {errors.task}

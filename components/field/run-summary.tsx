@@ -1,4 +1,4 @@
-import { Breakdown, TimelineStrip } from "@/components/run";
+import { Breakdown, Rulings, TimelineStrip } from "@/components/run";
 import { secondsText } from "@/lib/field/display";
 import type { RunLane } from "@/lib/events/entities";
 import type { PhoneResult } from "@/lib/offline/run-result";
@@ -33,6 +33,7 @@ export function RunSummary({ runId, task, result, lanes }: Props) {
               <ClockNote derivation={result.lanes.find((d) => d.lane === l.lane)} />
               <div className="mt-3 space-y-3">
                 <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
+                <Rulings lane={lane} label={l.pilotName} />
                 <Breakdown definition={task} lane={lane} />
               </div>
             </li>

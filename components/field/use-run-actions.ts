@@ -12,6 +12,7 @@ import type { TaskDefinition } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import type { BodyFor } from "./use-recorder";
 import type { InvalidReason } from "@/lib/events/schema";
+import type { PenaltyInput } from "./ruling-form";
 
 type Deps = {
   task: TaskDefinition;
@@ -64,9 +65,9 @@ export function useRunActions({ task, laneCount, view, clocks, record, stampInpu
     },
     /** Marks the flight launched by event `flightId` invalid: keyed by its launch, so an undo elsewhere cannot move it. */
     invalid: (lane: number, flightId: string, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightId, reason }),
-    /** A penalty, keyed by the launch of the attempt it belongs to (the flight in the air, else the last one), if any. */
-    penalty: (lane: number, points: number, reason: string, flightId: string | null) =>
-      fixed({ kind: "penalty", lane, points, reason, ...(flightId ? { flightId } : {}) }),
+    penalty: (lane: number, p: PenaltyInput) => fixed({ kind: "penalty", lane, ...p }),
+    /** "Not signed" or a re-flight grant on a lane. */
+    ruling: (body: Extract<EventBody, { kind: "unsigned" | "reflight" }>) => fixed(body),
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),
     endCall: (lane: number, timeStamp: number) => fixed({ kind: "end-call", lane }, stampInput(timeStamp)),
     close: () => fixed({ kind: "run-end" }),

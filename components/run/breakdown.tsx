@@ -10,6 +10,7 @@ const PARTS: { key: keyof PointsLost["parts"]; label: string; mark: SwatchKind }
   { key: "shortOfTarget", label: "Short of the cap or target", mark: "short" },
   { key: "notCounted", label: "Flights that did not count", mark: "pale" },
   { key: "invalid", label: "Flights that scored zero", mark: "zero" },
+  { key: "roundZero", label: "Round scored zero by a ruling", mark: "zero" },
 ];
 
 /**

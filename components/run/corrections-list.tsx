@@ -22,8 +22,10 @@ const WORDS: Record<RunEvent["body"]["kind"], string> = {
   void: "undo",
   invalid: "invalid mark",
   penalty: "penalty",
+  unsigned: "not-signed ruling",
+  reflight: "re-flight",
 };
-const AUDITED = new Set(["void", "correct", "invalid", "penalty"]);
+const AUDITED = new Set(["void", "correct", "invalid", "penalty", "unsigned", "reflight"]);
 
 /**
  * The audit trail: every undo, time correction, invalid mark and penalty, oldest first,
@@ -73,7 +75,11 @@ function describe(e: RunEvent, byId: Map<string, RunEvent>, laneName: (lane: num
       return `${which} of ${laneName(b.lane)} scores zero: ${b.reason.replaceAll("-", " ")}`;
     }
     case "penalty":
-      return `Penalty −${b.points} points for ${laneName(b.lane)}: ${b.reason}`;
+      return `Penalty −${b.points} points for ${laneName(b.lane)}: ${b.reason}${b.midAir ? " (mid-air collision)" : ""}`;
+    case "unsigned":
+      return `The round result of ${laneName(b.lane)} was not signed: the round scores zero`;
+    case "reflight":
+      return `Re-flight granted to ${laneName(b.lane)}${b.reason ? `: ${b.reason}` : ""}`;
     default:
       return WORDS[b.kind];
   }

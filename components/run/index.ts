@@ -12,3 +12,4 @@ export { Breakdown } from "./breakdown";
 export { FlightsTable } from "./flights-table";
 export { CorrectionsList } from "./corrections-list";
 export { ClockNote } from "./clock-note";
+export { Rulings } from "./rulings";

@@ -41,6 +41,24 @@ const lane = z.number().int().min(0).max(3);
 /** Why a flight is marked invalid (F3K.6.2 landing outside the field, F3K.2.2 a lost part, F3K.4.4 airspace). */
 export const invalidReasonSchema = z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]);
 export type InvalidReason = z.infer<typeof invalidReasonSchema>;
+/** What a penalty was given for (RULES.md "Penalties"); "launch-contact" also zeroes the round. */
+export const PENALTY_CAUSES = [
+  "object-in-safety-area", // −100, F3K.4.3
+  "person-in-safety-area", // −300, F3K.4.3
+  "person-outside-safety-area", // −100, F3K.4.3
+  "outside-time", // −100, F3K.9.5: launching or flying outside the group's windows
+  "relaunch-outside-field", // −100, F3K.2.4
+  "launch-contact", // round scores 0 plus the penalty, F3K.4.1
+  "other",
+] as const;
+export type PenaltyCause = (typeof PENALTY_CAUSES)[number];
+
+/** The grounds for a re-flight, and only these (F3K.9.6: organiser's fault; F3K.4.2: a collision during a launch; an outsider moving the model; F3K.5: rain). */
+export const REFLIGHT_CAUSES = ["organiser", "launch-collision", "outsider-moved-model", "rain"] as const;
+export type ReflightCause = (typeof REFLIGHT_CAUSES)[number];
+/** Where the re-flight is flown (F3K.9.6), which decides which result stands (lib/scoring/reflight.ts). */
+export const REFLIGHT_PLACEMENTS = ["later-group", "new-group", "original-group"] as const;
+export type ReflightPlacement = (typeof REFLIGHT_PLACEMENTS)[number];
 
 /** What happened, by kind. Times of timed kinds are in the envelope's `stamp`. */
 export const eventBodySchema = z.discriminatedUnion("kind", [
@@ -70,15 +88,28 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
     })
     .refine((b) => b.flightId !== undefined || b.flightIndex !== undefined, "an invalid mark names its flight (flightId)"),
   /**
-   * A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5); `flightId`
-   * names the launch of the attempt it was given in, when it belongs to one.
+   * A penalty in points against the lane's pilot for this round (F3K.4.3, F3K.9.5). `cause`,
+   * `launchId` (the launch event of the attempt it happened in) and `midAir` feed the rules of
+   * lib/tasks/penalty-rules.ts; events recorded before they existed have none and count in full.
    */
   z.object({
     kind: z.literal("penalty"),
     lane,
     points: z.number().int().min(1).max(1000),
     reason: text(200).min(1),
-    flightId: z.string().uuid().optional(),
+    cause: z.enum(PENALTY_CAUSES).optional(),
+    launchId: z.string().uuid().optional(),
+    midAir: z.boolean().optional(),
+  }),
+  /** The round result was not signed by pilot and timekeeper: the round scores zero (F3K.1.2). */
+  z.object({ kind: z.literal("unsigned"), lane }),
+  /** The lane's pilot is granted a re-flight of this round (F3K.9.6, F3K.4.2). */
+  z.object({
+    kind: z.literal("reflight"),
+    lane,
+    cause: z.enum(REFLIGHT_CAUSES),
+    placement: z.enum(REFLIGHT_PLACEMENTS),
+    reason: text(200).optional(),
   }),
   /** Moves a timed event to another time (ms on the same clock as its stamp). */
   z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: epochMs }),

@@ -1,4 +1,4 @@
-import type { TaskDefinition } from "@/lib/tasks";
+import { END_CALL_LABEL, HALVES_LABEL, ruleSettingsOf, type TaskDefinition } from "@/lib/tasks";
 
 const minutes = (sec: number) => (sec % 60 === 0 ? `${sec / 60} min` : `${sec} s`);
 const list = (secs: readonly number[]) => secs.join(", ") + " s";
@@ -35,4 +35,11 @@ export function describeTask(def: TaskDefinition): string {
           ? "only the last flight counts"
           : `the last ${c.n} flights count`;
   return `${head}${launches} · ${what}, ${cap}`;
+}
+
+/** The scoring choices stored with the task, e.g. "Normalised scores: exact halves round up". */
+export function describeRuleSettings(def: TaskDefinition): string {
+  const s = ruleSettingsOf(def);
+  const halves = `Normalised scores: ${HALVES_LABEL[s.halves].toLowerCase()}`;
+  return def.kind === "poker" ? `${halves} · End of working time call: ${END_CALL_LABEL[s.endCall].toLowerCase()}` : halves;
 }

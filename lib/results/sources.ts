@@ -22,7 +22,7 @@ import type { DerivationEvent, RulingNote, Source } from "./types";
 /** What makes a lane's timing record. */
 const LANE_KINDS: ReadonlySet<EventKind> = new Set(["launch", "landing", "target", "end-call"]);
 /** Rulings on a lane: they judge flights, they do not time them. */
-const RULING_KINDS: ReadonlySet<EventKind> = new Set(["invalid", "penalty"]);
+const RULING_KINDS: ReadonlySet<EventKind> = new Set(["invalid", "penalty", "unsigned", "reflight"]);
 const SIGNAL_KINDS: ReadonlySet<EventKind> = new Set(["window-start", "run-end"]);
 
 /** Orders candidate sources by the conflict rules (best first). */
@@ -153,7 +153,7 @@ export function rulingNotes(
     const e = byId.get(t.id);
     if (!e || applied.has(e.id)) continue;
     if (e.body.kind === "penalty") {
-      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, flightId: e.body.flightId ?? null, reason: e.body.reason });
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, flightId: e.body.launchId ?? null, reason: e.body.reason });
     } else if (e.body.kind === "invalid") {
       out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "invalid", points: null, flightIndex: e.body.flightIndex ?? null, flightId: e.body.flightId ?? null, reason: e.body.reason });
     }

@@ -13,3 +13,5 @@ export {
   type TeamEntry,
   type TeamStanding,
 } from "./ranking";
+export { finalResults, flyOffPlanProblems, roundTaskProblem, FLY_OFF_ROUNDS, type FinalResult, type Stage } from "./fly-off";
+export { reflightPlacements, standingResult, type StandingInput } from "./reflight";

@@ -7,8 +7,11 @@
 export type ContestTotalInput = {
   /** Normalised round scores in points (0.1 point resolution), in round order. */
   rounds: number[];
-  /** Total penalty points of the contest (every round, dropped or not). */
-  penalties: number;
+  /**
+   * Penalty points of the contest (every round, dropped or not): a total, or one entry per
+   * round in round order.
+   */
+  penalties: number | readonly number[];
   /** Drop the lowest round from this many rounds (default 6; Infinity = never). */
   dropFrom?: number;
 };
@@ -47,7 +50,7 @@ export function contestTotal(input: ContestTotalInput): ContestTotal {
   }
   const sum = tenths.reduce((a, b) => a + b, 0);
   const keptTenths = sum - (dropped?.tenths ?? 0);
-  const penaltyTenths = toTenths(input.penalties);
+  const penaltyTenths = typeof input.penalties === "number" ? toTenths(input.penalties) : input.penalties.reduce((sum, p) => sum + toTenths(p), 0);
   const totalTenths = keptTenths - penaltyTenths;
   return { total: totalTenths / 10, totalTenths, keptTenths, dropped, penaltyTenths, valid: tenths.length >= MIN_VALID_ROUNDS };
 }

@@ -18,6 +18,8 @@ export type PointsLost = {
     shortOfTarget: number;
     /** Working time spent on the ground beyond what the task allows. */
     groundTime: number;
+    /** The flown result a round-zero ruling took away (F3K.4.1 contact at launch, F3K.1.2 not signed). */
+    roundZero: number;
   };
   /** Penalty points (contest points, not seconds — reported beside the seconds, not inside them). */
   penaltyPoints: number;
@@ -43,7 +45,7 @@ export function pointsLost(def: TaskDefinition, lane: LaneScore): PointsLost {
   const maxTenths = maxResultTenths(def);
   const scoredTenths = lane.resultTenths;
   const lostTenths = maxTenths - scoredTenths;
-  const parts = { invalid: 0, notCounted: 0, overCap: 0, shortOfTarget: 0, groundTime: 0 };
+  const parts = { invalid: 0, notCounted: 0, overCap: 0, shortOfTarget: 0, groundTime: 0, roundZero: lane.zeroedTenths };
   const windowBound = isWindowBound(def);
 
   if (!windowBound) {
@@ -64,7 +66,7 @@ export function pointsLost(def: TaskDefinition, lane: LaneScore): PointsLost {
       else raw.notCounted += f.inWindowTenths;
     }
     raw.shortOfTarget = idleAfterLastLaunch(def, lane);
-    let remaining = lostTenths;
+    let remaining = lostTenths - lane.zeroedTenths;
     for (const key of ["invalid", "notCounted", "overCap", "shortOfTarget"] as const) {
       const take = Math.max(0, Math.min(remaining, raw[key]));
       parts[key] = take;

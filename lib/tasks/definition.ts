@@ -20,6 +20,9 @@ export type Edition = z.infer<typeof editionSchema>;
 
 const seconds = z.number().int().min(1).max(3600);
 
+/** Task C: how many attempts a round may have (F3K.11.3: 3 to 5). */
+export const ALL_UP_ATTEMPTS = { min: 3, max: 5 } as const;
+
 export const countingSchema = z.discriminatedUnion("rule", [
   /** Every flight counts (bounded by the launch limit or the ladder's length). */
   z.object({ rule: z.literal("all") }),
@@ -37,11 +40,19 @@ export const ladderSchema = z.object({
 });
 export type Ladder = z.infer<typeof ladderSchema>;
 
+/**
+ * How an exact half of 0.1 point rounds when results are normalised (F3K.9.1, AMBIGUOUS in the
+ * rules): stored with the task so a run scores the same on every screen and in a contest.
+ */
+export const halfRoundingSchema = z.enum(["half-up", "half-even", "down"]);
+
 const common = {
   edition: editionSchema,
   /** The rulebook letter for catalogue tasks; null for a custom task. */
   letter: taskLetterSchema.nullable(),
   name: z.string().min(1).max(80),
+  /** Absent: "half-up", our default (lib/tasks/rule-settings.ts). */
+  halves: halfRoundingSchema.optional(),
 };
 
 export const windowTaskSchema = z.object({
@@ -79,7 +90,8 @@ export const pokerTaskSchema = z.object({
 export const allUpTaskSchema = z.object({
   ...common,
   kind: z.literal("all-up"),
-  attempts: z.number().int().min(1).max(10),
+  /** Task C is flown in 3 to 5 attempts (F3K.11.3). */
+  attempts: z.number().int().min(ALL_UP_ATTEMPTS.min, "Task C has at least 3 attempts.").max(ALL_UP_ATTEMPTS.max, "Task C has at most 5 attempts."),
   /** A launch later than this after the signal scores zero (C: 3 s). */
   launchWindowMs: z.number().int().min(0).max(60_000),
   /** A landing later than this after the signal scores zero (C: 3:33). */

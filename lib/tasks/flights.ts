@@ -1,4 +1,5 @@
-import type { InvalidReason } from "@/lib/events/schema";
+import type { InvalidReason, ReflightCause, ReflightPlacement } from "@/lib/events/schema";
+import type { RecordedPenalty } from "./penalty-rules";
 import { applyUndoAndCorrections, type TimelineEvent } from "./timeline";
 
 /** A launch and (once it happens) its landing, in absolute timeline ms. */
@@ -23,7 +24,11 @@ export type LaneLog = {
   flights: RawFlight[];
   /** Invalid marks by the launch event id of the flight they name. */
   invalid: Map<string, InvalidReason>;
-  penalties: { id: string; points: number; reason: string; flightId: string | null }[];
+  penalties: RecordedPenalty[];
+  /** "Not signed" rulings (F3K.1.2), by event id. */
+  unsigned: string[];
+  /** Re-flights granted to the lane's pilot (F3K.9.6). */
+  reflights: { id: string; cause: ReflightCause; placement: ReflightPlacement; reason: string | null }[];
   calls: LaneCall[];
   /** Taps that did not change the flights: a launch while flying, a landing with none open. */
   ignored: { id: string; reason: "launch-while-flying" | "landing-without-flight" }[];
@@ -56,6 +61,8 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
     flights: [],
     invalid: new Map(),
     penalties: [],
+    unsigned: [],
+    reflights: [],
     calls: [],
     ignored: [],
   }));
@@ -110,7 +117,20 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
         break;
       }
       case "penalty":
-        log.penalties.push({ id: e.id, points: body.points, reason: body.reason, flightId: body.flightId ?? null });
+        log.penalties.push({
+          id: e.id,
+          points: body.points,
+          reason: body.reason,
+          ...(body.cause ? { cause: body.cause } : {}),
+          ...(body.launchId ? { launchId: body.launchId } : {}),
+          ...(body.midAir ? { midAir: true } : {}),
+        });
+        break;
+      case "unsigned":
+        log.unsigned.push(e.id);
+        break;
+      case "reflight":
+        log.reflights.push({ id: e.id, cause: body.cause, placement: body.placement, reason: body.reason ?? null });
         break;
       case "target":
         log.calls.push({ kind: "target", atMs: e.atMs, targetSec: body.targetSec, id: e.id });

@@ -8,6 +8,7 @@ export { liveState, type LiveState, type LaneLive, type LiveFlight } from "./liv
 export { phaseOf, type Phase, type RunClock } from "./run-clock";
 export { pointsLost, type PointsLost } from "./breakdown";
 export type { LengthHint } from "./hints";
+export { applyPenaltyRules, type PenaltyVerdict, type PenaltyOutcome, type RecordedPenalty } from "./penalty-rules";
 export { CATALOGUE, CATALOGUE_EDITION, getCatalogueTask, listVariants } from "./catalogue";
 export { buildCustomTask, customTaskInputSchema, type CustomTaskInput } from "./custom";
 export {
@@ -20,9 +21,20 @@ export {
   type PokerTask,
   type AllUpTask,
 } from "./definition";
+export { TARGET_SHOWN_WITHIN_MS } from "./poker";
+export { ALL_UP_ATTEMPTS } from "./definition";
 export { maxResultTenths, sumCapTenths, isWindowBound } from "./limits";
 export { msToTenths, tenthsToSec, formatTenths, secondsText } from "./time";
 export type { TimelineEvent } from "./timeline";
 export type { ScoredFlight, FlightStatus, LaneScore } from "./score";
 export type { FlightReason } from "./timing";
 export type { LiveWarning, WarningCode } from "./warnings";
+export {
+  DEFAULT_RULE_SETTINGS,
+  END_CALL_LABEL,
+  HALVES_LABEL,
+  ruleSettingsOf,
+  ruleSettingsSchema,
+  withRuleSettings,
+  type RuleSettings,
+} from "./rule-settings";

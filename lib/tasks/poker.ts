@@ -12,7 +12,15 @@ export type PokerState = {
   endCallPending: boolean;
   /** No further flight can count (all targets reached, or the end-call attempt flown). */
   done: boolean;
+  /** Target or end-of-working-time calls made while a model was in the air, past the grace: refused. */
+  refusedCallIds: string[];
 };
+
+/**
+ * How long after release a target may still be shown for the flight in the air (ours: the
+ * rules say "right after release" without a number, F3K.11.5). Later calls are refused.
+ */
+export const TARGET_SHOWN_WITHIN_MS = 5000;
 
 export type PokerResult = { picks: CountDecision[]; targetOf: (number | null)[]; state: PokerState };
 
@@ -23,9 +31,10 @@ export type PokerResult = { picks: CountDecision[]; targetOf: (number | null)[];
  * Readings of points the rules leave open (listed in the README):
  * - A target call is accepted only when no announced target is still unreached ("an
  *   unreached target cannot be changed"); otherwise it is ignored.
- * - A target called while a flight is in the air applies to that flight if the flight
- *   started with no target (the rules allow showing it in writing right after release);
- *   how soon "right after" is left to the timekeeper.
+ * - A target called within TARGET_SHOWN_WITHIN_MS of a release applies to that flight if
+ *   the flight started with no target (the rules allow showing it in writing right after
+ *   release). Any call later while the model is in the air is refused (a target is
+ *   announced before the launch that attempts it), listed in `refusedCallIds`.
  * - A flight launched with no target attempts nothing and does not count.
  * - AMBIGUOUS "end of working time": the call is accepted under the same condition as a
  *   target; the next launch is the one attempt; it fills one of the target places and is
@@ -41,6 +50,7 @@ export function countPokerFlights(def: PokerTask, flights: readonly TimedFlight[
   let endCallPending = false;
   let done = false;
   let c = 0;
+  const refusedCallIds: string[] = [];
 
   const takeCall = (call: LaneCall) => {
     if (done || endCallPending || pending !== null) return;
@@ -50,6 +60,18 @@ export function countPokerFlights(def: PokerTask, flights: readonly TimedFlight[
 
   for (const f of flights) {
     while (c < calls.length && calls[c]!.atMs <= f.launchAtMs) takeCall(calls[c++]!);
+    const landAt = f.open ? Infinity : (f.landAtMs ?? Infinity);
+    // A target shown right after release, for a flight launched with none pending.
+    const shownBy = Math.min(landAt, f.launchAtMs + TARGET_SHOWN_WITHIN_MS);
+    if (!f.excludedReason && !done && !endCallPending) {
+      while (pending === null && c < calls.length && calls[c]!.atMs <= shownBy) {
+        const call = calls[c++]!;
+        if (call.kind === "target") pending = call.targetSec;
+      }
+    }
+    // Anything else called while the model is in the air is refused: a target is announced
+    // before the launch that attempts it (F3K.11.5), not during or after that flight.
+    while (c < calls.length && calls[c]!.atMs < landAt) refusedCallIds.push(calls[c++]!.id);
     if (f.excludedReason) {
       picks.push({ counted: false, slotCapTenths: null, creditedTenths: 0, reason: f.excludedReason });
       targetOf.push(null);
@@ -69,12 +91,6 @@ export function countPokerFlights(def: PokerTask, flights: readonly TimedFlight[
       targetOf.push(null);
       continue;
     }
-    // A target shown right after release, for a flight launched with none pending.
-    const landAt = f.open ? Infinity : (f.landAtMs ?? Infinity);
-    while (pending === null && c < calls.length && calls[c]!.atMs <= landAt) {
-      const call = calls[c++]!;
-      if (call.kind === "target") pending = call.targetSec;
-    }
     targetOf.push(pending);
     if (pending === null) {
       picks.push({ counted: false, slotCapTenths: null, creditedTenths: 0, reason: f.zeroReason ?? "no-target" });
@@ -91,5 +107,5 @@ export function countPokerFlights(def: PokerTask, flights: readonly TimedFlight[
     }
   }
   while (c < calls.length) takeCall(calls[c++]!);
-  return { picks, targetOf, state: { pendingTargetSec: pending, reachedCount: reached, endCallPending, done } };
+  return { picks, targetOf, state: { pendingTargetSec: pending, reachedCount: reached, endCallPending, done, refusedCallIds } };
 }

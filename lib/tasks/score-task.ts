@@ -1,5 +1,5 @@
 import type { TaskLetter, TaskDefinition } from "./definition";
-import { taskLetterSchema } from "./definition";
+import { ALL_UP_ATTEMPTS, parseTaskDefinition, taskLetterSchema } from "./definition";
 import { findCatalogueTask } from "./catalogue";
 import { foldRun } from "./fold";
 import { maxResultTenths } from "./limits";
@@ -23,7 +23,7 @@ export type ScoreTaskInput = {
   task: TaskLetter | TaskDefinition;
   /** Picks a variant: 420 / 600 / 900 (default: the 10-minute one; 900 for M). Task C: ignored, see `attempts`. */
   workingTimeSec?: number;
-  /** Task C: number of attempts (3–5); default: one per flight given. */
+  /** Task C: number of attempts (3–5, F3K.11.3); default: one per flight given, at least 3. */
   attempts?: number;
   flights: readonly FlightInput[];
 };
@@ -76,13 +76,14 @@ export function scoreTask(input: ScoreTaskInput): ScoreTaskResult {
   };
 }
 
+/** The definition to score; throws a ZodError for one the rules do not allow (task C: 3–5 attempts). */
 function resolveDefinition(input: ScoreTaskInput): TaskDefinition {
-  if (typeof input.task !== "string") return input.task;
+  if (typeof input.task !== "string") return parseTaskDefinition(input.task);
   const letter = taskLetterSchema.parse(input.task);
   if (letter === "C") {
     const base = findCatalogueTask("C");
-    const attempts = input.attempts ?? Math.max(1, input.flights.length);
-    return { ...base, attempts } as TaskDefinition;
+    const attempts = input.attempts ?? Math.max(ALL_UP_ATTEMPTS.min, input.flights.length);
+    return parseTaskDefinition({ ...base, attempts });
   }
   return findCatalogueTask(letter, input.workingTimeSec);
 }

@@ -3,6 +3,7 @@ import { countWindowFlights, type CountDecision } from "./counting";
 import type { LaneLog, RunLog } from "./flights";
 import { countPokerFlights, type PokerState } from "./poker";
 import { sumCapTenths } from "./limits";
+import { applyPenaltyRules, type PenaltyVerdict } from "./penalty-rules";
 import { timeAllUpFlights, timeWindowFlights, type Clock, type FlightReason, type TimedFlight } from "./timing";
 
 export type FlightStatus = "counted" | "capped" | "not-counted" | "invalid" | "open";
@@ -28,9 +29,18 @@ export type LaneScore = {
   rawTenths: number;
   /** The sum cap that applied (tenths), or null for tasks without one. */
   sumCapTenths: number | null;
-  /** The task result in tenths of a second. */
+  /** The task result in tenths of a second (0 when the round is zeroed). */
   resultTenths: number;
+  /** Penalty points that apply (penalty-rules.ts: highest per attempt, none for mid-air). */
   penaltyPoints: number;
+  /** Every penalty recorded on the lane, applied or dropped, with the reason. */
+  penalties: PenaltyVerdict[];
+  /** Why the round scores zero (F3K.4.1 contact at launch, F3K.1.2 not signed), or null. */
+  roundZero: "launch-contact" | "unsigned" | null;
+  /** The result the round-zero ruling took away, in tenths (0 when none). */
+  zeroedTenths: number;
+  /** Re-flights granted to the lane's pilot (F3K.9.6), in the order recorded. */
+  reflights: LaneLog["reflights"];
   poker: PokerState | null;
 };
 
@@ -77,13 +87,20 @@ export function scoreLane(def: TaskDefinition, run: RunLog, log: LaneLog, clock:
   // "Scored flights" for F3K.7 = flights that add time to the result (choice: a counted
   // zero does not cost its one second).
   const cap = sumCapTenths(def, scored);
+  const flown = cap === null ? rawTenths : Math.min(rawTenths, cap);
+  const penalties = applyPenaltyRules(log.penalties);
+  const roundZero = penalties.zeroesRound ? "launch-contact" : log.unsigned.length > 0 ? "unsigned" : null;
   return {
     lane: log.lane,
     flights,
     rawTenths,
     sumCapTenths: cap,
-    resultTenths: cap === null ? rawTenths : Math.min(rawTenths, cap),
-    penaltyPoints: log.penalties.reduce((sum, p) => sum + p.points, 0),
+    resultTenths: roundZero ? 0 : flown,
+    penaltyPoints: penalties.points,
+    penalties: penalties.verdicts,
+    roundZero,
+    zeroedTenths: roundZero ? flown : 0,
+    reflights: log.reflights,
     poker,
   };
 }

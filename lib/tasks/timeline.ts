@@ -19,6 +19,8 @@ const TIE_RANK: Record<EventBody["kind"], number> = {
   launch: 4,
   invalid: 5,
   penalty: 5,
+  unsigned: 5,
+  reflight: 5,
   correct: 6,
   void: 6,
   "run-end": 7,

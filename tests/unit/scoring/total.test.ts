@@ -16,8 +16,13 @@ describe("contestTotal (F3K.10)", () => {
     expect(r.dropped).toEqual({ index: 2, score: 700.1, tenths: 7001 });
   });
   it("penalties stay even when their round is dropped", () => {
-    // same rounds, 100 penalty from the dropped round 3: 4890.8 − 100 = 4790.8
-    expect(contestTotal({ rounds: [1000, 950.5, 700.1, 975.3, 990, 975], penalties: 100 }).total).toBe(4790.8);
+    // Same rounds; the 100-point penalty was given in round 3, the dropped one:
+    // 4890.8 − 100 = 4790.8 (dropping the penalty with its round would give 4890.8).
+    const r = contestTotal({ rounds: [1000, 950.5, 700.1, 975.3, 990, 975], penalties: [0, 0, 100, 0, 0, 0] });
+    expect(r.dropped?.index).toBe(2);
+    expect(r.total).toBe(4790.8);
+    // A penalty in a kept round costs the same.
+    expect(contestTotal({ rounds: [1000, 950.5, 700.1, 975.3, 990, 975], penalties: [100, 0, 0, 0, 0, 0] }).total).toBe(4790.8);
   });
   it("fewer than 5 rounds is not a valid contest", () => {
     expect(contestTotal({ rounds: [1000, 1000, 1000, 1000], penalties: 0 }).valid).toBe(false);

@@ -53,7 +53,7 @@ describe("catalogue data", () => {
   });
 });
 
-describe("task A — last flight", () => {
+describe("task A — last flight (F3K.11.1)", () => {
   it("10 min: only the last flight counts, capped at 300 s", () => {
     // 310 → capped 300, then a 120.47 s flight cancels it: 120.4 s.
     expect(scoreTask({ task: "A", flights: backToBack([310, 120.47]) }).seconds).toBe(120.4);
@@ -67,7 +67,7 @@ describe("task A — last flight", () => {
   });
 });
 
-describe("task B — next to last and last", () => {
+describe("task B — next to last and last (F3K.11.2)", () => {
   it("10 min: cap 240", () => {
     // 250 → 240 counts with 200: 440.
     expect(scoreTask({ task: "B", flights: backToBack([100, 250, 200]) }).seconds).toBe(440);
@@ -78,7 +78,7 @@ describe("task B — next to last and last", () => {
   });
 });
 
-describe("task C — all up, last down", () => {
+describe("task C — all up, last down (F3K.11.3)", () => {
   const attempt = (launchMs: number, flownSec: number | null) => ({ launchMs, landMs: flownSec === null ? null : launchMs + flownSec * 1000 });
   it("3 attempts: times added, each capped at 180 s", () => {
     // 150 + 185→180 + 179.99→179.9 = 509.9
@@ -103,7 +103,7 @@ describe("task C — all up, last down", () => {
   });
 });
 
-describe("task D — two flights", () => {
+describe("task D — two flights (F3K.11.4)", () => {
   it("both of at most two launches count, cap 300; a third launch does not count", () => {
     // 320 → 300, 250, third 200 ignored: 550.
     const r = scoreTask({ task: "D", flights: backToBack([320, 250, 200]) });
@@ -112,7 +112,7 @@ describe("task D — two flights", () => {
   });
 });
 
-describe("task E — poker", () => {
+describe("task E — poker (F3K.11.5)", () => {
   it("10 min: at most three reached targets are credited", () => {
     // Targets 100 (reached at 101), 150 (reached at 155), 120 (reached 121), then a 4th flight: 370.
     const flights = [
@@ -153,43 +153,45 @@ describe("task E — poker", () => {
 });
 
 describe("tasks F–N", () => {
-  it("F: best 3 of at most 6 launches, cap 180", () => {
+  it("F (F3K.11.6): best 3 of at most 6 launches, cap 180", () => {
     // 7 launches: 50,60,70,80,90,100, then 179 (7th, ignored). Best 3 of first 6: 100+90+80 = 270.
     expect(scoreTask({ task: "F", flights: backToBack([50, 60, 70, 80, 90, 100, 179], 500) }).seconds).toBe(270);
   });
-  it("G: five longest, cap 120", () => {
+  it("G (F3K.11.7): five longest, cap 120", () => {
     // 130→120, 110, 100, 90, 80, 70: top five 120+110+100+90+80 = 500.
     expect(scoreTask({ task: "G", flights: backToBack([130, 110, 70, 100, 90, 80], 500) }).seconds).toBe(500);
   });
-  it("H: any order, four longest matched longest→240", () => {
+  it("H (F3K.11.8): any order, four longest matched longest→240", () => {
     // 250→240, 100→180 slot: 100, 70→120 slot: 70, 65→60 slot: 60: 470.
     expect(scoreTask({ task: "H", flights: backToBack([65, 250, 70, 100]) }).seconds).toBe(470);
   });
-  it("I: three longest, cap 200", () => {
+  it("I (F3K.11.9): three longest, cap 200", () => {
     // 210→200, 150, 190: 540.
     expect(scoreTask({ task: "I", flights: backToBack([150, 210, 20, 190]) }).seconds).toBe(540);
   });
-  it("J: last three, cap 180", () => {
+  it("J (F3K.11.10): last three, cap 180", () => {
     // 200(dropped), 181→180, 30, 100: 310.
     expect(scoreTask({ task: "J", flights: backToBack([200, 181, 30, 100]) }).seconds).toBe(310);
   });
-  it("K: five launches in order against 60, 90, 120, 150, 180; a short flight counts its time", () => {
-    // 65→60, 80 (short, counts 80), 125→120, 150, 170 = 580; a 6th launch does not count.
+  it("K (F3K.11.11): five launches in order against 60, 90, 120, 150, 180; a short flight counts its time", () => {
+    // Five launches: 65→60, 80 (short of 90, counts 80), 125→120, 150 (= 150), 5 (short of
+    // 180, counts 5) = 415; the 6th launch (100) does not count.
     const r = scoreTask({ task: "K", flights: backToBack([65, 80, 125, 150, 5, 100], 300) });
-    // launches 65, 80, 125, 150, 5: 60 + 80 + 120 + 150 + 5 = 415; 6th ignored.
     expect(r.seconds).toBe(415);
     expect(r.flights[5]?.reason).toBe("beyond-launch-limit");
   });
-  it("L: one flight, 599 s in 10 min and 419 s in 7 min", () => {
-    // launched at 0, flies 700 s: time counts to the end of working time (600 s) then cap 599.
+  it("L (F3K.11.12): one flight, 599 s in 10 min and 419 s in 7 min", () => {
+    // 10 min: launched at 0, lands at 615 s, inside the 30 s landing window (F3K.7): time counts
+    // to the end of working time (600 s), then the cap of 599 s.
+    // 7 min: only the first launch counts (one flight): 300 s; the second (99 s) does not.
     expect(scoreTask({ task: "L", flights: [{ launchMs: 0, landMs: 615_000 }] }).seconds).toBe(599);
     expect(scoreTask({ task: "L", workingTimeSec: 420, flights: [{ launchMs: 0, landMs: 300_000 }, { launchMs: 301_000, landMs: 400_000 }] }).seconds).toBe(300);
   });
-  it("M: three launches against 180, 300, 420 in 15 min", () => {
+  it("M (F3K.11.13): three launches against 180, 300, 420 in 15 min", () => {
     // 200→180, 290 (short of 300, counts 290), 380 (short of 420): 850, under the sum cap 897.
     expect(scoreTask({ task: "M", flights: backToBack([200, 290, 380], 1000) }).seconds).toBe(180 + 290 + 380);
   });
-  it("N: best single flight, cap 599", () => {
+  it("N (F3K.11.14): best single flight, cap 599", () => {
     expect(scoreTask({ task: "N", flights: backToBack([100, 400.05, 50]) }).seconds).toBe(400);
   });
 });

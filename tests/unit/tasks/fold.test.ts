@@ -96,7 +96,10 @@ describe("foldRun: undo and corrections", () => {
 });
 
 describe("foldRun: penalties, invalid marks and targets", () => {
-  it("sums recorded penalties per lane (F3K.4.3, F3K.9.5)", () => {
+  // Ours: a lane is one pilot, so a penalty counts against its own lane only. The points are
+  // the rulebook's (F3K.4.3: −100 for touching an object, −300 for a person in the safety area);
+  // how several penalties of one lane combine is in penalty-rules.test.ts.
+  it("keeps each lane's penalties to that lane's pilot", () => {
     const log = eventLog();
     log.start(0);
     log.add(1000, { kind: "penalty", lane: 0, points: 100, reason: "touched object in safety area" });

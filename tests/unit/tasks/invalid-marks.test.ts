@@ -54,7 +54,7 @@ describe("invalid marks name the flight by its launch (a flight marked invalid s
 
   it("a penalty keeps the launch it was given in", () => {
     const { log, launches } = threeFlights();
-    log.add(190_000, { kind: "penalty", lane: 0, points: 100, reason: "touched the ground in the safety area", flightId: launches[1] });
+    log.add(190_000, { kind: "penalty", lane: 0, points: 100, reason: "touched the ground in the safety area", launchId: launches[1] });
     // F3K.4.3: −100 for touching an object in a safety area
     expect(foldRun(G, log.events).lanes[0]!.penaltyPoints).toBe(100);
   });

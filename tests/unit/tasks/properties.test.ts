@@ -8,9 +8,9 @@ import {
   msToTenths,
   pointsLost,
   scoreTask,
-  sumCapTenths,
   type FlightInput,
   type TaskDefinition,
+  type WindowTask,
 } from "@/lib/tasks";
 import { eventLog } from "./helpers";
 
@@ -44,17 +44,78 @@ const eventsFor = (def: TaskDefinition, flights: readonly FlightInput[]) => {
   return log.events;
 };
 
+/**
+ * Each catalogue variant's maximum in tenths, worked by hand (the same arithmetic as
+ * catalogue.test.ts): the slot maxima added up, cut by the F3K.7 sum cap "working time − 1 s
+ * per scored flight" where that is lower (E: one target of 599 s beats three of 600 − 3).
+ */
+const HAND_MAX: Record<string, number> = {
+  "A600": 3000, "A420": 3000, "B600": 4800, "B420": 3600, "C3": 5400, "C4": 7200, "C5": 9000,
+  "D600": 5980, "E600": 5990, "E900": 8990, "F600": 5400, "G600": 5950, "H600": 5960, "I600": 5970,
+  "J600": 5400, "K600": 5950, "L600": 5990, "L420": 4190, "M900": 8970, "N600": 5990,
+};
+const keyOf = (def: TaskDefinition) => `${def.letter}${def.kind === "all-up" ? def.attempts : def.workingTimeSec}`;
+
+/**
+ * A plain reference scorer for the capped window tasks (A, B, D, F, G, I, J, L, N), for flights
+ * that all land inside the working time: truncate each to tenths (F3K.7), cap it, keep the
+ * flights the task counts (F3K.11), and cut the sum to working time − 1 s per flight that
+ * scored (F3K.7). Written apart from the engine, so the engine is checked against it.
+ */
+function referenceResult(def: WindowTask, durationsMs: readonly number[]): number {
+  const allowed = def.launchLimit === null ? durationsMs : durationsMs.slice(0, def.launchLimit);
+  const credits = allowed.map((ms) => Math.min(Math.floor(ms / 100), def.capSec! * 10));
+  const counted =
+    def.counting.rule === "all" ? credits
+    : def.counting.rule === "last" ? credits.slice(-def.counting.n)
+    : [...credits].sort((a, b) => b - a).slice(0, def.counting.n);
+  const sum = counted.reduce((a, b) => a + b, 0);
+  const scored = counted.filter((c) => c > 0).length;
+  return Math.min(sum, (def.workingTimeSec - scored) * 10);
+}
+const cappedDefs = windowDefs.filter((d) => d.ladder === null);
+
+/** Flights back to back from the start of working time, every one landed inside it. */
+const insideWindow = (def: WindowTask) =>
+  fc.array(fc.record({ dur: fc.integer({ min: 0, max: 250_000 }), gap: fc.integer({ min: 0, max: 20_000 }) }), { maxLength: 8 }).map((legs) => {
+    const flights: FlightInput[] = [];
+    let t = 0;
+    for (const l of legs) {
+      if (t + l.dur >= def.workingTimeSec * 1000) break;
+      flights.push({ launchMs: t, landMs: t + l.dur });
+      t += l.dur + l.gap;
+    }
+    return flights;
+  });
+
 describe("properties of the task engine", () => {
+  it("the catalogue's maxima are the hand-worked ones (F3K.11, F3K.7)", () => {
+    for (const def of allDefs) expect([keyOf(def), maxResultTenths(def)]).toEqual([keyOf(def), HAND_MAX[keyOf(def)]]);
+  });
+
   it("a result never exceeds the task's maximum nor the F3K.7 sum cap", () => {
     fc.assert(
       fc.property(fc.constantFrom(...allDefs), flightsArb, (def, flights) => {
         const lane = foldRun(def, eventsFor(def, flights)).lanes[0]!;
-        expect(lane.resultTenths).toBeLessThanOrEqual(maxResultTenths(def));
+        expect(lane.resultTenths).toBeLessThanOrEqual(HAND_MAX[keyOf(def)]!);
+        // F3K.7: working time − 1 s for each flight that scored (task C has its own windows).
         const scored = lane.flights.filter((f) => f.creditedTenths > 0).length;
-        const cap = sumCapTenths(def, scored);
-        if (cap !== null) expect(lane.resultTenths).toBeLessThanOrEqual(cap);
+        if (def.kind !== "all-up") expect(lane.resultTenths).toBeLessThanOrEqual((def.workingTimeSec - scored) * 10);
         expect(Number.isInteger(lane.resultTenths)).toBe(true);
       }),
+      { numRuns: 400 },
+    );
+  });
+
+  it("capped window tasks score what a plain reference scorer gives (F3K.7, F3K.11)", () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...cappedDefs).chain((def) => fc.tuple(fc.constant(def), insideWindow(def))),
+        ([def, flights]) => {
+          const lane = foldRun(def, eventsFor(def, flights)).lanes[0]!;
+          expect(lane.resultTenths).toBe(referenceResult(def, flights.map((f) => f.landMs! - f.launchMs)));
+        },
+      ),
       { numRuns: 400 },
     );
   });
@@ -117,10 +178,26 @@ describe("properties of the task engine", () => {
         const b = pointsLost(def, lane);
         const parts = Object.values(b.parts);
         for (const p of parts) expect(p).toBeGreaterThanOrEqual(0);
-        expect(parts.reduce((x, y) => x + y, 0)).toBe(b.lostTenths);
-        expect(b.lostTenths).toBe(maxResultTenths(def) - lane.resultTenths);
+        // Against the hand-worked maximum, not the engine's own: the parts explain all of it.
+        expect(parts.reduce((x, y) => x + y, 0)).toBe(HAND_MAX[keyOf(def)]! - lane.resultTenths);
+        expect(b.lostTenths).toBe(HAND_MAX[keyOf(def)]! - lane.resultTenths);
       }),
       { numRuns: 400 },
+    );
+  });
+
+  it("for capped window tasks, the points lost add up to the hand maximum less the reference result", () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...cappedDefs).chain((def) => fc.tuple(fc.constant(def), insideWindow(def))),
+        ([def, flights]) => {
+          const b = pointsLost(def, foldRun(def, eventsFor(def, flights)).lanes[0]!);
+          const expected = HAND_MAX[keyOf(def)]! - referenceResult(def, flights.map((f) => f.landMs! - f.launchMs));
+          expect(b.lostTenths).toBe(expected);
+          expect(Object.values(b.parts).reduce((x, y) => x + y, 0)).toBe(expected);
+        },
+      ),
+      { numRuns: 300 },
     );
   });
 

@@ -1,9 +1,9 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { Breakdown, ClockNote, CorrectionsList, FlightsTable, TimelineStrip } from "@/components/run";
+import { Breakdown, ClockNote, CorrectionsList, FlightsTable, Rulings, TimelineStrip } from "@/components/run";
 import { DiscardButton } from "@/components/field/discard-button";
-import { describeTask } from "@/lib/field/describe-task";
+import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
 import { consentFor } from "@/lib/offline/consent";
@@ -41,6 +41,7 @@ export function RunReview() {
         <a href="/logbook" className="text-sm font-bold underline">‹ Logbook</a>
         <h1 className="text-2xl font-extrabold">{taskTitle(task)}</h1>
         <p className="text-sm text-muted">{describeTask(task)}</p>
+        <p className="text-sm text-muted" data-testid="rule-settings">{describeRuleSettings(task)}</p>
         {session ? <p className="text-sm">{formatDate(new Date(session.startedAtWallMs))} · {session.fieldName}</p> : null}
         {!scored.started ? (
           <div className="space-y-1">
@@ -69,6 +70,7 @@ export function RunReview() {
             <ClockNote derivation={scored.lanes.find((d) => d.lane === l.lane)} />
             <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
+            <Rulings lane={lane} label={l.pilotName} />
             <h3 className="text-lg font-bold">Where the points went</h3>
             <Breakdown definition={task} lane={lane} />
           </section>
