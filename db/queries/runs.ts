@@ -6,7 +6,7 @@ import { deriveRun, type DerivationEvent } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
 import { deviceClockEstimates, events, runLanes, runs } from "../schema";
-import { lockSync, type Tx } from "./sync-db";
+import { lockRuns, type Tx } from "./sync-db";
 
 type EventRow = typeof events.$inferSelect;
 
@@ -50,13 +50,16 @@ const NO_OFFICIALS: ReadonlySet<string> = new Set();
 
 /**
  * Re-derive the results of these runs from their stored events (lib/sync/derive.ts)
- * and store them in run_lanes (result, derived flights/breakdown/versions, review flag). Each
- * run gets a new server_seq so devices pull the new results. Takes the sync lock.
+ * and store them in run_lanes (result, derived flights/breakdown/versions, review flag), once per
+ * run however many of its events the caller stored. Each run gets a new server_seq and this
+ * transaction's xid so devices pull the new results. Locks the runs' rows (lockRuns) first, so
+ * a concurrent writer of the same run waits and then derives from everything committed —
+ * nothing else is locked.
  */
 export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
-  await lockSync(tx);
+  await lockRuns(tx, ids);
   // one connection: queries in a transaction run one after another
   const runRows = await tx.select({ id: runs.id, task: runs.task, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, ids));
   const laneRows = await tx
@@ -88,7 +91,7 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
       from (values ${sql.join(updates.slice(i, i + 500), sql`, `)}) as v(run_id, lane, result, derived, review, reason)
       where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane`);
   }
-  await tx.execute(sql`update runs set server_seq = nextval('sync_seq') where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)})`);
+  await tx.execute(sql`update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)})`);
 }
 
 /** Derive every run in the database (the demo seed stores events without results). */

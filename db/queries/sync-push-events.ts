@@ -100,10 +100,24 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
     const inserted = new Set(
       (await tx.insert(events).values(chunk).onConflictDoNothing().returning({ id: events.id })).map((r) => r.id),
     );
+    // a conflict here is a row another transaction committed since the checks above: the same
+    // event (a repeat) or an id some other event took first
+    const raced = chunk.filter((row) => !inserted.has(row.id!));
+    const stored = raced.length === 0 ? [] : await tx
+      .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
+      .from(events)
+      .where(inArray(events.id, raced.map((r) => r.id!)));
+    const storedById = new Map(stored.map((r) => [r.id, r]));
     for (const row of chunk) {
-      // under the sync lock nothing else inserts meanwhile, so a conflict here means a repeat
-      ctx.acks.push({ id: row.id!, status: inserted.has(row.id!) ? "applied" : "duplicate" });
-      if (inserted.has(row.id!)) touched.add(row.runId);
+      if (inserted.has(row.id!)) {
+        ctx.acks.push({ id: row.id!, status: "applied" });
+        touched.add(row.runId);
+        continue;
+      }
+      const other = storedById.get(row.id!);
+      if (other && other.deviceId === row.deviceId && other.seq === row.seq) ctx.acks.push({ id: row.id!, status: "duplicate" });
+      else if (other) reject(ctx, row.id!, "This event id is already used by another event.");
+      else reject(ctx, row.id!, `Sequence number ${row.seq} of this device is already used by another event.`);
     }
   }
   return touched;
