@@ -1,8 +1,8 @@
 #!/usr/bin/env bash
 # npm run bench — speed targets as ratios measured in one run (never in timed unit tests).
-# Works on a fresh clone: installs npm packages, starts this checkout's PostgreSQL, creates and
-# migrates the test database (as npm test does; it is not dropped: the benches make their own
-# users), and runs the Chromium bench only when Debian's Chromium is there (the path tests use).
+# Works on a fresh clone: installs npm packages, starts this checkout's PostgreSQL, creates,
+# migrates and seeds the test database (as npm test does; it is not dropped: the benches make
+# their own users), and runs the Chromium bench only when Debian's Chromium is there (the path tests use).
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 ensure_node_modules
 say "machine: $(nproc) cores, $(awk '/MemTotal/ { printf "%.1f GB RAM", $2 / 1048576 }' /proc/meminfo), $(uname -sm), node $(node -v)"
@@ -17,6 +17,8 @@ if [ "$(psql "$ADMIN_URL" -tAc "select 1 from pg_database where datname = 'windo
   psql "$ADMIN_URL" -qc "create database windowcall_test" >/dev/null
 fi
 npx tsx scripts/migrate.ts
+# seeded like scripts/integration-local.sh does, before the benches add users of their own
+psql "$DATABASE_URL" -tAc "select 1 from users limit 1" | grep -q 1 || npx tsx --conditions=react-server scripts/seed.ts
 
 CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
 for extra in bench/*.bench.ts; do
