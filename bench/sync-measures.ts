@@ -69,7 +69,7 @@ export async function crowd(userIds: string[], readerCount: number, devices: num
   const work = Array.from({ length: devices }, (_, i) => ({ user: userIds[i % userIds.length]!, pushes: deviceWorkload(userIds[i % userIds.length]!, 1, perDevice, 10) }));
   const readers = Array.from({ length: readerCount }, (_, i) => userIds[i % userIds.length]!).map(async (userId) => {
     // a phone of that account: pulls what changed since its cursor, again and again
-    let cursor = 0;
+    let cursor = "0";
     while (!done) {
       const start = performance.now();
       try {
