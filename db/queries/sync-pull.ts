@@ -4,6 +4,7 @@ import { PULL_DEFAULT_LIMIT, readPullCursor, type PullReply } from "@/lib/valida
 import { forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
+import type { Database } from "../index";
 import type { Executor } from "./sync-db";
 
 /** Items per pull page. */
@@ -27,10 +28,15 @@ export const PULL_PAGE_SIZE = PULL_DEFAULT_LIMIT;
  * active grants and of the coached pilots' accepted lanes, and a device that sees it change pulls
  * again from the start — where the first page also names the runs it must forget (sync-forget.ts).
  */
-export async function listChanges(
-  db: Executor,
-  params: { userId: string; cursor: string | number; limit?: number; total?: boolean },
-): Promise<PullReply> {
+export async function listChanges(db: Database, params: PullParams): Promise<PullReply> {
+  // one connection and one snapshot for the whole page: a pull waits for the pool once, and its
+  // queries agree with each other
+  return db.transaction((tx) => changesPage(tx, params), { isolationLevel: "repeatable read", accessMode: "read only" });
+}
+
+type PullParams = { userId: string; cursor: string | number; limit?: number; total?: boolean };
+
+async function changesPage(db: Executor, params: PullParams): Promise<PullReply> {
   const limit = params.limit ?? PULL_PAGE_SIZE;
   const { userId } = params;
   const at = readPullCursor(String(params.cursor));
