@@ -22,6 +22,8 @@ export const PULL_PAGE_SIZE = PULL_DEFAULT_LIMIT;
  * still running (`pg_snapshot_xmin`) are served. Every transaction that commits later has an
  * xid at or above that horizon, so its rows sort after any cursor handed out now: a row that
  * commits late is never skipped, and a row served is never served again unless rewritten.
+ * The horizon is the cluster's: a long write transaction anywhere holds every pull back until it
+ * ends (safe, but a stall; keep write transactions short).
  *
  * Visibility is decided now, so rows that became visible through a new coach grant or a pilot's
  * acceptance may lie below the user's cursor: every reply carries `scope`, a fingerprint of the
