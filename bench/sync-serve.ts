@@ -22,8 +22,8 @@ export const serveInProcess: Serve = async (user, url, init) => {
       return Response.json(await applyPush(db, user.id, body));
     }
     if (url.startsWith("/api/sync/pull")) {
-      const { cursor } = pullQuerySchema.parse(Object.fromEntries(new URL(url, "http://bench").searchParams));
-      return Response.json(await listChanges(db, { userId: user.id, cursor }));
+      const { cursor, limit, total } = pullQuerySchema.parse(Object.fromEntries(new URL(url, "http://bench").searchParams));
+      return Response.json(await listChanges(db, { userId: user.id, cursor, limit, total: total === "1" }));
     }
     return new Response("not found", { status: 404 });
   } catch (e) {

@@ -11,11 +11,18 @@ const timeFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "
 export function describeSync(s: SyncStatus | null): { icon: string; label: string; tone: string } {
   if (!s) return { icon: "…", label: "Starting", tone: "text-muted" };
   if (s.state === "signed-out") return { icon: "⊘", label: "Signed out", tone: "text-danger" };
+  if (s.state === "syncing" && s.pulling) return { icon: "↻", label: describePull(s.pulling), tone: "text-ink" };
   if (s.state === "syncing") return { icon: "↻", label: "Syncing", tone: "text-ink" };
   if (s.state === "offline") return { icon: "✕", label: s.unsent > 0 ? `Offline · ${s.unsent} unsent` : "Offline", tone: "text-warn" };
   if (s.unsent > 0) return { icon: "↑", label: `${s.unsent} unsent`, tone: "text-warn" };
   if (s.lastError) return { icon: "!", label: "Retrying", tone: "text-warn" };
   return { icon: "✓", label: "Synced", tone: "text-good" };
+}
+
+/** "Fetching records… 3 of ~12" (pages), or a count of records when the total is not known. */
+export function describePull(p: NonNullable<SyncStatus["pulling"]>): string {
+  if (p.pages !== null && p.pages > 1) return `Fetching records… ${p.page} of ~${p.pages}`;
+  return `Fetching records… ${p.items}`;
 }
 
 /** "synced 14:05 · clock ±12 ms" — the quieter second line. */

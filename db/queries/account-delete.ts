@@ -5,7 +5,7 @@ import {
   accounts, coachGrants, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
   syncRejections, users,
 } from "../schema";
-import { lockSync } from "./sync-db";
+import { syncStamp } from "./sync-db";
 
 /** The neutral name that replaces a deleted account's name wherever others' records keep it. */
 export const DELETED_PILOT_NAME = "Deleted pilot";
@@ -22,14 +22,13 @@ export const DELETED_PILOT_NAME = "Deleted pilot";
  * - the user row stays as an anonymous tombstone (runs.created_by, events.recorded_by and others
  *   reference it without cascade): e-mail freed, name "Deleted pilot", no password, disabled, new
  *   session generation, so every session of the account is signed out at once.
- * Runs whose lanes changed get a new server_seq, so other phones pull the neutral name.
+ * Runs whose lanes changed are re-stamped (syncStamp), so other phones pull the neutral name.
  * Returns false when the account did not exist (or was already deleted).
  */
 export async function deleteAccount(db: Database, userId: string): Promise<boolean> {
   return db.transaction(async (tx) => {
     const [me] = await tx.select({ id: users.id }).from(users).where(and(eq(users.id, userId), sql`${users.deletedAt} is null`)).for("update");
     if (!me) return false;
-    await lockSync(tx);
     const ownSessions = tx.select({ id: fieldSessions.id }).from(fieldSessions).where(eq(fieldSessions.ownerId, userId));
     const othersLane = tx
       .select({ one: sql`1` })
@@ -46,7 +45,7 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
       .where(eq(runLanes.pilotUserId, userId))
       .returning({ runId: runLanes.runId });
     const runIds = [...new Set(touched.map((t) => t.runId))];
-    if (runIds.length) await tx.update(runs).set({ serverSeq: sql`nextval('sync_seq')` }).where(inArray(runs.id, runIds));
+    if (runIds.length) await tx.update(runs).set(syncStamp()).where(inArray(runs.id, runIds));
     await tx.update(contestEntries).set({ pilotName: DELETED_PILOT_NAME }).where(eq(contestEntries.pilotUserId, userId));
     await tx.update(practicePlans).set({ coachId: null }).where(eq(practicePlans.coachId, userId));
     await tx.delete(practicePlans).where(eq(practicePlans.pilotId, userId));

@@ -4,7 +4,7 @@ import { consentStatus, type ConsentDecision } from "@/lib/sync/consent";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { Database } from "../index";
 import { laneConsents, runLanes, runs } from "../schema";
-import { lockSync } from "./sync-db";
+import { lockRuns, syncStamp } from "./sync-db";
 
 export type ConsentOutcome = { kind: "decided"; consent: LaneConsent } | { kind: "not-found" } | { kind: "own" };
 
@@ -12,7 +12,7 @@ export type ConsentOutcome = { kind: "decided"; consent: LaneConsent } | { kind:
  * The pilot's decision on a lane someone else recorded for them (lib/sync/consent.ts). Only that
  * lane's pilot finds it (anyone else: not-found, so nobody learns which runs exist); a lane the
  * pilot recorded themselves needs no decision ("own"). Deciding again replaces the decision. The
- * run gets a new server_seq, under the sync lock, so the pilot's phones, the recorder and coaches
+ * run's row is locked and re-stamped (syncStamp), so the pilot's phones, the recorder and coaches
  * pull the new standing (sync-pull.ts).
  */
 export async function decideLaneConsent(
@@ -20,7 +20,7 @@ export async function decideLaneConsent(
   params: { userId: string; runId: string; lane: number; decision: ConsentDecision; reason: string | null },
 ): Promise<ConsentOutcome> {
   return db.transaction(async (tx) => {
-    await lockSync(tx);
+    await lockRuns(tx, [params.runId]);
     const [row] = await tx
       .select({ createdBy: runs.createdBy })
       .from(runLanes)
@@ -36,7 +36,7 @@ export async function decideLaneConsent(
         target: [laneConsents.runId, laneConsents.lane],
         set: { status: params.decision, reason, pilotUserId: params.userId, decidedAt: sql`now()` },
       });
-    await tx.update(runs).set({ serverSeq: sql`nextval('sync_seq')` }).where(eq(runs.id, params.runId));
+    await tx.update(runs).set(syncStamp()).where(eq(runs.id, params.runId));
     const status = consentStatus(row.createdBy, params.userId, params.decision) ?? "pending";
     return { kind: "decided", consent: { lane: params.lane, status, reason } };
   });

@@ -5,8 +5,8 @@ import type { EventBody } from "@/lib/events/schema";
 import { deriveRun, type DerivationEvent } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
-import { deviceClockEstimates, events, runLanes, runs } from "../schema";
-import { lockSync, type Tx } from "./sync-db";
+import { deviceClockEstimates, events, runs } from "../schema";
+import { lockRuns, type Tx } from "./sync-db";
 
 type EventRow = typeof events.$inferSelect;
 
@@ -50,30 +50,34 @@ const NO_OFFICIALS: ReadonlySet<string> = new Set();
 
 /**
  * Re-derive the results of these runs from their stored events (lib/sync/derive.ts)
- * and store them in run_lanes (result, derived flights/breakdown/versions, review flag). Each
- * run gets a new server_seq so devices pull the new results. Takes the sync lock.
+ * and store them in run_lanes (result, derived flights/breakdown/versions, review flag), once per
+ * run however many of its events the caller stored. Each run gets a new server_seq and this
+ * transaction's xid so devices pull the new results. Locks the runs' rows (lockRuns) first, so
+ * a concurrent writer of the same run waits and then derives from everything committed —
+ * nothing else is locked.
  */
 export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
-  await lockSync(tx);
-  // one connection: queries in a transaction run one after another
-  const runRows = await tx.select({ id: runs.id, task: runs.task, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, ids));
-  const laneRows = await tx
-    .select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId })
-    .from(runLanes)
-    .where(inArray(runLanes.runId, ids));
+  await lockRuns(tx, ids);
+  // one connection: queries in a transaction run one after another, so few of them
+  const idList = sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `);
+  const runRows = await tx.execute<{ id: string; task: unknown; created_by: string; lanes: { lane: number; pilotUserId: string | null }[] | null }>(sql`
+    select r.id, r.task, r.created_by,
+      (select json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id) order by l.lane) from run_lanes l where l.run_id = r.id) as lanes
+    from runs r where r.id in (${idList})`);
   const eventRows = await tx.select().from(events).where(inArray(events.runId, ids));
   const estimates = await listDeviceEstimates(tx, [...new Set(eventRows.map((e) => e.deviceId))]);
+  const byRun = new Map<string, EventRow[]>();
+  for (const e of eventRows) byRun.set(e.runId, [...(byRun.get(e.runId) ?? []), e]);
   const updates = [];
-  for (const run of runRows) {
-    const lanes = laneRows.filter((l) => l.runId === run.id).sort((a, b) => a.lane - b.lane);
+  for (const run of runRows.rows) {
     const derived = deriveRun({
       task: parseTaskDefinition(run.task),
-      createdBy: run.createdBy,
-      lanes,
+      createdBy: run.created_by,
+      lanes: run.lanes ?? [],
       officials: NO_OFFICIALS,
-      events: eventRows.filter((e) => e.runId === run.id).map(toDerivationEvent),
+      events: (byRun.get(run.id) ?? []).map(toDerivationEvent),
       estimatesByDevice: estimates,
     });
     for (const d of derived) {
@@ -82,13 +86,15 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
       );
     }
   }
+  // the lanes' results and the runs' new stamp in one statement
+  const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
+  if (updates.length === 0) await tx.execute(sql`with ${restamp} select count(*) from restamp`);
   for (let i = 0; i < updates.length; i += 500) {
-    await tx.execute(sql`
+    await tx.execute(sql`${i === 0 ? sql`with ${restamp}` : sql``}
       update run_lanes set result_tenths = v.result, derived = v.derived, needs_review = v.review, review_reason = v.reason
       from (values ${sql.join(updates.slice(i, i + 500), sql`, `)}) as v(run_id, lane, result, derived, review, reason)
       where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane`);
   }
-  await tx.execute(sql`update runs set server_seq = nextval('sync_seq') where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)})`);
 }
 
 /** Derive every run in the database (the demo seed stores events without results). */

@@ -7,17 +7,33 @@ export type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 export type Executor = Database | Tx;
 
 /**
- * Key of the transaction-scoped advisory lock every write that takes `sync_seq` values holds
- * (pushes, derivations, the seed). Transactions holding it commit one after another, so
- * server_seq values become visible in increasing order and a pull cursor never skips a row
- * that commits later with a smaller number (SYNC.md §3). Any other code that writes rows with
- * nextval('sync_seq') must take it too.
+ * What a write that devices must pull again sets on its row (field_sessions, runs, events): a
+ * new server_seq and the writing transaction's id. Pulls order by (xid, server_seq) and serve
+ * only transactions older than every one still running (db/queries/sync-pull.ts), so writers
+ * need no common lock: a row that commits late has an xid above every cursor handed out while
+ * it ran (SYNC.md §3).
  */
-export const SYNC_LOCK_KEY = 7_340_061;
+export const syncStamp = () => ({ serverSeq: sql<number>`nextval('sync_seq')`, xid: sql<string>`pg_current_xact_id()` });
 
-/** Take the sync lock until the end of the current transaction (re-entrant). */
-export async function lockSync(tx: Tx): Promise<void> {
-  await tx.execute(sql`select pg_advisory_xact_lock(${SYNC_LOCK_KEY})`);
+/**
+ * Lock these runs' rows until the end of the transaction (FOR NO KEY UPDATE, in id order so two
+ * writers never wait on each other in a cycle): one writer at a time counts, derives and re-stamps
+ * a run, and nothing else is locked. It is the row-lock level of the update that follows; a plain
+ * FOR UPDATE would also wait on, and deadlock with, the key-share locks other pushes' event
+ * inserts take on the run through the foreign key.
+ */
+export async function lockRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
+  const ids = [...new Set(runIds)].sort();
+  if (ids.length === 0) return;
+  await tx.execute(sql`select id from runs where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)}) order by id for no key update`);
+}
+
+/**
+ * Serialise one account's run creation (the runs-per-day cap counts, then inserts): a lock on a
+ * key made from the account id, until the end of the transaction. Other accounts never wait.
+ */
+export async function lockAccountRuns(tx: Tx, userId: string): Promise<void> {
+  await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`runs-per-day:${userId}`}, 0))`);
 }
 
 /** The last server sequence number handed out (0 before the first). */

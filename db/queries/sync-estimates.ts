@@ -12,7 +12,7 @@ import type { Tx } from "./sync-db";
  * between the estimate before and the one after (SYNC.md §4). At most MAX_ESTIMATES_PER_DEVICE
  * are kept (pruneEstimates: coverage in time first, then the smallest δ); a pruned estimate the
  * device sends again is pruned again, not stored. Returns the device's estimates and the runs
- * whose events moved (to re-derive). Call under the sync lock.
+ * whose events moved (to re-derive). Call after claimDevice: its row lock makes one device's pushes take turns.
  */
 export async function storeClockEstimates(
   tx: Tx,

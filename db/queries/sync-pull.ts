@@ -1,44 +1,74 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import type { PullReply } from "@/lib/validations/sync";
+import { PULL_DEFAULT_LIMIT, readPullCursor, type PullReply } from "@/lib/validations/sync";
+import { forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
+import type { Database } from "../index";
 import type { Executor } from "./sync-db";
 
 /** Items per pull page. */
-export const PULL_PAGE_SIZE = 500;
+export const PULL_PAGE_SIZE = PULL_DEFAULT_LIMIT;
 
 /**
- * Everything the user may see that changed after `cursor`, in server_seq order, one page at a
- * time (SYNC.md §3): sessions they own, the runs and events `visibility` allows. A run in someone
- * else's session carries that session with it; every run carries its derived results, its
- * recorder and its lanes' consent; a coach's copy of a shared run carries only the lanes, results
- * and events of pilots who granted access (sync-pull-items.ts).
+ * Everything the user may see that changed after `cursor`, one page at a time (SYNC.md §3):
+ * sessions they own, the runs and events `visibility` allows. A run in someone else's session
+ * carries that session with it; every run carries its derived results, its recorder and its
+ * lanes' consent; a coach's copy of a shared run carries only the lanes, results and events of
+ * pilots who granted access (sync-pull-items.ts).
+ *
+ * Gap-free without serialising writers: rows go in (xid, server_seq) order, xid being the id of
+ * the transaction that wrote them, and only rows of transactions older than every transaction
+ * still running (`pg_snapshot_xmin`) are served. Every transaction that commits later has an
+ * xid at or above that horizon, so its rows sort after any cursor handed out now: a row that
+ * commits late is never skipped, and a row served is never served again unless rewritten.
+ * The horizon is the cluster's: a long write transaction anywhere holds every pull back until it
+ * ends (safe, but a stall; keep write transactions short).
  *
  * Visibility is decided now, so rows that became visible through a new coach grant or a pilot's
  * acceptance may lie below the user's cursor: every reply carries `scope`, a fingerprint of the
  * active grants and of the coached pilots' accepted lanes, and a device that sees it change pulls
- * again from 0.
+ * again from the start — where the first page also names the runs it must forget (sync-forget.ts).
  */
-export async function listChanges(db: Executor, params: { userId: string; cursor: number; limit?: number }): Promise<PullReply> {
+export async function listChanges(db: Database, params: PullParams): Promise<PullReply> {
+  // one connection and one snapshot for the whole page: a pull waits for the pool once, and its
+  // queries agree with each other
+  return db.transaction((tx) => changesPage(tx, params), { isolationLevel: "repeatable read", accessMode: "read only" });
+}
+
+type PullParams = { userId: string; cursor: string | number; limit?: number; total?: boolean };
+
+async function changesPage(db: Executor, params: PullParams): Promise<PullReply> {
   const limit = params.limit ?? PULL_PAGE_SIZE;
-  const { userId, cursor } = params;
-  const res = await db.execute<ChangeRow>(sql`${visibility(userId)}
-    select * from (
-      select 'session' as type, s.server_seq as seq, s.id::text as id from field_sessions s
-        where s.server_seq > ${cursor} and s.owner_id = ${userId}
+  const { userId } = params;
+  const at = readPullCursor(String(params.cursor));
+  const after = (t: string) => sql`(${sql.raw(t)}.xid, ${sql.raw(t)}.server_seq) > (${at.xid}::xid8, ${at.seq}::bigint)
+    and ${sql.raw(t)}.xid < (select xmin from horizon)`;
+  const changes = sql`${visibility(userId)}, horizon as (select pg_snapshot_xmin(pg_current_snapshot()) as xmin), changes as (
+      select 'session' as type, s.xid, s.server_seq as seq, s.id from field_sessions s
+        where ${after("s")} and s.owner_id = ${userId}
       union all
-      select 'run', r.server_seq, r.id::text from runs r
-        where r.server_seq > ${cursor} and r.id in (select id from visible_runs)
+      select 'run', r.xid, r.server_seq, r.id from runs r
+        where ${after("r")} and r.id in (select id from visible_runs)
       union all
-      select 'event', e.server_seq, e.id::text from events e
-        where e.server_seq > ${cursor} and e.run_id in (select id from visible_runs)
-    ) changes order by seq limit ${limit + 1}`);
+      select 'event', e.xid, e.server_seq, e.id from events e
+        where ${after("e")} and e.run_id in (select id from visible_runs)
+    )`;
+  const res = await db.execute<ChangeRow & { xid: string }>(
+    sql`${changes} select type, xid::text as xid, seq, id::text as id from changes order by changes.xid, seq limit ${limit + 1}`,
+  );
   const rows = res.rows.slice(0, limit);
   const hasMore = res.rows.length > limit;
+  const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
   const [items, scope] = await Promise.all([loadItems(db, userId, rows), visibilityScope(db, userId)]);
   const last = rows.at(-1);
-  return { items, nextCursor: last ? Number(last.seq) : cursor, hasMore, scope };
+  const reply: PullReply = { items, nextCursor: last ? `${last.xid}.${last.seq}` : `${at.xid}.${at.seq}`, hasMore, scope };
+  if (total !== undefined) reply.total = total;
+  if (at.xid === "0") {
+    const forget = await forgottenRuns(db, userId);
+    if (forget.length > 0) reply.forget = forget;
+  }
+  return reply;
 }
 
 /**

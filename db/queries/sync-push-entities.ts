@@ -7,7 +7,7 @@ import type { Ack } from "@/lib/validations/sync";
 import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { MAX_RUNS_PER_DAY } from "@/lib/validations/sync-push";
 import { fieldDays, fieldSessions, memberships, runLanes, runs, users } from "../schema";
-import { isDateMs, isUuid, type Tx } from "./sync-db";
+import { isDateMs, isUuid, lockAccountRuns, type Tx } from "./sync-db";
 
 /** What every part of one push shares: the transaction, who pushes, and the acks so far. */
 export type PushContext = { tx: Tx; userId: string; deviceId: string; clubIds: ReadonlySet<string>; acks: Ack[] };
@@ -57,6 +57,7 @@ export async function applySessions(ctx: PushContext, sessions: readonly Session
 export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): Promise<string[]> {
   if (items.length === 0) return [];
   const { tx } = ctx;
+  await lockAccountRuns(tx, ctx.userId); // the runs-per-day count below holds until this push commits
   const sessionIds = [...new Set(items.map((r) => r.sessionId))];
   const existing = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, items.map((r) => r.id)));
   const sessionRows = await tx

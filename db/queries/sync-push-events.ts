@@ -5,7 +5,7 @@ import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
 import { correctStamp } from "@/lib/sync/correct-events";
 import { MAX_EVENTS_PER_RUN } from "@/lib/validations/sync-push";
-import { events, runLanes, runs } from "../schema";
+import { events } from "../schema";
 import { reject, type PushContext } from "./sync-push-entities";
 
 /**
@@ -23,29 +23,28 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const { tx } = ctx;
   const runIds = [...new Set(items.map((e) => e.runId))];
   const targetIds = items.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
-  // one connection: queries in a transaction run one after another
-  const runRows = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, runIds));
-  const laneRows = await tx
-    .select({ runId: runLanes.runId, lane: runLanes.lane, pilotUserId: runLanes.pilotUserId })
-    .from(runLanes)
-    .where(inArray(runLanes.runId, runIds));
-  const clashes = await tx
-    .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
+  // one connection: queries in a transaction run one after another, so few of them
+  const facts = await tx.execute<{ id: string; created_by: string; lanes: { lane: number; pilotUserId: string | null }[] | null; n: number }>(sql`
+    select r.id, r.created_by,
+      (select json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id)) from run_lanes l where l.run_id = r.id) as lanes,
+      (select count(*)::int from events e where e.run_id = r.id) as n
+    from runs r where r.id in (${sql.join(runIds.map((id) => sql`${id}::uuid`), sql`, `)})`);
+  const stored = await tx
+    .select({ id: events.id, deviceId: events.deviceId, seq: events.seq, runId: events.runId, recordedBy: events.recordedBy })
     .from(events)
-    .where(or(inArray(events.id, items.map((e) => e.id)), and(eq(events.deviceId, ctx.deviceId), inArray(events.seq, items.map((e) => e.seq)))));
-  const targetRows =
-    targetIds.length === 0
-      ? []
-      : await tx.select({ id: events.id, runId: events.runId, recordedBy: events.recordedBy }).from(events).where(inArray(events.id, targetIds));
-  const runFacts = new Map<string, RunFacts>(
-    runRows.map((r) => [r.id, { id: r.id, createdBy: r.createdBy, lanes: laneRows.filter((l) => l.runId === r.id) }]),
-  );
-  const counts = await tx
-    .select({ runId: events.runId, n: sql<number>`count(*)::int` })
-    .from(events)
-    .where(inArray(events.runId, runIds))
-    .groupBy(events.runId);
-  const perRun = new Map(counts.map((c) => [c.runId, Number(c.n)]));
+    .where(
+      or(
+        inArray(events.id, [...new Set([...items.map((e) => e.id), ...targetIds])]),
+        and(eq(events.deviceId, ctx.deviceId), inArray(events.seq, items.map((e) => e.seq))),
+      ),
+    );
+  const pushedIds = new Set(items.map((e) => e.id));
+  const pushedSeqs = new Set(items.map((e) => e.seq));
+  const targetSet = new Set(targetIds);
+  const clashes = stored.filter((c) => pushedIds.has(c.id) || (c.deviceId === ctx.deviceId && pushedSeqs.has(c.seq)));
+  const targetRows = stored.filter((c) => targetSet.has(c.id));
+  const runFacts = new Map<string, RunFacts>(facts.rows.map((r) => [r.id, { id: r.id, createdBy: r.created_by, lanes: r.lanes ?? [] }]));
+  const perRun = new Map(facts.rows.map((r) => [r.id, Number(r.n)]));
   const byId = new Map(clashes.map((c) => [c.id, c]));
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
   const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy }]));
@@ -91,7 +90,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
       correctedMs: corrected.correctedMs, uncertaintyMs: corrected.uncertaintyMs,
     });
     // later items of this push may amend it or clash with it
-    byId.set(e.id, { id: e.id, deviceId: e.deviceId, seq: e.seq });
+    byId.set(e.id, { id: e.id, deviceId: e.deviceId, seq: e.seq, runId: e.runId, recordedBy: ctx.userId });
     bySeq.set(e.seq, e.id);
     targets.set(e.id, { runId: e.runId, recordedBy: ctx.userId });
   }
@@ -100,10 +99,24 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
     const inserted = new Set(
       (await tx.insert(events).values(chunk).onConflictDoNothing().returning({ id: events.id })).map((r) => r.id),
     );
+    // a conflict here is a row another transaction committed since the checks above: the same
+    // event (a repeat) or an id some other event took first
+    const raced = chunk.filter((row) => !inserted.has(row.id!));
+    const stored = raced.length === 0 ? [] : await tx
+      .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
+      .from(events)
+      .where(inArray(events.id, raced.map((r) => r.id!)));
+    const storedById = new Map(stored.map((r) => [r.id, r]));
     for (const row of chunk) {
-      // under the sync lock nothing else inserts meanwhile, so a conflict here means a repeat
-      ctx.acks.push({ id: row.id!, status: inserted.has(row.id!) ? "applied" : "duplicate" });
-      if (inserted.has(row.id!)) touched.add(row.runId);
+      if (inserted.has(row.id!)) {
+        ctx.acks.push({ id: row.id!, status: "applied" });
+        touched.add(row.runId);
+        continue;
+      }
+      const other = storedById.get(row.id!);
+      if (other && other.deviceId === row.deviceId && other.seq === row.seq) ctx.acks.push({ id: row.id!, status: "duplicate" });
+      else if (other) reject(ctx, row.id!, "This event id is already used by another event.");
+      else reject(ctx, row.id!, `Sequence number ${row.seq} of this device is already used by another event.`);
     }
   }
   return touched;

@@ -6,7 +6,7 @@ import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
 import { deriveAndStoreRuns } from "./runs";
-import { currentServerSeq, lockSync, type Tx } from "./sync-db";
+import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
 import { applyRuns, applySessions, listUserClubIds, type PushContext } from "./sync-push-entities";
 import { applyEvents } from "./sync-push-events";
@@ -25,17 +25,18 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
 }
 
 /**
- * Apply one push (SYNC.md §3) in ONE transaction: claim the device, take the sync lock (so
- * server_seq values commit in order), store clock estimates and re-correct what they move,
- * then sessions, runs and events — each checked, each stored once — then re-derive every
- * affected run's results. Refusals — `refused`, the items that failed their schema, and those
+ * Apply one push (SYNC.md §3) in ONE transaction: claim the device (its row lock makes one
+ * device's pushes take turns), store clock estimates and re-correct what they move, then
+ * sessions, runs and events — each checked, each stored once — then derive every affected run
+ * once. No lock is shared by all pushes: the rows carry this transaction's id (pulls serve only
+ * finished transactions, db/queries/sync-pull.ts), and only the runs this push writes to are
+ * locked, all at once and in id order (lockRuns), before their events are counted and stored. Refusals — `refused`, the items that failed their schema, and those
  * refused here — are acknowledged with their reason and recorded in sync_rejections once per
  * device and item. Returns one ack per item and the last server sequence number.
  */
 export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = []): Promise<PushReply> {
   return db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
-    await lockSync(tx);
     const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
     const clubIds = needsClubs ? await listUserClubIds(tx, userId) : new Set<string>();
     const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds, acks: [...refused] };
@@ -45,6 +46,7 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
 
     await applySessions(ctx, req.sessions);
     const newRuns = await applyRuns(ctx, req.runs);
+    await lockRuns(tx, [...req.events.map((e) => e.runId).filter(isUuid), ...clock.movedRuns]);
     const touched = await applyEvents(ctx, req.events, clock.estimates);
     await deriveAndStoreRuns(tx, [...newRuns, ...touched, ...clock.movedRuns]);
 

@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import { bigint, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { runs } from "./sessions";
 import { users } from "./users";
+import { writtenByXact } from "./xid";
 
 /**
  * The append-only log of the flight line (SYNC.md §1). Each event is stored once: unique id,
@@ -27,11 +28,13 @@ export const events = pgTable(
     correctedMs: doublePrecision("corrected_ms").notNull(),
     uncertaintyMs: doublePrecision("uncertainty_ms"),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(sql`nextval('sync_seq')`),
+    xid: writtenByXact(),
     receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     unique("events_device_seq_uq").on(t.deviceId, t.seq),
     index("events_run_id_idx").on(t.runId),
     index("events_server_seq_idx").on(t.serverSeq),
+    index("events_xid_seq_idx").on(t.xid, t.serverSeq),
   ],
 );

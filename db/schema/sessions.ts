@@ -6,6 +6,7 @@ import { clubs } from "./clubs";
 import { fieldDays } from "./contests";
 import { laneConsentStatusEnum } from "./enums";
 import { guestPilots, users } from "./users";
+import { writtenByXact } from "./xid";
 
 const nextSeq = sql`nextval('sync_seq')`;
 
@@ -24,9 +25,14 @@ export const fieldSessions = pgTable(
     conditions: jsonb("conditions").notNull().default({}),
     startedAt: timestamp("started_at", { withTimezone: true }).notNull(),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
+    xid: writtenByXact(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("field_sessions_owner_id_idx").on(t.ownerId), index("field_sessions_server_seq_idx").on(t.serverSeq)],
+  (t) => [
+    index("field_sessions_owner_id_idx").on(t.ownerId),
+    index("field_sessions_server_seq_idx").on(t.serverSeq),
+    index("field_sessions_xid_seq_idx").on(t.xid, t.serverSeq),
+  ],
 );
 
 /** One task window timed on the line, for 1–4 pilots (lanes). The full task definition is stored with it. */
@@ -42,8 +48,9 @@ export const runs = pgTable(
     edition: text("edition").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
+    xid: writtenByXact(),
   },
-  (t) => [index("runs_session_id_idx").on(t.sessionId), index("runs_server_seq_idx").on(t.serverSeq)],
+  (t) => [index("runs_session_id_idx").on(t.sessionId), index("runs_server_seq_idx").on(t.serverSeq), index("runs_xid_seq_idx").on(t.xid, t.serverSeq)],
 );
 
 /** A pilot in a run, and the server's official result for them, derived from the events. */

@@ -3,9 +3,10 @@ import { ackStatusEnum } from "./enums";
 import { users } from "./users";
 
 /**
- * One server-wide, strictly increasing change number. Every row a device may pull carries
- * the value it got at its last change; pushes take an advisory lock so numbers commit in order
- * and a pull cursor never skips a row (SYNC.md §3).
+ * One server-wide change number. Every row a device may pull carries the value it got at its
+ * last change, beside the id of the transaction that made it (`xid`): pulls go in (xid,
+ * server_seq) order and serve only transactions older than every one still running, so writers
+ * run side by side and a cursor never skips a row (SYNC.md §3; db/queries/sync-pull.ts).
  */
 export const syncSeq = pgSequence("sync_seq", { startWith: 1 });
 

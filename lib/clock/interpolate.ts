@@ -46,6 +46,9 @@ export function interpolateOffset(before: ClockEstimate, after: ClockEstimate, w
  * The offset to use at `wallMs` given every estimate known for a device (any order):
  * interpolate between the nearest one at or before and the nearest one at or after;
  * hold the nearest when there is only one side. Null when there is no estimate at all.
+ * So an event (and with it the run it belongs to) is corrected by the estimates measured
+ * closest in time to it — never by a lower-δ one measured far away, whose bound (δ/2 + 15 ppm ×
+ * age, RFC 5905 §8 and its 15 ppm PHI) has grown past what a near one says.
  */
 export function offsetAt(estimates: readonly ClockEstimate[], wallMs: number): OffsetAt | null {
   let before: ClockEstimate | undefined;

@@ -49,8 +49,8 @@ export type MetaValues = {
   nextSeq: number;
   /** The queueSeq the next outbox entry gets. */
   nextQueueSeq: number;
-  /** The server sequence number pulled up to. */
-  pullCursor: number;
+  /** The pull position reached ("<xid>.<seq>"; a number from before transaction ids, sent as is). */
+  pullCursor: string | number;
   /** The server's visibility fingerprint at that cursor (see pullReplySchema.scope). */
   pullScope: string;
   /** Id of the last clock measurement burst. */

@@ -1,53 +1,68 @@
 import type { RunEvent } from "@/lib/events/schema";
-import { pullReplySchema, type PullItem } from "@/lib/validations/sync";
+import { cursorAfter, pullReplySchema, type PullItem } from "@/lib/validations/sync";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "@/lib/events/entities";
+import { forgetRuns } from "./forget";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
 
-export type PullDeps = { db: WindowcallDb; fetch: FetchLike; baseUrl?: string; account?: string | null };
+/** How far a pull has come: pages stored, about how many in all (null: unknown), items stored. */
+export type PullProgress = { page: number; pages: number | null; items: number };
+
+export type PullDeps = {
+  db: WindowcallDb;
+  fetch: FetchLike;
+  baseUrl?: string;
+  account?: string | null;
+  /** Items per page to ask for. */
+  limit?: number;
+  /** Called after each stored page. */
+  onProgress?: (p: PullProgress) => void;
+};
 
 /** How a pull ended: ok with the number of items stored, or the failure to report. */
 export type PullOutcome = { kind: "ok"; items: number } | Exclude<HttpResult<unknown>, { kind: "ok" }>;
+
+/** Items per page the device asks for. */
+export const PULL_PAGE_LIMIT = 500;
 
 /** Safety stop for a server that keeps saying "more" (pages of a normal catch-up are far fewer). */
 const MAX_PAGES = 1000;
 
 /**
- * Fetch everything changed since the stored cursor, page by page, until `hasMore` is false.
- * Each page's records and the advanced cursor are stored in one transaction (bulkPut, so a
- * page seen twice changes nothing); a failure leaves the cursor at the last stored page.
+ * Fetch everything changed since the stored cursor, page by page, until `hasMore` is false. The
+ * first request asks how many items are ready (`total=1`), so progress can say "page 3 of ~12".
+ * Each page's records, what it says to forget and the advanced cursor are stored in one
+ * transaction (bulkPut, so a page seen twice changes nothing); a failure leaves the cursor at
+ * the last stored page.
  */
 export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
   const { db } = deps;
-  let cursor = (await getMeta(db, "pullCursor")) ?? 0;
+  const limit = deps.limit ?? PULL_PAGE_LIMIT;
+  let cursor = String((await getMeta(db, "pullCursor")) ?? "0");
   const knownScope = (await getMeta(db, "pullScope")) ?? "";
   let stored = 0;
+  let pages: number | null = null;
+  let restarted = false;
   for (let page = 0; page < MAX_PAGES; page++) {
     const account = deps.account ? `&account=${encodeURIComponent(deps.account)}` : "";
-    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}${account}`;
+    const total = pages === null ? "&total=1" : "";
+    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}`;
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pullReplySchema);
     if (r.kind !== "ok") return r;
     const { items, nextCursor, hasMore, scope } = r.value;
-    if (page === 0 && cursor > 0 && scope !== undefined && scope !== knownScope) {
-      cursor = 0; // what the user may see changed: older rows may be newly visible, so start over
+    if (!restarted && page === 0 && cursor !== "0" && scope !== undefined && scope !== knownScope) {
+      cursor = "0"; // what the user may see changed: older rows may be newly visible, so start over
+      restarted = true;
+      page = -1;
       continue;
     }
-    if (nextCursor < cursor || (hasMore && nextCursor === cursor)) {
+    if (cursorAfter(cursor, nextCursor) || (hasMore && !cursorAfter(nextCursor, cursor))) {
       return { kind: "bad-reply", message: `pull cursor did not advance (${cursor} → ${nextCursor})` };
     }
-    const events: RunEvent[] = [];
-    const sessions: SessionEntity[] = [];
-    const runs: StoredRun[] = [];
-    for (const item of items) {
-      if (item.type === "event") events.push(item.data);
-      else if (item.type === "session") sessions.push(item.data);
-      else {
-        // a run in someone else's session comes with that session; results are the server's
-        if (item.session) sessions.push(item.session);
-        runs.push(storedRunOf(item));
-      }
-    }
-    await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta], async () => {
+    if (r.value.total !== undefined) pages = Math.max(1, Math.ceil(r.value.total / limit));
+    const { events, sessions, runs } = split(items);
+    await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta, db.outbox], async () => {
+      if (r.value.forget) await forgetRuns(db, r.value.forget, deps.account ?? null);
       await db.sessions.bulkPut(sessions);
       await db.runs.bulkPut(runs);
       await db.events.bulkPut(events);
@@ -56,9 +71,26 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     });
     stored += items.length;
     cursor = nextCursor;
+    deps.onProgress?.({ page: page + 1, pages: pages === null ? null : Math.max(pages, page + 1), items: stored });
     if (!hasMore) return { kind: "ok", items: stored };
   }
   return { kind: "bad-reply", message: `pull still had more after ${MAX_PAGES} pages` };
+}
+
+function split(items: readonly PullItem[]) {
+  const events: RunEvent[] = [];
+  const sessions: SessionEntity[] = [];
+  const runs: StoredRun[] = [];
+  for (const item of items) {
+    if (item.type === "event") events.push(item.data);
+    else if (item.type === "session") sessions.push(item.data);
+    else {
+      // a run in someone else's session comes with that session; results are the server's
+      if (item.session) sessions.push(item.session);
+      runs.push(storedRunOf(item));
+    }
+  }
+  return { events, sessions, runs };
 }
 
 /** A pulled run as the device keeps it: the entity with the server's results, recorder and consents. */

@@ -34,7 +34,7 @@ export class SyncClient {
   private readonly account: () => string | null;
 
   private current: Omit<SyncStatus, "offset"> = {
-    unsent: 0, rejected: [], lastSyncAt: null, lastError: null, state: "idle", nextRetryAt: null,
+    unsent: 0, rejected: [], lastSyncAt: null, lastError: null, state: "idle", nextRetryAt: null, pulling: null,
   };
   private estimate: ClockEstimate | null = null;
   private listeners = new Set<(s: SyncStatus) => void>();
@@ -128,10 +128,14 @@ export class SyncClient {
     this.update({ state: "syncing" });
     let outcome: PullResult;
     try {
-      outcome = await pullAll({ db: this.db, fetch: this.fetch, baseUrl: this.baseUrl, account: this.account() });
+      outcome = await pullAll({
+        db: this.db, fetch: this.fetch, baseUrl: this.baseUrl, account: this.account(),
+        onProgress: (pulling) => this.update({ pulling }),
+      });
     } catch (e) {
       outcome = { kind: "local", message: e instanceof Error ? e.message : String(e) };
     }
+    this.current.pulling = null;
     await this.settle(outcome);
     return outcome;
   }

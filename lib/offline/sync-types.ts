@@ -1,6 +1,6 @@
 import type { OutboxKind, WindowcallDb } from "./db";
 import type { FetchLike } from "./http";
-import type { PullOutcome } from "./pull";
+import type { PullOutcome, PullProgress } from "./pull";
 import type { PushOutcome } from "./push";
 
 /** Types of the sync client's options and status (sync-client.ts). */
@@ -20,6 +20,8 @@ export type SyncStatus = {
   state: SyncState;
   /** When the next automatic retry is due after a failure. */
   nextRetryAt: number | null;
+  /** While a pull runs: pages fetched so far and about how many in all (null before the first page). */
+  pulling: PullProgress | null;
 };
 
 /** A failure inside the device (IndexedDB closed, quota...). */

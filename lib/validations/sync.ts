@@ -54,9 +54,45 @@ export const pushReplySchema = z.object({
 });
 export type PushReply = z.infer<typeof pushReplySchema>;
 
-// GET /api/sync/pull?cursor=N — query
+/** Most items one pull page may carry; the default page size. */
+export const PULL_MAX_LIMIT = 1000;
+export const PULL_DEFAULT_LIMIT = 500;
+
+const XID8_MAX = (1n << 64n) - 1n;
+const BIGINT_MAX = (1n << 63n) - 1n;
+
+/**
+ * A pull position: "<xid>.<seq>" — the transaction id and server sequence number of the last row
+ * served (db/queries/sync-pull.ts). A bare number is a position from before transaction ids and
+ * counts as "<0>.<seq>" (so such a device gets everything again, once). "0" is the start.
+ */
+const CURSOR = /^\d{1,20}(\.\d{1,19})?$/;
+export const pullCursorSchema = z.string().refine((c) => {
+  if (!CURSOR.test(c)) return false;
+  const [a, b] = c.split(".");
+  return b === undefined ? BigInt(a!) <= BIGINT_MAX : BigInt(a!) <= XID8_MAX && BigInt(b) <= BIGINT_MAX;
+}, "a cursor is <xid>.<seq> (or a number) within range");
+export type PullCursor = { xid: string; seq: string };
+
+/** The position a cursor names (validated by pullCursorSchema). */
+export function readPullCursor(c: string): PullCursor {
+  const [a, b] = c.split(".");
+  return b === undefined ? { xid: "0", seq: String(BigInt(a!)) } : { xid: String(BigInt(a!)), seq: String(BigInt(b)) };
+}
+
+/** Whether cursor `a` lies after cursor `b` (both valid pull cursors). */
+export function cursorAfter(a: string, b: string): boolean {
+  const [x, y] = [readPullCursor(a), readPullCursor(b)];
+  return BigInt(x.xid) > BigInt(y.xid) || (BigInt(x.xid) === BigInt(y.xid) && BigInt(x.seq) > BigInt(y.seq));
+}
+
+// GET /api/sync/pull?cursor=C&limit=N&total=1 — query
 export const pullQuerySchema = z.object({
-  cursor: z.coerce.number().int().nonnegative().max(Number.MAX_SAFE_INTEGER).default(0),
+  cursor: pullCursorSchema.default("0"),
+  /** Items per page (the last page may hold fewer; a coach's copy may hold fewer still). */
+  limit: z.coerce.number().int().min(1).max(PULL_MAX_LIMIT).default(PULL_DEFAULT_LIMIT),
+  /** "1": also say about how many items remain after the cursor (the phone's progress). */
+  total: z.enum(["0", "1"]).optional(),
   /** As in a push: the account whose device database asks. */
   account: z.string().uuid().optional(),
 });
@@ -120,8 +156,18 @@ export type PullItem = z.infer<typeof pullItemSchema>;
 // GET /api/sync/pull — reply
 export const pullReplySchema = z.object({
   items: z.array(pullItemSchema),
-  nextCursor: z.number().int().nonnegative(),
+  /** Where the next page starts; the same position when nothing was served. */
+  nextCursor: pullCursorSchema,
+  /** More items are ready after this page. */
   hasMore: z.boolean(),
+  /** About how many items were ready after the asked cursor, this page included (only when asked: `total=1`). */
+  total: z.number().int().nonnegative().optional(),
+  /**
+   * Runs the device may hold as a coach's copy but may no longer see (a coach grant revoked, a
+   * lane the pilot hid or disputed): ids only, on the first page of a pull from the start — which
+   * every change of `scope` leads to. The device drops them with their events.
+   */
+  forget: z.array(z.string().uuid()).max(10_000).optional(),
   /**
    * Fingerprint of what the user may see beyond their own records (their active coach grants).
    * When it changes, rows below the cursor may have become visible: the device pulls from 0 again.

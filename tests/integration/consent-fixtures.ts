@@ -37,7 +37,7 @@ export async function decide(runId: string, lane: number | string, body: unknown
 /** Every item the user pulls from 0, newest copy of each record last. */
 export async function pullEverything(userId: string): Promise<PullItem[]> {
   const out: PullItem[] = [];
-  let cursor = 0;
+  let cursor = "0";
   for (let hasMore = true; hasMore; ) {
     const page = await listChanges(db, { userId, cursor, limit: 2000 });
     out.push(...page.items);

@@ -25,21 +25,27 @@ const serve: Serve = async (user, url, init) => {
 };
 
 const RUNS = Number(process.env.SYNC_PROPERTY_RUNS ?? 100);
+const SEED = Number(process.env.SYNC_PROPERTY_SEED ?? 20260307);
 
 describe("sync property (SYNC.md §5): devices, a faulty network and the real server", () => {
-  it(`loses and duplicates nothing and converges, over ${RUNS} seeded runs`, async () => {
+  it(`loses and duplicates nothing and converges, over ${RUNS} seeded runs (seed ${SEED}; replay with SYNC_PROPERTY_SEED)`, async () => {
     let faults = 0;
     let events = 0;
+    const serverFaults = { restart: 0, late: 0 };
     await fc.assert(
       fc.asyncProperty(scenarioArb, async (scenario) => {
         const outcome = await runScenario(db, serve, scenario);
         faults += outcome.faults;
         events += outcome.events;
+        serverFaults.restart += outcome.restarts;
+        serverFaults.late += outcome.lateCommits;
         expect(outcome.problems).toEqual([]);
       }),
-      { numRuns: RUNS, seed: Number(process.env.SYNC_PROPERTY_SEED ?? 20260307), endOnFailure: true },
+      { numRuns: RUNS, seed: SEED, endOnFailure: true },
     );
     expect(faults).toBeGreaterThan(RUNS); // the network really misbehaved
     expect(events).toBeGreaterThan(RUNS * 5); // and the devices really recorded
+    expect(serverFaults.restart).toBeGreaterThan(0); // the server restarted mid-push …
+    expect(serverFaults.late).toBeGreaterThan(0); // … and committed pushes out of order
   }, 600_000);
 });

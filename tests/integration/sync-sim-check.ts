@@ -58,7 +58,7 @@ async function fullView(db: Database, userId: string) {
   const sessions = new Map<string, unknown>();
   const runs = new Map<string, unknown>();
   const events = new Map<string, unknown>();
-  let cursor = 0;
+  let cursor = "0";
   for (let more = true; more; ) {
     const page = await listChanges(db, { userId, cursor });
     for (const item of page.items) {

@@ -8,7 +8,7 @@ import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/r
 import { SyncClient } from "@/lib/offline/sync-client";
 import type { EventBody } from "@/lib/events/schema";
 import { getCatalogueTask, type TaskLetter } from "@/lib/tasks";
-import { FaultyNetwork, type Serve, type SimUser } from "./sync-sim-network";
+import { FaultyNetwork, type PushFaults, type Serve, type SimUser } from "./sync-sim-network";
 
 /**
  * A world of 3–5 simulated devices (each its own fake-indexeddb Dexie database and sync
@@ -59,9 +59,10 @@ export class SimWorld {
     readonly users: SimUser[],
     serve: Serve,
     readonly scenario: Scenario,
+    pushFaults: PushFaults | null = null,
   ) {
     this.random = mulberry32(scenario.seed);
-    this.net = new FaultyNetwork(serve, this.random, scenario.faultRate);
+    this.net = new FaultyNetwork(serve, this.random, scenario.faultRate, pushFaults);
   }
 
   async start(): Promise<void> {
@@ -136,6 +137,7 @@ export class SimWorld {
   /** Deliver every held request, then sync every device with a clean network until nothing is left to send, then pull. */
   async settle(): Promise<void> {
     await this.net.deliverHeld();
+    await this.net.lateCommits();
     this.net.faultRate = 0;
     for (const d of this.devices) {
       d.client.stop();

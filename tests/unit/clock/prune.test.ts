@@ -24,6 +24,17 @@ describe("pruneEstimates (at most 32 clock estimates per device)", () => {
     expect(meanKept).toBeLessThan(meanAll);
   });
 
+  it("corrects a run by the estimates measured closest in time to it, not by a lower-δ one from far away (RFC 5905 §8: error ≤ δ/2; drift at PHI = 15 ppm)", () => {
+    // a very good estimate (δ 2 ms, θ 100) a day before the run, a worse one (δ 40 ms, θ 400) a minute before it
+    const far = at(0, 2, 100);
+    const near = at(24 * HOUR - 60_000, 40, 400);
+    const runAt = 24 * HOUR;
+    const used = offsetAt(pruneEstimates([far, near]), runAt)!;
+    expect(used.thetaMs).toBe(400);
+    // its bound: δ/2 + 15 ppm × 60 s = 20 + 0.9 ms; the far one's would be 1 + 15 ppm × 24 h = 1 + 1296 ms
+    expect(used.uncertaintyMs).toBeCloseTo(20.9, 6);
+  });
+
   it("never keeps more than the cap, keeps everything under it, and returns a subset oldest first", () => {
     fc.assert(
       fc.property(

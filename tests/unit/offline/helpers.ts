@@ -53,6 +53,8 @@ export class FakeServer {
   pullPageSize = 100;
   /** The visibility fingerprint pull replies carry (undefined: an older server that sends none). */
   scope: string | undefined = undefined;
+  /** Run ids the first page of a pull from the start says to forget. */
+  forget: string[] = [];
 
   fetch = async (url: string, init?: RequestInit): Promise<Response> => {
     this.requests.push(`${init?.method ?? "GET"} ${url}`);
@@ -60,7 +62,7 @@ export class FakeServer {
     if (failure === "throw") throw new TypeError("Failed to fetch");
     if (typeof failure === "number") return Response.json({ error: { code: "x", message: "boom" } }, { status: failure });
     if (url.startsWith("/api/sync/push")) return this.push(JSON.parse(String(init?.body)));
-    if (url.startsWith("/api/sync/pull")) return this.pull(Number(new URL(url, "http://x").searchParams.get("cursor")));
+    if (url.startsWith("/api/sync/pull")) return this.pull(new URL(url, "http://x").searchParams);
     return new Response("not found", { status: 404 });
   };
 
@@ -88,16 +90,31 @@ export class FakeServer {
     return Response.json({ acks, serverSeq: this.log.length });
   }
 
-  private pull(cursor: number): Response {
-    const after = this.log.filter((l) => l.seq > cursor);
-    const page = after.slice(0, this.pullPageSize);
-    const nextCursor = page.at(-1)?.seq ?? cursor;
+  /** Cursors are "1.<seq>" (one transaction id for the whole log); "0" is the start. */
+  private pull(params: URLSearchParams): Response {
+    const raw = params.get("cursor") ?? "0";
+    const cursor = Number(raw.includes(".") ? raw.split(".")[1] : raw);
+    const limit = Math.min(this.pullPageSize, Number(params.get("limit") ?? Infinity));
+    const after = this.log.filter((l) => l.seq > cursor && !this.forgotten(l.item));
+    const page = after.slice(0, limit);
+    const nextCursor = `1.${page.at(-1)?.seq ?? cursor}`;
     return Response.json({
       items: page.map((l) => ({ type: l.item.type, seq: l.seq, data: l.item.data })),
       nextCursor,
       hasMore: after.length > page.length,
+      ...(params.get("total") === "1" ? { total: after.length } : {}),
+      ...(raw === "0" && this.forget.length > 0 ? { forget: this.forget } : {}),
       ...(this.scope === undefined ? {} : { scope: this.scope }),
     });
+  }
+
+  /** What a real server would no longer show: the forgotten runs, their events, sessions left with none. */
+  private forgotten(item: Item): boolean {
+    if (this.forget.length === 0) return false;
+    if (item.type === "run") return this.forget.includes(item.data.id);
+    if (item.type === "event") return this.forget.includes(item.data.runId);
+    const runs = this.log.filter((l) => l.item.type === "run" && l.item.data.sessionId === item.data.id);
+    return runs.length > 0 && runs.every((l) => this.forget.includes(l.item.data.id));
   }
 
   eventIds(): string[] {

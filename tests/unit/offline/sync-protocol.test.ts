@@ -31,8 +31,8 @@ describe("sync protocol schemas", () => {
 
   it("checks pulled items by their type", () => {
     const ev = event(1);
-    expect(pullReplySchema.safeParse({ items: [{ type: "event", seq: 1, data: ev }], nextCursor: 1, hasMore: false }).success).toBe(true);
-    expect(pullReplySchema.safeParse({ items: [{ type: "run", seq: 1, data: ev }], nextCursor: 1, hasMore: false }).success).toBe(false);
+    expect(pullReplySchema.safeParse({ items: [{ type: "event", seq: 1, data: ev }], nextCursor: "812.1", hasMore: false }).success).toBe(true);
+    expect(pullReplySchema.safeParse({ items: [{ type: "run", seq: 1, data: ev }], nextCursor: "812.1", hasMore: false }).success).toBe(false);
   });
 
   it("time reply echoes t1 with the server's receive and send times", () => {

@@ -1,0 +1,157 @@
+import { sql } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import { db, getPool } from "@/db";
+import { listChanges } from "@/db/queries/sync-pull";
+import { applyPush } from "@/db/queries/sync-push";
+import { correctStamp } from "@/lib/sync/correct-events";
+import type { PushRequest } from "@/lib/validations/sync";
+import { deviceWorkload, percentile } from "./sync-workload";
+
+/** The three sync measurements of bench/sync.bench.ts; each returns what it prints. */
+
+export type Measure = { line: string; goal: string; met: boolean };
+
+const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+/** Push one request and fail loudly on any refusal (the bench's items are all allowed). */
+async function pushOk(userId: string, p: PushRequest): Promise<void> {
+  const reply = await applyPush(db, userId, p);
+  const bad = reply.acks.find((a) => a.status === "rejected");
+  if (bad) throw new Error(`bench push refused an item: ${bad.reason}`);
+}
+
+/**
+ * 1. Push throughput: `events` events (runs of 100) through applyPush — validation,
+ * authorisation, storing, derivation — in the phone's batches of 200, against raw multi-row
+ * inserts of the same rows into the same table, same batches, no checks.
+ */
+export async function throughput(userId: string, events: number): Promise<Measure> {
+  const pushes = deviceWorkload(userId, Math.ceil(events / 100), 100, 200);
+  const t0 = performance.now();
+  for (const p of pushes) await pushOk(userId, p);
+  const pushMs = performance.now() - t0;
+
+  // the same rows again (new ids, another device, the same runs) as plain multi-row inserts into
+  // the events table itself — same indexes, same foreign keys — with no checks and no derivation
+  const rawDevice = `bench-raw-${uuidv7()}`;
+  const t1 = performance.now();
+  for (const p of pushes) {
+    if (p.events.length === 0) continue;
+    const rows = p.events.map((e) => {
+      const c = correctStamp(e.stamp, []);
+      return sql`(${uuidv7()}::uuid, ${e.runId}::uuid, ${rawDevice}, ${e.seq}, ${userId}::uuid, ${e.body.kind}, ${JSON.stringify(e.body)}::jsonb,
+        ${e.stamp.wallMs}, ${e.stamp.monoMs}, ${e.stamp.pageId}, ${e.stamp.offset?.thetaMs ?? null}, ${e.stamp.offset?.deltaMs ?? null},
+        ${e.stamp.offset?.measuredAtWallMs ?? null}, ${c.correctedMs}, ${c.uncertaintyMs})`;
+    });
+    await db.execute(sql`insert into events (id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id,
+      offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms) values ${sql.join(rows, sql`, `)}`);
+  }
+  const rawMs = performance.now() - t1;
+  await db.execute(sql`delete from events where device_id = ${rawDevice}`);
+  const n = pushes.reduce((k, p) => k + p.events.length, 0);
+  const ratio = rawMs / pushMs;
+  return {
+    line: `push ${n} events in ${pushes.length} pushes: ${(n / (pushMs / 1000)).toFixed(0)} events/s; raw multi-row insert ` +
+      `${(n / (rawMs / 1000)).toFixed(0)} events/s; push throughput = ${ratio.toFixed(2)}× the raw insert`,
+    goal: "≥ 0.5×",
+    met: ratio >= 0.5,
+  };
+}
+
+/**
+ * 2. `devices` devices each pushing one run of `perDevice` events at once (batches of 10), while
+ * `readerCount` phones of those accounts pull what changed since their cursor, again and again.
+ */
+export async function crowd(userIds: string[], readerCount: number, devices: number, perDevice: number): Promise<Measure> {
+  const latencies: number[] = [];
+  const pulls: number[] = [];
+  let errors = 0;
+  let done = false;
+  const work = Array.from({ length: devices }, (_, i) => ({ user: userIds[i % userIds.length]!, pushes: deviceWorkload(userIds[i % userIds.length]!, 1, perDevice, 10) }));
+  const readers = Array.from({ length: readerCount }, (_, i) => userIds[i % userIds.length]!).map(async (userId) => {
+    // a phone of that account: pulls what changed since its cursor, again and again
+    let cursor = "0";
+    while (!done) {
+      const start = performance.now();
+      try {
+        for (let more = true; more; ) {
+          const page = await listChanges(db, { userId, cursor });
+          cursor = page.nextCursor;
+          more = page.hasMore;
+        }
+      } catch {
+        errors += 1;
+      }
+      pulls.push(performance.now() - start);
+      await new Promise((r) => setTimeout(r, 20));
+    }
+  });
+  const t0 = performance.now();
+  await Promise.all(
+    work.map(async ({ user, pushes }) => {
+      for (const p of pushes) {
+        const start = performance.now();
+        try {
+          await pushOk(user, p);
+        } catch {
+          errors += 1;
+        }
+        latencies.push(performance.now() - start);
+      }
+    }),
+  );
+  const wall = performance.now() - t0;
+  done = true;
+  await Promise.all(readers);
+  latencies.sort((a, b) => a - b);
+  pulls.sort((a, b) => a - b);
+  const p99 = percentile(latencies, 0.99);
+  return {
+    line: `${devices} devices × ${perDevice} events at once (${latencies.length} pushes of ≤ 10 items, pool of ${getPool().options.max}) ` +
+      `while ${readerCount} readers pull (${pulls.length} pulls, p50 ${ms(percentile(pulls, 0.5))}): ${(wall / 1000).toFixed(1)} s, ` +
+      `push p50 ${ms(percentile(latencies, 0.5))} p99 ${ms(p99)}, errors ${errors}`,
+    goal: "0 errors, p99 ≤ 500 ms",
+    met: errors === 0 && p99 <= 500,
+  };
+}
+
+/** Other accounts pushing small runs (batches of 10) until `until` resolves or `minPushes` each; their latencies. */
+async function others(userIds: string[], until: Promise<unknown> | null, minPushes: number): Promise<number[]> {
+  const out: number[] = [];
+  let over = until === null;
+  void until?.then(() => (over = true));
+  await Promise.all(
+    userIds.map(async (u) => {
+      let n = 0;
+      while (n < minPushes || !over) {
+        for (const p of deviceWorkload(u, 2, 20, 10)) {
+          const start = performance.now();
+          await pushOk(u, p);
+          out.push(performance.now() - start);
+          n += 1;
+        }
+      }
+    }),
+  );
+  return out.sort((a, b) => a - b);
+}
+
+/** 3. One account pushing a `size`-event run (batches of 200) against other accounts' push p50, with and without it. */
+export async function bigRun(bigUser: string, otherIds: string[], size: number): Promise<Measure> {
+  const alone = await others(otherIds, null, 40);
+  const big = (async () => {
+    const t0 = performance.now();
+    for (const p of deviceWorkload(bigUser, 1, size, 200)) await pushOk(bigUser, p);
+    return performance.now() - t0;
+  })();
+  const withBig = await others(otherIds, big, 10);
+  const bigMs = await big;
+  const ratio = percentile(withBig, 0.5) / percentile(alone, 0.5);
+  return {
+    line: `one account pushes a ${size}-event run (${(bigMs / 1000).toFixed(1)} s) while ${otherIds.length} others push: their p50 ` +
+      `${ms(percentile(withBig, 0.5))} (p99 ${ms(percentile(withBig, 0.99))}) against ${ms(percentile(alone, 0.5))} alone ` +
+      `(p99 ${ms(percentile(alone, 0.99))}) = ${ratio.toFixed(2)}×`,
+    goal: "≤ 1.2×",
+    met: ratio <= 1.2,
+  };
+}

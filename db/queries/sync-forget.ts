@@ -1,0 +1,31 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import type { Executor } from "./sync-db";
+import { visibility } from "./sync-visibility";
+
+/** Most run ids one reply names to forget (a season of a coached pilot is far fewer). */
+const FORGET_MAX = 10_000;
+
+/**
+ * Runs the user's phone may hold as a coach's copy but may no longer see (SYNC.md §3: a pull
+ * carries what the device must forget). Ids only, and only of runs that are not visible now:
+ * - a lane of a pilot whose grant to this coach was revoked, in a run recorded before the
+ *   revocation (by the phone's creation time), on a lane that counted in that pilot's record or
+ *   that they decided on;
+ * - a lane the pilot (still granting) hid or disputed: it may have been accepted before.
+ * A run another of the user's rights still shows (their own, one they fly in, another granting
+ * pilot's accepted lane) is never named. Lanes lost from a run that stays visible are not
+ * covered here: that run's row is re-sent with only the lanes the coach may see.
+ */
+export async function forgottenRuns(db: Executor, userId: string): Promise<string[]> {
+  const res = await db.execute<{ id: string }>(sql`${visibility(userId)}
+    select distinct l.run_id::text as id from run_lanes l
+      join runs r on r.id = l.run_id
+      join coach_grants g on g.pilot_id = l.pilot_user_id and g.coach_id = ${userId}
+      left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
+    where l.run_id not in (select id from visible_runs)
+      and ((g.revoked_at is null and c.status in ('hidden', 'disputed'))
+        or (g.revoked_at is not null and r.created_at <= g.revoked_at and (l.pilot_user_id = r.created_by or c.status is not null)))
+    limit ${FORGET_MAX}`);
+  return res.rows.map((r) => r.id);
+}
