@@ -70,6 +70,21 @@ describe("a run a club mate recorded for a pilot", () => {
     expect(runItem(await pullEverything(ada!.id), third.runId)?.consents?.[0]?.status).toBe("hidden");
   });
 
+  it("a hidden run can be un-hidden: 'pending' takes the decision back, on the server and in every pull", async () => {
+    const [tobi, ada] = await freshClub(["Tobi", "Ada"]);
+    const { runId } = await timedBy(tobi!, ada!);
+    actAs(ada!);
+    expect((await decide(runId, 0, { decision: "hidden" })).status).toBe(200);
+    expect(await db.select().from(laneConsents).where(eq(laneConsents.runId, runId))).toHaveLength(1);
+    expect((await decide(runId, 0, { decision: "pending" })).body).toEqual({ consent: { lane: 0, status: "pending", reason: null } });
+    expect(await db.select().from(laneConsents).where(eq(laneConsents.runId, runId))).toEqual([]);
+    expect(runItem(await pullEverything(ada!.id), runId)?.consents).toEqual([{ lane: 0, status: "pending", reason: null }]);
+    expect(runItem(await pullEverything(tobi!.id), runId)?.consents).toEqual([{ lane: 0, status: "pending", reason: null }]);
+    // the recorder cannot take it back for her
+    actAs(tobi!);
+    expect((await decide(runId, 0, { decision: "pending" })).status).toBe(404);
+  });
+
   it("only that lane's pilot may decide: 401 signed out, 404 for the recorder and anyone else, 409 for a run of one's own, 422 for a dispute without a reason", async () => {
     const [tobi, ada, lena] = await freshClub(["Tobi", "Ada", "Lena"]);
     const { runId } = await timedBy(tobi!, ada!);
