@@ -4,27 +4,23 @@ import { eq } from "drizzle-orm";
 import { laneConsents, runLanes } from "@/db/schema";
 import { listRecentSessions } from "@/db/queries/sessions";
 import type { LaneDerived } from "@/lib/sync/types";
-import { actAs } from "./support/session";
+import { actAs, type MockSessionUser } from "./support/session";
 import { db, getPool } from "./support/db";
 import { decide, freshClub, pullEverything, runItem } from "./consent-fixtures";
-import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
+import { pushingAs, T0 } from "./sync-fixtures";
 
 afterAll(async () => {
   await getPool().end();
 });
 
 /** `keeper` times `pilot` (lane 0) at a session of the keeper's: two flights and a 1,000-point penalty. */
-async function timedBy(keeper: { id: string }, pilot: { id: string; name: string }) {
-  actAs(keeper as never);
-  const phone = recorder(deviceId());
-  const s = session(keeper.id);
-  const r = run(s.id, [{ lane: 0, pilotName: pilot.name, pilotUserId: pilot.id }]);
-  const events = [
+async function timedBy(keeper: MockSessionUser, pilot: { id: string; name: string }) {
+  const { phone, session: s, run: r, send } = pushingAs(keeper, [{ lane: 0, pilotName: pilot.name, pilotUserId: pilot.id }]);
+  const res = await send([
     phone.at(r.id, T0, { kind: "window-start" }),
     ...phone.flights(r.id, 0, [60, 120], T0 + 1000),
     phone.at(r.id, T0 + 300_000, { kind: "penalty", lane: 0, points: 1000, reason: "Because I could" }),
-  ];
-  const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events });
+  ]);
   expect(res.body.acks.every((a) => a.status === "applied")).toBe(true);
   return { sessionId: s.id, runId: r.id };
 }
