@@ -1,6 +1,7 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { checkWriteRequest, isGuardedWrite } from "@/lib/security/request-origin";
 import { buildCsp, createNonce, HSTS, servedOverHttps } from "@/lib/security/headers";
+import { isSessionCookie, PENDING_SIGN_OUT_COOKIE, pendingSignOutAction } from "@/lib/security/pending-sign-out";
 
 /**
  * Runs before every page and API request (Next 16's proxy, formerly middleware). It is not the
@@ -10,11 +11,13 @@ import { buildCsp, createNonce, HSTS, servedOverHttps } from "@/lib/security/hea
  *   route reads a byte of the body;
  * - gives each page a fresh CSP nonce (Next reads it from the request's policy header and puts it
  *   on its own scripts; the root layout reads `x-nonce` for the theme script);
- * - adds HSTS when served over HTTPS.
+ * - adds HSTS when served over HTTPS;
+ * - finishes a sign-out started offline (lib/security/pending-sign-out.ts) before anything is served.
  */
 export function proxy(request: NextRequest) {
   const url = request.nextUrl;
   const https = servedOverHttps(request.headers, url);
+  if (request.cookies.has(PENDING_SIGN_OUT_COOKIE)) return finishSignOut(request);
   if (url.pathname === "/api" || url.pathname.startsWith("/api/")) {
     const refusal = isGuardedWrite(request.method, url.pathname) ? checkWriteRequest(request.method, request.headers, url) : null;
     const response = refusal
@@ -32,6 +35,24 @@ export function proxy(request: NextRequest) {
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set("Content-Security-Policy", csp);
   if (https) response.headers.set("Strict-Transport-Security", HSTS);
+  return response;
+}
+
+/** A request while a sign-out is pending: end the session (delete its cookie) before serving anything. */
+function finishSignOut(request: NextRequest): NextResponse {
+  const action = pendingSignOutAction(request.method, request.nextUrl.pathname);
+  const response =
+    action === "pass"
+      ? NextResponse.next()
+      : action === "retry"
+        ? NextResponse.redirect(request.nextUrl, 307)
+        : NextResponse.json({ error: { code: "unauthorized", message: "Signed out. Sign in again." } }, { status: 401 });
+  response.headers.set("cache-control", "no-store");
+  response.cookies.set(PENDING_SIGN_OUT_COOKIE, "", { path: "/", maxAge: 0 });
+  if (action === "pass") return response;
+  for (const { name } of request.cookies.getAll()) {
+    if (isSessionCookie(name)) response.cookies.set(name, "", { path: "/", maxAge: 0, httpOnly: true, sameSite: "lax", secure: name.startsWith("__Secure-") });
+  }
   return response;
 }
 

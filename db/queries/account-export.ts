@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
-import { clubs, coachGrants, devices, events, fieldSessions, memberships, practicePlans, runLanes, runs, users } from "../schema";
+import { clubs, coachGrants, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
 
 /** The format of "export all my data"; bump when its shape changes. */
 export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
@@ -11,7 +11,8 @@ export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
  * hash): the account; club memberships; coach grants it gave and received; devices; practice
  * plans; field sessions it owns; runs in those sessions, runs it created and runs where it flies
  * a lane, each with all lanes and their results; the events it recorded or that belong to its
- * lanes (a run-wide event such as the window start belongs to every lane).
+ * lanes (a run-wide event such as the window start belongs to every lane); and its decisions on
+ * lanes someone else recorded for it (accepted, disputed with the reason, hidden; when).
  */
 export async function exportAccount(db: Database, userId: string) {
   const [account] = await db
@@ -22,7 +23,7 @@ export async function exportAccount(db: Database, userId: string) {
   const myRun = sql`(${runs.createdBy} = ${userId}
     or ${runs.sessionId} in (select id from field_sessions where owner_id = ${userId})
     or exists (select 1 from run_lanes l where l.run_id = ${runs.id} and l.pilot_user_id = ${userId}))`;
-  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows] = await Promise.all([
+  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows, consents] = await Promise.all([
     db.select({ clubId: clubs.id, club: clubs.name, role: memberships.role, since: memberships.createdAt })
       .from(memberships).innerJoin(clubs, eq(clubs.id, memberships.clubId)).where(eq(memberships.userId, userId)),
     db.select({ coachId: coachGrants.coachId, coach: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
@@ -35,6 +36,8 @@ export async function exportAccount(db: Database, userId: string) {
       .from(practicePlans).where(eq(practicePlans.pilotId, userId)),
     db.select().from(fieldSessions).where(eq(fieldSessions.ownerId, userId)).orderBy(asc(fieldSessions.startedAt)),
     db.select().from(runs).where(myRun).orderBy(asc(runs.createdAt)),
+    db.select({ runId: laneConsents.runId, lane: laneConsents.lane, decision: laneConsents.status, reason: laneConsents.reason, decidedAt: laneConsents.decidedAt })
+      .from(laneConsents).where(eq(laneConsents.pilotUserId, userId)).orderBy(asc(laneConsents.decidedAt)),
   ]);
   const runIds = runRows.map((r) => r.id);
   const [lanes, eventRows] = runIds.length
@@ -57,6 +60,7 @@ export async function exportAccount(db: Database, userId: string) {
     sessions,
     runs: runRows.map((r) => ({ ...r, lanes: lanes.filter((l) => l.runId === r.id) })),
     events: eventRows,
+    consentDecisions: consents,
   };
 }
 

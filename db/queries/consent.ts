@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
-import { consentStatus, type ConsentDecision } from "@/lib/sync/consent";
+import { consentStatus, type ConsentChoice } from "@/lib/sync/consent";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { Database } from "../index";
 import { laneConsents, runLanes, runs } from "../schema";
@@ -11,13 +11,14 @@ export type ConsentOutcome = { kind: "decided"; consent: LaneConsent } | { kind:
 /**
  * The pilot's decision on a lane someone else recorded for them (lib/sync/consent.ts). Only that
  * lane's pilot finds it (anyone else: not-found, so nobody learns which runs exist); a lane the
- * pilot recorded themselves needs no decision ("own"). Deciding again replaces the decision. The
- * run's row is locked and re-stamped (syncStamp), so the pilot's phones, the recorder and coaches
+ * pilot recorded themselves needs no decision ("own"). Deciding again replaces the decision;
+ * "pending" removes it (a hidden run listed again, waiting for a decision). The run's row is
+ * locked and re-stamped (syncStamp), so the pilot's phones, the recorder and coaches
  * pull the new standing (sync-pull.ts).
  */
 export async function decideLaneConsent(
   db: Database,
-  params: { userId: string; runId: string; lane: number; decision: ConsentDecision; reason: string | null },
+  params: { userId: string; runId: string; lane: number; decision: ConsentChoice; reason: string | null },
 ): Promise<ConsentOutcome> {
   return db.transaction(async (tx) => {
     await lockRuns(tx, [params.runId]);
@@ -29,15 +30,20 @@ export async function decideLaneConsent(
     if (!row) return { kind: "not-found" };
     if (row.createdBy === params.userId) return { kind: "own" };
     const reason = params.decision === "disputed" ? params.reason : null;
-    await tx
-      .insert(laneConsents)
-      .values({ runId: params.runId, lane: params.lane, pilotUserId: params.userId, status: params.decision, reason })
-      .onConflictDoUpdate({
-        target: [laneConsents.runId, laneConsents.lane],
-        set: { status: params.decision, reason, pilotUserId: params.userId, decidedAt: sql`now()` },
-      });
+    const decision = params.decision === "pending" ? null : params.decision;
+    if (decision === null) {
+      await tx.delete(laneConsents).where(and(eq(laneConsents.runId, params.runId), eq(laneConsents.lane, params.lane)));
+    } else {
+      await tx
+        .insert(laneConsents)
+        .values({ runId: params.runId, lane: params.lane, pilotUserId: params.userId, status: decision, reason })
+        .onConflictDoUpdate({
+          target: [laneConsents.runId, laneConsents.lane],
+          set: { status: decision, reason, pilotUserId: params.userId, decidedAt: sql`now()` },
+        });
+    }
     await tx.update(runs).set(syncStamp()).where(eq(runs.id, params.runId));
-    const status = consentStatus(row.createdBy, params.userId, params.decision) ?? "pending";
+    const status = consentStatus(row.createdBy, params.userId, decision) ?? "pending";
     return { kind: "decided", consent: { lane: params.lane, status, reason } };
   });
 }

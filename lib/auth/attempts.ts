@@ -1,6 +1,7 @@
 import "server-only";
 import { RateLimiterRes, type RateLimiterPostgres } from "rate-limiter-flexible";
 import { getLimiters } from "@/db/limits";
+import { accountKey } from "./known-device";
 
 /**
  * Sign-in attempt limits (README: "What is protected and how"). Every attempt is counted BEFORE the
@@ -17,18 +18,24 @@ import { getLimiters } from "@/db/limits";
  *
  * Without a visible address (TRUST_PROXY unset) all requests share one pair per account, so only the
  * pair's growing delays apply: a stranger can slow an account down but never shut out other accounts.
- * The account (the typed e-mail) is counted whether or not it exists, so the limits reveal nothing.
+ * - **Per (account, known device)**: an attempt carrying a valid known-device cookie for the account
+ *   (known-device.ts, set at each successful sign-in) is counted in that device's own pair instead of
+ *   the address's, with the same free attempts and delays, and the address and "under attack" limits
+ *   do not apply to it: the owner's phone is never held up by a stranger's failures.
+ * The account (the typed e-mail) is counted whether or not it exists, so the limits reveal nothing;
+ * it is keyed by an HMAC of the e-mail (`accountKey`), so `rate_limits` holds no address.
  */
-export async function beginSignInAttempt(account: string, address: string | null): Promise<{ succeeded(): Promise<void> }> {
+export async function beginSignInAttempt(email: string, address: string | null, deviceId: string | null = null): Promise<{ succeeded(): Promise<void> }> {
   const l = getLimiters();
-  const pair = `${account}|${address ?? "local"}`;
+  const pair = signInPairKey(email, address, deviceId);
+  const account = accountKey(email);
   const refunds: (() => Promise<unknown>)[] = [];
   const refuse = async (ms: number): Promise<never> => {
     await Promise.all(refunds.map((r) => r()));
     throw new AttemptThrottledError(ms);
   };
 
-  if (address) {
+  if (address && !deviceId) {
     const byAddress = await count(l.addressFailures, address);
     if (byAddress.consumedPoints > l.addressFailures.points) await refuse(byAddress.msBeforeNext);
     refunds.push(() => l.addressFailures.reward(address));
@@ -36,7 +43,7 @@ export async function beginSignInAttempt(account: string, address: string | null
   const byAccount = await count(l.accountFailures, account);
   refunds.push(() => l.accountFailures.reward(account));
   const byPair = await count(l.pairFree, pair);
-  const underAttack = address !== null && byAccount.consumedPoints > l.accountFailures.points;
+  const underAttack = address !== null && !deviceId && byAccount.consumedPoints > l.accountFailures.points;
   if (underAttack && byPair.consumedPoints > 1) await refuse(byAccount.msBeforeNext);
   if (byPair.consumedPoints > l.pairFree.points) {
     const step = (await l.pairSteps.get(pair))?.consumedPoints ?? 0;
@@ -49,6 +56,11 @@ export async function beginSignInAttempt(account: string, address: string | null
       await Promise.all([l.pairFree.delete(pair), l.pairGate.delete(pair), l.pairSteps.delete(pair), ...refunds.map((r) => r())]);
     },
   };
+}
+
+/** The limiters' key of an attempt's pair: the account's key and the known device, or the address ("local" when unseen). */
+export function signInPairKey(email: string, address: string | null, deviceId: string | null = null): string {
+  return `${accountKey(email)}|${deviceId ? `device:${deviceId}` : (address ?? "local")}`;
 }
 
 /** The gate after the free attempts: 1 minute, doubling with each gated attempt, at most 30 minutes. */

@@ -4,6 +4,7 @@ import { getUserById } from "@/db/queries/users";
 import { AppError, RateLimitError } from "@/lib/errors";
 import { AttemptThrottledError, beginSignInAttempt } from "./attempts";
 import { clientAddress } from "./client-address";
+import { knownDeviceId } from "./known-device";
 import { verifyPassword } from "./password";
 
 /**
@@ -14,7 +15,9 @@ import { verifyPassword } from "./password";
  */
 export async function confirmPassword(userId: string, password: string, request: Request): Promise<void> {
   const user = await getUserById(db, userId);
-  const attempt = await beginSignInAttempt(user?.email ?? userId, clientAddress(Object.fromEntries(request.headers))).catch((error: unknown) => {
+  const account = user?.email ?? userId;
+  const headers = Object.fromEntries(request.headers);
+  const attempt = await beginSignInAttempt(account, clientAddress(headers), knownDeviceId(account, headers)).catch((error: unknown) => {
     if (error instanceof AttemptThrottledError) {
       throw new RateLimitError(`Too many wrong passwords. Try again in ${Math.max(1, Math.ceil(error.retryAfterMs / 60_000))} minutes.`);
     }

@@ -1,6 +1,7 @@
 import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import { cookies } from "next/headers";
 import { authorizeCredentials } from "./authorize";
 import { sessionCallbacks, sessionLogger } from "./session-callbacks";
 
@@ -12,7 +13,11 @@ export const authOptions: NextAuthOptions = {
     CredentialsProvider({
       name: "E-mail",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
-      authorize: (credentials, req) => authorizeCredentials(credentials, req?.headers),
+      // a success sets the known-device cookie on next-auth's response (Next merges cookies set in a route handler)
+      authorize: (credentials, req) =>
+        authorizeCredentials(credentials, req?.headers, async ({ name, value, options }) => {
+          (await cookies()).set(name, value, options);
+        }),
     }),
   ],
   // The account is re-read on every session check (session-callbacks.ts): no stale role or account.

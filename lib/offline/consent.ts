@@ -1,4 +1,4 @@
-import type { ConsentDecision } from "@/lib/sync/consent";
+import type { ConsentChoice } from "@/lib/sync/consent";
 import { laneConsentSchema, type LaneConsent } from "@/lib/validations/consent";
 import { z } from "zod";
 import type { StoredRun, WindowcallDb } from "./db";
@@ -33,7 +33,7 @@ export function listedInLogbook(run: StoredRun, userId: string | null): boolean 
 export async function decideConsent(
   db: WindowcallDb,
   fetchFn: FetchLike,
-  params: { runId: string; lane: number; decision: ConsentDecision; reason?: string },
+  params: { runId: string; lane: number; decision: ConsentChoice; reason?: string },
 ): Promise<string | null> {
   const body = params.decision === "disputed" ? { decision: params.decision, reason: params.reason ?? "" } : { decision: params.decision };
   const r = await requestJson(fetchFn, `/api/runs/${params.runId}/lanes/${params.lane}/consent`, postJson(body), replySchema);

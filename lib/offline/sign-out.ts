@@ -1,6 +1,7 @@
 import Dexie from "dexie";
 import { PERSONAL_CACHES } from "./cache-names";
 import { releaseWindowcallDb, type WindowcallDb } from "./db";
+import { PENDING_SIGN_OUT_COOKIE } from "@/lib/security/pending-sign-out";
 import { browserStore, forgetDeviceUser, type KeyValueStore } from "./device-user";
 
 /**
@@ -40,4 +41,24 @@ export async function clearAccountOnDevice(
   if (kept === 0 && name) await Dexie.delete(name);
   await clearPersonalCaches(options.caches ?? globalThis.caches);
   return { kept };
+}
+
+/** Where the pending mark is kept: the page's cookies (`document`, absent in tests). */
+export type CookieJar = { cookie: string };
+
+/**
+ * Ends the server session with `serverSignOut` (next-auth's sign-out). Offline that cannot reach the
+ * server, so a pending mark (a plain cookie, lib/security/pending-sign-out.ts) is set first and cleared
+ * only once the sign-out went through: until then the first request that reaches the server ends the
+ * session before a signed-in page is shown. True when the server answered.
+ */
+export async function endServerSession(serverSignOut: () => Promise<unknown>, jar: CookieJar | undefined = globalThis.document): Promise<boolean> {
+  if (jar) jar.cookie = `${PENDING_SIGN_OUT_COOKIE}=1; path=/; max-age=${400 * 24 * 3600}; samesite=lax`;
+  try {
+    await serverSignOut();
+  } catch {
+    return false; // offline: the mark stays
+  }
+  if (jar) jar.cookie = `${PENDING_SIGN_OUT_COOKIE}=; path=/; max-age=0; samesite=lax`;
+  return true;
 }

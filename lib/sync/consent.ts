@@ -13,6 +13,9 @@ export type ConsentDecision = "accepted" | "disputed" | "hidden";
 /** A lane's standing in its pilot's record: "own" when the pilot created the run, else their decision or "pending". */
 export type ConsentStatus = "own" | "pending" | ConsentDecision;
 
+/** What a pilot may send: a decision, or "pending" to take theirs back (un-hide a hidden run). */
+export type ConsentChoice = ConsentDecision | "pending";
+
 /** Decisions a pilot may take, in the order the screens offer them. */
 export const CONSENT_DECISIONS: readonly ConsentDecision[] = ["accepted", "disputed", "hidden"];
 

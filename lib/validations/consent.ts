@@ -16,7 +16,8 @@ export const laneConsentParamsSchema = z.object({
 // POST /api/runs/[runId]/lanes/[lane]/consent — body
 export const laneConsentRequestSchema = z
   .object({
-    decision: z.enum(["accepted", "disputed", "hidden"]),
+    /** "pending" takes the pilot's decision back (un-hides a hidden run): the lane waits for a decision again. */
+    decision: z.enum(["accepted", "disputed", "hidden", "pending"]),
     /** Why the pilot disputes it, for the recorder (required for a dispute, ignored otherwise). */
     reason: text(CONSENT_REASON_MAX)
       .transform((s) => s.trim())

@@ -18,6 +18,10 @@ async function signUp(page: Page) {
   await expect(page.getByRole("status")).toHaveText("Done. Sign in with this e-mail and the password you chose.");
   await signInAs(page, email, FIRST);
   await expect(page.getByRole("heading", { name: "Hello, Swift" })).toBeVisible();
+  // the sign-in left this browser's known-device cookie (lib/auth/known-device.ts): signed, httpOnly, Lax
+  const known = (await page.context().cookies()).filter((c) => c.name.startsWith("wc-known-"));
+  expect(known).toEqual([expect.objectContaining({ httpOnly: true, sameSite: "Lax", path: "/" })]);
+  expect(known[0]!.value).not.toContain(email);
 }
 
 /** Records a field session for the signed-in account through the sync API, as its phone would. */
@@ -87,7 +91,8 @@ test("a pilot changes their password, exports their data, signs out everywhere a
     // the phone has pulled the account's session into its device database by now
     await expect.poll(() => storedFieldNames(page), { timeout: 20_000 }).toContain("Export Meadow");
     await page.getByRole("button", { name: "Sign every device out" }).click();
-    await expect(page).toHaveURL(/\/sign-in/);
+    await expect(page).toHaveURL(/\/sign-in\?signedOut=everywhere$/);
+    await expect(page.getByRole("status")).toHaveText("You were signed out on every device.");
     expect(await storedFieldNames(page)).not.toContain("Export Meadow"); // cleared from this phone too
     await phone.goto("/");
     await expect(phone).toHaveURL(/\/sign-in/);
@@ -105,6 +110,7 @@ test("a pilot changes their password, exports their data, signs out everywhere a
     await account.getByLabel("Your password, to confirm").fill(SECOND);
     await account.getByRole("button", { name: "Delete my account" }).click();
     await expect(page).toHaveURL(/\/sign-in\?deleted=1/);
+    await expect(page.getByRole("status")).toHaveText("Your account was deleted.");
     await failsToSignIn(page, SECOND);
   });
 });

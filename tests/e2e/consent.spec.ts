@@ -94,6 +94,23 @@ test("a pilot accepts one run a club mate recorded for them, which then counts, 
     await expect(decisions.filter({ hasText: "disputed" })).toContainText("My flight was 1:40, not 1:33", { timeout: 30_000 });
     await expect(decisions.filter({ hasText: "accepted" })).toHaveCount(1);
     await recorder.close();
+
+    // The pilot hides the disputed run, then finds it with "Show hidden runs" and un-hides it.
+    await page.goto("/logbook");
+    await recorded.nth(1).getByRole("button", { name: "Hide" }).click();
+    await expect(recorded).toHaveCount(1);
+    const showHidden = page.getByRole("checkbox", { name: "Show hidden runs (1)" });
+    await showHidden.check();
+    await expect(recorded).toHaveCount(2);
+    const hidden = page.locator('[data-consent="hidden"]');
+    await expect(hidden).toContainText("You hid it");
+    await hidden.getByRole("button", { name: "Un-hide" }).click();
+    await expect(page.getByRole("checkbox", { name: "Show hidden runs (0)" })).toBeChecked();
+    await page.getByRole("checkbox", { name: /^Show hidden runs/ }).click(); // off; with nothing hidden the toggle goes
+    await expect(recorded).toHaveCount(2); // listed again, waiting for a decision
+    await expect(recorded.nth(1)).toHaveAttribute("data-consent", "pending");
+    await expect(page.getByRole("checkbox", { name: /^Show hidden runs/ })).toHaveCount(0);
+    expect((await db.query("select 1 from lane_consents where pilot_user_id = $1 and status = 'hidden'", [pilotId])).rowCount).toBe(0);
   } finally {
     await db.end();
   }

@@ -185,4 +185,29 @@ test.describe("with the service worker", () => {
       await db.end();
     }
   });
+
+  test("signed out with no signal, the session ends at the first request that reaches the server", async ({ page, context }) => {
+    const email = await signUp(page, "Ilse Marr", "offline-out");
+    await signInAs(page, email, PASSWORD);
+    await workerReady(page);
+    await page.goto("/settings");
+    await expect(page.getByRole("region", { name: "Account" })).toContainText(email);
+    await context.setOffline(true);
+    await page.getByRole("button", { name: "Sign out", exact: true }).click();
+    await expect(page).toHaveURL(/\/sign-in$/);
+    // the server never heard of it: the session cookie is still in the browser
+    expect((await context.cookies()).map((c) => c.name)).toContain("next-auth.session-token");
+
+    // Signal again, the next person opens the app: no signed-in page is shown on the old session.
+    await context.setOffline(false);
+    await page.goto("/");
+    await expect(page).toHaveURL(/\/sign-in/);
+    await expect(page.locator("body")).not.toContainText("Ilse");
+    expect(await page.evaluate(async () => (await fetch("/api/auth/session")).json())).toEqual({});
+    expect((await context.cookies()).map((c) => c.name)).not.toContain("next-auth.session-token");
+    // and the account signs in again as usual (the finished sign-out leaves nothing pending)
+    await signInAs(page, email, PASSWORD);
+    await page.goto("/settings");
+    await expect(page.getByRole("region", { name: "Account" })).toContainText(email);
+  });
 });

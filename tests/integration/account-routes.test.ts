@@ -12,6 +12,7 @@ import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { actAs } from "./support/session";
 import { db, demoUser, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
+import { decide } from "./consent-fixtures";
 
 afterAll(async () => {
   await getPool().end();
@@ -128,6 +129,26 @@ describe("GET /api/account/export", () => {
     expect(data.runs[0].lanes).toHaveLength(2);
     const kinds = data.events.map((e: { body: { kind: string; lane?: number } }) => `${e.body.kind}${e.body.lane ?? ""}`);
     expect(kinds.sort()).toEqual(["launch1", "window-start"]);
+    expect(data.consentDecisions).toEqual([]); // pending: no decision yet
+  });
+
+  it("includes the user's consent decisions on lanes others recorded, with when and why", async () => {
+    const pilot = await freshUser("export-consent");
+    const timer = await freshUser("export-consent-timer");
+    const lanes = [{ pilotUserId: timer.id, pilotName: timer.name }, { pilotUserId: pilot.id, pilotName: pilot.name }];
+    const accepted = await insertRun(await insertSession(timer.id), timer.id, lanes);
+    const disputed = await insertRun(await insertSession(timer.id), timer.id, lanes);
+    actAs(pilot);
+    expect((await decide(accepted, 1, { decision: "accepted" })).status).toBe(200);
+    expect((await decide(disputed, 1, { decision: "disputed", reason: "I landed out, not on the spot" })).status).toBe(200);
+    const data = JSON.parse(await (await exportRoute()).text());
+    expect(data.consentDecisions).toEqual([
+      { runId: accepted, lane: 1, decision: "accepted", reason: null, decidedAt: expect.stringMatching(/^\d{4}-\d{2}-\d{2}T/) },
+      { runId: disputed, lane: 1, decision: "disputed", reason: "I landed out, not on the spot", decidedAt: expect.stringMatching(/^\d{4}-/) },
+    ]);
+    // the timer decided nothing
+    actAs(timer);
+    expect(JSON.parse(await (await exportRoute()).text()).consentDecisions).toEqual([]);
   });
 });
 

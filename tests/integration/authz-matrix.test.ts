@@ -4,6 +4,7 @@ import { and, eq } from "drizzle-orm";
 import { fieldSessions, runs } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, getPool } from "./support/db";
+import { insertRun, insertSession } from "./support/records";
 import { ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
 
@@ -24,7 +25,8 @@ type Protected = {
   cast?: "seeded" | "fresh";
   query?: string;
   body?: (ctx: Ctx | null) => unknown;
-  params?: Record<string, string | string[]>;
+  /** The route's path parameters, or a function making the records they name for this cast. */
+  params?: Record<string, string | string[]> | ((cast: Cast) => Promise<Record<string, string>>);
   /** Checks on a 2xx reply beyond its status (what the actor got to see). */
   check?: (ctx: Ctx, res: Response) => Promise<void>;
 };
@@ -54,6 +56,17 @@ const exportsOwnAccountOnly = async (ctx: Ctx, res: Response) => {
   expect(data.account.id).toBe(ctx.user.id);
 };
 
+/** A run the other pilot recorded, flying lane 0 with the owner in lane 1; the owner's lane's path. */
+async function recordedForOwner(cast: Cast): Promise<Record<string, string>> {
+  const { owner, otherPilot } = cast;
+  const lanes = [{ pilotUserId: otherPilot.id, pilotName: otherPilot.name }, { pilotUserId: owner.id, pilotName: owner.name }];
+  return { runId: await insertRun(await insertSession(otherPilot.id), otherPilot.id, lanes), lane: "1" };
+}
+
+const decided = (status: string) => async (_ctx: Ctx, res: Response) => {
+  expect(((await res.json()) as { consent: { status: string } }).consent).toMatchObject({ lane: 1, status });
+};
+
 const ROWS: Record<string, Row> = {
   "GET /api/health": publicByDesign("a liveness probe for the process manager: says only whether the app reaches its database"),
   "POST /api/account/sign-up": publicByDesign("creating an account needs no account; the answer is the same for a taken address"),
@@ -65,10 +78,12 @@ const ROWS: Record<string, Row> = {
   "GET /api/sync/pull": signedIn({ query: "?cursor=0", check: seesOwnersRuns({ owner: true, coachWithGrant: true }) }),
   "POST /api/sync/push": ownerOnly({ body: () => ({ deviceId: "demo-phone-ada", sessions: [], runs: [], events: [] }) }),
   "GET /api/account/export": signedIn({ check: exportsOwnAccountOnly }),
-  // a run nobody recorded for anyone: 404 for every signed-in actor (the pilot's own 200 is in consent.test.ts)
+  // a run the other pilot recorded with the owner in lane 1: only the owner may decide on it (404 for
+  // everyone else, admin included: the decision is the pilot's alone); fresh cast, the demo records stay
   "POST /api/runs/[runId]/lanes/[lane]/consent": {
-    ...signedIn({ params: { runId: "01890000-0000-7000-8000-000000000000", lane: "0" }, body: () => ({ decision: "accepted" }) }),
-    expect: { ...everyone(404), signedOut: 401 },
+    ...ownerOnly({ params: recordedForOwner, body: () => ({ decision: "accepted" }), check: decided("accepted") }),
+    cast: "fresh",
+    expect: { ...everyone(404), signedOut: 401, owner: 200 },
   },
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
@@ -115,7 +130,8 @@ describe("authorisation matrix", () => {
     const handler = handlers.find((h) => h.key === key);
     expect(handler, `no handler for ${key}`).toBeDefined();
     const cast = row.cast === "fresh" ? await freshCast() : seeded;
-    const context = { params: Promise.resolve(row.params ?? {}) };
+    const params = typeof row.params === "function" ? await row.params(cast) : (row.params ?? {});
+    const context = { params: Promise.resolve(params) };
     const actual: Partial<Record<Actor, number>> = {};
     const expected: Partial<Record<Actor, Status>> = {};
     for (const actor of ACTORS) {

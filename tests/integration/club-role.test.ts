@@ -5,6 +5,7 @@ import { clubs, memberships, users } from "@/db/schema";
 import { requireClubRole } from "@/lib/auth/session";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
+import { clubScopedRouteFiles } from "./support/route-files";
 
 afterAll(async () => {
   await getPool().end();
@@ -48,5 +49,12 @@ describe("requireClubRole, the guard of every club-scoped route", () => {
     expect(await statusOf("not-a-club-id", "member")).toBe(403);
     actAs(c.admin);
     expect(await statusOf(c.clubId, "officer")).toBe(200);
+  });
+
+  it("guards every club-scoped route handler on disk (a club in the path, or a clubId read from the request)", () => {
+    // None exists yet (GET /api/club-mates is scoped by the caller's own memberships in its query):
+    // this fails the day a club route is added without the guard.
+    const unguarded = clubScopedRouteFiles().filter(({ source }) => !/\brequireClubRole\(/.test(source)).map(({ file }) => file);
+    expect(unguarded).toEqual([]);
   });
 });

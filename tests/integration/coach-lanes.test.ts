@@ -4,7 +4,7 @@ import { listChanges } from "@/db/queries/sync-pull";
 import { actAs } from "./support/session";
 import { db, demoUser, getPool } from "./support/db";
 import { decide, freshClub, grant, pullEverything, runItem } from "./consent-fixtures";
-import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
+import { pushingAs, T0 } from "./sync-fixtures";
 
 afterAll(async () => {
   await getPool().end();
@@ -15,10 +15,7 @@ describe("a coach sees a shared run lane by lane", () => {
     const ada = await demoUser("ada@example.com");
     const lena = await demoUser("lena@example.com");
     const mara = await demoUser("mara@example.com");
-    actAs(ada);
-    const phone = recorder(deviceId());
-    const s = session(ada.id);
-    const r = run(s.id, [
+    const { phone, run: r, send } = pushingAs(ada, [
       { lane: 0, pilotName: "Ada Fenwick", pilotUserId: ada.id },
       { lane: 1, pilotName: "Lena Strand", pilotUserId: lena.id },
     ]);
@@ -32,7 +29,7 @@ describe("a coach sees a shared run lane by lane", () => {
     ];
     const undo = phone.at(r.id, T0 + 202_000, { kind: "void", targetId: events.at(-1)!.id });
     const redo = phone.at(r.id, T0 + 203_000, { kind: "void", targetId: undo.id });
-    const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events: [...events, undo, redo] });
+    const res = await send([...events, undo, redo]);
     expect(res.body.acks.every((a) => a.status === "applied")).toBe(true);
 
     const items = await pullEverything(mara.id);
@@ -55,11 +52,8 @@ describe("a coach sees a shared run lane by lane", () => {
   it("a run a club mate recorded for the pilot reaches the coach only once the pilot accepts it, and the scope says so", async () => {
     const [tobi, ada, coach] = await freshClub(["Tobi", "Ada", "Coach"]);
     await grant(ada!, coach!);
-    actAs(tobi!);
-    const phone = recorder(deviceId());
-    const s = session(tobi!.id);
-    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
-    await push({ deviceId: phone.id, sessions: [s], runs: [r], events: [phone.at(r.id, T0, { kind: "window-start" }), ...phone.flights(r.id, 0, [60], T0 + 1000)] });
+    const { phone, run: r, send } = pushingAs(tobi!, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
+    await send([phone.at(r.id, T0, { kind: "window-start" }), ...phone.flights(r.id, 0, [60], T0 + 1000)]);
     const before = await listChanges(db, { userId: coach!.id, cursor: 0 });
     expect(runItem(await pullEverything(coach!.id), r.id)).toBeUndefined();
     actAs(ada!);

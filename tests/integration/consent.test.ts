@@ -4,27 +4,23 @@ import { eq } from "drizzle-orm";
 import { laneConsents, runLanes } from "@/db/schema";
 import { listRecentSessions } from "@/db/queries/sessions";
 import type { LaneDerived } from "@/lib/sync/types";
-import { actAs } from "./support/session";
+import { actAs, type MockSessionUser } from "./support/session";
 import { db, getPool } from "./support/db";
 import { decide, freshClub, pullEverything, runItem } from "./consent-fixtures";
-import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
+import { pushingAs, T0 } from "./sync-fixtures";
 
 afterAll(async () => {
   await getPool().end();
 });
 
 /** `keeper` times `pilot` (lane 0) at a session of the keeper's: two flights and a 1,000-point penalty. */
-async function timedBy(keeper: { id: string }, pilot: { id: string; name: string }) {
-  actAs(keeper as never);
-  const phone = recorder(deviceId());
-  const s = session(keeper.id);
-  const r = run(s.id, [{ lane: 0, pilotName: pilot.name, pilotUserId: pilot.id }]);
-  const events = [
+async function timedBy(keeper: MockSessionUser, pilot: { id: string; name: string }) {
+  const { phone, session: s, run: r, send } = pushingAs(keeper, [{ lane: 0, pilotName: pilot.name, pilotUserId: pilot.id }]);
+  const res = await send([
     phone.at(r.id, T0, { kind: "window-start" }),
     ...phone.flights(r.id, 0, [60, 120], T0 + 1000),
     phone.at(r.id, T0 + 300_000, { kind: "penalty", lane: 0, points: 1000, reason: "Because I could" }),
-  ];
-  const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events });
+  ]);
   expect(res.body.acks.every((a) => a.status === "applied")).toBe(true);
   return { sessionId: s.id, runId: r.id };
 }
@@ -68,6 +64,21 @@ describe("a run a club mate recorded for a pilot", () => {
     expect(runItem(tobiSees, third.runId)?.consents).toEqual([{ lane: 0, status: "hidden", reason: null }]);
     expect(await recentIds(tobi!.id)).toContain(third.sessionId);
     expect(runItem(await pullEverything(ada!.id), third.runId)?.consents?.[0]?.status).toBe("hidden");
+  });
+
+  it("a hidden run can be un-hidden: 'pending' takes the decision back, on the server and in every pull", async () => {
+    const [tobi, ada] = await freshClub(["Tobi", "Ada"]);
+    const { runId } = await timedBy(tobi!, ada!);
+    actAs(ada!);
+    expect((await decide(runId, 0, { decision: "hidden" })).status).toBe(200);
+    expect(await db.select().from(laneConsents).where(eq(laneConsents.runId, runId))).toHaveLength(1);
+    expect((await decide(runId, 0, { decision: "pending" })).body).toEqual({ consent: { lane: 0, status: "pending", reason: null } });
+    expect(await db.select().from(laneConsents).where(eq(laneConsents.runId, runId))).toEqual([]);
+    expect(runItem(await pullEverything(ada!.id), runId)?.consents).toEqual([{ lane: 0, status: "pending", reason: null }]);
+    expect(runItem(await pullEverything(tobi!.id), runId)?.consents).toEqual([{ lane: 0, status: "pending", reason: null }]);
+    // the recorder cannot take it back for her
+    actAs(tobi!);
+    expect((await decide(runId, 0, { decision: "pending" })).status).toBe(404);
   });
 
   it("only that lane's pilot may decide: 401 signed out, 404 for the recorder and anyone else, 409 for a run of one's own, 422 for a dispute without a reason", async () => {

@@ -9,7 +9,7 @@ import { GET as pullRoute } from "@/app/api/sync/pull/route";
 import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { actAs } from "./support/session";
 import { db, demoUser, getPool } from "./support/db";
-import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
+import { deviceId, push, pushingAs, recorder, run, session, T0 } from "./sync-fixtures";
 
 /** Issue #9: bodies are capped, every value fits its column, and a push answers item by item. */
 
@@ -105,13 +105,10 @@ describe("values the database cannot hold are refused, never a 500", () => {
 
   it("drops a clock estimate of 1.7e308 instead of storing Infinity; an event carrying it is refused alone", async () => {
     const ada = await demoUser("ada@example.com");
-    actAs(ada);
-    const phone = recorder(deviceId());
-    const s = session(ada.id);
-    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]);
+    const { phone, run: r, send } = pushingAs(ada);
     const absurd = { thetaMs: 1.7e308, deltaMs: 1.7e308, measuredAtWallMs: 1_767_000_000_000 };
     const e = phone.at(r.id, T0, { kind: "window-start" }, absurd);
-    const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events: [e], clockEstimates: [absurd] });
+    const res = await send([e], { clockEstimates: [absurd] });
     expect(res.status).toBe(200);
     expect(res.body.acks.find((a) => a.id === e.id)?.status).toBe("rejected");
     const stored = await db.execute(sql`select count(*)::int as n from device_clock_estimates where device_id = ${phone.id}`);
@@ -162,11 +159,8 @@ describe("per-item verdicts", () => {
 describe("growth caps", () => {
   it("refuses events beyond 20,000 in one run, with the reason", async () => {
     const ada = await freshUser("full"); // its own account: the 20,000 rows would slow every pull of a demo pilot
-    actAs(ada);
-    const phone = recorder(deviceId());
-    const s = session(ada.id);
-    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]);
-    await push({ deviceId: phone.id, sessions: [s], runs: [r], events: [] });
+    const { phone, run: r, send } = pushingAs(ada);
+    await send();
     const filler = `filler-${phone.id}`;
     await db.execute(sql`
       insert into events (id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id, corrected_ms)

@@ -2,6 +2,7 @@ import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { rateLimits } from "@/db/schema";
+import { signInPairKey } from "@/lib/auth/attempts";
 import { db, getPool } from "./support/db";
 import { freshAddress, makeAccount, withTrustProxy } from "./support/accounts";
 import { attempt, type Outcome } from "./support/sign-in";
@@ -108,7 +109,7 @@ describe("sign-in attempt limits (lib/auth/attempts.ts)", () => {
 
   it("after three failures a pair waits, and each wait doubles", async () => {
     const email = await makeAccount("waits", RIGHT);
-    const gate = `pair-gate:${email}|local`;
+    const gate = `pair-gate:${signInPairKey(email, null)}`;
     const waitLeft = async () => ((await db.select().from(rateLimits).where(eq(rateLimits.key, gate)))[0]?.expire ?? 0) - Date.now();
     const openGate = () => db.update(rateLimits).set({ expire: Date.now() - 1 }).where(eq(rateLimits.key, gate));
     await withTrustProxy(null, async () => {

@@ -6,6 +6,7 @@ import { getCatalogueTask } from "@/lib/tasks";
 import type { PushReply, PushRequest } from "@/lib/validations/sync";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { GET as pullRoute } from "@/app/api/sync/pull/route";
+import { actAs, type MockSessionUser } from "./support/session";
 
 /** Builders and route calls shared by the sync integration tests. */
 
@@ -59,6 +60,20 @@ export function recorder(id: string, opts: { thetaMs?: number; estimate?: ClockE
       return out;
     },
   };
+}
+
+/**
+ * "Push as this user": acts as `user` (the mocked session) with a fresh phone, a field session of
+ * theirs and a run in it (by default `user` flies lane 0 alone). `send(events, more)` pushes the
+ * session, the run and the events from that phone; `more` adds or replaces envelope fields.
+ */
+export function pushingAs(user: MockSessionUser, lanes?: RunEntity["lanes"]) {
+  actAs(user);
+  const phone = recorder(deviceId());
+  const s = session(user.id);
+  const r = run(s.id, lanes ?? [{ lane: 0, pilotName: user.name, pilotUserId: user.id }]);
+  const send = (events: RunEvent[] = [], more: Record<string, unknown> = {}) => push({ deviceId: phone.id, sessions: [s], runs: [r], events, ...more });
+  return { phone, session: s, run: r, send };
 }
 
 export const T0 = 1_767_000_100_000; // a working-time signal, on the server clock

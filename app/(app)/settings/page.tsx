@@ -4,6 +4,7 @@ import { ThemePicker } from "./_components/theme-picker";
 import { SignOutButton } from "./_components/sign-out-button";
 import { CalloutSettingsForm } from "./_components/callout-settings";
 import { AccountSettings } from "./_components/account-settings";
+import { SettingsSection } from "./_components/settings-section";
 
 export const metadata: Metadata = { title: "Settings" };
 
@@ -12,29 +13,20 @@ export default function SettingsPage() {
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-extrabold">Settings</h1>
-      <section aria-labelledby="theme-h" className="space-y-2">
-        <h2 id="theme-h" className="text-lg font-bold">
-          Screen
-        </h2>
+      <SettingsSection id="theme" title="Screen">
         <ThemePicker />
-      </section>
-      <section aria-labelledby="callouts-h" className="space-y-2">
-        <h2 id="callouts-h" className="text-lg font-bold">
-          Callouts
-        </h2>
+      </SettingsSection>
+      <SettingsSection id="callouts" title="Callouts">
         <CalloutSettingsForm />
-      </section>
+      </SettingsSection>
       <section className="space-y-2">
         <Link href="/cautions" className="font-bold underline">
           Safety cautions
         </Link>
       </section>
-      <section aria-labelledby="account-h" className="space-y-2">
-        <h2 id="account-h" className="text-lg font-bold">
-          Account
-        </h2>
+      <SettingsSection id="account" title="Account">
         <AccountSettings />
-      </section>
+      </SettingsSection>
       <SignOutButton />
     </div>
   );

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Suspense } from "react";
 import { SignInForm } from "./_components/sign-in-form";
+import { SignInNotice } from "./_components/sign-in-notice";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -10,6 +11,7 @@ export default function SignInPage() {
     <>
       <h1 className="text-xl font-bold">Sign in</h1>
       <Suspense>
+        <SignInNotice />
         <SignInForm />
       </Suspense>
       <p>

@@ -44,3 +44,14 @@ export function discoverServerActionFiles(): string[] {
     .map((f) => path.relative(ROOT, f).split(path.sep).join("/"))
     .sort();
 }
+
+/**
+ * Route files that are club-scoped: a path segment names a club (`/clubs/`, `[clubId]`, `[club]`)
+ * or the handler's source reads a `clubId` (from its body, query or params). Paths relative to the root.
+ */
+export function clubScopedRouteFiles(): { file: string; source: string }[] {
+  return walk(path.join(ROOT, "app/api"), (f) => /[\\/]route\.(ts|tsx|js)$/.test(f))
+    .map((f) => ({ file: path.relative(ROOT, f).split(path.sep).join("/"), source: readFileSync(f, "utf8") }))
+    .filter(({ file, source }) => /\/clubs?\/|\[club(Id|Slug)?\]/.test(file) || /\bclub_?[iI]d\b/.test(source))
+    .sort((a, b) => a.file.localeCompare(b.file));
+}

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { decideConsent } from "@/lib/offline/consent";
 import { getWindowcallDb } from "@/lib/offline/db";
-import type { ConsentDecision } from "@/lib/sync/consent";
+import type { ConsentChoice } from "@/lib/sync/consent";
 import { CONSENT_REASON_MAX } from "@/lib/sync/consent";
 import type { LaneConsent } from "@/lib/validations/consent";
 
@@ -13,12 +13,13 @@ const STANDING: Record<string, string> = {
   pending: "Not in your record until you accept it.",
   accepted: "You accepted it: it counts in your record.",
   disputed: "You disputed it: it does not count in your record.",
-  hidden: "You hid it.",
+  hidden: "You hid it: it is left out of your lists.",
 };
 
 /**
  * A run someone else recorded for the signed-in pilot: who recorded it, where it stands, and
- * accept / dispute (with a reason the recorder sees) / hide (lib/sync/consent.ts).
+ * accept / dispute (with a reason the recorder sees) / hide (lib/sync/consent.ts); a hidden one
+ * (listed with "Show hidden runs") can be un-hidden: it waits for a decision again.
  */
 export function ConsentBar({ runId, consent, recorder, label }: { runId: string; consent: LaneConsent; recorder: string; label: string }) {
   const [disputing, setDisputing] = useState(false);
@@ -26,7 +27,7 @@ export function ConsentBar({ runId, consent, recorder, label }: { runId: string;
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
 
-  async function decide(decision: ConsentDecision) {
+  async function decide(decision: ConsentChoice) {
     setBusy(true);
     setError(null);
     const failure = await decideConsent(getWindowcallDb(), (u, i) => fetch(u, i), { runId, lane: consent.lane, decision, reason: reason.trim() });
@@ -35,7 +36,7 @@ export function ConsentBar({ runId, consent, recorder, label }: { runId: string;
     else setDisputing(false);
   }
 
-  const offer = (["accepted", "disputed", "hidden"] as const).filter((d) => d !== consent.status);
+  const offer = consent.status === "hidden" ? (["pending"] as const) : (["accepted", "disputed", "hidden"] as const).filter((d) => d !== consent.status);
   return (
     <div role="group" aria-label={label} className={`space-y-2 rounded-lg border-2 p-3 ${consent.status === "accepted" ? "border-line" : "border-warn"}`} data-consent={consent.status}>
       <p>
@@ -64,8 +65,10 @@ export function ConsentBar({ runId, consent, recorder, label }: { runId: string;
               <Button key={d} type="button" disabled={busy} onClick={() => void decide("accepted")}>Accept</Button>
             ) : d === "disputed" ? (
               <Button key={d} type="button" variant="secondary" disabled={busy} onClick={() => setDisputing(true)}>Dispute</Button>
-            ) : (
+            ) : d === "hidden" ? (
               <Button key={d} type="button" variant="secondary" disabled={busy} onClick={() => void decide("hidden")}>Hide</Button>
+            ) : (
+              <Button key={d} type="button" disabled={busy} onClick={() => void decide("pending")}>Un-hide</Button>
             ),
           )}
         </div>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useLiveQuery } from "dexie-react-hooks";
+import { useState } from "react";
 import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import { secondsText } from "@/lib/field/display";
@@ -16,48 +17,68 @@ import { scoreStoredRun, taskTitle, type ScoredRun } from "./run-results";
 /**
  * Every session on this phone, newest first, with its runs and results (read from IndexedDB
  * only). A run someone else recorded for the pilot says so, with accept / dispute / hide; hidden
- * ones are left out, and so is a session whose every run is hidden.
+ * ones are left out, and so is a session whose every run is hidden, unless "Show hidden runs" is on.
  */
 export function LogbookList() {
+  const [showHidden, setShowHidden] = useState(false);
   const data = useLiveQuery(async () => {
     const db = getWindowcallDb();
     const me = (await getMeta(db, "profile"))?.id ?? null;
     const stored = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
     const all = await db.runs.where("sessionId").anyOf(stored.map((s) => s.id)).toArray();
-    const listed = all.filter((r) => listedInLogbook(r, me));
+    const hidden = all.filter((r) => !listedInLogbook(r, me)).length;
+    const listed = showHidden ? all : all.filter((r) => listedInLogbook(r, me));
     const events = await db.events.where("runId").anyOf(listed.map((r) => r.id)).toArray();
     // A window someone else set up for this pilot and never started is not theirs to see.
     const runs = listed.filter((r) => !r.recordedBy || r.recordedBy.id === me || wasStarted(events.filter((e) => e.runId === r.id)));
     const sessions = stored.filter((s) => runs.some((r) => r.sessionId === s.id) || !all.some((r) => r.sessionId === s.id));
-    return { sessions, runs, events, me, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
-  }, []);
+    return { sessions, runs, hidden, events, me, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
+  }, [showHidden]);
 
   if (!data) return <p aria-busy="true">Reading this phone’s logbook…</p>;
-  if (data.sessions.length === 0) {
-    return (
-      <div className="card space-y-2 rounded-xl border border-line bg-raised p-4">
-        <p className="font-semibold">Nothing in the logbook on this phone yet.</p>
-        <p className="text-muted">Time a window at the field — it works with no signal. Sessions timed on your other phones arrive here after they sync.</p>
-        <a href="/field" className="inline-flex min-h-touch items-center font-bold underline">
-          Go to the field
-        </a>
-      </div>
-    );
-  }
   const runsOf = (s: SessionEntity) => data.runs.filter((r) => r.sessionId === s.id).sort((a, b) => a.createdAtWallMs - b.createdAtWallMs);
   return (
-    <ol className="space-y-4" aria-label="Sessions">
-      {data.sessions.map((s) => (
-        <li key={s.id} className="card space-y-2 rounded-xl border border-line bg-raised p-4">
-          <h2 className="text-lg font-bold">{formatDate(new Date(s.startedAtWallMs))}</h2>
-          <p>
-            {s.fieldName}
-            <span className="block text-sm text-muted">{conditionsText(s.conditions)}</span>
-          </p>
-          <RunRows runs={runsOf(s)} data={data} />
-        </li>
-      ))}
-    </ol>
+    <div className="space-y-4">
+      {data.hidden > 0 || showHidden ? <HiddenToggle count={data.hidden} on={showHidden} set={setShowHidden} /> : null}
+      {data.sessions.length === 0 ? (
+        <EmptyLogbook />
+      ) : (
+        <ol className="space-y-4" aria-label="Sessions">
+          {data.sessions.map((s) => (
+            <li key={s.id} className="card space-y-2 rounded-xl border border-line bg-raised p-4">
+              <h2 className="text-lg font-bold">{formatDate(new Date(s.startedAtWallMs))}</h2>
+              <p>
+                {s.fieldName}
+                <span className="block text-sm text-muted">{conditionsText(s.conditions)}</span>
+              </p>
+              <RunRows runs={runsOf(s)} data={data} />
+            </li>
+          ))}
+        </ol>
+      )}
+    </div>
+  );
+}
+
+function EmptyLogbook() {
+  return (
+    <div className="card space-y-2 rounded-xl border border-line bg-raised p-4">
+      <p className="font-semibold">Nothing in the logbook on this phone yet.</p>
+      <p className="text-muted">Time a window at the field — it works with no signal. Sessions timed on your other phones arrive here after they sync.</p>
+      <a href="/field" className="inline-flex min-h-touch items-center font-bold underline">
+        Go to the field
+      </a>
+    </div>
+  );
+}
+
+/** "Show hidden runs": lists the runs recorded for the pilot that they hid, so they can un-hide one. */
+function HiddenToggle({ count, on, set }: { count: number; on: boolean; set: (on: boolean) => void }) {
+  return (
+    <label className="flex min-h-touch items-center gap-3 font-semibold">
+      <input type="checkbox" className="size-6" checked={on} onChange={(e) => set(e.target.checked)} />
+      Show hidden runs ({count})
+    </label>
   );
 }
 

@@ -2,7 +2,7 @@
 
 import { signOut } from "next-auth/react";
 import { getWindowcallDb } from "@/lib/offline/db";
-import { clearAccountOnDevice } from "@/lib/offline/sign-out";
+import { clearAccountOnDevice, endServerSession } from "@/lib/offline/sign-out";
 
 export type AccountReply = { ok: boolean; status: number; code?: string; message?: string; issues?: { path: string; message: string }[] };
 
@@ -31,7 +31,7 @@ export function fieldErrors<K extends string>(issues: { path: PropertyKey[] | st
  * loads the sign-in page afresh on the origin in use (a full load, so nothing stays in memory).
  */
 export async function signOutHere(query = ""): Promise<void> {
-  await signOut({ redirect: false }).catch(() => undefined);
+  await endServerSession(() => signOut({ redirect: false })); // offline: finished at the next request that reaches the server
   await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
   window.location.assign(new URL(`/sign-in${query}`, window.location.origin).href);
 }

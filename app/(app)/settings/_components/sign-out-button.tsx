@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { getWindowcallDb } from "@/lib/offline/db";
-import { clearAccountOnDevice, countKeptAtSignOut } from "@/lib/offline/sign-out";
+import { clearAccountOnDevice, countKeptAtSignOut, endServerSession } from "@/lib/offline/sign-out";
 
 /**
  * Signs out and clears this account from the phone (lib/offline/sign-out.ts), so the next person
@@ -21,7 +21,8 @@ export function SignOutButton() {
   async function finish() {
     setBusy(true);
     client.stop();
-    await signOut({ redirect: false }).catch(() => undefined); // offline: the local data is cleared all the same
+    // offline: the local data is cleared all the same, and the server session ends at the next request that reaches it
+    await endServerSession(() => signOut({ redirect: false }));
     await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
     // A full load on purpose: no memory of this account (query cache, sync client, screens) survives it.
     // eslint-disable-next-line @next/next/no-location-assign-relative-destination

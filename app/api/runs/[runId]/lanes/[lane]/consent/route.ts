@@ -1,4 +1,4 @@
-// POST /api/runs/[runId]/lanes/[lane]/consent — the lane's pilot accepts, disputes or hides a run someone else recorded for them
+// POST /api/runs/[runId]/lanes/[lane]/consent — the lane's pilot accepts, disputes or hides a run someone else recorded for them, or takes the decision back ("pending": un-hide)
 import { db } from "@/db";
 import { decideLaneConsent } from "@/db/queries/consent";
 import { parseJson, route } from "@/lib/api";
