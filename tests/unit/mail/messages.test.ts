@@ -36,7 +36,8 @@ describe("mail retry backoff", () => {
   it("waits one minute after the first failure, doubles, caps at six hours, then gives up", () => {
     expect(retryDelayMs(1)).toBe(60_000);
     expect(retryDelayMs(2)).toBe(120_000);
-    expect(retryDelayMs(9)).toBe(6 * 3600_000);
+    expect(retryDelayMs(9)).toBe(256 * 60_000);
+    expect(retryDelayMs(10)).toBe(6 * 3600_000);
     expect(retryDelayMs(MAX_MAIL_ATTEMPTS)).toBeNull();
   });
 });
