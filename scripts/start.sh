@@ -13,6 +13,7 @@ export DATABASE_URL="$(bash scripts/db.sh url windowcall)"
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 # Mail goes to the local SMTP fake unless SMTP_URL (environment or .env) names a real server.
 [ -z "${SMTP_URL:-}" ] && mail_up
+trap mail_stop_if_started EXIT # also when a step below fails
 npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 port_in_use "$PORT" && die "port $PORT is already taken: stop what runs there or run PORT=3100 npm start"
