@@ -32,6 +32,13 @@ function build() {
     signUpsUnseen: make("sign-up-unseen", 300, HOUR),
     /** Pushes per account: a phone pushes every few seconds at most; this is far above that. */
     pushes: make("push", 120, 60),
+    /** Password-reset requests per address, and of all callers together when no address is visible. */
+    resetRequests: make("reset-address", 10, HOUR),
+    resetRequestsUnseen: make("reset-unseen", 100, HOUR),
+    /** Password-reset requests per typed address (account or not): at most 5 reset e-mails an hour to one inbox. */
+    resetAccount: make("reset-account", 5, HOUR),
+    /** Account e-mails a signed-in user asks for (verification again, e-mail change): 5 an hour. */
+    accountMail: make("account-mail", 5, HOUR),
   };
 }
 

@@ -9,6 +9,8 @@ say "waiting for the e2e lock…"; flock 9
 ensure_chromium_installed
 bash scripts/db.sh up
 ensure_env_file
+mail_up
+trap mail_stop_if_started EXIT
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_e2e)"
 export E2E_PORT="${E2E_PORT:-$(free_port 3410)}"
 export NEXTAUTH_URL="http://localhost:$E2E_PORT"

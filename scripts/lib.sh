@@ -63,3 +63,41 @@ ensure_env_file() {
   fi
   set -a; . ./.env; set +a
 }
+
+# The local SMTP fake (scripts/mail-server.ts) for this checkout, on 127.0.0.1: started once and
+# reused while it runs (its pid and ports are in .data/mail). Exports SMTP_URL (the app sends there)
+# and DEV_MAILBOX_URL (its message list: /dev/mailbox and the tests read it). MAIL_STARTED=1 when this
+# call started it, so the caller stops it again with mail_stop_if_started.
+MAIL_DIR="$ROOT/.data/mail"
+MAIL_STARTED=0
+mail_running() {
+  [ -f "$MAIL_DIR/server.pid" ] && [ -f "$MAIL_DIR/ports" ] && kill -0 "$(cat "$MAIL_DIR/server.pid")" 2>/dev/null &&
+    port_in_use "$(cut -d' ' -f2 "$MAIL_DIR/ports")"
+}
+mail_up() {
+  mkdir -p "$MAIL_DIR"
+  if ! mail_running; then
+    local smtp http i
+    smtp="$(free_port "${WINDOWCALL_SMTP_PORT:-2525}")"
+    http="$(free_port "${WINDOWCALL_MAILBOX_PORT:-8025}")"
+    [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
+    MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR" \
+      setsid node --import tsx scripts/mail-server.ts >"$MAIL_DIR/server.log" 2>&1 </dev/null 9>&- &
+    echo $! > "$MAIL_DIR/server.pid"
+    echo "$smtp $http" > "$MAIL_DIR/ports"
+    for i in $(seq 1 100); do port_in_use "$http" && break; sleep 0.1; done
+    port_in_use "$http" || { cat "$MAIL_DIR/server.log" >&2; die "the local mail server did not start"; }
+    MAIL_STARTED=1
+    say "local mail server: SMTP on 127.0.0.1:$smtp, messages on http://127.0.0.1:$http"
+  fi
+  local ports; ports="$(cat "$MAIL_DIR/ports")"
+  export SMTP_URL="smtp://127.0.0.1:${ports%% *}"
+  export DEV_MAILBOX_URL="http://127.0.0.1:${ports##* }"
+}
+mail_stop_if_started() {
+  if [ "$MAIL_STARTED" = 1 ] && [ -f "$MAIL_DIR/server.pid" ]; then
+    kill -TERM "$(cat "$MAIL_DIR/server.pid")" 2>/dev/null || true
+    rm -f "$MAIL_DIR/server.pid" "$MAIL_DIR/ports"
+    MAIL_STARTED=0
+  fi
+}

@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray, isNotNull, ne, notExists, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import {
-  accounts, coachGrants, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
+  accounts, coachGrants, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
   syncRejections, users,
 } from "../schema";
 import { syncStamp } from "./sync-db";
@@ -55,12 +55,14 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
     await tx.delete(devices).where(eq(devices.userId, userId));
     await tx.delete(accounts).where(eq(accounts.userId, userId));
     await tx.delete(syncRejections).where(eq(syncRejections.userId, userId));
+    await tx.delete(emailTokens).where(eq(emailTokens.userId, userId)); // no link may act on the tombstone
     await tx
       .update(users)
       .set({
         email: sql`'deleted-' || ${users.id}::text || '@deleted.invalid'`,
         name: DELETED_PILOT_NAME,
         passwordHash: null,
+        emailVerifiedAt: null,
         role: "member",
         disabledAt: sql`now()`,
         deletedAt: sql`now()`,

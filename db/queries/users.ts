@@ -73,3 +73,37 @@ export async function updatePassword(db: Database, userId: string, passwordHash:
     .returning({ sessionVersion: users.sessionVersion });
   return row?.sessionVersion;
 }
+
+/** Marks the account's address verified, if it is still `email` (a link sent to an older address verifies nothing). */
+export async function markEmailVerified(db: Database, userId: string, email: string): Promise<boolean> {
+  const rows = await db
+    .update(users)
+    .set({ emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, now())` })
+    .where(and(eq(users.id, userId), eq(users.email, email)))
+    .returning({ id: users.id });
+  return rows.length > 0;
+}
+
+/** Whether the account's address is verified, for Settings. */
+export async function getEmailState(db: Database, userId: string): Promise<{ email: string; verified: boolean } | undefined> {
+  const [row] = await db.select({ email: users.email, verifiedAt: users.emailVerifiedAt }).from(users).where(eq(users.id, userId));
+  return row && { email: row.email, verified: row.verifiedAt !== null };
+}
+
+/**
+ * Moves the account to a confirmed new address (verified, since its owner followed a link sent there).
+ * Returns the old address, or "taken" when another account holds the new one (nothing changes then).
+ */
+export async function changeEmail(db: Database, userId: string, newEmail: string): Promise<{ oldEmail: string } | "taken" | undefined> {
+  const [taken] = await db.select({ id: users.id }).from(users).where(eq(users.email, newEmail));
+  if (taken) return taken.id === userId ? undefined : "taken";
+  const [before] = await db.select({ email: users.email }).from(users).where(eq(users.id, userId)).for("update");
+  if (!before) return undefined;
+  try {
+    await db.update(users).set({ email: newEmail, emailVerifiedAt: sql`now()` }).where(eq(users.id, userId));
+  } catch (error) {
+    if ((error as { cause?: { code?: string }; code?: string }).cause?.code === "23505" || (error as { code?: string }).code === "23505") return "taken";
+    throw error;
+  }
+  return { oldEmail: before.email };
+}

@@ -7,3 +7,4 @@ export * from "./events";
 export * from "./sync";
 export * from "./coaching";
 export * from "./limits";
+export * from "./mail";

@@ -13,6 +13,8 @@ export const users = pgTable("users", {
   deletedAt: timestamp("deleted_at", { withTimezone: true }),
   /** Session generation: every session token carries the value it was issued under; bumping it signs all of them out. */
   sessionVersion: integer("session_version").notNull().default(0),
+  /** When the owner followed the link mailed to this address; null = not verified (the account works anyway). */
+  emailVerifiedAt: timestamp("email_verified_at", { withTimezone: true }),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

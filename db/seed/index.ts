@@ -20,7 +20,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     const [club] = await tx.insert(clubs).values(DEMO_CLUB).returning();
     const ids = new Map<string, string>();
     for (const p of DEMO_PEOPLE) {
-      const [u] = await tx.insert(users).values({ email: p.email, name: p.name, passwordHash, role: p.globalRole }).returning();
+      const [u] = await tx.insert(users).values({ email: p.email, name: p.name, passwordHash, role: p.globalRole, emailVerifiedAt: new Date(SEASON_START) }).returning();
       ids.set(p.key, u!.id);
       if (p.clubRole) await tx.insert(memberships).values({ clubId: club!.id, userId: u!.id, role: p.clubRole });
     }

@@ -26,6 +26,30 @@ export async function pushLimit(userId: string): Promise<Response | null> {
   return tooMany("Too many sends from this account. The phone will try again shortly.", res.msBeforeNext);
 }
 
+/**
+ * Password-reset requests: per address (10 an hour; 100 for everyone together when no address is
+ * visible) and per typed e-mail, counted whether or not it has an account (5 an hour), so the limit
+ * tells nothing and nobody can flood an inbox with reset mail.
+ */
+export async function passwordResetLimit(request: Request, email: string): Promise<Response | null> {
+  const l = getLimiters();
+  const address = clientAddress(Object.fromEntries(request.headers));
+  const byAddress = address ? l.resetRequests : l.resetRequestsUnseen;
+  const a = await count(byAddress, address ?? "all");
+  if (a.consumedPoints > byAddress.points) return tooMany("Too many password resets from this network. Try again later.", a.msBeforeNext);
+  const b = await count(l.resetAccount, email);
+  if (b.consumedPoints > l.resetAccount.points) return tooMany("Too many password resets for this e-mail. Try again later.", b.msBeforeNext);
+  return null;
+}
+
+/** E-mails a signed-in user asks for (verification again, an e-mail change): 5 an hour per account. */
+export async function accountMailLimit(userId: string): Promise<Response | null> {
+  const limiter = getLimiters().accountMail;
+  const res = await count(limiter, userId);
+  if (res.consumedPoints <= limiter.points) return null;
+  return tooMany("Too many e-mails asked for this account. Try again later.", res.msBeforeNext);
+}
+
 function tooMany(message: string, retryAfterMs: number): Response {
   const body: ErrorBody = { error: { code: "rate_limited", message } };
   return Response.json(body, { status: 429, headers: { "retry-after": String(Math.max(1, Math.ceil(retryAfterMs / 1000))) } });

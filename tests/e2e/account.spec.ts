@@ -15,7 +15,7 @@ async function signUp(page: Page) {
   await page.getByLabel(/^Password/).fill(FIRST);
   await page.getByRole("button", { name: "Create account" }).click();
   // sign-up then asks for an ordinary sign-in (it reveals nothing about a taken address)
-  await expect(page.getByRole("status")).toHaveText("Done. Sign in with this e-mail and the password you chose.");
+  await expect(page.getByRole("status")).toHaveText(/^Check your e-mail: we have sent a message to .*You can sign in now with the password you chose/);
   await signInAs(page, email, FIRST);
   await expect(page.getByRole("heading", { name: "Hello, Swift" })).toBeVisible();
   // the sign-in left this browser's known-device cookie (lib/auth/known-device.ts): signed, httpOnly, Lax

@@ -40,7 +40,7 @@ test("a new user signs up, signs in and sees the empty state", async ({ page }) 
   await expect(page.getByText("Use at least 10 characters.")).toBeVisible();
   await page.getByLabel(/^Password/).fill("kestrel-over-the-ridge");
   await page.getByRole("button", { name: "Create account" }).click();
-  await expect(page.getByRole("status")).toHaveText("Done. Sign in with this e-mail and the password you chose.");
+  await expect(page.getByRole("status")).toHaveText(/^Check your e-mail: we have sent a message to .*You can sign in now with the password you chose/);
   await expect(page.getByLabel("E-mail")).toHaveValue(email);
   await page.getByLabel("Password").fill("kestrel-over-the-ridge");
   await page.getByRole("button", { name: "Sign in" }).click();

@@ -1,4 +1,5 @@
 import "./support/session";
+import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { fieldSessions, runs } from "@/db/schema";
@@ -67,6 +68,11 @@ const decided = (status: string) => async (_ctx: Ctx, res: Response) => {
   expect(((await res.json()) as { consent: { status: string } }).consent).toMatchObject({ lane: 1, status });
 };
 
+const showsOwnAddress = async (ctx: Ctx, res: Response) => {
+  const data = (await res.json()) as { email: string };
+  expect(data.email).toBe(ctx.user.email);
+};
+
 const ROWS: Record<string, Row> = {
   "GET /api/health": publicByDesign("a liveness probe for the process manager: says only whether the app reaches its database"),
   "POST /api/account/sign-up": publicByDesign("creating an account needs no account; the answer is the same for a taken address"),
@@ -88,6 +94,16 @@ const ROWS: Record<string, Row> = {
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),
+  "POST /api/account/verify-email": publicByDesign("the one-time token in the mailed link is the credential; opened wherever the mail is read"),
+  "POST /api/account/email/confirm": publicByDesign("the one-time token mailed to the new address is the credential"),
+  "POST /api/account/forgot-password": publicByDesign("whoever forgot their password cannot sign in; the answer is the same for any address"),
+  "POST /api/account/reset-password": publicByDesign("the one-time token mailed to the account's address is the credential"),
+  "GET /api/account/email": signedIn({ check: showsOwnAddress }),
+  "POST /api/account/verification": ownAccount({ body: () => ({}) }),
+  "POST /api/account/email": {
+    ...ownAccount({ body: () => ({ newEmail: `matrix-new-${randomUUID()}@example.com`, currentPassword: MATRIX_PASSWORD }) }),
+    expect: { ...everyone(202), signedOut: 401 },
+  },
 };
 
 /** Files declaring server actions, each with the test that checks its authorisation (none exist yet). */

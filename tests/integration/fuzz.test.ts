@@ -32,6 +32,12 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/account/password": { POST: "json" },
   "/api/account/sign-out-everywhere": { POST: "json" },
   "/api/account/sign-up": { POST: "json" },
+  "/api/account/email": { GET: "none", POST: "json" },
+  "/api/account/email/confirm": { POST: "json" },
+  "/api/account/forgot-password": { POST: "json" },
+  "/api/account/reset-password": { POST: "json" },
+  "/api/account/verification": { POST: "json" },
+  "/api/account/verify-email": { POST: "json" },
   "/api/admin/users": { GET: "none" },
   "/api/auth/[...nextauth]": {
     GET: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
@@ -98,6 +104,13 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/account") return { password: "thermal-hunter-42" };
   if (path === "/api/account/password") return { currentPassword: "thermal-hunter-42", newPassword: "launch-window-77" };
   if (path === "/api/account/sign-out-everywhere") return {};
+  // a well-formed token nobody issued: 404, nothing written; the fuzz user has no password, so a change of address is refused
+  const token = uuidv7().replace(/-/g, "").repeat(2).slice(0, 43);
+  if (path === "/api/account/verify-email" || path === "/api/account/email/confirm") return { token };
+  if (path === "/api/account/reset-password") return { token, password: "launch-window-77" };
+  if (path === "/api/account/forgot-password") return { email: `fuzz-${uuidv7()}@example.com` };
+  if (path === "/api/account/email") return { newEmail: `fuzz-${uuidv7()}@example.com`, currentPassword: "thermal-hunter-42" };
+  if (path === "/api/account/verification") return {};
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();

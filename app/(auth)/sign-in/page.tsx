@@ -15,6 +15,11 @@ export default function SignInPage() {
         <SignInForm />
       </Suspense>
       <p>
+        <Link href="/forgot-password" className="underline">
+          Forgot your password?
+        </Link>
+      </p>
+      <p>
         New here?{" "}
         <Link href="/sign-up" className="font-bold underline">
           Create an account

@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { accountRequest, signOutHere } from "./account-request";
 import { ChangePasswordForm } from "./change-password-form";
 import { DeleteAccountForm } from "./delete-account-form";
+import { EmailSettings } from "./email-settings";
 
 /**
  * The Settings page's account section. The page is precached for the field, so this half is a
@@ -30,6 +31,7 @@ export function AccountSettings() {
       <p>
         Signed in as <span className="font-bold">{user.name}</span> ({user.email})
       </p>
+      <EmailSettings />
       <ChangePasswordForm email={user.email} />
       <div className="space-y-2">
         <h3 className="font-bold">Sign out everywhere</h3>

@@ -10,9 +10,10 @@ type Errors = Partial<Record<"name" | "email" | "password" | "form", string>>;
 
 /**
  * Name, e-mail, password; validated here and again on the server with the same schema. The server
- * answers the same whether or not the address was taken, and so does this page: it never signs in by
- * itself (a taken address would fail where a new one succeeds) but asks for an ordinary sign-in, which
- * answers like any other. Until e-mail confirmation exists, that sign-in is where a taken address shows.
+ * answers the same whether or not the address was taken (and mails either a verification link or, to
+ * the owner of a taken address, a notice), and so does this page: "check your e-mail", then an
+ * ordinary sign-in form. It never signs in by itself (a taken address would fail where a new one
+ * succeeds); the sign-in answers a taken address's wrong password like any other wrong password.
  */
 export function SignUpForm() {
   const [errors, setErrors] = useState<Errors>({});
@@ -47,7 +48,8 @@ export function SignUpForm() {
     return (
       <div className="space-y-4">
         <p role="status" className="font-semibold">
-          Done. Sign in with this e-mail and the password you chose.
+          Check your e-mail: we have sent a message to {made}. You can sign in now with the password you chose; confirm your
+          address from that message when you have a connection.
         </p>
         <Suspense>
           <SignInForm initialEmail={made} />

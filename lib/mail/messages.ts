@@ -1,0 +1,52 @@
+import { compose, type Mail } from "./layout";
+
+/**
+ * Every message the app sends, built from plain data (pure). All of these are transactional (about
+ * the reader's own account), so none carries an unsubscribe line; see layout.ts for those that do.
+ */
+
+export function verifyEmailMail(input: { name: string; link: string }): Mail {
+  return compose("verify-email", "Confirm your e-mail address", [
+    `Hello ${input.name},`,
+    "Welcome to Windowcall. Please confirm that this is your e-mail address, so you can reset your password if you ever forget it:",
+    { link: input.link, label: "Confirm my e-mail address" },
+    "The link works once, for 48 hours. Your account works already; if you did not create it, ignore this message.",
+  ]);
+}
+
+/** To the owner of an address someone tried to sign up with: nothing was changed. */
+export function signUpAttemptMail(input: { resetLink: string }): Mail {
+  return compose("sign-up-attempt", "Someone tried to create an account with your address", [
+    "Someone (perhaps you) tried to create a Windowcall account with this e-mail address. You already have an account, so nothing was created and nothing in your account changed.",
+    "If it was you and you forgot your password, you can choose a new one:",
+    { link: input.resetLink, label: "Reset my password" },
+    "If it was not you, you need not do anything.",
+  ]);
+}
+
+export function resetPasswordMail(input: { link: string; minutes: number }): Mail {
+  return compose("reset-password", "Reset your password", [
+    "Someone (we hope you) asked to reset the password of the Windowcall account with this e-mail address.",
+    { link: input.link, label: "Choose a new password" },
+    `The link works once, for ${input.minutes} minutes. Choosing a new password signs your account out on every other phone and browser. If you did not ask, ignore this message: your password stays as it is.`,
+  ]);
+}
+
+/** To the new address of an e-mail change: the change happens only when this link is followed. */
+export function confirmNewEmailMail(input: { name: string; newEmail: string; link: string }): Mail {
+  return compose("confirm-new-email", "Confirm your new e-mail address", [
+    `Hello ${input.name},`,
+    `You asked to change the e-mail address of your Windowcall account to ${input.newEmail}. Confirm it here:`,
+    { link: input.link, label: "Confirm my new address" },
+    "The link works once, for 24 hours. Until then your account keeps its old address.",
+  ]);
+}
+
+/** To the old address once an e-mail change is confirmed. */
+export function emailChangedMail(input: { newEmail: string; resetLink: string }): Mail {
+  return compose("email-changed", "Your e-mail address was changed", [
+    `The e-mail address of your Windowcall account was changed to ${input.newEmail}. You will sign in with the new address from now on.`,
+    "If you did not do this, someone may know your password. Reset it from the sign-in page and tell your club:",
+    { link: input.resetLink, label: "Reset my password" },
+  ]);
+}
