@@ -37,7 +37,8 @@ export default defineConfig([
   ...nextTs,
   {
     files: ["lib/**/*.ts"],
-    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**"],
+    // lib/mail/server/ sends mail (SMTP connection, queue drain, timer): server I/O guarded by server-only, like lib/auth.
+    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**", "lib/mail/server/**"],
     rules: {
       "no-restricted-imports": [
         "error",

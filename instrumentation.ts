@@ -5,7 +5,7 @@
  */
 export async function register() {
   if (process.env.NEXT_RUNTIME === "nodejs") {
-    const { startMailTimer } = await import("./lib/mail/timer");
+    const { startMailTimer } = await import("./lib/mail/server/timer");
     startMailTimer();
   }
 }

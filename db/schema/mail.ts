@@ -2,7 +2,7 @@ import { index, integer, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-c
 import { users } from "./users";
 
 /**
- * Outgoing e-mail, sent by lib/mail/drain.ts through SMTP. A request only inserts a row, so it never
+ * Outgoing e-mail, sent by lib/mail/server/drain.ts through SMTP. A request only inserts a row, so it never
  * waits on the mail server; a failed send stays here with `last_error` and is tried again at
  * `next_attempt_at` (backoff), until `sent_at` is set or the attempts run out.
  */

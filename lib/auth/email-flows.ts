@@ -5,7 +5,7 @@ import { changeEmail, getUserByEmail, markEmailVerified, updatePassword } from "
 import { AppError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
 import { confirmNewEmailMail, emailChangedMail, resetPasswordMail, signUpAttemptMail, verifyEmailMail } from "@/lib/mail/messages";
-import { sendMail } from "@/lib/mail/send";
+import { sendMail } from "@/lib/mail/server/send";
 import { hashEmailToken, newEmailToken, TOKEN_TTL_MS } from "./email-tokens";
 
 /**

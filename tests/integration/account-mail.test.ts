@@ -8,7 +8,7 @@ import { POST as resendRoute } from "@/app/api/account/verification/route";
 import { POST as forgotRoute } from "@/app/api/account/forgot-password/route";
 import { POST as resetRoute } from "@/app/api/account/reset-password/route";
 import { hashEmailToken } from "@/lib/auth/email-tokens";
-import { drainMailQueue } from "@/lib/mail/drain";
+import { drainMailQueue } from "@/lib/mail/server/drain";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
 import { freshAddress, makeAccount, withTrustProxy } from "./support/accounts";
@@ -25,7 +25,7 @@ afterAll(async () => {
 const PASSWORD = "thermal-column-26";
 /**
  * Calls a route handler as a request from its own address; then sends what it queued, as after() does
- * in the server (a handler called outside a request only queues: lib/mail/send.ts).
+ * in the server (a handler called outside a request only queues: lib/mail/server/send.ts).
  */
 const post = async (handler: (r: Request) => Promise<Response>, body: unknown, from = freshAddress()) => {
   const res = await withTrustProxy("1", () =>

@@ -4,7 +4,7 @@ import { eq } from "drizzle-orm";
 import { users } from "@/db/schema";
 import { GET as emailState, POST as changeRoute } from "@/app/api/account/email/route";
 import { POST as confirmRoute } from "@/app/api/account/email/confirm/route";
-import { drainMailQueue } from "@/lib/mail/drain";
+import { drainMailQueue } from "@/lib/mail/server/drain";
 import { hashPassword } from "@/lib/auth/password";
 import { actAs } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";

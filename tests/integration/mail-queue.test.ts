@@ -3,7 +3,7 @@ import { createServer, type Server } from "node:net";
 import { eq } from "drizzle-orm";
 import { mailQueue } from "@/db/schema";
 import { enqueueMail } from "@/db/queries/mail-queue";
-import { drainMailQueue } from "@/lib/mail/drain";
+import { drainMailQueue } from "@/lib/mail/server/drain";
 import { verifyEmailMail } from "@/lib/mail/messages";
 import { db, getPool } from "./support/db";
 import { waitForMail } from "./support/mailbox";

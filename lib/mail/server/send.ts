@@ -3,7 +3,7 @@ import { after } from "next/server";
 import { db } from "@/db";
 import { enqueueMail } from "@/db/queries/mail-queue";
 import { drainMailQueue } from "./drain";
-import type { Mail } from "./layout";
+import type { Mail } from "../layout";
 
 /**
  * Queues a message for `to` and drains the queue once the response has gone (Next's after()), so a

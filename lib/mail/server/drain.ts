@@ -1,7 +1,7 @@
 import "server-only";
 import { db } from "@/db";
 import { claimDueMail, markMailFailed, markMailSent } from "@/db/queries/mail-queue";
-import { MAX_MAIL_ATTEMPTS, retryDelayMs } from "./backoff";
+import { MAX_MAIL_ATTEMPTS, retryDelayMs } from "../backoff";
 import { mailFrom, mailTransport } from "./transport";
 
 const LEASE_MS = 5 * 60_000;
