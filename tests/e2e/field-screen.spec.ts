@@ -125,3 +125,20 @@ test("home's recent sessions open that session in the logbook", async ({ page })
   await expect(sessions.first().getByRole("heading", { level: 2 })).toHaveText(date);
   await expect(sessions.first()).toContainText("Five Acre Meadow");
 });
+
+test("sign-in and sign-up say what is wrong beside the field, in plain words", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill("not-an-address");
+  await page.getByLabel("Password").fill("whatever-it-is");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByLabel("E-mail")).toHaveAttribute("aria-invalid", "true");
+  await expect(page.getByLabel("E-mail")).toHaveAccessibleDescription("Enter a valid e-mail address.");
+
+  await page.goto("/sign-up");
+  await page.getByRole("button", { name: "Create account" }).click();
+  await expect(page.getByLabel("Name")).toHaveAccessibleDescription("Enter your name.");
+  await expect(page.getByLabel("E-mail")).toHaveAccessibleDescription("Enter a valid e-mail address.");
+  await expect(page.getByLabel(/^Password/)).toHaveAccessibleDescription("Use at least 10 characters.");
+  await page.getByLabel(/^Password/).fill("aaaaaaaaaaaa");
+  await expect(page.getByLabel(/^Password/)).toHaveAccessibleDescription("Use a less repetitive password."); // re-checked as typed
+});
