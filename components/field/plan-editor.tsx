@@ -1,12 +1,14 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
 import { v7 as uuidv7 } from "uuid";
 import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { TextField } from "@/components/ui/field";
-import { PLAN_ITEMS_MAX, planDraftErrors, practicePlanSchema } from "@/lib/field/practice-plan";
+import { PLAN_ITEMS_MAX, planDraftSchema, practicePlanSchema, type PlanDraft } from "@/lib/field/practice-plan";
 import { getWindowcallDb } from "@/lib/offline/db";
 import { isQuotaError } from "@/lib/offline/storage";
 import { getCatalogueTask, type TaskDefinition, type TaskLetter } from "@/lib/tasks";
@@ -46,27 +48,28 @@ export function PlanEditor() {
   );
 }
 
+/** A title and the tasks in order (react-hook-form with the zod resolver: each message beside its field). */
 function NewPlanForm({ onDone }: { onDone: () => void }) {
   const options = catalogueOptions();
-  const [title, setTitle] = useState("");
   const [pick, setPick] = useState<TaskKey>(options[0]?.key ?? "A:600");
-  const [items, setItems] = useState<TaskDefinition[]>([]);
-  const [errors, setErrors] = useState<{ title?: string; items?: string; save?: string }>({});
+  const [saveError, setSaveError] = useState<string | null>(null);
+  const { register, control, setValue, handleSubmit, formState } = useForm<PlanDraft>({ resolver: zodResolver(planDraftSchema), defaultValues: { title: "", items: [] } });
+  const items = useWatch({ control, name: "items" });
+  const errors = { title: formState.errors.title?.message, items: formState.errors.items?.message ?? formState.errors.items?.root?.message };
+  const setItems = (next: TaskDefinition[]) => setValue("items", next, { shouldValidate: formState.isSubmitted });
 
   const add = () => {
     const [letter, variant] = pick.split(":");
     setItems([...items, getCatalogueTask(letter as TaskLetter, Number(variant))]);
-    setErrors({ ...errors, items: undefined });
   };
-  const save = async () => {
-    const problems = planDraftErrors({ title, items });
-    if (problems) return setErrors(problems);
+  const save = async (draft: PlanDraft) => {
+    setSaveError(null);
     try {
-      const plan = practicePlanSchema.parse({ id: uuidv7(), title, items, createdAtWallMs: Date.now() });
+      const plan = practicePlanSchema.parse({ id: uuidv7(), ...draft, createdAtWallMs: Date.now() });
       await getWindowcallDb().plans.add(plan);
       onDone();
     } catch (e) {
-      setErrors({ save: isQuotaError(e) ? "The phone's storage is full: the plan was not saved." : `The plan was not saved: ${e instanceof Error ? e.message : String(e)}` });
+      setSaveError(isQuotaError(e) ? "The phone's storage is full: the plan was not saved." : `The plan was not saved: ${e instanceof Error ? e.message : String(e)}`);
     }
   };
 
@@ -76,18 +79,15 @@ function NewPlanForm({ onDone }: { onDone: () => void }) {
       <form
         className="space-y-4"
         noValidate
-        onSubmit={(e) => {
-          e.preventDefault();
-          void save();
-        }}
+        onSubmit={(e) => void handleSubmit(save)(e)}
       >
-        <TextField id="plan-title" label="Plan title" value={title} maxLength={120} onChange={(e) => setTitle(e.target.value)} error={errors.title} />
+        <TextField id="plan-title" label="Plan title" maxLength={120} {...register("title")} error={errors.title} />
         <div className="space-y-1">
           <label htmlFor="plan-task" className="block font-semibold">
             Task to add
           </label>
           <div className="flex gap-2">
-            <select id="plan-task" value={pick} onChange={(e) => setPick(e.target.value as TaskKey)} className="min-h-touch min-w-0 flex-1 rounded-lg border-2 border-line bg-raised px-2 text-base text-ink">
+            <select id="plan-task" aria-invalid={errors.items ? true : undefined} aria-describedby={errors.items ? "plan-items-error" : undefined} value={pick} onChange={(e) => setPick(e.target.value as TaskKey)} className="min-h-touch min-w-0 flex-1 rounded-lg border-2 border-line bg-raised px-2 text-base text-ink">
               {options.map(({ key, def }) => (
                 <option key={key} value={key}>
                   {taskTitle(def)}
@@ -116,10 +116,14 @@ function NewPlanForm({ onDone }: { onDone: () => void }) {
         ) : (
           <p className="text-muted">No tasks added yet.</p>
         )}
-        {errors.items ? <p className="font-semibold text-danger">{errors.items}</p> : null}
-        {errors.title || errors.items || errors.save ? (
+        {errors.items ? (
+          <p id="plan-items-error" className="font-semibold text-danger">
+            {errors.items}
+          </p>
+        ) : null}
+        {errors.title || errors.items || saveError ? (
           <p role="alert" className="rounded-lg border-2 border-danger p-3 font-semibold text-danger">
-            {errors.save ?? "The plan was not saved: fix the marked entries."}
+            {saveError ?? "The plan was not saved: fix the marked entries."}
           </p>
         ) : null}
         <div className="grid grid-cols-2 gap-2">

@@ -142,3 +142,14 @@ test("sign-in and sign-up say what is wrong beside the field, in plain words", a
   await page.getByLabel(/^Password/).fill("aaaaaaaaaaaa");
   await expect(page.getByLabel(/^Password/)).toHaveAccessibleDescription("Use a less repetitive password."); // re-checked as typed
 });
+
+test("a practice plan's form ties each message to its field", async ({ page }) => {
+  await signInAs(page, "ada@example.com");
+  await page.goto("/field");
+  await page.getByRole("button", { name: "New plan" }).click();
+  await page.getByRole("button", { name: "Save plan" }).click();
+  await expect(page.getByLabel("Plan title")).toHaveAccessibleDescription("Give the plan a title.");
+  await expect(page.getByLabel("Task to add")).toHaveAccessibleDescription("Add at least one task to the plan.");
+  await page.getByRole("button", { name: "Add", exact: true }).click();
+  await expect(page.getByLabel("Task to add")).toHaveAccessibleDescription(""); // re-checked at once
+});
