@@ -24,7 +24,8 @@ export function LaneBoard({ lanes, onTap }: Props) {
               <span className="truncate font-bold">
                 <span className="figures">{lane.lane + 1}</span> {pilotName}
               </span>
-              <span className="figures font-bold" aria-label={`Result ${secondsText(lane.resultTenths)} s`}>
+              <span className="figures font-bold">
+                <span className="sr-only">result </span>
                 {secondsText(lane.resultTenths)}
               </span>
             </p>
