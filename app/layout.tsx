@@ -2,7 +2,6 @@ import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { headers } from "next/headers";
 import type { ReactNode } from "react";
-import { Providers } from "@/components/providers";
 import { ThemeScript } from "@/components/shell/theme-script";
 import "./globals.css";
 
@@ -42,7 +41,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
         <ThemeScript nonce={nonce} />
       </head>
       <body className="min-h-dvh font-sans antialiased">
-        <Providers>{children}</Providers>
+        {children}
       </body>
     </html>
   );
