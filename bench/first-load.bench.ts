@@ -56,7 +56,11 @@ function firstLoad(html: string, link: string) {
 }
 
 const port = await freePort();
-const server = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", String(port)], { stdio: "ignore", env: { ...process.env, NEXTAUTH_URL: `http://127.0.0.1:${port}` } });
+// next's own binary (not npx), so stopping it stops the server itself
+const server = spawn(join(process.cwd(), "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
+  stdio: "ignore",
+  env: { ...process.env, NEXTAUTH_URL: `http://127.0.0.1:${port}` },
+});
 try {
   const base = `http://127.0.0.1:${port}`;
   for (let i = 0; ; i++) {
