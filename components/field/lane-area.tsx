@@ -4,6 +4,7 @@ import { TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/events/entities";
 import { TARGET_SHOWN_WITHIN_MS, type LaneLive, type LiveState, type TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
+import { LaneBoard, type BoardLane } from "./lane-board";
 import { LanePanel } from "./lane-panel";
 import { LaneTools } from "./lane-tools";
 import { NextAttemptControl } from "./next-attempt";
@@ -13,13 +14,24 @@ import type { useRunActions } from "./use-run-actions";
 
 type Props = { task: TaskDefinition; live: LiveState; lanes: readonly RunLane[]; actions: ReturnType<typeof useRunActions> };
 
-/** Every lane of the window (one pilot each, up to four) and the closing control. */
+/**
+ * Every lane of the window (one pilot each, up to four) and the closing control. With several
+ * lanes, their controls sit together on the board at the top (within reach without scrolling),
+ * and each lane's panel below holds the rest.
+ */
 export function LaneArea({ task, live, lanes, actions }: Props) {
   const solo = lanes.length === 1;
   const over = live.phase === "ended";
   const anyInAir = live.lanes.some((l) => l.currentFlightMs !== null);
+  const board: BoardLane[] = solo
+    ? []
+    : lanes.flatMap((l) => {
+        const lane = live.lanes[l.lane];
+        return lane ? [{ lane, label: `Lane ${l.lane + 1} · ${l.pilotName}`, pilotName: l.pilotName, showControl: !over || lane.currentFlightMs !== null }] : [];
+      });
   return (
     <div className="space-y-5">
+      {solo ? null : <LaneBoard lanes={board} onTap={(lane, t) => void actions.tap(lane, t)} />}
       {lanes.map((l) => {
         const lane = live.lanes[l.lane];
         if (!lane) return null;
@@ -64,7 +76,7 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
                 onEndCall={(t) => void actions.endCall(l.lane, t)}
               />
             ) : null}
-            control={showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
+            control={solo && showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
             tools={tools}
             list={solo ? list : <details><summary className="min-h-12 cursor-pointer py-3 font-bold">Flights and fixes</summary>{list}</details>}
           />

@@ -103,8 +103,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
           {recorder.error.message}
         </div>
       ) : null}
-      {open ? <WakeLockNote state={wake} /> : null}
-      {open ? <CalloutCaption callout={callouts.last} /> : null}
+      {open && laneCount === 1 ? <WakeLockNote state={wake} /> : null}
+      {open && laneCount === 1 ? <CalloutCaption callout={callouts.last} /> : null}
       <p aria-live="assertive" className="sr-only" data-testid="announcer">
         {said.text}
         {said.n % 2 ? "\u200b" : ""}
@@ -123,10 +123,13 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
         </>
       ) : (
         <>
-          <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} />
+          <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} compact={laneCount > 1} />
           <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} />
         </>
       )}
+      {/* several lanes: the notes go below, so every lane's control stays in reach */}
+      {open && laneCount > 1 ? <CalloutCaption callout={callouts.last} /> : null}
+      {open && laneCount > 1 ? <WakeLockNote state={wake} /> : null}
       <details className="rounded-xl border-2 border-line p-3">
         <summary className="min-h-12 cursor-pointer py-3 font-bold">Corrections and undo log</summary>
         <CorrectionsList events={recorder.events} lanes={run.lanes} deviceId={deviceId} names={profile ? { [profile.id]: profile.name } : undefined} />

@@ -1,6 +1,8 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
+import { FormProvider, useForm, useWatch } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { planNewWindow, type NewWindowErrors, type WhoFlies } from "@/lib/field/new-window";
 import { catalogueChoiceOf, planProgressKey, progressAfter } from "@/lib/field/practice-plan";
@@ -9,7 +11,8 @@ import { getWindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
 import { isQuotaError } from "@/lib/offline/storage";
 import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings, type RuleSettings, type TaskLetter } from "@/lib/tasks";
-import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput, type CustomDraft } from "./custom-task-fields";
+import { newWindowFormSchema, type NewWindowForm as FormValues } from "@/lib/validations/new-window-form";
+import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput } from "./custom-task-fields";
 import { PlaceFields } from "./place-fields";
 import { RuleSettingsFields } from "./rule-settings-fields";
 import { PlanTaskChooser, TaskChooser, type PlanPick, type TaskKey } from "./task-chooser";
@@ -31,20 +34,26 @@ function NewWindowFormInner() {
   const { profile, loading } = useFieldProfile();
   const mates = useClubMates();
   const notify = useNotifyWrite();
-  const [fieldName, setFieldName] = useState(() => localStorage.getItem(LAST_FIELD_KEY) ?? "");
+  // The typed fields go through react-hook-form and the zod schema (messages beside each field);
+  // who flies, the position and a plan's task are richer choices kept in state.
+  const form = useForm<FormValues>({
+    resolver: zodResolver(newWindowFormSchema),
+    defaultValues: { fieldName: localStorage.getItem(LAST_FIELD_KEY) ?? "", windMs: "", gustMs: "", temperatureC: "", notes: "", taskKey: "H:600", custom: EMPTY_CUSTOM, prepMin: "", noFly: false },
+  });
+  const { register, control, setValue, handleSubmit, formState } = form;
+  const fe = formState.errors;
   const [position, setPosition] = useState<{ lat: number; lon: number } | null>(null);
-  const [cond, setCond] = useState({ windMs: "", gustMs: "", temperatureC: "", notes: "" });
   const [who, setWho] = useState<WhoFlies>({ mode: "me" });
-  const [taskKey, setTaskKey] = useState<TaskKey>("H:600");
-  const [custom, setCustom] = useState<CustomDraft>(EMPTY_CUSTOM);
   const [planPick, setPlanPick] = useState<PlanPick | null>(null);
   const [settings, setSettings] = useState<RuleSettings>(DEFAULT_RULE_SETTINGS);
-  const [prepMin, setPrepMin] = useState("");
-  const [noFly, setNoFly] = useState(false);
   const [errors, setErrors] = useState<NewWindowErrors & { save?: string }>({});
   const [busy, setBusy] = useState(false);
+  const taskKey = useWatch({ control, name: "taskKey" }) as TaskKey;
+  const fieldName = useWatch({ control, name: "fieldName" });
 
-  const submit = async () => {
+  const submit = async (values: FormValues) => {
+    const { windMs, gustMs, temperatureC, notes, custom, prepMin, noFly } = values;
+    const cond = { windMs, gustMs, temperatureC, notes };
     if (!profile) return setErrors({ save: "Sign in once with signal on this phone; after that the field timer works with none." });
     const [letter, variant] = taskKey.split(":");
     // A plan item is a catalogue task: it is checked as one, and its stored definition becomes the run's task.
@@ -53,7 +62,7 @@ function NewWindowFormInner() {
     if (taskKey === "plan" && !planChoice) return setErrors({ task: planPick ? "This plan task has no rulebook letter; choose another." : "Choose a practice plan and one of its tasks." });
     const task = planChoice ? { source: "catalogue" as const, ...planChoice } : taskKey === "custom" ? { source: "custom" as const, input: toCustomInput(custom) } : { source: "catalogue" as const, letter: letter as TaskLetter, variant: Number(variant) };
     const wallNow = Date.now();
-    const out = planNewWindow({ fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow, mates);
+    const out = planNewWindow({ fieldName: values.fieldName, position, ...cond, who, task, prepMin, noFly }, profile, wallNow, mates);
     if (!out.ok) return setErrors(out.errors);
     if (planItem) out.plan.run.task = structuredClone(planItem) as unknown as Record<string, unknown>;
     const parsed = taskDefinitionSchema.safeParse(out.plan.run.task);
@@ -78,29 +87,36 @@ function NewWindowFormInner() {
     }
   };
 
-  const problems = Object.values(errors).filter(Boolean);
+  const problems = [...Object.values(errors).filter(Boolean), ...Object.keys(fe)];
   return (
+    <FormProvider {...form}>
     <form
       className="space-y-6"
       noValidate
       onSubmit={(e) => {
-        e.preventDefault();
-        void submit();
+        setErrors({});
+        void handleSubmit(submit)(e);
       }}
     >
-      <PlaceFields fieldName={fieldName} onFieldName={setFieldName} position={position} onPosition={setPosition} error={errors.fieldName} />
+      <PlaceFields
+        fieldName={fieldName}
+        onFieldName={(v) => setValue("fieldName", v, { shouldValidate: formState.isSubmitted })}
+        position={position}
+        onPosition={setPosition}
+        error={fe.fieldName?.message ?? errors.fieldName}
+      />
       <fieldset className="space-y-3">
         <legend className="text-lg font-bold">Conditions (optional)</legend>
         <div className="grid grid-cols-3 gap-2">
-          <TextField id="wind" label="Wind m/s" inputMode="decimal" value={cond.windMs} onChange={(e) => setCond({ ...cond, windMs: e.target.value })} error={errors.windMs} />
-          <TextField id="gusts" label="Gusts m/s" inputMode="decimal" value={cond.gustMs} onChange={(e) => setCond({ ...cond, gustMs: e.target.value })} error={errors.gustMs} />
-          <TextField id="temp" label="Temp °C" inputMode="decimal" value={cond.temperatureC} onChange={(e) => setCond({ ...cond, temperatureC: e.target.value })} error={errors.temperatureC} />
+          <TextField id="wind" label="Wind m/s" inputMode="decimal" {...register("windMs")} error={fe.windMs?.message ?? errors.windMs} />
+          <TextField id="gusts" label="Gusts m/s" inputMode="decimal" {...register("gustMs")} error={fe.gustMs?.message ?? errors.gustMs} />
+          <TextField id="temp" label="Temp °C" inputMode="decimal" {...register("temperatureC")} error={fe.temperatureC?.message ?? errors.temperatureC} />
         </div>
-        <TextField id="notes" label="Notes" value={cond.notes} onChange={(e) => setCond({ ...cond, notes: e.target.value })} />
+        <TextField id="notes" label="Notes" {...register("notes")} error={fe.notes?.message} />
       </fieldset>
       <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} mates={mates} error={errors.who} />
-      <TaskChooser value={taskKey} onChange={setTaskKey} />
-      {taskKey === "custom" ? <CustomTaskFields draft={custom} onChange={setCustom} /> : null}
+      <TaskChooser value={taskKey} onChange={(k) => setValue("taskKey", k)} />
+      {taskKey === "custom" ? <CustomTaskFields /> : null}
       {taskKey === "plan" ? <PlanTaskChooser pick={planPick} onPick={setPlanPick} /> : null}
       <RuleSettingsFields value={settings} onChange={setSettings} showEndCall={taskKey.startsWith("E:") || taskKey === "plan"} />
       {errors.task ? (
@@ -110,9 +126,9 @@ function NewWindowFormInner() {
       ) : null}
       <fieldset className="space-y-3">
         <legend className="text-lg font-bold">Before the working time (optional)</legend>
-        <TextField id="prep" label="Preparation countdown, minutes" inputMode="decimal" value={prepMin} onChange={(e) => setPrepMin(e.target.value)} error={errors.prepMin} />
+        <TextField id="prep" label="Preparation countdown, minutes" inputMode="decimal" {...register("prepMin")} error={fe.prepMin?.message ?? errors.prepMin} />
         <label className="flex min-h-touch items-center gap-3">
-          <input type="checkbox" checked={noFly} onChange={(e) => setNoFly(e.target.checked)} className="h-6 w-6" />
+          <input type="checkbox" {...register("noFly")} className="h-6 w-6" />
           <span>Add the no-fly minute before the start (F3K.9)</span>
         </label>
       </fieldset>
@@ -125,5 +141,6 @@ function NewWindowFormInner() {
         {busy ? "Saving…" : "Set up the window"}
       </button>
     </form>
+    </FormProvider>
   );
 }

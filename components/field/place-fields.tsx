@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { TextField } from "@/components/ui/field";
+import { useEarlierFields } from "./use-earlier-fields";
 
 type Props = {
   fieldName: string;
@@ -11,9 +12,13 @@ type Props = {
   error?: string;
 };
 
-/** Where: the field's name (remembered) and, if wanted, the phone's position (GPS works with no signal). */
+/**
+ * Where: the field's name (the last one filled in, earlier ones offered as you type) and, if
+ * wanted, the phone's position (GPS works with no signal).
+ */
 export function PlaceFields({ fieldName, onFieldName, position, onPosition, error }: Props) {
   const [status, setStatus] = useState<string | null>(null);
+  const earlier = useEarlierFields();
   const locate = () => {
     if (!("geolocation" in navigator)) return setStatus("This browser cannot give a position.");
     setStatus("Finding the position…");
@@ -28,7 +33,12 @@ export function PlaceFields({ fieldName, onFieldName, position, onPosition, erro
   };
   return (
     <div className="space-y-3">
-      <TextField id="field-name" label="Field" autoComplete="off" value={fieldName} onChange={(e) => onFieldName(e.target.value)} error={error} />
+      <TextField id="field-name" label="Field" autoComplete="off" list="field-name-earlier" value={fieldName} onChange={(e) => onFieldName(e.target.value)} error={error} />
+      <datalist id="field-name-earlier">
+        {earlier.map((name) => (
+          <option key={name} value={name} />
+        ))}
+      </datalist>
       <div className="flex flex-wrap items-center gap-3">
         <button type="button" onClick={locate} className="min-h-12 rounded-lg border-2 border-ink px-4 font-bold">
           {position ? "Update position" : "Add my position"}

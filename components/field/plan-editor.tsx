@@ -1,16 +1,12 @@
 "use client";
 
 import { useLiveQuery } from "dexie-react-hooks";
-import { useState } from "react";
-import { v7 as uuidv7 } from "uuid";
+import { lazy, Suspense, useState } from "react";
 import { Button } from "@/components/ui/button";
-import { Card } from "@/components/ui/card";
-import { TextField } from "@/components/ui/field";
-import { PLAN_ITEMS_MAX, planDraftErrors, practicePlanSchema } from "@/lib/field/practice-plan";
 import { getWindowcallDb } from "@/lib/offline/db";
-import { isQuotaError } from "@/lib/offline/storage";
-import { getCatalogueTask, type TaskDefinition, type TaskLetter } from "@/lib/tasks";
-import { catalogueOptions, taskTitle, type TaskKey } from "./task-chooser";
+
+// The form (and its form library) loads only when a plan is being made: the field page does not need it to open.
+const NewPlanForm = lazy(() => import("./new-plan-form").then((m) => ({ default: m.NewPlanForm })));
 
 /** /field: the pilot's own practice plans on this phone, and a small form to make one. */
 export function PlanEditor() {
@@ -36,7 +32,9 @@ export function PlanEditor() {
         </ul>
       )}
       {editing ? (
-        <NewPlanForm onDone={() => setEditing(false)} />
+        <Suspense fallback={<p aria-busy="true">Opening the form…</p>}>
+          <NewPlanForm onDone={() => setEditing(false)} />
+        </Suspense>
       ) : (
         <Button variant="secondary" className="w-full" onClick={() => setEditing(true)}>
           New plan
@@ -46,89 +44,3 @@ export function PlanEditor() {
   );
 }
 
-function NewPlanForm({ onDone }: { onDone: () => void }) {
-  const options = catalogueOptions();
-  const [title, setTitle] = useState("");
-  const [pick, setPick] = useState<TaskKey>(options[0]?.key ?? "A:600");
-  const [items, setItems] = useState<TaskDefinition[]>([]);
-  const [errors, setErrors] = useState<{ title?: string; items?: string; save?: string }>({});
-
-  const add = () => {
-    const [letter, variant] = pick.split(":");
-    setItems([...items, getCatalogueTask(letter as TaskLetter, Number(variant))]);
-    setErrors({ ...errors, items: undefined });
-  };
-  const save = async () => {
-    const problems = planDraftErrors({ title, items });
-    if (problems) return setErrors(problems);
-    try {
-      const plan = practicePlanSchema.parse({ id: uuidv7(), title, items, createdAtWallMs: Date.now() });
-      await getWindowcallDb().plans.add(plan);
-      onDone();
-    } catch (e) {
-      setErrors({ save: isQuotaError(e) ? "The phone's storage is full: the plan was not saved." : `The plan was not saved: ${e instanceof Error ? e.message : String(e)}` });
-    }
-  };
-
-  return (
-    <Card className="space-y-4">
-      <h3 className="text-lg font-bold">New plan</h3>
-      <form
-        className="space-y-4"
-        noValidate
-        onSubmit={(e) => {
-          e.preventDefault();
-          void save();
-        }}
-      >
-        <TextField id="plan-title" label="Plan title" value={title} maxLength={120} onChange={(e) => setTitle(e.target.value)} error={errors.title} />
-        <div className="space-y-1">
-          <label htmlFor="plan-task" className="block font-semibold">
-            Task to add
-          </label>
-          <div className="flex gap-2">
-            <select id="plan-task" value={pick} onChange={(e) => setPick(e.target.value as TaskKey)} className="min-h-touch min-w-0 flex-1 rounded-lg border-2 border-line bg-raised px-2 text-base text-ink">
-              {options.map(({ key, def }) => (
-                <option key={key} value={key}>
-                  {taskTitle(def)}
-                </option>
-              ))}
-            </select>
-            <Button type="button" variant="secondary" onClick={add} disabled={items.length >= PLAN_ITEMS_MAX}>
-              Add
-            </Button>
-          </div>
-        </div>
-        {items.length > 0 ? (
-          <ol className="space-y-2" aria-label="Tasks in this plan">
-            {items.map((def, i) => (
-              <li key={`${i}-${def.letter}`} className="flex items-center justify-between gap-2 rounded-lg border-2 border-line p-2">
-                <span className="min-w-0">
-                  <span className="figures font-bold">{i + 1}. </span>
-                  {taskTitle(def)}
-                </span>
-                <Button type="button" variant="danger" className="shrink-0 px-3" aria-label={`Remove task ${i + 1}, ${taskTitle(def)}`} onClick={() => setItems(items.filter((_, j) => j !== i))}>
-                  Remove
-                </Button>
-              </li>
-            ))}
-          </ol>
-        ) : (
-          <p className="text-muted">No tasks added yet.</p>
-        )}
-        {errors.items ? <p className="font-semibold text-danger">{errors.items}</p> : null}
-        {errors.title || errors.items || errors.save ? (
-          <p role="alert" className="rounded-lg border-2 border-danger p-3 font-semibold text-danger">
-            {errors.save ?? "The plan was not saved: fix the marked entries."}
-          </p>
-        ) : null}
-        <div className="grid grid-cols-2 gap-2">
-          <Button type="button" variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-          <Button type="submit">Save plan</Button>
-        </div>
-      </form>
-    </Card>
-  );
-}

@@ -29,7 +29,7 @@ export function Swatch({ kind }: { kind: SwatchKind }) {
           y="0.5"
           width="15"
           height="11"
-          fill={kind === "air" ? "rgb(var(--air))" : kind === "pale" ? "rgb(var(--air) / 0.35)" : "rgb(var(--ground))"}
+          fill={kind === "air" ? "rgb(var(--air))" : kind === "pale" ? "rgb(var(--air-pale))" : "rgb(var(--ground))"}
           stroke={kind === "ground" ? "rgb(var(--ink))" : "rgb(var(--air))"}
         />
       )}

@@ -20,7 +20,7 @@ const H = 36; // strip height
 const SCALE_Y = TOP + H + 3;
 
 const fillOf = (s: StripSegment) =>
-  s.status === "invalid" ? "url(#strip-hatch)" : s.status === "not-counted" ? "rgb(var(--air) / 0.35)" : "rgb(var(--air))";
+  s.status === "invalid" ? "url(#strip-hatch)" : s.status === "not-counted" ? "rgb(var(--air-pale))" : "rgb(var(--air))";
 
 /**
  * The working time as one horizontal strip: each flight a filled block (air), the ground

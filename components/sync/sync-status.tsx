@@ -1,37 +1,9 @@
 "use client";
 
-import { useRef } from "react";
-import type { SyncStatus } from "@/lib/offline/sync-client";
+import { useRef, useSyncExternalStore } from "react";
+import { describeDetail, describeSync } from "./describe-sync";
 import { SyncDetails } from "./sync-details";
 import { useSync } from "./sync-provider";
-
-const timeFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit" });
-
-/** Short words for the state: an icon alone (or a colour) never carries it. */
-export function describeSync(s: SyncStatus | null): { icon: string; label: string; tone: string } {
-  if (!s) return { icon: "…", label: "Starting", tone: "text-muted" };
-  if (s.state === "signed-out") return { icon: "⊘", label: "Signed out", tone: "text-danger" };
-  if (s.state === "syncing" && s.pulling) return { icon: "↻", label: describePull(s.pulling), tone: "text-ink" };
-  if (s.state === "syncing") return { icon: "↻", label: "Syncing", tone: "text-ink" };
-  if (s.state === "offline") return { icon: "✕", label: s.unsent > 0 ? `Offline · ${s.unsent} unsent` : "Offline", tone: "text-warn" };
-  if (s.unsent > 0) return { icon: "↑", label: `${s.unsent} unsent`, tone: "text-warn" };
-  if (s.lastError) return { icon: "!", label: "Retrying", tone: "text-warn" };
-  return { icon: "✓", label: "Synced", tone: "text-good" };
-}
-
-/** "Fetching records… 3 of ~12" (pages), or a count of records when the total is not known. */
-export function describePull(p: NonNullable<SyncStatus["pulling"]>): string {
-  if (p.pages !== null && p.pages > 1) return `Fetching records… ${p.page} of ~${p.pages}`;
-  return `Fetching records… ${p.items}`;
-}
-
-/** "synced 14:05 · clock ±12 ms" — the quieter second line. */
-export function describeDetail(s: SyncStatus | null): string {
-  if (!s) return "";
-  const parts = [s.lastSyncAt ? `synced ${timeFormat.format(s.lastSyncAt)}` : "not synced yet"];
-  parts.push(s.offset ? `clock ±${Math.ceil(s.offset.boundMs)} ms` : "clock not measured");
-  return parts.join(" · ");
-}
 
 /**
  * The top bar's sync status, always visible: state and unsent count, last sync and the clock
@@ -41,7 +13,8 @@ export function describeDetail(s: SyncStatus | null): string {
 export function SyncStatusBadge() {
   const { status } = useSync();
   const dialog = useRef<HTMLDialogElement>(null);
-  const main = describeSync(status);
+  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  const main = describeSync(status, online);
   const refused = status?.rejected.length ?? 0;
   return (
     <>
@@ -64,3 +37,13 @@ export function SyncStatusBadge() {
 }
 
 export { SyncStatusBadge as SyncStatus };
+
+/** Re-render on the browser's online/offline events. */
+function subscribeOnline(onChange: () => void): () => void {
+  window.addEventListener("online", onChange);
+  window.addEventListener("offline", onChange);
+  return () => {
+    window.removeEventListener("online", onChange);
+    window.removeEventListener("offline", onChange);
+  };
+}

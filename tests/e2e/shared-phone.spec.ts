@@ -55,7 +55,7 @@ async function unsentCount(page: Page, atLeast: number): Promise<number> {
   let count = 0;
   await expect
     .poll(async () => {
-      count = Number((await page.getByRole("banner").innerText()).match(/(\d+) unsent/)?.[1] ?? 0);
+      count = Number((await page.getByRole("banner").innerText()).match(/(\d+) (?:unsent|waiting)/)?.[1] ?? 0); // "3 unsent", or offline "Offline — 3 waiting"
       return count;
     })
     .toBeGreaterThanOrEqual(atLeast);

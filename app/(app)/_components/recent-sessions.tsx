@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { Card } from "@/components/ui/card";
 import { db } from "@/db";
 import { listRecentSessions } from "@/db/queries/sessions";
@@ -5,7 +6,7 @@ import { formatDate } from "@/lib/format";
 
 type Conditions = { windMs?: number; gustMs?: number; temperatureC?: number };
 
-/** The ten newest sessions the user owns or flew in, or a friendly empty state. */
+/** The ten newest sessions the user owns or flew in, each opening that session in the logbook; or a friendly empty state. */
 export async function RecentSessions({ userId }: { userId: string }) {
   const sessions = await listRecentSessions(db, { userId, limit: 10 });
   if (sessions.length === 0) {
@@ -22,7 +23,7 @@ export async function RecentSessions({ userId }: { userId: string }) {
         const c = (s.conditions ?? {}) as Conditions;
         return (
           <li key={s.id}>
-            <Card className="flex items-baseline justify-between gap-3">
+            <Link href={`/logbook?session=${s.id}`} className="card flex min-h-touch items-center justify-between gap-3 rounded-xl border border-line bg-raised p-4">
               <div>
                 <p className="font-bold">{s.fieldName}</p>
                 <p className="text-sm text-muted">
@@ -35,7 +36,8 @@ export async function RecentSessions({ userId }: { userId: string }) {
                 <br />
                 <span className="text-muted">tasks {s.taskCodes.join(", ") || "–"}</span>
               </p>
-            </Card>
+              <span aria-hidden="true">›</span>
+            </Link>
           </li>
         );
       })}

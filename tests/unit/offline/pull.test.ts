@@ -4,7 +4,7 @@ import { getMeta, setMeta, type WindowcallDb } from "@/lib/offline/db";
 import { recordEvent } from "@/lib/offline/record";
 import { pullAll, type PullProgress } from "@/lib/offline/pull";
 import { SyncClient } from "@/lib/offline/sync-client";
-import { describePull } from "@/components/sync/sync-status";
+import { describePull } from "@/components/sync/describe-sync";
 import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
 
 const dbs: WindowcallDb[] = [];

@@ -1,12 +1,14 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { safeNextPath } from "@/lib/security/safe-next";
-import { signInSchema } from "@/lib/validations/auth";
+import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 
 const WRONG = "E-mail or password is wrong.";
 
@@ -22,36 +24,34 @@ export function signInErrorMessage(error: string | undefined): string {
   return `Too many attempts for this e-mail from this network. Try again ${wait}, or from another network.`;
 }
 
-/** E-mail + password; the same message for an unknown address and a wrong password. */
+/**
+ * E-mail + password (react-hook-form with the zod resolver: a message beside each field); the same
+ * message for an unknown address and a wrong password.
+ */
 export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
   const router = useRouter();
   const params = useSearchParams();
   const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: initialEmail, password: "" } });
+  const fe = formState.errors;
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    const parsed = signInSchema.safeParse({ email: form.get("email"), password: form.get("password") });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? "Check the form.");
-    setBusy(true);
+  async function onValid(data: SignInInput) {
     setError(null);
-    const res = await signIn("credentials", { ...parsed.data, redirect: false });
-    setBusy(false);
+    const res = await signIn("credentials", { ...data, redirect: false });
     if (!res || res.error) return setError(signInErrorMessage(res?.error ?? undefined));
     router.replace(safeNextPath(params.get("next"))); // only a path on this site: never leave it
     router.refresh();
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField id="email" name="email" type="email" label="E-mail" autoComplete="email" required defaultValue={initialEmail} />
-      <TextField id="password" name="password" type="password" label="Password" autoComplete="current-password" required />
+    <form onSubmit={handleSubmit(onValid)} className="space-y-4" noValidate>
+      <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={fe.email?.message} />
+      <TextField id="password" type="password" label="Password" autoComplete="current-password" required {...register("password")} error={fe.password?.message} />
       <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
         {error}
       </p>
-      <Button type="submit" disabled={busy} className="w-full">
-        {busy ? "Signing in…" : "Sign in"}
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
+        {formState.isSubmitting ? "Signing in…" : "Sign in"}
       </Button>
     </form>
   );

@@ -1,12 +1,12 @@
 "use client";
 
-import { Suspense, useState, type FormEvent } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { Suspense, useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { signUpSchema } from "@/lib/validations/auth";
+import { signUpSchema, type SignUpInput } from "@/lib/validations/auth";
 import { SignInForm } from "../../sign-in/_components/sign-in-form";
-
-type Errors = Partial<Record<"name" | "email" | "password" | "form", string>>;
 
 /**
  * Name, e-mail, password; validated here and again on the server with the same schema. The server
@@ -16,32 +16,23 @@ type Errors = Partial<Record<"name" | "email" | "password" | "form", string>>;
  * succeeds); the sign-in answers a taken address's wrong password like any other wrong password.
  */
 export function SignUpForm() {
-  const [errors, setErrors] = useState<Errors>({});
-  const [busy, setBusy] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
   const [made, setMade] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema), defaultValues: { name: "", email: "", password: "" } });
+  const fe = formState.errors;
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = new FormData(e.currentTarget);
-    const parsed = signUpSchema.safeParse({ name: form.get("name"), email: form.get("email"), password: form.get("password") });
-    if (!parsed.success) {
-      const next: Errors = {};
-      for (const issue of parsed.error.issues) next[issue.path[0] as keyof Errors] ??= issue.message;
-      return setErrors(next);
-    }
-    setBusy(true);
-    setErrors({});
+  async function onValid(data: SignUpInput) {
+    setFormError(null);
     const res = await fetch("/api/account/sign-up", {
       method: "POST",
       headers: { "content-type": "application/json" },
-      body: JSON.stringify(parsed.data),
+      body: JSON.stringify(data),
     }).catch(() => null);
-    setBusy(false);
     if (!res?.ok) {
       const body = (await res?.json().catch(() => null)) as { error?: { message?: string } } | null;
-      return setErrors({ form: body?.error?.message ?? "Could not reach the server. Try again when online." });
+      return setFormError(body?.error?.message ?? "Could not reach the server. Try again when online.");
     }
-    setMade(parsed.data.email);
+    setMade(data.email);
   }
 
   if (made !== null) {
@@ -59,15 +50,15 @@ export function SignUpForm() {
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField id="name" name="name" label="Name" autoComplete="name" required error={errors.name} />
-      <TextField id="email" name="email" type="email" label="E-mail" autoComplete="email" required error={errors.email} />
-      <TextField id="password" name="password" type="password" label="Password (at least 10 characters)" autoComplete="new-password" required error={errors.password} />
+    <form onSubmit={handleSubmit(onValid)} className="space-y-4" noValidate>
+      <TextField id="name" label="Name" autoComplete="name" required {...register("name")} error={fe.name?.message} />
+      <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={fe.email?.message} />
+      <TextField id="password" type="password" label="Password (at least 10 characters)" autoComplete="new-password" required {...register("password")} error={fe.password?.message} />
       <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {errors.form}
+        {formError}
       </p>
-      <Button type="submit" disabled={busy} className="w-full">
-        {busy ? "Creating…" : "Create account"}
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
+        {formState.isSubmitting ? "Creating…" : "Create account"}
       </Button>
     </form>
   );
