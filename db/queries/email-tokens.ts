@@ -22,16 +22,34 @@ export type TokenUse = { status: "ok"; token: TokenRow } | { status: "used" | "e
  * does what the link is for in the same transaction; if that throws, the link stays unused.
  */
 export async function takeEmailToken(tx: Database, tokenHash: string, purpose: TokenPurpose): Promise<TokenUse> {
-  const [row] = await tx
+  const [row] = await tokenQuery(tx, tokenHash, purpose).for("update", { of: emailTokens });
+  const use = judge(row);
+  if (use.status === "ok") await tx.update(emailTokens).set({ usedAt: sql`now()` }).where(eq(emailTokens.id, use.token.id));
+  return use;
+}
+
+/**
+ * What using the link would answer now, without using it: lets a caller refuse a bad link before
+ * expensive work (a password hash). takeEmailToken still decides, under its lock.
+ */
+export async function peekEmailToken(db: Database, tokenHash: string, purpose: TokenPurpose): Promise<TokenUse["status"]> {
+  const [row] = await tokenQuery(db, tokenHash, purpose);
+  return judge(row).status;
+}
+
+function tokenQuery(db: Database, tokenHash: string, purpose: TokenPurpose) {
+  return db
     .select({ token: emailTokens, disabledAt: users.disabledAt })
     .from(emailTokens)
     .innerJoin(users, eq(users.id, emailTokens.userId))
     .where(and(eq(emailTokens.tokenHash, tokenHash), eq(emailTokens.purpose, purpose)))
-    .for("update", { of: emailTokens });
+    .$dynamic();
+}
+
+function judge(row: { token: TokenRow; disabledAt: Date | null } | undefined): TokenUse {
   if (!row || row.disabledAt) return { status: "unknown" };
   if (row.token.usedAt) return { status: "used" };
   if (row.token.expiresAt.getTime() <= Date.now()) return { status: "expired" };
-  await tx.update(emailTokens).set({ usedAt: sql`now()` }).where(eq(emailTokens.id, row.token.id));
   return { status: "ok", token: row.token };
 }
 

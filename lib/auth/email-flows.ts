@@ -1,12 +1,13 @@
 import "server-only";
 import { db } from "@/db";
-import { createEmailToken, retireEmailTokens, takeEmailToken, type TokenPurpose } from "@/db/queries/email-tokens";
+import { createEmailToken, peekEmailToken, retireEmailTokens, takeEmailToken, type TokenPurpose } from "@/db/queries/email-tokens";
 import { changeEmail, getUserByEmail, markEmailVerified, updatePassword } from "@/db/queries/users";
 import { AppError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
 import { confirmNewEmailMail, emailChangedMail, resetPasswordMail, signUpAttemptMail, verifyEmailMail } from "@/lib/mail/messages";
 import { sendMail } from "@/lib/mail/server/send";
 import { hashEmailToken, newEmailToken, TOKEN_TTL_MS } from "./email-tokens";
+import { hashPassword } from "./password";
 
 /**
  * The account flows that go through e-mail. Each link is a one-time token (email-tokens.ts) whose hash
@@ -69,8 +70,14 @@ export async function verifyEmail(token: string): Promise<void> {
   });
 }
 
-/** Sets the new password, ends every session of the account and every other reset link. */
-export async function resetPassword(token: string, passwordHash: string): Promise<void> {
+/**
+ * Sets the new password, ends every session of the account and every other reset link. A link that
+ * is not valid is refused before the password is hashed, so strangers cannot buy argon2 work with it.
+ */
+export async function resetPassword(token: string, password: string): Promise<void> {
+  const seen = await peekEmailToken(db, hashEmailToken(token), "reset");
+  if (seen !== "ok") throw new LinkError(seen);
+  const passwordHash = await hashPassword(password);
   await db.transaction(async (tx) => {
     const row = await take(tx, token, "reset");
     if ((await updatePassword(tx, row.userId, passwordHash)) === undefined) throw new LinkError("unknown");

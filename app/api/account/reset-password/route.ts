@@ -1,7 +1,6 @@
 // POST /api/account/reset-password — follow a reset link: set a new password and sign out every session of the account
 import { parseJson, route } from "@/lib/api";
 import { resetPassword } from "@/lib/auth/email-flows";
-import { hashPassword } from "@/lib/auth/password";
 import { resetPasswordSchema } from "@/lib/validations/email";
 
 export const dynamic = "force-dynamic";
@@ -13,6 +12,6 @@ export const dynamic = "force-dynamic";
  */
 export const POST = route(async (request: Request) => {
   const input = await parseJson(request, resetPasswordSchema);
-  await resetPassword(input.token, await hashPassword(input.password));
+  await resetPassword(input.token, input.password);
   return Response.json({ ok: true }, { headers: { "cache-control": "no-store" } });
 });
