@@ -7,9 +7,10 @@ source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 exec 9>/tmp/windowcall-e2e.lock
 say "waiting for the e2e lock…"; flock 9
 ensure_chromium_installed
-bash scripts/db.sh up
+# Servers started here must not inherit the lock (fd 9), or they hold it after this script ends.
+bash scripts/db.sh up 9>&-
 ensure_env_file
-mail_up
+mail_up 9>&-
 trap mail_stop_if_started EXIT
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_e2e)"
 export E2E_PORT="${E2E_PORT:-$(free_port 3410)}"
