@@ -9,7 +9,8 @@ export type PhoneView = { deviceId: string | null; me: string | null; estimate: 
 
 /** The run's events as the one result function reads them (an unsynced own event has no recordedBy yet). */
 export function recordedEvents(events: readonly RunEvent[], view: PhoneView): RecordedEvent[] {
-  return events.map((e) => ({ ...e, recordedBy: e.recordedBy ?? (e.deviceId === view.deviceId && view.me ? view.me : "") }));
+  // Pulled events always name their recorder; one without was written on this phone, by its account.
+  return events.map((e) => ({ ...e, recordedBy: e.recordedBy ?? view.me ?? "" }));
 }
 
 /** This phone's clock estimate, as the estimates of its own device. */

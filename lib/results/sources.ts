@@ -90,8 +90,9 @@ export function signalSources(events: readonly DerivationEvent[], roles: RunRole
 /**
  * Candidates for one lane, best first: devices with at least one lane event that survives
  * their undos. Official = an assigned timekeeper; own = the lane's pilot (a guest's lane has no
- * own record). A record carries its device's rulings on the lane only when it is official or
- * the pilot's own: a partner's penalty is a note, not part of what they timed.
+ * own record). A record carries its device's rulings on the lane only when it is official, the
+ * pilot's own, or (a guest's lane) the run's creator's: a partner's penalty on a member's lane is a
+ * note, not part of what they timed.
  */
 export function laneSources(
   events: readonly DerivationEvent[],
@@ -109,7 +110,9 @@ export function laneSources(
     const recordedBy = base[0]!.recordedBy;
     const official = roles.officials.has(recordedBy);
     const own = pilotUserId !== null && recordedBy === pilotUserId;
-    const rulings = official || own ? withAmendments(rulingsOn(events, lane, (e) => e.deviceId === deviceId && e.recordedBy === recordedBy), events) : [];
+    // A guest's lane (no account) has no pilot to accept or dispute: the run's creator rules on it.
+    const rules = official || own || (pilotUserId === null && recordedBy === roles.createdBy);
+    const rulings = rules ? withAmendments(rulingsOn(events, lane, (e) => e.deviceId === deviceId && e.recordedBy === recordedBy), events) : [];
     out.push({ deviceId, recordedBy, official, own, firstAtMs: Math.min(...effective.map((e) => e.atMs)), events: [...amended, ...rulings] });
   }
   return out.sort(compareSources);
