@@ -2,11 +2,12 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
-import { createContext, Fragment, useContext, useEffect, useState, useSyncExternalStore, type ReactNode } from "react";
+import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
 import { currentDeviceUser, giveOwnDatabase, switchDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
 import { startSyncInBrowser } from "@/lib/offline/sync-browser";
+import { useOnline } from "./use-online";
 import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
 
 type SyncContextValue = { client: SyncClient; status: SyncStatus | null };
@@ -30,7 +31,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   // Signed-out pages call no signed-in API: sync starts once the session is known to be signed
   // in — or, offline (next-auth cannot ask the server, so it says "unauthenticated"), straight
   // away, so a field page opened with no signal still syncs when the signal returns.
-  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  const online = useOnline();
   // once started it stays started: the signal returning must not stop a client started offline
   const [started, setStarted] = useState(false);
   if (!started && (authStatus === "authenticated" || (authStatus === "unauthenticated" && !online))) setStarted(true);
@@ -76,15 +77,6 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   );
 }
 
-/** Re-render on the browser's online/offline events. */
-function subscribeOnline(onChange: () => void): () => void {
-  window.addEventListener("online", onChange);
-  window.addEventListener("offline", onChange);
-  return () => {
-    window.removeEventListener("online", onChange);
-    window.removeEventListener("offline", onChange);
-  };
-}
 
 /**
  * A sync client on the database of the account in use, naming that account (read once: a client

@@ -1,8 +1,9 @@
 "use client";
 
-import { useRef, useSyncExternalStore } from "react";
+import { useRef } from "react";
 import { describeDetail, describeSync } from "./describe-sync";
 import { SyncDetails } from "./sync-details";
+import { useOnline } from "./use-online";
 import { useSync } from "./sync-provider";
 
 /**
@@ -13,7 +14,7 @@ import { useSync } from "./sync-provider";
 export function SyncStatusBadge() {
   const { status } = useSync();
   const dialog = useRef<HTMLDialogElement>(null);
-  const online = useSyncExternalStore(subscribeOnline, () => navigator.onLine, () => true);
+  const online = useOnline();
   const main = describeSync(status, online);
   const refused = status?.rejected.length ?? 0;
   return (
@@ -38,12 +39,3 @@ export function SyncStatusBadge() {
 
 export { SyncStatusBadge as SyncStatus };
 
-/** Re-render on the browser's online/offline events. */
-function subscribeOnline(onChange: () => void): () => void {
-  window.addEventListener("online", onChange);
-  window.addEventListener("offline", onChange);
-  return () => {
-    window.removeEventListener("online", onChange);
-    window.removeEventListener("offline", onChange);
-  };
-}
