@@ -1,6 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { signInAs } from "./support/auth";
-import { press, settle } from "./support/field";
+import { openNewWindow, press, settle } from "./support/field";
 
 /** Task C (F3K.11.3): one launch signal per attempt, each attempt with its own 3:33 deadline. */
 const T0 = new Date("2026-05-02T09:00:00Z");
@@ -8,12 +7,7 @@ test.use({ viewport: { width: 390, height: 844 } });
 test.describe.configure({ timeout: 150_000 });
 
 test("task C gives the next attempt's signal once an attempt is over", async ({ page }) => {
-  await signInAs(page, "tobi@example.com");
-  await page.clock.install({ time: T0 });
-  await page.goto("/field/new");
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
-  await page.getByLabel("Field").fill("North Meadow");
+  await openNewWindow(page, { email: "tobi@example.com", t0: T0, field: "North Meadow" });
   await page.getByRole("radio", { name: /^C · All up, last down · 3 attempts/ }).check();
   await page.getByRole("button", { name: "Set up the window" }).click();
   await expect(page).toHaveURL(/\/field\/run\?id=/);

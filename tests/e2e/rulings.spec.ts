@@ -1,6 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { signInAs } from "./support/auth";
-import { press, settle } from "./support/field";
+import { openNewWindow, press, settle } from "./support/field";
 
 /**
  * Rulings at the field as a timekeeper records them, and how the run shows them: penalties
@@ -15,12 +14,7 @@ const A = "Lane 1 · Kit Marsh";
 const B = "Lane 2 · Rowan Vale";
 
 async function setUp(page: Page, task: RegExp, lanes: string[]) {
-  await signInAs(page, "tobi@example.com");
-  await page.clock.install({ time: T0 });
-  await page.goto("/field/new");
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
-  await page.getByLabel("Field").fill("North Meadow");
+  await openNewWindow(page, { email: "tobi@example.com", t0: T0, field: "North Meadow" });
   if (lanes.length > 0) {
     await page.getByRole("radio", { name: /Several pilots/ }).check();
     for (const [i, name] of lanes.entries()) await page.getByLabel(`Pilot in lane ${i + 1}`).fill(name);

@@ -1,4 +1,5 @@
-import type { Locator, Page } from "@playwright/test";
+import { expect, type Locator, type Page } from "@playwright/test";
+import { signInAs } from "./auth";
 
 /** Waits until the service worker is active and controls the page (so it may go offline). */
 export async function workerReady(page: Page): Promise<void> {
@@ -60,4 +61,17 @@ export async function storedEvents(page: Page, runId: string): Promise<StoredEve
     db.close();
     return all.filter((e) => e.runId === runId);
   }, runId);
+}
+
+/**
+ * Signs in, fixes the page's clock at `t0`, opens the new-window form and names the field; the
+ * clock then stands still an hour later until the spec moves it. The spec chooses the rest.
+ */
+export async function openNewWindow(page: Page, { email, t0, field }: { email: string; t0: Date; field: string }): Promise<void> {
+  await signInAs(page, email);
+  await page.clock.install({ time: t0 });
+  await page.goto("/field/new");
+  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
+  await page.clock.pauseAt(new Date(t0.getTime() + 3_600_000));
+  await page.getByLabel("Field").fill(field);
 }
