@@ -3,9 +3,8 @@ import { afterAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { events, runLanes } from "@/db/schema";
 import type { LaneDerived } from "@/lib/sync/types";
-import { actAs } from "./support/session";
 import { db, demoUser, getPool } from "./support/db";
-import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
+import { pushingAs, T0 } from "./sync-fixtures";
 
 /** The rulings a phone records (penalty causes, attempts, mid-air; not signed; re-flight), as the server reads and applies them. */
 
@@ -15,11 +14,7 @@ afterAll(async () => {
 
 describe("rulings pushed by a phone", () => {
   it("applies the penalty rules on the server (F3K.4.3) and refuses malformed rulings item by item", async () => {
-    const ada = await demoUser("ada@example.com");
-    actAs(ada);
-    const phone = recorder(deviceId());
-    const s = session(ada.id);
-    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]);
+    const { phone, run: r, send } = pushingAs(await demoUser("ada@example.com"));
     const start = phone.at(r.id, T0, { kind: "window-start" });
     const flights = phone.flights(r.id, 0, [60, 120], T0 + 1000);
     const launch1 = flights[0]!.id;
@@ -34,7 +29,7 @@ describe("rulings pushed by a phone", () => {
       { ...phone.at(r.id, T0 + 305_000, { kind: "unsigned", lane: 0 }), body: { kind: "unsigned", lane: 9 } },
       { ...phone.at(r.id, T0 + 306_000, { kind: "unsigned", lane: 0 }), body: { kind: "reflight", lane: 0, cause: "rain", placement: "tomorrow" } },
     ];
-    const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events: [start, ...flights, ...good, ...bad] });
+    const res = await send([start, ...flights, ...good, ...bad]);
     expect(res.status).toBe(200);
     for (const b of bad) expect(res.body.acks.find((a) => a.id === b.id)).toMatchObject({ status: "rejected", reason: expect.stringMatching(/^Invalid event: body/) });
     for (const g of good) expect(res.body.acks.find((a) => a.id === g.id)?.status).toBe("applied");
@@ -48,17 +43,8 @@ describe("rulings pushed by a phone", () => {
   });
 
   it("a result not signed scores zero on the server too (F3K.1.2)", async () => {
-    const ada = await demoUser("ada@example.com");
-    actAs(ada);
-    const phone = recorder(deviceId());
-    const s = session(ada.id);
-    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada.id }]);
-    const res = await push({
-      deviceId: phone.id,
-      sessions: [s],
-      runs: [r],
-      events: [phone.at(r.id, T0, { kind: "window-start" }), ...phone.flights(r.id, 0, [60], T0 + 1000), phone.at(r.id, T0 + 300_000, { kind: "unsigned", lane: 0 })],
-    });
+    const { phone, run: r, send } = pushingAs(await demoUser("ada@example.com"));
+    const res = await send([phone.at(r.id, T0, { kind: "window-start" }), ...phone.flights(r.id, 0, [60], T0 + 1000), phone.at(r.id, T0 + 300_000, { kind: "unsigned", lane: 0 })]);
     expect(res.body.acks.every((a) => a.status === "applied")).toBe(true);
     const [lane] = await db.select().from(runLanes).where(eq(runLanes.runId, r.id));
     expect(lane!.resultTenths).toBe(0);
