@@ -15,44 +15,42 @@ export function RuleSettingsFields({ value, onChange, showEndCall }: Props) {
     <details className="rounded-xl border-2 border-line p-3">
       <summary className="min-h-12 cursor-pointer py-3 font-bold">Scoring choices the rules leave open</summary>
       <div className="space-y-3">
-        <div>
-          <label htmlFor={`${id}-h`} className="block font-semibold">
-            Normalised score: an exact half of 0.1 point
-          </label>
-          <select
-            id={`${id}-h`}
-            value={value.halves}
-            onChange={(e) => onChange({ ...value, halves: e.target.value as RuleSettings["halves"] })}
-            className="min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2"
-          >
-            {Object.entries(HALVES_LABEL).map(([k, label]) => (
-              <option key={k} value={k}>
-                {label}
-              </option>
-            ))}
-          </select>
-        </div>
+        <Choice
+          id={`${id}-h`}
+          label="Normalised score: an exact half of 0.1 point"
+          labels={HALVES_LABEL}
+          value={value.halves}
+          onChange={(halves) => onChange({ ...value, halves })}
+        />
         {showEndCall ? (
-          <div>
-            <label htmlFor={`${id}-e`} className="block font-semibold">
-              Task E: the &ldquo;end of working time&rdquo; call credits
-            </label>
-            <select
-              id={`${id}-e`}
-              value={value.endCall}
-              onChange={(e) => onChange({ ...value, endCall: e.target.value as RuleSettings["endCall"] })}
-              className="min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2"
-            >
-              {Object.entries(END_CALL_LABEL).map(([k, label]) => (
-                <option key={k} value={k}>
-                  {label}
-                </option>
-              ))}
-            </select>
-          </div>
+          <Choice
+            id={`${id}-e`}
+            label="Task E: the “end of working time” call credits"
+            labels={END_CALL_LABEL}
+            value={value.endCall}
+            onChange={(endCall) => onChange({ ...value, endCall })}
+          />
         ) : null}
         <p className="text-sm text-muted">The rulebook does not settle these; the first choice is ours. They are kept with this window.</p>
       </div>
     </details>
+  );
+}
+
+/** One labelled choice among `labels` (value → words). */
+function Choice<K extends string>({ id, label, labels, value, onChange }: { id: string; label: string; labels: Record<K, string>; value: K; onChange: (next: K) => void }) {
+  return (
+    <div>
+      <label htmlFor={id} className="block font-semibold">
+        {label}
+      </label>
+      <select id={id} value={value} onChange={(e) => onChange(e.target.value as K)} className="min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2">
+        {(Object.entries(labels) as [K, string][]).map(([k, words]) => (
+          <option key={k} value={k}>
+            {words}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }
