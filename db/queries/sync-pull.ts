@@ -1,7 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import { PULL_DEFAULT_LIMIT, readPullCursor, type PullReply } from "@/lib/validations/sync";
-import { forgottenRuns } from "./sync-forget";
+import { forgottenLanes, forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
 import type { Database } from "../index";
@@ -67,6 +67,8 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
   if (at.xid === "0") {
     const forget = await forgottenRuns(db, userId);
     if (forget.length > 0) reply.forget = forget;
+    const lanes = await forgottenLanes(db, userId);
+    if (lanes.length > 0) reply.forgetLanes = lanes;
   }
   return reply;
 }

@@ -24,3 +24,29 @@ export async function forgetRuns(db: WindowcallDb, runIds: readonly string[], ac
   }
   return dropped.size;
 }
+
+/**
+ * Drop the events of lanes a pull says this device may no longer see in runs it keeps
+ * (pullReplySchema.forgetLanes): each lane's own events and every undo or correction that amends
+ * one of them (followed through undos of undos). The run's row itself comes again in the same
+ * pull with only the lanes it may see. Nothing still waiting in the outbox is dropped. Call
+ * inside a transaction over events and outbox. Returns how many events were dropped.
+ */
+export async function forgetLanes(db: WindowcallDb, lost: readonly { runId: string; lanes: readonly number[] }[]): Promise<number> {
+  if (lost.length === 0) return 0;
+  const pending = new Set((await db.outbox.toArray()).map((o) => o.id));
+  let dropped = 0;
+  for (const { runId, lanes } of lost) {
+    const gone = new Set(lanes);
+    const events = await db.events.where("runId").equals(runId).toArray();
+    const bodyOf = new Map(events.map((e) => [e.id, e.body]));
+    const drop = events.filter((e) => {
+      let body: (typeof e)["body"] | undefined = e.body;
+      for (let hops = 0; body && "targetId" in body && hops < 64; hops++) body = bodyOf.get(body.targetId);
+      return body !== undefined && "lane" in body && gone.has(body.lane) && !pending.has(e.id);
+    });
+    await db.events.bulkDelete(drop.map((e) => e.id));
+    dropped += drop.length;
+  }
+  return dropped;
+}

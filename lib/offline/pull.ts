@@ -2,7 +2,7 @@ import type { RunEvent } from "@/lib/events/schema";
 import { cursorAfter, pullReplySchema, type PullItem } from "@/lib/validations/sync";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "@/lib/events/entities";
-import { forgetRuns } from "./forget";
+import { forgetLanes, forgetRuns } from "./forget";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
 
 /** How far a pull has come: pages stored, about how many in all (null: unknown), items stored. */
@@ -63,6 +63,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     const { events, sessions, runs } = split(items);
     await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta, db.outbox], async () => {
       if (r.value.forget) await forgetRuns(db, r.value.forget, deps.account ?? null);
+      if (r.value.forgetLanes) await forgetLanes(db, r.value.forgetLanes);
       await db.sessions.bulkPut(sessions);
       await db.runs.bulkPut(runs);
       await db.events.bulkPut(events);

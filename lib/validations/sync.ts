@@ -169,6 +169,13 @@ export const pullReplySchema = z.object({
    */
   forget: z.array(z.string().uuid()).max(10_000).optional(),
   /**
+   * Lanes lost from runs the device still sees as a coach's copy (a pilot hid or disputed their
+   * lane, or revoked the grant while another pilot's lane keeps the run visible), on the same
+   * first page: the run's row comes again with only the lanes it may see, and the device drops
+   * the lost lanes' events (lib/offline/forget.ts forgetLanes).
+   */
+  forgetLanes: z.array(z.object({ runId: z.string().uuid(), lanes: z.array(z.number().int().min(0).max(32_767)).max(1_000) })).max(10_000).optional(),
+  /**
    * Fingerprint of what the user may see beyond their own records (their active coach grants).
    * When it changes, rows below the cursor may have become visible: the device pulls from 0 again.
    */

@@ -2,6 +2,7 @@ import { v7 as uuidv7 } from "uuid";
 import { afterEach, describe, expect, it } from "vitest";
 import { getMeta, setMeta, type WindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
+import { forgetLanes } from "@/lib/offline/forget";
 import { SyncClient } from "@/lib/offline/sync-client";
 import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
 
@@ -70,5 +71,28 @@ describe("a coach's phone forgets what the pull names", () => {
     expect(await db.events.get(tap.id)).toBeDefined();
     expect(await db.sessions.get(session.id)).toBeDefined();
     expect(await db.runs.get(ids[1]!.run)).toBeUndefined();
+  });
+});
+
+describe("a phone forgets the lanes the pull names", () => {
+  it("drops a lost lane's events and the undos that amend them; keeps other lanes and its own unsent taps", async () => {
+    const { server, ids } = await pilotRecords();
+    const db = open();
+    await setMeta(db, "profile", { id: COACH, name: "Coach", email: "c@example.com" });
+    await new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers(), account: () => COACH }).pull();
+    const runId = ids[0]!.run;
+    const pulled = await db.events.where("runId").equals(runId).toArray();
+    expect(pulled.map((e) => e.body.kind)).toEqual(["launch"]);
+    // this phone also holds another lane's tap and an undo of the pulled launch, and an unsent tap on the lost lane
+    await db.events.bulkPut([
+      { ...pulled[0]!, id: uuidv7(), seq: 90, body: { kind: "launch", lane: 1 } },
+      { ...pulled[0]!, id: uuidv7(), seq: 91, body: { kind: "void", targetId: pulled[0]!.id } },
+    ]);
+    const unsent = await recordEvent(db, { runId, body: { kind: "landing", lane: 0 }, stamp: stamp() });
+
+    await db.transaction("rw", [db.events, db.outbox], () => forgetLanes(db, [{ runId, lanes: [0] }]));
+    const left = await db.events.where("runId").equals(runId).toArray();
+    expect(left.map((e) => [e.body.kind, "lane" in e.body ? e.body.lane : null]).sort()).toEqual([["landing", 0], ["launch", 1]]);
+    expect(left.some((e) => e.id === unsent.id)).toBe(true);
   });
 });
