@@ -1,0 +1,59 @@
+/**
+ * Where a push's time goes: `npx tsx --conditions=react-server bench/sync-profile.ts` (DATABASE_URL
+ * set to a migrated database; `npm run bench` does not run it). Counts the statements (round trips)
+ * of one push and times each, for a small push into a new run and for a 200-event push into a run
+ * that already holds `SYNC_PROFILE_RUN` events (4,800), then times the pure derivation of that run.
+ */
+import { Client, Pool } from "pg";
+import { db, getPool } from "@/db";
+import { applyPush } from "@/db/queries/sync-push";
+import { createSimUsers } from "../tests/integration/sync-sim";
+import { deviceWorkload } from "./sync-workload";
+
+const RUN = Number(process.env.SYNC_PROFILE_RUN ?? 4_800);
+type Stat = { text: string; ms: number };
+let log: Stat[] | null = null;
+
+// time every statement any pooled client sends (the pool hands out pg.Client instances)
+const query = Client.prototype.query as (...args: unknown[]) => unknown;
+Client.prototype.query = function timed(this: Client, ...args: unknown[]) {
+  const first = args[0] as string | { text?: string };
+  const text = (typeof first === "string" ? first : (first?.text ?? "?")).replace(/\s+/g, " ").slice(0, 90);
+  const t0 = performance.now();
+  const out = query.apply(this, args);
+  if (log && out instanceof Promise) {
+    const mine = log;
+    void out.then(() => mine.push({ text, ms: performance.now() - t0 }), () => mine.push({ text: `FAILED ${text}`, ms: performance.now() - t0 }));
+  }
+  return out;
+} as typeof Client.prototype.query;
+
+async function profile(label: string, run: () => Promise<unknown>) {
+  log = [];
+  const t0 = performance.now();
+  await run();
+  const total = performance.now() - t0;
+  const stats = log;
+  log = null;
+  const inDb = stats.reduce((s, x) => s + x.ms, 0);
+  console.log(`${label}: ${total.toFixed(1)} ms, ${stats.length} statements (round trips) taking ${inDb.toFixed(1)} ms; the rest (${(total - inDb).toFixed(1)} ms) in JavaScript`);
+  for (const s of stats) console.log(`  ${s.ms.toFixed(2).padStart(8)} ms  ${s.text}`);
+}
+
+const [user] = await createSimUsers(db, 1);
+const uid = user!.id;
+try {
+  const small = deviceWorkload(uid, 1, 10, 12);
+  await profile("first push of a device (session, run, 10 events)", () => applyPush(db, uid, small[0]!));
+  const next = deviceWorkload(uid, 1, 30, 12);
+  await applyPush(db, uid, next[0]!);
+  await profile("a push of 10 events into a run with 10", () => applyPush(db, uid, next[1]!));
+  const big = deviceWorkload(uid, 1, RUN + 200, 200);
+  const t0 = performance.now();
+  for (const p of big.slice(0, -1)) await applyPush(db, uid, p);
+  console.log(`(stored a ${RUN}-event run in ${((performance.now() - t0) / 1000).toFixed(1)} s)`);
+  await profile(`a push of 200 events into a run with ${RUN}`, () => applyPush(db, uid, big.at(-1)!));
+} finally {
+  await getPool().end();
+}
+void Pool;
