@@ -6,7 +6,8 @@ import { deriveRun, type DerivationEvent } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
 import { deviceClockEstimates, events, runs } from "../schema";
-import { lockRuns, type Tx } from "./sync-db";
+import { currentServerSeq, lockRuns, type Tx } from "./sync-db";
+import { loadForPush, type LoadedRun } from "./sync-push-load";
 
 type EventRow = typeof events.$inferSelect;
 
@@ -49,35 +50,38 @@ export async function listDeviceEstimates(tx: Tx, deviceIds: readonly string[]):
 const NO_OFFICIALS: ReadonlySet<string> = new Set();
 
 /**
- * Re-derive the results of these runs from their stored events (lib/sync/derive.ts)
- * and store them in run_lanes (result, derived flights/breakdown/versions, review flag), once per
- * run however many of its events the caller stored. Each run gets a new server_seq and this
- * transaction's xid so devices pull the new results. Locks the runs' rows (lockRuns) first, so
- * a concurrent writer of the same run waits and then derives from everything committed —
- * nothing else is locked.
+ * Re-derive the results of these runs from their stored events (lib/sync/derive.ts) and store
+ * them (storeDerivations). Locks the runs' rows (lockRuns) first, so a concurrent writer of the
+ * same run waits and then derives from everything committed — nothing else is locked. A push
+ * does not come here: it locks, loads and derives its runs itself (db/queries/sync-push.ts).
  */
 export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
   await lockRuns(tx, ids);
-  // one connection: queries in a transaction run one after another, so few of them
-  const idList = sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `);
-  const runRows = await tx.execute<{ id: string; task: unknown; created_by: string; lanes: { lane: number; pilotUserId: string | null }[] | null }>(sql`
-    select r.id, r.task, r.created_by,
-      (select json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id) order by l.lane) from run_lanes l where l.run_id = r.id) as lanes
-    from runs r where r.id in (${idList})`);
-  const eventRows = await tx.select().from(events).where(inArray(events.runId, ids));
-  const estimates = await listDeviceEstimates(tx, [...new Set(eventRows.map((e) => e.deviceId))]);
-  const byRun = new Map<string, EventRow[]>();
-  for (const e of eventRows) byRun.set(e.runId, [...(byRun.get(e.runId) ?? []), e]);
+  const load = await loadForPush(tx, { runIds: ids, eventIds: [], deviceId: "", seqs: [] });
+  await storeDerivations(tx, [...load.runs.values()], load.estimates);
+}
+
+/**
+ * Derive each of these runs once, from its events (lib/sync/derive.ts), and store the results in
+ * run_lanes (result, derived flights/breakdown/versions, review flag) — and give each run a new
+ * server_seq and this transaction's xid so devices pull the new results — in ONE statement for
+ * up to 500 lanes. The caller holds the runs' row locks (lockRuns) and read `runs` after taking
+ * them. Events go to the derivation in id order (UUIDv7: creation order, as a phone holds them),
+ * so the same events give the same result however they were read. Returns the last server
+ * sequence number as that statement saw it.
+ */
+export async function storeDerivations(tx: Tx, loaded: readonly LoadedRun[], estimates: ReadonlyMap<string, readonly ClockEstimate[]>): Promise<number> {
+  if (loaded.length === 0) return currentServerSeq(tx);
   const updates = [];
-  for (const run of runRows.rows) {
+  for (const run of loaded) {
     const derived = deriveRun({
       task: parseTaskDefinition(run.task),
-      createdBy: run.created_by,
-      lanes: run.lanes ?? [],
+      createdBy: run.createdBy,
+      lanes: run.lanes,
       officials: NO_OFFICIALS,
-      events: (byRun.get(run.id) ?? []).map(toDerivationEvent),
+      events: [...run.events].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
       estimatesByDevice: estimates,
     });
     for (const d of derived) {
@@ -86,15 +90,22 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
       );
     }
   }
-  // the lanes' results and the runs' new stamp in one statement
+  const idList = sql.join(loaded.map((r) => sql`${r.id}::uuid`), sql`, `);
+  // the lanes' results, the runs' new stamp and the sequence's position in one statement
   const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
-  if (updates.length === 0) await tx.execute(sql`with ${restamp} select count(*) from restamp`);
-  for (let i = 0; i < updates.length; i += 500) {
-    await tx.execute(sql`${i === 0 ? sql`with ${restamp}` : sql``}
+  const seq = sql`select last_value, is_called from sync_seq`;
+  let last = 0;
+  for (let i = 0; i === 0 || i < updates.length; i += 500) {
+    const chunk = updates.slice(i, i + 500);
+    const lanes = chunk.length === 0 ? sql`` : sql`, lanes as (
       update run_lanes set result_tenths = v.result, derived = v.derived, needs_review = v.review, review_reason = v.reason
-      from (values ${sql.join(updates.slice(i, i + 500), sql`, `)}) as v(run_id, lane, result, derived, review, reason)
-      where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane`);
+      from (values ${sql.join(chunk, sql`, `)}) as v(run_id, lane, result, derived, review, reason)
+      where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane returning 1)`;
+    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? sql`with ${restamp}${lanes} ${seq}` : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
+    const row = r.rows[0];
+    last = row && row.is_called ? Number(row.last_value) : 0;
   }
+  return last;
 }
 
 /** Derive every run in the database (the demo seed stores events without results). */

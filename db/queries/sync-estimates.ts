@@ -12,18 +12,21 @@ import type { Tx } from "./sync-db";
  * between the estimate before and the one after (SYNC.md §4). At most MAX_ESTIMATES_PER_DEVICE
  * are kept (pruneEstimates: coverage in time first, then the smallest δ); a pruned estimate the
  * device sends again is pruned again, not stored. Returns the device's estimates and the runs
- * whose events moved (to re-derive). Call after claimDevice: its row lock makes one device's pushes take turns.
+ * whose events moved (to re-derive). `stored`: the device's estimates as the caller already read them. Call after claimDevice: its row lock makes one device's pushes take turns.
  */
 export async function storeClockEstimates(
   tx: Tx,
   deviceId: string,
   incoming: readonly ClockEstimate[],
+  stored?: readonly ClockEstimate[],
 ): Promise<{ estimates: ClockEstimate[]; movedRuns: Set<string> }> {
   const movedRuns = new Set<string>();
-  const existing = await tx
-    .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
-    .from(deviceClockEstimates)
-    .where(eq(deviceClockEstimates.deviceId, deviceId));
+  const existing: ClockEstimate[] = stored
+    ? [...stored]
+    : await tx
+        .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
+        .from(deviceClockEstimates)
+        .where(eq(deviceClockEstimates.deviceId, deviceId));
   const known = new Set(existing.map((e) => e.measuredAtWallMs));
   const fresh = new Map<number, ClockEstimate>();
   for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);

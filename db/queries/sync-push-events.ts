@@ -1,50 +1,39 @@
 import "server-only";
-import { and, eq, inArray, or, sql } from "drizzle-orm";
-import type { ClockEstimate } from "@/lib/clock";
+import { inArray } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
-import { correctStamp } from "@/lib/sync/correct-events";
+import { correctStamp, uncertaintyOf } from "@/lib/sync/correct-events";
+import type { DerivationEvent } from "@/lib/sync/derive";
 import { MAX_EVENTS_PER_RUN } from "@/lib/validations/sync-push";
 import { events } from "../schema";
 import { reject, type PushContext } from "./sync-push-entities";
+import type { PushLoad } from "./sync-push-load";
 
 /**
  * Apply pushed events: each is checked (its device, its run, the pusher's right to write it)
  * and stored once — unique id and unique (device, seq), insert … on conflict do nothing — with
- * its raw stamp and its corrected time. Returns the runs that got new events.
+ * its raw stamp and its corrected time. Reads nothing itself: the push's one load (sync-push-load.ts)
+ * holds the runs, the clashing and amended events and the device's estimates; the fresh events go
+ * in one multi-row insert … on conflict do nothing returning id per 500. Returns, by run, the
+ * events it stored (the derivation adds them to what the load read).
  *
  * An event whose run is not on the server is refused, not held: devices send a run before its
  * events (outbox queue order), so a missing run was itself refused or never sent, and the
  * refusal says so on the device instead of waiting silently.
  */
-export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], estimates: readonly ClockEstimate[]): Promise<Set<string>> {
-  const touched = new Set<string>();
-  if (items.length === 0) return touched;
+export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], load: PushLoad): Promise<Map<string, DerivationEvent[]>> {
+  const added = new Map<string, DerivationEvent[]>();
+  if (items.length === 0) return added;
   const { tx } = ctx;
-  const runIds = [...new Set(items.map((e) => e.runId))];
+  const estimates = load.estimates.get(ctx.deviceId) ?? [];
   const targetIds = items.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
-  // one connection: queries in a transaction run one after another, so few of them
-  const facts = await tx.execute<{ id: string; created_by: string; lanes: { lane: number; pilotUserId: string | null }[] | null; n: number }>(sql`
-    select r.id, r.created_by,
-      (select json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id)) from run_lanes l where l.run_id = r.id) as lanes,
-      (select count(*)::int from events e where e.run_id = r.id) as n
-    from runs r where r.id in (${sql.join(runIds.map((id) => sql`${id}::uuid`), sql`, `)})`);
-  const stored = await tx
-    .select({ id: events.id, deviceId: events.deviceId, seq: events.seq, runId: events.runId, recordedBy: events.recordedBy })
-    .from(events)
-    .where(
-      or(
-        inArray(events.id, [...new Set([...items.map((e) => e.id), ...targetIds])]),
-        and(eq(events.deviceId, ctx.deviceId), inArray(events.seq, items.map((e) => e.seq))),
-      ),
-    );
   const pushedIds = new Set(items.map((e) => e.id));
   const pushedSeqs = new Set(items.map((e) => e.seq));
   const targetSet = new Set(targetIds);
-  const clashes = stored.filter((c) => pushedIds.has(c.id) || (c.deviceId === ctx.deviceId && pushedSeqs.has(c.seq)));
-  const targetRows = stored.filter((c) => targetSet.has(c.id));
-  const runFacts = new Map<string, RunFacts>(facts.rows.map((r) => [r.id, { id: r.id, createdBy: r.created_by, lanes: r.lanes ?? [] }]));
-  const perRun = new Map(facts.rows.map((r) => [r.id, Number(r.n)]));
+  const clashes = load.stored.filter((c) => pushedIds.has(c.id) || (c.deviceId === ctx.deviceId && pushedSeqs.has(c.seq)));
+  const targetRows = load.stored.filter((c) => targetSet.has(c.id));
+  const runFacts = new Map<string, RunFacts>([...load.runs.values()].map((r) => [r.id, { id: r.id, createdBy: r.createdBy, lanes: r.lanes }]));
+  const perRun = new Map([...load.runs.values()].map((r) => [r.id, r.events.length]));
   const byId = new Map(clashes.map((c) => [c.id, c]));
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
   const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy }]));
@@ -110,7 +99,9 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
     for (const row of chunk) {
       if (inserted.has(row.id!)) {
         ctx.acks.push({ id: row.id!, status: "applied" });
-        touched.add(row.runId);
+        const list = added.get(row.runId);
+        if (list) list.push(asDerivationEvent(row));
+        else added.set(row.runId, [asDerivationEvent(row)]);
         continue;
       }
       const other = storedById.get(row.id!);
@@ -119,5 +110,18 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
       else reject(ctx, row.id!, `Sequence number ${row.seq} of this device is already used by another event.`);
     }
   }
-  return touched;
+  return added;
+}
+
+/** An inserted row as the derivation reads it (the same shape loadForPush gives stored ones). */
+function asDerivationEvent(row: typeof events.$inferInsert): DerivationEvent {
+  const offset =
+    row.offsetThetaMs != null && row.offsetDeltaMs != null && row.offsetMeasuredAtMs != null
+      ? { thetaMs: row.offsetThetaMs, deltaMs: row.offsetDeltaMs, measuredAtWallMs: row.offsetMeasuredAtMs }
+      : null;
+  return {
+    id: row.id!, deviceId: row.deviceId, seq: row.seq, recordedBy: row.recordedBy, body: row.body as DerivationEvent["body"],
+    stamp: { wallMs: row.wallMs, monoMs: row.monoMs, pageId: row.pageId, offset },
+    correctedMs: row.correctedMs, uncertaintyMs: uncertaintyOf(row.uncertaintyMs ?? null),
+  };
 }

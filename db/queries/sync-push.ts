@@ -5,11 +5,12 @@ import { ForbiddenError } from "@/lib/errors";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
-import { deriveAndStoreRuns } from "./runs";
+import { storeDerivations } from "./runs";
 import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
-import { applyRuns, applySessions, listUserClubIds, type PushContext } from "./sync-push-entities";
+import { applyRuns, applySessions, type PushContext } from "./sync-push-entities";
 import { applyEvents } from "./sync-push-events";
+import { loadForPush } from "./sync-push-load";
 
 /**
  * A device id belongs to the first user who pushes from it; anyone else pushing with it gets
@@ -30,25 +31,40 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * sessions, runs and events — each checked, each stored once — then derive every affected run
  * once. No lock is shared by all pushes: the rows carry this transaction's id (pulls serve only
  * finished transactions, db/queries/sync-pull.ts), and only the runs this push writes to are
- * locked, all at once and in id order (lockRuns), before their events are counted and stored. Refusals — `refused`, the items that failed their schema, and those
- * refused here — are acknowledged with their reason and recorded in sync_rejections once per
- * device and item. Returns one ack per item and the last server sequence number.
+ * locked, all at once and in id order (lockRuns), before anything about them is read. Refusals —
+ * `refused`, the items that failed their schema, and those refused here — are acknowledged with
+ * their reason and recorded in sync_rejections once per device and item. Returns one ack per
+ * item and the last server sequence number.
+ *
+ * Round trips of a push that only carries events (bench/sync-profile.ts counts them): begin,
+ * claim, the device's estimates, lock the runs, one load (runs, their events, clashes, estimates:
+ * sync-push-load.ts), one multi-row insert per 500 events, one statement that stores every
+ * derived lane and re-stamps the runs, commit.
  */
 export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = []): Promise<PushReply> {
   return db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
     const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
-    const clubIds = needsClubs ? await listUserClubIds(tx, userId) : new Set<string>();
-    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds, acks: [...refused] };
+    const start = await deviceFacts(tx, req.deviceId, needsClubs ? userId : null);
+    const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds: start.clubIds, acks: [...refused] };
 
     const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
-    const clock = await storeClockEstimates(tx, req.deviceId, [...(req.clockEstimates ?? []), ...offsets]);
+    const clock = await storeClockEstimates(tx, req.deviceId, [...(req.clockEstimates ?? []), ...offsets], start.estimates);
 
     await applySessions(ctx, req.sessions);
     const newRuns = await applyRuns(ctx, req.runs);
-    await lockRuns(tx, [...req.events.map((e) => e.runId).filter(isUuid), ...clock.movedRuns]);
-    const touched = await applyEvents(ctx, req.events, clock.estimates);
-    await deriveAndStoreRuns(tx, [...newRuns, ...touched, ...clock.movedRuns]);
+    const eventRuns = req.events.map((e) => e.runId).filter(isUuid);
+    await lockRuns(tx, [...eventRuns, ...clock.movedRuns]);
+    const targetIds = req.events.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
+    const load = await loadForPush(tx, {
+      runIds: [...new Set([...eventRuns, ...clock.movedRuns, ...newRuns])],
+      eventIds: [...new Set([...req.events.map((e) => e.id), ...targetIds])].filter(isUuid),
+      deviceId: req.deviceId,
+      seqs: [...new Set(req.events.map((e) => e.seq))],
+    });
+    const added = await applyEvents(ctx, req.events, load);
+    const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
+    for (const r of derive) r.events.push(...(added.get(r.id) ?? []));
 
     const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
     if (rejections.size > 0) {
@@ -57,6 +73,19 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
         .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
         .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] });
     }
-    return { acks: ctx.acks, serverSeq: await currentServerSeq(tx) };
+    const serverSeq = derive.length > 0 ? await storeDerivations(tx, derive, load.estimates) : await currentServerSeq(tx);
+    return { acks: ctx.acks, serverSeq };
   });
+}
+
+/** The pushing device's clock estimates and (when `clubsOf` names the user) their clubs, in one read after the claim. */
+async function deviceFacts(tx: Tx, deviceId: string, clubsOf: string | null): Promise<{ estimates: ClockEstimate[]; clubIds: Set<string> }> {
+  const r = await tx.execute<{ estimates: [number, number, number][]; clubs: string[] | null }>(sql`select
+    (select coalesce(json_agg(json_build_array(theta_ms, delta_ms, measured_at_wall_ms)), '[]') from device_clock_estimates where device_id = ${deviceId}) as estimates,
+    ${clubsOf === null ? sql`null` : sql`(select coalesce(json_agg(club_id), '[]') from memberships where user_id = ${clubsOf})`} as clubs`);
+  const row = r.rows[0]!;
+  return {
+    estimates: row.estimates.map(([thetaMs, deltaMs, measuredAtWallMs]) => ({ thetaMs, deltaMs, measuredAtWallMs })),
+    clubIds: new Set(row.clubs ?? []),
+  };
 }

@@ -1,0 +1,93 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import type { ClockEstimate } from "@/lib/clock";
+import type { EventBody } from "@/lib/events/schema";
+import type { DerivationEvent } from "@/lib/sync/derive";
+import { uncertaintyOf } from "@/lib/sync/correct-events";
+import type { Tx } from "./sync-db";
+
+/** A run as a push checks and derives it: who created it, its task and lanes, its stored events. */
+export type LoadedRun = {
+  id: string;
+  createdBy: string;
+  task: unknown;
+  lanes: { lane: number; pilotUserId: string | null }[];
+  events: DerivationEvent[];
+};
+
+/** A stored event a pushed one may clash with (same id, or the pushing device's same seq), or amend. */
+export type StoredEvent = { id: string; deviceId: string; seq: number; runId: string; recordedBy: string };
+
+export type PushLoad = { runs: Map<string, LoadedRun>; stored: StoredEvent[]; estimates: Map<string, ClockEstimate[]> };
+
+const ids = (list: readonly string[]) => (list.length ? sql.join(list.map((id) => sql`${id}::uuid`), sql`, `) : sql`null`);
+
+/**
+ * Everything a push reads before it writes, in ONE statement (one round trip, one snapshot),
+ * after the runs were locked (lockRuns: the snapshot is taken after the locks are granted, so
+ * it holds every event committed to them): each run's creator, task and lanes with ALL its
+ * stored events (the derivation's input: the push adds what it inserts, no second read), the
+ * stored events the pushed ones may clash with or amend, and the clock estimates of every
+ * device with events in these runs (and of the pushing device). The facts travel as JSON on one
+ * row; the events as plain rows after it (building JSON of thousands of events costs the database
+ * more than sending them as rows).
+ */
+export async function loadForPush(
+  tx: Tx,
+  p: { runIds: readonly string[]; eventIds: readonly string[]; deviceId: string; seqs: readonly number[] },
+): Promise<PushLoad> {
+  const runList = ids(p.runIds);
+  const seqList = p.seqs.length ? sql.join(p.seqs.map((s) => sql`${s}::int`), sql`, `) : sql`null`;
+  // the facts ride on one extra row (f = true) before the events' own rows: one statement, one snapshot
+  const res = await tx.execute<EventRow & { f: boolean; runs: LoadedRunRow[] | null; stored: StoredEvent[] | null; estimates: [string, number, number, number][] | null }>(sql`
+    with facts as (select
+      (select coalesce(json_agg(json_build_object('id', r.id, 'createdBy', r.created_by, 'task', r.task,
+          'lanes', (select coalesce(json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id) order by l.lane), '[]')
+                    from run_lanes l where l.run_id = r.id))), '[]')
+        from runs r where r.id in (${runList})) as runs,
+      (select coalesce(json_agg(json_build_object('id', e.id, 'deviceId', e.device_id, 'seq', e.seq, 'runId', e.run_id, 'recordedBy', e.recorded_by)), '[]')
+        from events e where e.id in (${ids(p.eventIds)}) or (e.device_id = ${p.deviceId} and e.seq in (${seqList}))) as stored,
+      (select coalesce(json_agg(json_build_array(c.device_id, c.theta_ms, c.delta_ms, c.measured_at_wall_ms)), '[]')
+        from device_clock_estimates c
+        where c.device_id = ${p.deviceId} or c.device_id in (select distinct device_id from events where run_id in (${runList}))) as estimates)
+    select true as f, f.runs, f.stored, f.estimates, null::text as id, null::text as run_id, null::text as device_id, null::int as seq,
+      null::text as recorded_by, null::jsonb as body, null::float8 as wall_ms, null::float8 as mono_ms, null::text as page_id,
+      null::float8 as offset_theta_ms, null::float8 as offset_delta_ms, null::float8 as offset_measured_at_ms, null::float8 as corrected_ms,
+      null::float8 as uncertainty_ms
+    from facts f
+    union all
+    select false, null, null, null, e.id::text, e.run_id::text, e.device_id, e.seq, e.recorded_by::text, e.body, e.wall_ms, e.mono_ms, e.page_id,
+      e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms, e.corrected_ms, e.uncertainty_ms
+    from events e where e.run_id in (${runList})`);
+  const facts = res.rows.find((r) => r.f)!;
+  const row = { runs: facts.runs ?? [], stored: facts.stored ?? [], estimates: facts.estimates ?? [] };
+  const runs = new Map<string, LoadedRun>(row.runs.map((r) => [r.id, { ...r, events: [] }]));
+  for (const e of res.rows) if (!e.f) runs.get(e.run_id)?.events.push(fromRow(e));
+  const estimates = new Map<string, ClockEstimate[]>();
+  for (const [deviceId, thetaMs, deltaMs, measuredAtWallMs] of row.estimates) {
+    const list = estimates.get(deviceId) ?? [];
+    list.push({ thetaMs, deltaMs, measuredAtWallMs });
+    estimates.set(deviceId, list);
+  }
+  return { runs, stored: row.stored, estimates };
+}
+
+type LoadedRunRow = Omit<LoadedRun, "events">;
+
+type EventRow = {
+  id: string; run_id: string; device_id: string; seq: number; recorded_by: string; body: EventBody; wall_ms: number; mono_ms: number; page_id: string;
+  offset_theta_ms: number | null; offset_delta_ms: number | null; offset_measured_at_ms: number | null; corrected_ms: number; uncertainty_ms: number | null;
+};
+
+function fromRow(e: EventRow): DerivationEvent {
+  const offset =
+    e.offset_theta_ms !== null && e.offset_delta_ms !== null && e.offset_measured_at_ms !== null
+      ? { thetaMs: e.offset_theta_ms, deltaMs: e.offset_delta_ms, measuredAtWallMs: e.offset_measured_at_ms }
+      : null;
+  return {
+    id: e.id, deviceId: e.device_id, seq: e.seq, recordedBy: e.recorded_by, body: e.body,
+    stamp: { wallMs: e.wall_ms, monoMs: e.mono_ms, pageId: e.page_id, offset },
+    correctedMs: e.corrected_ms,
+    uncertaintyMs: uncertaintyOf(e.uncertainty_ms),
+  };
+}

@@ -1,0 +1,102 @@
+import "./support/session";
+import { asc, eq, inArray } from "drizzle-orm";
+import fc from "fast-check";
+import { afterAll, describe, expect, it } from "vitest";
+import { applyPush } from "@/db/queries/sync-push";
+import { listDeviceEstimates, toDerivationEvent } from "@/db/queries/runs";
+import { events, runLanes, runs } from "@/db/schema";
+import type { EventBody, RunEvent } from "@/lib/events/schema";
+import { runResult } from "@/lib/results";
+import { getCatalogueTask, parseTaskDefinition, type TaskLetter } from "@/lib/tasks";
+import { db, getPool } from "./support/db";
+import { createSimUsers } from "./sync-sim";
+import { deviceId, recorder, run, session, T0 } from "./sync-fixtures";
+
+afterAll(async () => {
+  await getPool().end();
+});
+
+/**
+ * A push derives each run it touches once, from what it loaded after locking the run plus the
+ * events it inserted (db/queries/sync-push.ts), never by reading the run back. Over random event
+ * sequences from two phones (clocks apart, undos, corrections, penalties, both lanes) pushed in
+ * random batches, what each push stores must equal lib/results runResult over every stored event
+ * read from scratch, after every push.
+ */
+type Step = { phone: 0 | 1; kind: "window-start" | "launch" | "landing" | "void" | "correct" | "penalty" | "run-end"; lane: 0 | 1; gapMs: number; pick: number };
+
+const stepArb: fc.Arbitrary<Step> = fc.record({
+  phone: fc.constantFrom(0 as const, 1 as const),
+  kind: fc.constantFrom("window-start", "launch", "launch", "landing", "landing", "void", "correct", "penalty", "run-end"),
+  lane: fc.constantFrom(0 as const, 1 as const),
+  gapMs: fc.integer({ min: 0, max: 90_000 }),
+  pick: fc.nat(),
+});
+
+const RUNS = Number(process.env.SYNC_DERIVE_RUNS ?? 25);
+const SEED = Number(process.env.SYNC_DERIVE_SEED ?? 20261204);
+
+async function fromScratch(runId: string) {
+  const [r] = await db.select().from(runs).where(eq(runs.id, runId));
+  const lanes = await db.select().from(runLanes).where(eq(runLanes.runId, runId)).orderBy(asc(runLanes.lane));
+  const rows = await db.select().from(events).where(eq(events.runId, runId));
+  const estimates = await listDeviceEstimates(db as never, [...new Set(rows.map((e) => e.deviceId))]);
+  return runResult({
+    task: parseTaskDefinition(r!.task),
+    createdBy: r!.createdBy,
+    lanes: lanes.map((l) => ({ lane: l.lane, pilotUserId: l.pilotUserId })),
+    officials: new Set(),
+    events: rows.map(toDerivationEvent).sort((a, b) => (a.id < b.id ? -1 : 1)),
+    estimatesByDevice: estimates,
+  }).lanes;
+}
+
+describe("derivation per push equals derivation from scratch (property)", () => {
+  it(`over ${RUNS} random event sequences in random batches (seed ${SEED})`, async () => {
+    const [ada] = await createSimUsers(db, 1);
+    await fc.assert(
+      fc.asyncProperty(
+        fc.array(stepArb, { minLength: 1, maxLength: 40 }),
+        fc.array(fc.integer({ min: 1, max: 12 }), { minLength: 1, maxLength: 40 }),
+        fc.constantFrom<TaskLetter>("H", "B", "J", "F", "A"),
+        async (steps, batches, letter) => {
+          const phones = [recorder(deviceId(), { thetaMs: 0 }), recorder(deviceId(), { thetaMs: -4_000 })];
+          const s = session(ada!.id);
+          const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }, { lane: 1, pilotName: "Guest" }], getCatalogueTask(letter));
+          await applyPush(db, ada!.id, { deviceId: phones[0]!.id, sessions: [s], runs: [r], events: [] });
+          const made: RunEvent[][] = [[], []];
+          let t = T0;
+          for (const step of steps) {
+            t += step.gapMs;
+            const mine = made[step.phone]!;
+            const target = mine.length ? mine[step.pick % mine.length]! : null;
+            let body: EventBody;
+            if ((step.kind === "void" || step.kind === "correct") && target) {
+              body = step.kind === "void" ? { kind: "void", targetId: target.id } : { kind: "correct", targetId: target.id, wallMs: target.stamp.wallMs - 1_500 };
+            } else if (step.kind === "penalty") body = { kind: "penalty", lane: step.lane, points: 100, reason: "safety" };
+            else if (step.kind === "window-start" || step.kind === "run-end") body = { kind: step.kind };
+            else body = { kind: step.kind === "void" || step.kind === "correct" ? "launch" : step.kind, lane: step.lane };
+            mine.push(phones[step.phone]!.at(r.id, t, body));
+          }
+          // each phone pushes its own events, in its own batches, the phones taking turns
+          const queues = made.map((list) => [...list]);
+          let b = 0;
+          while (queues.some((q) => q.length > 0)) {
+            for (const [i, q] of queues.entries()) {
+              const batch = q.splice(0, batches[b++ % batches.length]!);
+              if (batch.length === 0) continue;
+              const reply = await applyPush(db, ada!.id, { deviceId: phones[i]!.id, sessions: [], runs: [], events: batch });
+              expect(reply.acks.filter((a) => a.status !== "applied")).toEqual([]);
+              const stored = await db.select().from(runLanes).where(inArray(runLanes.runId, [r.id])).orderBy(asc(runLanes.lane));
+              const expected = await fromScratch(r.id);
+              expect(stored.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: l.derived, review: l.needsReview, reason: l.reviewReason }))).toEqual(
+                expected.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: JSON.parse(JSON.stringify(l.derived)), review: l.needsReview, reason: l.reviewReason })),
+              );
+            }
+          }
+        },
+      ),
+      { numRuns: RUNS, seed: SEED, endOnFailure: true },
+    );
+  }, 300_000);
+});
