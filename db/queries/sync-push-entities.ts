@@ -14,12 +14,6 @@ export type PushContext = { tx: Tx; userId: string; deviceId: string; clubIds: R
 
 export const reject = (ctx: PushContext, id: string, reason: string) => ctx.acks.push({ id, status: "rejected", reason });
 
-/** The clubs a user belongs to. */
-export async function listUserClubIds(tx: Tx, userId: string): Promise<Set<string>> {
-  const rows = await tx.select({ clubId: memberships.clubId }).from(memberships).where(eq(memberships.userId, userId));
-  return new Set(rows.map((r) => r.clubId));
-}
-
 /** Apply pushed sessions; returns the ids the server now holds for this user (applied or duplicate). */
 export async function applySessions(ctx: PushContext, sessions: readonly SessionEntity[]): Promise<Set<string>> {
   const ok = new Set<string>();
