@@ -48,6 +48,9 @@ try {
   const next = deviceWorkload(uid, 1, 30, 12);
   await applyPush(db, uid, next[0]!);
   await profile("a push of 10 events into a run with 10", () => applyPush(db, uid, next[1]!));
+  const through = deviceWorkload(uid, 6, 100, 200); // the throughput bench's shape: runs of 100, pushes of 200
+  for (const p of through.slice(0, 2)) await applyPush(db, uid, p);
+  await profile("a push of 200 items (runs of 100) as the throughput bench sends them", () => applyPush(db, uid, through[2]!));
   const big = deviceWorkload(uid, 1, RUN + 200, 200);
   const t0 = performance.now();
   for (const p of big.slice(0, -1)) await applyPush(db, uid, p);

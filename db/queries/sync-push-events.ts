@@ -1,5 +1,5 @@
 import "server-only";
-import { inArray } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
 import { correctStamp, uncertaintyOf } from "@/lib/sync/correct-events";
@@ -14,7 +14,7 @@ import type { PushLoad } from "./sync-push-load";
  * and stored once — unique id and unique (device, seq), insert … on conflict do nothing — with
  * its raw stamp and its corrected time. Reads nothing itself: the push's one load (sync-push-load.ts)
  * holds the runs, the clashing and amended events and the device's estimates; the fresh events go
- * in one multi-row insert … on conflict do nothing returning id per 500. Returns, by run, the
+ * in one insert … on conflict do nothing returning id per 500 (insertEvents: one array per column). Returns, by run, the
  * events it stored (the derivation adds them to what the load read).
  *
  * An event whose run is not on the server is refused, not held: devices send a run before its
@@ -85,9 +85,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   }
   for (let i = 0; i < fresh.length; i += 500) {
     const chunk = fresh.slice(i, i + 500);
-    const inserted = new Set(
-      (await tx.insert(events).values(chunk).onConflictDoNothing().returning({ id: events.id })).map((r) => r.id),
-    );
+    const inserted = await insertEvents(ctx.tx, chunk);
     // a conflict here is a row another transaction committed since the checks above: the same
     // event (a repeat) or an id some other event took first
     const raced = chunk.filter((row) => !inserted.has(row.id!));
@@ -124,4 +122,30 @@ function asDerivationEvent(row: typeof events.$inferInsert): DerivationEvent {
     stamp: { wallMs: row.wallMs, monoMs: row.monoMs, pageId: row.pageId, offset },
     correctedMs: row.correctedMs, uncertaintyMs: uncertaintyOf(row.uncertaintyMs ?? null),
   };
+}
+
+type EventInsert = typeof events.$inferInsert;
+
+/**
+ * Insert rows into events … on conflict do nothing, returning the ids stored: ONE statement with
+ * one array parameter per column (unnest), so neither the query text nor the parameter count
+ * grows with the rows (a multi-row VALUES list has 15 parameters per row to build and bind).
+ */
+async function insertEvents(tx: PushContext["tx"], rows: readonly EventInsert[]): Promise<Set<string>> {
+  const col = <T>(pick: (r: EventInsert) => T) => sql.param(rows.map(pick));
+  const res = await tx.execute<{ id: string }>(sql`
+    insert into events (id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id,
+      offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms)
+    select id, run_id, device_id, seq, recorded_by, kind, body::jsonb, wall_ms, mono_ms, page_id,
+      offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms
+    from unnest(${col((r) => r.id)}::uuid[], ${col((r) => r.runId)}::uuid[], ${col((r) => r.deviceId)}::text[], ${col((r) => r.seq)}::int[],
+      ${col((r) => r.recordedBy)}::uuid[], ${col((r) => r.kind)}::text[], ${col((r) => JSON.stringify(r.body))}::text[],
+      ${col((r) => r.wallMs)}::float8[], ${col((r) => r.monoMs)}::float8[], ${col((r) => r.pageId)}::text[],
+      ${col((r) => r.offsetThetaMs ?? null)}::float8[], ${col((r) => r.offsetDeltaMs ?? null)}::float8[], ${col((r) => r.offsetMeasuredAtMs ?? null)}::float8[],
+      ${col((r) => r.correctedMs)}::float8[], ${col((r) => r.uncertaintyMs ?? null)}::float8[])
+      as v(id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id,
+        offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms)
+    on conflict do nothing
+    returning id::text`);
+  return new Set(res.rows.map((r) => r.id));
 }

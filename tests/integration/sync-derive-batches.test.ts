@@ -99,4 +99,20 @@ describe("derivation per push equals derivation from scratch (property)", () => 
       { numRuns: RUNS, seed: SEED, endOnFailure: true },
     );
   }, 300_000);
+
+  it("stores each pushed event as sent: quotes, backslashes and emoji in a body, no clock estimate (nulls)", async () => {
+    const [ada] = await createSimUsers(db, 1);
+    const phone = recorder(deviceId(), { estimate: null });
+    const s = session(ada!.id);
+    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
+    const reason = 'he said "no" \\ {not json} \u00fc 🛩 \n end';
+    const sent = [phone.at(r.id, T0, { kind: "window-start" }), phone.at(r.id, T0 + 5, { kind: "penalty", lane: 0, points: 100, reason })];
+    const reply = await applyPush(db, ada!.id, { deviceId: phone.id, sessions: [s], runs: [r], events: sent });
+    expect(reply.acks.every((a) => a.status === "applied")).toBe(true);
+    const rows = await db.select().from(events).where(eq(events.runId, r.id)).orderBy(asc(events.seq));
+    expect(rows.map((e) => e.body)).toEqual(sent.map((e) => e.body));
+    expect(rows.map((e) => [e.wallMs, e.monoMs, e.pageId, e.offsetThetaMs, e.offsetDeltaMs, e.offsetMeasuredAtMs, e.uncertaintyMs])).toEqual(
+      sent.map((e) => [e.stamp.wallMs, e.stamp.monoMs, e.stamp.pageId, null, null, null, null]),
+    );
+  });
 });
