@@ -1,14 +1,10 @@
 "use client";
 
-import dynamic from "next/dynamic";
+import { useSession } from "next-auth/react";
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { switchDeviceUser } from "@/lib/offline/device-user";
 import type { SyncClient, SyncStatus } from "@/lib/offline/sync-client";
-import type { SessionSeen } from "./session-watch";
 import { useOnline } from "./use-online";
-
-// next-auth's client (the session) loads after first paint too, and renders beside the page.
-const SessionWatch = dynamic(() => import("./session-watch"), { ssr: false });
 
 type Runtime = typeof import("./sync-runtime");
 
@@ -23,8 +19,7 @@ const SyncContext = createContext<SyncContextValue | null>(null);
  * start, on `online`, on becoming visible), with persistent storage requested once. Also keeps
  * the signed-in user's profile in the device database while online, so pages that open offline
  * know who is timing, and moves to that account's own device database when a different account
- * signs in on this browser (device-user.ts). Who is signed in comes from next-auth's session
- * (session-watch.tsx, also loaded after first paint). Nothing here touches storage while rendering.
+ * signs in on this browser (device-user.ts). Nothing here touches storage while rendering.
  */
 export function SyncProvider({ children }: { children: ReactNode }) {
   const [runtime, setRuntime] = useState<Runtime | null>(null);
@@ -32,8 +27,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const [status, setStatus] = useState<SyncStatus | null>(null);
   // Bumped when another account signs in here: the pages below remount on its database.
   const [generation, setGeneration] = useState(0);
-  const [session, setSession] = useState<SessionSeen>({ status: "loading", user: null });
-  const authStatus = session.status;
+  const { data: session, status: authStatus } = useSession();
   // Signed-out pages call no signed-in API: sync starts once the session is known to be signed
   // in — or, offline (next-auth cannot ask the server, so it says "unauthenticated"), straight
   // away, so a field page opened with no signal still syncs when the signal returns.
@@ -59,7 +53,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     return runtime.startSync(client);
   }, [client, started, runtime]);
 
-  const user = session.user;
+  const user = session?.user;
   useEffect(() => {
     if (authStatus !== "authenticated" || !user?.id || !runtime || !client) return;
     // Another account signed in (rare): the stored choice changed outside React, so the client
@@ -82,7 +76,6 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   return (
     <SyncContext.Provider value={{ client, status }}>
       <Fragment key={generation}>{children}</Fragment>
-      <SessionWatch onChange={setSession} />
     </SyncContext.Provider>
   );
 }

@@ -1,6 +1,6 @@
 "use client";
 
-import { SessionProvider, useSession } from "next-auth/react";
+import { useSession } from "next-auth/react";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { accountRequest, signOutHere } from "./account-request";
@@ -10,19 +10,10 @@ import { EmailSettings } from "./email-settings";
 
 /**
  * The Settings page's account section. The page is precached for the field, so this half is a
- * client component that asks next-auth who is signed in (its own SessionProvider: the app's
- * frame loads next-auth's client only after first paint, components/sync/session-watch.tsx);
- * every change goes to /api/account/* and needs a connection.
+ * client component that asks next-auth who is signed in; every change goes to /api/account/*
+ * and needs a connection.
  */
 export function AccountSettings() {
-  return (
-    <SessionProvider refetchOnWindowFocus={false}>
-      <Account />
-    </SessionProvider>
-  );
-}
-
-function Account() {
   const { data: session, status } = useSession();
   const [error, setError] = useState<string | null>(null);
   if (status === "loading") return <p className="text-muted">Loading your account…</p>;
