@@ -8,7 +8,7 @@
 import { v7 as uuidv7 } from "uuid";
 import type { RunEvent } from "@/lib/events/schema";
 import { tapKindFor } from "@/lib/field/lane-tap";
-import { placedTimeline, placeOnRun } from "@/lib/offline/run-result";
+import { placedTimeline } from "@/lib/offline/run-result";
 import { createWindowcallDb } from "@/lib/offline/db";
 import { getDeviceId, stampFromInput } from "@/lib/offline/device";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
@@ -49,7 +49,7 @@ async function setup() {
     const stamp = stampFromInput(t0, null);
     queue = queue.then(async () => {
       const view = { deviceId, me: null, estimate: null };
-      const kind = tapKindFor(task, placedTimeline(events, view), placeOnRun(events, view, stamp), 0, 1);
+      const kind = tapKindFor(placedTimeline(events, view), 0, 1);
       events.push(await recordEvent(db, { runId, body: { kind, lane: 0 }, stamp }));
       results.tap.push(performance.now() - t0);
       if (events.length > TAPS_PER_RUN) await newRun();

@@ -1,18 +1,19 @@
 "use client";
 
-import { QueryClientProvider } from "@tanstack/react-query";
 import { SessionProvider } from "next-auth/react";
 import type { ReactNode } from "react";
 import { SyncProvider } from "@/components/sync/sync-provider";
-import { getQueryClient } from "@/lib/query/query-client";
 
-/** Client-side providers for the whole app. */
+/**
+ * Client-side providers for the whole signed-in app: the session and sync (whose heavy half loads
+ * after first paint: components/sync/sync-runtime.ts). TanStack Query is not among them: no screen
+ * uses it yet, and every signed-in page's first load would carry it (a screen that does wraps
+ * itself in QueryClientProvider with lib/query's getQueryClient()).
+ */
 export function Providers({ children }: { children: ReactNode }) {
   return (
     <SessionProvider refetchOnWindowFocus={false}>
-      <QueryClientProvider client={getQueryClient()}>
-        <SyncProvider>{children}</SyncProvider>
-      </QueryClientProvider>
+      <SyncProvider>{children}</SyncProvider>
     </SessionProvider>
   );
 }

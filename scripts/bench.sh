@@ -2,7 +2,7 @@
 # npm run bench — speed targets as ratios measured in one run (never in timed unit tests).
 # Works on a fresh clone: installs npm packages, starts this checkout's PostgreSQL, creates,
 # migrates and seeds the test database (as npm test does; it is not dropped: the benches make
-# their own users), and runs the Chromium bench only when Debian's Chromium is there (the path tests use).
+# their own users), and runs the Chromium benches (tap, Lighthouse) only when Debian's Chromium is there (the path tests use).
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 ensure_node_modules
 say "machine: $(nproc) cores, $(awk '/MemTotal/ { printf "%.1f GB RAM", $2 / 1048576 }' /proc/meminfo), $(uname -sm), node $(node -v)"
@@ -24,7 +24,7 @@ CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
 for extra in bench/*.bench.ts; do
   case "$extra" in bench/engine.bench.ts) continue ;; esac
   [ -f "$extra" ] || continue
-  if [ "$extra" = bench/tap.bench.ts ] && [ ! -x "$CHROMIUM" ]; then
+  if { [ "$extra" = bench/tap.bench.ts ] || [ "$extra" = bench/lighthouse.bench.ts ]; } && [ ! -x "$CHROMIUM" ]; then
     say "$extra skipped: no Chromium at $CHROMIUM (npm test installs Debian's chromium; or set CHROMIUM_PATH)"
     continue
   fi

@@ -1,6 +1,6 @@
 "use client";
 
-import { useLocalProfile } from "@/components/sync/sync-provider";
+import { useLocalProfile } from "@/components/sync/use-local-profile";
 
 export type FieldProfile = { id: string; name: string };
 

@@ -7,7 +7,7 @@ import { stampForMoment } from "@/lib/field/input-time";
 import { tapKindFor, undoTargetFor } from "@/lib/field/lane-tap";
 import type { TimeSource } from "@/lib/field/time-source";
 import { getPageId } from "@/lib/offline/device";
-import { placedTimeline, placeOnRun, type PhoneView } from "@/lib/offline/run-result";
+import { placedTimeline, type PhoneView } from "@/lib/offline/run-result";
 import type { TaskDefinition } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 import type { BodyFor } from "./use-recorder";
@@ -36,9 +36,8 @@ export function useRunActions({ task, laneCount, view, clocks, record, stampInpu
   const startBody = (evs: readonly RunEvent[]): EventBody | null => (task.kind === "all-up" || !hasStart(evs) ? { kind: "window-start" } : null);
 
   return {
-    /** Launch or landing, decided when every earlier tap is stored. */
-    tap: (lane: number, timeStamp: number) =>
-      record(stampInput(timeStamp), (evs, stamp) => ({ kind: tapKindFor(task, timeline(evs), placeOnRun(evs, view, stamp), lane, laneCount), lane })),
+    /** Launch or landing, decided when every earlier tap is stored (a cheap check: the live state is computed after the write). */
+    tap: (lane: number, timeStamp: number) => record(stampInput(timeStamp), (evs) => ({ kind: tapKindFor(timeline(evs), lane, laneCount), lane })),
     start: (timeStamp: number) => record(stampInput(timeStamp), startBody),
     /** The countdown reached zero: the working time starts at the planned moment. */
     startAt: (wallMs: number) => record(stampForMoment(wallMs, clocks, getPageId(), estimate), (evs) => (hasStart(evs) ? null : { kind: "window-start" })),

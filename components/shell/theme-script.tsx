@@ -1,12 +1,15 @@
 /**
  * Sets the saved theme before the first paint, so the page never flashes the wrong scheme.
- * Outdoor (high contrast) is the default: the app is used in the sun.
+ * Outdoor (high contrast) is the default: the app is used in the sun. Also marks whether this
+ * phone has read the first-use cautions (`data-cautions-seen`), so the field page can render
+ * them on the server and hide them before paint, with nothing moving once the page hydrates.
  */
 export const THEME_KEY = "windowcall.theme";
 export const THEMES = ["outdoor", "light", "dark"] as const;
 export type Theme = (typeof THEMES)[number];
+export const CAUTIONS_SEEN_KEY = "windowcall.cautions.seen";
 
-const script = `try{var t=localStorage.getItem(${JSON.stringify(THEME_KEY)});if(["outdoor","light","dark"].indexOf(t)<0)t="outdoor";document.documentElement.dataset.theme=t}catch(e){document.documentElement.dataset.theme="outdoor"}`;
+const script = `try{var t=localStorage.getItem(${JSON.stringify(THEME_KEY)});if(["outdoor","light","dark"].indexOf(t)<0)t="outdoor";document.documentElement.dataset.theme=t}catch(e){document.documentElement.dataset.theme="outdoor"}try{if(localStorage.getItem(${JSON.stringify(CAUTIONS_SEEN_KEY)})==="1")document.documentElement.dataset.cautionsSeen="1"}catch(e){}`;
 
 /** The inline script, carrying this response's CSP nonce (browsers hide it from the DOM, hence the warning opt-out). */
 export function ThemeScript({ nonce }: { nonce?: string }) {

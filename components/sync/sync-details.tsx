@@ -65,7 +65,7 @@ export function SyncDetails({ ref, status }: { ref: Ref<HTMLDialogElement>; stat
         </ul>
       )}
       <form method="dialog" className="mt-4 flex gap-2">
-        <button type="button" className="min-h-touch flex-1 rounded-xl border-2 border-ink px-4 font-bold" onClick={() => void client.sync()}>
+        <button type="button" className="min-h-touch flex-1 rounded-xl border-2 border-ink px-4 font-bold" disabled={!client} onClick={() => void client?.sync()}>
           Sync now
         </button>
         <button className="min-h-touch flex-1 rounded-xl bg-accent px-4 font-bold text-accent-ink">Close</button>

@@ -1,29 +1,29 @@
 "use client";
 
-import { useLiveQuery } from "dexie-react-hooks";
 import { useSession } from "next-auth/react";
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
-import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
-import { currentDeviceUser, giveOwnDatabase, switchDeviceUser } from "@/lib/offline/device-user";
-import { requestPersistence } from "@/lib/offline/storage";
-import { startSyncInBrowser } from "@/lib/offline/sync-browser";
+import { switchDeviceUser } from "@/lib/offline/device-user";
+import type { SyncClient, SyncStatus } from "@/lib/offline/sync-client";
 import { useOnline } from "./use-online";
-import { createSyncClient, type SyncClient, type SyncStatus } from "@/lib/offline/sync-client";
 
-type SyncContextValue = { client: SyncClient; status: SyncStatus | null };
+type Runtime = typeof import("./sync-runtime");
+
+/** The page's sync client (null until its code has loaded, just after the page is drawn) and its latest status. */
+type SyncContextValue = { client: SyncClient | null; status: SyncStatus | null };
 
 const SyncContext = createContext<SyncContextValue | null>(null);
 
 /**
- * The page's one sync client (SYNC.md §2): created once, started in the browser (flush on
- * start, on `online`, on becoming visible), with persistent storage requested once. Also
- * keeps the signed-in user's profile in the device database while online, so pages that
- * open offline know who is timing, and moves to that account's own device database when a
- * different account signs in on this browser (device-user.ts). Constructing the client
- * touches no storage, so this is safe to render on the server; it starts only in an effect.
+ * The page's one sync client (SYNC.md §2): created once its code has loaded (sync-runtime.ts,
+ * fetched after the page is drawn so no screen waits for it), started in the browser (flush on
+ * start, on `online`, on becoming visible), with persistent storage requested once. Also keeps
+ * the signed-in user's profile in the device database while online, so pages that open offline
+ * know who is timing, and moves to that account's own device database when a different account
+ * signs in on this browser (device-user.ts). Nothing here touches storage while rendering.
  */
 export function SyncProvider({ children }: { children: ReactNode }) {
-  const [client, setClient] = useState(newClient);
+  const [runtime, setRuntime] = useState<Runtime | null>(null);
+  const [client, setClient] = useState<SyncClient | null>(null);
   const [status, setStatus] = useState<SyncStatus | null>(null);
   // Bumped when another account signs in here: the pages below remount on its database.
   const [generation, setGeneration] = useState(0);
@@ -36,22 +36,31 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const [started, setStarted] = useState(false);
   if (!started && (authStatus === "authenticated" || (authStatus === "unauthenticated" && !online))) setStarted(true);
 
-  useEffect(() => client.subscribe(setStatus), [client]);
   useEffect(() => {
-    if (!started) return;
-    const stop = startSyncInBrowser(client);
-    void requestPersistence();
-    return stop;
-  }, [client, started]);
+    let live = true;
+    void import("./sync-runtime").then((loaded) => {
+      if (!live) return;
+      setRuntime(loaded);
+      setClient((c) => c ?? loaded.newClient());
+    });
+    return () => {
+      live = false;
+    };
+  }, []);
+  useEffect(() => client?.subscribe(setStatus), [client]);
+  useEffect(() => {
+    if (!started || !client || !runtime) return;
+    return runtime.startSync(client);
+  }, [client, started, runtime]);
 
   const user = session?.user;
   useEffect(() => {
-    if (authStatus !== "authenticated" || !user?.id) return;
+    if (authStatus !== "authenticated" || !user?.id || !runtime || !client) return;
     // Another account signed in (rare): the stored choice changed outside React, so the client
     // and the pages below must follow it now.
     const follow = () => {
       setStatus(null);
-      setClient(newClient());
+      setClient(runtime.newClient());
       setGeneration((g) => g + 1);
     };
     if (switchDeviceUser(user.id)) {
@@ -59,16 +68,10 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       return; // this effect runs again with the new client
     }
     const profile = { id: user.id, name: user.name ?? "", email: user.email ?? "" };
-    const db = getWindowcallDb();
-    void (async () => {
-      const cached = await getMeta(db, "profile");
-      // This database holds another account's records (localStorage was cleared): use a fresh one.
-      if (cached && cached.id !== profile.id) return giveOwnDatabase(profile.id) ? follow() : undefined;
-      if (cached?.name !== profile.name || cached.email !== profile.email) await setMeta(db, "profile", profile);
-    })().catch(() => undefined);
+    void runtime.keepProfile(profile, follow).catch(() => undefined);
     // signed in again after the server said 401: leave the signed-out state and sync
     if (client.status().state === "signed-out") void client.resume();
-  }, [authStatus, user?.id, user?.name, user?.email, client]);
+  }, [authStatus, user?.id, user?.name, user?.email, client, runtime]);
 
   return (
     <SyncContext.Provider value={{ client, status }}>
@@ -77,24 +80,9 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   );
 }
 
-
-/**
- * A sync client on the database of the account in use, naming that account (read once: a client
- * still finishing a request after a switch must not speak for the new account).
- */
-function newClient(): SyncClient {
-  const account = currentDeviceUser();
-  return createSyncClient({ db: getWindowcallDb(), fetch: (input, init) => fetch(input, init), account: () => account });
-}
-
-/** The sync client and its latest status (null until the first report). */
+/** The sync client (null until loaded) and its latest status (null until the first report). */
 export function useSync(): SyncContextValue {
   const value = useContext(SyncContext);
   if (!value) throw new Error("useSync needs <SyncProvider> above it");
   return value;
-}
-
-/** The signed-in user as last seen online (undefined while loading, null if never cached). */
-export function useLocalProfile(): MetaValues["profile"] | null | undefined {
-  return useLiveQuery(async () => (await getMeta(getWindowcallDb(), "profile")) ?? null, []);
 }

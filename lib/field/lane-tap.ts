@@ -1,18 +1,24 @@
 import type { RunEvent } from "@/lib/events/schema";
-import { liveState, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
+import { pairFlights } from "@/lib/tasks/flights";
+import type { TimelineEvent } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
 
 /** What a tap on a lane's big control records. */
 export type TapKind = "launch" | "landing";
 
 /**
- * A tap toggles: landing when the lane has a model in the air at the tap's time, else
- * launch. Decided from the stored events only (never from what the screen last drew), and
- * with no debounce: a landing and a relaunch 0.3 s apart are two taps (RULES.md, common practice).
+ * A tap toggles: landing when the lane has a model in the air, else launch. Decided from the
+ * stored events only (never from what the screen last drew), and with no debounce: a landing
+ * and a relaunch 0.3 s apart are two taps (RULES.md, common practice).
+ *
+ * This is the only work on a tap's path before its write, so it only pairs the lanes'
+ * launches and landings (undo and corrections applied) — the same pairing the live state's
+ * "flight in the air" comes from — and computes no results, hints or warnings: the screen
+ * computes those after the event is stored.
  */
-export function tapKindFor(def: TaskDefinition, timeline: readonly TimelineEvent[], atMs: number, lane: number, laneCount: number): TapKind {
-  const state = liveState(def, timeline, atMs, { laneCount });
-  return state.lanes[lane]?.currentFlightMs != null ? "landing" : "launch";
+export function tapKindFor(timeline: readonly TimelineEvent[], lane: number, laneCount: number): TapKind {
+  const log = pairFlights(timeline, laneCount).lanes[lane];
+  return log?.flights.some((f) => f.landAtMs === null) ? "landing" : "launch";
 }
 
 const LANE_KINDS = new Set(["launch", "landing", "target", "end-call"]);

@@ -26,7 +26,9 @@ async function enqueue(db: WindowcallDb, id: string, kind: OutboxKind, createdAt
 
 /**
  * Record one event of a run: allocates the next per-device seq, writes the event and its
- * outbox entry atomically, and returns the stored event.
+ * outbox entry atomically, and returns the stored event. It is a tap's whole path to storage,
+ * so the reads (device id, both counters) are issued together, then the four writes together:
+ * the same requests in one transaction, without a round trip to the page between each.
  */
 export async function recordEvent(
   db: WindowcallDb,
@@ -35,14 +37,20 @@ export async function recordEvent(
 ): Promise<RunEvent> {
   const now = options.now ?? Date.now;
   return db.transaction("rw", [db.events, db.outbox, db.meta], async () => {
-    const deviceId = await getDeviceId(db);
-    const seq = await takeCounter(db, "nextSeq");
+    const [storedDeviceId, nextSeq, nextQueueSeq] = await Promise.all([getMeta(db, "deviceId"), getMeta(db, "nextSeq"), getMeta(db, "nextQueueSeq")]);
+    const deviceId = storedDeviceId ?? (await getDeviceId(db));
+    const seq = nextSeq ?? 1;
+    const queueSeq = nextQueueSeq ?? 1;
     // an offset the protocol cannot carry (an absurd exchange) must not cost the tap: record it without
     const offset = input.stamp.offset && clockEstimateSchema.safeParse(input.stamp.offset).success ? input.stamp.offset : null;
     const stamp = { ...input.stamp, offset };
     const event = runEventSchema.parse({ id: uuidv7(), runId: input.runId, deviceId, seq, stamp, body: input.body });
-    await db.events.add(event);
-    await enqueue(db, event.id, "event", now());
+    await Promise.all([
+      setMeta(db, "nextSeq", seq + 1),
+      db.events.add(event),
+      setMeta(db, "nextQueueSeq", queueSeq + 1),
+      db.outbox.add({ id: event.id, kind: "event", createdAt: now(), queueSeq, attempts: 0 }),
+    ]);
     return event;
   });
 }

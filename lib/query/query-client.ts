@@ -5,7 +5,7 @@ function isAuthError(error: unknown): boolean {
   return status === 401 || status === 403;
 }
 
-/** One QueryClient shape for server and browser: cached for a minute, no retries on 401/403. */
+/** One QueryClient shape for server and browser (for a screen that wraps itself in QueryClientProvider): cached for a minute, no retries on 401/403. */
 export function makeQueryClient(): QueryClient {
   return new QueryClient({
     defaultOptions: {

@@ -12,7 +12,7 @@ const H = getCatalogueTask("H");
 function tapAll(timesMs: number[], lane = 0, laneCount = 1, events: TimelineEvent[] = []) {
   let n = events.length;
   for (const at of timesMs) {
-    const kind = tapKindFor(H, events, at, lane, laneCount);
+    const kind = tapKindFor(events, lane, laneCount);
     events.push({ id: `00000000-0000-7000-8000-${String(++n).padStart(12, "0")}`, atMs: at, body: { kind, lane } });
   }
   return events;
@@ -32,8 +32,8 @@ describe("tapKindFor", () => {
   it("keeps lanes apart", () => {
     const events: TimelineEvent[] = [{ id: "00000000-0000-7000-8000-000000000000", atMs: 0, body: { kind: "window-start" } }];
     tapAll([1000], 0, 2, events);
-    expect(tapKindFor(H, events, 2000, 1, 2)).toBe("launch");
-    expect(tapKindFor(H, events, 2000, 0, 2)).toBe("landing");
+    expect(tapKindFor(events, 1, 2)).toBe("launch");
+    expect(tapKindFor(events, 0, 2)).toBe("landing");
   });
 });
 

@@ -20,7 +20,7 @@ export function SignOutButton() {
 
   async function finish() {
     setBusy(true);
-    client.stop();
+    client?.stop();
     // offline: the local data is cleared all the same, and the server session ends at the next request that reaches it
     await endServerSession(() => signOut({ redirect: false }));
     await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
@@ -31,7 +31,7 @@ export function SignOutButton() {
 
   async function start() {
     setBusy(true);
-    if (navigator.onLine) await client.flush().catch(() => undefined);
+    if (navigator.onLine && client) await client.flush().catch(() => undefined);
     const kept = await countKeptAtSignOut(getWindowcallDb()).catch(() => 0);
     if (kept > 0) {
       setBusy(false);

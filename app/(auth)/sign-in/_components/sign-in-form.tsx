@@ -1,16 +1,21 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { lazyResolver } from "@/components/ui/lazy-resolver";
 import { safeNextPath } from "@/lib/security/safe-next";
-import { signInSchema, type SignInInput } from "@/lib/validations/auth";
+import type { SignInInput } from "@/lib/validations/auth";
 
 const WRONG = "E-mail or password is wrong.";
+
+// zod, the form's schema and next-auth's client load when the form is first sent, not with the page.
+const resolver = lazyResolver<SignInInput>(async () => {
+  const [{ zodResolver }, { signInSchema }] = await Promise.all([import("@hookform/resolvers/zod"), import("@/lib/validations/auth")]);
+  return zodResolver(signInSchema);
+});
 
 /**
  * What a failed sign-in says. "throttled:<minutes>" comes from the attempt limits (lib/auth/attempts.ts),
@@ -25,18 +30,19 @@ export function signInErrorMessage(error: string | undefined): string {
 }
 
 /**
- * E-mail + password (react-hook-form with the zod resolver: a message beside each field); the same
- * message for an unknown address and a wrong password.
+ * E-mail + password (react-hook-form with the zod resolver, loaded on the first submit: a message
+ * beside each field); the same message for an unknown address and a wrong password.
  */
 export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
   const router = useRouter();
   const params = useSearchParams();
   const [error, setError] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: initialEmail, password: "" } });
+  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver, defaultValues: { email: initialEmail, password: "" } });
   const fe = formState.errors;
 
   async function onValid(data: SignInInput) {
     setError(null);
+    const { signIn } = await import("next-auth/react");
     const res = await signIn("credentials", { ...data, redirect: false });
     if (!res || res.error) return setError(signInErrorMessage(res?.error ?? undefined));
     router.replace(safeNextPath(params.get("next"))); // only a path on this site: never leave it
