@@ -27,8 +27,8 @@ export const altimeterLogs = pgTable(
 );
 
 /**
- * A launch found in a log (lib/altimeter/detect.ts). Matched to a launch event of the run when one
- * lies within the tolerance on corrected time (`launchEventId`, `gapMs` = log time − event time);
+ * A launch found in a log (lib/altimeter/detect.ts). Matched to a flight of the lane when its launch
+ * lies within the tolerance on corrected time (`flightIndex`, `gapMs` = log time − launch time);
  * unmatched launches keep null there and are listed, never attached to a guessed flight.
  */
 export const launchHeights = pgTable(
@@ -41,7 +41,8 @@ export const launchHeights = pgTable(
     /** The launch instant in the log, moved onto the run's corrected timeline (ms since the epoch). */
     atMs: bigint("at_ms", { mode: "number" }).notNull(),
     heightM: doublePrecision("height_m").notNull(),
-    launchEventId: uuid("launch_event_id"),
+    /** The flight (index in the lane's derived flights) whose launch it matched; null = unmatched. */
+    flightIndex: smallint("flight_index"),
     gapMs: integer("gap_ms"),
     /** The model the lane flew at that launch (its latest "model" event), if any. */
     modelId: uuid("model_id").references(() => models.id, { onDelete: "set null" }),

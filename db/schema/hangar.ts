@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { date, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./users";
 
@@ -19,6 +20,8 @@ export const models = pgTable(
     status: modelStatusEnum("status").notNull().default("flying"),
     /** When it came to this owner (a transfer resets it; flights before it belong to the seller unless handed over). */
     ownedSince: timestamp("owned_since", { withTimezone: true }).notNull().defaultNow(),
+    /** Sellers who handed the model over with its history: their lanes flown with it still count for it. */
+    formerOwnerIds: uuid("former_owner_ids").array().notNull().default(sql`'{}'::uuid[]`),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("models_owner_id_idx").on(t.ownerId)],
