@@ -6,6 +6,7 @@ import { POST as complete } from "@/app/api/logs/[logId]/complete/route";
 import { GET as download } from "@/app/api/logs/[logId]/download/route";
 import { GET as getModelRoute } from "@/app/api/models/[modelId]/route";
 import { createModel } from "@/db/queries/models";
+import { listPilotLaunchHeights } from "@/db/queries/altimeter";
 import { altimeterLogs, launchHeights } from "@/db/schema";
 import { generateTrace } from "../unit/altimeter/trace";
 import { actAs } from "./support/session";
@@ -65,6 +66,9 @@ describe("altimeter logs through the SDK and the local object server", () => {
     expect(listed.logs[0]!.launches).toHaveLength(5);
     const model = (await (await getModelRoute(new Request("http://test"), { params: Promise.resolve({ modelId }) })).json()) as { stats: { flights: number; launches: number; bestLaunchM: number } };
     expect(model.stats).toMatchObject({ flights: 4, launches: 4 });
+    const season = await listPilotLaunchHeights(db, { userId: pilot.id });
+    expect(season.map((x) => [x.flightIndex, x.flightTenths, x.modelId])).toEqual([0, 1, 2, 3].map((i) => [i, 600, modelId]));
+    expect(await listPilotLaunchHeights(db, { userId: other.id })).toEqual([]);
     const link = (await (await download(new Request("http://test"), logParams(logId))).json()) as { url: string };
     expect(await (await fetch(link.url)).text()).toBe(csv);
   });
