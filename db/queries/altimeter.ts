@@ -101,3 +101,9 @@ export async function listPilotLaunchHeights(db: Database, p: { userId: string; 
     runId: r.run_id, lane: r.lane, atMs: Number(r.at_ms), heightM: r.height_m, flightIndex: r.flight_index, flightTenths: r.flight_tenths, modelId: r.model_id,
   }));
 }
+
+/** The storage keys of every log the user uploaded (to delete the files with the account). */
+export async function listOwnLogKeys(db: Database, p: { ownerId: string }): Promise<string[]> {
+  const rows = await db.select({ key: altimeterLogs.objectKey }).from(altimeterLogs).where(eq(altimeterLogs.ownerId, p.ownerId));
+  return rows.map((r) => r.key);
+}

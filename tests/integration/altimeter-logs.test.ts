@@ -5,6 +5,9 @@ import { POST as presign, GET as listLogs } from "@/app/api/runs/[runId]/logs/ro
 import { POST as complete } from "@/app/api/logs/[logId]/complete/route";
 import { GET as download } from "@/app/api/logs/[logId]/download/route";
 import { GET as getModelRoute } from "@/app/api/models/[modelId]/route";
+import { DELETE as deleteAccountRoute } from "@/app/api/account/route";
+import { hashPassword } from "@/lib/auth/password";
+import { models } from "@/db/schema";
 import { createModel } from "@/db/queries/models";
 import { listPilotLaunchHeights } from "@/db/queries/altimeter";
 import { altimeterLogs, launchHeights } from "@/db/schema";
@@ -119,5 +122,22 @@ describe("altimeter logs through the SDK and the local object server", () => {
     if (put.ok) expect(res.status).toBe(415);
     expect(await storedKeys(`logs/${runId}/`)).toEqual(before);
     if (res.status === 415) expect(await db.select().from(altimeterLogs).where(eq(altimeterLogs.id, logId))).toEqual([]);
+  });
+
+  it("deleting the account deletes its models, logs and the log files", async () => {
+    const leaving = await freshUser("logs-leaving", { passwordHash: await hashPassword("leaving-window-2026") });
+    actAs(leaving);
+    const ownRun = await insertRun(await insertSession(leaving.id), leaving.id, [{ pilotUserId: leaving.id, pilotName: leaving.name }]);
+    await createModel(db, { ownerId: leaving.id, input: { name: "Leaving glider", spanMm: 1400, massG: 230, marking: "", notes: "", status: "flying" } });
+    const ask = await presign(json({ lane: 0, fileName: "f.csv", sizeBytes: Buffer.byteLength(csv), contentType: "text/csv", loggerName: "L", mapping, startAtMs }), runParams(ownRun));
+    const { logId, url } = (await ask.json()) as { logId: string; url: string };
+    await fetch(url, { method: "PUT", body: csv, headers: { "content-type": "text/csv" } });
+    expect((await complete(json({ loggerName: "L", mapping, startAtMs }), logParams(logId))).status).toBe(200);
+    expect(await storedKeys(`logs/${ownRun}/`)).toHaveLength(1);
+    const res = await deleteAccountRoute(new Request("http://test/api/account", { method: "DELETE", body: JSON.stringify({ password: "leaving-window-2026" }), headers: { "content-type": "application/json" } }));
+    expect(res.status).toBe(200);
+    expect(await storedKeys(`logs/${ownRun}/`)).toEqual([]);
+    expect(await db.select().from(models).where(eq(models.ownerId, leaving.id))).toEqual([]);
+    expect(await db.select().from(altimeterLogs).where(eq(altimeterLogs.ownerId, leaving.id))).toEqual([]);
   });
 });
