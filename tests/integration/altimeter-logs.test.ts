@@ -10,6 +10,7 @@ import { hashPassword } from "@/lib/auth/password";
 import { models } from "@/db/schema";
 import { createModel } from "@/db/queries/models";
 import { listPilotLaunchHeights } from "@/db/queries/altimeter";
+import { exportAccount } from "@/db/queries/account-export";
 import { altimeterLogs, launchHeights } from "@/db/schema";
 import { generateTrace } from "../unit/altimeter/trace";
 import { actAs } from "./support/session";
@@ -69,6 +70,10 @@ describe("altimeter logs through the SDK and the local object server", () => {
     expect(listed.logs[0]!.launches).toHaveLength(5);
     const model = (await (await getModelRoute(new Request("http://test"), { params: Promise.resolve({ modelId }) })).json()) as { stats: { flights: number; launches: number; bestLaunchM: number } };
     expect(model.stats).toMatchObject({ flights: 4, launches: 4 });
+    const exported = (await exportAccount(db, pilot.id))!.hangar;
+    expect(exported.models.map((m) => m.name)).toEqual(["Test glider"]);
+    expect(exported.altimeterLogs[0]!.launches).toHaveLength(5);
+    expect(JSON.stringify(exported)).not.toContain("logs/"); // no storage keys in the export
     const season = await listPilotLaunchHeights(db, { userId: pilot.id });
     expect(season.map((x) => [x.flightIndex, x.flightTenths, x.modelId])).toEqual([0, 1, 2, 3].map((i) => [i, 600, modelId]));
     expect(await listPilotLaunchHeights(db, { userId: other.id })).toEqual([]);
