@@ -38,7 +38,8 @@ export default defineConfig([
   {
     files: ["lib/**/*.ts"],
     // lib/mail/server/ sends mail (SMTP connection, queue drain, timer): server I/O guarded by server-only, like lib/auth.
-    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**", "lib/mail/server/**"],
+    // lib/storage/server/ talks to object storage (S3 client, presigned URLs): server I/O guarded by server-only too.
+    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**", "lib/mail/server/**", "lib/storage/server/**"],
     rules: {
       "no-restricted-imports": [
         "error",

@@ -28,7 +28,7 @@ export function proxy(request: NextRequest) {
   }
 
   const nonce = createNonce();
-  const csp = buildCsp({ nonce, dev: process.env.NODE_ENV === "development", https });
+  const csp = buildCsp({ nonce, dev: process.env.NODE_ENV === "development", https, storage: process.env.S3_ENDPOINT });
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("x-nonce", nonce);
   requestHeaders.set("Content-Security-Policy", csp);

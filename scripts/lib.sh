@@ -61,6 +61,9 @@ ensure_env_file() {
       echo "NEXTAUTH_URL=http://localhost:${PORT:-3000}"
     } > .env
   fi
+  # Object storage (altimeter logs): the bucket and region; an older .env gets them added once.
+  # S3_ENDPOINT and keys come from s3_up (the local fake) unless this file names a real service.
+  grep -q '^S3_BUCKET=' .env || printf 'S3_BUCKET=windowcall-logs\nS3_REGION=us-east-1\n' >> .env
   set -a; . ./.env; set +a
 }
 
@@ -101,3 +104,42 @@ mail_stop_if_started() {
     MAIL_STARTED=0
   fi
 }
+
+# The local object-storage fake (scripts/s3-server.ts, s3rver) for this checkout, on 127.0.0.1, with its
+# objects in .data/s3 and the private bucket $S3_BUCKET created at start: started once and reused while it
+# runs (pid and port in .data/s3-server). Exports S3_ENDPOINT and the fake's keys unless S3_ENDPOINT is
+# already set (a real service). S3_STARTED=1 when this call started it (stop it with s3_stop_if_started).
+S3_RUN="$ROOT/.data/s3-server"
+S3_STARTED=0
+s3_running() {
+  [ -f "$S3_RUN/server.pid" ] && [ -f "$S3_RUN/port" ] && kill -0 "$(cat "$S3_RUN/server.pid")" 2>/dev/null &&
+    port_in_use "$(cat "$S3_RUN/port")"
+}
+s3_up() {
+  [ -n "${S3_ENDPOINT:-}" ] && return 0
+  mkdir -p "$S3_RUN"
+  export S3_BUCKET="${S3_BUCKET:-windowcall-logs}" S3_REGION="${S3_REGION:-us-east-1}"
+  if ! s3_running; then
+    local port i
+    port="$(free_port "${WINDOWCALL_S3_PORT:-4569}")"
+    S3_PORT="$port" S3_DIR="$ROOT/.data/s3" \
+      setsid node --import tsx scripts/s3-server.ts >"$S3_RUN/server.log" 2>&1 </dev/null 9>&- &
+    echo $! > "$S3_RUN/server.pid"
+    echo "$port" > "$S3_RUN/port"
+    for i in $(seq 1 100); do grep -q 's3rver on' "$S3_RUN/server.log" && break; sleep 0.1; done
+    grep -q 's3rver on' "$S3_RUN/server.log" || { cat "$S3_RUN/server.log" >&2; die "the local object server did not start"; }
+    S3_STARTED=1
+    say "local object server: http://127.0.0.1:$port, bucket $S3_BUCKET"
+  fi
+  export S3_ENDPOINT="http://127.0.0.1:$(cat "$S3_RUN/port")"
+  export S3_ACCESS_KEY_ID="${S3_ACCESS_KEY_ID:-S3RVER}" S3_SECRET_ACCESS_KEY="${S3_SECRET_ACCESS_KEY:-S3RVER}"
+}
+s3_stop_if_started() {
+  if [ "$S3_STARTED" = 1 ] && [ -f "$S3_RUN/server.pid" ]; then
+    kill -TERM "$(cat "$S3_RUN/server.pid")" 2>/dev/null || true
+    rm -f "$S3_RUN/server.pid" "$S3_RUN/port"
+    S3_STARTED=0
+  fi
+}
+# Stops both local fakes this script started (an EXIT trap).
+fakes_stop_if_started() { mail_stop_if_started; s3_stop_if_started; }

@@ -13,7 +13,8 @@ export DATABASE_URL="$(bash scripts/db.sh url windowcall)"
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 # Mail goes to the local SMTP fake unless SMTP_URL (environment or .env) names a real server.
 [ -z "${SMTP_URL:-}" ] && mail_up
-trap mail_stop_if_started EXIT # also when a step below fails
+s3_up # altimeter logs go to the local object server unless S3_ENDPOINT names a real one
+trap fakes_stop_if_started EXIT # also when a step below fails
 npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 port_in_use "$PORT" && die "port $PORT is already taken: stop what runs there or run PORT=3100 npm start"
@@ -26,7 +27,7 @@ stop() {
     kill -TERM -- "-$APP_PID" 2>/dev/null || true
     wait "$APP_PID" 2>/dev/null || true # the server's own exit status must not end this (set -e)
   fi
-  mail_stop_if_started
+  fakes_stop_if_started
   bash scripts/db.sh stop
   exit 0
 }
@@ -44,6 +45,6 @@ APP_PID=$!
 say "Windowcall is on http://localhost:$PORT (listening on $HOST) — demo accounts are in the README. Ctrl-C stops it."
 status=0
 wait "$APP_PID" || status=$? # the server ended on its own: stop the database too, keep its status
-mail_stop_if_started
+fakes_stop_if_started
 bash scripts/db.sh stop
 exit "$status"

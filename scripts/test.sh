@@ -10,7 +10,8 @@ WAS_RUNNING=0; bash scripts/db.sh running && WAS_RUNNING=1
 bash scripts/db.sh up
 ensure_env_file
 mail_up # tests always send to the local SMTP fake
-trap mail_stop_if_started EXIT
+s3_up
+trap fakes_stop_if_started EXIT
 
 ADMIN_URL="$(bash scripts/db.sh url postgres)"
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_test)"

@@ -41,5 +41,7 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
       return `Re-flight granted${laneSuffix(b.lane)}`;
     case "run-end":
       return "Window closed";
+    case "model":
+      return `Model changed${laneSuffix(b.lane)}`;
   }
 }

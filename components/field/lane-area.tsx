@@ -1,5 +1,6 @@
 "use client";
 
+import type { ReactNode } from "react";
 import { TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/events/entities";
 import { TARGET_SHOWN_WITHIN_MS, type LaneLive, type LiveState, type TaskDefinition } from "@/lib/tasks";
@@ -12,14 +13,21 @@ import { TapControl } from "./tap-control";
 import { TargetPicker } from "./target-picker";
 import type { useRunActions } from "./use-run-actions";
 
-type Props = { task: TaskDefinition; live: LiveState; lanes: readonly RunLane[]; actions: ReturnType<typeof useRunActions> };
+type Props = {
+  task: TaskDefinition;
+  live: LiveState;
+  lanes: readonly RunLane[];
+  actions: ReturnType<typeof useRunActions>;
+  /** The lane's model choice (the hangar), for lanes the signed-in pilot flies. */
+  modelPicker?: (lane: RunLane, label: string) => ReactNode;
+};
 
 /**
  * Every lane of the window (one pilot each, up to four) and the closing control. With several
  * lanes, their controls sit together on the board at the top (within reach without scrolling),
  * and each lane's panel below holds the rest.
  */
-export function LaneArea({ task, live, lanes, actions }: Props) {
+export function LaneArea({ task, live, lanes, actions, modelPicker }: Props) {
   const solo = lanes.length === 1;
   const over = live.phase === "ended";
   const anyInAir = live.lanes.some((l) => l.currentFlightMs !== null);
@@ -77,7 +85,7 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
               />
             ) : null}
             control={solo && showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
-            tools={tools}
+            tools={<>{modelPicker?.(l, label)}{tools}</>}
             list={solo ? list : <details><summary className="min-h-12 cursor-pointer py-3 font-bold">Flights and fixes</summary>{list}</details>}
           />
         );

@@ -12,6 +12,8 @@ import { liveState } from "@/lib/tasks";
 import { CorrectionsList } from "@/components/run";
 import { ClockPanel } from "./clock-panel";
 import { LaneArea } from "./lane-area";
+import { ModelPicker } from "./model-picker";
+import type { RunLane } from "@/lib/events/entities";
 import { PrepPanel } from "./prep-panel";
 import { SignalElsewhereButton, SignalElsewhereNote, useSignalElsewhere } from "./signal-elsewhere";
 import { RunHeader } from "./run-header";
@@ -43,6 +45,8 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
   const recorder = useRecorder({ runId: run.id, stored: data.events, clocks, estimate, onWritten });
   const actions = useRunActions({ task, laneCount, view, clocks, record: recorder.record, stampInput: recorder.stampInput });
   const open = isRunOpen(recorder.events);
+  const modelPicker = (l: RunLane, label: string) =>
+    me && l.pilotUserId === me ? <ModelPicker lane={l.lane} laneLabel={label} userId={me} events={recorder.events} open={open} onPick={(id) => actions.model(l.lane, id)} /> : null;
   const now = useNow(clocks, open);
   // The one result function (lib/results), as the logbook and the server use it; "now" on its timeline.
   // It depends on the events only, not on "now": computed once per write, not every frame.
@@ -119,12 +123,12 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
       ) : live.phase === "not-started" ? (
         <>
           <SignalElsewhereNote onUndo={() => setSignalElsewhere(false)} />
-          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} />
         </>
       ) : (
         <>
           <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} compact={laneCount > 1} />
-          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} />
         </>
       )}
       {/* several lanes: the notes go below, so every lane's control stays in reach */}

@@ -70,5 +70,7 @@ export function useRunActions({ task, laneCount, view, clocks, record, stampInpu
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),
     endCall: (lane: number, timeStamp: number) => fixed({ kind: "end-call", lane }, stampInput(timeStamp)),
     close: () => fixed({ kind: "run-end" }),
+    /** The lane flies this model from now on (picked before the window, or a swap during it). */
+    model: (lane: number, modelId: string) => fixed({ kind: "model", lane, modelId }),
   };
 }

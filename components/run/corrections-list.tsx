@@ -24,6 +24,7 @@ const WORDS: Record<RunEvent["body"]["kind"], string> = {
   penalty: "penalty",
   unsigned: "not-signed ruling",
   reflight: "re-flight",
+  model: "model choice",
 };
 const AUDITED = new Set(["void", "correct", "invalid", "penalty", "unsigned", "reflight"]);
 

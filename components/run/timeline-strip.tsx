@@ -11,6 +11,8 @@ type Props = {
   nowMs?: number | null;
   /** Names the strip for screen readers, e.g. the pilot. */
   label: string;
+  /** Launch heights from an altimeter log, by flight index (m): drawn as a label at each flight's start. */
+  launchHeights?: ReadonlyMap<number, number>;
 };
 
 // Drawn in units close to CSS pixels on a phone (≈ 360 px wide), so text and ticks stay legible.
@@ -28,7 +30,7 @@ const fillOf = (s: StripSegment) =>
  * minute scale below. Status is drawn by shape too (hatched = scores zero, pale = not
  * counted, a notch at a capped flight's cap), and the whole is repeated as text.
  */
-export function TimelineStrip({ definition, flights, nowMs = null, label }: Props) {
+export function TimelineStrip({ definition, flights, nowMs = null, label, launchHeights }: Props) {
   const layout = stripLayout(definition, flights, nowMs);
   const span = Math.max(1, layout.toMs - layout.fromMs);
   const x = (ms: number) => ((ms - layout.fromMs) / span) * W;
@@ -82,6 +84,15 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
             </text>
           );
         })}
+        {layout.segments.map((s) => {
+          const height = launchHeights?.get(s.flight);
+          if (height === undefined) return null;
+          return (
+            <text key={`h${s.flight}`} x={x(s.fromMs) + 2} y={TOP + H - 6} fontSize="10" fontWeight="700" fill="rgb(var(--ink))" className="figures" data-launch-height={height}>
+              {`${Math.round(height)} m`}
+            </text>
+          );
+        })}
         {layout.ticks.map((t) => (
           <path key={`t${t.flight}`} d={`M ${x(t.atMs) - 5} 1 L ${x(t.atMs) + 5} 1 L ${x(t.atMs)} ${TOP + 4} Z`} stroke="rgb(var(--raised))" strokeWidth="1" fill="rgb(var(--ink))" data-target={t.targetSec} />
         ))}
@@ -97,6 +108,7 @@ export function TimelineStrip({ definition, flights, nowMs = null, label }: Prop
       <figcaption id={captionId} className="sr-only">
         {`${label}: working time as a strip. `}
         {describeStrip(definition, flights, nowMs)}
+        {launchHeights?.size ? ` Launch heights: ${[...launchHeights].map(([i, h]) => `flight ${i + 1} ${Math.round(h)} m`).join(", ")}.` : ""}
       </figcaption>
       <StripLegend landing={layout.landing.length > 0} />
     </figure>

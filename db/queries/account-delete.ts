@@ -3,7 +3,7 @@ import { and, eq, inArray, isNotNull, ne, notExists, or, sql } from "drizzle-orm
 import type { Database } from "../index";
 import {
   accounts, coachGrants, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
-  syncRejections, users,
+  syncRejections, users, altimeterLogs, loggerMappings, models,
 } from "../schema";
 import { syncStamp } from "./sync-db";
 
@@ -13,7 +13,7 @@ export const DELETED_PILOT_NAME = "Deleted pilot";
 /**
  * Deletes an account the way its owner asked, keeping what other people's records need:
  * - removed: memberships, coach grants (both ways), devices and their clock data, sign-in
- *   methods, sync rejections, its consent decisions, the practice plans it received, the coach notes it wrote, and every
+ *   methods, sync rejections, its models, altimeter logs and logger mappings, its consent decisions, the practice plans it received, the coach notes it wrote, and every
  *   run in its own sessions that no other account flies in (events and lanes go with them), then
  *   its sessions left empty;
  * - kept without the name: runs where another account flies a lane (with their session), lanes
@@ -55,6 +55,10 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
     await tx.delete(devices).where(eq(devices.userId, userId));
     await tx.delete(accounts).where(eq(accounts.userId, userId));
     await tx.delete(syncRejections).where(eq(syncRejections.userId, userId));
+    // the hangar and altimeter logs are the pilot's own (the route deletes the log files from storage)
+    await tx.delete(altimeterLogs).where(eq(altimeterLogs.ownerId, userId));
+    await tx.delete(loggerMappings).where(eq(loggerMappings.ownerId, userId));
+    await tx.delete(models).where(eq(models.ownerId, userId));
     await tx.delete(emailTokens).where(eq(emailTokens.userId, userId)); // no link may act on the tombstone
     await tx
       .update(users)

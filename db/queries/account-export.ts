@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
+import { exportHangar } from "./hangar-export";
 
 /** The format of "export all my data"; bump when its shape changes. */
 export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
@@ -61,6 +62,7 @@ export async function exportAccount(db: Database, userId: string) {
     runs: runRows.map((r) => ({ ...r, lanes: lanes.filter((l) => l.runId === r.id) })),
     events: eventRows,
     consentDecisions: consents,
+    hangar: await exportHangar(db, userId),
   };
 }
 

@@ -8,3 +8,5 @@ export * from "./sync";
 export * from "./coaching";
 export * from "./limits";
 export * from "./mail";
+export * from "./hangar";
+export * from "./altimeter";

@@ -115,6 +115,11 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: epochMs }),
   /** Undo: the named event no longer counts. */
   z.object({ kind: z.literal("void"), targetId: z.string().uuid() }),
+  /**
+   * The lane flies this model (a hangar model's id) from now on: picked before the window, or a
+   * swap mid-window. Scoring ignores it; launch heights and the hangar's per-model figures read it.
+   */
+  z.object({ kind: z.literal("model"), lane, modelId: z.string().uuid() }),
   /** The run was closed by its timekeeper (after the landing window). */
   z.object({ kind: z.literal("run-end") }),
 ]);

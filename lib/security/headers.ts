@@ -10,7 +10,18 @@ export function createNonce(): string {
   return btoa(String.fromCharCode(...bytes));
 }
 
-export type CspOptions = { nonce: string; dev: boolean; https: boolean };
+export type CspOptions = { nonce: string; dev: boolean; https: boolean; /** Object storage the browser uploads to with presigned URLs (S3_ENDPOINT). */ storage?: string };
+
+/** The origin of an object-storage URL, or null when it is not an http(s) URL. */
+export function storageOrigin(url: string | undefined): string | null {
+  if (!url) return null;
+  try {
+    const u = new URL(url);
+    return u.protocol === "http:" || u.protocol === "https:" ? u.origin : null;
+  } catch {
+    return null;
+  }
+}
 
 /**
  * A nonce-based Content-Security-Policy as in Next's own guide: scripts run only with this
@@ -19,14 +30,15 @@ export type CspOptions = { nonce: string; dev: boolean; https: boolean };
  * breakdown widths), which a nonce cannot cover. The worker is named (worker-src) because
  * 'strict-dynamic' makes script-src ignore 'self'. Never framed by anyone.
  */
-export function buildCsp({ nonce, dev, https }: CspOptions): string {
+export function buildCsp({ nonce, dev, https, storage }: CspOptions): string {
+  const storageSrc = storageOrigin(storage);
   const directives = [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ""}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' blob: data:",
     "font-src 'self'",
-    "connect-src 'self'",
+    `connect-src 'self'${storageSrc ? ` ${storageSrc}` : ""}`,
     "worker-src 'self'",
     "manifest-src 'self'",
     "media-src 'self' blob: data:",

@@ -21,6 +21,7 @@ const TIE_RANK: Record<EventBody["kind"], number> = {
   penalty: 5,
   unsigned: 5,
   reflight: 5,
+  model: 3, // a model picked at the instant of a launch flies that launch
   correct: 6,
   void: 6,
   "run-end": 7,

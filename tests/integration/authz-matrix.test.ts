@@ -8,6 +8,7 @@ import { db, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
 import { ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
+import { insertLog, insertModel, insertOwnRun, LOG_MAPPING } from "./support/hangar-records";
 
 /**
  * The authorisation matrix: every route handler on disk (app/api/**\/route.ts × exported method)
@@ -73,7 +74,31 @@ const showsOwnAddress = async (ctx: Ctx, res: Response) => {
   expect(data.email).toBe(ctx.user.email);
 };
 
+// The hangar and altimeter logs: only the owner reaches a model, a run's logs or a log (404 for everyone else, admin included)
+const ownersModel = async (cast: Cast) => ({ modelId: await insertModel(cast.owner.id) });
+const ownersRun = async (cast: Cast) => ({ runId: await insertOwnRun(cast.owner.id) });
+const ownerCreated = (body: () => unknown): Protected => ({ ...ownerOnly({ body }), expect: { ...everyone(NOT_ALLOWED), signedOut: 401, owner: 201 } });
+const modelBody = () => ({ name: "Matrix glider", spanMm: 1490, massG: 255, marking: "white" });
+const logRequest = () => ({ lane: 0, fileName: "log.csv", sizeBytes: 400, contentType: "text/csv", loggerName: "Matrix logger", mapping: LOG_MAPPING, startAtMs: 1_767_000_000_000 });
+const hangarRows: Record<string, Row> = {
+  "GET /api/models": signedIn(),
+  "POST /api/models": { ...signedIn({ body: modelBody }), expect: { ...everyone(201), signedOut: 401 } },
+  "GET /api/models/[modelId]": ownerOnly({ params: ownersModel }),
+  "PATCH /api/models/[modelId]": ownerOnly({ params: ownersModel, body: () => ({ status: "being-repaired" }) }),
+  "POST /api/models/[modelId]/repairs": { ...ownerCreated(() => ({ repairedOn: "2026-06-14", work: "new tail boom", massAfterG: 262 })), params: ownersModel },
+  "POST /api/models/[modelId]/transfer": ownerOnly({ params: ownersModel, body: () => ({ email: "tobi@example.com", withHistory: false }) }),
+  "GET /api/runs/[runId]/logs": ownerOnly({ params: ownersRun }),
+  "POST /api/runs/[runId]/logs": { ...ownerCreated(logRequest), params: ownersRun },
+  "POST /api/logs/[logId]/complete": ownerOnly({
+    params: async (cast) => ({ logId: await insertLog(cast.owner.id, "pending") }),
+    body: () => ({ loggerName: "Matrix logger", mapping: LOG_MAPPING, startAtMs: 1_767_000_000_000 }),
+  }),
+  "GET /api/logs/[logId]/download": ownerOnly({ params: async (cast) => ({ logId: await insertLog(cast.owner.id, "parsed") }) }),
+  "GET /api/logger-mappings": signedIn(),
+};
+
 const ROWS: Record<string, Row> = {
+  ...hangarRows,
   "GET /api/health": publicByDesign("a liveness probe for the process manager: says only whether the app reaches its database"),
   "POST /api/account/sign-up": publicByDesign("creating an account needs no account; the answer is the same for a taken address"),
   "GET /api/auth/[...nextauth]": publicByDesign("next-auth's own endpoints (csrf, providers, session — {} when signed out)"),

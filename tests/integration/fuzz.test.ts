@@ -49,6 +49,14 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/sync/pull": { GET: "query" },
   "/api/sync/push": { POST: "json" },
   "/api/time": { POST: "json" },
+  "/api/models": { GET: "none", POST: "json" },
+  "/api/models/[modelId]": { GET: "none", PATCH: "json" },
+  "/api/models/[modelId]/repairs": { POST: "json" },
+  "/api/models/[modelId]/transfer": { POST: "json" },
+  "/api/runs/[runId]/logs": { GET: "none", POST: "json" },
+  "/api/logs/[logId]/complete": { POST: "json" },
+  "/api/logs/[logId]/download": { GET: "none" },
+  "/api/logger-mappings": { GET: "none" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -99,6 +107,12 @@ const evilValue = fc.oneof(
 /** A valid body for each JSON route, fresh ids each time, for `userId`. */
 function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/time") return { t1: Date.now() };
+  const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
+  if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
+  if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };
+  if (path.endsWith("/transfer")) return { email: "tobi@example.com", withHistory: true };
+  if (path.endsWith("/logs")) return { lane: 0, fileName: "log.csv", sizeBytes: 900, contentType: "text/csv", loggerName: "Fuzz", mapping: logMapping, startAtMs: 1_767_000_000_000 };
+  if (path.endsWith("/complete")) return { loggerName: "Fuzz", mapping: logMapping, startAtMs: 1_767_000_000_000 };
   if (path.endsWith("/consent")) return { decision: "disputed", reason: "The second flight was longer" };
   // the fuzz user has no password, so a well-formed change or deletion is refused (403) and writes nothing
   if (path === "/api/account") return { password: "thermal-hunter-42" };
@@ -204,7 +218,7 @@ describe("fuzz: every route under app/api", () => {
     }
   });
 
-  it("never answers 5xx, and a 4xx changes nothing", async () => {
+  it("never answers 5xx, and a 4xx changes nothing", { timeout: 600_000 }, async () => {
     const found = await discoverRoutes();
     const runs = Number(process.env.FUZZ_RUNS ?? 60);
     for (const { path, handlers } of found) {
@@ -229,8 +243,8 @@ describe("fuzz: every route under app/api", () => {
               request = new Request(`http://test${path}${qs ? `?${qs}` : ""}`, { method });
             }
             const before = await countAll();
-            // a dynamic route gets the params of a run nobody recorded for the fuzz user (a valid body is a 404)
-            const params = path.includes("[runId]") ? { runId: uuidv7(), lane: "0" } : {};
+            // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log: a valid body is a 404)
+            const params = path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7() } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

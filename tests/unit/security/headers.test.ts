@@ -20,6 +20,15 @@ describe("buildCsp", () => {
   });
 });
 
+describe("buildCsp and object storage", () => {
+  it("lets the browser connect to the storage origin for presigned uploads, and nothing else", () => {
+    expect(directive(buildCsp({ nonce: "n", dev: false, https: false }), "connect-src")).toBe("connect-src 'self'");
+    const csp = buildCsp({ nonce: "n", dev: false, https: false, storage: "http://127.0.0.1:4569/some/path" });
+    expect(directive(csp, "connect-src")).toBe("connect-src 'self' http://127.0.0.1:4569");
+    expect(directive(buildCsp({ nonce: "n", dev: false, https: false, storage: "javascript:alert(1)" }), "connect-src")).toBe("connect-src 'self'");
+  });
+});
+
 describe("createNonce", () => {
   it("is fresh each time and fits a CSP nonce source", () => {
     const a = createNonce();

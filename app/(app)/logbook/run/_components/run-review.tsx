@@ -11,11 +11,15 @@ import { ConsentBar, RecordedFor } from "../../_components/consent-bar";
 import { scoreStoredRun, taskTitle } from "../../_components/run-results";
 import { useLogbookRun } from "./use-logbook-run";
 import { Versions } from "./versions";
+import { LaunchHeights } from "./launch-heights";
+import { LogUpload } from "./log-upload";
+import { heightsForLane, useLaunchHeights } from "./use-launch-heights";
 
 /** One run from the logbook: each pilot's result, strip, flights and lost points; the corrections; other phones' versions. */
 export function RunReview() {
   const id = useSearchParams().get("id");
   const data = useLogbookRun(id);
+  const altimeter = useLaunchHeights(id);
   if (!data) return <p aria-busy="true">Reading the run…</p>;
   const { run, session, events } = data;
   if (!run) {
@@ -68,11 +72,18 @@ export function RunReview() {
               <p className="text-sm text-muted">Flights add up to {secondsText(lane.rawTenths)} s; the working time allows {secondsText(lane.sumCapTenths)} s (F3K.7).</p>
             ) : null}
             <ClockNote derivation={scored.lanes.find((d) => d.lane === l.lane)} />
-            <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} />
+            <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} launchHeights={heightsForLane(altimeter.logs, l.lane)} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
             <Rulings lane={lane} label={l.pilotName} />
             <h3 className="text-lg font-bold">Where the points went</h3>
             <Breakdown definition={task} lane={lane} />
+            <LaunchHeights logs={altimeter.logs} lane={l.lane} label={l.pilotName} />
+            {l.pilotUserId === me || (!l.pilotUserId && (!run.recordedBy || run.recordedBy.id === me)) ? (
+              <details>
+                <summary className="cursor-pointer font-bold">Upload an altimeter log</summary>
+                <LogUpload runId={run.id} lane={l.lane} onDone={altimeter.reload} />
+              </details>
+            ) : null}
           </section>
         );
       })}

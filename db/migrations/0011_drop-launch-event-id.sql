@@ -1,0 +1,1 @@
+ALTER TABLE "launch_heights" DROP COLUMN "launch_event_id";

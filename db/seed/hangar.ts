@@ -1,0 +1,91 @@
+import { and, desc, eq, sql } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
+import { detectLaunches } from "@/lib/altimeter/detect";
+import { matchLaunches } from "@/lib/altimeter/match";
+import { mulberry32 } from "@/lib/random";
+import { deleteObject, newObjectKey } from "@/lib/storage/server/s3";
+import { putDemoObject } from "./put-object";
+import type { Database } from "../index";
+import { altimeterLogs, events, fieldSessions, launchHeights, loggerMappings, modelRepairs, models, runLanes, runs, users } from "../schema";
+
+/** Invented models (no real designs or makers): Ada's three and Tobi's one, with a repair history. */
+const ADA_MODELS = [
+  { name: "Swift Heron", spanMm: 1496, massG: 248, marking: "white wing, orange tips", notes: "Contest model, best in light air", status: "flying" as const },
+  { name: "Blue Tern", spanMm: 1490, massG: 272, marking: "blue fuselage, black stripe", notes: "Ballast ready for wind", status: "flying" as const },
+  { name: "Old Red", spanMm: 1510, massG: 655, marking: "all red, patched tail", notes: "Trainer; heavy after repairs", status: "being-repaired" as const },
+];
+const DEMO_MAPPING = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" } as const;
+
+/**
+ * The hangar demo: models and repairs for Ada and Tobi, Ada's latest own run flown with Swift
+ * Heron (a "model" event), and, when object storage is configured, an invented altimeter log of
+ * that run read through the real detection and matching. Does nothing when Ada has models already.
+ */
+export async function seedHangar(db: Database): Promise<void> {
+  const [ada] = await db.select().from(users).where(eq(users.email, "ada@example.com"));
+  const [tobi] = await db.select().from(users).where(eq(users.email, "tobi@example.com"));
+  if (!ada || !tobi) return;
+  const [has] = await db.select({ n: sql<number>`count(*)::int` }).from(models).where(eq(models.ownerId, ada.id));
+  if ((has?.n ?? 0) > 0) return;
+  const mine = await db.insert(models).values(ADA_MODELS.map((m) => ({ ...m, ownerId: ada.id }))).returning();
+  await db.insert(models).values({ ownerId: tobi.id, name: "Grey Plover", spanMm: 1480, massG: 265, marking: "grey, yellow tail" });
+  const red = mine.find((m) => m.name === "Old Red")!;
+  await db.insert(modelRepairs).values([
+    { modelId: red.id, repairedOn: "2026-04-11", work: "Glued a cracked boom", massAfterG: 612 },
+    { modelId: red.id, repairedOn: "2026-07-02", work: "New tailplane after a hard landing", massAfterG: 640 },
+    { modelId: red.id, repairedOn: "2026-10-19", work: "Re-covered the wing root", massAfterG: 655 },
+  ]);
+  const heron = mine.find((m) => m.name === "Swift Heron")!;
+  const recent = await db.select({ id: runs.id, derived: runLanes.derived }).from(runs)
+    .innerJoin(fieldSessions, eq(fieldSessions.id, runs.sessionId))
+    .innerJoin(runLanes, and(eq(runLanes.runId, runs.id), eq(runLanes.lane, 0)))
+    .where(and(eq(fieldSessions.ownerId, ada.id), eq(runs.createdBy, ada.id))).orderBy(desc(runs.createdAt)).limit(12);
+  type Flights = { flights?: { index: number; launchMs: number; landMs: number | null }[] } | null;
+  const run = recent.find((r) => ((r.derived as Flights)?.flights?.length ?? 0) >= 3) ?? recent[0]; // a window with a few flights shows more
+  const flights = (run?.derived as Flights)?.flights ?? [];
+  if (!run || flights.length === 0) return;
+  const choiceAt = flights[0]!.launchMs - 30_000;
+  const body = { kind: "model", lane: 0, modelId: heron.id };
+  await db.insert(events).values({
+    id: uuidv7({ msecs: choiceAt }), runId: run.id, deviceId: "demo-phone-ada", seq: 100_000, recordedBy: ada.id, kind: "model", body,
+    wallMs: choiceAt, monoMs: 1000, pageId: `demo-${run.id}`, correctedMs: choiceAt,
+  });
+  if (!process.env.S3_ENDPOINT || !process.env.S3_BUCKET) return; // no object storage (db:seed alone): models only
+  const csv = demoTrace(flights, 20261203);
+  const objectKey = newObjectKey(`logs/${run.id}`);
+  await putDemoObject(objectKey, csv.text);
+  try {
+    const matched = matchLaunches(detectLaunches(csv.samples), flights.map((f) => ({ id: String(f.index), atMs: f.launchMs })));
+    await db.transaction(async (tx) => {
+      const [log] = await tx.insert(altimeterLogs).values({
+        ownerId: ada.id, runId: run.id, lane: 0, objectKey, fileName: "heron-evening.csv", loggerName: "Pocket logger", sizeBytes: csv.text.length, status: "parsed", samples: csv.samples.length,
+      }).returning();
+      await tx.insert(launchHeights).values(matched.launches.map((l) => ({
+        logId: log!.id, runId: run.id, lane: 0, atMs: l.correctedMs, heightM: Math.round(l.heightM * 10) / 10,
+        flightIndex: l.eventId === null ? null : Number(l.eventId), gapMs: l.gapMs, modelId: heron.id,
+      })));
+      await tx.insert(loggerMappings).values({ ownerId: ada.id, loggerName: "Pocket logger", mapping: DEMO_MAPPING });
+    });
+  } catch (e) {
+    await deleteObject(objectKey);
+    throw e;
+  }
+}
+
+/** An invented 5 Hz log of these flights: a 3 s zoom to 40–75 m, a glide down to the landing; the logger's clock 3 s behind. */
+function demoTrace(flights: { launchMs: number; landMs: number | null }[], seed: number) {
+  const rnd = mulberry32(seed);
+  const shaped = flights.map((f) => ({ at: f.launchMs, peak: f.launchMs + 3000, land: Math.max(f.landMs ?? f.launchMs + 40_000, f.launchMs + 8000), h: 40 + rnd() * 35 }));
+  const from = flights[0]!.launchMs - 60_000;
+  const to = shaped[shaped.length - 1]!.land + 30_000;
+  const samples: { tMs: number; hM: number }[] = [];
+  for (let t = from; t <= to; t += 200) {
+    const f = shaped.find((x) => t >= x.at && t < x.land);
+    let h = 0;
+    if (f) h = t <= f.peak ? f.h * (1 - ((f.peak - t) / 3000) ** 2) : f.h * (1 - (t - f.peak) / (f.land - f.peak));
+    samples.push({ tMs: t - 3000, hM: Math.round((h + (rnd() - 0.5) * 0.2) * 10) / 10 });
+  }
+  const start = samples[0]!.tMs;
+  const text = `seconds,altitude_m\n${samples.map((s) => `${((s.tMs - start) / 1000).toFixed(1)},${s.hM}`).join("\n")}\n`;
+  return { samples, text };
+}

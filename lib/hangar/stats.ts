@@ -1,0 +1,67 @@
+/**
+ * A model's record, from the lanes it flew in: which flights it flew (the lane's latest "model"
+ * event at or before each launch), their launch heights, times per task, turnaround (landing to
+ * the next launch in the same lane, both with this model) and when it last flew.
+ */
+export type ModelLane = {
+  taskCode: string;
+  flights: { index: number; launchMs: number; landMs: number | null; timeTenths: number }[];
+  /** The lane's model choices on the corrected clock. */
+  choices: { atMs: number; modelId: string }[];
+  /** Launch heights by flight index. */
+  heights: Map<number, number>;
+};
+
+export type ModelStats = {
+  flights: number;
+  launches: number;
+  medianLaunchM: number | null;
+  bestLaunchM: number | null;
+  medianTimeByTask: { taskCode: string; medianTenths: number; flights: number }[];
+  medianTurnaroundMs: number | null;
+  lastFlownMs: number | null;
+};
+
+export function median(values: readonly number[]): number | null {
+  if (values.length === 0) return null;
+  const s = [...values].sort((a, b) => a - b);
+  const m = Math.floor(s.length / 2);
+  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+}
+
+/** The model flying at this instant: the latest choice at or before it. */
+export function modelAt(choices: readonly { atMs: number; modelId: string }[], atMs: number): string | null {
+  let best: { atMs: number; modelId: string } | null = null;
+  for (const c of choices) if (c.atMs <= atMs && (!best || c.atMs >= best.atMs)) best = c;
+  return best?.modelId ?? null;
+}
+
+export function modelStats(modelId: string, lanes: readonly ModelLane[]): ModelStats {
+  const heights: number[] = [];
+  const byTask = new Map<string, number[]>();
+  const turnarounds: number[] = [];
+  let flights = 0;
+  let lastFlownMs: number | null = null;
+  for (const lane of lanes) {
+    const sorted = [...lane.flights].sort((a, b) => a.launchMs - b.launchMs);
+    sorted.forEach((f, i) => {
+      if (modelAt(lane.choices, f.launchMs) !== modelId) return;
+      flights++;
+      lastFlownMs = Math.max(lastFlownMs ?? 0, f.landMs ?? f.launchMs);
+      byTask.set(lane.taskCode, [...(byTask.get(lane.taskCode) ?? []), f.timeTenths]);
+      const h = lane.heights.get(f.index);
+      if (h !== undefined) heights.push(h);
+      const next = sorted[i + 1];
+      if (next && f.landMs !== null && modelAt(lane.choices, next.launchMs) === modelId) turnarounds.push(next.launchMs - f.landMs);
+    });
+  }
+  return {
+    flights,
+    launches: heights.length,
+    medianLaunchM: median(heights),
+    bestLaunchM: heights.length ? Math.max(...heights) : null,
+    medianTimeByTask: [...byTask].map(([taskCode, t]) => ({ taskCode, medianTenths: median(t)!, flights: t.length })).sort((a, b) => a.taskCode.localeCompare(b.taskCode)),
+    medianTurnaroundMs: median(turnarounds),
+    lastFlownMs,
+  };
+}

@@ -1,0 +1,46 @@
+import { describe, expect, it } from "vitest";
+import { classCautions } from "@/lib/hangar/limits";
+import { modelAt, modelStats } from "@/lib/hangar/stats";
+
+const A = "model-a";
+const B = "model-b";
+
+describe("class-limit cautions (F3K.2.1: span ≤ 1500 mm, mass ≤ 600 g)", () => {
+  it("cautions over the limits and not at them", () => {
+    expect(classCautions({ spanMm: 1500, massG: 600 })).toEqual([]);
+    expect(classCautions({ spanMm: 1501, massG: 601 })).toHaveLength(2);
+    expect(classCautions({ spanMm: 1490, massG: 640 })[0]).toMatch(/640 g is over the class limit of 600 g/);
+  });
+});
+
+describe("a model's record (lib/hangar/stats.ts)", () => {
+  const lane = {
+    taskCode: "A",
+    // launches at 10 s, 100 s, 200 s; swapped to B at 150 s
+    flights: [
+      { index: 0, launchMs: 10_000, landMs: 70_000, timeTenths: 600 },
+      { index: 1, launchMs: 100_000, landMs: 140_000, timeTenths: 400 },
+      { index: 2, launchMs: 200_000, landMs: 290_000, timeTenths: 900 },
+    ],
+    choices: [{ atMs: 0, modelId: A }, { atMs: 150_000, modelId: B }],
+    heights: new Map([[0, 52.5], [1, 48], [2, 61]]),
+  };
+
+  it("the model at an instant is the latest choice before it", () => {
+    expect(modelAt(lane.choices, 149_999)).toBe(A);
+    expect(modelAt(lane.choices, 150_000)).toBe(B);
+    expect(modelAt(lane.choices, -1)).toBeNull();
+  });
+
+  it("counts only the flights launched with the model", () => {
+    const a = modelStats(A, [lane]);
+    expect(a).toMatchObject({ flights: 2, launches: 2, medianLaunchM: 50.25, bestLaunchM: 52.5, medianTurnaroundMs: 30_000, lastFlownMs: 140_000 });
+    expect(a.medianTimeByTask).toEqual([{ taskCode: "A", medianTenths: 500, flights: 2 }]);
+    const b = modelStats(B, [lane]);
+    expect(b).toMatchObject({ flights: 1, bestLaunchM: 61, medianTurnaroundMs: null });
+  });
+
+  it("a model never flown has an empty record", () => {
+    expect(modelStats("other", [lane])).toMatchObject({ flights: 0, launches: 0, medianLaunchM: null, lastFlownMs: null });
+  });
+});
