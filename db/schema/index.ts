@@ -8,3 +8,4 @@ export * from "./sync";
 export * from "./coaching";
 export * from "./limits";
 export * from "./mail";
+export * from "./run-deletions";
