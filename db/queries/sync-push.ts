@@ -5,6 +5,7 @@ import { ForbiddenError } from "@/lib/errors";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
+import { applyDiscards } from "./run-discard";
 import { deriveAndStoreRuns } from "./runs";
 import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
@@ -49,6 +50,7 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     await lockRuns(tx, [...req.events.map((e) => e.runId).filter(isUuid), ...clock.movedRuns]);
     const touched = await applyEvents(ctx, req.events, clock.estimates);
     await deriveAndStoreRuns(tx, [...newRuns, ...touched, ...clock.movedRuns]);
+    if (req.discards?.length) await applyDiscards(ctx, req.discards); // last: a run set up and deleted in one push goes too
 
     const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
     if (rejections.size > 0) {
