@@ -1,7 +1,8 @@
 "use client";
 
-import { TimelineStrip } from "@/components/run";
+import { ClockNote, TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/events/entities";
+import type { LaneDerivation } from "@/lib/results";
 import { TARGET_SHOWN_WITHIN_MS, type LaneLive, type LiveState, type TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
 import { LaneBoard, type BoardLane } from "./lane-board";
@@ -12,14 +13,21 @@ import { TapControl } from "./tap-control";
 import { TargetPicker } from "./target-picker";
 import type { useRunActions } from "./use-run-actions";
 
-type Props = { task: TaskDefinition; live: LiveState; lanes: readonly RunLane[]; actions: ReturnType<typeof useRunActions> };
+type Props = {
+  task: TaskDefinition;
+  live: LiveState;
+  lanes: readonly RunLane[];
+  actions: ReturnType<typeof useRunActions>;
+  /** The run's result per lane (lib/results): its clock flags are shown on the lane while it is flown. */
+  derivations?: readonly LaneDerivation[];
+};
 
 /**
  * Every lane of the window (one pilot each, up to four) and the closing control. With several
  * lanes, their controls sit together on the board at the top (within reach without scrolling),
  * and each lane's panel below holds the rest.
  */
-export function LaneArea({ task, live, lanes, actions }: Props) {
+export function LaneArea({ task, live, lanes, actions, derivations }: Props) {
   const solo = lanes.length === 1;
   const over = live.phase === "ended";
   const anyInAir = live.lanes.some((l) => l.currentFlightMs !== null);
@@ -76,6 +84,7 @@ export function LaneArea({ task, live, lanes, actions }: Props) {
                 onEndCall={(t) => void actions.endCall(l.lane, t)}
               />
             ) : null}
+            note={<ClockNote derivation={derivations?.find((d) => d.lane === l.lane)} />}
             control={solo && showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
             tools={tools}
             list={solo ? list : <details><summary className="min-h-12 cursor-pointer py-3 font-bold">Flights and fixes</summary>{list}</details>}

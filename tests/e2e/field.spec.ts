@@ -254,6 +254,24 @@ test("a flight's launch is corrected on its own and the landing stays; a launch 
   expect(kinds.filter((k) => k === "correct")).toHaveLength(1);
 });
 
+test("a wall-clock jump during a flight shows on the live lane, both times in plain words, while the window runs", async ({ page }) => {
+  await openNewWindow(page, { email: "ada@example.com", t0: T0 });
+  await chooseTaskH(page);
+  const spent = await createAndStart(page);
+  const me = (await page.getByRole("button", { name: /^Launch, / }).getAttribute("aria-label"))!.replace(/^Launch, /, "");
+  await fly(page, [[me, 10_000 - spent, "Launch"]]);
+  await expect(page.getByTestId("clock-note-0")).toHaveCount(0);
+  // Mid-flight the phone's wall clock is set back 5 minutes (a time sync); its steady clock runs on.
+  await page.clock.setSystemTime((await page.evaluate(() => Date.now())) - 300_000);
+  await fly(page, [[me, 60_000, "Landed"]]);
+  const note = page.getByTestId("clock-note-0");
+  await expect(note).toContainText("wall clock jumped");
+  await expect(note).toContainText("Flight 1: 60.0 s by the phone's steady clock");
+  await expect(note).toContainText("by its wall clock");
+  await expect(page.getByTestId("result-0")).toHaveText("60.0"); // the steady clock's time counts
+  await expect(page.getByTestId("working-time-left")).toBeVisible(); // still the live window
+});
+
 test("a clicker's Space and Enter drive the solo lane", async ({ page }) => {
   await openNewWindow(page, { email: "ada@example.com" });
   await chooseTaskH(page);
