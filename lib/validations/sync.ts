@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { clockEstimateSchema, runEventSchema } from "@/lib/events/schema";
+import { clockEstimateSchema, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, runEventSchema } from "@/lib/events/schema";
 import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
@@ -112,9 +112,10 @@ export const laneVersionSchema = z.object({
   resultTenths: z.number().int(),
 });
 
-/** A penalty or invalid mark recorded for the lane that does not count (lib/sync/types.ts RulingNote). */
+/** A ruling recorded for the lane that does not count (lib/results RulingNote). */
 export const rulingNoteSchema = z.object({
-  kind: z.enum(["penalty", "invalid"]),
+  kind: z.enum(["penalty", "invalid", "unsigned", "reflight"]),
+  reflight: z.object({ cause: z.enum(REFLIGHT_CAUSES), placement: z.enum(REFLIGHT_PLACEMENTS) }).optional(),
   recordedBy: z.string().max(64),
   points: z.number().int().nullable(),
   flightIndex: z.number().int().nullable(),
