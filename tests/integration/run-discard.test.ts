@@ -109,5 +109,9 @@ describe("deleting a window that was set up but never started (ours: issue 10)",
     expect((await push(body)).body.acks).toEqual([{ id: run.id, status: "applied" }]);
     expect((await push(body)).body.acks).toEqual([{ id: run.id, status: "applied" }]);
     expect(await serverRun(run.id)).toBeUndefined();
+    // a deletion that is not a run id is refused on its own, with the reason
+    const odd = await push({ ...body, discards: [{ id: "not-a-run" }] });
+    expect(odd.status).toBe(200);
+    expect(odd.body.acks).toEqual([{ id: "not-a-run", status: "rejected", reason: expect.stringMatching(/^Invalid deletion: id/) }]);
   });
 });
