@@ -101,7 +101,7 @@ test("task E: a typed target out of range is refused beside the field and not an
   await page.getByRole("button", { name: "Start working time" }).click();
   const picker = page.getByRole("group", { name: /^Announced target/ });
   await picker.getByLabel("Other target (s)").fill("5000");
-  await picker.getByRole("button", { name: "Call" }).click();
+  await picker.getByRole("button", { name: "Call", exact: true }).click();
   await expect(picker.getByLabel("Other target (s)")).toHaveAccessibleDescription("A target is a whole number of seconds, 1 to 3600.");
   expect((await storedEvents(page, runId)).map((e) => e.body.kind)).toEqual(["window-start"]);
 });
