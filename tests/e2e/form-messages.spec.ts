@@ -97,6 +97,7 @@ test("task E: a typed target out of range is refused beside the field and not an
   await openNewWindow(page, { email: "ada@example.com", field: "North Meadow" });
   await page.getByRole("radio", { name: /^E · Poker.*10 min/ }).check();
   await page.getByRole("button", { name: "Set up the window" }).click();
+  await expect(page).toHaveURL(/\/field\/run\?id=/);
   const runId = new URL(page.url()).searchParams.get("id")!;
   await page.getByRole("button", { name: "Start working time" }).click();
   const picker = page.getByRole("group", { name: /^Announced target/ });
