@@ -1,6 +1,9 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import { useId, useState } from "react";
+import { useForm } from "react-hook-form";
+import { flightTimeFormSchema, type FlightTimeForm } from "@/lib/field/field-forms";
 import { parseFlightTime } from "@/lib/field/flight-fix";
 import { formatRunning, secondsText } from "@/lib/field/display";
 import type { InvalidReason } from "@/lib/events/schema";
@@ -80,21 +83,21 @@ type TimeFormProps = {
   onSubmit: (tenths: number) => Promise<string | null>;
 };
 
-/** One typed time ("63.4" or "1:03.4") with its own message for unreadable or refused input. */
+/**
+ * One typed time ("63.4" or "1:03.4") with its own message beside the field (react-hook-form with
+ * the zod resolver, lib/field/field-forms.ts) for unreadable input, or the reason it was refused.
+ * Unreadable input records nothing.
+ */
 function TimeForm({ label, initial, submit, onSubmit }: TimeFormProps) {
   const id = useId();
-  const [text, setText] = useState(initial);
-  const [error, setError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, formState } = useForm<FlightTimeForm>({ resolver: zodResolver(flightTimeFormSchema), defaultValues: { time: initial } });
+  const error = formState.errors.time?.message;
+  const save = async ({ time }: FlightTimeForm) => {
+    const refused = await onSubmit(parseFlightTime(time)!);
+    if (refused) setError("time", { message: refused });
+  };
   return (
-    <form
-      onSubmit={(e) => {
-        e.preventDefault();
-        const tenths = parseFlightTime(text);
-        if (tenths === null) return setError("Type the time as seconds (63.4) or minutes:seconds (1:03.4).");
-        setError(null);
-        void onSubmit(tenths).then(setError);
-      }}
-    >
+    <form noValidate onSubmit={(e) => void handleSubmit(save)(e)}>
       <div className="flex items-end gap-2">
         <div className="flex-1">
           <label htmlFor={`${id}-t`} className="block text-sm font-semibold">
@@ -103,8 +106,7 @@ function TimeForm({ label, initial, submit, onSubmit }: TimeFormProps) {
           <input
             id={`${id}-t`}
             inputMode="decimal"
-            value={text}
-            onChange={(e) => setText(e.target.value)}
+            {...register("time")}
             aria-invalid={error ? true : undefined}
             aria-describedby={error ? `${id}-e` : undefined}
             className="figures min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-lg"

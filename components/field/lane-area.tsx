@@ -1,8 +1,9 @@
 "use client";
 
 import type { ReactNode } from "react";
-import { TimelineStrip } from "@/components/run";
+import { ClockNote, TimelineStrip } from "@/components/run";
 import type { RunLane } from "@/lib/events/entities";
+import type { LaneDerivation } from "@/lib/results";
 import { TARGET_SHOWN_WITHIN_MS, type LaneLive, type LiveState, type TaskDefinition } from "@/lib/tasks";
 import { FlightList } from "./flight-list";
 import { LaneBoard, type BoardLane } from "./lane-board";
@@ -20,6 +21,8 @@ type Props = {
   actions: ReturnType<typeof useRunActions>;
   /** The lane's model choice (the hangar), for lanes the signed-in pilot flies. */
   modelPicker?: (lane: RunLane, label: string) => ReactNode;
+  /** The run's result per lane (lib/results): its clock flags are shown on the lane while it is flown. */
+  derivations?: readonly LaneDerivation[];
 };
 
 /**
@@ -27,7 +30,7 @@ type Props = {
  * lanes, their controls sit together on the board at the top (within reach without scrolling),
  * and each lane's panel below holds the rest.
  */
-export function LaneArea({ task, live, lanes, actions, modelPicker }: Props) {
+export function LaneArea({ task, live, lanes, actions, modelPicker, derivations }: Props) {
   const solo = lanes.length === 1;
   const over = live.phase === "ended";
   const anyInAir = live.lanes.some((l) => l.currentFlightMs !== null);
@@ -84,6 +87,7 @@ export function LaneArea({ task, live, lanes, actions, modelPicker }: Props) {
                 onEndCall={(t) => void actions.endCall(l.lane, t)}
               />
             ) : null}
+            note={<ClockNote derivation={derivations?.find((d) => d.lane === l.lane)} />}
             control={solo && showControl ? <TapControl action={inAir ? "Landed" : "Launch"} laneLabel={label} inAir={inAir} size={solo ? "solo" : "lane"} onTap={(t) => void actions.tap(l.lane, t)} /> : null}
             tools={<>{modelPicker?.(l, label)}{tools}</>}
             list={solo ? list : <details><summary className="min-h-12 cursor-pointer py-3 font-bold">Flights and fixes</summary>{list}</details>}

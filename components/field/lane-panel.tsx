@@ -12,6 +12,8 @@ type Props = {
   elapsedMs: number | null;
   strip: ReactNode;
   control: ReactNode;
+  /** A note on the lane's record (a wall-clock jump), shown below the control so the control stays in reach. */
+  note?: ReactNode;
   picker: ReactNode;
   tools: ReactNode;
   list: ReactNode;
@@ -21,7 +23,7 @@ type Props = {
  * One pilot's lane: the current flight in large figures, the score lines, the warnings,
  * then the big control (within thumb reach without scrolling on a phone), then the strip.
  */
-export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker, tools, list }: Props) {
+export function LanePanel({ lane, label, solo, elapsedMs, strip, control, note, picker, tools, list }: Props) {
   const inAir = lane.currentFlightMs !== null;
   const lastLanded = [...lane.flights].reverse().find((f) => f.landMs !== null);
   const groundMs = !inAir && lastLanded?.landMs != null && elapsedMs !== null ? Math.max(0, elapsedMs - lastLanded.landMs) : null;
@@ -52,6 +54,7 @@ export function LanePanel({ lane, label, solo, elapsedMs, strip, control, picker
       ) : null}
       {picker}
       {control}
+      {note}
       {strip}
       {lane.hints.length > 0 ? (
         <p className="figures text-sm font-semibold" data-testid={`hints-${lane.lane}`}>

@@ -123,12 +123,12 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
       ) : live.phase === "not-started" ? (
         <>
           <SignalElsewhereNote onUndo={() => setSignalElsewhere(false)} />
-          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} derivations={result.lanes} />
         </>
       ) : (
         <>
           <ClockPanel live={live} workingTimeSec={task.kind === "all-up" ? task.landingDeadlineSec : task.workingTimeSec} compact={laneCount > 1} />
-          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} />
+          <LaneArea task={task} live={live} lanes={run.lanes} actions={actions} modelPicker={modelPicker} derivations={result.lanes} />
         </>
       )}
       {/* several lanes: the notes go below, so every lane's control stays in reach */}

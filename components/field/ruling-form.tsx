@@ -1,7 +1,11 @@
 "use client";
 
-import { useId, useState } from "react";
-import { PENALTY_CAUSES, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, type PenaltyCause, type ReflightCause, type ReflightPlacement } from "@/lib/events/schema";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useId } from "react";
+import { useForm } from "react-hook-form";
+import type { PenaltyCause, ReflightCause, ReflightPlacement } from "@/lib/events/schema";
+import { PENALTY_CAUSES, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
+import { penaltyFormSchema, reflightFormSchema, type PenaltyForm, type ReflightForm } from "@/lib/field/field-forms";
 import { PENALTY_CAUSE_WORDS, REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 
 export type PenaltyInput = { points: number; reason: string; cause: PenaltyCause; launchId?: string; midAir?: boolean };
@@ -14,40 +18,41 @@ type Props = RulingActions & { laneLabel: string; flights: readonly { index: num
 
 const field = "min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2";
 
-/** A penalty (what happened, in which flight, mid-air or not), "not signed", or a re-flight: each one new event. */
+/** A message tied to its field (aria-describedby), in plain words. */
+function FieldMessage({ id, message }: { id: string; message: string | undefined }) {
+  return message ? <p id={id} className="text-sm font-semibold text-danger">{message}</p> : null;
+}
+
+/**
+ * A penalty (what happened, in which flight, mid-air or not), "not signed", or a re-flight: each
+ * one new event. The forms use react-hook-form with the zod resolver (lib/field/field-forms.ts):
+ * a message beside the field, and bad input records nothing.
+ */
 export function RulingForm({ laneLabel, flights, onPenalty, onUnsigned, onReflight, onDone }: Props) {
   const id = useId();
   const last = flights[flights.length - 1];
-  const [cause, setCause] = useState<PenaltyCause>("object-in-safety-area");
-  const [points, setPoints] = useState("100");
-  const [launchId, setLaunchId] = useState(last?.launchId ?? "");
-  const [midAir, setMidAir] = useState(false);
-  const [reason, setReason] = useState("");
-  const [rCause, setRCause] = useState<ReflightCause>("organiser");
-  const [placement, setPlacement] = useState<ReflightPlacement>("later-group");
-  const [error, setError] = useState<string | null>(null);
-  const pickCause = (c: PenaltyCause) => {
-    setCause(c);
-    const preset = PENALTY_CAUSE_WORDS[c].points;
-    if (preset !== null) setPoints(String(preset));
+  const penalty = useForm<PenaltyForm>({
+    resolver: zodResolver(penaltyFormSchema),
+    defaultValues: { cause: "object-in-safety-area", points: "100", launchId: last?.launchId ?? "", midAir: false, reason: "" },
+  });
+  const reflight = useForm<ReflightForm>({ resolver: zodResolver(reflightFormSchema), defaultValues: { cause: "organiser", placement: "later-group" } });
+  const fe = penalty.formState.errors;
+  const described = (name: "p" | "r", error: unknown) => (error ? { "aria-invalid": true as const, "aria-describedby": `${id}-${name}-e` } : {});
+  const causeField = penalty.register("cause", {
+    onChange: (e: { target: { value: string } }) => {
+      const preset = PENALTY_CAUSE_WORDS[e.target.value as PenaltyCause].points;
+      if (preset !== null) penalty.setValue("points", String(preset), { shouldValidate: penalty.formState.isSubmitted });
+    },
+  });
+  const addPenalty = async ({ cause, points, launchId, midAir, reason }: PenaltyForm) => {
+    const words = reason.trim() || PENALTY_CAUSE_WORDS[cause].label;
+    if (await onPenalty({ points: Number(points), reason: words.slice(0, 200), cause, ...(launchId ? { launchId } : {}), ...(midAir ? { midAir } : {}) })) onDone();
   };
   return (
     <div className="space-y-3 rounded-lg bg-surface p-3">
-      <form
-        className="space-y-2"
-        aria-label={`Penalty, ${laneLabel}`}
-        onSubmit={async (e) => {
-          e.preventDefault();
-          const p = Number(points);
-          if (!Number.isInteger(p) || p < 1 || p > 1000) return setError("Points are a whole number from 1 to 1000.");
-          const words = reason.trim() || (cause === "other" ? "" : PENALTY_CAUSE_WORDS[cause].label);
-          if (!words) return setError("Say what happened.");
-          setError(null);
-          if (await onPenalty({ points: p, reason: words.slice(0, 200), cause, ...(launchId ? { launchId } : {}), ...(midAir ? { midAir } : {}) })) onDone();
-        }}
-      >
+      <form className="space-y-2" aria-label={`Penalty, ${laneLabel}`} noValidate onSubmit={(e) => void penalty.handleSubmit(addPenalty)(e)}>
         <label htmlFor={`${id}-c`} className="block text-sm font-semibold">What happened</label>
-        <select id={`${id}-c`} value={cause} onChange={(e) => pickCause(e.target.value as PenaltyCause)} className={field}>
+        <select id={`${id}-c`} {...causeField} className={field}>
           {PENALTY_CAUSES.map((c) => (
             <option key={c} value={c}>{PENALTY_CAUSE_WORDS[c].label}</option>
           ))}
@@ -55,11 +60,11 @@ export function RulingForm({ laneLabel, flights, onPenalty, onUnsigned, onReflig
         <div className="flex gap-2">
           <div className="w-24">
             <label htmlFor={`${id}-p`} className="block text-sm font-semibold">Points</label>
-            <input id={`${id}-p`} inputMode="numeric" value={points} onChange={(e) => setPoints(e.target.value)} className={`figures text-lg ${field}`} />
+            <input id={`${id}-p`} inputMode="numeric" {...penalty.register("points")} {...described("p", fe.points)} className={`figures text-lg ${field}`} />
           </div>
           <div className="flex-1">
             <label htmlFor={`${id}-f`} className="block text-sm font-semibold">In which flight</label>
-            <select id={`${id}-f`} value={launchId} onChange={(e) => setLaunchId(e.target.value)} className={field}>
+            <select id={`${id}-f`} {...penalty.register("launchId")} className={field}>
               {flights.map((f) => (
                 <option key={f.launchId} value={f.launchId}>Flight {f.index + 1}</option>
               ))}
@@ -67,13 +72,14 @@ export function RulingForm({ laneLabel, flights, onPenalty, onUnsigned, onReflig
             </select>
           </div>
         </div>
+        <FieldMessage id={`${id}-p-e`} message={fe.points?.message} />
         <label className="flex min-h-12 items-center gap-3">
-          <input type="checkbox" checked={midAir} onChange={(e) => setMidAir(e.target.checked)} className="h-6 w-6" />
+          <input type="checkbox" {...penalty.register("midAir")} className="h-6 w-6" />
           <span>Caused by a mid-air collision (no penalty, F3K.4.3)</span>
         </label>
-        <label htmlFor={`${id}-r`} className="block text-sm font-semibold">Details (optional)</label>
-        <input id={`${id}-r`} value={reason} maxLength={200} onChange={(e) => setReason(e.target.value)} className={field} />
-        {error ? <p className="text-sm font-semibold text-danger">{error}</p> : null}
+        <label htmlFor={`${id}-r`} className="block text-sm font-semibold">Details (needed for “something else”)</label>
+        <input id={`${id}-r`} maxLength={200} {...penalty.register("reason")} {...described("r", fe.reason)} className={field} />
+        <FieldMessage id={`${id}-r-e`} message={fe.reason?.message} />
         <button type="submit" className="min-h-12 w-full rounded-lg border-2 border-danger font-bold text-danger">Add penalty</button>
       </form>
       <button type="button" onClick={async () => (await onUnsigned()) && onDone()} className="min-h-12 w-full rounded-lg border-2 border-danger font-bold text-danger">
@@ -82,19 +88,17 @@ export function RulingForm({ laneLabel, flights, onPenalty, onUnsigned, onReflig
       <form
         className="space-y-2"
         aria-label={`Re-flight, ${laneLabel}`}
-        onSubmit={async (e) => {
-          e.preventDefault();
-          if (await onReflight(rCause, placement)) onDone();
-        }}
+        noValidate
+        onSubmit={(e) => void reflight.handleSubmit(async ({ cause, placement }) => (await onReflight(cause, placement)) && onDone())(e)}
       >
         <label htmlFor={`${id}-rc`} className="block text-sm font-semibold">Re-flight because of</label>
-        <select id={`${id}-rc`} value={rCause} onChange={(e) => setRCause(e.target.value as ReflightCause)} className={field}>
+        <select id={`${id}-rc`} {...reflight.register("cause")} className={field}>
           {REFLIGHT_CAUSES.map((c) => (
             <option key={c} value={c}>{REFLIGHT_CAUSE_WORDS[c]}</option>
           ))}
         </select>
         <label htmlFor={`${id}-rp`} className="block text-sm font-semibold">Flown</label>
-        <select id={`${id}-rp`} value={placement} onChange={(e) => setPlacement(e.target.value as ReflightPlacement)} className={field}>
+        <select id={`${id}-rp`} {...reflight.register("placement")} className={field}>
           {REFLIGHT_PLACEMENTS.map((p) => (
             <option key={p} value={p}>{REFLIGHT_PLACEMENT_WORDS[p].label}</option>
           ))}

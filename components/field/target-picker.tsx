@@ -1,6 +1,9 @@
 "use client";
 
-import { useId, useState } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useId } from "react";
+import { useForm } from "react-hook-form";
+import { targetFormSchema, type TargetForm } from "@/lib/field/field-forms";
 import { useInstantPress } from "./use-instant-press";
 
 const QUICK = [30, 40, 45, 50, 60, 75, 90, 120, 150, 180, 240, 300];
@@ -16,12 +19,13 @@ type Props = {
 
 /**
  * Task E: the pilot's announced target, picked before the launch (F3K.11.5). Shown only
- * while no target is pending: an unreached target cannot be changed.
+ * while no target is pending: an unreached target cannot be changed. A typed target goes through
+ * react-hook-form with the zod resolver: its message beside the field, and bad input calls nothing.
  */
 export function TargetPicker({ laneLabel, secondsLeft, allowEndCall, onTarget, onEndCall }: Props) {
   const id = useId();
-  const [other, setOther] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { register, handleSubmit, reset, formState } = useForm<TargetForm>({ resolver: zodResolver(targetFormSchema), defaultValues: { target: "" } });
+  const error = formState.errors.target?.message;
   return (
     <fieldset className="space-y-2 rounded-xl border-2 border-ink p-3">
       <legend className="px-1 font-bold">Announced target, {laneLabel}</legend>
@@ -31,27 +35,36 @@ export function TargetPicker({ laneLabel, secondsLeft, allowEndCall, onTarget, o
         ))}
       </div>
       <form
-        className="flex items-end gap-2"
+        className="space-y-1"
+        noValidate
         onSubmit={(e) => {
-          e.preventDefault();
-          const s = Number(other);
-          if (!Number.isInteger(s) || s < 1 || s > 3600) return setError("A target is a whole number of seconds, 1 to 3600.");
-          setError(null);
-          onTarget(s, e.timeStamp);
-          setOther("");
+          const timeStamp = e.timeStamp; // the press is the time of record, not when validation ends
+          void handleSubmit(({ target }) => {
+            onTarget(Number(target), timeStamp);
+            reset({ target: "" });
+          })(e);
         }}
       >
-        <div className="flex-1">
-          <label htmlFor={`${id}-o`} className="block text-sm font-semibold">
-            Other target (s)
-          </label>
-          <input id={`${id}-o`} inputMode="numeric" value={other} onChange={(e) => setOther(e.target.value)} className="figures min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-lg" />
+        <div className="flex items-end gap-2">
+          <div className="flex-1">
+            <label htmlFor={`${id}-o`} className="block text-sm font-semibold">
+              Other target (s)
+            </label>
+            <input
+              id={`${id}-o`}
+              inputMode="numeric"
+              {...register("target")}
+              aria-invalid={error ? true : undefined}
+              aria-describedby={error ? `${id}-e` : undefined}
+              className="figures min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-lg"
+            />
+          </div>
+          <button type="submit" className="min-h-12 rounded-lg border-2 border-ink px-4 font-bold">
+            Call
+          </button>
         </div>
-        <button type="submit" className="min-h-12 rounded-lg border-2 border-ink px-4 font-bold">
-          Call
-        </button>
+        {error ? <p id={`${id}-e`} className="text-sm font-semibold text-danger">{error}</p> : null}
       </form>
-      {error ? <p className="text-sm font-semibold text-danger">{error}</p> : null}
       {allowEndCall ? (
         <button type="button" onClick={(e) => onEndCall(e.timeStamp)} className="min-h-12 w-full rounded-lg border-2 border-ink font-bold">
           Call &ldquo;end of working time&rdquo; (one attempt)

@@ -13,3 +13,4 @@ export { FlightsTable } from "./flights-table";
 export { CorrectionsList } from "./corrections-list";
 export { ClockNote } from "./clock-note";
 export { Rulings } from "./rulings";
+export { RulingNotes, describeRulingNote } from "./ruling-notes";

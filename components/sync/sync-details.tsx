@@ -6,7 +6,7 @@ import { useSync } from "./sync-provider";
 
 const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", second: "2-digit" });
 
-const KIND: Record<SyncStatus["rejected"][number]["kind"], string> = { event: "Tap", run: "Run", session: "Session" };
+const KIND: Record<SyncStatus["rejected"][number]["kind"], string> = { event: "Tap", run: "Run", session: "Session", discard: "Deleted window" };
 
 /**
  * The sync details sheet: what is waiting, when the device last synced, how far its clock

@@ -4,7 +4,7 @@ import type { Executor } from "./sync-db";
 import { visibility } from "./sync-visibility";
 
 /** Most run ids one reply names to forget (a season of a coached pilot is far fewer). */
-const FORGET_MAX = 10_000;
+export const FORGET_MAX = 10_000;
 
 /**
  * Runs the user's phone may hold as a coach's copy but may no longer see (SYNC.md §3: a pull

@@ -1,7 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import { PULL_DEFAULT_LIMIT, readPullCursor, type PullReply } from "@/lib/validations/sync";
-import { forgottenLanes, forgottenRuns } from "./sync-forget";
+import { FORGET_MAX, forgottenLanes, forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
 import type { Database } from "../index";
@@ -29,6 +29,8 @@ export const PULL_PAGE_SIZE = PULL_DEFAULT_LIMIT;
  * acceptance may lie below the user's cursor: every reply carries `scope`, a fingerprint of the
  * active grants and of the coached pilots' accepted lanes, and a device that sees it change pulls
  * again from the start — where the first page also names the runs it must forget (sync-forget.ts).
+ * Unstarted windows deleted by their recorder (run_deletions, db/queries/run-discard.ts) are rows
+ * of the same order: each page names those after the cursor that the user could see in `forget`.
  */
 export async function listChanges(db: Database, params: PullParams): Promise<PullReply> {
   // one connection and one snapshot for the whole page: a pull waits for the pool once, and its
@@ -53,23 +55,29 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
       union all
       select 'event', e.xid, e.server_seq, e.id from events e
         where ${after("e")} and e.run_id in (select id from visible_runs)
+      union all
+      select 'deleted', d.xid, d.server_seq, d.run_id from run_deletions d
+        where ${after("d")} and ${userId}::uuid = any(d.seen_by)
     )`;
-  const res = await db.execute<ChangeRow & { xid: string }>(
+  const res = await db.execute<{ type: ChangeRow["type"] | "deleted"; seq: string; id: string; xid: string }>(
     sql`${changes} select type, xid::text as xid, seq, id::text as id from changes order by changes.xid, seq limit ${limit + 1}`,
   );
   const rows = res.rows.slice(0, limit);
   const hasMore = res.rows.length > limit;
   const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
-  const [items, scope] = await Promise.all([loadItems(db, userId, rows), visibilityScope(db, userId)]);
+  const deleted = rows.filter((r) => r.type === "deleted").map((r) => r.id);
+  const changed = rows.filter((r): r is ChangeRow & { xid: string } => r.type !== "deleted");
+  const [items, scope] = await Promise.all([loadItems(db, userId, changed), visibilityScope(db, userId)]);
   const last = rows.at(-1);
   const reply: PullReply = { items, nextCursor: last ? `${last.xid}.${last.seq}` : `${at.xid}.${at.seq}`, hasMore, scope };
   if (total !== undefined) reply.total = total;
+  const forget = new Set(deleted);
   if (at.xid === "0") {
-    const forget = await forgottenRuns(db, userId);
-    if (forget.length > 0) reply.forget = forget;
+    for (const id of await forgottenRuns(db, userId)) forget.add(id);
     const lanes = await forgottenLanes(db, userId);
     if (lanes.length > 0) reply.forgetLanes = lanes;
   }
+  if (forget.size > 0) reply.forget = [...forget].slice(0, FORGET_MAX);
   return reply;
 }
 

@@ -5,6 +5,7 @@ import { ForbiddenError } from "@/lib/errors";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
+import { applyDiscards } from "./run-discard";
 import { storeDerivations } from "./runs";
 import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
@@ -65,6 +66,9 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     const added = await applyEvents(ctx, req.events, load);
     const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
     for (const r of derive) r.events.push(...(added.get(r.id) ?? []));
+    if (req.discards?.length) await applyDiscards(ctx, req.discards); // after the events: a run set up and deleted in one push goes too
+    const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));
+    const stillThere = derive.filter((r) => !deleted.has(r.id));
 
     const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
     if (rejections.size > 0) {
@@ -73,7 +77,7 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
         .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
         .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] });
     }
-    const serverSeq = derive.length > 0 ? await storeDerivations(tx, derive, load.estimates) : await currentServerSeq(tx);
+    const serverSeq = stillThere.length > 0 ? await storeDerivations(tx, stillThere, load.estimates) : await currentServerSeq(tx);
     return { acks: ctx.acks, serverSeq };
   });
 }

@@ -59,3 +59,12 @@ export const runEntitySchema = z.object({
   createdAtWallMs: epochMs,
 });
 export type RunEntity = z.infer<typeof runEntitySchema>;
+
+/**
+ * "Delete this window": sent by the phone of the account that set up a run that was never
+ * started (lib/offline/discard.ts). The server deletes the run unless it has a start or a launch
+ * that counts (lib/results wasStarted, the same rule the phone applies), and phones that pulled
+ * it drop it at their next pull.
+ */
+export const runDiscardSchema = z.object({ id: z.uuid() });
+export type RunDiscard = z.infer<typeof runDiscardSchema>;

@@ -17,8 +17,11 @@ export type StoredRun = RunEntity & { results?: LaneResult[]; recordedBy?: { id:
  * The device's IndexedDB database (SYNC.md §2), one per account signed in here; browser only.
  */
 
-/** What an outbox entry stands for; its id is the id of that event, session or run. */
-export type OutboxKind = "event" | "session" | "run";
+/**
+ * What an outbox entry stands for; its id is the id of that event, session or run. "discard":
+ * the deletion of an unstarted run (its id), which has no record left on the device.
+ */
+export type OutboxKind = "event" | "session" | "run" | "discard";
 
 /** One item not yet acknowledged by the server. */
 export type OutboxEntry = {

@@ -1,7 +1,7 @@
 import { runEventSchema, type RunEvent } from "@/lib/events/schema";
 import type { Ack } from "@/lib/validations/sync";
 import type { OutboxEntry, WindowcallDb } from "./db";
-import { runEntitySchema, sessionEntitySchema, type RunEntity, type SessionEntity } from "@/lib/events/entities";
+import { runEntitySchema, sessionEntitySchema, type RunDiscard, type RunEntity, type SessionEntity } from "@/lib/events/entities";
 
 /** Outbox entries waiting to be sent (not rejected), in queue order. */
 export async function listPending(db: WindowcallDb, limit: number): Promise<OutboxEntry[]> {
@@ -19,7 +19,7 @@ export async function listRejected(db: WindowcallDb): Promise<{ id: string; kind
   return rows.map((e) => ({ id: e.id, kind: e.kind, reason: e.rejected!.reason }));
 }
 
-export type PushPayload = { sessions: SessionEntity[]; runs: RunEntity[]; events: RunEvent[] };
+export type PushPayload = { sessions: SessionEntity[]; runs: RunEntity[]; events: RunEvent[]; discards?: RunDiscard[] };
 
 /** Bytes of items one push carries at most: well under the server's 1 MB cap (lib/api.ts). */
 export const PUSH_MAX_BYTES = 768 * 1024;
@@ -40,6 +40,12 @@ export async function loadPayload(
   const invalid: { id: string; reason: string }[] = [];
   let bytes = 0;
   for (const entry of entries) {
+    if (entry.kind === "discard") {
+      // a deleted window: nothing left on the device but its id
+      (payload.discards ??= []).push({ id: entry.id });
+      sentIds.push(entry.id);
+      continue;
+    }
     const table = entry.kind === "event" ? db.events : entry.kind === "session" ? db.sessions : db.runs;
     const schema = entry.kind === "event" ? runEventSchema : entry.kind === "session" ? sessionEntitySchema : runEntitySchema;
     const record: unknown = await table.get(entry.id);

@@ -19,7 +19,7 @@ async function takeCounter(db: WindowcallDb, key: "nextSeq" | "nextQueueSeq"): P
   return value;
 }
 
-async function enqueue(db: WindowcallDb, id: string, kind: OutboxKind, createdAt: number): Promise<void> {
+export async function enqueue(db: WindowcallDb, id: string, kind: OutboxKind, createdAt: number): Promise<void> {
   const queueSeq = await takeCounter(db, "nextQueueSeq");
   await db.outbox.add({ id, kind, createdAt, queueSeq, attempts: 0 });
 }

@@ -159,6 +159,11 @@ export function rulingNotes(
       out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "penalty", points: e.body.points, flightIndex: null, flightId: e.body.launchId ?? null, reason: e.body.reason });
     } else if (e.body.kind === "invalid") {
       out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "invalid", points: null, flightIndex: e.body.flightIndex ?? null, flightId: e.body.flightId ?? null, reason: e.body.reason });
+    } else if (e.body.kind === "unsigned") {
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "unsigned", points: null, flightIndex: null, reason: "" });
+    } else if (e.body.kind === "reflight") {
+      const { cause, placement, reason } = e.body;
+      out.push({ eventId: e.id, deviceId: e.deviceId, recordedBy: e.recordedBy, kind: "reflight", points: null, flightIndex: null, reflight: { cause, placement }, reason: reason ?? "" });
     }
   }
   return out;

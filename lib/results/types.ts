@@ -1,3 +1,4 @@
+import type { ReflightCause, ReflightPlacement } from "@/lib/events/schema";
 import type { ClockEstimate } from "@/lib/clock";
 import type { PointsLost, TaskDefinition } from "@/lib/tasks";
 import type { PlacedEvent, RecordedEvent } from "./place";
@@ -67,15 +68,18 @@ export type LaneVersion = {
 };
 
 /**
- * A penalty or invalid mark that does not count: given by someone who is neither an official
- * nor the lane's pilot (a partner at practice), or by the pilot from a phone that did not time
- * the lane. Shown beside the result so the pilot sees it before accepting the run.
+ * A ruling that does not count — a penalty, an invalid mark, "not signed" or a re-flight — given
+ * by someone who is neither an official nor the lane's pilot (a partner at practice), or by the
+ * pilot from a phone that did not time the lane. Shown beside the result so the pilot sees it
+ * before accepting the run, and the one who gave it sees it was not applied.
  */
 export type RulingNote = {
   eventId: string;
   deviceId: string;
   recordedBy: string;
-  kind: "penalty" | "invalid";
+  kind: "penalty" | "invalid" | "unsigned" | "reflight";
+  /** A re-flight's grounds and where it would be flown (kind "reflight" only). */
+  reflight?: { cause: ReflightCause; placement: ReflightPlacement };
   points: number | null;
   /** The flight's number in the lane (0-based) in the result, when it names one. */
   flightIndex: number | null;

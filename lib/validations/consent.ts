@@ -39,3 +39,9 @@ export type LaneConsent = z.infer<typeof laneConsentSchema>;
 
 /** Who created a run (its recorder), by name, so a pilot's logbook can say "recorded by …". */
 export const recorderSchema = z.object({ id: z.string().max(64), name: z.string().max(200) });
+
+/** The dispute form on the phone: the reason the recorder will read. */
+export const disputeFormSchema = z.object({
+  reason: z.string().trim().min(1, "Say briefly what is wrong with the record.").max(CONSENT_REASON_MAX, `Keep it under ${CONSENT_REASON_MAX} characters.`),
+});
+export type DisputeForm = z.infer<typeof disputeFormSchema>;

@@ -14,6 +14,12 @@ export const changeEmailSchema = z.object({
   newEmail: emailSchema,
   currentPassword: z.string().min(1, "Enter your current password.").max(200, "That is longer than any password here."),
 });
+export type ChangeEmailInput = z.infer<typeof changeEmailSchema>;
+
+/** The reset page's form: the new password (the token comes from the link, not the form). */
+export const resetPasswordFormSchema = z.object({ password: passwordSchema });
+export type ResetPasswordFormInput = z.infer<typeof resetPasswordFormSchema>;
+export type ForgotPasswordInput = z.infer<typeof forgotPasswordSchema>;
 
 /** Asking for the verification e-mail again takes no input. */
 export const resendVerificationSchema = z.object({});

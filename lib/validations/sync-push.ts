@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { runEventSchema } from "@/lib/events/schema";
-import { runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
+import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { textProblem } from "./bounds";
 import { clockEstimateSchema, PUSH_MAX_CLOCK_ESTIMATES, PUSH_MAX_ITEMS, pushRequestSchema, type Ack, type PushRequest } from "./sync";
 
@@ -20,8 +20,9 @@ export const pushEnvelopeSchema = z
     runs: z.array(z.unknown()).max(PUSH_MAX_ITEMS),
     events: z.array(z.unknown()).max(PUSH_MAX_ITEMS),
     clockEstimates: z.array(z.unknown()).max(PUSH_MAX_CLOCK_ESTIMATES).optional(),
+    discards: z.array(z.unknown()).max(PUSH_MAX_ITEMS).optional(),
   })
-  .refine((r) => r.sessions.length + r.runs.length + r.events.length <= PUSH_MAX_ITEMS, {
+  .refine((r) => r.sessions.length + r.runs.length + r.events.length + (r.discards?.length ?? 0) <= PUSH_MAX_ITEMS, {
     message: `at most ${PUSH_MAX_ITEMS} items per push`,
   });
 export type PushEnvelope = z.infer<typeof pushEnvelopeSchema>;
@@ -77,6 +78,7 @@ export function readPush(envelope: PushEnvelope): { request: PushRequest; refuse
       return parsed.success ? [parsed.data] : [];
     }),
   };
+  if (envelope.discards?.length) request.discards = readItems(runDiscardSchema, "deletion", envelope.discards, refused);
   return { request, refused };
 }
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { clockEstimateSchema, runEventSchema } from "@/lib/events/schema";
-import { runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
+import { clockEstimateSchema, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, runEventSchema } from "@/lib/events/schema";
+import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
 
@@ -33,8 +33,10 @@ export const pushRequestSchema = z
      * re-corrects this device's events between the estimates before and after an offline period.
      */
     clockEstimates: z.array(clockEstimateSchema).max(PUSH_MAX_CLOCK_ESTIMATES).optional(),
+    /** Unstarted windows the device deleted (acked by the run's id). Optional: most pushes carry none. */
+    discards: z.array(runDiscardSchema).max(PUSH_MAX_ITEMS).optional(),
   })
-  .refine((r) => r.sessions.length + r.runs.length + r.events.length <= PUSH_MAX_ITEMS, {
+  .refine((r) => r.sessions.length + r.runs.length + r.events.length + (r.discards?.length ?? 0) <= PUSH_MAX_ITEMS, {
     message: `at most ${PUSH_MAX_ITEMS} items per push`,
   });
 export type PushRequest = z.infer<typeof pushRequestSchema>;
@@ -110,9 +112,10 @@ export const laneVersionSchema = z.object({
   resultTenths: z.number().int(),
 });
 
-/** A penalty or invalid mark recorded for the lane that does not count (lib/sync/types.ts RulingNote). */
+/** A ruling recorded for the lane that does not count (lib/results RulingNote). */
 export const rulingNoteSchema = z.object({
-  kind: z.enum(["penalty", "invalid"]),
+  kind: z.enum(["penalty", "invalid", "unsigned", "reflight"]),
+  reflight: z.object({ cause: z.enum(REFLIGHT_CAUSES), placement: z.enum(REFLIGHT_PLACEMENTS) }).optional(),
   recordedBy: z.string().max(64),
   points: z.number().int().nullable(),
   flightIndex: z.number().int().nullable(),
@@ -165,7 +168,8 @@ export const pullReplySchema = z.object({
   /**
    * Runs the device may hold as a coach's copy but may no longer see (a coach grant revoked, a
    * lane the pilot hid or disputed): ids only, on the first page of a pull from the start — which
-   * every change of `scope` leads to. The device drops them with their events.
+   * every change of `scope` leads to; and, on any page, unstarted windows their recorder deleted
+   * after the cursor (db/queries/run-discard.ts). The device drops them with their events.
    */
   forget: z.array(z.string().uuid()).max(10_000).optional(),
   /**

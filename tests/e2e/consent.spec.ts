@@ -75,6 +75,10 @@ test("a pilot accepts one run a club mate recorded for them, which then counts, 
     await recorded.first().getByRole("button", { name: "Accept" }).click();
     await expect(recorded.first()).toContainText("You accepted it: it counts in your record.");
     await recorded.nth(1).getByRole("button", { name: "Dispute" }).click();
+    // No reason: the message is beside the field and nothing is decided.
+    await recorded.nth(1).getByRole("button", { name: "Send dispute" }).click();
+    await expect(recorded.nth(1).getByLabel(/What is wrong with it/)).toHaveAccessibleDescription("Say briefly what is wrong with the record.");
+    await expect(recorded.nth(1)).toHaveAttribute("data-consent", "pending");
     await recorded.nth(1).getByLabel(/What is wrong with it/).fill("My flight was 1:40, not 1:33");
     await recorded.nth(1).getByRole("button", { name: "Send dispute" }).click();
     await expect(recorded.nth(1)).toContainText("You disputed it: it does not count in your record.");

@@ -1,6 +1,7 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
+import { openNewWindow } from "./support/field";
 
 /**
  * Accessibility of the field screens (axe-core: no serious or critical violations) in the
@@ -29,8 +30,7 @@ for (const theme of ["outdoor", "dark"] as const) {
     await expect(page.getByRole("heading", { name: "Before you fly" })).toHaveCount(0);
     await shot("field");
 
-    await page.goto("/field/new");
-    await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
+    await openNewWindow(page, {}); // signed in above; the field left empty on purpose
     await page.getByRole("button", { name: "Set up the window" }).click(); // empty field name: errors shown
     await expect(page.getByText("Name the field")).toBeVisible();
     await noSeriousViolations(page, "/field/new");
@@ -56,9 +56,7 @@ for (const theme of ["outdoor", "dark"] as const) {
 }
 
 test("a poker window asks for the target before the launch (F3K.11.5)", async ({ page }, info) => {
-  await signInAs(page, "ada@example.com");
-  await page.goto("/field/new");
-  await page.getByLabel("Field").fill("North Meadow");
+  await openNewWindow(page, { email: "ada@example.com", field: "North Meadow" });
   await page.getByRole("radio", { name: /^E · Poker.*10 min/ }).check();
   await page.getByRole("button", { name: "Set up the window" }).click();
   await page.getByRole("button", { name: "Start working time" }).click();

@@ -1,6 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { signInAs } from "./support/auth";
-import { press, settle } from "./support/field";
+import { openNewWindow, press, settle } from "./support/field";
 
 /**
  * One result everywhere: the same H and E windows flown on one lane and on four lanes read the
@@ -33,11 +32,8 @@ const E_STEPS: Step[] = [
 const E_RESULT = "135.0";
 
 async function setUp(page: Page, task: RegExp, group: string[] | null): Promise<string[]> {
-  await page.goto("/field/new");
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
   // Paused from here: time moves only by runFor, so every reading below is exact.
-  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
-  await page.getByLabel("Field").fill("Long Acre");
+  await openNewWindow(page, { email: "ada@example.com", t0: T0, field: "Long Acre" });
   if (group) {
     await page.getByRole("radio", { name: /Several pilots/ }).check();
     for (const [i, name] of group.entries()) await page.getByLabel(`Pilot in lane ${i + 1}`).fill(name);
@@ -141,8 +137,6 @@ for (const [name, task, steps, expected] of [
 ] as const) {
   for (const group of [null, GROUP]) {
     test(`task ${name} on ${group ? "four lanes" : "one lane"}: the same result on the field, the logbook, the run page and the server`, async ({ page }) => {
-      await signInAs(page, "ada@example.com");
-      await page.clock.install({ time: T0 });
       await flyAndRead(page, task, group, steps as Step[], expected);
     });
   }

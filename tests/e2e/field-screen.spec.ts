@@ -1,6 +1,6 @@
 import { expect, test, type Page } from "@playwright/test";
 import { signInAs } from "./support/auth";
-import { workerReady } from "./support/field";
+import { openNewWindow, workerReady } from "./support/field";
 
 /**
  * The field screens as a timekeeper uses them on a small phone: every lane's control in reach,
@@ -9,11 +9,9 @@ import { workerReady } from "./support/field";
 
 test.use({ viewport: { width: 360, height: 640 } });
 
-/** Sets up a window for `names` (one lane each) at `field`, task H, and gives the start signal. */
-async function startGroupWindow(page: Page, field: string, names: string[]) {
-  await page.goto("/field/new");
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.getByLabel("Field", { exact: true }).fill(field);
+/** Sets up a window for `names` (one lane each) at `field`, task H, and gives the start signal (signed in as `email` first, if given). */
+async function startGroupWindow(page: Page, field: string, names: string[], email?: string) {
+  await openNewWindow(page, { email, field });
   if (names.length > 1) {
     await page.getByRole("radio", { name: /Several pilots/ }).check();
     for (const [i, name] of names.entries()) await page.getByLabel(`Pilot in lane ${i + 1}`).fill(name);
@@ -38,8 +36,7 @@ async function reachable(page: Page, name: string): Promise<boolean> {
 for (const lanes of [2, 3, 4]) {
   test(`${lanes} lanes: every lane's launch and landed control is in reach without scrolling on a 360×640 phone`, async ({ page }) => {
     const names = ["Kit Marsh", "Rowan Vale", "Sol Ardent", "Ivy Pell"].slice(0, lanes);
-    await signInAs(page, "ada@example.com");
-    await startGroupWindow(page, "North Meadow", names);
+    await startGroupWindow(page, "North Meadow", names, "ada@example.com");
     await page.evaluate(() => window.scrollTo(0, 0));
     for (const [i, name] of names.entries()) {
       expect(await reachable(page, `Launch, Lane ${i + 1} · ${name}`), `lane ${i + 1} launch`).toBe(true);
@@ -57,12 +54,15 @@ for (const lanes of [2, 3, 4]) {
 }
 
 test("offline, the sync badge says so and counts what waits to be sent", async ({ page, context }) => {
-  await signInAs(page, "ada@example.com");
-  await workerReady(page);
-  await context.setOffline(true);
-  await page.goto("/field/new").catch(() => null); // served by the worker
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.getByLabel("Field", { exact: true }).fill("North Meadow");
+  await openNewWindow(page, {
+    email: "ada@example.com",
+    field: "North Meadow",
+    offline: true, // the form is served by the worker
+    beforeForm: async () => {
+      await workerReady(page);
+      await context.setOffline(true);
+    },
+  });
   await page.getByRole("radio", { name: /^H · 1, 2, 3 and 4 minute/ }).check();
   await page.getByRole("button", { name: "Set up the window" }).click();
   await page.getByRole("button", { name: "Start working time" }).click();
@@ -73,10 +73,7 @@ test("offline, the sync badge says so and counts what waits to be sent", async (
 });
 
 test("the custom task form says what is wrong beside each field, in plain words", async ({ page }) => {
-  await signInAs(page, "ada@example.com");
-  await page.goto("/field/new");
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.getByLabel("Field", { exact: true }).fill("North Meadow");
+  await openNewWindow(page, { email: "ada@example.com", field: "North Meadow" });
   await page.getByRole("radio", { name: /Your own task/ }).check();
   await page.getByLabel("Working time (minutes)").fill("0");
   await page.getByLabel("How many count").fill("");
@@ -97,8 +94,7 @@ test("the custom task form says what is wrong beside each field, in plain words"
 });
 
 test("the set-up form remembers the last field and suggests earlier ones", async ({ page }) => {
-  await signInAs(page, "ada@example.com");
-  await startGroupWindow(page, "Heather Slope", ["Ada Fenwick"]);
+  await startGroupWindow(page, "Heather Slope", ["Ada Fenwick"], "ada@example.com");
   await startGroupWindow(page, "Windy Knoll", ["Ada Fenwick"]);
   await page.goto("/field/new");
   const field = page.getByLabel("Field", { exact: true });

@@ -1,6 +1,5 @@
 import { expect, test, type BrowserContext, type Page } from "@playwright/test";
-import { signInAs } from "./support/auth";
-import { press, settle, storedEvents, workerReady } from "./support/field";
+import { openNewWindow, press, settle, storedEvents, workerReady } from "./support/field";
 
 /**
  * The field timer in a real Chromium with the real service worker, offline after the first
@@ -37,18 +36,17 @@ async function profileCached(page: Page) {
  * the network, installs the controlled clock and opens the set-up form from the precache.
  */
 async function openSetUpOffline(page: Page, context: BrowserContext) {
-  await signInAs(page, "ada@example.com");
-  await workerReady(page);
-  await profileCached(page);
-  await context.setOffline(true);
-  await page.clock.install({ time: T0 });
-  await page.goto("/field/new").catch(() => null); // offline: served by the worker
-  await expect(page.getByRole("heading", { name: "New task window" })).toBeVisible();
-  await page.clock.runFor(1_000); // let the page's timers run once before pausing
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  // Paused from here: time moves only by runFor, so every reading below is exact.
-  await page.clock.pauseAt(new Date(T0.getTime() + 3_600_000));
+  await openNewWindow(page, {
+    email: "ada@example.com",
+    t0: T0, // paused from here: time moves only by runFor, so every reading below is exact
+    offline: true,
+    warmUpMs: 1_000, // let the page's timers run once before pausing
+    beforeForm: async () => {
+      await workerReady(page);
+      await profileCached(page);
+      await context.setOffline(true);
+    },
+  });
 }
 
 async function chooseTaskH(page: Page, group?: string[]) {
@@ -200,8 +198,7 @@ test("the working-time clock does not drift over a full window", async ({ page, 
 });
 
 test("the recorded launch time is the input event's own timestamp", async ({ page }) => {
-  await signInAs(page, "ada@example.com");
-  await page.goto("/field/new");
+  await openNewWindow(page, { email: "ada@example.com" });
   await chooseTaskH(page);
   // No controlled clock here (settle would install one): the page keeps the browser's own
   // performance.now, the clock event.timeStamp is on, so the app must store that stamp itself.
@@ -257,9 +254,26 @@ test("a flight's launch is corrected on its own and the landing stays; a launch 
   expect(kinds.filter((k) => k === "correct")).toHaveLength(1);
 });
 
+test("a wall-clock jump during a flight shows on the live lane, both times in plain words, while the window runs", async ({ page }) => {
+  await openNewWindow(page, { email: "ada@example.com", t0: T0 });
+  await chooseTaskH(page);
+  const spent = await createAndStart(page);
+  const me = (await page.getByRole("button", { name: /^Launch, / }).getAttribute("aria-label"))!.replace(/^Launch, /, "");
+  await fly(page, [[me, 10_000 - spent, "Launch"]]);
+  await expect(page.getByTestId("clock-note-0")).toHaveCount(0);
+  // Mid-flight the phone's wall clock is set back 5 minutes (a time sync); its steady clock runs on.
+  await page.clock.setSystemTime((await page.evaluate(() => Date.now())) - 300_000);
+  await fly(page, [[me, 60_000, "Landed"]]);
+  const note = page.getByTestId("clock-note-0");
+  await expect(note).toContainText("wall clock jumped");
+  await expect(note).toContainText("Flight 1: 60.0 s by the phone's steady clock");
+  await expect(note).toContainText("by its wall clock");
+  await expect(page.getByTestId("result-0")).toHaveText("60.0"); // the steady clock's time counts
+  await expect(page.getByTestId("working-time-left")).toBeVisible(); // still the live window
+});
+
 test("a clicker's Space and Enter drive the solo lane", async ({ page }) => {
-  await signInAs(page, "ada@example.com");
-  await page.goto("/field/new");
+  await openNewWindow(page, { email: "ada@example.com" });
   await chooseTaskH(page);
   await page.getByRole("button", { name: "Set up the window" }).click();
   await expect(page.getByRole("button", { name: "Start working time" })).toBeVisible();

@@ -128,3 +128,33 @@ test("task E: the target picker is there before the launch and right after relea
     "Normalised scores: exact halves round up · End of working time call: its time only if still flying at the end",
   );
 });
+
+test("a club mate's \"not signed\" and re-flight at practice are shown on the run page as notes, not applied and not dropped", async ({ page }) => {
+  // Ada times Tobi (a club mate with an account): she is neither an official nor the pilot, so her rulings do not count.
+  await openNewWindow(page, { email: "ada@example.com", field: "North Meadow" });
+  await page.getByRole("radio", { name: /A partner/ }).check();
+  await page.getByLabel("Partner's name").fill("tobi okafor");
+  await expect(page.getByText("Club mate: the run goes to Tobi Okafor’s logbook too.")).toBeVisible();
+  await page.getByRole("radio", { name: /^A · / }).first().check();
+  await page.getByRole("button", { name: "Set up the window" }).click();
+  await expect(page).toHaveURL(/\/field\/run\?id=/);
+  await page.getByRole("button", { name: "Start working time" }).click();
+  await page.getByRole("button", { name: "Launch, Tobi Okafor" }).click();
+  await page.getByRole("button", { name: "Landed, Tobi Okafor" }).click();
+  await page.getByRole("button", { name: "Penalty… Tobi Okafor" }).click();
+  await page.getByRole("button", { name: /^Result not signed: round scores zero ?, Tobi Okafor$/ }).click();
+  await page.getByRole("button", { name: "Penalty… Tobi Okafor" }).click();
+  const reflight = page.getByRole("form", { name: "Re-flight, Tobi Okafor" });
+  await reflight.getByLabel("Re-flight because of").selectOption({ label: "rain" });
+  await reflight.getByRole("button", { name: "Grant a re-flight" }).click();
+  await expect(reflight).toBeHidden();
+
+  await page.goto(`/logbook/run?id=${new URL(page.url()).searchParams.get("id")}`);
+  const notes = page.getByRole("list", { name: "Rulings not applied, Tobi Okafor" }).getByRole("listitem");
+  await expect(notes).toHaveText([
+    "Not applied: Ada Fenwick marked the result as not signed, which would score the round zero. Only a contest official’s ruling, or the pilot’s own on the record they timed, counts.",
+    "Not applied: Ada Fenwick asked for a re-flight because of rain, in a later group. Only a contest official’s ruling, or the pilot’s own on the record they timed, counts.",
+  ]);
+  await expect(page.getByTestId("round-zero-0")).toHaveCount(0); // the round is not zeroed
+  await expect(page.getByTestId("reflight-0")).toHaveCount(0);
+});

@@ -1,27 +1,25 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { forgotPasswordSchema } from "@/lib/validations/email";
+import { forgotPasswordSchema, type ForgotPasswordInput } from "@/lib/validations/email";
 import { postJson } from "../_components/post-json";
 
-/** Asks for a reset link. The page says the same whether or not the address has an account. */
+/**
+ * Asks for a reset link (react-hook-form with the zod resolver: the message beside the field; a
+ * malformed address sends nothing). The page says the same whether or not the address has an account.
+ */
 export function ForgotPasswordForm({ initialEmail }: { initialEmail: string }) {
-  const [error, setError] = useState<string | undefined>();
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { register, handleSubmit, setError, formState } = useForm<ForgotPasswordInput>({ resolver: zodResolver(forgotPasswordSchema), defaultValues: { email: initialEmail } });
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const parsed = forgotPasswordSchema.safeParse({ email: new FormData(e.currentTarget).get("email") });
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message);
-    setBusy(true);
-    setError(undefined);
-    const reply = await postJson("/api/account/forgot-password", parsed.data);
-    setBusy(false);
-    if (!reply.ok) return setError(reply.message);
-    setSentTo(parsed.data.email);
+  async function onValid(data: ForgotPasswordInput) {
+    const reply = await postJson("/api/account/forgot-password", data);
+    if (!reply.ok) return setError("email", { message: reply.message });
+    setSentTo(data.email);
   }
 
   if (sentTo) {
@@ -32,10 +30,10 @@ export function ForgotPasswordForm({ initialEmail }: { initialEmail: string }) {
     );
   }
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField id="email" name="email" type="email" label="E-mail" autoComplete="email" required defaultValue={initialEmail} error={error} />
-      <Button type="submit" disabled={busy} className="w-full">
-        {busy ? "Sending…" : "Send me a link"}
+    <form onSubmit={(e) => void handleSubmit(onValid)(e)} className="space-y-4" noValidate>
+      <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={formState.errors.email?.message} />
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
+        {formState.isSubmitting ? "Sending…" : "Send me a link"}
       </Button>
     </form>
   );

@@ -1,27 +1,32 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
-import { useState, type FormEvent } from "react";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { passwordSchema } from "@/lib/validations/auth";
+import { resetPasswordFormSchema, type ResetPasswordFormInput } from "@/lib/validations/email";
 import { postJson } from "../_components/post-json";
 
-/** The new password for the account the link was sent to; a used or expired link says so. */
+/**
+ * The new password for the account the link was sent to (react-hook-form with the zod resolver:
+ * the message beside the field; a password the rules refuse sends nothing); a used or expired
+ * link says so.
+ */
 export function ResetPasswordForm({ token }: { token: string }) {
   const [error, setError] = useState<string | undefined>();
   const [done, setDone] = useState(false);
-  const [busy, setBusy] = useState(false);
+  const form = useForm<ResetPasswordFormInput>({ resolver: zodResolver(resetPasswordFormSchema), defaultValues: { password: "" } });
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const parsed = passwordSchema.safeParse(new FormData(e.currentTarget).get("password"));
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message);
-    setBusy(true);
+  async function onValid({ password }: ResetPasswordFormInput) {
     setError(undefined);
-    const reply = await postJson("/api/account/reset-password", { token, password: parsed.data });
-    setBusy(false);
-    if (!reply.ok) return setError(reply.issues?.find((i) => i.path === "password")?.message ?? reply.message);
+    const reply = await postJson("/api/account/reset-password", { token, password });
+    if (!reply.ok) {
+      const onField = reply.issues?.find((i) => i.path === "password")?.message;
+      if (onField) return form.setError("password", { message: onField });
+      return setError(reply.message);
+    }
     setDone(true);
   }
 
@@ -38,13 +43,13 @@ export function ResetPasswordForm({ token }: { token: string }) {
     );
   }
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField id="password" name="password" type="password" label="New password (at least 10 characters)" autoComplete="new-password" required />
+    <form onSubmit={(e) => void form.handleSubmit(onValid)(e)} className="space-y-4" noValidate>
+      <TextField id="password" type="password" label="New password (at least 10 characters)" autoComplete="new-password" required {...form.register("password")} error={form.formState.errors.password?.message} />
       <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
         {error}
       </p>
-      <Button type="submit" disabled={busy} className="w-full">
-        {busy ? "Saving…" : "Set new password"}
+      <Button type="submit" disabled={form.formState.isSubmitting} className="w-full">
+        {form.formState.isSubmitting ? "Saving…" : "Set new password"}
       </Button>
       <p>
         <Link href="/forgot-password" className="underline">

@@ -63,15 +63,35 @@ export async function storedEvents(page: Page, runId: string): Promise<StoredEve
   }, runId);
 }
 
+/** How a spec opens the new-window form (openNewWindow). */
+export type OpenNewWindow = {
+  /** Sign in as this account first; leave out when the page is already signed in. */
+  email?: string;
+  /** Fix the page's clock here; it then stands still an hour later until the spec moves it. Leave out for the real clock. */
+  t0?: Date;
+  /** Name the field; leave out to let the spec fill it (or to leave it empty on purpose). */
+  field?: string;
+  /** Runs after signing in, before the clock and the form: e.g. wait for the worker and go offline. */
+  beforeForm?: () => Promise<void>;
+  /** The network is cut: the form comes from the worker's precache, so the navigation itself may report a failure. */
+  offline?: boolean;
+  /** Fake ms to let pass once the form is up, before the clock is paused (timers run once). */
+  warmUpMs?: number;
+};
+
 /**
- * Signs in, fixes the page's clock at `t0`, opens the new-window form and names the field; the
- * clock then stands still an hour later until the spec moves it. The spec chooses the rest.
+ * Signs in, fixes the page's clock at `t0`, opens the new-window form, waits until it can be
+ * used and names the field. The spec chooses the rest.
  */
-export async function openNewWindow(page: Page, { email, t0, field }: { email: string; t0: Date; field: string }): Promise<void> {
-  await signInAs(page, email);
-  await page.clock.install({ time: t0 });
-  await page.goto("/field/new");
+export async function openNewWindow(page: Page, { email, t0, field, beforeForm, offline, warmUpMs }: OpenNewWindow): Promise<void> {
+  if (email) await signInAs(page, email);
+  await beforeForm?.();
+  if (t0) await page.clock.install({ time: t0 });
+  const opened = page.goto("/field/new");
+  await (offline ? opened.catch(() => null) : opened);
+  await expect(page.getByRole("heading", { name: "New task window" })).toBeVisible();
+  if (t0 && warmUpMs) await page.clock.runFor(warmUpMs);
   await expect(page.getByRole("button", { name: "Set up the window" })).toBeEnabled();
-  await page.clock.pauseAt(new Date(t0.getTime() + 3_600_000));
-  await page.getByLabel("Field").fill(field);
+  if (t0) await page.clock.pauseAt(new Date(t0.getTime() + 3_600_000));
+  if (field !== undefined) await page.getByLabel("Field", { exact: true }).fill(field);
 }

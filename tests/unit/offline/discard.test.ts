@@ -20,7 +20,16 @@ describe("a window set up but never started (ours)", () => {
     expect(await discardUnstartedRun(db, run.id)).toBe("deleted");
     expect(await db.runs.get(run.id)).toBeUndefined();
     expect(await db.sessions.get(session.id)).toBeUndefined();
-    expect(await db.outbox.count()).toBe(0);
+    // what was queued for the run and session is gone; only the deletion waits, for the server and other phones
+    expect((await db.outbox.toArray()).map((e) => [e.id, e.kind])).toEqual([[run.id, "discard"]]);
+  });
+
+  it("a run someone else recorded (pulled, recordedBy another account) is removed here only", async () => {
+    const { db, run } = await setUp();
+    await db.meta.put({ key: "profile", value: { id: "u2", name: "Ben", email: "ben@example.com" } });
+    await db.runs.update(run.id, { recordedBy: { id: "u1", name: "Ada" } });
+    expect(await discardUnstartedRun(db, run.id)).toBe("deleted");
+    expect(await db.outbox.where("kind").equals("discard").count()).toBe(0);
   });
 
   it("a started window is kept: its events are the record", async () => {

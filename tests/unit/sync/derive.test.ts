@@ -231,6 +231,20 @@ describe("deriveRun: penalties are rulings, not timing records", () => {
     ]);
   });
 
+  it("a club mate's \"not signed\" and re-flight in practice are not applied but kept as notes, not dropped (ours; F3K.1.2 and F3K.9.6 are contest rulings)", () => {
+    const mate = device("mate-phone", KEEPER);
+    mate.at(0, { kind: "window-start" });
+    mate.flights(0, [60, 120], 1000);
+    mate.at(200_000, { kind: "unsigned", lane: 0 });
+    mate.at(201_000, { kind: "reflight", lane: 0, cause: "rain", placement: "later-group", reason: "Shower" });
+    const [lane] = deriveRun({ ...byMate, task: H, lanes: solo, events: mate.events, estimatesByDevice: estimatesOf(mate) });
+    expect(lane!.resultTenths).toBe(1800); // the round is not zeroed: only an official's or the pilot's own ruling counts
+    expect(lane!.derived.notes?.map((n) => [n.kind, n.recordedBy, n.reflight ?? null, n.reason])).toEqual([
+      ["unsigned", KEEPER, null, ""],
+      ["reflight", KEEPER, { cause: "rain", placement: "later-group" }, "Shower"],
+    ]);
+  });
+
   it("a club mate's penalty from a phone that timed nothing is a note too", () => {
     const self = device("pilot-phone", PILOT);
     const mate = device("mate-phone", KEEPER);

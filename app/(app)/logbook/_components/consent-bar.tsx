@@ -1,13 +1,15 @@
 "use client";
 
+import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { decideConsent } from "@/lib/offline/consent";
 import { getWindowcallDb } from "@/lib/offline/db";
 import type { ConsentChoice } from "@/lib/sync/consent";
 import { CONSENT_REASON_MAX } from "@/lib/sync/consent";
-import type { LaneConsent } from "@/lib/validations/consent";
+import { disputeFormSchema, type DisputeForm, type LaneConsent } from "@/lib/validations/consent";
 
 const STANDING: Record<string, string> = {
   pending: "Not in your record until you accept it.",
@@ -23,14 +25,15 @@ const STANDING: Record<string, string> = {
  */
 export function ConsentBar({ runId, consent, recorder, label }: { runId: string; consent: LaneConsent; recorder: string; label: string }) {
   const [disputing, setDisputing] = useState(false);
-  const [reason, setReason] = useState("");
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  // the dispute's reason: react-hook-form with the zod resolver, its message beside the field; an empty one sends nothing
+  const dispute = useForm<DisputeForm>({ resolver: zodResolver(disputeFormSchema), defaultValues: { reason: "" } });
 
-  async function decide(decision: ConsentChoice) {
+  async function decide(decision: ConsentChoice, reason = "") {
     setBusy(true);
     setError(null);
-    const failure = await decideConsent(getWindowcallDb(), (u, i) => fetch(u, i), { runId, lane: consent.lane, decision, reason: reason.trim() });
+    const failure = await decideConsent(getWindowcallDb(), (u, i) => fetch(u, i), { runId, lane: consent.lane, decision, reason });
     setBusy(false);
     if (failure) setError(failure);
     else setDisputing(false);
@@ -44,15 +47,14 @@ export function ConsentBar({ runId, consent, recorder, label }: { runId: string;
         {consent.status === "disputed" && consent.reason ? <span className="block text-sm">Your reason: “{consent.reason}”</span> : null}
       </p>
       {disputing ? (
-        <form
-          className="space-y-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (reason.trim()) void decide("disputed");
-            else setError("Say briefly what is wrong with the record.");
-          }}
-        >
-          <TextField id={`dispute-${runId}-${consent.lane}`} label="What is wrong with it? (the recorder sees this)" value={reason} maxLength={CONSENT_REASON_MAX} onChange={(e) => setReason(e.target.value)} />
+        <form className="space-y-2" noValidate onSubmit={(e) => void dispute.handleSubmit(({ reason }) => decide("disputed", reason))(e)}>
+          <TextField
+            id={`dispute-${runId}-${consent.lane}`}
+            label="What is wrong with it? (the recorder sees this)"
+            maxLength={CONSENT_REASON_MAX}
+            {...dispute.register("reason")}
+            error={dispute.formState.errors.reason?.message}
+          />
           <div className="flex flex-wrap gap-2">
             <Button type="submit" disabled={busy}>Send dispute</Button>
             <Button type="button" variant="secondary" onClick={() => setDisputing(false)}>Cancel</Button>

@@ -1,32 +1,27 @@
 "use client";
 
-import { useState, type FormEvent } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { deleteAccountSchema } from "@/lib/validations/account";
+import { deleteAccountSchema, type DeleteAccountInput } from "@/lib/validations/account";
 import { accountRequest, fieldErrors, signOutHere } from "./account-request";
 
-/** Deletes the account after its password is typed again; says plainly what is kept for others. */
+/**
+ * Deletes the account after its password is typed again (react-hook-form with the zod resolver:
+ * the message beside the field; an empty password sends nothing); says plainly what is kept for others.
+ */
 export function DeleteAccountForm() {
-  const [error, setError] = useState<string | undefined>();
-  const [busy, setBusy] = useState(false);
+  const { register, handleSubmit, setError, formState } = useForm<DeleteAccountInput>({ resolver: zodResolver(deleteAccountSchema), defaultValues: { password: "" } });
 
-  async function onSubmit(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const parsed = deleteAccountSchema.safeParse({ password: new FormData(e.currentTarget).get("password") });
-    if (!parsed.success) return setError(fieldErrors<"password">(parsed.error.issues).password);
-    setBusy(true);
-    setError(undefined);
-    const reply = await accountRequest("/api/account", "DELETE", parsed.data);
-    if (!reply.ok) {
-      setBusy(false);
-      return setError(fieldErrors<"password">(reply.issues ?? []).password ?? reply.message);
-    }
+  async function onValid(data: DeleteAccountInput) {
+    const reply = await accountRequest("/api/account", "DELETE", data);
+    if (!reply.ok) return setError("password", { message: fieldErrors<"password">(reply.issues ?? []).password ?? reply.message });
     await signOutHere("?deleted=1");
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-3" noValidate aria-labelledby="delete-h">
+    <form onSubmit={(e) => void handleSubmit(onValid)(e)} className="space-y-3" noValidate aria-labelledby="delete-h">
       <h3 id="delete-h" className="font-bold">
         Delete my account
       </h3>
@@ -34,9 +29,9 @@ export function DeleteAccountForm() {
         Your sessions, runs and coach grants are removed. Results in other pilots&apos; runs stay in their logbooks under the
         name &quot;Deleted pilot&quot;. This cannot be undone; download your data first if you want a copy.
       </p>
-      <TextField id="delete-password" name="password" type="password" label="Your password, to confirm" autoComplete="current-password" required error={error} />
-      <Button type="submit" variant="danger" disabled={busy}>
-        {busy ? "Deleting…" : "Delete my account"}
+      <TextField id="delete-password" type="password" label="Your password, to confirm" autoComplete="current-password" required {...register("password")} error={formState.errors.password?.message} />
+      <Button type="submit" variant="danger" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Deleting…" : "Delete my account"}
       </Button>
     </form>
   );

@@ -1,24 +1,30 @@
 "use client";
 
-import { useEffect, useState, type FormEvent } from "react";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useEffect, useState } from "react";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { changeEmailSchema } from "@/lib/validations/email";
+import { changeEmailSchema, type ChangeEmailInput } from "@/lib/validations/email";
 import { accountRequest, fieldErrors } from "./account-request";
 
 type State = { email: string; verified: boolean } | "loading" | "offline";
-type Errors = Partial<Record<"newEmail" | "currentPassword" | "form", string>>;
 
 /**
  * The account's address: whether it is verified (with "resend" when not — the account works either
  * way, a pilot at a field without signal is never held up by it), and a change of address, which
- * happens only when the link mailed to the new address is followed.
+ * happens only when the link mailed to the new address is followed (react-hook-form with the zod
+ * resolver: each message beside its field; bad input sends nothing).
  */
 export function EmailSettings() {
   const [state, setState] = useState<State>("loading");
   const [note, setNote] = useState<string | null>(null);
-  const [errors, setErrors] = useState<Errors>({});
-  const [busy, setBusy] = useState(false);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, formState } = useForm<ChangeEmailInput>({
+    resolver: zodResolver(changeEmailSchema),
+    defaultValues: { newEmail: "", currentPassword: "" },
+  });
+  const fe = formState.errors;
 
   useEffect(() => {
     fetch("/api/account/email", { cache: "no-store" })
@@ -32,23 +38,18 @@ export function EmailSettings() {
     setNote(reply.ok ? "Sent. Check your e-mail for the link." : (reply.message ?? "Could not send."));
   }
 
-  async function onChange(e: FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    const form = e.currentTarget;
-    const data = new FormData(form);
-    const parsed = changeEmailSchema.safeParse({ newEmail: data.get("newEmail"), currentPassword: data.get("currentPassword") });
-    if (!parsed.success) return setErrors(fieldErrors(parsed.error.issues));
-    setBusy(true);
-    setErrors({});
-    const reply = await accountRequest("/api/account/email", "POST", parsed.data);
-    setBusy(false);
+  async function onValid(data: ChangeEmailInput) {
+    setFormError(null);
+    const reply = await accountRequest("/api/account/email", "POST", data);
     if (!reply.ok) {
-      if (reply.code === "wrong_password") return setErrors({ currentPassword: reply.message });
-      const byField = fieldErrors<keyof Errors>(reply.issues ?? []);
-      return setErrors(Object.keys(byField).length ? byField : { form: reply.message });
+      if (reply.code === "wrong_password") return setError("currentPassword", { message: reply.message });
+      const byField = fieldErrors<keyof ChangeEmailInput>(reply.issues ?? []);
+      for (const [name, message] of Object.entries(byField)) setError(name as keyof ChangeEmailInput, { message });
+      if (Object.keys(byField).length === 0) setFormError(reply.message ?? "Something went wrong. Try again.");
+      return;
     }
-    form.reset();
-    setNote(`We have sent a link to ${parsed.data.newEmail}. Your address changes when you follow it.`);
+    reset();
+    setNote(`We have sent a link to ${data.newEmail}. Your address changes when you follow it.`);
   }
 
   if (state === "loading") return <p className="text-muted">Loading your e-mail address…</p>;
@@ -72,14 +73,14 @@ export function EmailSettings() {
       <p role="status" aria-live="polite" className="font-semibold empty:hidden">
         {note}
       </p>
-      <form onSubmit={onChange} className="space-y-3" noValidate aria-label="Change e-mail address">
-        <TextField id="new-email" name="newEmail" type="email" label="New e-mail address" autoComplete="email" required error={errors.newEmail} />
-        <TextField id="email-current-password" name="currentPassword" type="password" label="Your password, to change the address" autoComplete="current-password" required error={errors.currentPassword} />
+      <form onSubmit={(e) => void handleSubmit(onValid)(e)} className="space-y-3" noValidate aria-label="Change e-mail address">
+        <TextField id="new-email" type="email" label="New e-mail address" autoComplete="email" required {...register("newEmail")} error={fe.newEmail?.message} />
+        <TextField id="email-current-password" type="password" label="Your password, to change the address" autoComplete="current-password" required {...register("currentPassword")} error={fe.currentPassword?.message} />
         <p role="alert" className="font-semibold text-danger empty:hidden">
-          {errors.form}
+          {formError}
         </p>
-        <Button type="submit" variant="secondary" disabled={busy}>
-          {busy ? "Sending…" : "Change e-mail address"}
+        <Button type="submit" variant="secondary" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? "Sending…" : "Change e-mail address"}
         </Button>
       </form>
     </div>

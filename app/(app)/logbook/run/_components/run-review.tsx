@@ -1,7 +1,7 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { Breakdown, ClockNote, CorrectionsList, FlightsTable, Rulings, TimelineStrip } from "@/components/run";
+import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulings, TimelineStrip } from "@/components/run";
 import { DiscardButton } from "@/components/field/discard-button";
 import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
@@ -39,6 +39,8 @@ export function RunReview() {
   const consent = consentFor(run, me);
   const recorder = run.recordedBy?.name ?? "someone else";
   const pilotName = (lane: number) => run.lanes.find((l) => l.lane === lane)?.pilotName ?? `Lane ${lane + 1}`;
+  const who = (userId: string) =>
+    names[userId] ?? (run.recordedBy?.id === userId ? run.recordedBy.name : run.lanes.find((l) => l.pilotUserId === userId)?.pilotName ?? "Someone else");
   return (
     <div className="space-y-6">
       <header className="space-y-1">
@@ -75,6 +77,7 @@ export function RunReview() {
             <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} launchHeights={heightsForLane(altimeter.logs, l.lane)} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
             <Rulings lane={lane} label={l.pilotName} />
+            <RulingNotes notes={scored.lanes.find((d) => d.lane === l.lane)?.derived.notes} lane={l.lane} label={l.pilotName} who={who} />
             <h3 className="text-lg font-bold">Where the points went</h3>
             <Breakdown definition={task} lane={lane} />
             <LaunchHeights logs={altimeter.logs} lane={l.lane} label={l.pilotName} />
@@ -89,7 +92,7 @@ export function RunReview() {
       })}
       <section aria-labelledby="versions-h" className="space-y-2">
         <h2 id="versions-h" className="text-lg font-bold">Server result and each phone’s version</h2>
-        <Versions run={run} deviceId={data.deviceId} recorder={run.recordedBy ?? null} />
+        <Versions run={run} deviceId={data.deviceId} />
       </section>
       <section aria-labelledby="corrections-h" className="space-y-2">
         <h2 id="corrections-h" className="text-lg font-bold">Corrections</h2>

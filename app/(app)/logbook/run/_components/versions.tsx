@@ -3,11 +3,10 @@ import type { StoredRun } from "@/lib/offline/db";
 
 /**
  * The server's result per lane and every phone's version of it (SYNC.md §3: all versions stay
- * in the log), once a sync has pulled them, with the rulings that do not count (a penalty from
- * someone who is neither a contest official nor the pilot). Until a sync this says so plainly.
+ * in the log), once a sync has pulled them. The rulings that do not count are shown with each
+ * lane (RulingNotes, from the same result function). Until a sync this says so plainly.
  */
-export function Versions({ run, deviceId, recorder }: { run: StoredRun; deviceId: string | null; recorder: { id: string; name: string } | null }) {
-  const who = (userId: string) => (recorder?.id === userId ? recorder.name : "another recorder");
+export function Versions({ run, deviceId }: { run: StoredRun; deviceId: string | null }) {
   const pilot = (lane: number) => run.lanes.find((l) => l.lane === lane)?.pilotName ?? `Lane ${lane + 1}`;
   if (!run.results || run.results.length === 0) {
     return (
@@ -24,12 +23,6 @@ export function Versions({ run, deviceId, recorder }: { run: StoredRun; deviceId
             {pilot(r.lane)}: <span className="figures">{r.resultTenths === null ? "no result yet" : `${secondsText(r.resultTenths)} s`}</span> on the server
             {r.penaltyPoints > 0 ? `, −${r.penaltyPoints} points` : ""}
           </p>
-          {(r.notes ?? []).map((n, i) => (
-            <p key={i} className="text-sm" data-testid={`ruling-note-${r.lane}`}>
-              Not applied: {who(n.recordedBy)}’s {n.kind === "penalty" ? `penalty of ${n.points} points` : `invalid mark on flight ${(n.flightIndex ?? 0) + 1}`} ({n.reason}).
-              Only a contest official’s ruling, or the pilot’s own, counts.
-            </p>
-          ))}
           {r.needsReview ? (
             <p className="font-semibold text-warn">
               <span aria-hidden="true">⚠ </span>For the officials to decide: {r.reviewReason ?? "the clocks cannot settle it"}
