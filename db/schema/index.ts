@@ -10,3 +10,4 @@ export * from "./limits";
 export * from "./mail";
 export * from "./hangar";
 export * from "./altimeter";
+export * from "./admin";
