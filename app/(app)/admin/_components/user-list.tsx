@@ -13,6 +13,13 @@ const pageHref = (q: string, page: number) => `/admin?${new URLSearchParams({ ..
 export async function UserList({ search, meId }: { search: UserSearch; meId: string }) {
   const { users, total, page, pageSize } = await searchUsers(db, search);
   const pages = Math.max(1, Math.ceil(total / pageSize));
+  if (!users.length && total > 0) {
+    return (
+      <Empty>
+        Page {page} is past the last page. <Link href={pageHref(search.q, 1)} className="font-bold underline">First page</Link>
+      </Empty>
+    );
+  }
   if (!users.length) return <Empty>{search.q ? `No account matches “${search.q}”.` : "No accounts."}</Empty>;
   return (
     <div className="space-y-3">
