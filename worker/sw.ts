@@ -24,6 +24,8 @@ const serwist = new Serwist({
   navigationPreload: false,
   runtimeCaching: [
     { matcher: ({ url }) => url.pathname.startsWith("/api/"), handler: new NetworkOnly() },
+    // Administration shows other people's accounts: never kept on a device (offline it is the offline page).
+    { matcher: ({ url }) => url.pathname === "/admin" || url.pathname.startsWith("/admin/"), handler: new NetworkOnly() },
     {
       matcher: ({ request }) => request.mode === "navigate",
       handler: new NetworkFirst({ cacheName: PAGES_CACHE, networkTimeoutSeconds: 4 }),

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { Suspense } from "react";
 import { ButtonLink } from "@/components/ui/button";
@@ -19,6 +20,11 @@ export default async function HomePage() {
         <ButtonLink href="/field/new" className="w-full text-lg">
           Start a task window
         </ButtonLink>
+        {user.role === "admin" ? (
+          <Link href="/admin" className="block font-bold underline">
+            Site administration
+          </Link>
+        ) : null}
       </section>
       <section aria-labelledby="recent" className="space-y-3">
         <h2 id="recent" className="text-lg font-bold">

@@ -11,3 +11,4 @@ export * from "./mail";
 export * from "./hangar";
 export * from "./altimeter";
 export * from "./run-deletions";
+export * from "./admin";

@@ -4,6 +4,7 @@ import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
+import { seedAdminDemo } from "./admin-demo";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
@@ -76,6 +77,9 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     };
     await seedRecordedFor(tx, {
       clubId: club!.id, field: DEMO_CLUB.homeField, startedAt: SEASON_START + 37 * WEEK + 7 * 3600_000, keeper: person("tobi"), pilot: person("ada"),
+    });
+    await seedAdminDemo(tx, {
+      adminId: ids.get("admin")!, pilotId: ids.get("lena")!, pilotEmail: "lena@example.com", passwordHash, at: SEASON_START + 38 * WEEK,
     });
     // results are derived from the events, as a push would (SYNC.md §1)
     await deriveAllRuns(tx);

@@ -15,16 +15,16 @@ afterAll(async () => {
 describe("GET /api/admin/users", () => {
   it("is 401 signed out, 403 for a pilot and 200 for an admin", async () => {
     actAs(null);
-    expect((await listUsersRoute()).status).toBe(401);
+    const list = (q = "") => listUsersRoute(new Request(`http://test/api/admin/users?q=${q}`));
+    expect((await list()).status).toBe(401);
     actAs(await demoUser("ada@example.com"));
-    const forbidden = await listUsersRoute();
+    const forbidden = await list();
     expect(forbidden.status).toBe(403);
     expect((await forbidden.json()).error.code).toBe("forbidden");
     actAs(await demoUser("admin@example.com"));
-    const ok = await listUsersRoute();
+    const ok = await list("mara@");
     expect(ok.status).toBe(200);
     const body = (await ok.json()) as { users: { email: string }[] };
-    expect(body.users.length).toBeGreaterThanOrEqual(6);
     expect(body.users.map((u) => u.email)).toContain("mara@example.com");
   });
 });

@@ -2,11 +2,11 @@ import "./support/session";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { fieldSessions, runs } from "@/db/schema";
+import { fieldSessions, mailQueue, runs } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
-import { db, getPool } from "./support/db";
+import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
-import { ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
+import { accountRow, ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
 import { insertLog, insertModel, insertOwnRun, LOG_MAPPING } from "./support/hangar-records";
 
@@ -97,13 +97,44 @@ const hangarRows: Record<string, Row> = {
   "GET /api/logger-mappings": signedIn(),
 };
 
+const listsUsers = async (_ctx: Ctx, res: Response) => {
+  const data = (await res.json()) as { users: { email: string }[]; total: number };
+  expect(data.users.length).toBeGreaterThan(0);
+  expect(data.users.every((u) => u.email.includes("example"))).toBe(true);
+};
+
+async function freshTarget(): Promise<Record<string, string>> {
+  return { userId: (await freshUser("matrix-target")).id };
+}
+
+const disablesTarget = async (_ctx: Ctx, res: Response) => {
+  const data = (await res.json()) as { user: { id: string; disabledAt: string | null }; changed: boolean };
+  expect(data.changed).toBe(true);
+  expect((await accountRow(data.user.id))?.disabledAt).not.toBeNull();
+};
+
+/** A message the drain gave up on (no next try), addressed to nobody real. */
+async function failedMail(): Promise<Record<string, string>> {
+  const [row] = await db
+    .insert(mailQueue)
+    .values({ to: `matrix-${randomUUID()}@example.com`, subject: "Matrix", text: "t", html: "<p>t</p>", kind: "test", attempts: 14, nextAttemptAt: null, lastError: "refused" })
+    .returning({ id: mailQueue.id });
+  return { mailId: row!.id };
+}
+
 const ROWS: Record<string, Row> = {
   ...hangarRows,
   "GET /api/health": publicByDesign("a liveness probe for the process manager: says only whether the app reaches its database"),
   "POST /api/account/sign-up": publicByDesign("creating an account needs no account; the answer is the same for a taken address"),
   "GET /api/auth/[...nextauth]": publicByDesign("next-auth's own endpoints (csrf, providers, session — {} when signed out)"),
   "POST /api/auth/[...nextauth]": publicByDesign("next-auth's own sign-in and sign-out, guarded by its CSRF token"),
-  "GET /api/admin/users": adminOnly(),
+  "GET /api/admin/users": adminOnly({ query: "?q=example&page=1", check: listsUsers }),
+  // a fresh account per row: only the admin (last in ACTORS) disables it; everyone before changes nothing
+  "PATCH /api/admin/users/[userId]": adminOnly({ params: freshTarget, body: () => ({ action: "disable" }), check: disablesTarget }),
+  "POST /api/admin/mail/[mailId]/retry": {
+    ...adminOnly({ params: failedMail, body: () => ({}) }),
+    expect: { ...everyone(NOT_ALLOWED), signedOut: 401, admin: 202 },
+  },
   "GET /api/club-mates": signedIn(),
   "POST /api/time": signedIn({ body: () => ({ t1: 1 }) }),
   "GET /api/sync/pull": signedIn({ query: "?cursor=0", check: seesOwnersRuns({ owner: true, coachWithGrant: true }) }),

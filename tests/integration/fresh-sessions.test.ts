@@ -38,9 +38,9 @@ describe("fresh sessions: the account is read on every request", () => {
   it("a demoted admin gets 403 from /api/admin/users on the next request", async () => {
     const admin = await freshUser("demoted", { role: "admin" });
     actAs(admin);
-    expect((await listUsersRoute()).status).toBe(200);
+    expect((await listUsersRoute(new Request("http://test/api/admin/users"))).status).toBe(200);
     await db.update(users).set({ role: "member" }).where(eq(users.id, admin.id));
-    expect((await listUsersRoute()).status).toBe(403);
+    expect((await listUsersRoute(new Request("http://test/api/admin/users"))).status).toBe(403);
   });
 
   it("a token from an older session generation is 401; one of the new generation works", async () => {
@@ -65,7 +65,7 @@ describe("fresh sessions: the account is read on every request", () => {
 
   it("a token naming something that is not an account id is signed out, not a 500", async () => {
     actAs({ id: "not-a-uuid", email: "x@example.com", name: "X", role: "admin" });
-    expect((await listUsersRoute()).status).toBe(401);
+    expect((await listUsersRoute(new Request("http://test/api/admin/users"))).status).toBe(401);
   });
 });
 

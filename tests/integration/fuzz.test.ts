@@ -38,7 +38,9 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/account/reset-password": { POST: "json" },
   "/api/account/verification": { POST: "json" },
   "/api/account/verify-email": { POST: "json" },
-  "/api/admin/users": { GET: "none" },
+  "/api/admin/mail/[mailId]/retry": { POST: "json" },
+  "/api/admin/users": { GET: "query" },
+  "/api/admin/users/[userId]": { PATCH: "json" },
   "/api/auth/[...nextauth]": {
     GET: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
     POST: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
@@ -125,6 +127,9 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/account/forgot-password") return { email: `fuzz-${uuidv7()}@example.com` };
   if (path === "/api/account/email") return { newEmail: `fuzz-${uuidv7()}@example.com`, currentPassword: "thermal-hunter-42" };
   if (path === "/api/account/verification") return {};
+  // admin routes run as an admin: setting a member's role to member changes nothing; retrying a message nobody queued is a 404
+  if (path === "/api/admin/users/[userId]") return { action: "set-role", role: "member" };
+  if (path === "/api/admin/mail/[mailId]/retry") return {};
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -194,18 +199,27 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
 
 const queryArb = fc.array(
   fc.tuple(
-    fc.constantFrom("cursor", "account", "limit", "x", "cursor"),
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page"),
     fc.oneof(fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()), fc.string({ maxLength: 30 })),
   ),
   { maxLength: 4 },
 );
 
 describe("fuzz: every route under app/api", () => {
-  let user: { id: string; email: string; name: string; role: "member" };
-  beforeAll(async () => {
+  type FuzzUser = { id: string; email: string; name: string; role: "member" | "admin" };
+  let user: FuzzUser;
+  /** Routes under /api/admin are driven by an admin (a member stops at 403 before reading the input), on a target of their own. */
+  let admin: FuzzUser;
+  let target: string;
+  const account = async (role: "member" | "admin", name: string): Promise<FuzzUser> => {
     const email = `fuzz-${uuidv7()}@example.com`;
-    const [row] = await db.insert(users).values({ email, name: "Fuzz Pilot" }).returning();
-    user = { id: row!.id, email, name: row!.name, role: "member" };
+    const [row] = await db.insert(users).values({ email, name, role }).returning();
+    return { id: row!.id, email, name, role };
+  };
+  beforeAll(async () => {
+    user = await account("member", "Fuzz Pilot");
+    admin = await account("admin", "Fuzz Admin");
+    target = (await account("member", "Fuzz Target")).id;
   });
 
   it("knows how to drive every route handler and method", async () => {
@@ -230,8 +244,9 @@ describe("fuzz: every route under app/api", () => {
         await fc.assert(
           fc.asyncProperty(arb, async ([shape, contentType, signedIn]) => {
             // the session follows the account's generation: "sign out everywhere" must not sign the fuzz out of later routes
-            const [row] = signedIn ? await db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, user.id)) : [];
-            actAs(signedIn ? { ...user, sessionVersion: row?.v ?? 0 } : null);
+            const caller = path.startsWith("/api/admin/") ? admin : user;
+            const [row] = signedIn ? await db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, caller.id)) : [];
+            actAs(signedIn ? { ...caller, sessionVersion: row?.v ?? 0 } : null);
             let request: Request;
             let bytes = 0;
             if (input === "json") {
@@ -243,8 +258,9 @@ describe("fuzz: every route under app/api", () => {
               request = new Request(`http://test${path}${qs ? `?${qs}` : ""}`, { method });
             }
             const before = await countAll();
-            // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log: a valid body is a 404)
-            const params = path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7() } : {};
+            // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log, a queued message: a valid body is a 404);
+            // the admin's change of an account acts on its own target
+            const params = path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
