@@ -19,11 +19,14 @@ export type InviteInput = z.infer<typeof inviteSchema>;
 
 export const changeRoleSchema = z.object({ role: clubRoleSchema });
 
+/** A note of a field, or empty (stored as null). */
 const note = (label: string) =>
   text(600)
     .trim()
     .max(600, `${label}: use at most 600 characters.`)
-    .transform((s) => (s === "" ? null : s));
+    .nullable()
+    .optional()
+    .transform((s) => (s ? s : null));
 
 /** A number typed in a form, or empty. */
 const coordinate = (label: string, limit: number) =>

@@ -5,7 +5,7 @@ import { join, relative, sep } from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { users } from "@/db/schema";
+import { clubs, memberships, users } from "@/db/schema";
 import { BODY_LIMIT } from "@/lib/api";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
@@ -44,6 +44,13 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
     POST: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
   },
   "/api/club-mates": { GET: "none" },
+  "/api/club-fields": { GET: "none" },
+  "/api/clubs": { POST: "json" },
+  "/api/clubs/[slug]/invitations": { POST: "json" },
+  "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
+  "/api/clubs/[slug]/fields": { POST: "json" },
+  "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
+  "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
   "/api/sync/pull": { GET: "query" },
@@ -111,6 +118,11 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/account/forgot-password") return { email: `fuzz-${uuidv7()}@example.com` };
   if (path === "/api/account/email") return { newEmail: `fuzz-${uuidv7()}@example.com`, currentPassword: "thermal-hunter-42" };
   if (path === "/api/account/verification") return {};
+  if (path === "/api/clubs") return { name: "Fuzz Club" };
+  if (path.endsWith("/invitations")) return { email: `fuzz-${uuidv7()}@example.com`, role: "coach" };
+  if (path.endsWith("/members/[userId]")) return { role: "member" };
+  if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
+  if (path === "/api/invitations/accept") return { token };
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -188,10 +200,15 @@ const queryArb = fc.array(
 
 describe("fuzz: every route under app/api", () => {
   let user: { id: string; email: string; name: string; role: "member" };
+  let clubSlug = "";
   beforeAll(async () => {
     const email = `fuzz-${uuidv7()}@example.com`;
     const [row] = await db.insert(users).values({ email, name: "Fuzz Pilot" }).returning();
     user = { id: row!.id, email, name: row!.name, role: "member" };
+    // the fuzz user is the only officer of a club of its own, so club routes read their bodies
+    clubSlug = `fuzz-${uuidv7()}`;
+    const [club] = await db.insert(clubs).values({ name: "Fuzz Club", slug: clubSlug }).returning();
+    await db.insert(memberships).values({ clubId: club!.id, userId: user.id, role: "officer" });
   });
 
   it("knows how to drive every route handler and method", async () => {
@@ -230,7 +247,8 @@ describe("fuzz: every route under app/api", () => {
             }
             const before = await countAll();
             // a dynamic route gets the params of a run nobody recorded for the fuzz user (a valid body is a 404)
-            const params = path.includes("[runId]") ? { runId: uuidv7(), lane: "0" } : {};
+            // club routes get the fuzz user's own club, itself as the member and a field nobody has
+            const params = path.includes("[runId]") ? { runId: uuidv7(), lane: "0" } : path.includes("[slug]") ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
