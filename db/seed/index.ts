@@ -4,6 +4,7 @@ import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
+import { seedClubs } from "./clubs";
 import { seedRecordedFor } from "./recorded-for";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
 import { v7 as uuidv7 } from "uuid";
@@ -14,7 +15,10 @@ const WEEK = 7 * 24 * 3600 * 1000;
 /** Seeds the invented demo club with a season of practice; does nothing when it is already there. */
 export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   const [existing] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
-  if (existing) return "present";
+  if (existing) {
+    await seedClubs(db, () => hashPassword(DEMO_PASSWORD));
+    return "present";
+  }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await db.transaction(async (tx) => {
     const [club] = await tx.insert(clubs).values(DEMO_CLUB).returning();
@@ -76,5 +80,6 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     // results are derived from the events, as a push would (SYNC.md §1)
     await deriveAllRuns(tx);
   });
+  await seedClubs(db, async () => passwordHash);
   return "seeded";
 }
