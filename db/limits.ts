@@ -39,6 +39,9 @@ function build() {
     resetAccount: make("reset-account", 5, HOUR),
     /** Account e-mails a signed-in user asks for (verification again, e-mail change): 5 an hour. */
     accountMail: make("account-mail", 5, HOUR),
+    /** Club invitations an officer sends: 50 an hour (a whole club at once), and 3 an hour to one address. */
+    invitations: make("invitations", 50, HOUR),
+    invitationsTo: make("invitations-to", 3, HOUR),
   };
 }
 

@@ -16,6 +16,8 @@ import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput } from "./custom-task-fie
 import { PlaceFields } from "./place-fields";
 import { RuleSettingsFields } from "./rule-settings-fields";
 import { PlanTaskChooser, TaskChooser, type PlanPick, type TaskKey } from "./task-chooser";
+import { FieldCautions } from "./field-cautions";
+import { matchClubField, useClubFields } from "./use-club-fields";
 import { useClubMates } from "./use-club-mates";
 import { useFieldProfile } from "./use-field-profile";
 import { useIsClient } from "./use-is-client";
@@ -33,6 +35,7 @@ export function NewWindowForm() {
 function NewWindowFormInner() {
   const { profile, loading } = useFieldProfile();
   const mates = useClubMates();
+  const clubFields = useClubFields();
   const notify = useNotifyWrite();
   // The typed fields go through react-hook-form and the zod schema (messages beside each field);
   // who flies, the position and a plan's task are richer choices kept in state.
@@ -50,6 +53,7 @@ function NewWindowFormInner() {
   const [busy, setBusy] = useState(false);
   const taskKey = useWatch({ control, name: "taskKey" }) as TaskKey;
   const fieldName = useWatch({ control, name: "fieldName" });
+  const clubField = matchClubField(clubFields, fieldName);
 
   const submit = async (values: FormValues) => {
     const { windMs, gustMs, temperatureC, notes, custom, prepMin, noFly } = values;
@@ -104,7 +108,9 @@ function NewWindowFormInner() {
         position={position}
         onPosition={setPosition}
         error={fe.fieldName?.message ?? errors.fieldName}
+        clubFieldNames={clubFields.map((f) => f.name)}
       />
+      {clubField ? <FieldCautions field={clubField} /> : null}
       <fieldset className="space-y-3">
         <legend className="text-lg font-bold">Conditions (optional)</legend>
         <div className="grid grid-cols-3 gap-2">

@@ -10,15 +10,18 @@ type Props = {
   position: { lat: number; lon: number } | null;
   onPosition: (p: { lat: number; lon: number } | null) => void;
   error?: string;
+  /** Fields the pilot's clubs keep (offered first; naming one shows its cautions). */
+  clubFieldNames?: readonly string[];
 };
 
 /**
  * Where: the field's name (the last one filled in, earlier ones offered as you type) and, if
  * wanted, the phone's position (GPS works with no signal).
  */
-export function PlaceFields({ fieldName, onFieldName, position, onPosition, error }: Props) {
+export function PlaceFields({ fieldName, onFieldName, position, onPosition, error, clubFieldNames = [] }: Props) {
   const [status, setStatus] = useState<string | null>(null);
-  const earlier = useEarlierFields();
+  const visited = useEarlierFields();
+  const earlier = [...new Map([...clubFieldNames, ...visited].map((n) => [n.toLocaleLowerCase(), n])).values()];
   const locate = () => {
     if (!("geolocation" in navigator)) return setStatus("This browser cannot give a position.");
     setStatus("Finding the position…");

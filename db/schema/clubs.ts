@@ -1,4 +1,4 @@
-import { index, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { doublePrecision, index, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { clubRoleEnum } from "./enums";
 import { users } from "./users";
 
@@ -33,8 +33,32 @@ export const invitations = pgTable(
     invitedBy: uuid("invited_by").notNull().references(() => users.id),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    /** Who used the link (the invited address may differ from the account's: the link is the credential). */
+    acceptedBy: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("invitations_club_id_idx").on(t.clubId)],
+);
+
+/**
+ * A field the club flies at, with what anyone flying there should know: shown as cautions beside the
+ * usual safety notes (the field's own rules and the law come first), on the club's home and on the
+ * Field screen's set-up form when the pilot names this field.
+ */
+export const clubFields = pgTable(
+  "club_fields",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    clubId: uuid("club_id").notNull().references(() => clubs.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    latitude: doublePrecision("latitude"),
+    longitude: doublePrecision("longitude"),
+    launchDirection: text("launch_direction"),
+    safetyAreas: text("safety_areas"),
+    localRules: text("local_rules"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique("club_fields_club_name_uq").on(t.clubId, t.name)],
 );
 
 /** A pilot lets a coach read their season; revoking keeps the row for the record. */

@@ -5,6 +5,7 @@ import { clubs, coachGrants, devices, events, fieldSessions, memberships, runLan
 import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
 import { seedAdminDemo } from "./admin-demo";
+import { seedClubs } from "./clubs";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
@@ -18,6 +19,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   const [existing] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (existing) {
     await seedHangar(db); // a database seeded before the hangar existed gets its demo too
+    await seedClubs(db, () => hashPassword(DEMO_PASSWORD));
     return "present";
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -85,5 +87,6 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     await deriveAllRuns(tx);
   });
   await seedHangar(db);
+  await seedClubs(db, async () => passwordHash);
   return "seeded";
 }

@@ -50,6 +50,16 @@ export async function accountMailLimit(userId: string): Promise<Response | null>
   return tooMany("Too many e-mails asked for this account. Try again later.", res.msBeforeNext);
 }
 
+/** Club invitations: 50 an hour per inviting account, and 3 an hour to one address (nobody floods an inbox). */
+export async function invitationLimit(userId: string, email: string): Promise<Response | null> {
+  const l = getLimiters();
+  const a = await count(l.invitations, userId);
+  if (a.consumedPoints > l.invitations.points) return tooMany("Too many invitations from this account. Try again later.", a.msBeforeNext);
+  const b = await count(l.invitationsTo, email);
+  if (b.consumedPoints > l.invitationsTo.points) return tooMany("Too many invitations to this address. Try again later.", b.msBeforeNext);
+  return null;
+}
+
 function tooMany(message: string, retryAfterMs: number): Response {
   const body: ErrorBody = { error: { code: "rate_limited", message } };
   return Response.json(body, { status: 429, headers: { "retry-after": String(Math.max(1, Math.ceil(retryAfterMs / 1000))) } });

@@ -2,12 +2,14 @@ import "server-only";
 import { getServerSession } from "next-auth";
 import { db } from "@/db";
 import { getSessionAccount, listClubRoles } from "@/db/queries/users";
-import { ForbiddenError, UnauthorizedError } from "@/lib/errors";
+import { getClubAccess, getClubById, type ClubSummary } from "@/db/queries/clubs";
+import { hasClubRole, type ClubRole } from "@/lib/clubs/roles";
+import { ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
 import { isAccountId, sessionVerdict } from "./account-state";
 import { authOptions } from "./options";
 
 export type SessionUser = { id: string; email: string; name: string; role: "member" | "admin" };
-export type ClubRole = "member" | "coach" | "officer";
+export type { ClubRole };
 
 /**
  * The signed-in user, or null. The account, its name and its role are read from the database on
@@ -38,17 +40,31 @@ export async function requireRole(role: "admin"): Promise<SessionUser> {
   return user;
 }
 
-const rank: Record<ClubRole, number> = { member: 0, coach: 1, officer: 2 };
+export type ClubAccess = SessionUser & { clubId: string; club: ClubSummary; clubRole: ClubRole | null };
 
 /**
- * Requires a role in a club, read fresh from the database. Officers pass coach and member checks;
- * site admins pass every club check.
+ * Requires a role in a club (named by id, or by its address name as in /clubs/[slug]), read fresh
+ * from the database. 401 signed out; 404 when the club does not exist or the user is not a member
+ * (a stranger must not learn that it exists); 403 for a member below the role. Officers pass coach
+ * and member checks; site admins pass every check of a club that exists.
  */
-export async function requireClubRole(clubId: string, role: ClubRole): Promise<SessionUser & { clubRole: ClubRole | null }> {
+export async function requireClubRole(club: string | { slug: string | null }, role: ClubRole): Promise<ClubAccess> {
   const user = await requireUser();
-  const roles = await listClubRoles(db, user.id);
-  const mine = roles.find((r) => r.clubId === clubId)?.role ?? null;
-  if (user.role === "admin") return { ...user, clubRole: mine };
-  if (!mine || rank[mine] < rank[role]) throw new ForbiddenError();
-  return { ...user, clubRole: mine };
+  const found =
+    typeof club === "string" ? await roleById(user.id, club) : club.slug === null ? undefined : await getClubAccess(db, { slug: club.slug, userId: user.id });
+  if (!found) throw new NotFoundError();
+  const mine = found.role ?? null;
+  const access = { ...user, clubId: found.club.id, club: found.club, clubRole: mine };
+  if (user.role === "admin") return access;
+  if (!mine) throw new NotFoundError();
+  if (!hasClubRole(mine, role)) throw new ForbiddenError("Only the club's " + (role === "officer" ? "officers" : "coaches and officers") + " may do this.");
+  return access;
+}
+
+async function roleById(userId: string, clubId: string) {
+  if (!isAccountId(clubId)) return undefined;
+  const club = await getClubById(db, clubId);
+  if (!club) return undefined;
+  const roles = await listClubRoles(db, userId);
+  return { club, role: roles.find((r) => r.clubId === clubId)?.role ?? null };
 }

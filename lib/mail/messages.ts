@@ -50,3 +50,16 @@ export function emailChangedMail(input: { newEmail: string; resetLink: string })
     { link: input.resetLink, label: "Reset my password" },
   ]);
 }
+
+/**
+ * An officer's invitation to join a club. Sent once, because a person asked for it, to the one
+ * address they typed: a transactional message, so no unsubscribe line (like the account links).
+ */
+export function clubInvitationMail(input: { clubName: string; inviterName: string; roleLabel: string; link: string; days: number }): Mail {
+  return compose("club-invitation", `Join ${input.clubName}`, [
+    `${input.inviterName} invites you to join ${input.clubName} on Windowcall as ${input.roleLabel.toLowerCase()}.`,
+    "Open the link, sign in (or create an account, with any address) and press Join:",
+    { link: input.link, label: `Join ${input.clubName}` },
+    `The link works once, for ${input.days} days. If you do not know this club, ignore this message: nothing happens until the link is used.`,
+  ]);
+}

@@ -66,6 +66,11 @@ export type MetaValues = {
   profile: { id: string; name: string; email: string };
   /** People who share a club with that user, cached while online (lanes can name them offline). */
   clubMates: { id: string; name: string }[];
+  /** The fields of that user's clubs with their cautions, cached while online (the set-up form shows them offline). */
+  clubFields: {
+    id: string; name: string; clubName: string; latitude: number | null; longitude: number | null;
+    launchDirection: string | null; safetyAreas: string | null; localRules: string | null;
+  }[];
 };
 export type MetaKey = keyof MetaValues;
 export type MetaRow = { key: MetaKey; value: MetaValues[MetaKey] };

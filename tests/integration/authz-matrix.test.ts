@@ -7,6 +7,7 @@ import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
 import { accountRow, ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
+import * as club from "./support/authz-clubs";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
 import { insertLog, insertModel, insertOwnRun, LOG_MAPPING } from "./support/hangar-records";
 
@@ -160,6 +161,29 @@ const ROWS: Record<string, Row> = {
     ...ownAccount({ body: () => ({ newEmail: `matrix-new-${randomUUID()}@example.com`, currentPassword: MATRIX_PASSWORD }) }),
     expect: { ...everyone(202), signedOut: 401 },
   },
+  // Clubs (issue #14): a fresh cast, whose owner is the officer of a club made for the row (support/authz-clubs.ts)
+  "POST /api/clubs": { ...signedIn({ body: () => ({ name: "Matrix Created Club" }) }), cast: "fresh", expect: { ...everyone(201), signedOut: 401 } },
+  "POST /api/clubs/[slug]/invitations": {
+    params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }),
+    body: () => ({ email: `matrix-invitee-${randomUUID()}@example.com`, role: "coach" }),
+    cast: "fresh",
+    expect: club.OFFICERS_ONLY(202),
+  },
+  "PATCH /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, body: () => ({ role: "coach" }), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "DELETE /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, check: club.rejoins, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "POST /api/clubs/[slug]/fields": {
+    params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }),
+    body: () => ({ name: `Matrix Field ${randomUUID().slice(0, 8)}`, localRules: "Land west of the hedge" }),
+    cast: "fresh",
+    expect: club.OFFICERS_ONLY(201),
+  },
+  "DELETE /api/clubs/[slug]/fields/[fieldId]": { params: club.fieldOfOwnersClub, check: club.fieldReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  // the one-time token is the credential: every signed-in account with its own link joins (and each link joins once)
+  "POST /api/invitations/accept": {
+    ...signedIn({ params: club.invitationsForEveryone, body: (ctx) => club.tokenFor(ctx?.actor), check: (ctx) => club.joinedOnce(ctx.actor, ctx.user.id) }),
+    cast: "fresh",
+  },
+  "GET /api/club-fields": signedIn({ check: (ctx, res) => club.onlyOwnClubsFields(ctx.user.id, res) }),
 };
 
 /** Files declaring server actions, each with the test that checks its authorisation (none exist yet). */

@@ -22,6 +22,7 @@ async function club() {
   };
   return {
     clubId: home!.id,
+    slug: home!.slug,
     member: await person("member", home!.id),
     coach: await person("coach", home!.id),
     officer: await person("officer", home!.id),
@@ -33,8 +34,16 @@ async function club() {
 const statusOf = async (clubId: string, role: "member" | "coach" | "officer") =>
   requireClubRole(clubId, role).then(() => 200, (e: { status?: number }) => e.status ?? 500);
 
+const statusBySlug = async (slug: string, role: "member" | "coach" | "officer") =>
+  requireClubRole({ slug }, role).then(() => 200, (e: { status?: number }) => e.status ?? 500);
+
+/** Route files under a club path that act on no existing club, each with the reason. */
+const NOT_CLUB_SCOPED: Record<string, string> = {
+  "app/api/clubs/route.ts": "creates a club: none exists yet, and its creator becomes its first officer",
+};
+
 describe("requireClubRole, the guard of every club-scoped route", () => {
-  it("401 signed out; 403 below the role or outside the club; officers pass coach checks; site admins pass all", async () => {
+  it("401 signed out; 404 outside the club (its existence stays hidden); 403 below the role; officers pass coach checks; site admins pass all", async () => {
     const c = await club();
     actAs(null);
     expect(await statusOf(c.clubId, "member")).toBe(401);
@@ -45,16 +54,34 @@ describe("requireClubRole, the guard of every club-scoped route", () => {
     actAs(c.officer);
     expect([await statusOf(c.clubId, "coach"), await statusOf(c.clubId, "officer")]).toEqual([200, 200]);
     actAs(c.otherOfficer);
-    expect(await statusOf(c.clubId, "member")).toBe(403);
-    expect(await statusOf("not-a-club-id", "member")).toBe(403);
+    expect(await statusOf(c.clubId, "member")).toBe(404);
+    expect(await statusOf("not-a-club-id", "member")).toBe(404);
+    expect(await statusOf(uuidv7(), "member")).toBe(404);
     actAs(c.admin);
     expect(await statusOf(c.clubId, "officer")).toBe(200);
+    expect(await statusOf(uuidv7(), "member")).toBe(404);
+  });
+
+  it("by address name: the same answers, and a stranger cannot tell a club that exists from one that does not", async () => {
+    const c = await club();
+    actAs(null);
+    expect(await statusBySlug(c.slug, "member")).toBe(401);
+    actAs(c.member);
+    expect([await statusBySlug(c.slug, "member"), await statusBySlug(c.slug, "officer")]).toEqual([200, 403]);
+    actAs(c.officer);
+    expect(await statusBySlug(c.slug, "officer")).toBe(200);
+    actAs(c.otherOfficer);
+    expect([await statusBySlug(c.slug, "member"), await statusBySlug(`no-such-club-${uuidv7()}`, "member")]).toEqual([404, 404]);
+    actAs(c.admin);
+    expect(await statusBySlug(c.slug, "officer")).toBe(200);
   });
 
   it("guards every club-scoped route handler on disk (a club in the path, or a clubId read from the request)", () => {
-    // None exists yet (GET /api/club-mates is scoped by the caller's own memberships in its query):
-    // this fails the day a club route is added without the guard.
-    const unguarded = clubScopedRouteFiles().filter(({ source }) => !/\brequireClubRole\(/.test(source)).map(({ file }) => file);
+    // GET /api/club-mates and GET /api/club-fields are scoped by the caller's own memberships in their
+    // queries: this fails the day a club route is added without the guard.
+    const scoped = clubScopedRouteFiles().filter(({ file }) => !(file in NOT_CLUB_SCOPED));
+    expect(scoped.length).toBeGreaterThan(0);
+    const unguarded = scoped.filter(({ source }) => !/\brequireClubRole\(/.test(source)).map(({ file }) => file);
     expect(unguarded).toEqual([]);
   });
 });

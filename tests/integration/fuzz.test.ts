@@ -5,7 +5,7 @@ import { join, relative, sep } from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { users } from "@/db/schema";
+import { clubs, memberships, users } from "@/db/schema";
 import { BODY_LIMIT } from "@/lib/api";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
@@ -46,6 +46,13 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
     POST: { skip: "next-auth reads cookies() from a request scope: driven over HTTP in tests/e2e/signed-out-requests.spec.ts" },
   },
   "/api/club-mates": { GET: "none" },
+  "/api/club-fields": { GET: "none" },
+  "/api/clubs": { POST: "json" },
+  "/api/clubs/[slug]/invitations": { POST: "json" },
+  "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
+  "/api/clubs/[slug]/fields": { POST: "json" },
+  "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
+  "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
   "/api/sync/pull": { GET: "query" },
@@ -130,6 +137,11 @@ function template(path: string, userId: string): Record<string, unknown> {
   // admin routes run as an admin: setting a member's role to member changes nothing; retrying a message nobody queued is a 404
   if (path === "/api/admin/users/[userId]") return { action: "set-role", role: "member" };
   if (path === "/api/admin/mail/[mailId]/retry") return {};
+  if (path === "/api/clubs") return { name: "Fuzz Club" };
+  if (path.endsWith("/invitations")) return { email: `fuzz-${uuidv7()}@example.com`, role: "coach" };
+  if (path.endsWith("/members/[userId]")) return { role: "member" };
+  if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
+  if (path === "/api/invitations/accept") return { token };
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -211,6 +223,7 @@ describe("fuzz: every route under app/api", () => {
   /** Routes under /api/admin are driven by an admin (a member stops at 403 before reading the input), on a target of their own. */
   let admin: FuzzUser;
   let target: string;
+  let clubSlug = "";
   const account = async (role: "member" | "admin", name: string): Promise<FuzzUser> => {
     const email = `fuzz-${uuidv7()}@example.com`;
     const [row] = await db.insert(users).values({ email, name, role }).returning();
@@ -220,6 +233,10 @@ describe("fuzz: every route under app/api", () => {
     user = await account("member", "Fuzz Pilot");
     admin = await account("admin", "Fuzz Admin");
     target = (await account("member", "Fuzz Target")).id;
+    // the fuzz user is the only officer of a club of its own, so club routes read their bodies
+    clubSlug = `fuzz-${uuidv7()}`;
+    const [club] = await db.insert(clubs).values({ name: "Fuzz Club", slug: clubSlug }).returning();
+    await db.insert(memberships).values({ clubId: club!.id, userId: user.id, role: "officer" });
   });
 
   it("knows how to drive every route handler and method", async () => {
@@ -259,8 +276,11 @@ describe("fuzz: every route under app/api", () => {
             }
             const before = await countAll();
             // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log, a queued message: a valid body is a 404);
-            // the admin's change of an account acts on its own target
-            const params = path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
+            // the admin's change of an account acts on its own target; club routes get the fuzz user's own club,
+            // itself as the member and a field nobody has
+            const params = path.includes("[slug]")
+              ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
+              : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

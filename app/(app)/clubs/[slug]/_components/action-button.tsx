@@ -1,0 +1,48 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { sendJson } from "../../_components/send-json";
+
+type Props = {
+  url: string;
+  method: "DELETE" | "PATCH" | "POST";
+  body?: unknown;
+  label: string;
+  /** Asked before sending (a removal cannot be taken back here). */
+  confirm?: string;
+  /** Where to go when it worked; otherwise the page is read again. */
+  then?: string;
+  className?: string;
+};
+
+/** One button that sends one request; the server's refusal is shown beside it. */
+export function ActionButton({ url, method, body, label, confirm, then, className = "" }: Props) {
+  const router = useRouter();
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+
+  async function act() {
+    if (confirm && !window.confirm(confirm)) return;
+    setBusy(true);
+    setError(null);
+    const reply = await sendJson(method, url, body);
+    setBusy(false);
+    if (!reply.ok) return setError(reply.message);
+    if (then) router.push(then);
+    router.refresh();
+  }
+
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <button type="button" onClick={act} disabled={busy} className={`min-h-12 rounded-lg border-2 border-ink px-3 font-bold disabled:opacity-50 ${className}`}>
+        {busy ? "Working…" : label}
+      </button>
+      {error ? (
+        <span role="alert" className="text-sm font-semibold text-danger">
+          {error}
+        </span>
+      ) : null}
+    </span>
+  );
+}

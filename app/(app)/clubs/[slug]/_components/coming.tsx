@@ -1,0 +1,32 @@
+import { db } from "@/db";
+import { listComing } from "@/db/queries/club-home";
+import { formatDate } from "@/lib/format";
+
+/** The club's coming field days and contests (from today, UTC), soonest first; a plain line when there are none. */
+export async function Coming({ clubId }: { clubId: string }) {
+  const items = await listComing(db, { clubId, today: new Date().toISOString().slice(0, 10) });
+  return (
+    <section aria-labelledby="coming" className="space-y-3">
+      <h2 id="coming" className="text-lg font-bold">
+        Coming days and contests
+      </h2>
+      {items.length === 0 ? (
+        <p className="text-muted">Nothing planned yet.</p>
+      ) : (
+        <ul className="space-y-2" aria-label="Coming days and contests">
+          {items.map((i) => (
+            <li key={`${i.kind}-${i.id}`} className="card rounded-xl border border-line bg-raised p-3">
+              <p className="font-bold">
+                {i.kind === "day" ? "Field day" : "Contest"}: {i.kind === "day" ? i.fieldName : i.name}
+              </p>
+              <p className="text-sm text-muted">
+                {formatDate(new Date(`${i.on}T12:00:00Z`))}
+                {i.kind === "contest" ? ` · ${i.fieldName}` : ""}
+              </p>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

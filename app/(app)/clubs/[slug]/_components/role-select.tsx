@@ -1,0 +1,45 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { CLUB_ROLES } from "@/lib/validations/clubs";
+import { ROLE_LABEL, type ClubRole } from "@/lib/clubs/roles";
+import { sendJson } from "../../_components/send-json";
+
+/** An officer's choice of a member's role; the change is sent at once and refused with a sentence (e.g. the last officer). */
+export function RoleSelect({ slug, userId, name, role }: { slug: string; userId: string; name: string; role: ClubRole }) {
+  const router = useRouter();
+  const [value, setValue] = useState(role);
+  const [error, setError] = useState<string | null>(null);
+
+  async function change(next: ClubRole) {
+    setError(null);
+    setValue(next);
+    const reply = await sendJson("PATCH", `/api/clubs/${slug}/members/${userId}`, { role: next });
+    if (!reply.ok) {
+      setValue(role);
+      return setError(reply.message);
+    }
+    router.refresh();
+  }
+
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <label className="sr-only" htmlFor={`role-${userId}`}>
+        Role of {name}
+      </label>
+      <select id={`role-${userId}`} value={value} onChange={(e) => void change(e.target.value as ClubRole)} className="min-h-12 rounded-lg border-2 border-line bg-raised px-2">
+        {CLUB_ROLES.map((r) => (
+          <option key={r} value={r}>
+            {ROLE_LABEL[r]}
+          </option>
+        ))}
+      </select>
+      {error ? (
+        <span role="alert" className="text-sm font-semibold text-danger">
+          {error}
+        </span>
+      ) : null}
+    </span>
+  );
+}

@@ -1,0 +1,36 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { TextField } from "@/components/ui/field";
+import { createClubSchema, type CreateClubInput } from "@/lib/validations/clubs";
+import { sendJson } from "./send-json";
+
+/** Start a club: its name; you become its first officer and land on its home. */
+export function CreateClubForm() {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<CreateClubInput>({ resolver: zodResolver(createClubSchema), defaultValues: { name: "" } });
+
+  async function onValid(data: CreateClubInput) {
+    setError(null);
+    const reply = await sendJson<{ club: { slug: string } }>("POST", "/api/clubs", data);
+    if (!reply.ok) return setError(reply.message);
+    router.push(`/clubs/${reply.data.club.slug}`);
+  }
+
+  return (
+    <form onSubmit={handleSubmit(onValid)} className="space-y-3" noValidate>
+      <TextField id="club-name" label="Club name" autoComplete="off" {...register("name")} error={formState.errors.name?.message} />
+      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
+        {error}
+      </p>
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
+        {formState.isSubmitting ? "Creating…" : "Create the club"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,91 @@
+import { randomUUID } from "node:crypto";
+import { and, eq, sql } from "drizzle-orm";
+import { expect } from "vitest";
+import { clubFields, clubs, invitations, memberships } from "@/db/schema";
+import { hashEmailToken, newEmailToken } from "@/lib/auth/email-tokens";
+import type { Actor, Cast } from "./authz-actors";
+import { db, freshUser } from "./db";
+
+/**
+ * Records for the club rows of the authorisation matrix: a club of the cast's own, where the owner
+ * is the officer, the other pilot a member and the granted coach its coach; the coach without a
+ * grant, the officer of another club and the admin are not in it (the admin passes as site admin).
+ */
+export async function ownersClub(cast: Cast): Promise<{ id: string; slug: string }> {
+  const slug = `matrix-club-${randomUUID().slice(0, 8)}`;
+  const [club] = await db.insert(clubs).values({ name: "Matrix Owner's Club", slug }).returning();
+  await db.insert(memberships).values([
+    { clubId: club!.id, userId: cast.owner.id, role: "officer" },
+    { clubId: club!.id, userId: cast.otherPilot.id, role: "member" },
+    { clubId: club!.id, userId: cast.coachWithGrant.id, role: "coach" },
+  ]);
+  return { id: club!.id, slug };
+}
+
+/** Who may act for the club: its officer and site admins; members below the role get 403, strangers 404. */
+export const OFFICERS_ONLY = (ok: number): Record<Actor, number> => ({
+  signedOut: 401, owner: ok, otherPilot: 403, coachWithGrant: 403, coachWithoutGrant: 404, officerOtherClub: 404, admin: ok,
+});
+
+/** A member of the owner's club whom the officer may remove or move; each removal is checked and undone by `rejoins`. */
+let target: { clubId: string; userId: string; fieldId?: string } | null = null;
+
+export async function memberOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const member = await freshUser("matrix-club-member");
+  await db.insert(memberships).values({ clubId: club.id, userId: member.id, role: "member" });
+  target = { clubId: club.id, userId: member.id };
+  return { slug: club.slug, userId: member.id };
+}
+
+/** After a 2xx removal: the member is gone; put them back for the next actor. */
+export async function rejoins(): Promise<void> {
+  const mine = and(eq(memberships.clubId, target!.clubId), eq(memberships.userId, target!.userId));
+  expect(await db.select().from(memberships).where(mine)).toEqual([]);
+  await db.insert(memberships).values({ clubId: target!.clubId, userId: target!.userId, role: "member" });
+}
+
+export async function fieldOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: "Matrix Meadow", localRules: "Matrix rule" }).returning();
+  target = { clubId: club.id, userId: "", fieldId: field!.id };
+  return { slug: club.slug, fieldId: field!.id };
+}
+
+/** After a 2xx field removal: the field is gone; put it back (same id) for the next actor. */
+export async function fieldReturns(): Promise<void> {
+  expect(await db.select().from(clubFields).where(eq(clubFields.id, target!.fieldId!))).toEqual([]);
+  await db.insert(clubFields).values({ id: target!.fieldId!, clubId: target!.clubId, name: "Matrix Meadow" });
+}
+
+/** One unused invitation per actor to a club none of them is in (the link is the credential: any signed-in account joins). */
+const tokens = new Map<string, string>();
+export async function invitationsForEveryone(cast: Cast): Promise<Record<string, string>> {
+  const inviter = (await freshUser("matrix-inviter")).id;
+  const [club] = await db.insert(clubs).values({ name: "Matrix Inviting Club", slug: `matrix-inviting-${randomUUID().slice(0, 8)}` }).returning();
+  await db.insert(memberships).values({ clubId: club!.id, userId: inviter, role: "officer" });
+  for (const actor of Object.keys(cast)) {
+    const { token, tokenHash } = newEmailToken();
+    tokens.set(actor, token);
+    await db.insert(invitations).values({ clubId: club!.id, email: `matrix-${actor}@example.com`, role: "member", tokenHash, invitedBy: inviter, expiresAt: new Date(Date.now() + 3600_000) });
+  }
+  return {};
+}
+
+export const tokenFor = (actor: string | undefined): { token: string } => ({ token: tokens.get(actor ?? "") ?? "signed-out-token-that-nobody-issued" });
+
+/** After joining: the invitation is used, by this account. */
+export async function joinedOnce(actor: string, userId: string): Promise<void> {
+  const [row] = await db.select().from(invitations).where(eq(invitations.tokenHash, hashEmailToken(tokens.get(actor)!)));
+  expect({ actor, acceptedBy: row?.acceptedBy }).toEqual({ actor, acceptedBy: userId });
+}
+
+/** GET /api/club-fields gave only fields of clubs the caller belongs to. */
+export async function onlyOwnClubsFields(userId: string, res: Response): Promise<void> {
+  const { fields } = (await res.json()) as { fields: { id: string }[] };
+  if (fields.length === 0) return;
+  const foreign = await db.execute(sql`
+    select f.id from club_fields f where f.id in (${sql.join(fields.map((f) => sql`${f.id}::uuid`), sql`, `)})
+      and not exists (select 1 from memberships m where m.club_id = f.club_id and m.user_id = ${userId})`);
+  expect(foreign.rows).toEqual([]);
+}
