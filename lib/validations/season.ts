@@ -8,7 +8,13 @@ import { text } from "./bounds";
  * and to `filterWhere` in db/queries/season/scope.ts — nothing else reads the filter list.
  */
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "A date is written YYYY-MM-DD.").refine((s) => !Number.isNaN(Date.parse(s)), "Not a calendar date.");
+const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "A date is written YYYY-MM-DD.").refine(isCalendarDay, "Not a calendar date.");
+
+/** Whether "YYYY-MM-DD" names a real day (Date.parse takes 2026-02-30 for 2 March). */
+function isCalendarDay(s: string): boolean {
+  const t = Date.parse(`${s}T00:00:00Z`);
+  return !Number.isNaN(t) && new Date(t).toISOString().slice(0, 10) === s;
+}
 const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);
 
 export const SEASON_KINDS = ["all", "practice", "contest"] as const;

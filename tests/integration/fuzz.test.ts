@@ -57,6 +57,10 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/logs/[logId]/complete": { POST: "json" },
   "/api/logs/[logId]/download": { GET: "none" },
   "/api/logger-mappings": { GET: "none" },
+  "/api/pilots/[pilotId]/season": { GET: "query" },
+  "/api/pilots/[pilotId]/season/runs": { GET: "query" },
+  "/api/pilots/[pilotId]/season/flights": { GET: "query" },
+  "/api/pilots/[pilotId]/season/export": { GET: "query" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -194,8 +198,13 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
 
 const queryArb = fc.array(
   fc.tuple(
-    fc.constantFrom("cursor", "account", "limit", "x", "cursor"),
-    fc.oneof(fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()), fc.string({ maxLength: 30 })),
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "from", "to", "task", "field", "kind", "page", "size", "sort", "dir", "what"),
+    fc.oneof(
+      fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()),
+      // the season's filters and paging (lib/validations/season.ts)
+      fc.constantFrom("2026-06-01", "2026-02-30", "99999-01-01", "A", "custom", "contest", "practice", "25", "100000", "duration", "asc", "runs", "flights"),
+      fc.string({ maxLength: 30 }),
+    ),
   ),
   { maxLength: 4 },
 );
@@ -245,6 +254,9 @@ describe("fuzz: every route under app/api", () => {
             const before = await countAll();
             // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log: a valid body is a 404)
             const params = path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7() } : {};
+            // a dynamic route gets the params of a run nobody recorded for the fuzz user (a valid body is a 404)
+            // a pilot's routes get the fuzz user's own id (their season: a valid query is a 200)
+            const params = path.includes("[runId]") ? { runId: uuidv7(), lane: "0" } : path.includes("[pilotId]") ? { pilotId: user.id } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
@@ -258,5 +270,6 @@ describe("fuzz: every route under app/api", () => {
         );
       }
     }
-  });
+    // one test drives every route in turn: its time budget grows with the number of routes
+  }, 180_000);
 });
