@@ -9,7 +9,7 @@ export function BottomNav() {
   const path = usePathname();
   return (
     <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-line bg-raised pb-[env(safe-area-inset-bottom)]">
-      <ul className="mx-auto grid max-w-xl grid-cols-4">
+      <ul className="mx-auto grid max-w-xl grid-cols-5">
         {NAV_ITEMS.map((item) => {
           const current = item.href === "/" ? path === "/" : path === item.href || path.startsWith(item.href + "/");
           return (

@@ -7,6 +7,8 @@
 export type MonthSummary = { start: string; runs: number; flights: number; share: number | null; turnaroundTenths: number | null };
 
 export type SeasonSummary = {
+  /** The names of the fields where the pilot's sessions were, for the field filter (not filtered). */
+  fields: string[];
   totals: { runs: number; flights: number };
   months: { this: MonthSummary; last: MonthSummary };
   /** The best result per task (task letter or "custom"), with the run that flew it. */

@@ -38,6 +38,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
                    ('last', (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC')) as m(which, start)
     )
     select json_build_object(
+      'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
       'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(jsonb_array_length(coalesce(flights, '[]'))), 0)::int) from season_lanes),
       'months', (select json_object_agg(which, json_build_object('start', to_char(start at time zone 'UTC', 'YYYY-MM-DD'), 'runs', runs, 'flights', flights, 'share', share, 'turnaroundTenths', turnaround)) from months),
       'bests', coalesce((select json_agg(b order by b.task) from (
