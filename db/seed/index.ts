@@ -6,6 +6,7 @@ import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
+import { seedSeasonContest } from "./season-contest";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
 import { v7 as uuidv7 } from "uuid";
 
@@ -77,6 +78,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     await seedRecordedFor(tx, {
       clubId: club!.id, field: DEMO_CLUB.homeField, startedAt: SEASON_START + 37 * WEEK + 7 * 3600_000, keeper: person("tobi"), pilot: person("ada"),
     });
+    await seedSeasonContest(tx, { clubId: club!.id, field: DEMO_CLUB.homeField, pilot: person("ada") });
     // results are derived from the events, as a push would (SYNC.md §1)
     await deriveAllRuns(tx);
   });
