@@ -5,6 +5,8 @@ import type { SeasonFilters } from "@/lib/validations/season";
 const DAY_MS = 24 * 3600 * 1000;
 
 /** The filters as a SQL condition on `r` (runs) and `s` (field_sessions); dates are UTC calendar days, both ends included. */
+/** The points-lost causes of the stored breakdown (lib/tasks/breakdown.ts), each a column of `season_lanes` (tenths). */
+export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
 const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
 
 function filterWhere(f: SeasonFilters): SQL {
@@ -34,7 +36,9 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
     with season_lanes as materialized (
       select r.id as run_id, l.lane, r.task_code, r.created_at, s.field_name,
         l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
-        l.season_flights as flights, l.season_breakdown as breakdown, ${contest} as contest
+        l.season_flights as flights, ${contest} as contest,
+        ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
+        (l.season_breakdown ->> 'lostTenths')::int as lost_tenths, coalesce((l.season_breakdown ->> 'penaltyPoints')::int, 0) as penalty_points
       from run_lanes l
       join runs r on r.id = l.run_id
       join field_sessions s on s.id = r.session_id
@@ -47,10 +51,12 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
       select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name,
         f."index" as flight_index, f."launchMs" as launch_ms, f."landMs" as land_ms, f.status,
         f."timeTenths" as time_tenths, f."creditedTenths" as credited_tenths, f."targetSec" as target_sec,
-        f."launchMs" - lag(f."landMs") over (partition by sl.run_id, sl.lane order by f."index") as ground_ms
+        -- the derived flights are in flight order, so the previous landing is the array's previous element (no sort)
+        case when f.ord > 1 then f."launchMs" - (sl.flights -> (f.ord::int - 2) ->> 'landMs')::float8 end as ground_ms
       from season_lanes sl
-      cross join lateral jsonb_to_recordset(coalesce(sl.flights, '[]'::jsonb))
-        as f("index" int, "launchMs" float8, "landMs" float8, status text, "timeTenths" int, "creditedTenths" int, "targetSec" int)
+      cross join lateral rows from (jsonb_to_recordset(coalesce(sl.flights, '[]'::jsonb))
+        as ("index" int, "launchMs" float8, "landMs" float8, status text, "timeTenths" int, "creditedTenths" int, "targetSec" int)) with ordinality
+        as f("index", "launchMs", "landMs", status, "timeTenths", "creditedTenths", "targetSec", ord)
     )`;
 }
 

@@ -3,7 +3,7 @@ import { sql } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { seasonScope, shareOf, weekOf } from "./scope";
+import { LOST_PARTS, seasonScope, shareOf, weekOf } from "./scope";
 
 const WEEK = weekOf(sql`created_at`);
 const SL_WEEK = weekOf(sql`sl.created_at`);
@@ -66,14 +66,9 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
           from season_lanes sl group by 1) x), '[]'),
       'lostByWeek', coalesce((select json_agg(x order by x.week) from (
           select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week,
-            coalesce(sum((sl.breakdown #>> '{parts,groundTime}')::int), 0)::int as "groundTime",
-            coalesce(sum((sl.breakdown #>> '{parts,overCap}')::int), 0)::int as "overCap",
-            coalesce(sum((sl.breakdown #>> '{parts,shortOfTarget}')::int), 0)::int as "shortOfTarget",
-            coalesce(sum((sl.breakdown #>> '{parts,invalid}')::int), 0)::int as invalid,
-            coalesce(sum((sl.breakdown #>> '{parts,notCounted}')::int), 0)::int as "notCounted",
-            coalesce(sum((sl.breakdown #>> '{parts,roundZero}')::int), 0)::int as "roundZero",
-            coalesce(sum((sl.breakdown ->> 'penaltyPoints')::int), 0)::int as "penaltyPoints"
-          from season_lanes sl where sl.breakdown is not null group by 1) x), '[]')
+            ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)})::int as ${sql.identifier(k)}`), sql`, `)},
+            sum(sl.penalty_points)::int as "penaltyPoints"
+          from season_lanes sl where sl.lost_tenths is not null group by 1) x), '[]')
     ) as summary`);
   return res.rows[0]!.summary;
 }

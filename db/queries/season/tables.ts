@@ -34,8 +34,8 @@ export async function listSeasonRuns(
     select json_build_object('total', (select count(*)::int from season_lanes), 'rows', (select json_agg(x) from (
       select sl.run_id as "runId", sl.lane, sl.created_at as at, sl.field_name as field, sl.task_code as task,
         sl.result_tenths as "resultTenths", sl.max_tenths as "maxTenths", ${shareOf} as share,
-        jsonb_array_length(coalesce(sl.flights, '[]'))::int as flights, (sl.breakdown ->> 'lostTenths')::int as "lostTenths",
-        coalesce((sl.breakdown ->> 'penaltyPoints')::int, 0) as "penaltyPoints", sl.contest
+        jsonb_array_length(coalesce(sl.flights, '[]'))::int as flights, sl.lost_tenths as "lostTenths",
+        sl.penalty_points as "penaltyPoints", sl.contest
       from season_lanes sl ${pageClause(order, paging, sql`sl.created_at desc, sl.run_id, sl.lane`)}) x)) as page`);
   const page = res.rows[0]!.page;
   const rows = (page.rows ?? []).map((r) => ({ ...r, at: new Date(r.at).toISOString() }));
