@@ -29,7 +29,7 @@ export function DataAge({ query, what }: { query: Pick<UseQueryResult, "data" | 
   }, []);
   if (online && !query.isError) return null;
   if (!query.data) {
-    return <p role="status">{online ? `The ${what} could not be read: ${query.error?.message ?? "no answer"}.` : `Offline — no copy of this ${what} on this phone yet.`}</p>;
+    return <p role="status">{online ? `The ${what} could not be read: ${query.error?.message ?? "no answer"}.` : `Offline — no ${what} fetched on this phone yet.`}</p>;
   }
   const age = `, from ${describeAge(Math.max(0, now - query.dataUpdatedAt))}`;
   return (
