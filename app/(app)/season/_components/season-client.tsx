@@ -2,6 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
+import { useEffect, useRef } from "react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { seasonFiltersQuery, seasonFiltersSchema, type SeasonFilters } from "@/lib/validations/season";
 import { SeasonExports } from "./season-exports";
@@ -29,15 +30,31 @@ export function SeasonClient({ pilotId, own }: { pilotId: string; own: boolean }
   const filters = parsed.success ? parsed.data : NO_FILTERS;
   const filterQuery = seasonFiltersQuery(filters);
   const summary = useQuery(summaryQuery(pilotId, filterQuery));
+  // The filters last asked for: two quick changes (From, then To) must both land, though the
+  // address (and so `filters`) catches up only after each replace. An address we did not ask for
+  // (back, forward, a link) resets them.
+  const latest = useRef({ filters, asked: new Set<string>(), seen: filterQuery });
+  useEffect(() => {
+    const mine = latest.current;
+    if (mine.seen === filterQuery) return;
+    mine.seen = filterQuery;
+    if (!mine.asked.has(filterQuery)) mine.filters = filters;
+    if (seasonFiltersQuery(mine.filters) === filterQuery) mine.asked.clear();
+  }, [filters, filterQuery]);
   const setFilters = (next: SeasonFilters) => {
     const q = seasonFiltersQuery(next);
+    latest.current.filters = next;
+    latest.current.asked.add(q);
     router.replace(q ? `${path}?${q}` : path, { scroll: false });
   };
 
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-extrabold">Season</h1>
-      <SeasonFilterBar filters={filters} fields={summary.data?.fields ?? []} onChange={setFilters} />
+      <SeasonFilterBar
+        filters={filters} fields={summary.data?.fields ?? []}
+        onChange={(patch) => setFilters({ ...latest.current.filters, ...patch })} onClear={() => setFilters(NO_FILTERS)}
+      />
       {!parsed.success ? <p role="alert">Some filters in the address could not be read; showing the whole season.</p> : null}
       <DataAge query={summary} what="season" />
       {summary.data ? (
