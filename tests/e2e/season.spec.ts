@@ -20,7 +20,7 @@ async function seconds(page: Page, column: number): Promise<number[]> {
   return cells.map((c) => Number.parseFloat(c));
 }
 
-/** Ada's own runs of task H from June to September 2026, straight from the database: id, day, result in seconds. */
+/** Ada's own runs of task N from April to September 2026 (six in the seed), straight from the database: id, day, result in seconds. */
 async function adasRunsInDatabase(): Promise<string[][]> {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
@@ -29,8 +29,8 @@ async function adasRunsInDatabase(): Promise<string[][]> {
       select r.id, r.created_at as at, l.result_tenths, s.field_name
       from run_lanes l join runs r on r.id = l.run_id join field_sessions s on s.id = r.session_id join users u on u.id = l.pilot_user_id
       where u.email = 'ada@example.com' and r.created_by = u.id and l.result_tenths is not null
-        and r.task_code = 'H' and r.created_at >= '2026-06-01T00:00:00Z' and r.created_at < '2026-10-01T00:00:00Z'`);
-    return res.rows.map((r) => [r.id, r.at.toISOString().replace("Z", "+00:00"), "H", r.field_name, (r.result_tenths / 10).toFixed(1)]).sort();
+        and r.task_code = 'N' and r.created_at >= '2026-04-01T00:00:00Z' and r.created_at < '2026-10-01T00:00:00Z'`);
+    return res.rows.map((r) => [r.id, r.at.toISOString().replace("Z", "+00:00"), "N", r.field_name, (r.result_tenths / 10).toFixed(1)]).sort();
   } finally {
     await db.end();
   }
@@ -50,14 +50,14 @@ test("the demo pilot reads their season: charts, filters, sorting, the CSV", asy
   }
   await expect(page.getByText("Personal bests")).toBeVisible();
 
-  await page.getByLabel("Task", { exact: true }).selectOption("H");
-  await expect(page).toHaveURL(/task=H/);
-  await page.getByLabel("From", { exact: true }).fill("2026-06-01");
+  await page.getByLabel("Task", { exact: true }).selectOption("N");
+  await expect(page).toHaveURL(/task=N/);
+  await page.getByLabel("From", { exact: true }).fill("2026-04-01");
   await page.getByLabel("To", { exact: true }).fill("2026-09-30");
-  await expect(page).toHaveURL(/from=2026-06-01/);
+  await expect(page).toHaveURL(/from=2026-04-01/);
   await expect(page).toHaveURL(/to=2026-09-30/);
   await expect(runRows(page).first()).toBeVisible();
-  await expect(runRows(page).locator("td:nth-child(2)").filter({ hasNotText: "Task H" })).toHaveCount(0);
+  await expect(runRows(page).locator("td:nth-child(2)").filter({ hasNotText: "Task N" })).toHaveCount(0);
   const expected = await adasRunsInDatabase();
   expect(expected.length).toBeGreaterThan(1);
   await expect(page.locator("#season-runs-title ~ div").getByText(`${expected.length} runs`)).toBeVisible();
