@@ -1,8 +1,14 @@
 import "server-only";
-import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, inArray, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import { clubs, coachGrants, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
 import { exportHangar } from "./hangar-export";
+
+// the lanes as stored, without the season's generated copies of their derived flights and breakdown
+const allLaneColumns = getTableColumns(runLanes);
+const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as Omit<
+  typeof allLaneColumns, "seasonFlights" | "seasonBreakdown"
+>;
 
 /** The format of "export all my data"; bump when its shape changes. */
 export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
@@ -43,7 +49,7 @@ export async function exportAccount(db: Database, userId: string) {
   const runIds = runRows.map((r) => r.id);
   const [lanes, eventRows] = runIds.length
     ? await Promise.all([
-        db.select().from(runLanes).where(inArray(runLanes.runId, runIds)).orderBy(asc(runLanes.lane)),
+        db.select(laneColumns).from(runLanes).where(inArray(runLanes.runId, runIds)).orderBy(asc(runLanes.lane)),
         db.select().from(events).where(and(inArray(events.runId, runIds), or(eq(events.recordedBy, userId), sql`exists (
             select 1 from run_lanes l where l.run_id = ${events.runId} and l.pilot_user_id = ${userId}
             and (${events.body}->>'lane' is null or (${events.body}->>'lane')::int = l.lane))`)))

@@ -8,6 +8,7 @@ import { seedAdminDemo } from "./admin-demo";
 import { seedClubs } from "./clubs";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
+import { seedSeasonContest } from "./season-contest";
 import { makeRandom, pickTask, simulateWindow } from "./simulate";
 import { v7 as uuidv7 } from "uuid";
 
@@ -83,6 +84,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     await seedAdminDemo(tx, {
       adminId: ids.get("admin")!, pilotId: ids.get("lena")!, pilotEmail: "lena@example.com", passwordHash, at: SEASON_START + 38 * WEEK,
     });
+    await seedSeasonContest(tx, { clubId: club!.id, field: DEMO_CLUB.homeField, pilot: person("ada") });
     // results are derived from the events, as a push would (SYNC.md §1)
     await deriveAllRuns(tx);
   });

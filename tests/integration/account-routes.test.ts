@@ -111,6 +111,10 @@ describe("GET /api/account/export", () => {
     const seededSession = data.sessions.find((x: { fieldName: string }) => x.fieldName === "Five Acre Meadow");
     const seededRun = data.runs.find((r: { sessionId: string }) => r.sessionId === seededSession.id);
     expect(seededRun.lanes).toEqual([expect.objectContaining({ pilotUserId: ada.id, pilotName: "Ada Fenwick", lane: 0 })]);
+    // each lane as stored, once: not the season's generated copies of its derived flights and breakdown
+    expect(Object.keys(seededRun.lanes[0]).sort()).toEqual(
+      ["derived", "guestPilotId", "lane", "needsReview", "pilotName", "pilotUserId", "resultTenths", "reviewReason", "runId"],
+    );
     const stored = await db.select({ id: events.id }).from(events).where(eq(events.runId, seededRun.id));
     const exported = data.events.filter((e: { runId: string }) => e.runId === seededRun.id).map((e: { id: string }) => e.id);
     expect(exported.sort()).toEqual(stored.map((e) => e.id).sort());

@@ -97,6 +97,11 @@ const hangarRows: Record<string, Row> = {
   "GET /api/logs/[logId]/download": ownerOnly({ params: async (cast) => ({ logId: await insertLog(cast.owner.id, "parsed") }) }),
   "GET /api/logger-mappings": signedIn(),
 };
+/** A season route of the owner's (path pilotId = the owner): the owner reads it, anyone else finds nothing (404). */
+const ownSeason = (query: string): Protected => ({
+  ...ownerOnly({ query, params: async (cast) => ({ pilotId: cast.owner.id }) }),
+  expect: { ...everyone(404), signedOut: 401, owner: 200 },
+});
 
 const listsUsers = async (_ctx: Ctx, res: Response) => {
   const data = (await res.json()) as { users: { email: string }[]; total: number };
@@ -148,6 +153,11 @@ const ROWS: Record<string, Row> = {
     cast: "fresh",
     expect: { ...everyone(404), signedOut: 401, owner: 200 },
   },
+  // a pilot's season: only the pilot reads it for now (db/queries/season/access.ts); everyone else, admin and coach included, 404
+  "GET /api/pilots/[pilotId]/season": ownSeason(""),
+  "GET /api/pilots/[pilotId]/season/runs": ownSeason("?sort=result&dir=asc&size=10"),
+  "GET /api/pilots/[pilotId]/season/flights": ownSeason("?task=H&size=10"),
+  "GET /api/pilots/[pilotId]/season/export": ownSeason("?what=runs"),
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),

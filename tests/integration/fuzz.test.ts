@@ -66,6 +66,10 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/logs/[logId]/complete": { POST: "json" },
   "/api/logs/[logId]/download": { GET: "none" },
   "/api/logger-mappings": { GET: "none" },
+  "/api/pilots/[pilotId]/season": { GET: "query" },
+  "/api/pilots/[pilotId]/season/runs": { GET: "query" },
+  "/api/pilots/[pilotId]/season/flights": { GET: "query" },
+  "/api/pilots/[pilotId]/season/export": { GET: "query" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -211,8 +215,13 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
 
 const queryArb = fc.array(
   fc.tuple(
-    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page"),
-    fc.oneof(fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()), fc.string({ maxLength: 30 })),
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page", "from", "to", "task", "field", "kind", "size", "sort", "dir", "what"),
+    fc.oneof(
+      fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()),
+      // the season's filters and paging (lib/validations/season.ts)
+      fc.constantFrom("2026-06-01", "2026-02-30", "99999-01-01", "A", "custom", "contest", "practice", "25", "100000", "duration", "asc", "runs", "flights"),
+      fc.string({ maxLength: 30 }),
+    ),
   ),
   { maxLength: 4 },
 );
@@ -277,10 +286,12 @@ describe("fuzz: every route under app/api", () => {
             const before = await countAll();
             // a dynamic route gets ids nobody gave the fuzz user (a run, a model, a log, a queued message: a valid body is a 404);
             // the admin's change of an account acts on its own target; club routes get the fuzz user's own club,
-            // itself as the member and a field nobody has
+            // itself as the member and a field nobody has; a pilot's routes get the fuzz user's own id (their season: a 200)
             const params = path.includes("[slug]")
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
-              : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
+              : path.includes("[pilotId]")
+                ? { pilotId: user.id }
+                : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

@@ -1,0 +1,2 @@
+ALTER TABLE "run_lanes" ADD COLUMN "season_flights" jsonb GENERATED ALWAYS AS (derived -> 'flights') STORED;--> statement-breakpoint
+ALTER TABLE "run_lanes" ADD COLUMN "season_breakdown" jsonb GENERATED ALWAYS AS (derived -> 'breakdown') STORED;

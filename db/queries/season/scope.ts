@@ -1,0 +1,67 @@
+import "server-only";
+import { sql, type SQL } from "drizzle-orm";
+import type { SeasonFilters } from "@/lib/validations/season";
+
+const DAY_MS = 24 * 3600 * 1000;
+
+/** The filters as a SQL condition on `r` (runs) and `s` (field_sessions); dates are UTC calendar days, both ends included. */
+/** The points-lost causes of the stored breakdown (lib/tasks/breakdown.ts), each a column of `season_lanes` (tenths). */
+export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
+const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
+
+function filterWhere(f: SeasonFilters): SQL {
+  const parts: SQL[] = [sql`true`];
+  if (f.from) parts.push(sql`r.created_at >= ${new Date(`${f.from}T00:00:00Z`).toISOString()}::timestamptz`);
+  if (f.to) parts.push(sql`r.created_at < ${new Date(Date.parse(`${f.to}T00:00:00Z`) + DAY_MS).toISOString()}::timestamptz`);
+  if (f.task) parts.push(sql`r.task_code = ${f.task}`);
+  if (f.field) parts.push(sql`s.field_name = ${f.field}`);
+  if (f.kind === "contest") parts.push(contest);
+  if (f.kind === "practice") parts.push(sql`not ${contest}`);
+  // the model filter joins here when the hangar lands (lib/validations/season.ts)
+  return sql.join(parts, sql` and `);
+}
+
+/**
+ * The pilot's season as SQL common table expressions, for the queries beside this file:
+ * - `season_lanes`: each lane the pilot flew that counts in their record (lib/sync/consent.ts:
+ *   a run they created, or one recorded for them that they accepted) and has a result (the
+ *   window was started), within the filters; with the server's stored result (run_lanes, derived
+ *   by lib/results runResult on every push — never recomputed here);
+ * - `season_flights`: those lanes' derived flights, each with the ground time since the lane's
+ *   previous landing (`ground_ms`: null for the first flight or when the previous one never landed).
+ * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
+ */
+export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
+  return sql`
+    with season_lanes as materialized (
+      select r.id as run_id, l.lane, r.task_code, r.created_at, s.field_name,
+        l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
+        l.season_flights as flights, ${contest} as contest,
+        ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
+        (l.season_breakdown ->> 'lostTenths')::int as lost_tenths, coalesce((l.season_breakdown ->> 'penaltyPoints')::int, 0) as penalty_points
+      from run_lanes l
+      join runs r on r.id = l.run_id
+      join field_sessions s on s.id = r.session_id
+      left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
+      where l.pilot_user_id = ${pilotId}
+        and (r.created_by = ${pilotId} or c.status = 'accepted')
+        and l.result_tenths is not null
+        and ${filterWhere(f)}
+    ), season_flights as materialized (
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name,
+        f."index" as flight_index, f."launchMs" as launch_ms, f."landMs" as land_ms, f.status,
+        f."timeTenths" as time_tenths, f."creditedTenths" as credited_tenths, f."targetSec" as target_sec,
+        -- the derived flights are in flight order, so the previous landing is the array's previous element (no sort)
+        case when f.ord > 1 then f."launchMs" - (sl.flights -> (f.ord::int - 2) ->> 'landMs')::float8 end as ground_ms
+      from season_lanes sl
+      cross join lateral rows from (jsonb_to_recordset(coalesce(sl.flights, '[]'::jsonb))
+        as ("index" int, "launchMs" float8, "landMs" float8, status text, "timeTenths" int, "creditedTenths" int, "targetSec" int)) with ordinality
+        as f("index", "launchMs", "landMs", status, "timeTenths", "creditedTenths", "targetSec", ord)
+    )`;
+}
+
+/** A lane's result as a share of its task's maximum (null when the task has no maximum). */
+export const shareOf = sql`(case when sl.max_tenths > 0 then sl.result_tenths::float8 / sl.max_tenths end)`;
+
+/** The Monday (UTC) of the week of `column`, as a date. */
+export const weekOf = (column: SQL) => sql`(date_trunc('week', ${column} at time zone 'UTC'))::date`;
