@@ -53,8 +53,8 @@ test("a pilot adds a model, flies a window with it, uploads a log and sees launc
   await page.getByRole("button", { name: "Set up the window" }).click();
   await expect(page).toHaveURL(/\/field\/run\?id=/);
   const runId = new URL(page.url()).searchParams.get("id")!;
-  await page.getByLabel(/^Model/).selectOption({ label: "Test Heron" });
   await press(page, page.getByRole("button", { name: "Start working time" }));
+  await page.getByLabel(/^Model/).selectOption({ label: "Test Heron" }); // the lane's model is chosen once the window runs
   const launch = page.getByRole("button", { name: /^Launch, / });
   const flights: { launch: number; land: number }[] = [];
   for (let i = 0; i < 2; i++) {
