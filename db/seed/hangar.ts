@@ -44,7 +44,10 @@ export async function seedHangar(db: Database): Promise<void> {
   const run = recent.find((r) => ((r.derived as Flights)?.flights?.length ?? 0) >= 3) ?? recent[0]; // a window with a few flights shows more
   const flights = (run?.derived as Flights)?.flights ?? [];
   if (!run || flights.length === 0) return;
-  const choiceAt = flights[0]!.launchMs - 30_000;
+  // the strip's times run from the start signal; the event is stamped in wall time, between the start and the first launch
+  const [first] = await db.select({ wallMs: sql<number>`min(${events.wallMs})` }).from(events).where(eq(events.runId, run.id));
+  if (first?.wallMs == null) return;
+  const choiceAt = Math.round(Number(first.wallMs) + flights[0]!.launchMs / 2);
   const body = { kind: "model", lane: 0, modelId: heron.id };
   await db.insert(events).values({
     id: uuidv7({ msecs: choiceAt }), runId: run.id, deviceId: "demo-phone-ada", seq: 100_000, recordedBy: ada.id, kind: "model", body,
