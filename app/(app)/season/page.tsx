@@ -3,6 +3,7 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { db } from "@/db";
 import { getSeasonSummary } from "@/db/queries/season/summary";
+import { QueryProvider } from "@/components/query/query-provider";
 import { getSessionUser } from "@/lib/auth/session";
 import { makeQueryClient } from "@/lib/query/query-client";
 import { seasonFiltersQuery, seasonFiltersSchema } from "@/lib/validations/season";
@@ -34,8 +35,10 @@ export default async function SeasonPage({ searchParams }: Props) {
     });
   }
   return (
-    <HydrationBoundary state={dehydrate(queryClient)}>
-      <SeasonClient pilotId={user.id} own />
-    </HydrationBoundary>
+    <QueryProvider>
+      <HydrationBoundary state={dehydrate(queryClient)}>
+        <SeasonClient pilotId={user.id} own />
+      </HydrationBoundary>
+    </QueryProvider>
   );
 }
