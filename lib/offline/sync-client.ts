@@ -45,10 +45,12 @@ export class SyncClient {
   private failures = 0;
   private retryTimer: unknown = null;
   private debounceTimer: unknown = null;
+  private closed = false;
 
   constructor(options: SyncClientOptions) {
     this.db = options.db;
-    this.fetch = options.fetch;
+    // after close() no request leaves (an exchange already looping, a retry, an `online` event)
+    this.fetch = (input, init) => (this.closed ? Promise.reject(new TypeError("sync client closed")) : options.fetch(input, init));
     const clock = options.clock ?? { now: () => Date.now() };
     this.now = () => clock.now();
     this.random = options.random ?? Math.random;
@@ -203,6 +205,15 @@ export class SyncClient {
     this.failures = 0;
     this.update({ state: "idle", lastError: null });
     await this.sync();
+  }
+
+  /**
+   * For good (sign-out): cancel pending timers and send nothing more, so no request carries the
+   * old session once a sign-out began (a clock burst in progress stops at its next exchange).
+   */
+  close(): void {
+    this.closed = true;
+    this.stop();
   }
 
   /** Cancel pending timers (page teardown, tests). */

@@ -81,3 +81,20 @@ describe("measureClock", () => {
     expect(history[0]!.measuredAtWallMs).toBeLessThan(history[1]!.measuredAtWallMs);
   });
 });
+
+describe("close (sign-out)", () => {
+  it("sends no request after close: the burst in progress stops at its next exchange, and `online` starts nothing", async () => {
+    let client: SyncClient | null = null;
+    const world = clockWorld([[10, 10], [10, 10], [10, 10], [10, 10]], (i) => {
+      if (i === 0) client?.close(); // the sign-out begins while the first reply is on its way
+    });
+    client = world.client;
+    await client.measureClock();
+    expect(world.bodies).toHaveLength(1);
+    client.onOnline();
+    client.onVisible();
+    await client.sync();
+    await new Promise((r) => setTimeout(r, 0));
+    expect(world.bodies).toHaveLength(1);
+  });
+});

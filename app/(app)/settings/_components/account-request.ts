@@ -26,11 +26,13 @@ export function fieldErrors<K extends string>(issues: { path: PropertyKey[] | st
 }
 
 /**
- * Signs this browser out, clears this account from the phone as the sign-out button does
+ * Signs this browser out: the sync client sends nothing more, the server session ends (offline: at
+ * the next request that reaches the server), this account is cleared from the phone
  * (lib/offline/sign-out.ts: unsent records stay sealed for this account, nothing else is kept), and
- * loads the sign-in page afresh on the origin in use (a full load, so nothing stays in memory).
+ * the sign-in page loads afresh on the origin in use (a full load, so nothing stays in memory).
  */
-export async function signOutHere(query = ""): Promise<void> {
+export async function signOutHere(query = "", client?: { close(): void } | null): Promise<void> {
+  client?.close();
   await endServerSession(() => signOut({ redirect: false })); // offline: finished at the next request that reaches the server
   await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
   window.location.assign(new URL(`/sign-in${query}`, window.location.origin).href);

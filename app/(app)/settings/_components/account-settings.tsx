@@ -2,6 +2,7 @@
 
 import { useSession } from "next-auth/react";
 import { useState } from "react";
+import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { accountRequest, signOutHere } from "./account-request";
 import { ChangePasswordForm } from "./change-password-form";
@@ -14,6 +15,7 @@ import { EmailSettings } from "./email-settings";
  * and needs a connection.
  */
 export function AccountSettings() {
+  const { client } = useSync();
   const { data: session, status } = useSession();
   const [error, setError] = useState<string | null>(null);
   if (status === "loading") return <p className="text-muted">Loading your account…</p>;
@@ -23,7 +25,7 @@ export function AccountSettings() {
   async function signOutEverywhere() {
     const reply = await accountRequest("/api/account/sign-out-everywhere", "POST", {});
     if (!reply.ok) return setError(reply.message ?? "Could not sign out everywhere.");
-    await signOutHere("?signedOut=everywhere");
+    await signOutHere("?signedOut=everywhere", client);
   }
 
   return (

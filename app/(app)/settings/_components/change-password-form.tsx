@@ -5,6 +5,7 @@ import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
+import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { changePasswordSchema, type ChangePasswordInput } from "@/lib/validations/account";
@@ -17,6 +18,7 @@ import { accountRequest, fieldErrors, signOutHere } from "./account-request";
  * out and the sign-in page asks for the new password).
  */
 export function ChangePasswordForm({ email }: { email: string }) {
+  const { client } = useSync();
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
@@ -38,7 +40,7 @@ export function ChangePasswordForm({ email }: { email: string }) {
       return;
     }
     const again = await signIn("credentials", { email, password: data.newPassword, redirect: false });
-    if (!again || again.error) return signOutHere("?changed=password");
+    if (!again || again.error) return signOutHere("?changed=password", client);
     reset();
     setDone("Password changed. Your other devices are signed out; this one stays signed in.");
     router.refresh();

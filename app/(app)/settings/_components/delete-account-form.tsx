@@ -2,6 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
+import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { deleteAccountSchema, type DeleteAccountInput } from "@/lib/validations/account";
@@ -12,12 +13,13 @@ import { accountRequest, fieldErrors, signOutHere } from "./account-request";
  * the message beside the field; an empty password sends nothing); says plainly what is kept for others.
  */
 export function DeleteAccountForm() {
+  const { client } = useSync();
   const { register, handleSubmit, setError, formState } = useForm<DeleteAccountInput>({ resolver: zodResolver(deleteAccountSchema), defaultValues: { password: "" } });
 
   async function onValid(data: DeleteAccountInput) {
     const reply = await accountRequest("/api/account", "DELETE", data);
     if (!reply.ok) return setError("password", { message: fieldErrors<"password">(reply.issues ?? []).password ?? reply.message });
-    await signOutHere("?deleted=1");
+    await signOutHere("?deleted=1", client);
   }
 
   return (

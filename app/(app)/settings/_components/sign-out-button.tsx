@@ -1,11 +1,11 @@
 "use client";
 
-import { signOut } from "next-auth/react";
 import { useState } from "react";
 import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { getWindowcallDb } from "@/lib/offline/db";
-import { clearAccountOnDevice, countKeptAtSignOut, endServerSession } from "@/lib/offline/sign-out";
+import { countKeptAtSignOut } from "@/lib/offline/sign-out";
+import { signOutHere } from "./account-request";
 
 /**
  * Signs out and clears this account from the phone (lib/offline/sign-out.ts), so the next person
@@ -20,13 +20,7 @@ export function SignOutButton() {
 
   async function finish() {
     setBusy(true);
-    client?.stop();
-    // offline: the local data is cleared all the same, and the server session ends at the next request that reaches it
-    await endServerSession(() => signOut({ redirect: false }));
-    await clearAccountOnDevice(getWindowcallDb()).catch(() => undefined);
-    // A full load on purpose: no memory of this account (query cache, sync client, screens) survives it.
-    // eslint-disable-next-line @next/next/no-location-assign-relative-destination
-    window.location.assign("/sign-in");
+    await signOutHere("", client);
   }
 
   async function start() {
