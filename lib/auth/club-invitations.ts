@@ -7,6 +7,7 @@ import { appLink } from "@/lib/mail/links";
 import { clubInvitationMail } from "@/lib/mail/messages";
 import { sendMail } from "@/lib/mail/server/send";
 import { hashEmailToken, newEmailToken } from "./email-tokens";
+import { INVITATION_LINK_MESSAGES, LinkError } from "./link-error";
 
 /**
  * Club invitations by e-mail: a one-time link (256 random bits, only its SHA-256 stored, as for the
@@ -15,18 +16,6 @@ import { hashEmailToken, newEmailToken } from "./email-tokens";
  * account under another address.
  */
 export const INVITATION_DAYS = 7;
-
-/** A refused invitation link, in words for the invitee (codes as for the account links). */
-export class InvitationLinkError extends AppError {
-  constructor(status: "used" | "expired" | "unknown") {
-    const message = {
-      used: "This invitation was already used. Each invitation works once: ask the club's officer for a new one if you need it.",
-      expired: "This invitation has expired. Ask the club's officer for a new one.",
-      unknown: "This invitation link is not valid. Open the link from the e-mail again, or ask the club's officer for a new one.",
-    }[status];
-    super(`link_${status}`, message, status === "unknown" ? 404 : 410);
-  }
-}
 
 export async function inviteToClub(input: {
   club: { id: string; name: string };
@@ -51,6 +40,6 @@ export async function lookUpInvitation(token: string): Promise<InvitationUse> {
 export async function acceptInvitation(token: string, userId: string): Promise<{ slug: string; clubName: string; role: ClubRole }> {
   const use = await db.transaction((tx) => takeInvitation(tx, { tokenHash: hashEmailToken(token), userId }));
   if (use.status === "member") throw new AppError("already_member", "You are already a member of this club. The link stays unused.", 409);
-  if (use.status !== "ok") throw new InvitationLinkError(use.status);
+  if (use.status !== "ok") throw new LinkError(use.status, INVITATION_LINK_MESSAGES);
   return { slug: use.invitation.slug, clubName: use.invitation.clubName, role: use.invitation.role };
 }

@@ -2,11 +2,12 @@ import "server-only";
 import { db } from "@/db";
 import { createEmailToken, peekEmailToken, retireEmailTokens, takeEmailToken, type TokenPurpose } from "@/db/queries/email-tokens";
 import { changeEmail, getUserByEmail, markEmailVerified, updatePassword } from "@/db/queries/users";
-import { AppError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
 import { confirmNewEmailMail, emailChangedMail, resetPasswordMail, signUpAttemptMail, verifyEmailMail } from "@/lib/mail/messages";
 import { sendMail } from "@/lib/mail/server/send";
 import { hashEmailToken, newEmailToken, TOKEN_TTL_MS } from "./email-tokens";
+import { AppError } from "@/lib/errors";
+import { LinkError } from "./link-error";
 import { hashPassword } from "./password";
 
 /**
@@ -43,17 +44,6 @@ export async function sendPasswordReset(email: string): Promise<void> {
 export async function sendEmailChange(user: { id: string; name: string }, newEmail: string): Promise<void> {
   const token = await issue(user.id, "change-email", newEmail);
   await sendMail(newEmail, confirmNewEmailMail({ name: user.name, newEmail, link: appLink("/confirm-email", { token }) }));
-}
-
-export class LinkError extends AppError {
-  constructor(status: "used" | "expired" | "unknown") {
-    const message = {
-      used: "This link was already used. Each link works once: ask for a new one if you need it.",
-      expired: "This link has expired. Ask for a new one.",
-      unknown: "This link is not valid. Open the link from the e-mail again, or ask for a new one.",
-    }[status];
-    super(`link_${status}`, message, status === "unknown" ? 404 : 410);
-  }
 }
 
 /** Uses a link: returns its row, or throws LinkError (410 used or expired, 404 unknown). */

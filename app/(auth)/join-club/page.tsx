@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { InvitationLinkError, lookUpInvitation } from "@/lib/auth/club-invitations";
+import { lookUpInvitation } from "@/lib/auth/club-invitations";
+import { INVITATION_LINK_MESSAGES } from "@/lib/auth/link-error";
 import { getSessionUser } from "@/lib/auth/session";
 import { ROLE_LABEL } from "@/lib/clubs/roles";
 import { emailTokenSchema } from "@/lib/validations/email";
@@ -22,7 +23,7 @@ export default async function JoinClubPage({ searchParams }: { searchParams: Pro
       <>
         <h1 className="text-xl font-bold">Join a club</h1>
         <p role="alert" className="font-semibold text-danger">
-          {new InvitationLinkError(use.status).message}
+          {INVITATION_LINK_MESSAGES[use.status]}
         </p>
       </>
     );
