@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { FormError } from "@/components/ui/form-footer";
 import { postJson } from "./post-json";
 
 /**
@@ -37,9 +38,7 @@ export function ConfirmLink({ token, url, action, done }: { token: string; url: 
       <Button type="button" onClick={confirm} disabled={busy} className="w-full">
         {busy ? "Confirming…" : action}
       </Button>
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {state?.message}
-      </p>
+      <FormError message={state?.message} />
     </div>
   );
 }

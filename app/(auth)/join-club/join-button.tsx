@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { FormError } from "@/components/ui/form-footer";
 
 /** Uses the invitation for the signed-in account; a refusal (used, expired, already a member) is said in words. */
 export function JoinButton({ token, clubName, who }: { token: string; clubName: string; who: string }) {
@@ -36,9 +37,7 @@ export function JoinButton({ token, clubName, who }: { token: string; clubName: 
       <Button type="button" onClick={join} disabled={busy} className="w-full">
         {busy ? "Joining…" : `Join ${clubName}`}
       </Button>
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {state && !state.ok ? state.message : null}
-      </p>
+      <FormError message={state && !state.ok ? state.message : null} />
     </div>
   );
 }

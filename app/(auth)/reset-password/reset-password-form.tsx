@@ -4,8 +4,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { FormFooter } from "@/components/ui/form-footer";
 import { resetPasswordFormSchema, type ResetPasswordFormInput } from "@/lib/validations/email";
 import { postJson } from "../_components/post-json";
 
@@ -45,12 +45,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
   return (
     <form onSubmit={(e) => void form.handleSubmit(onValid)(e)} className="space-y-4" noValidate>
       <TextField id="password" type="password" label="New password (at least 10 characters)" autoComplete="new-password" required {...form.register("password")} error={form.formState.errors.password?.message} />
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {error}
-      </p>
-      <Button type="submit" disabled={form.formState.isSubmitting} className="w-full">
-        {form.formState.isSubmitting ? "Saving…" : "Set new password"}
-      </Button>
+      <FormFooter error={error} submitting={form.formState.isSubmitting} label="Set new password" busyLabel="Saving…" />
       <p>
         <Link href="/forgot-password" className="underline">
           Ask for a new link

@@ -4,8 +4,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { FormFooter } from "@/components/ui/form-footer";
 import { createClubSchema, type CreateClubInput } from "@/lib/validations/clubs";
 import { sendJson } from "./send-json";
 
@@ -25,12 +25,7 @@ export function CreateClubForm() {
   return (
     <form onSubmit={handleSubmit(onValid)} className="space-y-3" noValidate>
       <TextField id="club-name" label="Club name" autoComplete="off" {...register("name")} error={formState.errors.name?.message} />
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {error}
-      </p>
-      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
-        {formState.isSubmitting ? "Creating…" : "Create the club"}
-      </Button>
+      <FormFooter error={error} submitting={formState.isSubmitting} label="Create the club" busyLabel="Creating…" />
     </form>
   );
 }

@@ -3,8 +3,8 @@
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { FormFooter } from "@/components/ui/form-footer";
 import { lazyResolver } from "@/components/ui/lazy-resolver";
 import { safeNextPath } from "@/lib/security/safe-next";
 import type { SignInInput } from "@/lib/validations/auth";
@@ -53,12 +53,7 @@ export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
     <form onSubmit={handleSubmit(onValid)} className="space-y-4" noValidate>
       <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={fe.email?.message} />
       <TextField id="password" type="password" label="Password" autoComplete="current-password" required {...register("password")} error={fe.password?.message} />
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {error}
-      </p>
-      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
-        {formState.isSubmitting ? "Signing in…" : "Sign in"}
-      </Button>
+      <FormFooter error={error} submitting={formState.isSubmitting} label="Sign in" busyLabel="Signing in…" />
     </form>
   );
 }

@@ -3,8 +3,8 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Suspense, useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { FormFooter } from "@/components/ui/form-footer";
 import { signUpSchema, type SignUpInput } from "@/lib/validations/auth";
 import { SignInForm } from "../../sign-in/_components/sign-in-form";
 
@@ -54,12 +54,7 @@ export function SignUpForm() {
       <TextField id="name" label="Name" autoComplete="name" required {...register("name")} error={fe.name?.message} />
       <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={fe.email?.message} />
       <TextField id="password" type="password" label="Password (at least 10 characters)" autoComplete="new-password" required {...register("password")} error={fe.password?.message} />
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {formError}
-      </p>
-      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
-        {formState.isSubmitting ? "Creating…" : "Create account"}
-      </Button>
+      <FormFooter error={formError} submitting={formState.isSubmitting} label="Create account" busyLabel="Creating…" />
     </form>
   );
 }

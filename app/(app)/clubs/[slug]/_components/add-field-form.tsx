@@ -4,8 +4,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
+import { FormFooter } from "@/components/ui/form-footer";
 import { clubFieldSchema, type ClubField, type ClubFieldInput } from "@/lib/validations/clubs";
 import { sendJson } from "../../_components/send-json";
 
@@ -36,12 +36,7 @@ export function AddFieldForm({ slug }: { slug: string }) {
       <TextField id="field-launch" label="Launch direction" {...register("launchDirection")} error={fe.launchDirection?.message} />
       <TextField id="field-safety" label="Safety areas" {...register("safetyAreas")} error={fe.safetyAreas?.message} />
       <TextField id="field-rules" label="Local rules" {...register("localRules")} error={fe.localRules?.message} />
-      <p role="alert" aria-live="assertive" className="min-h-6 font-semibold text-danger">
-        {error}
-      </p>
-      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
-        {formState.isSubmitting ? "Adding…" : "Add the field"}
-      </Button>
+      <FormFooter error={error} submitting={formState.isSubmitting} label="Add the field" busyLabel="Adding…" />
     </form>
   );
 }
