@@ -1,21 +1,12 @@
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { signInAs } from "./support/auth";
+import { openMail } from "./support/mail";
 
 /**
  * Clubs (issue #14), with the seeded demo clubs: Ines is Heronmoor's officer, Quinn a member of
  * Kestrel Downs, Ada a Heronmoor member. The invitation goes through the local SMTP fake and is read
  * on /dev/mailbox, as a developer would.
  */
-
-/** Opens the mailbox until a message with this subject to `email` is there; returns it. */
-async function openMail(page: Page, subject: RegExp, email: string) {
-  const message = page.getByRole("article", { name: subject }).filter({ hasText: email }).first();
-  await expect(async () => {
-    await page.goto("/dev/mailbox");
-    await expect(message).toBeVisible({ timeout: 1000 });
-  }).toPass({ timeout: 20_000 });
-  return message;
-}
 
 test("an officer invites by e-mail; the invitee follows the link, creates an account and joins as coach; the link then fails", async ({ page, browser }) => {
   const invitee = `invitee-${Date.now()}@example.com`;

@@ -1,21 +1,12 @@
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test } from "@playwright/test";
 import { signUpByApi } from "./support/api";
 import { signInAs } from "./support/auth";
+import { openMail } from "./support/mail";
 
 /**
  * E-mail through the local SMTP fake, read on /dev/mailbox as a developer would: a forgotten
  * password, a sign-up with a taken address, verifying an address.
  */
-
-/** Opens the mailbox until a message with this subject to `email` is there; returns it. */
-async function openMail(page: Page, subject: RegExp, email: string) {
-  const message = page.getByRole("article", { name: subject }).filter({ hasText: email }).first();
-  await expect(async () => {
-    await page.goto("/dev/mailbox");
-    await expect(message).toBeVisible({ timeout: 1000 });
-  }).toPass({ timeout: 20_000 });
-  return message;
-}
 
 test("forgot password: the mailed link sets a new password once, and it signs in", async ({ page, baseURL }) => {
   const email = await signUpByApi(page.request, baseURL, "Reset Pilot", "reset", "old-thermal-2026");

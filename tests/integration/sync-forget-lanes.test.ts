@@ -53,21 +53,27 @@ function coachPhone(coach: U) {
   return { phone, sync, lanesHeld };
 }
 
+/** Ada and Bea both grant the coach; the coach's phone has pulled the run with both their lanes. */
+async function coachHoldsSharedRun() {
+  const [tobi, ada, bea, coach] = (await freshClub(["Tobi", "Ada", "Bea", "Coach"])) as [U, U, U, U];
+  await grant(ada, coach);
+  await grant(bea, coach);
+  const runId = await sharedRun(tobi, ada, bea);
+  const phone = coachPhone(coach);
+  expect((await phone.sync()).kind).toBe("ok");
+  expect(await phone.lanesHeld(runId)).toEqual(new Set([0, 1]));
+  return { ada, coach, runId, ...phone };
+}
+
 describe("a lane lost from a run a coach still sees reaches the coach's phone as a forget item", () => {
   it("a pilot hides her lane: the phone drops that lane's events and keeps the other pilot's", async () => {
-    const [tobi, ada, bea, coach] = await freshClub(["Tobi", "Ada", "Bea", "Coach"]);
-    await grant(ada!, coach!);
-    await grant(bea!, coach!);
-    const runId = await sharedRun(tobi!, ada!, bea!);
-    const { phone, sync, lanesHeld } = coachPhone(coach!);
-    expect((await sync()).kind).toBe("ok");
-    expect(await lanesHeld(runId)).toEqual(new Set([0, 1]));
-    expect((await listChanges(db, { userId: coach!.id, cursor: "0" })).forgetLanes).toBeUndefined();
+    const { ada, coach, runId, phone, sync, lanesHeld } = await coachHoldsSharedRun();
+    expect((await listChanges(db, { userId: coach.id, cursor: "0" })).forgetLanes).toBeUndefined();
 
-    actAs(ada!);
+    actAs(ada);
     expect((await decide(runId, 0, { decision: "hidden" })).status).toBe(200);
     // the run stays visible through Bea's lane: not a run to forget, a lane
-    const first = await listChanges(db, { userId: coach!.id, cursor: "0" });
+    const first = await listChanges(db, { userId: coach.id, cursor: "0" });
     expect(first.forget ?? []).not.toContain(runId);
     expect(first.forgetLanes).toEqual([{ runId, lanes: [0] }]);
     expect(runItem(first.items, runId)?.data.lanes.map((l) => l.lane)).toEqual([1]);
@@ -79,15 +85,9 @@ describe("a lane lost from a run a coach still sees reaches the coach's phone as
   });
 
   it("a pilot revokes her grant while another pilot's lane keeps the run in sight: her lane goes", async () => {
-    const [tobi, ada, bea, coach] = await freshClub(["Tobi", "Ada", "Bea", "Coach"]);
-    await grant(ada!, coach!);
-    await grant(bea!, coach!);
-    const runId = await sharedRun(tobi!, ada!, bea!);
-    const { phone, sync, lanesHeld } = coachPhone(coach!);
-    expect((await sync()).kind).toBe("ok");
-    expect(await lanesHeld(runId)).toEqual(new Set([0, 1]));
+    const { ada, coach, runId, phone, sync, lanesHeld } = await coachHoldsSharedRun();
 
-    await db.update(coachGrants).set({ revokedAt: sql`now()` }).where(and(eq(coachGrants.pilotId, ada!.id), eq(coachGrants.coachId, coach!.id)));
+    await db.update(coachGrants).set({ revokedAt: sql`now()` }).where(and(eq(coachGrants.pilotId, ada.id), eq(coachGrants.coachId, coach.id)));
     expect((await sync()).kind).toBe("ok");
     expect(await lanesHeld(runId)).toEqual(new Set([1]));
     expect(await phone.runs.get(runId)).toBeDefined();
