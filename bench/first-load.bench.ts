@@ -7,27 +7,13 @@
  * that every page loads; the ratio says how much the page adds on top. Goal (issue #10): /field
  * ≤ 150 kB of JavaScript (gzip).
  */
-import { spawn, execSync } from "node:child_process";
-import { existsSync, readFileSync, statSync } from "node:fs";
-import { createServer } from "node:net";
+import { readFileSync, statSync } from "node:fs";
 import { join } from "node:path";
 import { gzipSync } from "node:zlib";
+import { startServer } from "./next-server";
 
 const PAGES = ["/field", "/field/run", "/field/new", "/logbook", "/sign-in"];
 const next = join(process.cwd(), ".next");
-
-if (!existsSync(join(next, "BUILD_ID"))) {
-  console.log("no production build: running next build --webpack");
-  execSync("npx next build --webpack", { stdio: "ignore" });
-}
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 type Size = { raw: number; gzip: number };
 const sizeCache = new Map<string, Size>();
@@ -55,20 +41,8 @@ function firstLoad(html: string, link: string) {
   return { scripts, css, fonts };
 }
 
-const port = await freePort();
-// next's own binary (not npx), so stopping it stops the server itself
-const server = spawn(join(process.cwd(), "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
-  stdio: "ignore",
-  env: { ...process.env, NEXTAUTH_URL: `http://127.0.0.1:${port}` },
-});
+const { base, server } = await startServer();
 try {
-  const base = `http://127.0.0.1:${port}`;
-  for (let i = 0; ; i++) {
-    const ok = await fetch(`${base}/offline`).then(() => true, () => false); // any answer: no database needed
-    if (ok) break;
-    if (i > 300) throw new Error("next start did not answer");
-    await new Promise((r) => setTimeout(r, 200));
-  }
   const manifest = JSON.parse(readFileSync(join(next, "build-manifest.json"), "utf8")) as { rootMainFiles: string[] };
   const empty = sum(manifest.rootMainFiles.map((f) => `/_next/${f}`));
   const built = statSync(join(next, "BUILD_ID")).mtime.toISOString();

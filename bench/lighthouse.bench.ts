@@ -10,12 +10,12 @@
  * the scores move with it. Goal (issue #10): ≥ 95 on /sign-in and /field. LIGHTHOUSE_REPORTS=DIR
  * keeps every run's full report (JSON) there, to read what Lighthouse found.
  */
-import { execSync, spawn } from "node:child_process";
-import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { createServer } from "node:net";
+import { spawn } from "node:child_process";
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
 import lighthouse from "lighthouse";
+import { freePort, signIn, startServer } from "./next-server";
 
 const RUNS = Number(process.env.RUNS ?? 3);
 const PAGES: { path: string; signedIn: boolean }[] = [
@@ -23,38 +23,6 @@ const PAGES: { path: string; signedIn: boolean }[] = [
   { path: "/field", signedIn: true },
 ];
 const DEMO = { email: "ada@example.com", password: "windowcall-demo" }; // db/seed's demo pilot
-
-if (!existsSync(join(process.cwd(), ".next", "BUILD_ID"))) {
-  console.log("no production build: running next build --webpack");
-  execSync("npx next build --webpack", { stdio: "ignore" });
-}
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
-
-/** The cookies a response sets, as one Cookie header value (name=value pairs). */
-const cookiesOf = (response: Response) => response.headers.getSetCookie().map((c) => c.split(";")[0]!);
-
-/** Signs in through next-auth's csrf and credentials endpoints, as the sign-in form does; returns the session cookie header. */
-async function signIn(base: string): Promise<string> {
-  const csrf = await fetch(`${base}/api/auth/csrf`);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const jar = cookiesOf(csrf);
-  const response = await fetch(`${base}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email: DEMO.email, password: DEMO.password, json: "true" }),
-  });
-  const all = [...jar, ...cookiesOf(response)];
-  if (!all.some((c) => c.includes("session-token="))) throw new Error(`sign-in failed (${response.status}): is the demo seeded in DATABASE_URL?`);
-  return all.join("; ");
-}
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 const METRICS = [
@@ -65,12 +33,7 @@ const METRICS = [
   ["speed-index", "SI", "ms"],
 ] as const;
 
-const port = await freePort();
-const base = `http://127.0.0.1:${port}`;
-const server = spawn(join(process.cwd(), "node_modules", ".bin", "next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
-  stdio: "ignore",
-  env: { ...process.env, NEXTAUTH_URL: base },
-});
+const { base, server } = await startServer();
 const profile = mkdtempSync(join(tmpdir(), "windowcall-lighthouse-"));
 const debugPort = await freePort();
 const chromium = spawn(
@@ -79,14 +42,11 @@ const chromium = spawn(
   { stdio: "ignore" },
 );
 try {
-  for (let i = 0; ; i++) {
-    const up = await fetch(`${base}/offline`).then(() => true, () => false);
-    const devtools = await fetch(`http://127.0.0.1:${debugPort}/json/version`).then(() => true, () => false);
-    if (up && devtools) break;
-    if (i > 300) throw new Error("next start or Chromium did not answer");
+  for (let i = 0; !(await fetch(`http://127.0.0.1:${debugPort}/json/version`).then(() => true, () => false)); i++) {
+    if (i > 300) throw new Error("Chromium did not answer");
     await new Promise((r) => setTimeout(r, 200));
   }
-  const cookie = await signIn(base);
+  const cookie = await signIn(base, DEMO.email, DEMO.password);
   const loads: number[] = [];
   console.log(`Lighthouse mobile performance, median of ${RUNS} (simulated slow 4G, 4× CPU), production build`);
   for (const page of PAGES) {

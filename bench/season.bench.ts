@@ -13,7 +13,8 @@ import { db, getPool } from "@/db";
 import { getSeasonSummary } from "@/db/queries/season/summary";
 import { listSeasonRuns } from "@/db/queries/season/tables";
 import { seedBenchSeason } from "./season-seed";
-import { firstLoadJs, signIn, startServer } from "./season-server";
+import { signIn, startServer } from "./next-server";
+import { firstLoadJs } from "./season-server";
 
 const RUNS = Number(process.env.SEASON_BENCH_RUNS ?? 5000);
 const ROUNDS = Number(process.env.SEASON_BENCH_ROUNDS ?? 40);
@@ -54,7 +55,7 @@ try {
   console.log(`        runs table, first page sorted by result: p95 ${ms(page!)} = ${(page! / count!).toFixed(1)}× the COUNT(*)`);
 
   if (process.env.SEASON_BENCH_HTTP === "0") process.exit(0); // the database part only (no build needed)
-  const { base, server } = await startServer();
+  const { base, server } = await startServer("/api/health");
   try {
     const cookie = await signIn(base, email, PASSWORD);
     const [http] = await timedInTurns([async () => {
