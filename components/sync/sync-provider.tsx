@@ -1,7 +1,7 @@
 "use client";
 
-import { useSession } from "next-auth/react";
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
+import { useSessionState } from "@/components/auth/session-state";
 import { switchDeviceUser } from "@/lib/offline/device-user";
 import type { SyncClient, SyncStatus } from "@/lib/offline/sync-client";
 import { useOnline } from "./use-online";
@@ -27,9 +27,9 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   const [status, setStatus] = useState<SyncStatus | null>(null);
   // Bumped when another account signs in here: the pages below remount on its database.
   const [generation, setGeneration] = useState(0);
-  const { data: session, status: authStatus } = useSession();
+  const { user, status: authStatus } = useSessionState();
   // Signed-out pages call no signed-in API: sync starts once the session is known to be signed
-  // in — or, offline (next-auth cannot ask the server, so it says "unauthenticated"), straight
+  // in — or, offline (the session cannot be asked for, so it says "unauthenticated"), straight
   // away, so a field page opened with no signal still syncs when the signal returns.
   const online = useOnline();
   // once started it stays started: the signal returning must not stop a client started offline
@@ -53,7 +53,6 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     return runtime.startSync(client);
   }, [client, started, runtime]);
 
-  const user = session?.user;
   useEffect(() => {
     if (authStatus !== "authenticated" || !user?.id || !runtime || !client) return;
     // Another account signed in (rare): the stored choice changed outside React, so the client
@@ -67,7 +66,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       follow();
       return; // this effect runs again with the new client
     }
-    const profile = { id: user.id, name: user.name ?? "", email: user.email ?? "" };
+    const profile = { id: user.id, name: user.name, email: user.email };
     void runtime.keepProfile(profile, follow).catch(() => undefined);
     // signed in again after the server said 401: leave the signed-out state and sync
     if (client.status().state === "signed-out") void client.resume();

@@ -1,7 +1,7 @@
 "use client";
 
-import { useSession } from "next-auth/react";
 import { useState } from "react";
+import { useSessionState } from "@/components/auth/session-state";
 import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { accountRequest, signOutHere } from "./account-request";
@@ -16,10 +16,9 @@ import { EmailSettings } from "./email-settings";
  */
 export function AccountSettings() {
   const { client } = useSync();
-  const { data: session, status } = useSession();
+  const { user, status } = useSessionState();
   const [error, setError] = useState<string | null>(null);
   if (status === "loading") return <p className="text-muted">Loading your account…</p>;
-  const user = session?.user;
   if (!user?.email) return <p className="text-muted">Sign in (with a connection) to manage your account.</p>;
 
   async function signOutEverywhere() {
