@@ -9,6 +9,15 @@ export function FormError({ message }: { message: string | null | undefined }) {
   );
 }
 
+/** A control's own refusal, under it (nothing while there is none). */
+export function InlineError({ message }: { message: string | null | undefined }) {
+  return message ? (
+    <span role="alert" className="text-sm font-semibold text-danger">
+      {message}
+    </span>
+  ) : null;
+}
+
 /** The foot of a one-button form: its message, then the full-width submit button (busy while sending). */
 export function FormFooter({ error, submitting, label, busyLabel }: { error: string | null | undefined; submitting: boolean; label: string; busyLabel: string }) {
   return (

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { sendJson } from "../../_components/send-json";
+import { InlineError } from "@/components/ui/form-footer";
 
 type Props = {
   url: string;
@@ -38,11 +39,7 @@ export function ActionButton({ url, method, body, label, confirm, then, classNam
       <button type="button" onClick={act} disabled={busy} className={`min-h-12 rounded-lg border-2 border-ink px-3 font-bold disabled:opacity-50 ${className}`}>
         {busy ? "Working…" : label}
       </button>
-      {error ? (
-        <span role="alert" className="text-sm font-semibold text-danger">
-          {error}
-        </span>
-      ) : null}
+      <InlineError message={error} />
     </span>
   );
 }

@@ -5,6 +5,7 @@ import { useState } from "react";
 import { CLUB_ROLES } from "@/lib/validations/clubs";
 import { ROLE_LABEL, type ClubRole } from "@/lib/clubs/roles";
 import { sendJson } from "../../_components/send-json";
+import { InlineError } from "@/components/ui/form-footer";
 
 /** An officer's choice of a member's role; the change is sent at once and refused with a sentence (e.g. the last officer). */
 export function RoleSelect({ slug, userId, name, role }: { slug: string; userId: string; name: string; role: ClubRole }) {
@@ -35,11 +36,7 @@ export function RoleSelect({ slug, userId, name, role }: { slug: string; userId:
           </option>
         ))}
       </select>
-      {error ? (
-        <span role="alert" className="text-sm font-semibold text-danger">
-          {error}
-        </span>
-      ) : null}
+      <InlineError message={error} />
     </span>
   );
 }
