@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { LoggerMapping } from "@/lib/altimeter/mapping";
+import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
 import { altimeterLogs, launchHeights, loggerMappings, runLanes, runs } from "../schema";
 
@@ -42,7 +43,7 @@ export async function deleteLog(db: Database, logId: string): Promise<void> {
 /** The lane's flights as last derived, and its model choices (undone ones left out), on the corrected clock. */
 export async function laneFlightsAndModels(db: Database, p: { runId: string; lane: number }) {
   const [row] = await db.select({ derived: runLanes.derived }).from(runLanes).where(and(eq(runLanes.runId, p.runId), eq(runLanes.lane, p.lane)));
-  const flights = ((row?.derived as { flights?: { index: number; launchMs: number; landMs: number | null; timeTenths: number }[] } | null)?.flights ?? []);
+  const flights = flightInstants(row?.derived);
   const choices = await db.execute<{ at_ms: number; model_id: string }>(sql`
     select e.corrected_ms as at_ms, e.body->>'modelId' as model_id from events e
     where e.run_id = ${p.runId} and e.kind = 'model' and (e.body->>'lane')::int = ${p.lane}

@@ -1,9 +1,10 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { ModelLane } from "@/lib/hangar/stats";
+import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
 
-type Row = { run_id: string; lane: number; task_code: string; derived: { flights?: ModelLane["flights"] } | null; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null };
+type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null };
 
 /**
  * The lanes a model flew in, as lib/hangar/stats.ts reads them: lanes whose pilot is the model's
@@ -29,7 +30,7 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
     where l.pilot_user_id = any(${owners}) or (l.pilot_user_id is null and r.created_by = any(${owners}))`);
   return res.rows.map((r) => ({
     taskCode: r.task_code,
-    flights: r.derived?.flights ?? [],
+    flights: flightInstants(r.derived),
     choices: (r.choices ?? []).map((c) => ({ atMs: Number(c.atMs), modelId: c.modelId })),
     heights: new Map((r.heights ?? []).map((x) => [x.i, x.h])),
   }));

@@ -3,6 +3,7 @@ import { v7 as uuidv7 } from "uuid";
 import { detectLaunches } from "@/lib/altimeter/detect";
 import { matchLaunches } from "@/lib/altimeter/match";
 import { mulberry32 } from "@/lib/random";
+import { flightInstants, type FlightInstant } from "@/lib/results/flight-instants";
 import { deleteObject, newObjectKey } from "@/lib/storage/server/s3";
 import { putDemoObject } from "./put-object";
 import type { Database } from "../index";
@@ -40,14 +41,13 @@ export async function seedHangar(db: Database): Promise<void> {
     .innerJoin(fieldSessions, eq(fieldSessions.id, runs.sessionId))
     .innerJoin(runLanes, and(eq(runLanes.runId, runs.id), eq(runLanes.lane, 0)))
     .where(and(eq(fieldSessions.ownerId, ada.id), eq(runs.createdBy, ada.id))).orderBy(desc(runs.createdAt)).limit(12);
-  type Flights = { flights?: { index: number; launchMs: number; landMs: number | null }[] } | null;
-  const run = recent.find((r) => ((r.derived as Flights)?.flights?.length ?? 0) >= 3) ?? recent[0]; // a window with a few flights shows more
-  const flights = (run?.derived as Flights)?.flights ?? [];
+  const run = recent.find((r) => flightInstants(r.derived).length >= 3) ?? recent[0]; // a window with a few flights shows more
+  const flights = flightInstants(run?.derived);
   if (!run || flights.length === 0) return;
-  // the strip's times run from the start signal; the event is stamped in wall time, between the start and the first launch
+  // stamped between the run's first event and its first launch (corrected clock), never before the run began
   const [first] = await db.select({ wallMs: sql<number>`min(${events.wallMs})` }).from(events).where(eq(events.runId, run.id));
   if (first?.wallMs == null) return;
-  const choiceAt = Math.round(Number(first.wallMs) + flights[0]!.launchMs / 2);
+  const choiceAt = Math.round((Number(first.wallMs) + flights[0]!.launchAtMs) / 2);
   const body = { kind: "model", lane: 0, modelId: heron.id };
   await db.insert(events).values({
     id: uuidv7({ msecs: choiceAt }), runId: run.id, deviceId: "demo-phone-ada", seq: 100_000, recordedBy: ada.id, kind: "model", body,
@@ -58,7 +58,7 @@ export async function seedHangar(db: Database): Promise<void> {
   const objectKey = newObjectKey(`logs/${run.id}`);
   await putDemoObject(objectKey, csv.text);
   try {
-    const matched = matchLaunches(detectLaunches(csv.samples), flights.map((f) => ({ id: String(f.index), atMs: f.launchMs })));
+    const matched = matchLaunches(detectLaunches(csv.samples), flights.map((f) => ({ id: String(f.index), atMs: f.launchAtMs })));
     await db.transaction(async (tx) => {
       const [log] = await tx.insert(altimeterLogs).values({
         ownerId: ada.id, runId: run.id, lane: 0, objectKey, fileName: "heron-evening.csv", loggerName: "Pocket logger", sizeBytes: csv.text.length, status: "parsed", samples: csv.samples.length,
@@ -76,10 +76,10 @@ export async function seedHangar(db: Database): Promise<void> {
 }
 
 /** An invented 5 Hz log of these flights: a 3 s zoom to 40–75 m, a glide down to the landing; the logger's clock 3 s behind. */
-function demoTrace(flights: { launchMs: number; landMs: number | null }[], seed: number) {
+function demoTrace(flights: readonly FlightInstant[], seed: number) {
   const rnd = mulberry32(seed);
-  const shaped = flights.map((f) => ({ at: f.launchMs, peak: f.launchMs + 3000, land: Math.max(f.landMs ?? f.launchMs + 40_000, f.launchMs + 8000), h: 40 + rnd() * 35 }));
-  const from = flights[0]!.launchMs - 60_000;
+  const shaped = flights.map((f) => ({ at: f.launchAtMs, peak: f.launchAtMs + 3000, land: Math.max(f.landAtMs ?? f.launchAtMs + 40_000, f.launchAtMs + 8000), h: 40 + rnd() * 35 }));
+  const from = flights[0]!.launchAtMs - 60_000;
   const to = shaped[shaped.length - 1]!.land + 30_000;
   const samples: { tMs: number; hM: number }[] = [];
   for (let t = from; t <= to; t += 200) {

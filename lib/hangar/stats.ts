@@ -5,7 +5,8 @@
  */
 export type ModelLane = {
   taskCode: string;
-  flights: { index: number; launchMs: number; landMs: number | null; timeTenths: number }[];
+  /** The lane's flights on the corrected clock, like the choices (lib/results/flight-instants.ts). */
+  flights: { index: number; launchAtMs: number; landAtMs: number | null; timeTenths: number }[];
   /** The lane's model choices on the corrected clock. */
   choices: { atMs: number; modelId: string }[];
   /** Launch heights by flight index. */
@@ -43,16 +44,16 @@ export function modelStats(modelId: string, lanes: readonly ModelLane[]): ModelS
   let flights = 0;
   let lastFlownMs: number | null = null;
   for (const lane of lanes) {
-    const sorted = [...lane.flights].sort((a, b) => a.launchMs - b.launchMs);
+    const sorted = [...lane.flights].sort((a, b) => a.launchAtMs - b.launchAtMs);
     sorted.forEach((f, i) => {
-      if (modelAt(lane.choices, f.launchMs) !== modelId) return;
+      if (modelAt(lane.choices, f.launchAtMs) !== modelId) return;
       flights++;
-      lastFlownMs = Math.max(lastFlownMs ?? 0, f.landMs ?? f.launchMs);
+      lastFlownMs = Math.max(lastFlownMs ?? 0, f.landAtMs ?? f.launchAtMs);
       byTask.set(lane.taskCode, [...(byTask.get(lane.taskCode) ?? []), f.timeTenths]);
       const h = lane.heights.get(f.index);
       if (h !== undefined) heights.push(h);
       const next = sorted[i + 1];
-      if (next && f.landMs !== null && modelAt(lane.choices, next.launchMs) === modelId) turnarounds.push(next.launchMs - f.landMs);
+      if (next && f.landAtMs !== null && modelAt(lane.choices, next.launchAtMs) === modelId) turnarounds.push(next.launchAtMs - f.landAtMs);
     });
   }
   return {

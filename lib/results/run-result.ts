@@ -94,7 +94,7 @@ export function runResult(input: DerivationInput): RunResult {
         },
         source: chosen && { deviceId: chosen.deviceId, official: chosen.official },
         flights: laneScore.flights.map((f) => ({
-          index: f.index, launchMs: f.launchMs, landMs: f.landMs, status: f.status, reason: f.reason,
+          index: f.index, launchMs: f.launchMs, landMs: f.landMs, launchAtMs: f.launchAtMs, landAtMs: f.landAtMs, status: f.status, reason: f.reason,
           timeTenths: f.timeTenths, creditedTenths: f.creditedTenths, targetSec: f.targetSec,
         })),
         breakdown: chosen ? pointsLost(input.task, laneScore) : null,

@@ -44,8 +44,12 @@ export type Source = {
 /** A flight as the run page draws it (times relative to working-time start; corrected clock). */
 export type DerivedFlight = {
   index: number;
+  /** From the start of working time (task C: from its attempt's signal), as the strip draws it. */
   launchMs: number;
   landMs: number | null;
+  /** The same instants on the run's corrected clock (epoch ms): what logs and model choices are matched to. */
+  launchAtMs: number;
+  landAtMs: number | null;
   status: string;
   reason: string | null;
   timeTenths: number;

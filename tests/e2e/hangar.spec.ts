@@ -34,10 +34,7 @@ const localInput = (page: Page, ms: number) =>
     return `${d.getFullYear()}-${p(d.getMonth() + 1)}-${p(d.getDate())}T${p(d.getHours())}:${p(d.getMinutes())}:${p(d.getSeconds())}`;
   }, ms);
 
-// Known failure, kept visible (issue 13 stays open): in the merged build the uploaded log's two launches
-// are found but none is matched to the run's flights ("2 launches found, 0 matched"); the matching on
-// corrected time or the "Log started at" conversion needs fixing before this runs again.
-test.fixme("a pilot adds a model, flies a window with it, uploads a log and sees launch heights; another pilot gets 404", async ({ page, baseURL, browser }) => {
+test("a pilot adds a model, flies a window with it, uploads a log and sees launch heights; another pilot gets 404", async ({ page, baseURL, browser }) => {
   const email = await signUpByApi(page.request, baseURL, "Hangar Pilot", "hangar", PASSWORD);
   await signInAs(page, email, PASSWORD);
 

@@ -19,10 +19,16 @@ export async function storedKeys(prefix: string): Promise<string[]> {
   return (out.Contents ?? []).map((o) => o.Key ?? "");
 }
 
-/** Gives a lane derived flights launched at these instants (60 s each) — what deriveAndStoreRuns would store. */
+/**
+ * Gives a lane derived flights launched at these corrected instants (60 s each), shaped as
+ * deriveAndStoreRuns stores them: launchMs/landMs from the working-time signal (here the first
+ * launch minus 10 s), launchAtMs/landAtMs on the corrected clock.
+ */
 export async function setLaneFlights(runId: string, lane: number, launches: number[]): Promise<void> {
-  const flights = launches.map((launchMs, index) => ({
-    index, launchMs, landMs: launchMs + 60_000, status: "counted", reason: null, timeTenths: 600, creditedTenths: 600, targetSec: null,
+  const signalMs = (launches[0] ?? 0) - 10_000;
+  const flights = launches.map((at, index) => ({
+    index, launchMs: at - signalMs, landMs: at + 60_000 - signalMs, launchAtMs: at, landAtMs: at + 60_000,
+    status: "counted", reason: null, timeTenths: 600, creditedTenths: 600, targetSec: null,
   }));
   await db.update(runLanes).set({ derived: { flights } }).where(and(eq(runLanes.runId, runId), eq(runLanes.lane, lane)));
 }

@@ -18,9 +18,9 @@ describe("a model's record (lib/hangar/stats.ts)", () => {
     taskCode: "A",
     // launches at 10 s, 100 s, 200 s; swapped to B at 150 s
     flights: [
-      { index: 0, launchMs: 10_000, landMs: 70_000, timeTenths: 600 },
-      { index: 1, launchMs: 100_000, landMs: 140_000, timeTenths: 400 },
-      { index: 2, launchMs: 200_000, landMs: 290_000, timeTenths: 900 },
+      { index: 0, launchAtMs: 10_000, landAtMs: 70_000, timeTenths: 600 },
+      { index: 1, launchAtMs: 100_000, landAtMs: 140_000, timeTenths: 400 },
+      { index: 2, launchAtMs: 200_000, landAtMs: 290_000, timeTenths: 900 },
     ],
     choices: [{ atMs: 0, modelId: A }, { atMs: 150_000, modelId: B }],
     heights: new Map([[0, 52.5], [1, 48], [2, 61]]),

@@ -39,7 +39,7 @@ export const POST = route(async (request: Request, context: Context) => {
   const run = await laneFlightsAndModels(db, { runId: log.runId, lane: log.lane });
   let samples;
   try {
-    samples = parseAltimeterCsv(text, upload, run.flights[0]?.launchMs ?? log.createdAt.getTime());
+    samples = parseAltimeterCsv(text, upload, run.flights[0]?.launchAtMs ?? log.createdAt.getTime());
   } catch (e) {
     if (e instanceof LogFileError) {
       const issue = { path: e.line ? `line ${e.line}${e.column ? `, column ${e.column}` : ""}` : "file", message: e.message };
@@ -47,7 +47,7 @@ export const POST = route(async (request: Request, context: Context) => {
     }
     throw e;
   }
-  const matched = matchLaunches(detectLaunches(samples), run.flights.map((f) => ({ id: String(f.index), atMs: f.launchMs })));
+  const matched = matchLaunches(detectLaunches(samples), run.flights.map((f) => ({ id: String(f.index), atMs: f.launchAtMs })));
   const mine = new Set((await listModels(db, { ownerId: user.id })).map((m) => m.id));
   const heights = matched.launches.map((l) => {
     const modelId = modelAt(run.choices, l.correctedMs);

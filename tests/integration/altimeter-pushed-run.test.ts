@@ -1,0 +1,74 @@
+import "./support/session";
+import { afterAll, describe, expect, it } from "vitest";
+import { POST as presign } from "@/app/api/runs/[runId]/logs/route";
+import { POST as complete } from "@/app/api/logs/[logId]/complete/route";
+import { GET as getModelRoute } from "@/app/api/models/[modelId]/route";
+import { createModel } from "@/db/queries/models";
+import { listPilotLaunchHeights } from "@/db/queries/altimeter";
+import { db, freshUser, getPool } from "./support/db";
+import { pushingAs, recorder, T0 } from "./sync-fixtures";
+
+/**
+ * A log matched against a run as a phone pushes it (the server derives the lane's flights from the
+ * events), not against flights written into the database by hand: the derived flights time their
+ * launches from the working-time signal, the log and the model choices are on the corrected wall
+ * clock. The phone's clock runs 7 s behind the server's (its estimate says so).
+ */
+const HEIGHTS = [46, 63];
+const mapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds" as const, utcOffsetMin: 0, valueColumn: 2, valueKind: "m" as const };
+const json = (body: unknown) => new Request("http://test/api", { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
+
+/** A 10 Hz log in seconds from `startMs`: a 3 s zoom to each height, a glide down to the landing. */
+function csvOf(startMs: number, flights: { launch: number; land: number }[]): string {
+  const rows = ["seconds,altitude_m"];
+  for (let t = startMs; t <= flights.at(-1)!.land + 15_000; t += 100) {
+    const i = flights.findIndex((f) => t >= f.launch && t < f.land);
+    const f = flights[i];
+    let h = 0;
+    if (f) h = t <= f.launch + 3000 ? HEIGHTS[i]! * (1 - ((f.launch + 3000 - t) / 3000) ** 2) : HEIGHTS[i]! * (1 - (t - f.launch - 3000) / (f.land - f.launch - 3000));
+    rows.push(`${((t - startMs) / 1000).toFixed(1)},${h.toFixed(1)}`);
+  }
+  return `${rows.join("\n")}\n`;
+}
+
+afterAll(async () => {
+  await getPool().end();
+});
+
+describe("a pushed run's launches are matched to the uploaded log", () => {
+  it("matches both launches on corrected time and credits the lane's model", async () => {
+    const pilot = await freshUser("logs-pushed");
+    const modelId = (await createModel(db, { ownerId: pilot.id, input: { name: "Pushed glider", spanMm: 1490, massG: 250, marking: "", notes: "", status: "flying" } })).id;
+    const { run: r, send } = pushingAs(pilot);
+    const phone = recorder(`pushed-${r.id}`, { thetaMs: 7000 });
+    const flights = [{ launch: T0 + 20_000, land: T0 + 30_000 }, { launch: T0 + 33_000, land: T0 + 43_000 }];
+    const events = [
+      phone.at(r.id, T0, { kind: "window-start" }),
+      phone.at(r.id, T0 + 5000, { kind: "model", lane: 0, modelId }),
+      ...flights.flatMap((f) => [phone.at(r.id, f.launch, { kind: "launch", lane: 0 }), phone.at(r.id, f.land, { kind: "landing", lane: 0 })]),
+      phone.at(r.id, T0 + 60_000, { kind: "run-end" }),
+    ];
+    const pushed = await send(events, { deviceId: phone.id });
+    expect(pushed.body.acks.every((a) => a.status === "applied")).toBe(true);
+
+    const startAtMs = T0 - 5000; // the time the pilot types in as "Log started at"
+    const csv = csvOf(startAtMs, flights);
+    const ask = await presign(json({ lane: 0, fileName: "evening.csv", sizeBytes: Buffer.byteLength(csv), contentType: "text/csv", loggerName: "Pocket", mapping, startAtMs }), { params: Promise.resolve({ runId: r.id }) });
+    expect(ask.status).toBe(201);
+    const { logId, url } = (await ask.json()) as { logId: string; url: string };
+    expect((await fetch(url, { method: "PUT", body: csv, headers: { "content-type": "text/csv" } })).status).toBe(200);
+    const res = await complete(json({ loggerName: "Pocket", mapping, startAtMs }), { params: Promise.resolve({ logId }) });
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { launches: { flightIndex: number | null; heightM: number; modelId: string | null; gapMs: number | null }[] };
+    expect(body.launches.map((l) => l.flightIndex)).toEqual([0, 1]);
+    body.launches.forEach((l, i) => expect(Math.abs(l.heightM - HEIGHTS[i]!)).toBeLessThanOrEqual(1.5));
+    expect(body.launches.map((l) => l.modelId)).toEqual([modelId, modelId]);
+    for (const l of body.launches) expect(Math.abs(l.gapMs!)).toBeLessThanOrEqual(500);
+
+    const model = (await (await getModelRoute(new Request("http://test"), { params: Promise.resolve({ modelId }) })).json()) as { stats: { flights: number; launches: number; bestLaunchM: number } };
+    expect(model.stats).toMatchObject({ flights: 2, launches: 2 });
+    expect(Math.abs(model.stats.bestLaunchM - 63)).toBeLessThanOrEqual(1.5);
+    const season = await listPilotLaunchHeights(db, { userId: pilot.id });
+    expect(season.map((s) => [s.flightIndex, s.modelId])).toEqual([[0, modelId], [1, modelId]]);
+  });
+});
