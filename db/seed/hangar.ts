@@ -64,8 +64,8 @@ export async function seedHangar(db: Database): Promise<void> {
         ownerId: ada.id, runId: run.id, lane: 0, objectKey, fileName: "heron-evening.csv", loggerName: "Pocket logger", sizeBytes: csv.text.length, status: "parsed", samples: csv.samples.length,
       }).returning();
       await tx.insert(launchHeights).values(matched.launches.map((l) => ({
-        logId: log!.id, runId: run.id, lane: 0, atMs: l.correctedMs, heightM: Math.round(l.heightM * 10) / 10,
-        flightIndex: l.eventId === null ? null : Number(l.eventId), gapMs: l.gapMs, modelId: heron.id,
+        logId: log!.id, runId: run.id, lane: 0, atMs: Math.round(l.correctedMs), heightM: Math.round(l.heightM * 10) / 10,
+        flightIndex: l.eventId === null ? null : Number(l.eventId), gapMs: l.gapMs === null ? null : Math.round(l.gapMs), modelId: heron.id,
       })));
       await tx.insert(loggerMappings).values({ ownerId: ada.id, loggerName: "Pocket logger", mapping: DEMO_MAPPING });
     });

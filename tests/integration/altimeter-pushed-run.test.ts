@@ -12,7 +12,7 @@ import { pushingAs, recorder, T0 } from "./sync-fixtures";
  * A log matched against a run as a phone pushes it (the server derives the lane's flights from the
  * events), not against flights written into the database by hand: the derived flights time their
  * launches from the working-time signal, the log and the model choices are on the corrected wall
- * clock. The phone's clock runs 7 s behind the server's (its estimate says so).
+ * clock. The phone's clock runs 7 s behind the server's (its estimate says so, to a fraction of a ms).
  */
 const HEIGHTS = [46, 63];
 const mapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds" as const, utcOffsetMin: 0, valueColumn: 2, valueKind: "m" as const };
@@ -40,7 +40,8 @@ describe("a pushed run's launches are matched to the uploaded log", () => {
     const pilot = await freshUser("logs-pushed");
     const modelId = (await createModel(db, { ownerId: pilot.id, input: { name: "Pushed glider", spanMm: 1490, massG: 250, marking: "", notes: "", status: "flying" } })).id;
     const { run: r, send } = pushingAs(pilot);
-    const phone = recorder(`pushed-${r.id}`, { thetaMs: 7000 });
+    // the estimate has a fraction of a millisecond, as a real clock filter gives: corrected instants are not whole
+    const phone = recorder(`pushed-${r.id}`, { thetaMs: 7000, estimate: { thetaMs: 7000.272, deltaMs: 20, measuredAtWallMs: T0 - 60_000 } });
     const flights = [{ launch: T0 + 20_000, land: T0 + 30_000 }, { launch: T0 + 33_000, land: T0 + 43_000 }];
     const events = [
       phone.at(r.id, T0, { kind: "window-start" }),

@@ -52,7 +52,8 @@ export const POST = route(async (request: Request, context: Context) => {
   const heights = matched.launches.map((l) => {
     const modelId = modelAt(run.choices, l.correctedMs);
     return {
-      atMs: l.correctedMs, heightM: Math.round(l.heightM * 10) / 10, flightIndex: l.eventId === null ? null : Number(l.eventId), gapMs: l.gapMs,
+      // corrected instants carry fractions of a millisecond (clock offsets); the columns hold whole ones
+      atMs: Math.round(l.correctedMs), heightM: Math.round(l.heightM * 10) / 10, flightIndex: l.eventId === null ? null : Number(l.eventId), gapMs: l.gapMs === null ? null : Math.round(l.gapMs),
       modelId: modelId && mine.has(modelId) ? modelId : null,
     };
   });
