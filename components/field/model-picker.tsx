@@ -1,8 +1,12 @@
 "use client";
 
-import { useEffect, useRef, useState } from "react";
+import { useLiveQuery } from "dexie-react-hooks";
+import { useEffect, useRef } from "react";
 import type { RunEvent } from "@/lib/events/schema";
+import { getWindowcallDb } from "@/lib/offline/db";
 import { cachedModels, lastModel, refreshModels, rememberModel, type CachedModel } from "@/lib/offline/models-cache";
+
+const NONE: readonly CachedModel[] = [];
 
 type Props = { lane: number; laneLabel: string; userId: string; events: readonly RunEvent[]; open: boolean; onPick: (modelId: string) => Promise<boolean> };
 
@@ -19,11 +23,11 @@ export function currentModel(events: readonly RunEvent[], lane: number): string 
  * lane has none yet; a change mid-window is a new "model" event (a swap), so each launch knows its model.
  */
 export function ModelPicker({ lane, laneLabel, userId, events, open, onPick }: Props) {
-  const [models, setModels] = useState<CachedModel[]>(() => cachedModels(userId));
+  const models = useLiveQuery(() => cachedModels(getWindowcallDb()), [userId]) ?? NONE;
   const current = currentModel(events, lane);
   const preselected = useRef(false);
   useEffect(() => {
-    void refreshModels(userId).then(setModels);
+    void refreshModels(getWindowcallDb());
   }, [userId]);
   useEffect(() => {
     if (preselected.current || !open || current) return;

@@ -1,6 +1,6 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import { PULL_DEFAULT_LIMIT, readPullCursor, type PullReply } from "@/lib/validations/sync";
+import { PULL_DEFAULT_LIMIT, readPullCursor, type PulledModel, type PullReply } from "@/lib/validations/sync";
 import { FORGET_MAX, forgottenLanes, forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
@@ -78,7 +78,16 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
     if (lanes.length > 0) reply.forgetLanes = lanes;
   }
   if (forget.size > 0) reply.forget = [...forget].slice(0, FORGET_MAX);
+  if (!hasMore) reply.models = await hangarOf(db, userId);
   return reply;
+}
+
+/** The user's own models for the phone's lane picker (pullReplySchema.models), in the hangar's order. */
+async function hangarOf(db: Executor, userId: string): Promise<PulledModel[]> {
+  const res = await db.execute<PulledModel>(sql`
+    select id::text as id, name, status from models where owner_id = ${userId}
+    order by case status when 'flying' then 0 when 'being-repaired' then 1 else 2 end, name`);
+  return res.rows;
 }
 
 /**

@@ -3,7 +3,7 @@ import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneConsent } from "@/lib/validations/consent";
-import type { LaneResult } from "@/lib/validations/sync";
+import type { LaneResult, PulledModel } from "@/lib/validations/sync";
 import { BASE_DB_NAME, currentDbName } from "./device-user";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 
@@ -66,6 +66,8 @@ export type MetaValues = {
   profile: { id: string; name: string; email: string };
   /** People who share a club with that user, cached while online (lanes can name them offline). */
   clubMates: { id: string; name: string }[];
+  /** That user's models (their hangar), as the last pull or /api/models gave them: the lanes offer them offline. */
+  models: PulledModel[];
   /** The fields of that user's clubs with their cautions, cached while online (the set-up form shows them offline). */
   clubFields: {
     id: string; name: string; clubName: string; latitude: number | null; longitude: number | null;

@@ -1,36 +1,32 @@
+import { getMeta, setMeta, type WindowcallDb } from "./db";
+import type { PulledModel } from "@/lib/validations/sync";
+
 /**
- * The pilot's hangar on the phone: the models fetched from /api/models whenever there is signal,
- * kept in localStorage per account so the field can offer them with none, and the model each
- * pilot flew last (preselected next time). A model choice itself is a "model" event of the run,
- * recorded and synced like every tap.
+ * The pilot's hangar on the phone: the account's device database keeps the list (meta "models"),
+ * written by every pull (pullReplySchema.models: so a second phone of the same pilot has the
+ * same models) and by a fetch of /api/models when the field opens with signal; the field offers
+ * them with none. The model each pilot flew last on this phone is a preference of the phone
+ * (localStorage). A model choice itself is a "model" event of the run, synced like every tap.
  */
-export type CachedModel = { id: string; name: string; status: string };
+export type CachedModel = PulledModel;
 
-const modelsKey = (userId: string) => `windowcall.hangar.models.${userId}`;
-const lastKey = (userId: string) => `windowcall.hangar.last-model.${userId}`;
-
-export function cachedModels(userId: string): CachedModel[] {
-  try {
-    const list = JSON.parse(localStorage.getItem(modelsKey(userId)) ?? "[]") as CachedModel[];
-    return Array.isArray(list) ? list.filter((m) => typeof m.id === "string" && typeof m.name === "string") : [];
-  } catch {
-    return [];
-  }
+export async function cachedModels(db: WindowcallDb): Promise<CachedModel[]> {
+  return (await getMeta(db, "models")) ?? [];
 }
 
-/** Fetches the hangar and keeps it; offline (or on any error) the cached list stays as it was. */
-export async function refreshModels(userId: string): Promise<CachedModel[]> {
+/** Fetches the hangar and keeps it; offline (or on any error) the kept list stays as it was. */
+export async function refreshModels(db: WindowcallDb): Promise<void> {
   try {
     const res = await fetch("/api/models", { cache: "no-store" });
-    if (!res.ok) return cachedModels(userId);
+    if (!res.ok) return;
     const { models } = (await res.json()) as { models: CachedModel[] };
-    const list = models.map((m) => ({ id: m.id, name: m.name, status: m.status }));
-    localStorage.setItem(modelsKey(userId), JSON.stringify(list));
-    return list;
+    await setMeta(db, "models", models.map((m) => ({ id: m.id, name: m.name, status: m.status })));
   } catch {
-    return cachedModels(userId);
+    // offline: the list from the last pull or fetch stays
   }
 }
+
+const lastKey = (userId: string) => `windowcall.hangar.last-model.${userId}`;
 
 export function lastModel(userId: string): string | null {
   return localStorage.getItem(lastKey(userId));

@@ -69,6 +69,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       await db.events.bulkPut(events);
       await setMeta(db, "pullCursor", nextCursor);
       if (scope !== undefined) await setMeta(db, "pullScope", scope);
+      if (r.value.models) await setMeta(db, "models", r.value.models);
     });
     stored += items.length;
     cursor = nextCursor;

@@ -3,6 +3,7 @@ import { clockEstimateSchema, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, runEventSche
 import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
+import { MODEL_STATUSES } from "./hangar";
 
 export { clockEstimateSchema };
 
@@ -156,6 +157,10 @@ export const pullItemSchema = z.discriminatedUnion("type", [
 ]);
 export type PullItem = z.infer<typeof pullItemSchema>;
 
+/** A model as the phone keeps it for the lane's picker. */
+export const pulledModelSchema = z.object({ id: z.string().uuid(), name: z.string().min(1).max(500), status: z.enum(MODEL_STATUSES) });
+export type PulledModel = z.infer<typeof pulledModelSchema>;
+
 // GET /api/sync/pull — reply
 export const pullReplySchema = z.object({
   items: z.array(pullItemSchema),
@@ -184,6 +189,12 @@ export const pullReplySchema = z.object({
    * When it changes, rows below the cursor may have become visible: the device pulls from 0 again.
    */
   scope: z.string().max(64).optional(),
+  /**
+   * The user's hangar as it is now (their own models, sold and retired ones too), on the last
+   * page of every pull: a second phone of the same pilot offers the same models on the field,
+   * offline. A whole list each time, so a model sold or deleted drops off the phone.
+   */
+  models: z.array(pulledModelSchema).max(10_000).optional(),
 });
 export type PullReply = z.infer<typeof pullReplySchema>;
 
