@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, lt, sql } from "drizzle-orm";
 import type { LoggerMapping } from "@/lib/altimeter/mapping";
 import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
@@ -34,6 +34,12 @@ export async function createPendingLog(db: Database, p: Omit<typeof altimeterLog
 export async function getOwnLog(db: Database, p: { ownerId: string; logId: string }): Promise<LogRow | null> {
   const [row] = await db.select().from(altimeterLogs).where(and(eq(altimeterLogs.id, p.logId), eq(altimeterLogs.ownerId, p.ownerId)));
   return row ?? null;
+}
+
+/** The owner's uploads still "pending" (never completed) that were asked for before `before`. */
+export async function listStalePendingLogs(db: Database, p: { ownerId: string; before: Date }): Promise<Pick<LogRow, "id" | "objectKey">[]> {
+  return db.select({ id: altimeterLogs.id, objectKey: altimeterLogs.objectKey }).from(altimeterLogs)
+    .where(and(eq(altimeterLogs.ownerId, p.ownerId), eq(altimeterLogs.status, "pending"), lt(altimeterLogs.createdAt, p.before)));
 }
 
 export async function deleteLog(db: Database, logId: string): Promise<void> {
