@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray, isNotNull, ne, notExists, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import {
-  accounts, coachGrants, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs,
+  accounts, coachGrants, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runDeletions, runLanes, runs,
   syncRejections, users, altimeterLogs, loggerMappings, models,
 } from "../schema";
 import { syncStamp } from "./sync-db";
@@ -16,6 +16,8 @@ export const DELETED_PILOT_NAME = "Deleted pilot";
  *   methods, sync rejections, its models, altimeter logs and logger mappings, its consent decisions, the practice plans it received, the coach notes it wrote, and every
  *   run in its own sessions that no other account flies in (events and lanes go with them), then
  *   its sessions left empty;
+ * - its id in the deletions of windows it could see (`run_deletions.seen_by`, and `deleted_by`
+ *   when it deleted the window): nobody is left to tell, and no row keeps the id;
  * - kept without the name: runs where another account flies a lane (with their session), lanes
  *   it flew in others' runs (the result stays under "Deleted pilot"), contest entries (results
  *   need them), events it recorded in kept runs, rows it created for a club;
@@ -46,6 +48,13 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
       .returning({ runId: runLanes.runId });
     const runIds = [...new Set(touched.map((t) => t.runId))];
     if (runIds.length) await tx.update(runs).set(syncStamp()).where(inArray(runs.id, runIds));
+    await tx
+      .update(runDeletions)
+      .set({
+        seenBy: sql`array_remove(${runDeletions.seenBy}, ${userId}::uuid)`,
+        deletedBy: sql`nullif(${runDeletions.deletedBy}, ${userId}::uuid)`,
+      })
+      .where(or(sql`${userId}::uuid = any(${runDeletions.seenBy})`, eq(runDeletions.deletedBy, userId)));
     await tx.update(contestEntries).set({ pilotName: DELETED_PILOT_NAME }).where(eq(contestEntries.pilotUserId, userId));
     await tx.update(practicePlans).set({ coachId: null }).where(eq(practicePlans.coachId, userId));
     await tx.delete(practicePlans).where(eq(practicePlans.pilotId, userId));

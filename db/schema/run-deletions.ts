@@ -7,7 +7,8 @@ import { writtenByXact } from "./xid";
  * (db/queries/run-discard.ts). The run, its lanes and events are gone; this row remains so that
  * every phone that pulled the run drops it at its next pull (a pull's `forget`). `seenBy` holds
  * who could see the run when it was deleted (session owner, recorder, pilots with an account,
- * their coaches): ids only, no foreign keys, so deleting one of those accounts changes nothing here.
+ * their coaches): ids only, no foreign keys;
+ * deleting one of those accounts takes its id out (db/queries/account-delete.ts).
  */
 export const runDeletions = pgTable(
   "run_deletions",

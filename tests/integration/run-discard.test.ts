@@ -7,6 +7,7 @@ import { events, runDeletions, runs } from "@/db/schema";
 import { listChanges } from "@/db/queries/sync-pull";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { GET as pullRoute } from "@/app/api/sync/pull/route";
+import { deleteAccount } from "@/db/queries/account-delete";
 import { discardUnstartedRun } from "@/lib/offline/discard";
 import { createWindowcallDb, setMeta, type WindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
@@ -113,5 +114,22 @@ describe("deleting a window that was set up but never started (ours: issue 10)",
     const odd = await push({ ...body, discards: [{ id: "not-a-run" }] });
     expect(odd.status).toBe(200);
     expect(odd.body.acks).toEqual([{ id: "not-a-run", status: "rejected", reason: expect.stringMatching(/^Invalid deletion: id/) }]);
+  });
+  it("deleting an account takes its id out of the deletions it could see (seen_by, deleted_by)", async () => {
+    const [tobi, ada] = (await freshClub(["Tobi", "Ada"])) as [MockSessionUser, MockSessionUser];
+    const tobisPhone = await phone(tobi);
+    const run = await setUpWindow(tobisPhone.device, tobi, ada);
+    await tobisPhone.sync();
+    expect(await discardUnstartedRun(tobisPhone.device, run.id)).toBe("deleted");
+    await tobisPhone.sync();
+    const row = async () => (await db.select().from(runDeletions).where(eq(runDeletions.runId, run.id)))[0]!;
+    expect((await row()).seenBy.sort()).toEqual([tobi.id, ada.id].sort());
+
+    expect(await deleteAccount(db, ada.id)).toBe(true);
+    expect(await row()).toMatchObject({ seenBy: [tobi.id], deletedBy: tobi.id });
+    expect(await deleteAccount(db, tobi.id)).toBe(true);
+    expect(await row()).toMatchObject({ seenBy: [], deletedBy: null });
+    // the row itself stays: a replayed deletion of the run still finds it and is answered "applied"
+    expect((await listChanges(db, { userId: tobi.id, cursor: "0" })).forget ?? []).not.toContain(run.id);
   });
 });

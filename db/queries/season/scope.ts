@@ -28,7 +28,8 @@ function filterWhere(f: SeasonFilters): SQL {
  *   window was started), within the filters; with the server's stored result (run_lanes, derived
  *   by lib/results runResult on every push — never recomputed here);
  * - `season_flights`: those lanes' derived flights, each with the ground time since the lane's
- *   previous landing (`ground_ms`: null for the first flight or when the previous one never landed).
+ *   previous landing (`ground_ms`: null for the first flight or when the previous one never landed),
+ *   as stored at derive time in `lane_flights` (db/schema/lane-flights.ts), not unpacked from JSON here.
  * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
  */
 export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
@@ -36,7 +37,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
     with season_lanes as materialized (
       select r.id as run_id, l.lane, r.task_code, r.created_at, s.field_name,
         l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
-        l.season_flights as flights, ${contest} as contest,
+        (select count(*) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane)::int as flight_count, ${contest} as contest,
         ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
         (l.season_breakdown ->> 'lostTenths')::int as lost_tenths, coalesce((l.season_breakdown ->> 'penaltyPoints')::int, 0) as penalty_points
       from run_lanes l
@@ -49,14 +50,9 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
         and ${filterWhere(f)}
     ), season_flights as materialized (
       select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name,
-        f."index" as flight_index, f."launchMs" as launch_ms, f."landMs" as land_ms, f.status,
-        f."timeTenths" as time_tenths, f."creditedTenths" as credited_tenths, f."targetSec" as target_sec,
-        -- the derived flights are in flight order, so the previous landing is the array's previous element (no sort)
-        case when f.ord > 1 then f."launchMs" - (sl.flights -> (f.ord::int - 2) ->> 'landMs')::float8 end as ground_ms
+        f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec, f.ground_ms
       from season_lanes sl
-      cross join lateral rows from (jsonb_to_recordset(coalesce(sl.flights, '[]'::jsonb))
-        as ("index" int, "launchMs" float8, "landMs" float8, status text, "timeTenths" int, "creditedTenths" int, "targetSec" int)) with ordinality
-        as f("index", "launchMs", "landMs", status, "timeTenths", "creditedTenths", "targetSec", ord)
+      join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
     )`;
 }
 

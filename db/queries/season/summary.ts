@@ -39,7 +39,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
     )
     select json_build_object(
       'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
-      'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(jsonb_array_length(coalesce(flights, '[]'))), 0)::int) from season_lanes),
+      'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(flight_count), 0)::int) from season_lanes),
       'months', (select json_object_agg(which, json_build_object('start', to_char(start at time zone 'UTC', 'YYYY-MM-DD'), 'runs', runs, 'flights', flights, 'share', share, 'turnaroundTenths', turnaround)) from months),
       'bests', coalesce((select json_agg(b order by b.task) from (
           select distinct on (sl.task_code) sl.task_code as task, sl.result_tenths as "resultTenths", sl.max_tenths as "maxTenths",
@@ -62,7 +62,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
           from season_flights where land_ms is not null group by 1) h), '[]'),
       'launchesByWeek', coalesce((select json_agg(x order by x.week) from (
           select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week, count(*)::int as windows,
-            sum(jsonb_array_length(coalesce(sl.flights, '[]')))::int as launches
+            sum(sl.flight_count)::int as launches
           from season_lanes sl group by 1) x), '[]'),
       'lostByWeek', coalesce((select json_agg(x order by x.week) from (
           select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week,

@@ -9,7 +9,7 @@ type Paging<S extends string> = { sort: S; dir: "asc" | "desc"; page: number; si
 
 const RUN_ORDER: Record<(typeof RUN_SORTS)[number], SQL> = {
   date: sql`sl.created_at`, field: sql`sl.field_name`, task: sql`sl.task_code`, result: sql`sl.result_tenths`,
-  share: sql`${shareOf}`, flights: sql`jsonb_array_length(coalesce(sl.flights, '[]'))`,
+  share: sql`${shareOf}`, flights: sql`sl.flight_count`,
 };
 const FLIGHT_ORDER: Record<(typeof FLIGHT_SORTS)[number], SQL> = {
   date: sql`f.created_at`, task: sql`f.task_code`, duration: sql`f.time_tenths`, credited: sql`f.credited_tenths`, turnaround: sql`f.ground_ms`,
@@ -34,7 +34,7 @@ export async function listSeasonRuns(
     select json_build_object('total', (select count(*)::int from season_lanes), 'rows', (select json_agg(x) from (
       select sl.run_id as "runId", sl.lane, sl.created_at as at, sl.field_name as field, sl.task_code as task,
         sl.result_tenths as "resultTenths", sl.max_tenths as "maxTenths", ${shareOf} as share,
-        jsonb_array_length(coalesce(sl.flights, '[]'))::int as flights, sl.lost_tenths as "lostTenths",
+        sl.flight_count::int as flights, sl.lost_tenths as "lostTenths",
         sl.penalty_points as "penaltyPoints", sl.contest
       from season_lanes sl ${pageClause(order, paging, sql`sl.created_at desc, sl.run_id, sl.lane`)}) x)) as page`);
   const page = res.rows[0]!.page;
