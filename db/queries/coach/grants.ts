@@ -2,12 +2,9 @@ import "server-only";
 import { and, desc, eq, gt, isNull, ne, sql } from "drizzle-orm";
 import type { Database } from "../../index";
 import { coachGrants, coachInvites, users } from "../../schema";
+import type { PilotGrantRow } from "@/lib/coach/types";
 import { CODE_TTL_MS, EMAIL_OFFER_TTL_MS, hashCoachCode, newCoachCode } from "@/lib/coach/code";
 
-export type PilotGrantRow =
-  | { id: string; kind: "grant"; coachName: string; coachEmail: string; createdAt: string }
-  | { id: string; kind: "email"; email: string; createdAt: string; expiresAt: string }
-  | { id: string; kind: "code"; createdAt: string; expiresAt: string };
 
 /**
  * Who can see the pilot's season (Settings): coaches holding an unrevoked grant, and offers not

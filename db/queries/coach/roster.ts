@@ -1,18 +1,8 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
+import type { RosterPilot } from "@/lib/coach/types";
 
-export type RosterPilot = {
-  pilotId: string;
-  name: string;
-  /** start of the latest field session with a run that counts in the pilot's record; null if none */
-  lastSessionAt: string | null;
-  runsThisMonth: number;
-  /** mean result as a share of the task's maximum (0..1): the last 30 days, and the 30 before */
-  result: { recent: number | null; before: number | null };
-  /** median ground time from a landing to the next launch, in seconds: the last 30 days, and the 30 before */
-  turnaround: { recent: number | null; before: number | null };
-};
 
 /**
  * The coach's roster: each pilot granting them an unrevoked grant, with the figures above, all
