@@ -31,7 +31,7 @@ export default function SettingsPage() {
           <CoachAccess />
         </QueryProvider>
         <Link href="/coach" className="font-bold underline">
-          Coach desk: the pilots who let you see their season
+          Coach desk: pilots who let you see their season, or enter a pilot&apos;s code
         </Link>
       </SettingsSection>
       <SettingsSection id="account" title="Account">

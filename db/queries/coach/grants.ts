@@ -96,3 +96,13 @@ export async function holdsGrant(db: Database, coachId: string, pilotId: string)
     .where(and(eq(coachGrants.coachId, coachId), eq(coachGrants.pilotId, pilotId), isNull(coachGrants.revokedAt))).limit(1);
   return !!row;
 }
+
+/** Whether the user coaches anyone (an unrevoked grant, or an open e-mail offer to their address): Home then links the Coach desk. */
+export async function coachesAnyone(db: Database, user: { id: string; email: string }, now = new Date()): Promise<boolean> {
+  const [grant] = await db.select({ id: coachGrants.id }).from(coachGrants)
+    .where(and(eq(coachGrants.coachId, user.id), isNull(coachGrants.revokedAt))).limit(1);
+  if (grant) return true;
+  const [offer] = await db.select({ id: coachInvites.id }).from(coachInvites)
+    .where(and(eq(coachInvites.email, user.email.toLowerCase()), isNull(coachInvites.revokedAt), isNull(coachInvites.acceptedAt), gt(coachInvites.expiresAt, now))).limit(1);
+  return !!offer;
+}
