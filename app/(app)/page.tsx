@@ -3,6 +3,8 @@ import { redirect } from "next/navigation";
 import { Suspense } from "react";
 import { ButtonLink } from "@/components/ui/button";
 import { getSessionUser } from "@/lib/auth/session";
+import { db } from "@/db";
+import { coachesAnyone } from "@/db/queries/coach/grants";
 import { RecentSessions } from "./_components/recent-sessions";
 
 export const dynamic = "force-dynamic";
@@ -11,6 +13,7 @@ export const dynamic = "force-dynamic";
 export default async function HomePage() {
   const user = await getSessionUser();
   if (!user) redirect("/sign-in");
+  const coach = await coachesAnyone(db, user);
   return (
     <div className="space-y-6">
       <section aria-labelledby="hello" className="space-y-3">
@@ -20,6 +23,11 @@ export default async function HomePage() {
         <ButtonLink href="/field/new" className="w-full text-lg">
           Start a task window
         </ButtonLink>
+        {coach ? (
+          <Link href="/coach" className="block font-bold underline">
+            Coach desk: your pilots&apos; seasons
+          </Link>
+        ) : null}
         {user.role === "admin" ? (
           <Link href="/admin" className="block font-bold underline">
             Site administration

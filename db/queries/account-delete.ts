@@ -2,7 +2,7 @@ import "server-only";
 import { and, eq, inArray, isNotNull, ne, notExists, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import {
-  accounts, coachGrants, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runDeletions, runLanes, runs,
+  accounts, coachGrants, coachInvites, emailTokens, coachNotes, contestEntries, devices, fieldSessions, laneConsents, memberships, practicePlans, runDeletions, runLanes, runs,
   syncRejections, users, altimeterLogs, loggerMappings, models,
 } from "../schema";
 import { syncStamp } from "./sync-db";
@@ -59,6 +59,7 @@ export async function deleteAccount(db: Database, userId: string): Promise<boole
     await tx.update(practicePlans).set({ coachId: null }).where(eq(practicePlans.coachId, userId));
     await tx.delete(practicePlans).where(eq(practicePlans.pilotId, userId));
     await tx.delete(coachNotes).where(eq(coachNotes.coachId, userId));
+    await tx.delete(coachInvites).where(eq(coachInvites.pilotId, userId));
     await tx.delete(coachGrants).where(or(eq(coachGrants.pilotId, userId), eq(coachGrants.coachId, userId)));
     await tx.delete(memberships).where(eq(memberships.userId, userId));
     await tx.delete(devices).where(eq(devices.userId, userId));

@@ -1,4 +1,4 @@
-import { index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { fieldSessions } from "./sessions";
 import { users } from "./users";
 
@@ -41,4 +41,31 @@ export const altimeterTraces = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("altimeter_traces_session_id_idx").on(t.sessionId)],
+);
+
+/**
+ * A pilot's offer of their season to a coach, by e-mail or by a one-time code, before the coach
+ * takes it up: accepting turns it into a coach_grants row. An e-mail offer waits for the account
+ * with that address (existing or not: the pilot is never told which); a code offer is held only
+ * as its SHA-256 and expires.
+ */
+export const coachInvites = pgTable(
+  "coach_invites",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    pilotId: uuid("pilot_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    /** lower-case; null for a code offer */
+    email: text("email"),
+    /** hex SHA-256 of the code; null for an e-mail offer */
+    codeHash: text("code_hash"),
+    expiresAt: timestamp("expires_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+  },
+  (t) => [
+    index("coach_invites_pilot_id_idx").on(t.pilotId),
+    index("coach_invites_email_idx").on(t.email),
+    uniqueIndex("coach_invites_code_hash_uq").on(t.codeHash),
+  ],
 );

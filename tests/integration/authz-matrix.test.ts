@@ -2,7 +2,7 @@ import "./support/session";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { fieldSessions, mailQueue, runs } from "@/db/schema";
+import { coachInvites, fieldSessions, mailQueue, runs } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
@@ -97,11 +97,23 @@ const hangarRows: Record<string, Row> = {
   "GET /api/logs/[logId]/download": ownerOnly({ params: async (cast) => ({ logId: await insertLog(cast.owner.id, "parsed") }) }),
   "GET /api/logger-mappings": signedIn(),
 };
-/** A season route of the owner's (path pilotId = the owner): the owner reads it, anyone else finds nothing (404). */
+/** A season route of the owner's (path pilotId = the owner): the owner and the coach they grant read it, anyone else finds nothing (404). */
 const ownSeason = (query: string): Protected => ({
   ...ownerOnly({ query, params: async (cast) => ({ pilotId: cast.owner.id }) }),
-  expect: { ...everyone(404), signedOut: 401, owner: 200 },
+  expect: { ...everyone(404), signedOut: 401, owner: 200, coachWithGrant: 200 },
 });
+
+/** The coach's roster names the owner for the coach the owner grants, and for nobody else. */
+const rosterNamesOwner = async (ctx: Ctx, res: Response) => {
+  const { pilots } = (await res.json()) as { pilots: { pilotId: string }[] };
+  const named = pilots.some((p) => p.pilotId === ctx.cast.owner.id);
+  expect({ actor: ctx.actor, named }).toEqual({ actor: ctx.actor, named: ctx.actor === "coachWithGrant" });
+};
+/** An open offer of the owner's, by code, for the revoke row. */
+const ownersOffer = async (cast: Cast) => {
+  const [row] = await db.insert(coachInvites).values({ pilotId: cast.owner.id, codeHash: randomUUID(), expiresAt: new Date(Date.now() + 3600_000) }).returning();
+  return { grantId: row!.id };
+};
 
 const listsUsers = async (_ctx: Ctx, res: Response) => {
   const data = (await res.json()) as { users: { email: string }[]; total: number };
@@ -153,11 +165,17 @@ const ROWS: Record<string, Row> = {
     cast: "fresh",
     expect: { ...everyone(404), signedOut: 401, owner: 200 },
   },
-  // a pilot's season: only the pilot reads it for now (db/queries/season/access.ts); everyone else, admin and coach included, 404
+  // a pilot's season: the pilot and a coach holding their unrevoked grant (db/queries/season/access.ts); everyone else, admin included, 404
   "GET /api/pilots/[pilotId]/season": ownSeason(""),
   "GET /api/pilots/[pilotId]/season/runs": ownSeason("?sort=result&dir=asc&size=10"),
   "GET /api/pilots/[pilotId]/season/flights": ownSeason("?task=H&size=10"),
   "GET /api/pilots/[pilotId]/season/export": ownSeason("?what=runs"),
+  // the coach desk: grants are the signed-in pilot's own (no id but the grant's); a coach's roster lists only who grants them
+  "GET /api/coach-grants": signedIn(),
+  "POST /api/coach-grants": { ...signedIn({ body: () => ({ kind: "code" }) }), expect: { ...everyone(201), signedOut: 401 } },
+  "DELETE /api/coach-grants/[grantId]": { ...ownerOnly({ params: ownersOffer }), cast: "fresh", expect: { ...everyone(404), signedOut: 401, owner: 204 } },
+  "POST /api/coach/claim": { ...signedIn({ body: () => ({ code: "ZZZZ-ZZZZ" }) }), expect: { ...everyone(404), signedOut: 401 } },
+  "GET /api/coach/pilots": signedIn({ check: rosterNamesOwner }),
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),

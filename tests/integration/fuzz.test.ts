@@ -70,6 +70,10 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/pilots/[pilotId]/season/runs": { GET: "query" },
   "/api/pilots/[pilotId]/season/flights": { GET: "query" },
   "/api/pilots/[pilotId]/season/export": { GET: "query" },
+  "/api/coach-grants": { GET: "none", POST: "json" },
+  "/api/coach-grants/[grantId]": { DELETE: "none" },
+  "/api/coach/claim": { POST: "json" },
+  "/api/coach/pilots": { GET: "none" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -147,6 +151,9 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/members/[userId]")) return { role: "member" };
   if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
   if (path === "/api/invitations/accept") return { token };
+  // an offer of the fuzz user's season to an address; a code nobody issued (404, nothing written)
+  if (path === "/api/coach-grants") return { kind: "email", email: `fuzz-coach-${uuidv7()}@example.com` };
+  if (path === "/api/coach/claim") return { code: "ZZZZ-ZZZZ" };
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -292,7 +299,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

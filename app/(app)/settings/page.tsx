@@ -5,6 +5,8 @@ import { SignOutButton } from "./_components/sign-out-button";
 import { CalloutSettingsForm } from "./_components/callout-settings";
 import { AccountSettings } from "./_components/account-settings";
 import { SettingsSection } from "./_components/settings-section";
+import { CoachAccess } from "./_components/coach-access";
+import { QueryProvider } from "@/components/query/query-provider";
 
 export const metadata: Metadata = { title: "Settings" };
 
@@ -24,6 +26,14 @@ export default function SettingsPage() {
           Safety cautions
         </Link>
       </section>
+      <SettingsSection id="coaches" title="Coaches">
+        <QueryProvider>
+          <CoachAccess />
+        </QueryProvider>
+        <Link href="/coach" className="font-bold underline">
+          Coach desk: pilots who let you see their season, or enter a pilot&apos;s code
+        </Link>
+      </SettingsSection>
       <SettingsSection id="account" title="Account">
         <AccountSettings />
       </SettingsSection>

@@ -22,7 +22,7 @@ const NO_FILTERS: SeasonFilters = { kind: "all" };
  * A pilot's season: filters (kept in the address), headline, charts, the runs and flights tables
  * and the exports. `own` when the viewer is the pilot (offers "all my data").
  */
-export function SeasonClient({ pilotId, own }: { pilotId: string; own: boolean }) {
+export function SeasonClient({ pilotId, own, pilotName }: { pilotId: string; own: boolean; pilotName?: string }) {
   const params = useSearchParams();
   const router = useRouter();
   const path = usePathname();
@@ -45,12 +45,14 @@ export function SeasonClient({ pilotId, own }: { pilotId: string; own: boolean }
     const q = seasonFiltersQuery(next);
     latest.current.filters = next;
     latest.current.asked.add(q);
-    router.replace(q ? `${path}?${q}` : path, { scroll: false });
+    // a coach's view keeps the pilot in the address (/season?pilot=…)
+    const full = own ? q : [`pilot=${pilotId}`, q].filter(Boolean).join("&");
+    router.replace(full ? `${path}?${full}` : path, { scroll: false });
   };
 
   return (
     <div className="space-y-6">
-      <h1 className="text-2xl font-extrabold">Season</h1>
+      <h1 className="text-2xl font-extrabold">{own ? "Season" : `Season of ${pilotName ?? "a pilot"}`}</h1>
       <SeasonFilterBar
         filters={filters} fields={summary.data?.fields ?? []}
         onChange={(patch) => setFilters({ ...latest.current.filters, ...patch })} onClear={() => setFilters(NO_FILTERS)}

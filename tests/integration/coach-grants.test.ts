@@ -1,0 +1,86 @@
+import "./support/session";
+import { afterAll, describe, expect, it } from "vitest";
+import { GET as listGrants, POST as offer } from "@/app/api/coach-grants/route";
+import { DELETE as revoke } from "@/app/api/coach-grants/[grantId]/route";
+import { POST as claim } from "@/app/api/coach/claim/route";
+import { GET as roster } from "@/app/api/coach/pilots/route";
+import { GET as season } from "@/app/api/pilots/[pilotId]/season/route";
+import { actAs, type MockSessionUser } from "./support/session";
+import { freshUser, getPool } from "./support/db";
+import { insertOwnRun } from "./support/hangar-records";
+
+afterAll(async () => {
+  await getPool().end();
+});
+
+const json = (body: unknown) => new Request("http://test/api/coach-grants", { method: "POST", body: JSON.stringify(body) });
+const seasonOf = (pilotId: string) =>
+  season(new Request(`http://test/api/pilots/${pilotId}/season`), { params: Promise.resolve({ pilotId }) });
+const rosterIds = async () => ((await (await roster()).json()) as { pilots: { pilotId: string }[] }).pilots.map((p) => p.pilotId);
+
+async function grantsOf(user: MockSessionUser) {
+  actAs(user);
+  return ((await (await listGrants()).json()) as { grants: { id: string; kind: string; coachName?: string; email?: string }[] }).grants;
+}
+
+describe("a pilot grants a coach their season", () => {
+  it("by e-mail: the same reply for an address with or without an account; the coach gets in on opening the desk; revoking is a 404 at once", async () => {
+    const pilot = await freshUser("grant-pilot");
+    const coach = await freshUser("grant-coach");
+    actAs(pilot);
+    const known = await offer(json({ kind: "email", email: coach.email.toUpperCase() }));
+    const unknown = await offer(json({ kind: "email", email: `nobody-${coach.id}@example.com` }));
+    expect([known.status, unknown.status]).toEqual([201, 201]);
+    const shape = (b: { offer: Record<string, unknown> }) => Object.keys(b.offer).sort();
+    expect(shape(await known.json())).toEqual(shape(await unknown.json()));
+    expect((await grantsOf(pilot)).map((g) => g.kind)).toEqual(["email", "email"]);
+
+    actAs(coach);
+    expect((await seasonOf(pilot.id)).status).toBe(404); // an offer is not yet a grant
+    expect(await rosterIds()).toEqual([pilot.id]); // opening the desk takes the offer up
+    expect((await seasonOf(pilot.id)).status).toBe(200);
+
+    const grants = await grantsOf(pilot);
+    const held = grants.find((g) => g.kind === "grant");
+    expect(held).toMatchObject({ coachName: coach.name });
+    expect(grants.filter((g) => g.kind === "email")).toHaveLength(1);
+    const res = await revoke(new Request("http://test", { method: "DELETE" }), { params: Promise.resolve({ grantId: held!.id }) });
+    expect(res.status).toBe(204);
+    actAs(coach);
+    expect((await seasonOf(pilot.id)).status).toBe(404);
+    expect(await rosterIds()).toEqual([]);
+  });
+
+  it("by one-time code: good once, for someone else; a wrong code is a 404", async () => {
+    const pilot = await freshUser("code-pilot");
+    const coach = await freshUser("code-coach");
+    const other = await freshUser("code-other");
+    await insertOwnRun(pilot.id);
+    actAs(pilot);
+    const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { code: string } };
+    expect(made.code).toMatch(/^[A-Z2-9]{4}-[A-Z2-9]{4}$/);
+    const claimAs = (code: string) => claim(new Request("http://test/api/coach/claim", { method: "POST", body: JSON.stringify({ code }) }));
+    expect((await claimAs(made.code)).status).toBe(404); // the pilot's own code does nothing for the pilot
+    actAs(coach);
+    expect((await claimAs("AAAA-AAAA")).status).toBe(404);
+    expect((await claimAs(made.code.toLowerCase().replace("-", " "))).status).toBe(201);
+    expect((await seasonOf(pilot.id)).status).toBe(200);
+    actAs(other);
+    expect((await claimAs(made.code)).status).toBe(404); // used
+    expect((await seasonOf(pilot.id)).status).toBe(404);
+  });
+
+  it("refuses bad input with a 4xx and changes nothing; another pilot cannot revoke", async () => {
+    const pilot = await freshUser("bad-pilot");
+    actAs(pilot);
+    expect((await offer(json({ kind: "email", email: "not an address" }))).status).toBe(422);
+    expect((await offer(json({ kind: "email", email: pilot.email }))).status).toBe(422);
+    expect((await offer(json({ kind: "fax" }))).status).toBe(422);
+    const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { id: string } };
+    const stranger = await freshUser("bad-stranger");
+    actAs(stranger);
+    const res = await revoke(new Request("http://test", { method: "DELETE" }), { params: Promise.resolve({ grantId: made.id }) });
+    expect(res.status).toBe(404);
+    expect((await grantsOf(pilot)).map((g) => g.id)).toEqual([made.id]);
+  });
+});
