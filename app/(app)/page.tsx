@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { Suspense } from "react";
 import { ButtonLink } from "@/components/ui/button";
 import { getSessionUser } from "@/lib/auth/session";
+import { ComingContests } from "./_components/coming-contests";
 import { RecentSessions } from "./_components/recent-sessions";
 
 export const dynamic = "force-dynamic";
@@ -26,6 +27,9 @@ export default async function HomePage() {
           </Link>
         ) : null}
       </section>
+      <Suspense fallback={null}>
+        <ComingContests userId={user.id} />
+      </Suspense>
       <section aria-labelledby="recent" className="space-y-3">
         <h2 id="recent" className="text-lg font-bold">
           Recent sessions

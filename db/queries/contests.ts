@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { CreateContestInput } from "@/lib/validations/contests";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { TaskDefinition } from "@/lib/tasks/definition";
@@ -67,4 +67,14 @@ export async function listSlots(db: Database, contestId: string) {
   return db.select({ roundNumber: contestRounds.number, groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId })
     .from(groupSlots).innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
     .where(eq(contestRounds.contestId, contestId)).orderBy(asc(contestRounds.number), asc(groupSlots.groupNumber));
+}
+
+/** Coming contests (from `today`) of every club the user belongs to, soonest first, for Home. */
+export async function listMyComingContests(db: Database, p: { userId: string; today: string }) {
+  const res = await db.execute<{ id: string; name: string; starts_on: string; club_name: string }>(sql`
+    select c.id, c.name, c.starts_on::text as starts_on, k.name as club_name
+    from memberships m join contests c on c.club_id = m.club_id join clubs k on k.id = c.club_id
+    where m.user_id = ${p.userId} and c.starts_on >= ${p.today}
+    order by c.starts_on, c.name limit 10`);
+  return res.rows.map((r) => ({ id: r.id, name: r.name, startsOn: r.starts_on, clubName: r.club_name }));
 }

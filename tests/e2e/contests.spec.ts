@@ -25,7 +25,10 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
 
   const ada = await (await browser.newContext()).newPage();
   await signInAs(ada, "ada@example.com");
-  await ada.goto(url);
+  // Home lists the coming contests of Ada's club: the seeded one and this one
+  await expect(ada.getByRole("list", { name: "Coming contests" })).toContainText("Heronmoor Winter Cup");
+  await ada.getByRole("list", { name: "Coming contests" }).getByRole("link", { name }).click();
+  await expect(ada.getByRole("heading", { name })).toBeVisible();
   await ada.getByRole("button", { name: "Enter this contest" }).click();
   await expect(ada.getByText("You are entered.")).toBeVisible();
   await expect(ada.getByRole("button", { name: "Add the paper entry" })).toHaveCount(0);
