@@ -61,9 +61,9 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   await signInAs(quinn, "quinn@example.com");
   expect((await quinn.goto(url))?.status()).toBe(404);
   expect((await quinn.goto("/contests/new?club=heronmoor"))?.status()).toBe(404);
-  const api = await quinn.request.post(`${url.replace("/contests/", "/api/contests/")}/draw`, { data: {} });
+  const api = await quinn.request.post(`${url.replace("/contests/", "/api/contests/")}/draw`, { data: {}, headers: { origin: new URL(url).origin } });
   expect(api.status()).toBe(404);
   // a member who is not an officer: 404 on the set-up page and 403 on the officer routes
   expect((await ada.goto("/contests/new?club=heronmoor"))?.status()).toBe(404);
-  expect((await ada.request.post(`${url.replace("/contests/", "/api/contests/")}/draw`, { data: {} })).status()).toBe(403);
+  expect((await ada.request.post(`${url.replace("/contests/", "/api/contests/")}/draw`, { data: {}, headers: { origin: new URL(url).origin } })).status()).toBe(403);
 });
