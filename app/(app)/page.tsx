@@ -5,6 +5,7 @@ import { ButtonLink } from "@/components/ui/button";
 import { getSessionUser } from "@/lib/auth/session";
 import { db } from "@/db";
 import { coachesAnyone } from "@/db/queries/coach/grants";
+import { ComingContests } from "./_components/coming-contests";
 import { RecentSessions } from "./_components/recent-sessions";
 
 export const dynamic = "force-dynamic";
@@ -34,6 +35,9 @@ export default async function HomePage() {
           </Link>
         ) : null}
       </section>
+      <Suspense fallback={null}>
+        <ComingContests userId={user.id} />
+      </Suspense>
       <section aria-labelledby="recent" className="space-y-3">
         <h2 id="recent" className="text-lg font-bold">
           Recent sessions

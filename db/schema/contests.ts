@@ -1,4 +1,5 @@
-import { boolean, date, index, integer, jsonb, pgTable, smallint, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { boolean, date, index, integer, jsonb, pgTable, smallint, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { clubs } from "./clubs";
 import { contestStatusEnum, paymentStatusEnum } from "./enums";
 import { guestPilots, users } from "./users";
@@ -28,6 +29,18 @@ export const contests = pgTable(
     /** Entry fee in the smallest currency unit; null = free. */
     entryFeeCents: integer("entry_fee_cents"),
     currency: text("currency").notNull().default("eur"),
+    /** Largest group the officer can staff (lanes, timekeepers); lib/contests/groups.ts plans the sizes. */
+    maxGroupSize: smallint("max_group_size").notNull().default(10),
+    prepMinutes: smallint("prep_minutes").notNull().default(5),
+    noFlySeconds: smallint("no_fly_seconds").notNull().default(60),
+    /** "f3k": the lowest round dropped from 6 rounds flown (F3K.10); "none": every round counts. */
+    dropRule: text("drop_rule").notNull().default("f3k"),
+    /** A practice event: the rules' round checks only warn. */
+    practice: boolean("practice").notNull().default(false),
+    /** The draw's seed (printed with it), null until drawn; locked: no re-draw. */
+    drawSeed: integer("draw_seed"),
+    drawLockedAt: timestamp("draw_locked_at", { withTimezone: true }),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("contests_club_id_idx").on(t.clubId)],
@@ -45,8 +58,19 @@ export const contestEntries = pgTable(
     team: text("team"),
     paymentStatus: paymentStatusEnum("payment_status").notNull().default("pending"),
     paymentRef: text("payment_ref"),
+    /** Up to five models from the pilot's hangar (F3K.2.3): [{ id, name }] as entered. */
+    models: jsonb("models").$type<{ id: string | null; name: string }[]>().notNull().default([]),
+    /** Entries sharing this word (a timekeeper, a helper, a family) never fly in one group. */
+    keepApart: text("keep_apart"),
+    /** A paper entry the officer typed in (no account). */
+    paper: boolean("paper").notNull().default(false),
+    withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("contest_entries_contest_id_idx").on(t.contestId)],
+  (t) => [
+    index("contest_entries_contest_id_idx").on(t.contestId),
+    uniqueIndex("contest_entries_one_live_uq").on(t.contestId, t.pilotUserId).where(sql`withdrawn_at is null and pilot_user_id is not null`),
+  ],
 );
 
 /** A round: one task for everyone; `isFlyOff` keeps fly-off rounds apart (F3K.10). */

@@ -6,6 +6,7 @@ import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
 import { seedAdminDemo } from "./admin-demo";
 import { seedClubs } from "./clubs";
+import { seedDemoContest } from "./demo-contest";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
 import { seedSeasonContest } from "./season-contest";
@@ -21,6 +22,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   if (existing) {
     await seedHangar(db); // a database seeded before the hangar existed gets its demo too
     await seedClubs(db, () => hashPassword(DEMO_PASSWORD));
+    await seedDemoContest(db);
     return "present";
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -90,5 +92,6 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   });
   await seedHangar(db);
   await seedClubs(db, async () => passwordHash);
+  await seedDemoContest(db);
   return "seeded";
 }

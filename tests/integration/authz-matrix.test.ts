@@ -8,6 +8,7 @@ import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
 import { accountRow, ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
 import * as club from "./support/authz-clubs";
+import * as contest from "./support/authz-contests";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
 import { insertLog, insertModel, insertOwnRun, LOG_MAPPING } from "./support/hangar-records";
 
@@ -211,6 +212,18 @@ const ROWS: Record<string, Row> = {
     ...signedIn({ params: club.invitationsForEveryone, body: (ctx) => club.tokenFor(ctx?.actor), check: (ctx) => club.joinedOnce(ctx.actor, ctx.user.id) }),
     cast: "fresh",
   },
+  // Contests (issue 15): a contest of the owner's club; officer routes check the club role on the server
+  "POST /api/clubs/[slug]/contests": {
+    params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }),
+    body: () => ({ name: "Matrix Cup", startsOn: "2027-02-06", fieldName: "Matrix Meadow", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })), maxGroupSize: 10, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false }),
+    cast: "fresh",
+    expect: club.OFFICERS_ONLY(201),
+  },
+  "POST /api/contests/[contestId]/entries": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ modelIds: [] }), cast: "fresh", expect: contest.MEMBERS(201) },
+  "POST /api/contests/[contestId]/paper-entries": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ pilotName: "Matrix Paper" }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "DELETE /api/contests/[contestId]/entries/[entryId]": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.entryReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "POST /api/contests/[contestId]/draw": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ seed: 7 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "POST /api/contests/[contestId]/draw/lock": { params: (cast) => contest.contestOfOwnersClub(cast, true), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "GET /api/club-fields": signedIn({ check: (ctx, res) => club.onlyOwnClubsFields(ctx.user.id, res) }),
 };
 

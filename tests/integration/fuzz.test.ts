@@ -52,6 +52,12 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
   "/api/clubs/[slug]/fields": { POST: "json" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
+  "/api/clubs/[slug]/contests": { POST: "json" },
+  "/api/contests/[contestId]/entries": { POST: "json" },
+  "/api/contests/[contestId]/entries/[entryId]": { DELETE: "none" },
+  "/api/contests/[contestId]/paper-entries": { POST: "json" },
+  "/api/contests/[contestId]/draw": { POST: "json" },
+  "/api/contests/[contestId]/draw/lock": { POST: "none" },
   "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
@@ -125,6 +131,12 @@ const evilValue = fc.oneof(
 /** A valid body for each JSON route, fresh ids each time, for `userId`. */
 function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/time") return { t1: Date.now() };
+  if (path === "/api/clubs/[slug]/contests") {
+    return { name: "Fuzz Cup", startsOn: "2027-02-06", fieldName: "Fuzz Meadow", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })), maxGroupSize: 10, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false };
+  }
+  if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
+  if (path.endsWith("/entries")) return { modelIds: [] };
+  if (path.endsWith("/draw")) return { seed: 3 };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
   if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };
@@ -299,7 +311,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

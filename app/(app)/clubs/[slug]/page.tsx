@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { Suspense } from "react";
 import { ROLE_LABEL } from "@/lib/clubs/roles";
 import { clubPageAccess } from "./_components/access";
@@ -18,6 +19,9 @@ export default async function ClubPage({ params }: { params: Promise<{ slug: str
     <div className="space-y-8">
       <header className="space-y-1">
         <h1 className="text-2xl font-extrabold">{club.name}</h1>
+        {(access.clubRole === "officer" || access.role === "admin") && (
+          <Link className="underline" href={`/contests/new?club=${club.slug}`}>Set up a contest</Link>
+        )}
         <p className="text-muted">{access.clubRole ? `You are ${ROLE_LABEL[access.clubRole].toLowerCase()} here.` : "You see this club as a site admin."}</p>
       </header>
       <Suspense fallback={<p aria-busy="true">Loading the fields…</p>}>

@@ -1,3 +1,4 @@
+import Link from "next/link";
 import { db } from "@/db";
 import { listComing } from "@/db/queries/club-home";
 import { formatDate } from "@/lib/format";
@@ -17,7 +18,7 @@ export async function Coming({ clubId }: { clubId: string }) {
           {items.map((i) => (
             <li key={`${i.kind}-${i.id}`} className="card rounded-xl border border-line bg-raised p-3">
               <p className="font-bold">
-                {i.kind === "day" ? "Field day" : "Contest"}: {i.kind === "day" ? i.fieldName : i.name}
+                {i.kind === "day" ? `Field day: ${i.fieldName}` : <Link className="underline" href={`/contests/${i.id}`}>Contest: {i.name}</Link>}
               </p>
               <p className="text-sm text-muted">
                 {formatDate(new Date(`${i.on}T12:00:00Z`))}

@@ -1,0 +1,68 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { db } from "@/db";
+import { getContest, listSlots } from "@/db/queries/contests";
+import { listModels } from "@/db/queries/models";
+import { hasClubRole } from "@/lib/clubs/roles";
+import { formatDate } from "@/lib/format";
+import { contestIdSchema } from "@/lib/validations/contests";
+import { contestPageAccess } from "../_components/guard";
+import { ActionButton, EnterForm, PaperEntryForm } from "./_components/actions";
+import { DrawLists } from "./_components/draw-lists";
+
+export const metadata: Metadata = { title: "Contest" };
+export const dynamic = "force-dynamic";
+
+/** A contest: its set-up, entries (the officer adds paper entries and withdraws), the draw per round. */
+export default async function ContestPage({ params }: { params: Promise<{ contestId: string }> }) {
+  const parsed = contestIdSchema.safeParse(await params);
+  if (!parsed.success) notFound();
+  const { contestId } = parsed.data;
+  const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}` });
+  const found = await getContest(db, contestId);
+  if (!found) notFound();
+  const { contest, rounds, entries } = found;
+  const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
+  const live = entries.filter((e) => !e.withdrawnAt);
+  const mine = live.find((e) => e.pilotUserId === me.id);
+  const models = mine ? [] : (await listModels(db, { ownerId: me.id })).filter((m) => m.status !== "retired").map((m) => ({ id: m.id, name: m.name }));
+  const slots = contest.drawSeed === null ? [] : await listSlots(db, contestId);
+  const names = new Map(entries.map((e) => [e.id, e.pilotName]));
+  const letters = new Map(rounds.map((r) => [r.number, r.task.letter ?? "custom"]));
+  return (
+    <div className="space-y-8">
+      <header className="space-y-1">
+        <h1 className="text-2xl font-extrabold">{contest.name}</h1>
+        <p className="text-muted">{formatDate(new Date(`${contest.startsOn}T12:00:00Z`))} · {contest.fieldName} · {me.club.name}{contest.practice ? " · practice event" : ""}</p>
+        <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"}</p>
+      </header>
+      <section aria-labelledby="rounds" className="space-y-2">
+        <h2 id="rounds" className="text-lg font-bold">Rounds</h2>
+        <ol className="list-decimal pl-5" aria-label="Rounds">{rounds.map((r) => <li key={r.id}>Task {r.task.letter}: {r.task.name}</li>)}</ol>
+      </section>
+      <section aria-labelledby="entries" className="space-y-2">
+        <h2 id="entries" className="text-lg font-bold">Entries ({live.length})</h2>
+        <ul aria-label="Entries" className="space-y-1">
+          {live.map((e) => (
+            <li key={e.id}>{e.pilotName}{e.paper ? " (paper)" : ""}{e.models.length > 0 ? ` · ${e.models.map((m) => m.name).join(", ")}` : ""}
+              {officer && contest.drawLockedAt === null && <> · <ActionButton label={`Withdraw ${e.pilotName}`} method="DELETE" url={`/api/contests/${contestId}/entries/${e.id}`} /></>}
+            </li>
+          ))}
+        </ul>
+        {mine ? <p>You are entered.</p> : <EnterForm contestId={contestId} models={models} />}
+        {officer && <PaperEntryForm contestId={contestId} />}
+      </section>
+      <section aria-labelledby="draw" className="space-y-2">
+        <h2 id="draw" className="text-lg font-bold">The draw</h2>
+        {contest.drawSeed === null ? <p className="text-muted">Not drawn yet.</p> : <p>Seed {contest.drawSeed}{contest.drawLockedAt ? " · locked" : ""}</p>}
+        {officer && contest.drawLockedAt === null && (
+          <p className="space-x-4">
+            <ActionButton label={contest.drawSeed === null ? "Make the draw" : "Draw again"} method="POST" url={`/api/contests/${contestId}/draw`} body={{}} />
+            {contest.drawSeed !== null && <ActionButton label="Lock the draw" method="POST" url={`/api/contests/${contestId}/draw/lock`} />}
+          </p>
+        )}
+        <DrawLists slots={slots} names={names} letters={letters} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,75 @@
+"use client";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { checkSetup } from "@/lib/contests/setup";
+
+const LETTERS = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "N"];
+const input = "mt-1 block w-full rounded-lg border border-line bg-raised p-2";
+
+/** The set-up form: the rules' checks show as you edit (lib/contests/setup.ts); the server checks again. */
+export function NewContestForm({ slug, fields }: { slug: string; fields: string[] }) {
+  const router = useRouter();
+  const [name, setName] = useState("");
+  const [startsOn, setStartsOn] = useState("");
+  const [fieldName, setFieldName] = useState(fields[0] ?? "");
+  const [rounds, setRounds] = useState<string[]>(["A", "B", "D", "F", "G"]);
+  const [maxGroupSize, setMaxGroupSize] = useState(10);
+  const [prepMinutes, setPrepMinutes] = useState(5);
+  const [noFlySeconds, setNoFlySeconds] = useState(60);
+  const [dropRule, setDropRule] = useState<"f3k" | "none">("f3k");
+  const [practice, setPractice] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const check = checkSetup({ rounds: rounds.map((letter) => ({ letter })), practice, prepMinutes, noFlySeconds });
+
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    const reply = await sendJson<{ contest: { id: string } }>("POST", `/api/clubs/${slug}/contests`, {
+      name, startsOn, fieldName, rounds: rounds.map((letter) => ({ letter })), maxGroupSize, prepMinutes, noFlySeconds, dropRule, practice,
+    });
+    if (reply.ok) router.push(`/contests/${reply.data.contest.id}`);
+    else setError(reply.issues?.map((i) => i.message).join(" ") || reply.message);
+  }
+
+  return (
+    <form onSubmit={submit} className="space-y-4">
+      <label className="block">Name<input className={input} value={name} onChange={(e) => setName(e.target.value)} required /></label>
+      <label className="block">Date<input className={input} type="date" value={startsOn} onChange={(e) => setStartsOn(e.target.value)} required /></label>
+      <label className="block">Field
+        {fields.length > 0 ? (
+          <select className={input} value={fieldName} onChange={(e) => setFieldName(e.target.value)}>{fields.map((f) => <option key={f}>{f}</option>)}</select>
+        ) : (
+          <input className={input} value={fieldName} onChange={(e) => setFieldName(e.target.value)} required />
+        )}
+      </label>
+      <fieldset className="space-y-2">
+        <legend className="font-bold">Rounds</legend>
+        {rounds.map((letter, i) => (
+          <label key={i} className="flex items-center gap-2">Round {i + 1} task
+            <select className="rounded-lg border border-line bg-raised p-2" value={letter} onChange={(e) => setRounds(rounds.map((l, j) => (j === i ? e.target.value : l)))}>
+              {LETTERS.map((l) => <option key={l}>{l}</option>)}
+            </select>
+            <button type="button" className="underline" onClick={() => setRounds(rounds.filter((_, j) => j !== i))}>Remove round {i + 1}</button>
+          </label>
+        ))}
+        <button type="button" className="underline" onClick={() => setRounds([...rounds, "N"])}>Add a round</button>
+      </fieldset>
+      <label className="block">Largest group (pilots)<input className={input} type="number" min={5} max={30} value={maxGroupSize} onChange={(e) => setMaxGroupSize(Number(e.target.value))} /></label>
+      <label className="block">Preparation time (minutes)<input className={input} type="number" min={1} max={60} value={prepMinutes} onChange={(e) => setPrepMinutes(Number(e.target.value))} /></label>
+      <label className="block">No-fly period (seconds)<input className={input} type="number" min={0} max={600} value={noFlySeconds} onChange={(e) => setNoFlySeconds(Number(e.target.value))} /></label>
+      <label className="block">Drop rule
+        <select className={input} value={dropRule} onChange={(e) => setDropRule(e.target.value as "f3k" | "none")}>
+          <option value="f3k">Drop the lowest round from 6 rounds flown (F3K.10)</option>
+          <option value="none">Every round counts</option>
+        </select>
+      </label>
+      <label className="flex items-center gap-2"><input type="checkbox" checked={practice} onChange={(e) => setPractice(e.target.checked)} />Practice event (the rules only warn)</label>
+      {[...check.errors, ...check.warnings].length > 0 && (
+        <ul aria-label="Rule checks" className="list-disc pl-5 text-sm">{[...check.errors, ...check.warnings].map((m) => <li key={m}>{m}</li>)}</ul>
+      )}
+      {error && <p role="alert" className="text-danger">{error}</p>}
+      <Button type="submit" className="w-full">Create the contest</Button>
+    </form>
+  );
+}

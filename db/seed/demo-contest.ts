@@ -1,0 +1,33 @@
+import { and, eq, inArray } from "drizzle-orm";
+import { drawEntries } from "@/lib/contests/entries-draw";
+import { getCatalogueTask } from "@/lib/tasks/catalogue";
+import type { Database } from "../index";
+import { saveDraw } from "../queries/contest-draw";
+import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
+import { DEMO_CLUB } from "./demo-people";
+
+const NAME = "Heronmoor Winter Cup";
+/** Invented pilots entered on paper (any likeness is chance). */
+const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway"];
+
+/** A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked. */
+export async function seedDemoContest(db: Database): Promise<void> {
+  const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
+  if (!club) return;
+  const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));
+  if (present) return;
+  const pilots = await db.select({ id: users.id, name: users.name }).from(users)
+    .where(inArray(users.email, ["ada@example.com", "tobi@example.com", "lena@example.com"]));
+  const officer = await db.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
+  const [contest] = await db.insert(contests).values({
+    clubId: club.id, name: NAME, startsOn: "2027-01-16", fieldName: DEMO_CLUB.homeField, status: "open", maxGroupSize: 6, createdBy: officer[0]?.id ?? null,
+  }).returning();
+  await db.insert(contestRounds).values((["A", "B", "D", "F", "H"] as const).map((l, i) => ({ contestId: contest!.id, number: i + 1, task: getCatalogueTask(l) })));
+  const entries = await db.insert(contestEntries).values([
+    ...pilots.map((p) => ({ contestId: contest!.id, pilotUserId: p.id, pilotName: p.name })),
+    ...PAPER.map((pilotName, i) => ({ contestId: contest!.id, pilotName, paper: true, keepApart: i < 2 ? "shared timekeeper" : null })),
+  ]).returning();
+  const seed = 20261212;
+  const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
+  await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds });
+}

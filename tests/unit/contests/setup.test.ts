@@ -1,0 +1,30 @@
+import { describe, expect, it } from "vitest";
+import { checkSetup } from "@/lib/contests/setup";
+
+const plan = (letters: string, more: Partial<Parameters<typeof checkSetup>[0]> = {}) => ({
+  rounds: [...letters].map((letter) => ({ letter })), practice: false, prepMinutes: 5, noFlySeconds: 60, ...more,
+});
+
+describe("contest set-up against the rules", () => {
+  it("accepts 5 rounds of different tasks (F3K.10)", () => {
+    expect(checkSetup(plan("ABDFG"))).toEqual({ errors: [], warnings: [] });
+  });
+  it("refuses fewer than 5 rounds for a contest, warns for a practice event (F3K.10)", () => {
+    expect(checkSetup(plan("ABDF")).errors).toEqual(["A valid contest has at least 5 rounds (F3K.10); this one has 4."]);
+    const practice = checkSetup(plan("ABDF", { practice: true }));
+    expect(practice.errors).toEqual([]);
+    expect(practice.warnings).toHaveLength(1);
+  });
+  it("refuses a repeated task for a contest, warns for practice (F3K.10)", () => {
+    expect(checkSetup(plan("ABDFA")).errors).toEqual(["Round 5 repeats task A of round 1; a valid contest flies a different task each round (F3K.10)."]);
+    expect(checkSetup(plan("ABDFA", { practice: true })).errors).toEqual([]);
+  });
+  it("refuses task M outside a fly-off even for practice, accepts it in a fly-off (F3K.10, F3K.11)", () => {
+    expect(checkSetup(plan("ABDFM", { practice: true })).errors).toEqual(["Round 5: task M is for fly-off rounds only (F3K.10)."]);
+    expect(checkSetup({ ...plan("ABDFG"), rounds: [...plan("ABDFG").rounds, { letter: "M", flyOff: true }] }).errors).toEqual([]);
+  });
+  it("checks preparation (at least 5 min) and the 60 s no-fly period (F3K.9)", () => {
+    expect(checkSetup(plan("ABDFG", { prepMinutes: 3, noFlySeconds: 30 })).errors).toHaveLength(2);
+    expect(checkSetup(plan("ABDFG", { prepMinutes: 3, practice: true })).warnings).toEqual(["Preparation time is at least 5 minutes (F3K.9)."]);
+  });
+});
