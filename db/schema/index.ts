@@ -12,3 +12,4 @@ export * from "./hangar";
 export * from "./altimeter";
 export * from "./run-deletions";
 export * from "./admin";
+export * from "./club-days";
