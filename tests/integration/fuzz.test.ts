@@ -51,6 +51,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/invitations": { POST: "json" },
   "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
   "/api/clubs/[slug]/fields": { POST: "json" },
+  "/api/clubs/[slug]/days": { POST: "json" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
   "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
@@ -145,6 +146,7 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/invitations")) return { email: `fuzz-${uuidv7()}@example.com`, role: "coach" };
   if (path.endsWith("/members/[userId]")) return { role: "member" };
   if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
+  if (path.endsWith("/days")) return { fieldId: uuidv7(), day: "2026-06-14" };
   if (path === "/api/invitations/accept") return { token };
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
