@@ -13,3 +13,4 @@ export * from "./altimeter";
 export * from "./run-deletions";
 export * from "./admin";
 export * from "./lane-flights";
+export * from "./club-days";

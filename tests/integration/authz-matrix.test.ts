@@ -206,6 +206,7 @@ const ROWS: Record<string, Row> = {
     cast: "fresh",
     expect: club.OFFICERS_ONLY(201),
   },
+  "POST /api/clubs/[slug]/days": { params: club.fieldForDays, body: club.nextDayBody, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "DELETE /api/clubs/[slug]/fields/[fieldId]": { params: club.fieldOfOwnersClub, check: club.fieldReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   // the one-time token is the credential: every signed-in account with its own link joins (and each link joins once)
   "POST /api/invitations/accept": {

@@ -51,6 +51,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/invitations": { POST: "json" },
   "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
   "/api/clubs/[slug]/fields": { POST: "json" },
+  "/api/clubs/[slug]/days": { POST: "json" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
   "/api/clubs/[slug]/contests": { POST: "json" },
   "/api/contests/[contestId]/entries": { POST: "json" },
@@ -162,6 +163,7 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/invitations")) return { email: `fuzz-${uuidv7()}@example.com`, role: "coach" };
   if (path.endsWith("/members/[userId]")) return { role: "member" };
   if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
+  if (path.endsWith("/days")) return { fieldId: uuidv7(), day: "2026-06-14" };
   if (path === "/api/invitations/accept") return { token };
   // an offer of the fuzz user's season to an address; a code nobody issued (404, nothing written)
   if (path === "/api/coach-grants") return { kind: "email", email: `fuzz-coach-${uuidv7()}@example.com` };

@@ -89,3 +89,14 @@ export async function onlyOwnClubsFields(userId: string, res: Response): Promise
       and not exists (select 1 from memberships m where m.club_id = f.club_id and m.user_id = ${userId})`);
   expect(foreign.rows).toEqual([]);
 }
+
+/** A field of the owner's club on which each actor opens a different day (so every officer's answer is a fresh 201). */
+let dayField = "";
+let dayCount = 0;
+export async function fieldForDays(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: "Matrix Day Field" }).returning();
+  dayField = field!.id;
+  return { slug: club.slug };
+}
+export const nextDayBody = () => ({ fieldId: dayField, day: `2026-07-${String(1 + (dayCount++ % 28)).padStart(2, "0")}` });
