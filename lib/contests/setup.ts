@@ -4,8 +4,10 @@
  * least 5 minutes and a 60 s no-fly period comes before each working time (F3K.9). For an official
  * contest a breach is an error; a practice event may break the round and timing rules with a
  * warning (club evenings fly 3 rounds of their favourite task). Task M outside a fly-off is an
- * error either way: no valid round can be built on it.
+ * error either way: no valid round can be built on it. A planned fly-off has 3 to 6 rounds (F3K.10).
  */
+import { flyOffPlanProblems } from "@/lib/scoring/fly-off";
+
 export type RoundPlan = { letter: string; flyOff?: boolean };
 export type SetupPlan = { rounds: RoundPlan[]; practice: boolean; prepMinutes: number; noFlySeconds: number };
 export type SetupCheck = { errors: string[]; warnings: string[] };
@@ -19,6 +21,8 @@ export function checkSetup(plan: SetupPlan): SetupCheck {
   main.forEach((r, i) => {
     if (r.letter === "M") errors.push(`Round ${i + 1}: task M is for fly-off rounds only (F3K.10).`);
   });
+  const flyOffRounds = plan.rounds.length - main.length;
+  if (flyOffRounds > 0) errors.push(...flyOffPlanProblems(flyOffRounds).map((p) => p.replace(/\.$/, " (F3K.10).")));
   if (main.length < MIN_ROUNDS) soft.push(`A valid contest has at least ${MIN_ROUNDS} rounds (F3K.10); this one has ${main.length}.`);
   const seen = new Map<string, number>();
   main.forEach((r, i) => {

@@ -21,7 +21,15 @@ describe("contest set-up against the rules", () => {
   });
   it("refuses task M outside a fly-off even for practice, accepts it in a fly-off (F3K.10, F3K.11)", () => {
     expect(checkSetup(plan("ABDFM", { practice: true })).errors).toEqual(["Round 5: task M is for fly-off rounds only (F3K.10)."]);
-    expect(checkSetup({ ...plan("ABDFG"), rounds: [...plan("ABDFG").rounds, { letter: "M", flyOff: true }] }).errors).toEqual([]);
+    const flyOff = [{ letter: "M", flyOff: true }, { letter: "A", flyOff: true }, { letter: "B", flyOff: true }];
+    expect(checkSetup({ ...plan("ABDFG"), rounds: [...plan("ABDFG").rounds, ...flyOff] }).errors).toEqual([]);
+  });
+  it("a planned fly-off has 3 to 6 rounds, for practice too (F3K.10: \"Fly-off: 3–6 rounds\")", () => {
+    const withFlyOff = (n: number) => ({ ...plan("ABDFG", { practice: true }), rounds: [...plan("ABDFG").rounds, ...Array.from({ length: n }, () => ({ letter: "A", flyOff: true }))] });
+    expect(checkSetup(withFlyOff(2)).errors).toEqual(["A fly-off has at least 3 rounds (F3K.10)."]);
+    expect(checkSetup(withFlyOff(3)).errors).toEqual([]);
+    expect(checkSetup(withFlyOff(6)).errors).toEqual([]);
+    expect(checkSetup(withFlyOff(7)).errors).toEqual(["A fly-off has at most 6 rounds (F3K.10)."]);
   });
   it("checks preparation (at least 5 min) and the 60 s no-fly period (F3K.9)", () => {
     expect(checkSetup(plan("ABDFG", { prepMinutes: 3, noFlySeconds: 30 })).errors).toHaveLength(2);
