@@ -1,9 +1,11 @@
 import type { RunEvent } from "@/lib/events/schema";
-import { cursorAfter, pullReplySchema, type PullItem } from "@/lib/validations/sync";
+import { z } from "zod";
+import { cursorAfter, pullItemSchema, pullReplySchema, type PullItem } from "@/lib/validations/sync";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "@/lib/events/entities";
 import { forgetLanes, forgetRuns } from "./forget";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
+import { parseInSlices, yieldToMain } from "./slices";
 
 /** How far a pull has come: pages stored, about how many in all (null: unknown), items stored. */
 export type PullProgress = { page: number; pages: number | null; items: number };
@@ -24,6 +26,9 @@ export type PullOutcome = { kind: "ok"; items: number } | Exclude<HttpResult<unk
 
 /** Items per page the device asks for. */
 export const PULL_PAGE_LIMIT = 500;
+
+/** A page as it arrives: its items are checked a slice at a time (parseInSlices), not in one go. */
+const pageSchema = pullReplySchema.extend({ items: z.array(z.unknown()) });
 
 /** Safety stop for a server that keeps saying "more" (pages of a normal catch-up are far fewer). */
 const MAX_PAGES = 1000;
@@ -47,9 +52,12 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     const account = deps.account ? `&account=${encodeURIComponent(deps.account)}` : "";
     const total = pages === null ? "&total=1" : "";
     const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}`;
-    const r = await requestJson(deps.fetch, url, { method: "GET" }, pullReplySchema);
+    const r = await requestJson(deps.fetch, url, { method: "GET" }, pageSchema);
     if (r.kind !== "ok") return r;
-    const { items, nextCursor, hasMore, scope } = r.value;
+    const checked = await parseInSlices(r.value.items, pullItemSchema);
+    if (!checked.ok) return { kind: "bad-reply", message: checked.message };
+    const items = checked.value;
+    const { nextCursor, hasMore, scope } = r.value;
     if (!restarted && page === 0 && cursor !== "0" && scope !== undefined && scope !== knownScope) {
       cursor = "0"; // what the user may see changed: older rows may be newly visible, so start over
       restarted = true;
@@ -61,6 +69,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     }
     if (r.value.total !== undefined) pages = Math.max(1, Math.ceil(r.value.total / limit));
     const { events, sessions, runs } = split(items);
+    await yieldToMain();
     await db.transaction("rw", [db.events, db.sessions, db.runs, db.meta, db.outbox], async () => {
       if (r.value.forget) await forgetRuns(db, r.value.forget, deps.account ?? null);
       if (r.value.forgetLanes) await forgetLanes(db, r.value.forgetLanes);
