@@ -50,16 +50,7 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   useEffect(() => client?.subscribe(setStatus), [client]);
   useEffect(() => {
     if (!started || !client || !runtime) return;
-    // Once the page's own work is done (or 2 s at most): the first sync of a new phone stores a
-    // season of records and must not hold up the page's first taps.
-    let stop: (() => void) | undefined;
-    const cancel = whenIdle(() => {
-      stop = runtime.startSync(client);
-    });
-    return () => {
-      cancel();
-      stop?.();
-    };
+    return runtime.startSync(client);
   }, [client, started, runtime]);
 
   useEffect(() => {
@@ -86,16 +77,6 @@ export function SyncProvider({ children }: { children: ReactNode }) {
       <Fragment key={generation}>{children}</Fragment>
     </SyncContext.Provider>
   );
-}
-
-/** Run `fn` when the browser is idle (at most `timeout` ms from now); returns a cancel. */
-function whenIdle(fn: () => void, timeout = 2000): () => void {
-  if (typeof window.requestIdleCallback === "function") {
-    const id = window.requestIdleCallback(fn, { timeout });
-    return () => window.cancelIdleCallback(id);
-  }
-  const id = window.setTimeout(fn, 0);
-  return () => window.clearTimeout(id);
 }
 
 /** The sync client (null until loaded) and its latest status (null until the first report). */
