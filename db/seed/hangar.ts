@@ -7,7 +7,8 @@ import { flightInstants, type FlightInstant } from "@/lib/results/flight-instant
 import { deleteObject, newObjectKey } from "@/lib/storage/server/s3";
 import { putDemoObject } from "./put-object";
 import type { Database } from "../index";
-import { altimeterLogs, events, fieldSessions, launchHeights, loggerMappings, modelRepairs, models, runLanes, runs, users } from "../schema";
+import { MODEL_OFFER_TTL_MS } from "../queries/model-offers";
+import { altimeterLogs, events, fieldSessions, launchHeights, loggerMappings, modelOffers, modelRepairs, models, runLanes, runs, users } from "../schema";
 
 /** Invented models (no real designs or makers): Ada's three and Tobi's one, with a repair history. */
 const ADA_MODELS = [
@@ -21,7 +22,8 @@ const DEMO_MAPPING = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcO
  * The hangar demo: models and repairs for Ada and Tobi, Ada's latest own run flown with Swift
  * Heron and about a dozen earlier ones across the season with Heron or Blue Tern ("model" events),
  * and, when object storage is configured, an invented altimeter log of each read through the real
- * detection and matching (launch heights for the run page, the hangar and the Season charts).
+ * detection and matching (launch heights for the run page, the hangar and the Season charts);
+ * Tobi's offer of Grey Plover to Ada, waiting for her answer.
  * Does nothing when Ada has models already.
  */
 export async function seedHangar(db: Database): Promise<void> {
@@ -31,7 +33,9 @@ export async function seedHangar(db: Database): Promise<void> {
   const [has] = await db.select({ n: sql<number>`count(*)::int` }).from(models).where(eq(models.ownerId, ada.id));
   if ((has?.n ?? 0) > 0) return;
   const mine = await db.insert(models).values(ADA_MODELS.map((m) => ({ ...m, ownerId: ada.id }))).returning();
-  await db.insert(models).values({ ownerId: tobi.id, name: "Grey Plover", spanMm: 1480, massG: 265, marking: "grey, yellow tail" });
+  const [plover] = await db.insert(models).values({ ownerId: tobi.id, name: "Grey Plover", spanMm: 1480, massG: 265, marking: "grey, yellow tail" }).returning();
+  // Tobi offers Grey Plover to Ada, without its history: it waits in Ada's hangar for her answer
+  await db.insert(modelOffers).values({ modelId: plover!.id, sellerId: tobi.id, email: "ada@example.com", withHistory: false, expiresAt: new Date(Date.now() + MODEL_OFFER_TTL_MS) });
   const red = mine.find((m) => m.name === "Old Red")!;
   await db.insert(modelRepairs).values([
     { modelId: red.id, repairedOn: "2026-04-11", work: "Glued a cracked boom", massAfterG: 612 },
