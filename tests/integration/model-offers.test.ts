@@ -109,6 +109,7 @@ describe("offering a model to another account", () => {
     expect((await answerAs(first!.id, "accept")).status).toBe(404);
     expect((await withdraw(new Request("http://test", { method: "DELETE" }), { params: Promise.resolve({ modelId }) })).status).toBe(404);
     expect((await offerTo(modelId, buyer.email)).status).toBe(404); // not their model to offer
+    expect((await offerTo(modelId, third.email)).status).toBe(404); // not even to their own address
     actAs(buyer);
     expect((await answerAs(first!.id, "decline")).status).toBe(200);
     expect(await ownerOf()).toEqual({ o: seller.id, s: "flying" });

@@ -2,6 +2,7 @@
 // DELETE — withdraws the offer while it waits
 import { db } from "@/db";
 import { offerModel, withdrawModelOffer } from "@/db/queries/model-offers";
+import { getModel } from "@/db/queries/models";
 import { parseJson, route } from "@/lib/api";
 import { requireUser } from "@/lib/auth/session";
 import { NotFoundError, ValidationError } from "@/lib/errors";
@@ -17,6 +18,7 @@ export const POST = route(async (request: Request, context: Context) => {
   const body = await parseJson(request, transferInputSchema);
   const params = modelIdSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError(NO_MODEL);
+  if (!(await getModel(db, { ownerId: user.id, modelId: params.data.modelId }))) throw new NotFoundError(NO_MODEL); // someone else's: 404 before anything else
   if (body.email === user.email.toLowerCase()) throw new ValidationError("That is your own address: offer the model to the buyer's.", [{ path: "email", message: "your own address" }]);
   const offer = await offerModel(db, { sellerId: user.id, modelId: params.data.modelId, email: body.email, withHistory: body.withHistory });
   if (!offer) throw new NotFoundError(NO_MODEL);
