@@ -4,6 +4,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { DELETE as withdraw, POST as offer } from "@/app/api/models/[modelId]/transfer/route";
 import { POST as answer } from "@/app/api/model-offers/[offerId]/route";
 import { GET as getModel } from "@/app/api/models/[modelId]/route";
+import { exportAccount } from "@/db/queries/account-export";
 import { addRepair } from "@/db/queries/models";
 import { listOffersToMe } from "@/db/queries/model-offers";
 import { altimeterLogs, launchHeights, modelOffers, modelRepairs, models } from "@/db/schema";
@@ -125,6 +126,9 @@ describe("offering a model to another account", () => {
     expect(await ownerOf()).toEqual({ o: seller.id, s: "flying" });
     const answers = await db.select({ a: modelOffers.answer }).from(modelOffers).where(eq(modelOffers.modelId, modelId));
     expect(answers.map((x) => x.a).sort()).toEqual(["declined", "withdrawn"]);
+    // the seller's account export carries the offers they made
+    const exported = (await exportAccount(db, seller.id))!.hangar;
+    expect(exported.modelOffers.map((o) => [o.modelId, o.email, o.answer]).sort()).toEqual([[modelId, buyer.email, "declined"], [modelId, buyer.email, "withdrawn"]]);
   });
 
   it("a new offer of the same model replaces the waiting one; your own address is refused", async () => {
