@@ -239,7 +239,7 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
 
 const queryArb = fc.array(
   fc.tuple(
-    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page", "from", "to", "task", "field", "kind", "size", "sort", "dir", "what"),
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page", "from", "to", "task", "field", "kind", "size", "sort", "dir", "what", "model"),
     fc.oneof(
       fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()),
       // the season's filters and paging (lib/validations/season.ts)
