@@ -1,14 +1,16 @@
 import "server-only";
 import { asc, eq, inArray } from "drizzle-orm";
 import type { Database } from "../index";
-import { altimeterLogs, launchHeights, loggerMappings, modelRepairs, models } from "../schema";
+import { altimeterLogs, launchHeights, loggerMappings, modelOffers, modelRepairs, models } from "../schema";
 
-/** The pilot's hangar in the account export: models with repairs, logs (not the files' keys) with their launches, logger mappings. */
+/** The pilot's hangar in the account export: models with repairs, the offers they made of them, logs (not the files' keys) with their launches, logger mappings. */
 export async function exportHangar(db: Database, userId: string) {
-  const [modelRows, logRows, mappings] = await Promise.all([
+  const [modelRows, logRows, mappings, offers] = await Promise.all([
     db.select().from(models).where(eq(models.ownerId, userId)).orderBy(asc(models.createdAt)),
     db.select().from(altimeterLogs).where(eq(altimeterLogs.ownerId, userId)).orderBy(asc(altimeterLogs.createdAt)),
     db.select({ loggerName: loggerMappings.loggerName, mapping: loggerMappings.mapping }).from(loggerMappings).where(eq(loggerMappings.ownerId, userId)),
+    db.select({ modelId: modelOffers.modelId, email: modelOffers.email, withHistory: modelOffers.withHistory, createdAt: modelOffers.createdAt, answer: modelOffers.answer, answeredAt: modelOffers.answeredAt })
+      .from(modelOffers).where(eq(modelOffers.sellerId, userId)).orderBy(asc(modelOffers.createdAt)),
   ]);
   const modelIds = modelRows.map((m) => m.id);
   const logIds = logRows.map((l) => l.id);
@@ -26,5 +28,6 @@ export async function exportHangar(db: Database, userId: string) {
       launches: heights.filter((h) => h.logId === l.id),
     })),
     loggerMappings: mappings,
+    modelOffers: offers,
   };
 }

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { date, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { boolean, date, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./users";
 
 /** Where a model stands: in use, in the workshop, put away, or gone to another pilot. */
@@ -39,4 +39,28 @@ export const modelRepairs = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("model_repairs_model_id_idx").on(t.modelId)],
+);
+
+/**
+ * A seller's offer of a model to whoever holds an e-mail address, waiting for that account's
+ * answer. The seller is never told whether the address has an account (every offer is answered
+ * alike); the account with that address sees it in its hangar and accepts or declines; the seller
+ * may withdraw it while it waits. On accept the model (and, if `withHistory`, its history) moves.
+ */
+export const modelOffers = pgTable(
+  "model_offers",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    modelId: uuid("model_id").notNull().references(() => models.id, { onDelete: "cascade" }),
+    sellerId: uuid("seller_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    /** lower-case */
+    email: text("email").notNull(),
+    withHistory: boolean("with_history").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    /** null while it waits */
+    answer: text("answer", { enum: ["accepted", "declined", "withdrawn"] }),
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
+  },
+  (t) => [index("model_offers_model_id_idx").on(t.modelId), index("model_offers_email_idx").on(t.email)],
 );

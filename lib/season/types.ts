@@ -7,6 +7,8 @@
 export type MonthSummary = { start: string; runs: number; flights: number; share: number | null; turnaroundTenths: number | null };
 
 export type SeasonSummary = {
+  /** The pilot's hangar, for the model filter (not filtered). */
+  models: { id: string; name: string }[];
   /** The names of the fields where the pilot's sessions were, for the field filter (not filtered). */
   fields: string[];
   totals: { runs: number; flights: number };
@@ -34,6 +36,16 @@ export type SeasonSummary = {
     roundZero: number;
     penaltyPoints: number;
   }[];
+  /**
+   * Launch heights an altimeter log matched to the season's flights (metres, one decimal): how many,
+   * their median, and the slope of flight time on launch height (seconds more per 10 m more, landed
+   * flights; null under two).
+   */
+  heights: { launches: number; medianM: number | null; secondsPerTenMetres: number | null };
+  /** Per week: the matched launches, their median and the best. */
+  heightByWeek: { week: string; launches: number; medianM: number; bestM: number }[];
+  /** Landed flights with a launch height, by 10 m of launch height ([fromM, toM); toM null for the open last bin): the median flight time. */
+  heightVsTime: { fromM: number; toM: number | null; flights: number; medianTenths: number }[];
 };
 
 export type SeasonRunRow = {

@@ -28,3 +28,8 @@ export const transferInputSchema = z.object({
 });
 
 export const modelIdSchema = z.object({ modelId: z.uuid() });
+
+/** The answer to a model offered to the account's address. */
+export const offerAnswerSchema = z.object({ answer: z.enum(["accept", "decline"], "Answer accept or decline.") });
+
+export const offerIdSchema = z.object({ offerId: z.uuid() });

@@ -4,8 +4,8 @@ import { text } from "./bounds";
 /**
  * The Season screen's inputs (app/(app)/season, /api/pilots/[pilotId]/season/**): the filters
  * that travel in the page's address and in each request, and the tables' paging and sorting.
- * A model filter joins here when the hangar (models) lands: add `model` to `seasonFiltersSchema`
- * and to `filterWhere` in db/queries/season/scope.ts — nothing else reads the filter list.
+ * The model filter keeps the lanes that flew the model (a "model" event names it) and, for launch
+ * heights, the launches made with it (db/queries/season/scope.ts `filterWhere`, `season_heights`).
  */
 
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "A date is written YYYY-MM-DD.").refine(isCalendarDay, "Not a calendar date.");
@@ -32,6 +32,8 @@ export const seasonFiltersSchema = z.object({
   field: z.preprocess(blankToUndefined, text(120).optional()),
   /** Practice (a session outside any contest day), contest, or both. */
   kind: z.preprocess(blankToUndefined, z.enum(SEASON_KINDS).default("all")),
+  /** A model of the hangar (its id): lanes flown with it, launches made with it. */
+  model: z.preprocess(blankToUndefined, z.uuid("Not a model.").optional()),
 });
 export type SeasonFilters = z.infer<typeof seasonFiltersSchema>;
 

@@ -8,10 +8,11 @@ import { signInAs } from "./support/auth";
 /**
  * The demo pilot's Season (db/seed: a season of practice at Five Acre Meadow, March to November
  * 2026, and one club contest): every chart drawn, filters by task and date in the address, the
- * runs table sorted on the server, the runs CSV equal to the database's rows, and axe clean.
+ * runs table sorted on the server, the runs CSV equal to the database's rows, the model filter's
+ * launch heights equal to the database's, and axe clean.
  */
 
-const CHARTS = ["share", "turnaround", "targets", "durations", "launches", "lost"];
+const CHARTS = ["share", "turnaround", "targets", "durations", "launches", "lost", "height-week", "height-time"];
 
 const runRows = (page: Page) => page.locator("#season-runs tbody tr");
 
@@ -82,6 +83,37 @@ test("the demo pilot reads their season: charts, filters, sorting, the CSV", asy
 
   await runRows(page).first().getByRole("link").click();
   await expect(page).toHaveURL(/\/logbook\/run\?id=/);
+});
+
+/** How many matched launch heights Ada's own windows flown with Blue Tern have (the seed's logs), straight from the database. */
+async function ternLaunchesInDatabase(): Promise<number> {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const res = await db.query<{ n: number }>(`
+      select count(*)::int as n from launch_heights h join models m on m.id = h.model_id join users u on u.id = m.owner_id
+      join run_lanes l on l.run_id = h.run_id and l.lane = h.lane join runs r on r.id = h.run_id
+      where u.email = 'ada@example.com' and m.name = 'Blue Tern' and h.flight_index is not null
+        and l.pilot_user_id = u.id and r.created_by = u.id and l.result_tenths is not null`);
+    return res.rows[0]!.n;
+  } finally {
+    await db.end();
+  }
+}
+
+test("the model filter narrows the launch heights to the model's launches", async ({ page }) => {
+  await signInAs(page, "ada@example.com");
+  await page.goto("/season");
+  const overTime = page.locator('figure[data-chart="height-week"]');
+  await expect(overTime.locator("svg.recharts-surface").first()).toBeVisible();
+  const n = await ternLaunchesInDatabase();
+  expect(n).toBeGreaterThan(5);
+  await page.getByLabel("Model", { exact: true }).selectOption({ label: "Blue Tern" });
+  await expect(page).toHaveURL(/[?&]model=[0-9a-f-]{36}/);
+  await expect(overTime.locator("figcaption")).toContainText(`over ${n} launches`);
+  await overTime.getByText(/^Table view/).click();
+  const launches = (await overTime.locator("tbody tr td:nth-child(2)").allInnerTexts()).map(Number);
+  expect(launches.reduce((a, b) => a + b, 0)).toBe(n);
 });
 
 test("Season has no serious accessibility violations", async ({ page }) => {

@@ -11,6 +11,7 @@ import * as club from "./support/authz-clubs";
 import * as contest from "./support/authz-contests";
 import { discoverRouteHandlers, discoverServerActionFiles, type RouteHandler } from "./support/route-files";
 import { insertLog, insertModel, insertOwnRun, LOG_MAPPING } from "./support/hangar-records";
+import { offerModel } from "@/db/queries/model-offers";
 
 /**
  * The authorisation matrix: every route handler on disk (app/api/**\/route.ts × exported method)
@@ -88,7 +89,25 @@ const hangarRows: Record<string, Row> = {
   "GET /api/models/[modelId]": ownerOnly({ params: ownersModel }),
   "PATCH /api/models/[modelId]": ownerOnly({ params: ownersModel, body: () => ({ status: "being-repaired" }) }),
   "POST /api/models/[modelId]/repairs": { ...ownerCreated(() => ({ repairedOn: "2026-06-14", work: "new tail boom", massAfterG: 262 })), params: ownersModel },
-  "POST /api/models/[modelId]/transfer": ownerOnly({ params: ownersModel, body: () => ({ email: "tobi@example.com", withHistory: false }) }),
+  "POST /api/models/[modelId]/transfer": {
+    ...ownerOnly({ params: ownersModel, body: () => ({ email: "tobi@example.com", withHistory: false }) }), expect: { ...everyone(NOT_ALLOWED), signedOut: 401, owner: 202 },
+  },
+  "DELETE /api/models/[modelId]/transfer": ownerOnly({
+    params: async (cast) => {
+      const modelId = await insertModel(cast.owner.id);
+      await offerModel(db, { sellerId: cast.owner.id, modelId, email: "tobi@example.com", withHistory: false });
+      return { modelId };
+    },
+  }),
+  // an offer made to the owner's address by someone else: only the owner may answer it
+  "POST /api/model-offers/[offerId]": ownerOnly({
+    params: async (cast) => {
+      const seller = await freshUser("matrix-seller");
+      const offer = await offerModel(db, { sellerId: seller.id, modelId: await insertModel(seller.id), email: cast.owner.email.toLowerCase(), withHistory: false });
+      return { offerId: offer!.id };
+    },
+    body: () => ({ answer: "decline" }),
+  }),
   "GET /api/runs/[runId]/logs": ownerOnly({ params: ownersRun }),
   "POST /api/runs/[runId]/logs": { ...ownerCreated(logRequest), params: ownersRun },
   "POST /api/logs/[logId]/complete": ownerOnly({

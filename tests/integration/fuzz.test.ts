@@ -68,7 +68,8 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/models": { GET: "none", POST: "json" },
   "/api/models/[modelId]": { GET: "none", PATCH: "json" },
   "/api/models/[modelId]/repairs": { POST: "json" },
-  "/api/models/[modelId]/transfer": { POST: "json" },
+  "/api/models/[modelId]/transfer": { POST: "json", DELETE: "none" },
+  "/api/model-offers/[offerId]": { POST: "json" },
   "/api/runs/[runId]/logs": { GET: "none", POST: "json" },
   "/api/logs/[logId]/complete": { POST: "json" },
   "/api/logs/[logId]/download": { GET: "none" },
@@ -142,6 +143,7 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
   if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };
   if (path.endsWith("/transfer")) return { email: "tobi@example.com", withHistory: true };
+  if (path === "/api/model-offers/[offerId]") return { answer: "accept" };
   if (path.endsWith("/logs")) return { lane: 0, fileName: "log.csv", sizeBytes: 900, contentType: "text/csv", loggerName: "Fuzz", mapping: logMapping, startAtMs: 1_767_000_000_000 };
   if (path.endsWith("/complete")) return { loggerName: "Fuzz", mapping: logMapping, startAtMs: 1_767_000_000_000 };
   if (path.endsWith("/consent")) return { decision: "disputed", reason: "The second flight was longer" };
@@ -237,7 +239,7 @@ function bodyText(b: Body, base: Record<string, unknown>): string {
 
 const queryArb = fc.array(
   fc.tuple(
-    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page", "from", "to", "task", "field", "kind", "size", "sort", "dir", "what"),
+    fc.constantFrom("cursor", "account", "limit", "x", "cursor", "q", "page", "from", "to", "task", "field", "kind", "size", "sort", "dir", "what", "model"),
     fc.oneof(
       fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()),
       // the season's filters and paging (lib/validations/season.ts)
@@ -313,7 +315,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

@@ -9,6 +9,13 @@ const DAY_MS = 24 * 3600 * 1000;
 export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
 const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
 
+/** The lane's model events (undone ones left out) that name `modelId`. */
+function namesModel(runId: SQL, lane: SQL, modelId: string): SQL {
+  return sql`select 1 from events e where e.run_id = ${runId} and e.kind = 'model' and (e.body ->> 'lane')::int = ${lane}
+    and e.body ->> 'modelId' = ${modelId}
+    and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body ->> 'targetId' = e.id::text)`;
+}
+
 function filterWhere(f: SeasonFilters): SQL {
   const parts: SQL[] = [sql`true`];
   if (f.from) parts.push(sql`r.created_at >= ${new Date(`${f.from}T00:00:00Z`).toISOString()}::timestamptz`);
@@ -17,7 +24,7 @@ function filterWhere(f: SeasonFilters): SQL {
   if (f.field) parts.push(sql`s.field_name = ${f.field}`);
   if (f.kind === "contest") parts.push(contest);
   if (f.kind === "practice") parts.push(sql`not ${contest}`);
-  // the model filter joins here when the hangar lands (lib/validations/season.ts)
+  if (f.model) parts.push(sql`exists (${namesModel(sql`r.id`, sql`l.lane`, f.model)})`);
   return sql.join(parts, sql` and `);
 }
 
@@ -29,7 +36,10 @@ function filterWhere(f: SeasonFilters): SQL {
  *   by lib/results runResult on every push — never recomputed here);
  * - `season_flights`: those lanes' derived flights, each with the ground time since the lane's
  *   previous landing (`ground_ms`: null for the first flight or when the previous one never landed),
- *   as stored at derive time in `lane_flights` (db/schema/lane-flights.ts), not unpacked from JSON here.
+ *   as stored at derive time in `lane_flights` (db/schema/lane-flights.ts), not unpacked from JSON here;
+ * - `season_heights`: those flights whose launch an altimeter log matched (launch_heights; when two
+ *   logs of a lane matched the same flight, the newer log's), with the model filter on the model the
+ *   launch was made with.
  * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
  */
 export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
@@ -53,6 +63,15 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
         f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec, f.ground_ms
       from season_lanes sl
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
+    ), season_heights as materialized (
+      select f.created_at, f.time_tenths, f.land_ms, h.height_m
+      from season_flights f
+      join lateral (
+        select h.height_m, h.model_id from launch_heights h join altimeter_logs g on g.id = h.log_id
+        where h.run_id = f.run_id and h.lane = f.lane and h.flight_index = f.flight_index
+        order by g.created_at desc, h.at_ms limit 1
+      ) h on true
+      ${f.model ? sql`where h.model_id = ${f.model}` : sql``}
     )`;
 }
 

@@ -12,6 +12,9 @@ const TURNAROUND = sql`ground_ms is not null and ground_ms >= 0`;
 /** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
 const BIN_SEC = 30;
 const LAST_BIN = 10;
+/** Launch-height bins for "height against flight time": 10 m each, the last one open (100 m and higher). */
+const HEIGHT_BIN_M = 10;
+const LAST_HEIGHT_BIN = 10;
 
 /**
  * Every chart and headline of a pilot's season within the filters, in one statement over one
@@ -38,6 +41,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
                    ('last', (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC')) as m(which, start)
     )
     select json_build_object(
+      'models', coalesce((select json_agg(json_build_object('id', m.id, 'name', m.name) order by m.name, m.id) from models m where m.owner_id = ${params.pilotId}), '[]'),
       'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
       'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(flight_count), 0)::int) from season_lanes),
       'months', (select json_object_agg(which, json_build_object('start', to_char(start at time zone 'UTC', 'YYYY-MM-DD'), 'runs', runs, 'flights', flights, 'share', share, 'turnaroundTenths', turnaround)) from months),
@@ -68,7 +72,21 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
           select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week,
             ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)})::int as ${sql.identifier(k)}`), sql`, `)},
             sum(sl.penalty_points)::int as "penaltyPoints"
-          from season_lanes sl where sl.lost_tenths is not null group by 1) x), '[]')
+          from season_lanes sl where sl.lost_tenths is not null group by 1) x), '[]'),
+      'heights', (select json_build_object('launches', count(*)::int,
+          'medianM', round((percentile_cont(0.5) within group (order by height_m))::numeric, 1)::float8,
+          'secondsPerTenMetres', round((10 * regr_slope(time_tenths / 10.0, height_m) filter (where land_ms is not null))::numeric, 1)::float8)
+        from season_heights),
+      'heightByWeek', coalesce((select json_agg(x order by x.week) from (
+          select to_char(${WEEK}, 'YYYY-MM-DD') as week, count(*)::int as launches,
+            round((percentile_cont(0.5) within group (order by height_m))::numeric, 1)::float8 as "medianM",
+            round(max(height_m)::numeric, 1)::float8 as "bestM"
+          from season_heights group by 1) x), '[]'),
+      'heightVsTime', coalesce((select json_agg(json_build_object('fromM', bin * ${HEIGHT_BIN_M}, 'toM', case when bin < ${LAST_HEIGHT_BIN} then (bin + 1) * ${HEIGHT_BIN_M} end,
+          'flights', n, 'medianTenths', median) order by bin) from (
+          select least(floor(height_m / ${HEIGHT_BIN_M})::int, ${LAST_HEIGHT_BIN}) as bin, count(*)::int as n,
+            round(percentile_cont(0.5) within group (order by time_tenths))::int as median
+          from season_heights where land_ms is not null group by 1) b), '[]')
     ) as summary`);
   return res.rows[0]!.summary;
 }

@@ -4,6 +4,7 @@ import { notFound, redirect } from "next/navigation";
 import { db } from "@/db";
 import { listModelLanes, listRecentLaunchHeights } from "@/db/queries/model-record";
 import { getModel, listRepairs } from "@/db/queries/models";
+import { waitingOfferOf } from "@/db/queries/model-offers";
 import { getSessionUser } from "@/lib/auth/session";
 import { classCautions } from "@/lib/hangar/limits";
 import { modelStats } from "@/lib/hangar/stats";
@@ -25,10 +26,11 @@ export default async function ModelPage({ params }: { params: Promise<{ modelId:
   if (!parsed.success) notFound();
   const model = await getModel(db, { ownerId: user.id, modelId: parsed.data.modelId });
   if (!model) notFound();
-  const [repairs, lanes, heights] = await Promise.all([
+  const [repairs, lanes, heights, offer] = await Promise.all([
     listRepairs(db, { ownerId: user.id, modelId: model.id }),
     listModelLanes(db, { modelId: model.id, ownerIds: [model.ownerId, ...model.formerOwnerIds] }),
     listRecentLaunchHeights(db, { modelId: model.id, limit: 20 }),
+    waitingOfferOf(db, { sellerId: user.id, modelId: model.id }),
   ]);
   const stats = modelStats(model.id, lanes);
   return (
@@ -51,7 +53,10 @@ export default async function ModelPage({ params }: { params: Promise<{ modelId:
         <MassOverTime points={repairs.filter((r) => r.massAfterG !== null).map((r) => ({ date: r.repairedOn, massG: r.massAfterG! }))} />
         <RepairForm modelId={model.id} />
       </section>
-      <ModelActions modelId={model.id} status={model.status} />
+      <ModelActions
+        modelId={model.id} status={model.status}
+        offer={offer ? { email: offer.email, withHistory: offer.withHistory, expiresOn: offer.expiresAt.toISOString().slice(0, 10) } : null}
+      />
     </div>
   );
 }

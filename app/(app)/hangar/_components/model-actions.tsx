@@ -8,8 +8,19 @@ import { sendJson } from "./post-json";
 
 const STATUSES = [["flying", "Flying"], ["being-repaired", "Being repaired"], ["retired", "Retired"], ["sold", "Sold"]] as const;
 
-/** Status, and handing the model to its buyer (with its history only if the seller ticks it). */
-export function ModelActions({ modelId, status }: { modelId: string; status: string }) {
+export type WaitingOffer = { email: string; withHistory: boolean; expiresOn: string };
+
+async function withdrawOffer(modelId: string) {
+  const res = await fetch(`/api/models/${modelId}/transfer`, { method: "DELETE" });
+  if (!res.ok) throw new Error(((await res.json().catch(() => ({}))) as { error?: { message?: string } }).error?.message ?? `The server answered ${res.status}.`);
+}
+
+/**
+ * Status, and offering the model to its buyer by e-mail (with its history only if the seller ticks
+ * it). The model moves when the buyer accepts; the seller never learns whether the address has an
+ * account, and can withdraw the offer while it waits.
+ */
+export function ModelActions({ modelId, status, offer }: { modelId: string; status: string; offer: WaitingOffer | null }) {
   const router = useRouter();
   const [email, setEmail] = useState("");
   const [withHistory, setWithHistory] = useState(false);
@@ -32,11 +43,21 @@ export function ModelActions({ modelId, status }: { modelId: string; status: str
         onChange={(e) => act(() => sendJson(`/api/models/${modelId}`, { status: e.target.value }, "PATCH"), "Status saved.")}>
         {STATUSES.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
       </select>
-      <form className="space-y-3" aria-label="Transfer to the buyer" onSubmit={(e) => { e.preventDefault(); void act(() => sendJson(`/api/models/${modelId}/transfer`, { email, withHistory }), "Transferred.", () => router.push("/hangar")); }}>
-        <TextField id="buyer-email" type="email" label="Buyer's account e-mail" value={email} onChange={(e) => setEmail(e.target.value)} required />
-        <label className="flex items-center gap-2"><input type="checkbox" checked={withHistory} onChange={(e) => setWithHistory(e.target.checked)} /> Hand over its history (flights, launch heights, repairs)</label>
-        <Button type="submit" variant="danger">Transfer the model</Button>
-      </form>
+      {offer ? (
+        <div className="space-y-2 rounded-xl border-2 border-line p-3" data-testid="waiting-offer">
+          <p>
+            Offered to <strong>{offer.email}</strong> {offer.withHistory ? "with its history" : "without its history"}, until {offer.expiresOn}.
+            It moves when an account with that address accepts.
+          </p>
+          <Button type="button" variant="secondary" onClick={() => void act(() => withdrawOffer(modelId), "Offer withdrawn.")}>Withdraw the offer</Button>
+        </div>
+      ) : status === "sold" ? null : (
+        <form className="space-y-3" aria-label="Offer to a buyer" onSubmit={(e) => { e.preventDefault(); void act(() => sendJson(`/api/models/${modelId}/transfer`, { email, withHistory }), "Offered. If an account uses that address, it sees the offer in its hangar."); }}>
+          <TextField id="buyer-email" type="email" label="Buyer's e-mail address" value={email} onChange={(e) => setEmail(e.target.value)} required />
+          <label className="flex min-h-12 items-center gap-3"><input type="checkbox" className="size-6" checked={withHistory} onChange={(e) => setWithHistory(e.target.checked)} /> Hand over its history (flights, launch heights, repairs)</label>
+          <Button type="submit" variant="danger">Offer the model</Button>
+        </form>
+      )}
       {message ? <p role="status">{message}</p> : null}
     </section>
   );

@@ -2,9 +2,10 @@
 
 import type { SeasonSummary } from "@/lib/season/types";
 import { DurationsChart, TargetsChart } from "./charts-flights";
+import { HeightByWeekChart, HeightVsTimeChart } from "./charts-heights";
 import { LaunchesChart, LostChart, ShareChart, TurnaroundChart } from "./charts-weekly";
 
-/** The season's six charts (loaded apart from the page: the drawing library is large). */
+/** The season's charts (loaded apart from the page: the drawing library is large). */
 export default function SeasonCharts({ summary }: { summary: SeasonSummary }) {
   return (
     <section aria-labelledby="season-charts" className="space-y-8">
@@ -15,6 +16,8 @@ export default function SeasonCharts({ summary }: { summary: SeasonSummary }) {
       <DurationsChart summary={summary} />
       <LaunchesChart summary={summary} />
       <LostChart summary={summary} />
+      <HeightByWeekChart summary={summary} />
+      <HeightVsTimeChart summary={summary} />
     </section>
   );
 }

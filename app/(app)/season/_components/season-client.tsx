@@ -54,7 +54,7 @@ export function SeasonClient({ pilotId, own, pilotName }: { pilotId: string; own
     <div className="space-y-6">
       <h1 className="text-2xl font-extrabold">{own ? "Season" : `Season of ${pilotName ?? "a pilot"}`}</h1>
       <SeasonFilterBar
-        filters={filters} fields={summary.data?.fields ?? []}
+        filters={filters} fields={summary.data?.fields ?? []} models={summary.data?.models ?? []}
         onChange={(patch) => setFilters({ ...latest.current.filters, ...patch })} onClear={() => setFilters(NO_FILTERS)}
       />
       {!parsed.success ? <p role="alert">Some filters in the address could not be read; showing the whole season.</p> : null}

@@ -5,13 +5,13 @@ import type { SeasonFilters } from "@/lib/validations/season";
 const TASKS = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "M", "N"] as const;
 const control = "min-h-12 w-full rounded-lg border-2 border-line bg-raised px-2 text-ink";
 
-type Props = { filters: SeasonFilters; fields: string[]; onChange: (patch: Partial<SeasonFilters>) => void; onClear: () => void };
+type Props = { filters: SeasonFilters; fields: string[]; models: { id: string; name: string }[]; onChange: (patch: Partial<SeasonFilters>) => void; onClear: () => void };
 
-/** Date range, task, field and practice/contest; each change goes into the address (SeasonClient). An emptied control drops its filter. */
-export function SeasonFilterBar({ filters, fields, onChange, onClear }: Props) {
+/** Date range, task, field, practice/contest and model; each change goes into the address (SeasonClient). An emptied control drops its filter. */
+export function SeasonFilterBar({ filters, fields, models, onChange, onClear }: Props) {
   const set = (key: keyof SeasonFilters, value: string) =>
     onChange({ [key]: key === "kind" ? (value || "all") : value === "" ? undefined : value } as Partial<SeasonFilters>);
-  const filtered = Boolean(filters.from || filters.to || filters.task || filters.field || filters.kind !== "all");
+  const filtered = Boolean(filters.from || filters.to || filters.task || filters.field || filters.kind !== "all" || filters.model);
   return (
     <form role="search" aria-label="Filter the season" className="space-y-2" onSubmit={(e) => e.preventDefault()}>
       <div className="grid grid-cols-2 gap-2">
@@ -45,6 +45,13 @@ export function SeasonFilterBar({ filters, fields, onChange, onClear }: Props) {
           </select>
         </Labelled>
       </div>
+      <Labelled id="season-model" label="Model">
+        <select id="season-model" value={filters.model ?? ""} onChange={(e) => set("model", e.target.value)} className={control}>
+          <option value="">All models</option>
+          {filters.model && !models.some((m) => m.id === filters.model) ? <option value={filters.model}>A model no longer in the hangar</option> : null}
+          {models.map((m) => <option key={m.id} value={m.id}>{m.name}</option>)}
+        </select>
+      </Labelled>
       {filtered ? (
         <button type="button" onClick={onClear} className="inline-flex min-h-12 items-center font-bold underline">
           Clear the filters

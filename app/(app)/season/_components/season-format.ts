@@ -18,3 +18,6 @@ export const monthText = (day: string): string => monthFormat.format(new Date(`$
 
 /** A week's Monday as "week of 2 Mar". */
 export const weekText = (day: string): string => `week of ${dayText(day)}`;
+
+/** Metres as "42.5 m" (or "—"). */
+export const metresText = (m: number | null | undefined): string => (m === null || m === undefined ? "—" : `${m.toFixed(1)} m`);
