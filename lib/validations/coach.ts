@@ -16,3 +16,23 @@ export const coachClaimSchema = z.object({
 
 /** A grant or offer named in a path. */
 export const grantIdSchema = z.object({ grantId: z.uuid() });
+
+/** Most characters in a note or an answer. */
+export const NOTE_BODY_MAX = 2000;
+
+const noteBody = text(NOTE_BODY_MAX).trim().min(1, "Write something first.");
+
+/** A coach's note on one of a granting pilot's runs or sessions (exactly one of runId, sessionId). */
+export const noteCreateSchema = z
+  .object({ pilotId: z.uuid(), runId: z.uuid().optional(), sessionId: z.uuid().optional(), body: noteBody })
+  .refine((n) => (n.runId === undefined) !== (n.sessionId === undefined), { message: "Name the run or the session the note is about (one of them)." });
+export type NoteCreateInput = z.infer<typeof noteCreateSchema>;
+
+/** An answer in a note's thread. */
+export const noteReplySchema = z.object({ body: noteBody });
+
+/** A note named in a path. */
+export const noteIdSchema = z.object({ noteId: z.uuid() });
+
+/** A pilot named in a query (?pilot=). */
+export const pilotQuerySchema = z.object({ pilot: z.uuid().optional() });
