@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { emailSchema } from "./auth";
 import { text } from "./bounds";
+import { planInputSchema } from "@/lib/coach/plan-goals";
 
 /** A pilot's offer: to a coach's e-mail address, or a one-time code the coach types in. */
 export const coachOfferSchema = z.discriminatedUnion("kind", [
@@ -36,3 +37,6 @@ export const noteIdSchema = z.object({ noteId: z.uuid() });
 
 /** A pilot named in a query (?pilot=). */
 export const pilotQuerySchema = z.object({ pilot: z.uuid().optional() });
+
+/** A practice plan the coach assigns (POST /api/coach/plans). */
+export const planCreateSchema = planInputSchema.extend({ pilotId: z.uuid() });

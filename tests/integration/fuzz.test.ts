@@ -81,6 +81,9 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/coach-grants/[grantId]": { DELETE: "none" },
   "/api/coach/claim": { POST: "json" },
   "/api/coach/pilots": { GET: "none" },
+  "/api/coach/plans": { GET: "none", POST: "json" },
+  "/api/notes": { POST: "json" },
+  "/api/notes/[noteId]/replies": { POST: "json" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -168,6 +171,12 @@ function template(path: string, userId: string): Record<string, unknown> {
   // an offer of the fuzz user's season to an address; a code nobody issued (404, nothing written)
   if (path === "/api/coach-grants") return { kind: "email", email: `fuzz-coach-${uuidv7()}@example.com` };
   if (path === "/api/coach/claim") return { code: "ZZZZ-ZZZZ" };
+  // the fuzz user coaches nobody and has no notes: a well-formed note, answer or plan is a 404 and writes nothing
+  if (path === "/api/notes") return { pilotId: uuidv7(), runId: uuidv7(), body: "Keep the second launch lower." };
+  if (path === "/api/notes/[noteId]/replies") return { body: "Thanks, will do." };
+  if (path === "/api/coach/plans") {
+    return { pilotId: uuidv7(), title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }] };
+  }
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
