@@ -322,7 +322,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), noteId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
