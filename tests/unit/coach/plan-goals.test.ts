@@ -75,3 +75,18 @@ describe("practice plan goals", () => {
     expect(planInputSchema.safeParse({ ...ok, items: [] }).success).toBe(false);
   });
 });
+
+describe("the coach's plan form", async () => {
+  const { planFormSchema, planFromForm } = await import("@/lib/coach/plan-form");
+  it("turns the inputs into the route's plan and refuses a missing number", () => {
+    const form = { pilotId: "p", title: " Turnarounds ", items: [{ task: "H:600", goal: "three 1-2-3-4 windows", windows: "3", measure: "median-turnaround-below" as const, target: "3" }] };
+    expect(planFormSchema.safeParse(form).success).toBe(true);
+    expect(planFromForm(form)).toEqual({
+      pilotId: "p", title: "Turnarounds",
+      items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }],
+    });
+    expect(planInputSchema.safeParse(planFromForm(form)).success).toBe(true);
+    expect(planFormSchema.safeParse({ ...form, items: [{ ...form.items[0], target: "" }] }).success).toBe(false);
+    expect(planFromForm({ ...form, items: [{ ...form.items[0]!, measure: "none" as const }] }).items[0]!.measure).toBeNull();
+  });
+});
