@@ -42,6 +42,9 @@ function build() {
     /** Club invitations an officer sends: 50 an hour (a whole club at once), and 3 an hour to one address. */
     invitations: make("invitations", 50, HOUR),
     invitationsTo: make("invitations-to", 3, HOUR),
+    /** One-time coach codes typed in: 10 an hour per account, 60 an hour per address (nobody guesses codes). */
+    coachClaims: make("coach-claims", 10, HOUR),
+    coachClaimsFrom: make("coach-claims-from", 60, HOUR),
   };
 }
 

@@ -1,5 +1,5 @@
 import { FirstUseCautions } from "./first-use-cautions";
-import { OpenWindows, PlanEditor, RecentResults } from "./field-islands";
+import { AssignedPlans, OpenWindows, PlanEditor, RecentResults } from "./field-islands";
 
 /**
  * /field: windows still open on this phone, the start control, practice plans, recent results,
@@ -15,6 +15,7 @@ export function FieldHome() {
       <a href="/field/new" className="flex min-h-[5.5rem] items-center justify-center rounded-2xl bg-accent text-2xl font-extrabold text-accent-ink">
         Start a task window
       </a>
+      <AssignedPlans />
       <PlanEditor />
       <section aria-labelledby="recent-title" className="space-y-2">
         <h2 id="recent-title" className="text-lg font-bold">

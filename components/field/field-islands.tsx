@@ -19,3 +19,5 @@ export const PlanEditor = dynamic(() => import("./plan-editor").then((m) => m.Pl
   ssr: false,
   loading: () => <p aria-busy="true">Reading this phone&apos;s plans…</p>,
 });
+
+export const AssignedPlans = dynamic(() => import("./assigned-plans").then((m) => m.AssignedPlans), { ssr: false });

@@ -1,13 +1,14 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import { FormProvider, useForm, useWatch } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { planNewWindow, type NewWindowErrors, type WhoFlies } from "@/lib/field/new-window";
 import { catalogueChoiceOf, planProgressKey, progressAfter } from "@/lib/field/practice-plan";
 import { prepPlanKey } from "@/lib/field/prep-plan";
-import { getWindowcallDb } from "@/lib/offline/db";
+import { itemTaskText } from "@/lib/coach/plan-goals";
+import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
 import { isQuotaError } from "@/lib/offline/storage";
 import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings, type RuleSettings, type TaskLetter } from "@/lib/tasks";
@@ -48,6 +49,7 @@ function NewWindowFormInner() {
   const [position, setPosition] = useState<{ lat: number; lon: number } | null>(null);
   const [who, setWho] = useState<WhoFlies>({ mode: "me" });
   const [planPick, setPlanPick] = useState<PlanPick | null>(null);
+  const coachItem = useCoachPlanItem((key) => setValue("taskKey", key));
   const [settings, setSettings] = useState<RuleSettings>(DEFAULT_RULE_SETTINGS);
   const [errors, setErrors] = useState<NewWindowErrors & { save?: string }>({});
   const [busy, setBusy] = useState(false);
@@ -77,7 +79,9 @@ function NewWindowFormInner() {
     try {
       const db = getWindowcallDb();
       const session = await createSessionLocal(db, out.plan.session);
-      const run = await createRunLocal(db, { ...out.plan.run, sessionId: session.id });
+      // a window set up from a coach's plan item (and still on its task) names that item
+      const linked = coachItem && taskKey === coachItem.taskKey ? { plan: { id: coachItem.planId, item: coachItem.item } } : {};
+      const run = await createRunLocal(db, { ...out.plan.run, sessionId: session.id, ...linked });
       localStorage.setItem(LAST_FIELD_KEY, out.plan.session.fieldName);
       if (planPick && planItem) localStorage.setItem(planProgressKey(planPick.plan.id), JSON.stringify(progressAfter(planPick.plan, planPick.itemIndex)));
       if (out.plan.prep) localStorage.setItem(prepPlanKey(run.id), JSON.stringify({ beganAtWallMs: Date.now(), ...out.plan.prep }));
@@ -121,6 +125,12 @@ function NewWindowFormInner() {
         <TextField id="notes" label="Notes" {...register("notes")} error={fe.notes?.message} />
       </fieldset>
       <WhoFliesFields who={who} onChange={setWho} myName={profile?.name ?? ""} mates={mates} error={errors.who} />
+      {coachItem ? (
+        <p className="rounded-lg border-2 border-line p-3" data-testid="coach-plan-item">
+          From {coachItem.coachName ? `${coachItem.coachName}'s` : "your coach's"} plan “{coachItem.title}”: {coachItem.text}
+          {taskKey === coachItem.taskKey ? "" : " (another task is chosen now: this window will not count for the plan)"}
+        </p>
+      ) : null}
       <TaskChooser value={taskKey} onChange={(k) => setValue("taskKey", k)} />
       {taskKey === "custom" ? <CustomTaskFields /> : null}
       {taskKey === "plan" ? <PlanTaskChooser pick={planPick} onPick={setPlanPick} /> : null}
@@ -149,4 +159,34 @@ function NewWindowFormInner() {
     </form>
     </FormProvider>
   );
+}
+
+type CoachItem = { planId: string; item: number; title: string; coachName: string | null; taskKey: string; text: string };
+
+/**
+ * The coach's plan item named in the address (/field/new?plan=…&item=…, from the Field's "Ready to
+ * fly"), read from the device database; its task is chosen once it is found.
+ */
+function useCoachPlanItem(choose: (taskKey: TaskKey) => void): CoachItem | null {
+  const [found, setFound] = useState<CoachItem | null>(null);
+  useEffect(() => {
+    const q = new URLSearchParams(window.location.search);
+    const planId = q.get("plan");
+    const item = Number(q.get("item"));
+    if (!planId || !Number.isInteger(item)) return;
+    let live = true;
+    void getMeta(getWindowcallDb(), "assignedPlans").then((plans) => {
+      const plan = plans?.find((p) => p.id === planId);
+      const it = plan?.items[item];
+      if (!live || !plan || !it) return;
+      const taskKey = `${it.letter}:${it.variant}`;
+      setFound({ planId, item, title: plan.title, coachName: plan.coachName, taskKey, text: `${itemTaskText(it)}, ${it.goal}` });
+      choose(taskKey as TaskKey);
+    });
+    return () => {
+      live = false;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- once, from the address
+  }, []);
+  return found;
 }

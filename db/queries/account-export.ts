@@ -1,7 +1,8 @@
 import "server-only";
 import { and, asc, eq, getTableColumns, inArray, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
-import { clubs, coachGrants, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
+import { clubs, coachGrants, coachInvites, coachNotes, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
+import { alias } from "drizzle-orm/pg-core";
 import { exportHangar } from "./hangar-export";
 
 // the lanes as stored, without the season's generated copies of their derived flights and breakdown
@@ -15,8 +16,9 @@ export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
 
 /**
  * Everything Windowcall holds about one account, for "export all my data" (never a password
- * hash): the account; club memberships; coach grants it gave and received; devices; practice
- * plans; field sessions it owns; runs in those sessions, runs it created and runs where it flies
+ * hash): the account; club memberships; coach grants it gave and received, and the offers of its
+ * season it made (by address or by code; never the code); devices; practice plans assigned to it
+ * and those it assigned as a coach; coach notes about its runs and sessions and those it wrote; field sessions it owns; runs in those sessions, runs it created and runs where it flies
  * a lane, each with all lanes and their results; the events it recorded or that belong to its
  * lanes (a run-wide event such as the window start belongs to every lane); and its decisions on
  * lanes someone else recorded for it (accepted, disputed with the reason, hidden; when).
@@ -30,7 +32,8 @@ export async function exportAccount(db: Database, userId: string) {
   const myRun = sql`(${runs.createdBy} = ${userId}
     or ${runs.sessionId} in (select id from field_sessions where owner_id = ${userId})
     or exists (select 1 from run_lanes l where l.run_id = ${runs.id} and l.pilot_user_id = ${userId}))`;
-  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows, consents] = await Promise.all([
+  const author = alias(users, "author");
+  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows, consents, offers, notes, plansAssigned] = await Promise.all([
     db.select({ clubId: clubs.id, club: clubs.name, role: memberships.role, since: memberships.createdAt })
       .from(memberships).innerJoin(clubs, eq(clubs.id, memberships.clubId)).where(eq(memberships.userId, userId)),
     db.select({ coachId: coachGrants.coachId, coach: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
@@ -39,12 +42,23 @@ export async function exportAccount(db: Database, userId: string) {
       .from(coachGrants).innerJoin(users, eq(users.id, coachGrants.pilotId)).where(eq(coachGrants.coachId, userId)),
     db.select({ id: devices.id, label: devices.label, createdAt: devices.createdAt, lastSeenAt: devices.lastSeenAt })
       .from(devices).where(eq(devices.userId, userId)),
-    db.select({ id: practicePlans.id, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
-      .from(practicePlans).where(eq(practicePlans.pilotId, userId)),
+    db.select({ id: practicePlans.id, coachId: practicePlans.coachId, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
+      .from(practicePlans).where(eq(practicePlans.pilotId, userId)).orderBy(asc(practicePlans.createdAt)),
     db.select().from(fieldSessions).where(eq(fieldSessions.ownerId, userId)).orderBy(asc(fieldSessions.startedAt)),
     db.select().from(runs).where(myRun).orderBy(asc(runs.createdAt)),
     db.select({ runId: laneConsents.runId, lane: laneConsents.lane, decision: laneConsents.status, reason: laneConsents.reason, decidedAt: laneConsents.decidedAt })
       .from(laneConsents).where(eq(laneConsents.pilotUserId, userId)).orderBy(asc(laneConsents.decidedAt)),
+    // offers of the season the user made (the address offered; never a code's hash)
+    db.select({ id: coachInvites.id, email: coachInvites.email, byCode: sql<boolean>`${coachInvites.codeHash} is not null`, createdAt: coachInvites.createdAt,
+      expiresAt: coachInvites.expiresAt, acceptedAt: coachInvites.acceptedAt, revokedAt: coachInvites.revokedAt })
+      .from(coachInvites).where(eq(coachInvites.pilotId, userId)).orderBy(asc(coachInvites.createdAt)),
+    // notes about the user's runs and sessions, and notes and answers the user wrote as a coach or pilot
+    db.select({ id: coachNotes.id, pilotId: coachNotes.pilotId, coachId: coachNotes.coachId, author: author.name, authorId: coachNotes.authorId,
+      sessionId: coachNotes.sessionId, runId: coachNotes.runId, replyTo: coachNotes.replyTo, body: coachNotes.body, createdAt: coachNotes.createdAt })
+      .from(coachNotes).innerJoin(author, eq(author.id, coachNotes.authorId))
+      .where(or(eq(coachNotes.pilotId, userId), eq(coachNotes.authorId, userId))).orderBy(asc(coachNotes.createdAt), asc(coachNotes.id)),
+    db.select({ id: practicePlans.id, pilotId: practicePlans.pilotId, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
+      .from(practicePlans).where(eq(practicePlans.coachId, userId)).orderBy(asc(practicePlans.createdAt)),
   ]);
   const runIds = runRows.map((r) => r.id);
   const [lanes, eventRows] = runIds.length
@@ -64,6 +78,9 @@ export async function exportAccount(db: Database, userId: string) {
     coachGrants: { given: grantsGiven, received: grantsReceived },
     devices: myDevices,
     practicePlans: plans,
+    practicePlansAssigned: plansAssigned,
+    coachOffers: offers,
+    coachNotes: notes,
     sessions,
     runs: runRows.map((r) => ({ ...r, lanes: lanes.filter((l) => l.runId === r.id) })),
     events: eventRows,

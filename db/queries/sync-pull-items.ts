@@ -26,7 +26,7 @@ export async function loadItems(db: Executor, userId: string, rows: ChangeRow[])
   const sessions = await db.execute<SessionRow>(sql`select ${SESSION_COLS} from field_sessions s
       where s.id in (${inList(ids(rows, "session"))})
          or s.id in (select session_id from runs where id in (${runIds}))`);
-  const runs = await db.execute<RunRow>(sql`select r.id, r.session_id, r.task, r.created_at, r.created_by, u.name as creator_name,
+  const runs = await db.execute<RunRow>(sql`select r.id, r.session_id, r.task, r.created_at, r.created_by, u.name as creator_name, r.plan_id, r.plan_item,
         (select json_agg(json_build_object('lane', l.lane, 'pilotName', l.pilot_name, 'pilotUserId', l.pilot_user_id,
            'resultTenths', l.result_tenths, 'needsReview', l.needs_review, 'reviewReason', l.review_reason,
            'penaltyPoints', l.derived->'breakdown'->'penaltyPoints', 'versions', l.derived->'versions', 'notes', l.derived->'notes',
@@ -116,7 +116,7 @@ type LaneJson = {
 };
 type RunRow = {
   id: string; session_id: string; task: Record<string, unknown>; created_at: Date | string; created_by: string; creator_name: string;
-  lanes: LaneJson[] | null;
+  plan_id: string | null; plan_item: number | null; lanes: LaneJson[] | null;
 };
 type EventRow = {
   id: string; run_id: string; device_id: string; seq: number; recorded_by: string; body: RunEvent["body"];
@@ -135,10 +135,12 @@ function toSession(s: SessionRow): SessionEntity {
 }
 
 function toRun(r: RunRow, lanes: LaneJson[]): RunEntity {
-  return {
+  const run: RunEntity = {
     id: r.id, sessionId: r.session_id, task: r.task, createdAtWallMs: new Date(r.created_at).getTime(),
     lanes: lanes.map((l) => (l.pilotUserId ? { lane: l.lane, pilotName: l.pilotName, pilotUserId: l.pilotUserId } : { lane: l.lane, pilotName: l.pilotName })),
   };
+  if (r.plan_id !== null && r.plan_item !== null) run.plan = { id: r.plan_id, item: r.plan_item };
+  return run;
 }
 
 function toConsents(r: RunRow, lanes: LaneJson[]): LaneConsent[] {

@@ -4,6 +4,8 @@ import { PULL_DEFAULT_LIMIT, readPullCursor, type PulledModel, type PullReply } 
 import { FORGET_MAX, forgottenLanes, forgottenRuns } from "./sync-forget";
 import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
+import { notesFor } from "./coach/notes";
+import { plansOfPilot } from "./coach/plans";
 import type { Database } from "../index";
 import type { Executor } from "./sync-db";
 
@@ -78,7 +80,11 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
     if (lanes.length > 0) reply.forgetLanes = lanes;
   }
   if (forget.size > 0) reply.forget = [...forget].slice(0, FORGET_MAX);
-  if (!hasMore) reply.models = await hangarOf(db, userId);
+  if (!hasMore) {
+    reply.models = await hangarOf(db, userId);
+    reply.notes = await notesFor(db, userId);
+    reply.plans = await plansOfPilot(db, userId);
+  }
   return reply;
 }
 

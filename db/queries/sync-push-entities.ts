@@ -1,4 +1,5 @@
 import "server-only";
+import { ownPlanItems } from "./coach/plans";
 import { and, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
@@ -63,6 +64,7 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   const sessionsById = new Map(sessionRows.map((s) => [s.id, s]));
   const pilots = await pilotFacts(ctx, items);
   const perDay = await runsPerDay(ctx, items);
+  const planItems = await ownPlanItems(tx, ctx.userId, [...new Set(items.flatMap((r) => (r.plan ? [r.plan.id] : [])))]);
   const freshRuns: (typeof runs.$inferInsert)[] = [];
   const freshLanes: (typeof runLanes.$inferInsert)[] = [];
   const seen = new Set<string>();
@@ -98,6 +100,8 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
       // only the parsed task is stored: fields the engine does not know are dropped
       id: r.id, sessionId: r.sessionId, createdBy: ctx.userId, task: task.data, taskCode: task.data.letter ?? "custom",
       edition: task.data.edition, createdAt: new Date(r.createdAtWallMs),
+      // a plan link counts only for a plan assigned to this pilot, and an item it has; otherwise it is left off
+      ...(r.plan && r.plan.item < (planItems.get(r.plan.id) ?? 0) ? { planId: r.plan.id, planItem: r.plan.item } : {}),
     });
     for (const l of r.lanes) freshLanes.push({ runId: r.id, lane: l.lane, pilotUserId: l.pilotUserId ?? null, pilotName: l.pilotName });
     ctx.acks.push({ id: r.id, status: "applied" });

@@ -1,21 +1,41 @@
-import { index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import { fieldSessions } from "./sessions";
+import { type AnyPgColumn, index, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { fieldSessions, runs } from "./sessions";
 import { users } from "./users";
 
-/** A coach's note on a pilot's session. */
+/**
+ * A coach's note on a pilot's session or run, and the answers to it: a thread is one note with
+ * `reply_to` null (written by the coach) and its answers (`reply_to` its id, written by the pilot
+ * or the same coach). `pilot_id` and `coach_id` name the thread's two people on every row, so who
+ * may read a row is decided by them alone (the pilot, or the coach while the pilot's grant holds).
+ */
 export const coachNotes = pgTable(
   "coach_notes",
   {
     id: uuid("id").primaryKey().defaultRandom(),
     sessionId: uuid("session_id").notNull().references(() => fieldSessions.id, { onDelete: "cascade" }),
+    /** null: a note on the whole session */
+    runId: uuid("run_id").references(() => runs.id, { onDelete: "cascade" }),
+    pilotId: uuid("pilot_id").notNull().references(() => users.id, { onDelete: "cascade" }),
     coachId: uuid("coach_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    replyTo: uuid("reply_to").references((): AnyPgColumn => coachNotes.id, { onDelete: "cascade" }),
     body: text("body").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("coach_notes_session_id_idx").on(t.sessionId)],
+  (t) => [
+    index("coach_notes_session_id_idx").on(t.sessionId),
+    index("coach_notes_pilot_id_idx").on(t.pilotId),
+    index("coach_notes_coach_id_idx").on(t.coachId),
+    index("coach_notes_reply_to_idx").on(t.replyTo),
+  ],
 );
 
-/** A practice plan a coach assigns: an ordered list of task definitions with notes. */
+/**
+ * A practice plan a coach assigns to a pilot who grants them their season: a title and an ordered
+ * list of items (lib/coach/plan-goals.ts PlanItem: a catalogue task, a goal in words, how many
+ * windows, and where measurable a number to reach). Runs set up from an item name it
+ * (runs.plan_id, runs.plan_item); progress is computed from those runs' derived results.
+ */
 export const practicePlans = pgTable(
   "practice_plans",
   {

@@ -47,10 +47,13 @@ export const runs = pgTable(
     taskCode: text("task_code").notNull(),
     edition: text("edition").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
+    /** The assigned practice plan (db/schema/coaching.ts) and its item this window was set up from; null for most runs. */
+    planId: uuid("plan_id"),
+    planItem: smallint("plan_item"),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
     xid: writtenByXact(),
   },
-  (t) => [index("runs_session_id_idx").on(t.sessionId), index("runs_server_seq_idx").on(t.serverSeq), index("runs_xid_seq_idx").on(t.xid, t.serverSeq)],
+  (t) => [index("runs_plan_id_idx").on(t.planId), index("runs_session_id_idx").on(t.sessionId), index("runs_server_seq_idx").on(t.serverSeq), index("runs_xid_seq_idx").on(t.xid, t.serverSeq)],
 );
 
 /** A pilot in a run, and the server's official result for them, derived from the events. */

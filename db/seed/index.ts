@@ -6,6 +6,7 @@ import { deriveAllRuns } from "../queries/runs";
 import { DEMO_CLUB, DEMO_PASSWORD, DEMO_PEOPLE } from "./demo-people";
 import { seedAdminDemo } from "./admin-demo";
 import { seedClubs } from "./clubs";
+import { seedCoaching } from "./coaching";
 import { seedDemoContest } from "./demo-contest";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
@@ -23,6 +24,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     await seedHangar(db); // a database seeded before the hangar existed gets its demo too
     await seedClubs(db, () => hashPassword(DEMO_PASSWORD));
     await seedDemoContest(db);
+    await seedCoaching(db);
     return "present";
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -93,5 +95,6 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   await seedHangar(db);
   await seedClubs(db, async () => passwordHash);
   await seedDemoContest(db);
+  await seedCoaching(db);
   return "seeded";
 }

@@ -60,6 +60,22 @@ export async function invitationLimit(userId: string, email: string): Promise<Re
   return null;
 }
 
+/**
+ * One-time coach codes a signed-in user types in (POST /api/coach/claim): 10 an hour per account
+ * and, when the address is visible, 60 an hour per address, so nobody guesses a pilot's code.
+ */
+export async function coachClaimLimit(request: Request, userId: string): Promise<Response | null> {
+  const l = getLimiters();
+  const a = await count(l.coachClaims, userId);
+  if (a.consumedPoints > l.coachClaims.points) return tooMany("Too many codes tried from this account. Try again in an hour.", a.msBeforeNext);
+  const address = clientAddress(Object.fromEntries(request.headers));
+  if (address) {
+    const b = await count(l.coachClaimsFrom, address);
+    if (b.consumedPoints > l.coachClaimsFrom.points) return tooMany("Too many codes tried from this network. Try again later.", b.msBeforeNext);
+  }
+  return null;
+}
+
 function tooMany(message: string, retryAfterMs: number): Response {
   const body: ErrorBody = { error: { code: "rate_limited", message } };
   return Response.json(body, { status: 429, headers: { "retry-after": String(Math.max(1, Math.ceil(retryAfterMs / 1000))) } });

@@ -57,6 +57,11 @@ export const runEntitySchema = z.object({
     .refine((lanes) => new Set(lanes.map((l) => l.lane)).size === lanes.length, "lane numbers must be unique"),
   /** Device wall clock when the run was created. */
   createdAtWallMs: epochMs,
+  /**
+   * The item of a practice plan assigned to the run's creator that this window was set up from
+   * (lib/coach/plan-goals.ts). The server keeps it only when the plan is the creator's own.
+   */
+  plan: z.object({ id: z.uuid(), item: z.number().int().min(0).max(11) }).optional(),
 });
 export type RunEntity = z.infer<typeof runEntitySchema>;
 

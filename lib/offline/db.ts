@@ -4,6 +4,7 @@ import type { RunEvent } from "@/lib/events/schema";
 import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult, PulledModel } from "@/lib/validations/sync";
+import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
 import { BASE_DB_NAME, currentDbName } from "./device-user";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 
@@ -68,6 +69,10 @@ export type MetaValues = {
   clubMates: { id: string; name: string }[];
   /** That user's models (their hangar), as the last pull or /api/models gave them: the lanes offer them offline. */
   models: PulledModel[];
+  /** Coach notes and answers that user may read (as pilot or coach), as the last pull gave them: the run page shows them offline. */
+  notes: PulledNote[];
+  /** Practice plans coaches assigned to that user, with progress, as the last pull gave them: the Field shows them offline. */
+  assignedPlans: PulledPlan[];
   /** The fields of that user's clubs with their cautions, cached while online (the set-up form shows them offline). */
   clubFields: {
     id: string; name: string; clubName: string; latitude: number | null; longitude: number | null;

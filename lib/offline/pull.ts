@@ -79,6 +79,9 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       await setMeta(db, "pullCursor", nextCursor);
       if (scope !== undefined) await setMeta(db, "pullScope", scope);
       if (r.value.models) await setMeta(db, "models", r.value.models);
+      // whole lists: what the user may no longer read (a revoked grant) drops off here
+      if (r.value.notes) await setMeta(db, "notes", r.value.notes);
+      if (r.value.plans) await setMeta(db, "assignedPlans", r.value.plans);
     });
     stored += items.length;
     cursor = nextCursor;

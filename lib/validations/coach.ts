@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { emailSchema } from "./auth";
 import { text } from "./bounds";
+import { planInputSchema } from "@/lib/coach/plan-goals";
 
 /** A pilot's offer: to a coach's e-mail address, or a one-time code the coach types in. */
 export const coachOfferSchema = z.discriminatedUnion("kind", [
@@ -16,3 +17,26 @@ export const coachClaimSchema = z.object({
 
 /** A grant or offer named in a path. */
 export const grantIdSchema = z.object({ grantId: z.uuid() });
+
+/** Most characters in a note or an answer. */
+export const NOTE_BODY_MAX = 2000;
+
+const noteBody = text(NOTE_BODY_MAX).trim().min(1, "Write something first.");
+
+/** A coach's note on one of a granting pilot's runs or sessions (exactly one of runId, sessionId). */
+export const noteCreateSchema = z
+  .object({ pilotId: z.uuid(), runId: z.uuid().optional(), sessionId: z.uuid().optional(), body: noteBody })
+  .refine((n) => (n.runId === undefined) !== (n.sessionId === undefined), { message: "Name the run or the session the note is about (one of them)." });
+export type NoteCreateInput = z.infer<typeof noteCreateSchema>;
+
+/** An answer in a note's thread. */
+export const noteReplySchema = z.object({ body: noteBody });
+
+/** A note named in a path. */
+export const noteIdSchema = z.object({ noteId: z.uuid() });
+
+/** A pilot named in a query (?pilot=). */
+export const pilotQuerySchema = z.object({ pilot: z.uuid().optional() });
+
+/** A practice plan the coach assigns (POST /api/coach/plans). */
+export const planCreateSchema = planInputSchema.extend({ pilotId: z.uuid() });

@@ -3,6 +3,7 @@ import { clockEstimateSchema, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, runEventSche
 import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
+import { pulledNoteSchema, pulledPlanSchema } from "./coaching-sync";
 import { MODEL_STATUSES } from "./hangar";
 
 export { clockEstimateSchema };
@@ -195,6 +196,14 @@ export const pullReplySchema = z.object({
    * offline. A whole list each time, so a model sold or deleted drops off the phone.
    */
   models: z.array(pulledModelSchema).max(10_000).optional(),
+  /**
+   * Coach notes and their answers the user may read now (as the pilot, or as the coach while the
+   * pilot's grant holds), on the last page of every pull: a whole list, so a revoked coach's
+   * phone drops that pilot's notes at its next pull (db/queries/coach/notes.ts).
+   */
+  notes: z.array(pulledNoteSchema).max(5_000).optional(),
+  /** Practice plans assigned to the user, with their progress, on the last page of every pull (the Field shows them offline). */
+  plans: z.array(pulledPlanSchema).max(1_000).optional(),
 });
 export type PullReply = z.infer<typeof pullReplySchema>;
 

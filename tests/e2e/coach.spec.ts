@@ -5,9 +5,45 @@ import { signInAs } from "./support/auth";
 /**
  * The Coach desk as its two users use it (db/seed: Mara coaches, Ada and Tobi grant her; Lena does
  * not): Lena offers her season to Mara's e-mail from Settings; Mara opens the Coach desk, finds
- * Lena on her roster and taps into Lena's Season; Lena revokes, and Mara's next request — the
- * page and its route — is a 404. axe finds no serious violations on /coach.
+ * Lena on her roster and taps into Lena's Season, opens one of Lena's runs from it and writes a
+ * note; Lena sees it on the run and answers, and Mara sees the answer; Mara assigns Lena a plan,
+ * which Lena's Field shows as ready to fly and whose item sets up a window linked to it. Lena
+ * revokes, and Mara's next request — the page and its route — is a 404, and after one sync Mara's
+ * device database holds none of Lena's runs or notes. axe finds no serious violations on /coach
+ * and /season.
  */
+
+/** What the page's device databases hold of one pilot: runs with a lane of theirs, and notes about them. */
+async function heldOf(page: Page, pilotId: string): Promise<{ runs: number; notes: number; names: string[] }> {
+  return page.evaluate(async (pilotId) => {
+    const names = (await indexedDB.databases()).map((d) => d.name ?? "").filter((n) => n.startsWith("windowcall"));
+    let runs = 0;
+    let notes = 0;
+    for (const name of names) {
+      const db = await new Promise<IDBDatabase>((resolve, reject) => {
+        const req = indexedDB.open(name);
+        req.onsuccess = () => resolve(req.result);
+        req.onerror = () => reject(req.error);
+      });
+      if (db.objectStoreNames.contains("runs")) {
+        const all = await new Promise<{ lanes: { pilotUserId?: string }[] }[]>((resolve, reject) => {
+          const req = db.transaction("runs").objectStore("runs").getAll();
+          req.onsuccess = () => resolve(req.result);
+          req.onerror = () => reject(req.error);
+        });
+        runs += all.filter((r) => r.lanes.some((l) => l.pilotUserId === pilotId)).length;
+        const row = await new Promise<{ value: { pilotId: string }[] } | undefined>((resolve, reject) => {
+          const req = db.transaction("meta").objectStore("meta").get("notes");
+          req.onsuccess = () => resolve(req.result);
+          req.onerror = () => reject(req.error);
+        });
+        notes += (row?.value ?? []).filter((n) => n.pilotId === pilotId).length;
+      }
+      db.close();
+    }
+    return { runs, notes, names };
+  }, pilotId);
+}
 
 test.use({ viewport: { width: 360, height: 800 } });
 
@@ -17,7 +53,8 @@ async function noSeriousViolations(page: Page, what: string) {
   expect(bad.map((v) => `${what}: ${v.id} (${v.impact}) ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
 }
 
-test("a pilot grants a coach, the coach reads the pilot's Season, and after the revoke gets a 404", async ({ browser }) => {
+test("a pilot grants a coach; the coach reads her Season, writes a note she answers and assigns a plan her Field shows; after the revoke a 404 and nothing of hers on the coach's phone", async ({ browser }) => {
+  test.setTimeout(240_000);
   const pilotContext = await browser.newContext();
   const coachContext = await browser.newContext();
   const pilot = await pilotContext.newPage();
@@ -43,8 +80,83 @@ test("a pilot grants a coach, the coach reads the pilot's Season, and after the 
   const lenaId = new URL(coach.url()).searchParams.get("pilot")!;
   expect(lenaId).toMatch(/^[0-9a-f-]{36}$/);
   expect((await coach.request.get(`/api/pilots/${lenaId}/season`)).status()).toBe(200);
+  await expect(coach.getByRole("table").last()).toBeVisible();
+  await noSeriousViolations(coach, "/season?pilot=");
 
-  await pilot.reload();
+  // a run of Lena's from her Season: Mara writes a note on it (the page reads the run from Mara's phone after its sync)
+  const runLink = coach.locator('a[href^="/logbook/run?id="]').first();
+  await expect(runLink).toBeVisible();
+  const runHref = (await runLink.getAttribute("href"))!;
+  await coach.goto(runHref);
+  const notes = coach.getByRole("region", { name: "Coach notes" });
+  await expect(notes).toBeVisible({ timeout: 60_000 });
+  const noteText = "Land facing the spot and relaunch within three seconds.";
+  await notes.getByLabel("A note for Lena Strand on this run").fill(noteText);
+  await notes.getByRole("button", { name: "Send the note" }).click();
+  await expect(notes.getByText(noteText)).toBeVisible();
+
+  // Lena sees it on the same run and answers
+  await pilot.goto(runHref);
+  const pilotNotes = pilot.getByRole("region", { name: "Coach notes" });
+  await expect(pilotNotes.getByText(noteText)).toBeVisible({ timeout: 60_000 });
+  await expect(pilotNotes.getByText(/Mara Lindqvist · .* · on this run/)).toBeVisible();
+  const answerText = "Will do: I'll practise the catch on Saturday.";
+  await pilotNotes.getByLabel("Your answer").fill(answerText);
+  await pilotNotes.getByRole("button", { name: "Send the answer" }).click();
+  await expect(pilotNotes.getByText(answerText)).toBeVisible();
+
+  // Mara sees the answer after her next sync
+  await coach.reload();
+  await expect(coach.getByRole("region", { name: "Coach notes" }).getByText(answerText)).toBeVisible({ timeout: 60_000 });
+
+  // Mara assigns Lena a plan from the Coach desk
+  await coach.goto("/coach");
+  await coach.getByText("Build a plan").click();
+  await coach.getByLabel("Pilot", { exact: true }).selectOption({ label: "Lena Strand" });
+  await coach.getByLabel("Plan title").fill("Relaunch drills");
+  await coach.getByLabel("Task", { exact: true }).selectOption("H:600");
+  await coach.getByLabel("Goal in words").fill("one 1-2-3-4 window, median turnaround under 4 s");
+  await coach.getByLabel("Windows to fly").fill("1");
+  await coach.getByLabel("Seconds to beat").fill("4");
+  await coach.getByRole("button", { name: "Assign the plan" }).click();
+  await expect(coach.getByText("Plan assigned")).toBeVisible();
+  await expect(coach.getByRole("article", { name: "Relaunch drills for Lena Strand" })).toContainText("0 of 1 window flown");
+  await expect(roster.getByRole("link", { name: "Relaunch drills" })).toBeVisible();
+
+  // it is on Lena's Field, ready to fly; its item sets up a window of its task, linked to it
+  await pilot.goto("/field");
+  const ready = pilot.getByRole("region", { name: "Ready to fly: plans from your coach" });
+  await expect(ready.getByRole("article", { name: "Relaunch drills" })).toBeVisible({ timeout: 60_000 });
+  await ready.getByRole("link", { name: /Task H \(10 min\): one 1-2-3-4 window/ }).click();
+  await expect(pilot.getByTestId("coach-plan-item")).toContainText("From Mara Lindqvist's plan “Relaunch drills”");
+  await expect(pilot.getByRole("button", { name: "Set up the window" })).toBeEnabled();
+  const fieldName = pilot.getByLabel("Field", { exact: true });
+  if (!(await fieldName.inputValue())) await fieldName.fill("Five Acre Meadow");
+  await pilot.getByRole("button", { name: "Set up the window" }).click();
+  await pilot.waitForURL(/\/field\/run\?id=/);
+  const newRunId = new URL(pilot.url()).searchParams.get("id")!;
+  const linked = await pilot.evaluate(async (id) => {
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const req = indexedDB.open("windowcall");
+      req.onsuccess = () => resolve(req.result);
+      req.onerror = () => reject(req.error);
+    });
+    const run = await new Promise<{ task: { letter: string }; plan?: { item: number } }>((resolve, reject) => {
+      const req = db.transaction("runs").objectStore("runs").get(id);
+      req.onsuccess = () => resolve(req.result);
+      req.onerror = () => reject(req.error);
+    });
+    db.close();
+    return { letter: run.task.letter, item: run.plan?.item };
+  }, newRunId);
+  expect(linked).toEqual({ letter: "H", item: 0 });
+
+  // before the revoke, Mara's phone holds Lena's runs and notes (so what follows can fail)
+  await coach.goto("/coach");
+  await expect.poll(async () => (await heldOf(coach, lenaId)).notes, { timeout: 30_000 }).toBeGreaterThan(0);
+  expect((await heldOf(coach, lenaId)).runs).toBeGreaterThan(0);
+
+  await pilot.goto("/settings");
   await coaches.getByRole("button", { name: "Revoke Mara Lindqvist" }).click();
   await expect(coaches.getByRole("status")).toContainText("Revoked");
   await expect(coaches.getByText("Only you see your season.")).toBeVisible();
@@ -55,6 +167,8 @@ test("a pilot grants a coach, the coach reads the pilot's Season, and after the 
   await coach.goto("/coach");
   await expect(roster.getByRole("link", { name: "Ada Fenwick" })).toBeVisible();
   await expect(roster.getByRole("link", { name: "Lena Strand" })).toHaveCount(0);
+  // one sync later (this page's), Mara's phone holds nothing of Lena's
+  await expect.poll(async () => heldOf(coach, lenaId), { timeout: 60_000 }).toMatchObject({ runs: 0, notes: 0 });
 
   await pilotContext.close();
   await coachContext.close();

@@ -1,7 +1,8 @@
 import "./support/session";
+import { createHash } from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { eq, inArray } from "drizzle-orm";
-import { coachGrants, events, fieldSessions, memberships, runLanes, runs, users } from "@/db/schema";
+import { coachGrants, coachInvites, events, fieldSessions, memberships, runLanes, runs, users } from "@/db/schema";
 import { DELETE as deleteAccountRoute } from "@/app/api/account/route";
 import { GET as exportRoute } from "@/app/api/account/export/route";
 import { POST as passwordRoute } from "@/app/api/account/password/route";
@@ -115,6 +116,13 @@ describe("GET /api/account/export", () => {
     expect(Object.keys(seededRun.lanes[0]).sort()).toEqual(
       ["derived", "guestPilotId", "lane", "needsReview", "pilotName", "pilotUserId", "resultTenths", "reviewReason", "runId"],
     );
+    // the seeded coach desk: Mara's note on her run with Ada's answer, and the plan Mara assigned her
+    // (other tests add notes of their own to the shared database)
+    type Note = { id: string; author: string; replyTo: string | null; body: string };
+    const seededNote = data.coachNotes.find((n: Note) => n.author === "Mara Lindqvist" && n.body.startsWith("Good window."));
+    expect(seededNote?.replyTo).toBeNull();
+    expect(data.coachNotes.filter((n: Note) => n.replyTo === seededNote.id).map((n: Note) => n.author)).toEqual(["Ada Fenwick"]);
+    expect(data.practicePlans.map((p: { title: string }) => p.title)).toContain("Quicker relaunches before the spring contest");
     const stored = await db.select({ id: events.id }).from(events).where(eq(events.runId, seededRun.id));
     const exported = data.events.filter((e: { runId: string }) => e.runId === seededRun.id).map((e: { id: string }) => e.id);
     expect(exported.sort()).toEqual(stored.map((e) => e.id).sort());
@@ -153,6 +161,27 @@ describe("GET /api/account/export", () => {
     // the timer decided nothing
     actAs(timer);
     expect(JSON.parse(await (await exportRoute()).text()).consentDecisions).toEqual([]);
+  });
+});
+
+describe("GET /api/account/export: the coach desk", () => {
+  it("has the pilot's offers (address or code, never the code's hash) and the coach's notes and assigned plans", async () => {
+    const mara = await demoUser("mara@example.com");
+    const pilot = await freshUser("export-offers");
+    const hash = createHash("sha256").update(pilot.id).digest("hex");
+    await db.insert(coachInvites).values([
+      { pilotId: pilot.id, email: "coach-offer@example.com", expiresAt: new Date(Date.now() + 3600_000) },
+      { pilotId: pilot.id, codeHash: hash, expiresAt: new Date(Date.now() + 3600_000) },
+    ]);
+    actAs(pilot);
+    const text = await (await exportRoute()).text();
+    expect(text).not.toContain(hash);
+    const mine = JSON.parse(text);
+    expect(mine.coachOffers.map((o: { email: string | null; byCode: boolean }) => [o.email, o.byCode])).toEqual([["coach-offer@example.com", false], [null, true]]);
+    actAs(mara);
+    const coach = JSON.parse(await (await exportRoute()).text());
+    expect(coach.coachNotes.some((n: { authorId: string }) => n.authorId === mara.id)).toBe(true);
+    expect(coach.practicePlansAssigned.map((p: { title: string }) => p.title)).toContain("Quicker relaunches before the spring contest");
   });
 });
 

@@ -2,7 +2,7 @@ import "./support/session";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { coachInvites, fieldSessions, mailQueue, runs } from "@/db/schema";
+import { coachInvites, coachNotes, fieldSessions, mailQueue, runs } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
@@ -135,6 +135,29 @@ const ownersOffer = async (cast: Cast) => {
   return { grantId: row!.id };
 };
 
+/** A run of the seeded owner's own (filled in beforeAll): coach notes name it. */
+let ownersRunId = "";
+let ownersSessionId = "";
+const noteBody = (ctx: Ctx | null) => ({ pilotId: (ctx?.cast ?? seeded).owner.id, runId: ownersRunId, body: "Matrix note: watch the second launch." });
+/** A thread the granted coach started on the owner's run: the owner and that coach may answer, nobody else. */
+const coachesNote = async (cast: Cast) => {
+  const [row] = await db.insert(coachNotes).values({
+    sessionId: ownersSessionId, runId: ownersRunId, pilotId: cast.owner.id, coachId: cast.coachWithGrant.id, authorId: cast.coachWithGrant.id, body: "Matrix thread",
+  }).returning({ id: coachNotes.id });
+  return { noteId: row!.id };
+};
+/** The coach's plans name the owner only for the coach the owner grants (the seed assigns Ada a plan from Mara). */
+const plansNameOwner = async (ctx: Ctx, res: Response) => {
+  const { plans } = (await res.json()) as { plans: { pilotId: string }[] };
+  const named = plans.some((p) => p.pilotId === ctx.cast.owner.id);
+  expect({ actor: ctx.actor, named }).toEqual({ actor: ctx.actor, named: ctx.actor === "coachWithGrant" });
+};
+const planBody = (ctx: Ctx | null) => ({
+  pilotId: (ctx?.cast ?? seeded).owner.id, title: "Matrix plan",
+  items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }],
+});
+const coachOnly = (status: number): Record<Actor, Status> => ({ ...everyone(404), signedOut: 401, coachWithGrant: status });
+
 const listsUsers = async (_ctx: Ctx, res: Response) => {
   const data = (await res.json()) as { users: { email: string }[]; total: number };
   expect(data.users.length).toBeGreaterThan(0);
@@ -196,6 +219,12 @@ const ROWS: Record<string, Row> = {
   "DELETE /api/coach-grants/[grantId]": { ...ownerOnly({ params: ownersOffer }), cast: "fresh", expect: { ...everyone(404), signedOut: 401, owner: 204 } },
   "POST /api/coach/claim": { ...signedIn({ body: () => ({ code: "ZZZZ-ZZZZ" }) }), expect: { ...everyone(404), signedOut: 401 } },
   "GET /api/coach/pilots": signedIn({ check: rosterNamesOwner }),
+  // notes: only a coach holding the pilot's grant writes one on the pilot's run; the thread's pilot and coach answer; everyone else 404
+  "POST /api/notes": { body: noteBody, expect: coachOnly(201) },
+  "POST /api/notes/[noteId]/replies": { params: coachesNote, body: () => ({ body: "Matrix answer" }), expect: { ...coachOnly(201), owner: 201 } },
+  // practice plans: a coach lists only their own plans for pilots who still grant them, and assigns only to such a pilot
+  "GET /api/coach/plans": signedIn({ check: plansNameOwner }),
+  "POST /api/coach/plans": { body: planBody, expect: coachOnly(201) },
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),
@@ -256,6 +285,9 @@ let seeded: Cast;
 beforeAll(async () => {
   handlers = await discoverRouteHandlers();
   seeded = await seededCast();
+  const [own] = await db.select({ id: runs.id, sessionId: runs.sessionId }).from(runs).where(eq(runs.createdBy, seeded.owner.id)).limit(1);
+  ownersRunId = own!.id;
+  ownersSessionId = own!.sessionId;
 });
 
 afterAll(async () => {

@@ -70,6 +70,21 @@ describe("a pilot grants a coach their season", () => {
     expect((await seasonOf(pilot.id)).status).toBe(404);
   });
 
+  it("limits one-time codes to 10 tries an hour per account: the 11th is a 429, even with the right code", async () => {
+    const pilot = await freshUser("limit-pilot");
+    const guesser = await freshUser("limit-guesser");
+    actAs(pilot);
+    const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { code: string } };
+    const claimAs = (code: string) => claim(new Request("http://test/api/coach/claim", { method: "POST", body: JSON.stringify({ code }) }));
+    actAs(guesser);
+    for (let i = 0; i < 10; i++) expect((await claimAs(`GUESS-${String(i).padStart(3, "2")}`.slice(0, 9))).status).toBe(404);
+    const limited = await claimAs(made.code);
+    expect(limited.status).toBe(429);
+    expect(Number(limited.headers.get("retry-after"))).toBeGreaterThan(0);
+    expect(((await limited.json()) as { error: { code: string } }).error.code).toBe("rate_limited");
+    expect((await seasonOf(pilot.id)).status).toBe(404); // the right code, too late: no grant
+  });
+
   it("refuses bad input with a 4xx and changes nothing; another pilot cannot revoke", async () => {
     const pilot = await freshUser("bad-pilot");
     actAs(pilot);

@@ -82,6 +82,9 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/coach-grants/[grantId]": { DELETE: "none" },
   "/api/coach/claim": { POST: "json" },
   "/api/coach/pilots": { GET: "none" },
+  "/api/coach/plans": { GET: "none", POST: "json" },
+  "/api/notes": { POST: "json" },
+  "/api/notes/[noteId]/replies": { POST: "json" },
 };
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 type Method = (typeof METHODS)[number];
@@ -170,6 +173,12 @@ function template(path: string, userId: string): Record<string, unknown> {
   // an offer of the fuzz user's season to an address; a code nobody issued (404, nothing written)
   if (path === "/api/coach-grants") return { kind: "email", email: `fuzz-coach-${uuidv7()}@example.com` };
   if (path === "/api/coach/claim") return { code: "ZZZZ-ZZZZ" };
+  // the fuzz user coaches nobody and has no notes: a well-formed note, answer or plan is a 404 and writes nothing
+  if (path === "/api/notes") return { pilotId: uuidv7(), runId: uuidv7(), body: "Keep the second launch lower." };
+  if (path === "/api/notes/[noteId]/replies") return { body: "Thanks, will do." };
+  if (path === "/api/coach/plans") {
+    return { pilotId: uuidv7(), title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }] };
+  }
   if (path === "/api/account/sign-up") return { name: "Fuzz Pilot", email: `fuzz-${uuidv7()}@example.com`, password: "thermal-hunter-42" };
   const sessionId = uuidv7();
   const runId = uuidv7();
@@ -315,7 +324,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

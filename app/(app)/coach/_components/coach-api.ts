@@ -7,6 +7,7 @@ export type { PilotGrantRow, RosterPilot };
 export const coachKeys = {
   grants: ["coach-grants"] as const,
   roster: ["coach-roster"] as const,
+  plans: ["coach-plans"] as const,
 };
 
 /** A same-origin JSON request; a refusal throws an Error carrying the server's message. */

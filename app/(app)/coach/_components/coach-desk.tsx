@@ -6,11 +6,15 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { coachKeys, coachRequest, type RosterPilot } from "./coach-api";
 import { RosterTable } from "./roster-table";
+import { PlanBuilder } from "./plan-builder";
+import { PlanList } from "./plan-list";
+import type { PulledPlan } from "@/lib/validations/coaching-sync";
 
 /** The Coach desk: the roster (each granting pilot, one tap into their Season) and the one-time code box. */
 export function CoachDesk() {
   const client = useQueryClient();
   const roster = useQuery({ queryKey: coachKeys.roster, queryFn: () => coachRequest<{ pilots: RosterPilot[] }>("/api/coach/pilots") });
+  const plans = useQuery({ queryKey: coachKeys.plans, queryFn: () => coachRequest<{ plans: PulledPlan[] }>("/api/coach/plans") });
   const [code, setCode] = useState("");
   const [note, setNote] = useState<string | null>(null);
   const claim = useMutation({
@@ -39,8 +43,20 @@ export function CoachDesk() {
           roster.data.pilots.length === 0 ? (
             <p>No pilot lets you see their season yet. A pilot offers it from their Settings, by your e-mail or a one-time code.</p>
           ) : (
-            <RosterTable pilots={roster.data.pilots} />
+            <RosterTable pilots={roster.data.pilots} plans={plans.data?.plans ?? []} />
           )
+        ) : null}
+      </section>
+      <section aria-labelledby="plans-h" className="space-y-2" id="plans">
+        <h2 id="plans-h" className="text-lg font-bold">Practice plans</h2>
+        {plans.isPending ? <p className="text-muted">Loading your plans…</p> : null}
+        {plans.isError ? <p className="text-muted">{plans.error.message}</p> : null}
+        {plans.data ? <PlanList plans={plans.data.plans} /> : null}
+        {roster.data && roster.data.pilots.length > 0 ? (
+          <details>
+            <summary className="flex min-h-touch cursor-pointer items-center font-bold">Build a plan</summary>
+            <PlanBuilder pilots={roster.data.pilots} />
+          </details>
         ) : null}
       </section>
       <section aria-labelledby="code-h" className="space-y-2">

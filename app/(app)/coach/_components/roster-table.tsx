@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { RosterPilot } from "./coach-api";
+import type { PulledPlan } from "@/lib/validations/coaching-sync";
 
 const pct = (v: number | null) => (v === null ? "—" : `${Math.round(v * 100)} %`);
 const secs = (v: number | null) => (v === null ? "—" : `${v.toFixed(1)} s`);
@@ -17,7 +18,7 @@ function trend(recent: number | null, before: number | null, better: "higher" | 
 const when = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { day: "numeric", month: "short", year: "numeric" }) : "never");
 
 /** The roster as a table: a pilot's name opens their Season. */
-export function RosterTable({ pilots }: { pilots: RosterPilot[] }) {
+export function RosterTable({ pilots, plans }: { pilots: RosterPilot[]; plans: PulledPlan[] }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
@@ -29,6 +30,7 @@ export function RosterTable({ pilots }: { pilots: RosterPilot[] }) {
             <th scope="col" className="p-2">Runs this month</th>
             <th scope="col" className="p-2">Result (share of maximum)</th>
             <th scope="col" className="p-2">Median turnaround</th>
+            <th scope="col" className="p-2">Open practice plans</th>
           </tr>
         </thead>
         <tbody>
@@ -41,6 +43,12 @@ export function RosterTable({ pilots }: { pilots: RosterPilot[] }) {
               <td className="p-2">{p.runsThisMonth}</td>
               <td className="p-2">{trend(p.result.recent, p.result.before, "higher", pct)}</td>
               <td className="p-2">{trend(p.turnaround.recent, p.turnaround.before, "lower", secs)}</td>
+              <td className="p-2">
+                {plans.filter((x) => x.pilotId === p.pilotId && !x.progress.done).map((x) => (
+                  <a key={x.id} href={`#plan-${x.id}`} className="block underline">{x.title}</a>
+                ))}
+                {plans.some((x) => x.pilotId === p.pilotId && !x.progress.done) ? null : "none"}
+              </td>
             </tr>
           ))}
         </tbody>

@@ -3,6 +3,7 @@
 import { useSearchParams } from "next/navigation";
 import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulings, TimelineStrip } from "@/components/run";
 import { DiscardButton } from "@/components/field/discard-button";
+import { RunNotes } from "@/components/notes/run-notes";
 import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
@@ -90,6 +91,7 @@ export function RunReview() {
           </section>
         );
       })}
+      <RunNotes run={run} me={me} />
       <section aria-labelledby="versions-h" className="space-y-2">
         <h2 id="versions-h" className="text-lg font-bold">Server result and each phone’s version</h2>
         <Versions run={run} deviceId={data.deviceId} />

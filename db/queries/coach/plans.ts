@@ -1,0 +1,85 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import type { Database } from "../../index";
+import type { Executor } from "../sync-db";
+import { planItemSchema, planProgress, type PlanInput, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
+import type { PulledPlan } from "@/lib/validations/coaching-sync";
+
+/**
+ * A coach assigns a plan to a pilot who grants them their season; null (404) without the grant.
+ * The items are stored as planInputSchema parsed them.
+ */
+export async function createPlan(db: Database, p: { coachId: string; pilotId: string; plan: PlanInput }): Promise<PulledPlan | null> {
+  const res = await db.execute<{ id: string }>(sql`
+    insert into practice_plans (pilot_id, coach_id, title, items)
+    select ${p.pilotId}, ${p.coachId}, ${p.plan.title}, ${JSON.stringify(p.plan.items)}::jsonb
+    where exists (select 1 from coach_grants g where g.coach_id = ${p.coachId} and g.pilot_id = ${p.pilotId} and g.revoked_at is null)
+    returning id::text as id`);
+  const id = res.rows[0]?.id;
+  return id ? ((await plansWhere(db, sql`p.id = ${id}`))[0] ?? null) : null;
+}
+
+/** The plans assigned to the pilot (pullReplySchema.plans, the pilot's Field), newest first. */
+export function plansOfPilot(db: Executor, pilotId: string): Promise<PulledPlan[]> {
+  return plansWhere(db, sql`p.pilot_id = ${pilotId}`);
+}
+
+/** The plans a coach assigned to pilots who still grant them their season (the Coach desk), newest first. */
+export function plansOfCoach(db: Executor, coachId: string): Promise<PulledPlan[]> {
+  return plansWhere(db, sql`p.coach_id = ${coachId} and exists (
+    select 1 from coach_grants g where g.coach_id = ${coachId} and g.pilot_id = p.pilot_id and g.revoked_at is null)`);
+}
+
+/**
+ * Plans with their progress: each plan's runs are those its pilot created from one of its items
+ * (runs.plan_id / plan_item), read with the pilot's lane as the push derived it through
+ * lib/results (result, the breakdown's maximum, the flights) and judged by lib/coach/plan-goals.
+ */
+async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<PulledPlan[]> {
+  const plans = await db.execute<{
+    id: string; pilot_id: string; pilot_name: string; coach_name: string | null; title: string; items: unknown; created_at: string | Date;
+  }>(sql`select p.id::text, p.pilot_id::text, pu.name as pilot_name, cu.name as coach_name, p.title, p.items, p.created_at
+    from practice_plans p join users pu on pu.id = p.pilot_id left join users cu on cu.id = p.coach_id
+    where ${where} order by p.created_at desc, p.id limit 1000`);
+  if (plans.rows.length === 0) return [];
+  const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: string | null; flights: unknown }>(sql`
+    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths, l.season_flights as flights
+    from runs r join practice_plans p on p.id = r.plan_id
+    join run_lanes l on l.run_id = r.id and l.pilot_user_id = p.pilot_id
+    where r.plan_id in (${sql.join(plans.rows.map((p) => sql`${p.id}::uuid`), sql`, `)}) and r.created_by = p.pilot_id`);
+  const byPlan = new Map<string, PlanRun[]>();
+  for (const r of runs.rows) {
+    const list = byPlan.get(r.plan_id) ?? [];
+    list.push({ item: Number(r.item), resultTenths: r.result_tenths, maxTenths: r.max_tenths === null ? null : Number(r.max_tenths), flights: flightsOf(r.flights) });
+    byPlan.set(r.plan_id, list);
+  }
+  return plans.rows.map((p) => {
+    const items = readItems(p.items);
+    return {
+      id: p.id, pilotId: p.pilot_id, pilotName: p.pilot_name, coachName: p.coach_name, title: p.title, items,
+      createdAtMs: new Date(p.created_at).getTime(), progress: planProgress(items, byPlan.get(p.id) ?? []),
+    };
+  });
+}
+
+function readItems(raw: unknown): PlanItem[] {
+  if (!Array.isArray(raw)) return [];
+  return raw.flatMap((i) => {
+    const parsed = planItemSchema.safeParse(i);
+    return parsed.success ? [parsed.data] : [];
+  });
+}
+
+function flightsOf(raw: unknown): PlanRun["flights"] {
+  if (!Array.isArray(raw)) return [];
+  return raw.flatMap((f: { launchMs?: unknown; landMs?: unknown }) =>
+    typeof f?.launchMs === "number" ? [{ launchMs: f.launchMs, landMs: typeof f.landMs === "number" ? f.landMs : null }] : []);
+}
+
+/** Which of the given plans are the pilot's own, and how many items each has (a pushed run's plan link is kept only then). */
+export async function ownPlanItems(db: Executor, pilotId: string, planIds: string[]): Promise<Map<string, number>> {
+  if (planIds.length === 0) return new Map();
+  const res = await db.execute<{ id: string; n: number }>(sql`select id::text, jsonb_array_length(items) as n from practice_plans
+    where pilot_id = ${pilotId} and id in (${sql.join(planIds.map((id) => sql`${id}::uuid`), sql`, `)})`);
+  return new Map(res.rows.map((r) => [r.id, Number(r.n)]));
+}

@@ -1,0 +1,44 @@
+import { v7 as uuidv7 } from "uuid";
+import { afterEach, describe, expect, it } from "vitest";
+import { getMeta, type WindowcallDb } from "@/lib/offline/db";
+import { pullAll } from "@/lib/offline/pull";
+import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
+import { freshDb } from "./helpers";
+
+const dbs: WindowcallDb[] = [];
+afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+
+const note = (pilotId: string, body: string): PulledNote => ({
+  id: uuidv7(), pilotId, coachId: uuidv7(), authorId: uuidv7(), authorName: "Coach", sessionId: uuidv7(), runId: uuidv7(), replyTo: null, body, createdAtMs: 1,
+});
+const plan = (): PulledPlan => ({
+  id: uuidv7(), pilotId: uuidv7(), pilotName: "Pilot", coachName: "Coach", title: "Relaunches", createdAtMs: 1,
+  items: [{ letter: "H", variant: 600, goal: "three windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }],
+  progress: { items: [{ flown: 1, windows: 3, value: 2.5, met: false }], done: false },
+});
+
+/** A server whose every pull is one last page carrying `lists()`. */
+function serverOf(lists: () => { notes: PulledNote[]; plans: PulledPlan[] }) {
+  return async () => new Response(JSON.stringify({ items: [], nextCursor: "0", hasMore: false, scope: "", models: [], ...lists() }), {
+    status: 200, headers: { "content-type": "application/json" },
+  });
+}
+
+describe("pull: coach notes and assigned plans", () => {
+  it("keeps the last page's whole lists, so notes the user may no longer read drop off the phone", async () => {
+    const db = freshDb();
+    dbs.push(db);
+    const lena = uuidv7();
+    const ada = uuidv7();
+    let lists = { notes: [note(lena, "Relaunch faster"), note(ada, "Nice ladder")], plans: [plan()] };
+    const fetch = serverOf(() => lists);
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect((await getMeta(db, "notes"))?.map((n) => n.body)).toEqual(["Relaunch faster", "Nice ladder"]);
+    expect((await getMeta(db, "assignedPlans"))?.[0]?.progress.items[0]?.value).toBe(2.5);
+    // Lena revoked the grant: the server no longer sends her notes, and the phone forgets them
+    lists = { notes: lists.notes.filter((n) => n.pilotId !== lena), plans: [] };
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect((await getMeta(db, "notes"))?.map((n) => n.pilotId)).toEqual([ada]);
+    expect(await getMeta(db, "assignedPlans")).toEqual([]);
+  });
+});
