@@ -1,11 +1,11 @@
 import { SLEEP_TOLERANCE_MS } from "@/lib/clock";
-import type { EventKind, Stamp } from "@/lib/events/schema";
+import type { EventKind } from "@/lib/events/schema";
 import { legacyInvalidTargets, pairEvent, startPairing, type LaneLog, type PairingState } from "@/lib/tasks/flights";
 import { scoreLane, type LaneScore } from "@/lib/tasks/score";
 import { applyUndoAndCorrections, type TimelineEvent } from "@/lib/tasks/timeline";
 import type { TaskDefinition } from "@/lib/tasks";
 import { assembleLane, type CandidateFacts } from "./lane-derivation";
-import { anchorOf, placeEvents, segmentKey, type Estimates, type RecordedEvent } from "./place";
+import { anchorOf, placeEvents, segmentKey, type RecordedEvent } from "./place";
 import { effectiveSignals, laneUncertainty } from "./run-result";
 import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
 import { wasStarted } from "./started";
