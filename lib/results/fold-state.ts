@@ -5,7 +5,7 @@ import { scoreLane, type LaneScore } from "@/lib/tasks/score";
 import { applyUndoAndCorrections, type TimelineEvent } from "@/lib/tasks/timeline";
 import type { TaskDefinition } from "@/lib/tasks";
 import { assembleLane, type CandidateFacts } from "./lane-derivation";
-import { anchorOf, placeEvents, segmentKey, type RecordedEvent } from "./place";
+import { anchorOf, placeEvents, type RecordedEvent } from "./place";
 import { effectiveSignals, laneUncertainty } from "./run-result";
 import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
 import { wasStarted } from "./started";
@@ -85,6 +85,8 @@ export type RunFold = {
 
 type RunFacts = Pick<DerivationInput, "task" | "createdBy" | "lanes" | "officials" | "estimatesByDevice">;
 
+/** A page lifetime (place.ts groups by device and page the same way); no NUL: jsonb cannot hold one. */
+const segmentKey = (deviceId: string, pageId: string) => JSON.stringify([deviceId, pageId]);
 const toTimeline = (e: DerivationEvent): TimelineEvent => ({ id: e.id, atMs: e.correctedMs, body: e.body });
 const keyOf = (f: RunFacts) => JSON.stringify([f.task, f.createdBy, f.lanes.map((l) => [l.lane, l.pilotUserId])]);
 const laneCountOf = (f: Pick<RunFacts, "lanes">) => Math.max(1, ...f.lanes.map((l) => l.lane + 1));

@@ -16,7 +16,7 @@ export type ClockStep = { deviceId: string; fromEventId: string; toEventId: stri
 
 export type Estimates = ReadonlyMap<string, readonly ClockEstimate[]>;
 
-export const segmentKey = (deviceId: string, pageId: string) => `${deviceId}\u0000${pageId}`;
+const segmentKey = (deviceId: string, pageId: string) => `${deviceId}\u0000${pageId}`;
 
 export type Anchor = { monoMs: number; atMs: number; uncertaintyMs: number };
 
