@@ -213,7 +213,7 @@ describe("incremental derivation equals full derivation (property)", () => {
     // both paths were taken, or the property says little
     expect(total.resumed).toBeGreaterThan(100);
     expect(total.fallbacks).toBeGreaterThan(20);
-  });
+  }, 120_000);
 
   it("an append-only run timed on one phone folds every push without a full derivation", () => {
     const steps: Step[] = [{ phone: 0, kind: "window-start", lane: 0, gapMs: 0, pick: 0, reload: false, jump: false, noOffset: false }];
