@@ -2,12 +2,13 @@ import "server-only";
 import { inArray, sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
-import { deriveRun, type DerivationEvent } from "@/lib/sync/derive";
+import { buildFold, FOLD_VERSION, lanesOfFold, resumeFold, type RunFold } from "@/lib/results/fold-state";
+import { deriveRun, type DerivationEvent, type LaneDerivation } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
 import { deviceClockEstimates, events, runs } from "../schema";
 import { currentServerSeq, lockRuns, type Tx } from "./sync-db";
-import { loadForPush, type LoadedRun } from "./sync-push-load";
+import { loadForPush, loadRunEvents, type LoadedRun } from "./sync-push-load";
 
 type EventRow = typeof events.$inferSelect;
 
@@ -59,40 +60,84 @@ export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Prom
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
   await lockRuns(tx, ids);
-  const load = await loadForPush(tx, { runIds: ids, eventIds: [], deviceId: "", seqs: [] });
+  const load = await loadForPush(tx, { runIds: ids, eventIds: [], deviceId: "", seqs: [], allEvents: true });
   await storeDerivations(tx, [...load.runs.values()], load.estimates);
 }
 
+/** How a store's derivations went: resumed from the folded state, or in full (with the fold's reason). */
+export type DeriveStats = { resumed: number; full: number; reasons: string[] };
+
 /**
- * Derive each of these runs once, from its events (lib/sync/derive.ts), and store the results in
- * run_lanes (result, derived flights/breakdown/versions, review flag) — and give each run a new
- * server_seq and this transaction's xid so devices pull the new results — in ONE statement for
- * up to 500 lanes. The caller holds the runs' row locks (lockRuns) and read `runs` after taking
- * them. Events go to the derivation in id order (UUIDv7: creation order, as a phone holds them),
- * so the same events give the same result however they were read. Returns the last server
- * sequence number as that statement saw it.
+ * Derive each of these runs once and store the results in run_lanes (result, derived
+ * flights/breakdown/versions, review flag) with the run's folded state (run_folds), and give each
+ * run a new server_seq and this transaction's xid so devices pull the new results — in ONE
+ * statement for up to 500 lanes. The caller holds the runs' row locks (lockRuns) and read `runs`
+ * after taking them.
+ *
+ * A run with a folded state and `added` (the events this push stored in it) is derived from the
+ * state and those events only (lib/results/fold-state.ts resumeFold). Any other run — no state, or
+ * a state that cannot take them (an undo, an earlier event arriving late, new clock estimates…) —
+ * is derived in full from all its events (read here in one statement when the load did not) and
+ * its state is folded again from them; a state that does not give exactly the full result is
+ * not stored. Events go to the full derivation in id order (UUIDv7: creation order, as a phone
+ * holds them), so the same events give the same result however they were read. Returns the last
+ * server sequence number as the statement saw it.
  */
-export async function storeDerivations(tx: Tx, loaded: readonly LoadedRun[], estimates: ReadonlyMap<string, readonly ClockEstimate[]>): Promise<number> {
+export async function storeDerivations(
+  tx: Tx,
+  loaded: readonly LoadedRun[],
+  estimates: ReadonlyMap<string, readonly ClockEstimate[]>,
+  added: ReadonlyMap<string, readonly DerivationEvent[]> = new Map(),
+  stats?: DeriveStats,
+): Promise<number> {
   if (loaded.length === 0) return currentServerSeq(tx);
-  const updates = [];
+  const done: { run: LoadedRun; lanes: LaneDerivation[]; fold: RunFold | null }[] = [];
+  const full: LoadedRun[] = [];
   for (const run of loaded) {
-    const derived = deriveRun({
-      task: parseTaskDefinition(run.task),
-      createdBy: run.createdBy,
-      lanes: run.lanes,
-      officials: NO_OFFICIALS,
-      events: [...run.events].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
+    const more = added.get(run.id) ?? [];
+    if (run.fold) {
+      const r = resumeFold(run.fold, { ...factsOf(run), estimatesByDevice: estimates }, more, run.eventCount + more.length);
+      if (r.ok) {
+        done.push({ run, lanes: r.lanes, fold: r.fold });
+        if (stats) stats.resumed++;
+        continue;
+      }
+      stats?.reasons.push(r.reason);
+    }
+    full.push(run);
+  }
+  const missing = full.filter((r) => r.events === null).map((r) => r.id);
+  const read = missing.length > 0 ? await loadRunEvents(tx, missing) : new Map<string, DerivationEvent[]>();
+  for (const run of full) {
+    const input = {
+      ...factsOf(run),
+      // read here, after the push's insert, the run's events include the added ones
+      events: (run.events ? [...run.events, ...(added.get(run.id) ?? [])] : (read.get(run.id) ?? [])).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
       estimatesByDevice: estimates,
-    });
-    for (const d of derived) {
+    };
+    const lanes = deriveRun(input);
+    let fold = buildFold(input);
+    if (fold && JSON.stringify(lanesOfFold(fold, input)) !== JSON.stringify(lanes)) fold = null;
+    done.push({ run, lanes, fold });
+    if (stats) stats.full++;
+  }
+
+  const updates = [];
+  for (const { run, lanes } of done) {
+    for (const d of lanes) {
       updates.push(
         sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${JSON.stringify(d.derived)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
       );
     }
   }
   const idList = sql.join(loaded.map((r) => sql`${r.id}::uuid`), sql`, `);
-  // the lanes' results, the runs' new stamp and the sequence's position in one statement
+  const kept = done.filter((d) => d.fold !== null);
+  const dropped = done.filter((d) => d.fold === null).map((d) => sql`${d.run.id}::uuid`);
+  // the lanes' results, the runs' folded states and new stamps and the sequence's position in one statement
   const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
+  const folds = sql`${kept.length === 0 ? sql`` : sql`, folds as (insert into run_folds (run_id, version, state)
+      select * from unnest(${sql.param(kept.map((d) => d.run.id))}::uuid[], ${sql.param(kept.map(() => FOLD_VERSION))}::int[], ${sql.param(kept.map((d) => JSON.stringify(d.fold)))}::jsonb[])
+      on conflict (run_id) do update set version = excluded.version, state = excluded.state returning 1)`}${dropped.length === 0 ? sql`` : sql`, unfold as (delete from run_folds where run_id in (${sql.join(dropped, sql`, `)}) returning 1)`}`;
   const seq = sql`select last_value, is_called from sync_seq`;
   let last = 0;
   for (let i = 0; i === 0 || i < updates.length; i += 500) {
@@ -101,12 +146,14 @@ export async function storeDerivations(tx: Tx, loaded: readonly LoadedRun[], est
       update run_lanes set result_tenths = v.result, derived = v.derived, needs_review = v.review, review_reason = v.reason
       from (values ${sql.join(chunk, sql`, `)}) as v(run_id, lane, result, derived, review, reason)
       where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane returning 1)`;
-    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? sql`with ${restamp}${lanes} ${seq}` : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
+    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? sql`with ${restamp}${folds}${lanes} ${seq}` : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
     const row = r.rows[0];
     last = row && row.is_called ? Number(row.last_value) : 0;
   }
   return last;
 }
+
+const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
 
 /** Derive every run in the database (the demo seed stores events without results). */
 export async function deriveAllRuns(tx: Tx, chunk = 200): Promise<number> {

@@ -33,7 +33,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const clashes = load.stored.filter((c) => pushedIds.has(c.id) || (c.deviceId === ctx.deviceId && pushedSeqs.has(c.seq)));
   const targetRows = load.stored.filter((c) => targetSet.has(c.id));
   const runFacts = new Map<string, RunFacts>([...load.runs.values()].map((r) => [r.id, { id: r.id, createdBy: r.createdBy, lanes: r.lanes }]));
-  const perRun = new Map([...load.runs.values()].map((r) => [r.id, r.events.length]));
+  const perRun = new Map([...load.runs.values()].map((r) => [r.id, r.eventCount]));
   const byId = new Map(clashes.map((c) => [c.id, c]));
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
   const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy }]));

@@ -4,15 +4,23 @@ import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
 import type { DerivationEvent } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
+import { FOLD_VERSION, type RunFold } from "@/lib/results/fold-state";
 import type { Tx } from "./sync-db";
 
-/** A run as a push checks and derives it: who created it, its task and lanes, its stored events. */
+/**
+ * A run as a push checks and derives it: who created it, its task and lanes, how many events it
+ * holds, its folded state (lib/results/fold-state.ts) when one of this FOLD_VERSION is stored, and
+ * its stored events — read only when there is no such state (`events: null`: not read; the
+ * derivation reads them if the state cannot take the new events, loadRunEvents).
+ */
 export type LoadedRun = {
   id: string;
   createdBy: string;
   task: unknown;
   lanes: { lane: number; pilotUserId: string | null }[];
-  events: DerivationEvent[];
+  eventCount: number;
+  fold: RunFold | null;
+  events: DerivationEvent[] | null;
 };
 
 /** A stored event a pushed one may clash with (same id, or the pushing device's same seq), or amend. */
@@ -25,8 +33,9 @@ const ids = (list: readonly string[]) => (list.length ? sql.join(list.map((id) =
 /**
  * Everything a push reads before it writes, in ONE statement (one round trip, one snapshot),
  * after the runs were locked (lockRuns: the snapshot is taken after the locks are granted, so
- * it holds every event committed to them): each run's creator, task and lanes with ALL its
- * stored events (the derivation's input: the push adds what it inserts, no second read), the
+ * it holds every event committed to them): each run's creator, task, lanes, event count and folded
+ * state — and ALL its stored events when it has no folded state or `allEvents` asks for them (the
+ * derivation's input: the push adds what it inserts, no second read), the
  * stored events the pushed ones may clash with or amend, and the clock estimates of every
  * device with events in these runs (and of the pushing device). The facts travel as JSON on one
  * row; the events as plain rows after it (building JSON of thousands of events costs the database
@@ -34,7 +43,7 @@ const ids = (list: readonly string[]) => (list.length ? sql.join(list.map((id) =
  */
 export async function loadForPush(
   tx: Tx,
-  p: { runIds: readonly string[]; eventIds: readonly string[]; deviceId: string; seqs: readonly number[] },
+  p: { runIds: readonly string[]; eventIds: readonly string[]; deviceId: string; seqs: readonly number[]; allEvents?: boolean },
 ): Promise<PushLoad> {
   const runList = ids(p.runIds);
   const seqList = p.seqs.length ? sql.join(p.seqs.map((s) => sql`${s}::int`), sql`, `) : sql`null`;
@@ -43,7 +52,9 @@ export async function loadForPush(
     with facts as (select
       (select coalesce(json_agg(json_build_object('id', r.id, 'createdBy', r.created_by, 'task', r.task,
           'lanes', (select coalesce(json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id) order by l.lane), '[]')
-                    from run_lanes l where l.run_id = r.id))), '[]')
+                    from run_lanes l where l.run_id = r.id),
+          'eventCount', (select count(*) from events e where e.run_id = r.id),
+          'fold', ${p.allEvents ? sql`null` : sql`(select f.state from run_folds f where f.run_id = r.id and f.version = ${FOLD_VERSION})`})), '[]')
         from runs r where r.id in (${runList})) as runs,
       (select coalesce(json_agg(json_build_object('id', e.id, 'deviceId', e.device_id, 'seq', e.seq, 'runId', e.run_id, 'recordedBy', e.recorded_by)), '[]')
         from events e where e.id in (${ids(p.eventIds)}) or (e.device_id = ${p.deviceId} and e.seq in (${seqList}))) as stored,
@@ -58,11 +69,12 @@ export async function loadForPush(
     union all
     select false, null, null, null, e.id::text, e.run_id::text, e.device_id, e.seq, e.recorded_by::text, e.body, e.wall_ms, e.mono_ms, e.page_id,
       e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms, e.corrected_ms, e.uncertainty_ms
-    from events e where e.run_id in (${runList})`);
+    from events e where e.run_id in (${runList})
+      ${p.allEvents ? sql`` : sql`and not exists (select 1 from run_folds f where f.run_id = e.run_id and f.version = ${FOLD_VERSION})`}`);
   const facts = res.rows.find((r) => r.f)!;
   const row = { runs: facts.runs ?? [], stored: facts.stored ?? [], estimates: facts.estimates ?? [] };
-  const runs = new Map<string, LoadedRun>(row.runs.map((r) => [r.id, { ...r, events: [] }]));
-  for (const e of res.rows) if (!e.f) runs.get(e.run_id)?.events.push(fromRow(e));
+  const runs = new Map<string, LoadedRun>(row.runs.map((r) => [r.id, { ...r, events: r.fold ? null : [] }]));
+  for (const e of res.rows) if (!e.f) runs.get(e.run_id)?.events?.push(fromRow(e));
   const estimates = new Map<string, ClockEstimate[]>();
   for (const [deviceId, thetaMs, deltaMs, measuredAtWallMs] of row.estimates) {
     const list = estimates.get(deviceId) ?? [];
@@ -73,6 +85,17 @@ export async function loadForPush(
 }
 
 type LoadedRunRow = Omit<LoadedRun, "events">;
+
+/** Every stored event of these runs (a derivation in full after the folded state could not take a push's events). */
+export async function loadRunEvents(tx: Tx, runIds: readonly string[]): Promise<Map<string, DerivationEvent[]>> {
+  const out = new Map<string, DerivationEvent[]>(runIds.map((id) => [id, []]));
+  if (runIds.length === 0) return out;
+  const res = await tx.execute<EventRow>(sql`select e.id::text, e.run_id::text, e.device_id, e.seq, e.recorded_by::text, e.body, e.wall_ms, e.mono_ms, e.page_id,
+      e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms, e.corrected_ms, e.uncertainty_ms
+    from events e where e.run_id in (${ids(runIds)})`);
+  for (const e of res.rows) out.get(e.run_id)?.push(fromRow(e));
+  return out;
+}
 
 type EventRow = {
   id: string; run_id: string; device_id: string; seq: number; recorded_by: string; body: EventBody; wall_ms: number; mono_ms: number; page_id: string;

@@ -6,7 +6,7 @@ import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
 import { applyDiscards } from "./run-discard";
-import { storeDerivations } from "./runs";
+import { storeDerivations, type DeriveStats } from "./runs";
 import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
 import { applyRuns, applySessions, type PushContext } from "./sync-push-entities";
@@ -42,7 +42,7 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * sync-push-load.ts), one multi-row insert per 500 events, one statement that stores every
  * derived lane and re-stamps the runs, commit.
  */
-export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = []): Promise<PushReply> {
+export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = [], stats?: DeriveStats): Promise<PushReply> {
   return db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
     const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
@@ -65,7 +65,6 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     });
     const added = await applyEvents(ctx, req.events, load);
     const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
-    for (const r of derive) r.events.push(...(added.get(r.id) ?? []));
     if (req.discards?.length) await applyDiscards(ctx, req.discards); // after the events: a run set up and deleted in one push goes too
     const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));
     const stillThere = derive.filter((r) => !deleted.has(r.id));
@@ -77,7 +76,7 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
         .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
         .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] });
     }
-    const serverSeq = stillThere.length > 0 ? await storeDerivations(tx, stillThere, load.estimates) : await currentServerSeq(tx);
+    const serverSeq = stillThere.length > 0 ? await storeDerivations(tx, stillThere, load.estimates, added, stats) : await currentServerSeq(tx);
     return { acks: ctx.acks, serverSeq };
   });
 }

@@ -14,3 +14,4 @@ export * from "./run-deletions";
 export * from "./admin";
 export * from "./lane-flights";
 export * from "./club-days";
+export * from "./run-folds";

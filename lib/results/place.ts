@@ -18,7 +18,7 @@ export type Estimates = ReadonlyMap<string, readonly ClockEstimate[]>;
 
 const segmentKey = (deviceId: string, pageId: string) => `${deviceId}\u0000${pageId}`;
 
-type Anchor = { monoMs: number; atMs: number; uncertaintyMs: number };
+export type Anchor = { monoMs: number; atMs: number; uncertaintyMs: number };
 
 /**
  * Puts every event on the run's timeline (SYNC.md §4), the same way on every screen and on
@@ -69,7 +69,8 @@ export function placeEvents<E extends RecordedEvent>(events: readonly E[], estim
   return { events: placed, steps };
 }
 
-function anchorOf(first: RecordedEvent, estimates: Estimates): Anchor {
+/** Where a page lifetime's first event (by steady clock, then seq) puts the page on the run's timeline. */
+export function anchorOf(first: RecordedEvent, estimates: Estimates): Anchor {
   const c = correctTime(first.stamp, estimates.get(first.deviceId) ?? []);
   return { monoMs: first.stamp.monoMs, atMs: c.serverMs, uncertaintyMs: c.uncertaintyMs };
 }

@@ -1,13 +1,12 @@
-import { foldRun, pointsLost, type LaneScore, type TimelineEvent } from "@/lib/tasks";
+import { foldRun, type LaneScore, type TimelineEvent } from "@/lib/tasks";
 import { applyUndoAndCorrections } from "@/lib/tasks/timeline";
-import { clockFlags, describeClockFlags } from "./clock-flags";
+import { clockFlags } from "./clock-flags";
+import { assembleLane } from "./lane-derivation";
 import { placeEvents, type ClockStep } from "./place";
-import { describeReview, uncertainBoundaries, type TimedSignal } from "./review";
+import type { LaneUncertainty, TimedSignal } from "./review";
 import { wasStarted } from "./started";
 import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
-import type { DerivationEvent, DerivationInput, LaneDerivation, LaneVersion, Source } from "./types";
-
-const finite = (n: number): number | null => (Number.isFinite(n) ? n : null);
+import type { DerivationEvent, DerivationInput, LaneDerivation, Source } from "./types";
 
 const toTimeline = (e: DerivationEvent): TimelineEvent => ({ id: e.id, atMs: e.correctedMs, body: e.body });
 
@@ -52,72 +51,39 @@ export function runResult(input: DerivationInput): RunResult {
     const candidates = laneSources(placed, lane, pilotUserId, roles, toTimeline);
     const chosen = candidates[0] ?? null;
     const rulings = laneRulings(placed, lane, input.officials, new Set(candidates.map((c) => c.deviceId)));
-    const notesRaw = rulingNotes(placed, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
-    const score = (source: Source | null, lane: number): LaneScore =>
+    const notes = rulingNotes(placed, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
+    const score = (source: Source | null): LaneScore =>
       foldRun(input.task, [...signalEvents, ...rulings, ...(source?.events ?? [])].map(toTimeline), { laneCount }).lanes[lane]!;
-    const laneScore = score(chosen, lane);
-    const notes = notesRaw.map((n) => (n.flightId ? { ...n, flightIndex: laneScore.flights.find((f) => f.launchId === n.flightId)?.index ?? null } : n));
     for (const e of [...rulings, ...(chosen?.events ?? [])]) counted.set(e.id, e);
-    const versions = candidates.map((c, i): LaneVersion => {
-      const s = i === 0 ? laneScore : score(c, lane);
-      return {
-        deviceId: c.deviceId,
-        recordedBy: c.recordedBy,
-        official: c.official,
-        chosen: i === 0,
-        resultTenths: s.resultTenths,
-        firstAtMs: c.firstAtMs,
-        uncertaintyMs: finite(Math.max(0, ...c.events.map((e) => e.uncertaintyMs))),
-        eventCount: c.events.length,
-        flights: s.flights.map((f) => ({ launchAtMs: f.launchAtMs, landAtMs: f.landAtMs })),
-      };
-    });
-
-    const crossDevice = chosen !== null && signalSource !== null && chosen.deviceId !== signalSource.deviceId;
-    const review = crossDevice ? uncertainBoundaries(input.task, laneScore, signals, laneUncertainty(chosen)) : [];
-    const flightOf = (eventId: string) => laneScore.flights.find((f) => f.launchId === eventId)?.index ?? null;
-    const clock = chosen ? clockFlags(steps, chosen.events, laneScore) : [];
-    const reasons = [describeReview(review, flightOf), describeClockFlags(clock)].filter((r): r is string => r !== null);
-
-    return {
+    return assembleLane({
+      task: input.task,
       lane,
-      resultTenths: chosen && started ? laneScore.resultTenths : null,
-      penaltyPoints: laneScore.penaltyPoints,
-      needsReview: review.length > 0 || clock.length > 0,
-      reviewReason: reasons.length > 0 ? reasons.join("; ") : null,
-      derived: {
-        signal: signalSource && {
-          deviceId: signalSource.deviceId,
-          official: signalSource.official,
-          atMs: signals.map((s) => s.atMs),
-          uncertaintyMs: finite(Math.max(0, ...signals.map((s) => s.uncertaintyMs))),
-        },
-        source: chosen && { deviceId: chosen.deviceId, official: chosen.official },
-        flights: laneScore.flights.map((f) => ({
-          index: f.index, launchMs: f.launchMs, landMs: f.landMs, launchAtMs: f.launchAtMs, landAtMs: f.landAtMs, status: f.status, reason: f.reason,
-          timeTenths: f.timeTenths, creditedTenths: f.creditedTenths, targetSec: f.targetSec,
-        })),
-        breakdown: chosen ? pointsLost(input.task, laneScore) : null,
-        versions,
-        review,
-        clock,
-        notes,
-        ended,
-      },
-    };
+      started,
+      ended,
+      signalSource: signalSource && { deviceId: signalSource.deviceId, official: signalSource.official },
+      signals,
+      candidates: candidates.map((c) => ({
+        deviceId: c.deviceId, recordedBy: c.recordedBy, official: c.official, firstAtMs: c.firstAtMs,
+        maxUncertaintyMs: Math.max(...c.events.map((e) => e.uncertaintyMs)), eventCount: c.events.length,
+      })),
+      scores: chosen ? candidates.map(score) : [score(null)],
+      notes,
+      uncertainty: () => laneUncertainty(chosen!),
+      clock: (laneScore) => clockFlags(steps, chosen!.events, laneScore),
+    });
   });
   return { lanes, timeline: [...counted.values()].map(toTimeline), steps, started };
 }
 
 /** The chosen signal record's effective window starts, in order, with their bounds. */
-function effectiveSignals(events: readonly DerivationEvent[]): TimedSignal[] {
+export function effectiveSignals(events: readonly DerivationEvent[]): TimedSignal[] {
   const unc = new Map(events.map((e) => [e.id, e.uncertaintyMs]));
   return applyUndoAndCorrections(events.map(toTimeline))
     .filter((e) => e.body.kind === "window-start")
     .map((e) => ({ atMs: e.atMs, uncertaintyMs: unc.get(e.id) ?? Number.POSITIVE_INFINITY }));
 }
 
-function laneUncertainty(source: Source) {
+export function laneUncertainty(source: Pick<Source, "events">): LaneUncertainty {
   const byId = new Map(source.events.map((e) => [e.id, e.uncertaintyMs]));
   const landings = applyUndoAndCorrections(source.events.map(toTimeline)).filter((e) => e.body.kind === "landing");
   return {

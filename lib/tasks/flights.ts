@@ -56,7 +56,20 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
   if (laneCount === undefined) {
     for (const e of effective) if ("lane" in e.body) lanesNeeded = Math.max(lanesNeeded, e.body.lane + 1);
   }
-  const lanes: LaneLog[] = Array.from({ length: lanesNeeded }, (_, lane) => ({
+  const state = startPairing(lanesNeeded);
+  for (const e of effective) pairEvent(state, e, legacy);
+  return { signalsMs: state.signalsMs, runEndMs: state.runEndMs, lanes: state.lanes };
+}
+
+/**
+ * pairFlights' state between two events, so a fold can stop and resume (lib/results/fold-state.ts):
+ * the run's log so far, each lane's open flight (its position in the lane's flights) and the
+ * landing held for a launch at the same instant.
+ */
+export type PairingState = RunLog & { open: (number | null)[]; held: ({ atMs: number; id: string } | null)[] };
+
+export function startPairing(laneCount: number): PairingState {
+  const lanes: LaneLog[] = Array.from({ length: laneCount }, (_, lane) => ({
     lane,
     flights: [],
     invalid: new Map(),
@@ -66,81 +79,80 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
     calls: [],
     ignored: [],
   }));
-  const open: (RawFlight | null)[] = lanes.map(() => null);
   // A landing with no open flight at the same instant as a launch (a zero-length flight
   // whose taps sorted landing-first) is held until that launch, then applied.
-  const held: ({ atMs: number; id: string } | null)[] = lanes.map(() => null);
-  const signalsMs: number[] = [];
-  let runEndMs: number | null = null;
+  return { signalsMs: [], runEndMs: null, lanes, open: lanes.map(() => null), held: lanes.map(() => null) };
+}
 
-  for (const e of effective) {
-    const body = e.body;
-    if (body.kind === "window-start") signalsMs.push(e.atMs);
-    else if (body.kind === "run-end") runEndMs = runEndMs === null ? e.atMs : Math.max(runEndMs, e.atMs);
-    if (!("lane" in body)) continue;
-    const log = lanes[body.lane];
-    if (!log) continue; // a lane outside laneCount
-    switch (body.kind) {
-      case "launch": {
-        if (open[body.lane]) {
-          log.ignored.push({ id: e.id, reason: "launch-while-flying" });
-          break;
-        }
-        const flight: RawFlight = { index: log.flights.length, launchAtMs: e.atMs, landAtMs: null, launchId: e.id, landId: null };
-        log.flights.push(flight);
-        open[body.lane] = flight;
-        const landing = held[body.lane];
-        if (landing && landing.atMs === e.atMs) {
-          flight.landAtMs = landing.atMs;
-          flight.landId = landing.id;
-          open[body.lane] = null;
-          held[body.lane] = null;
-          log.ignored = log.ignored.filter((x) => x.id !== landing.id);
-        }
+/** One effective event (in time order, after undo and corrections) into the pairing state. */
+export function pairEvent(state: PairingState, e: TimelineEvent, legacy: ReadonlyMap<string, string>): void {
+  const { lanes, open, held } = state;
+  const body = e.body;
+  if (body.kind === "window-start") state.signalsMs.push(e.atMs);
+  else if (body.kind === "run-end") state.runEndMs = state.runEndMs === null ? e.atMs : Math.max(state.runEndMs, e.atMs);
+  if (!("lane" in body)) return;
+  const log = lanes[body.lane];
+  if (!log) return; // a lane outside laneCount
+  switch (body.kind) {
+    case "launch": {
+      if (open[body.lane] != null) {
+        log.ignored.push({ id: e.id, reason: "launch-while-flying" });
         break;
       }
-      case "landing": {
-        const flight = open[body.lane];
-        if (!flight) {
-          log.ignored.push({ id: e.id, reason: "landing-without-flight" });
-          held[body.lane] = { atMs: e.atMs, id: e.id };
-          break;
-        }
-        flight.landAtMs = e.atMs;
-        flight.landId = e.id;
+      const flight: RawFlight = { index: log.flights.length, launchAtMs: e.atMs, landAtMs: null, launchId: e.id, landId: null };
+      log.flights.push(flight);
+      open[body.lane] = flight.index;
+      const landing = held[body.lane];
+      if (landing && landing.atMs === e.atMs) {
+        flight.landAtMs = landing.atMs;
+        flight.landId = landing.id;
         open[body.lane] = null;
-        break;
+        held[body.lane] = null;
+        log.ignored = log.ignored.filter((x) => x.id !== landing.id);
       }
-      case "invalid": {
-        const flightId = body.flightId ?? legacy.get(e.id);
-        if (flightId) log.invalid.set(flightId, body.reason);
-        break;
-      }
-      case "penalty":
-        log.penalties.push({
-          id: e.id,
-          points: body.points,
-          reason: body.reason,
-          ...(body.cause ? { cause: body.cause } : {}),
-          ...(body.launchId ? { launchId: body.launchId } : {}),
-          ...(body.midAir ? { midAir: true } : {}),
-        });
-        break;
-      case "unsigned":
-        log.unsigned.push(e.id);
-        break;
-      case "reflight":
-        log.reflights.push({ id: e.id, cause: body.cause, placement: body.placement, reason: body.reason ?? null });
-        break;
-      case "target":
-        log.calls.push({ kind: "target", atMs: e.atMs, targetSec: body.targetSec, id: e.id });
-        break;
-      case "end-call":
-        log.calls.push({ kind: "end-call", atMs: e.atMs, id: e.id });
-        break;
+      break;
     }
+    case "landing": {
+      const at = open[body.lane];
+      const flight = at == null ? undefined : log.flights[at];
+      if (!flight) {
+        log.ignored.push({ id: e.id, reason: "landing-without-flight" });
+        held[body.lane] = { atMs: e.atMs, id: e.id };
+        break;
+      }
+      flight.landAtMs = e.atMs;
+      flight.landId = e.id;
+      open[body.lane] = null;
+      break;
+    }
+    case "invalid": {
+      const flightId = body.flightId ?? legacy.get(e.id);
+      if (flightId) log.invalid.set(flightId, body.reason);
+      break;
+    }
+    case "penalty":
+      log.penalties.push({
+        id: e.id,
+        points: body.points,
+        reason: body.reason,
+        ...(body.cause ? { cause: body.cause } : {}),
+        ...(body.launchId ? { launchId: body.launchId } : {}),
+        ...(body.midAir ? { midAir: true } : {}),
+      });
+      break;
+    case "unsigned":
+      log.unsigned.push(e.id);
+      break;
+    case "reflight":
+      log.reflights.push({ id: e.id, cause: body.cause, placement: body.placement, reason: body.reason ?? null });
+      break;
+    case "target":
+      log.calls.push({ kind: "target", atMs: e.atMs, targetSec: body.targetSec, id: e.id });
+      break;
+    case "end-call":
+      log.calls.push({ kind: "end-call", atMs: e.atMs, id: e.id });
+      break;
   }
-  return { signalsMs, runEndMs, lanes };
 }
 
 /**
@@ -149,7 +161,7 @@ export function pairFlights(events: readonly TimelineEvent[], laneCount?: number
  * flights as they stood when the mark was recorded (events up to its time, with the undos made
  * by then), so a later undo of another flight does not move it.
  */
-function legacyInvalidTargets(events: readonly TimelineEvent[], effective: readonly TimelineEvent[]): Map<string, string> {
+export function legacyInvalidTargets(events: readonly TimelineEvent[], effective: readonly TimelineEvent[]): Map<string, string> {
   const out = new Map<string, string>();
   for (const mark of effective) {
     const body = mark.body;

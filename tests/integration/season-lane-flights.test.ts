@@ -74,4 +74,24 @@ describe("the Season's flight values from lane_flights", () => {
     await db.execute(sql`update run_lanes set derived = null where run_id = ${runId}::uuid`);
     expect(await rows()).toEqual([]);
   });
+
+  it("leave the rows of unchanged flights alone (not even locked), and rewrite a changed flight with the next one's ground time", async () => {
+    const pilot = await freshUser("lane-flights-untouched");
+    const runId = await seasonRun({ pilotId: pilot.id, at: "2026-05-06T10:00:00Z", flights: [[5, 60], [62.4, 130], [135, 180]] });
+    const rows = async () =>
+      (await db.execute<{ position: number; ground_ms: number | null; land_ms: number | null; xmax: string }>(sql`
+        select "position", ground_ms, land_ms, xmax::text from lane_flights where run_id = ${runId}::uuid and lane = 0 order by "position"`)).rows;
+    const setFlights = (expr: ReturnType<typeof sql>) =>
+      db.execute(sql`update run_lanes set derived = jsonb_set(derived, '{flights}', ${expr}) where run_id = ${runId}::uuid and lane = 0`);
+    await setFlights(sql`derived -> 'flights' || jsonb_build_array(jsonb_build_object(
+      'index', 3, 'launchMs', 1767000190000, 'landMs', 1767000200000, 'status', 'ok', 'timeTenths', 100, 'creditedTenths', 100, 'targetSec', null))`);
+    // an upsert of every flight (ON CONFLICT DO UPDATE … WHERE nothing changed) still locks each row: xmax set
+    expect((await rows()).slice(0, 3).map((r) => r.xmax)).toEqual(["0", "0", "0"]);
+    const before = await rows();
+    await setFlights(sql`jsonb_set(derived -> 'flights', '{1,landMs}', to_jsonb((derived -> 'flights' -> 1 ->> 'landMs')::float8 - 1000))`);
+    const after = await rows();
+    expect(after[1]!.land_ms).toBe(before[1]!.land_ms! - 1000);
+    expect(after[2]!.ground_ms).toBe(before[2]!.ground_ms! + 1000); // the next flight's ground time follows
+    expect([after[0]!.xmax, after[3]!.xmax]).toEqual(["0", "0"]);
+  });
 });

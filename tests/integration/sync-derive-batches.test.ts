@@ -3,6 +3,7 @@ import { asc, eq, inArray } from "drizzle-orm";
 import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import { applyPush } from "@/db/queries/sync-push";
+import type { DeriveStats } from "@/db/queries/runs";
 import { listDeviceEstimates, toDerivationEvent } from "@/db/queries/runs";
 import { events, runLanes, runs } from "@/db/schema";
 import type { EventBody, RunEvent } from "@/lib/events/schema";
@@ -20,8 +21,9 @@ afterAll(async () => {
  * A push derives each run it touches once, from what it loaded after locking the run plus the
  * events it inserted (db/queries/sync-push.ts), never by reading the run back. Over random event
  * sequences from two phones (clocks apart, undos, corrections, penalties, both lanes) pushed in
- * random batches, what each push stores must equal lib/results runResult over every stored event
- * read from scratch, after every push.
+ * random batches, some resent whole (duplicates), what each push stores must equal lib/results
+ * runResult over every stored event read from scratch, after every push — whether the push derived
+ * the run from its folded state (run_folds) or in full; both happen.
  */
 type Step = { phone: 0 | 1; kind: "window-start" | "launch" | "landing" | "void" | "correct" | "penalty" | "run-end"; lane: 0 | 1; gapMs: number; pick: number };
 
@@ -54,6 +56,7 @@ async function fromScratch(runId: string) {
 describe("derivation per push equals derivation from scratch (property)", () => {
   it(`over ${RUNS} random event sequences in random batches (seed ${SEED})`, async () => {
     const [ada] = await createSimUsers(db, 1);
+    const stats: DeriveStats = { resumed: 0, full: 0, reasons: [] };
     await fc.assert(
       fc.asyncProperty(
         fc.array(stepArb, { minLength: 1, maxLength: 40 }),
@@ -81,12 +84,17 @@ describe("derivation per push equals derivation from scratch (property)", () => 
           // each phone pushes its own events, in its own batches, the phones taking turns
           const queues = made.map((list) => [...list]);
           let b = 0;
+          const sent: RunEvent[][][] = [[], []];
           while (queues.some((q) => q.length > 0)) {
             for (const [i, q] of queues.entries()) {
-              const batch = q.splice(0, batches[b++ % batches.length]!);
+              const size = batches[b++ % batches.length]!;
+              // every fifth push of a phone that sent before resends one of its batches first
+              const again = size % 5 === 0 && sent[i]!.length > 0 ? sent[i]![size % sent[i]!.length]! : [];
+              const batch = [...again, ...q.splice(0, size)];
               if (batch.length === 0) continue;
-              const reply = await applyPush(db, ada!.id, { deviceId: phones[i]!.id, sessions: [], runs: [], events: batch });
-              expect(reply.acks.filter((a) => a.status !== "applied")).toEqual([]);
+              sent[i]!.push(batch.slice(again.length));
+              const reply = await applyPush(db, ada!.id, { deviceId: phones[i]!.id, sessions: [], runs: [], events: batch }, [], stats);
+              expect(reply.acks.filter((a) => a.status !== "applied" && !(a.status === "duplicate" && again.some((e) => e.id === a.id)))).toEqual([]);
               const stored = await db.select().from(runLanes).where(inArray(runLanes.runId, [r.id])).orderBy(asc(runLanes.lane));
               const expected = await fromScratch(r.id);
               expect(stored.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: l.derived, review: l.needsReview, reason: l.reviewReason }))).toEqual(
@@ -98,6 +106,8 @@ describe("derivation per push equals derivation from scratch (property)", () => 
       ),
       { numRuns: RUNS, seed: SEED, endOnFailure: true },
     );
+    expect(stats.resumed).toBeGreaterThan(0);
+    expect(stats.full).toBeGreaterThan(0);
   }, 300_000);
 
   it("stores each pushed event as sent: quotes, backslashes and emoji in a body, no clock estimate (nulls)", async () => {
