@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, eq, gt, isNull, ne, sql } from "drizzle-orm";
+import { holdsVerifiedAddress } from "./users";
 import type { Database } from "../index";
 import { modelOffers, models, users } from "../schema";
 
@@ -56,7 +57,7 @@ export async function listOffersToMe(db: Database, p: { user: { id: string; emai
   }).from(modelOffers)
     .innerJoin(models, and(eq(models.id, modelOffers.modelId), eq(models.ownerId, modelOffers.sellerId)))
     .innerJoin(users, eq(users.id, modelOffers.sellerId))
-    .where(and(eq(modelOffers.email, p.user.email.toLowerCase()), ne(modelOffers.sellerId, p.user.id), waiting(p.now ?? new Date())))
+    .where(and(eq(modelOffers.email, p.user.email.toLowerCase()), holdsVerifiedAddress(p.user.id, modelOffers.email), ne(modelOffers.sellerId, p.user.id), waiting(p.now ?? new Date())))
     .orderBy(asc(modelOffers.createdAt));
 }
 
@@ -74,7 +75,7 @@ export async function answerModelOffer(
   const now = p.now ?? new Date();
   return db.transaction(async (tx) => {
     const [offer] = await tx.select().from(modelOffers)
-      .where(and(eq(modelOffers.id, p.offerId), eq(modelOffers.email, p.user.email.toLowerCase()), ne(modelOffers.sellerId, p.user.id), waiting(now)))
+      .where(and(eq(modelOffers.id, p.offerId), eq(modelOffers.email, p.user.email.toLowerCase()), holdsVerifiedAddress(p.user.id, modelOffers.email), ne(modelOffers.sellerId, p.user.id), waiting(now)))
       .for("update");
     if (!offer) return { kind: "not-found" } as const;
     const [model] = await tx.select().from(models).where(and(eq(models.id, offer.modelId), eq(models.ownerId, offer.sellerId))).for("update");

@@ -1,5 +1,6 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, sql, type SQL } from "drizzle-orm";
+import type { AnyPgColumn } from "drizzle-orm/pg-core";
 import type { Database } from "../index";
 import { memberships, users } from "../schema";
 
@@ -106,4 +107,13 @@ export async function changeEmail(db: Database, userId: string, newEmail: string
     throw error;
   }
   return { oldEmail: before.email };
+}
+
+/**
+ * SQL: the account `userId` holds the address in `emailColumn` AND has verified it. Offers made to
+ * an address (a model for sale, a coach's access) reach only its verified holder: anyone can sign up
+ * with someone else's address, and must not take what was meant for its owner.
+ */
+export function holdsVerifiedAddress(userId: string, emailColumn: AnyPgColumn): SQL {
+  return sql`exists (select 1 from ${users} where ${users.id} = ${userId} and ${users.emailVerifiedAt} is not null and lower(${users.email}) = ${emailColumn})`;
 }

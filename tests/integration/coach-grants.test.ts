@@ -6,7 +6,8 @@ import { POST as claim } from "@/app/api/coach/claim/route";
 import { GET as roster } from "@/app/api/coach/pilots/route";
 import { GET as season } from "@/app/api/pilots/[pilotId]/season/route";
 import { actAs, type MockSessionUser } from "./support/session";
-import { freshUser, getPool } from "./support/db";
+import { db, freshUser, getPool, verifiedUser } from "./support/db";
+import { coachesAnyone } from "@/db/queries/coach/grants";
 import { insertOwnRun } from "./support/hangar-records";
 
 afterAll(async () => {
@@ -24,9 +25,20 @@ async function grantsOf(user: MockSessionUser) {
 }
 
 describe("a pilot grants a coach their season", () => {
+  it("an e-mail offer reaches only the verified holder of the address: an unverified account with it gets nothing", async () => {
+    const pilot = await verifiedUser("grant-pilot-v");
+    const claimant = await freshUser("grant-unverified");
+    actAs(pilot);
+    expect((await offer(json({ kind: "email", email: claimant.email }))).status).toBe(201);
+    actAs(claimant);
+    expect(await coachesAnyone(db, claimant)).toBe(false);
+    expect(await rosterIds()).toEqual([]);
+    expect((await seasonOf(pilot.id)).status).toBe(404);
+  });
+
   it("by e-mail: the same reply for an address with or without an account; the coach gets in on opening the desk; revoking is a 404 at once", async () => {
-    const pilot = await freshUser("grant-pilot");
-    const coach = await freshUser("grant-coach");
+    const pilot = await verifiedUser("grant-pilot");
+    const coach = await verifiedUser("grant-coach");
     actAs(pilot);
     const known = await offer(json({ kind: "email", email: coach.email.toUpperCase() }));
     const unknown = await offer(json({ kind: "email", email: `nobody-${coach.id}@example.com` }));
@@ -52,9 +64,9 @@ describe("a pilot grants a coach their season", () => {
   });
 
   it("by one-time code: good once, for someone else; a wrong code is a 404", async () => {
-    const pilot = await freshUser("code-pilot");
-    const coach = await freshUser("code-coach");
-    const other = await freshUser("code-other");
+    const pilot = await verifiedUser("code-pilot");
+    const coach = await verifiedUser("code-coach");
+    const other = await verifiedUser("code-other");
     await insertOwnRun(pilot.id);
     actAs(pilot);
     const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { code: string } };
@@ -71,8 +83,8 @@ describe("a pilot grants a coach their season", () => {
   });
 
   it("limits one-time codes to 10 tries an hour per account: the 11th is a 429, even with the right code", async () => {
-    const pilot = await freshUser("limit-pilot");
-    const guesser = await freshUser("limit-guesser");
+    const pilot = await verifiedUser("limit-pilot");
+    const guesser = await verifiedUser("limit-guesser");
     actAs(pilot);
     const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { code: string } };
     const claimAs = (code: string) => claim(new Request("http://test/api/coach/claim", { method: "POST", body: JSON.stringify({ code }) }));
@@ -86,13 +98,13 @@ describe("a pilot grants a coach their season", () => {
   });
 
   it("refuses bad input with a 4xx and changes nothing; another pilot cannot revoke", async () => {
-    const pilot = await freshUser("bad-pilot");
+    const pilot = await verifiedUser("bad-pilot");
     actAs(pilot);
     expect((await offer(json({ kind: "email", email: "not an address" }))).status).toBe(422);
     expect((await offer(json({ kind: "email", email: pilot.email }))).status).toBe(422);
     expect((await offer(json({ kind: "fax" }))).status).toBe(422);
     const { offer: made } = (await (await offer(json({ kind: "code" }))).json()) as { offer: { id: string } };
-    const stranger = await freshUser("bad-stranger");
+    const stranger = await verifiedUser("bad-stranger");
     actAs(stranger);
     const res = await revoke(new Request("http://test", { method: "DELETE" }), { params: Promise.resolve({ grantId: made.id }) });
     expect(res.status).toBe(404);

@@ -7,9 +7,9 @@ import { GET as getModel } from "@/app/api/models/[modelId]/route";
 import { exportAccount } from "@/db/queries/account-export";
 import { addRepair } from "@/db/queries/models";
 import { listOffersToMe } from "@/db/queries/model-offers";
-import { altimeterLogs, launchHeights, modelOffers, modelRepairs, models } from "@/db/schema";
+import { altimeterLogs, launchHeights, modelOffers, modelRepairs, models, users } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, freshUser, getPool, verifiedUser } from "./support/db";
 import { insertLog, insertModel } from "./support/hangar-records";
 
 afterAll(async () => {
@@ -36,9 +36,26 @@ async function offersOf(user: MockSessionUser) {
 }
 
 describe("offering a model to another account", () => {
+  it("reaches only the verified holder of the address: an account that signed up with it unverified sees nothing and cannot accept", async () => {
+    const seller = await verifiedUser("offer-seller-v");
+    const claimant = await freshUser("offer-unverified");
+    actAs(seller);
+    const modelId = await insertModel(seller.id);
+    expect((await offerTo(modelId, claimant.email)).status).toBe(202);
+    const [made] = await db.select({ id: modelOffers.id }).from(modelOffers).where(eq(modelOffers.modelId, modelId));
+    expect(await offersOf(claimant)).toEqual([]);
+    actAs(claimant);
+    expect((await answerAs(made!.id, "accept")).status).toBe(404);
+    actAs(seller);
+    expect(await modelStatus(modelId)).toBe(200); // still the seller's
+    // once the address is verified, the same offer is theirs to take
+    await db.update(users).set({ emailVerifiedAt: new Date() }).where(eq(users.id, claimant.id));
+    expect((await offersOf(claimant)).map((o) => o.id)).toEqual([made!.id]);
+  });
+
   it("answers alike for an address with an account and one without, and tells the seller nothing more", async () => {
-    const seller = await freshUser("offer-seller");
-    const buyer = await freshUser("offer-buyer");
+    const seller = await verifiedUser("offer-seller");
+    const buyer = await verifiedUser("offer-buyer");
     actAs(seller);
     const a = await insertModel(seller.id);
     const b = await insertModel(seller.id);
@@ -53,8 +70,8 @@ describe("offering a model to another account", () => {
   });
 
   it("accepting with its history moves the model, its repairs, launch heights and flights", async () => {
-    const seller = await freshUser("offer-seller-h");
-    const buyer = await freshUser("offer-buyer-h");
+    const seller = await verifiedUser("offer-seller-h");
+    const buyer = await verifiedUser("offer-buyer-h");
     const modelId = await modelWithHistory(seller);
     actAs(seller);
     expect((await offerTo(modelId, buyer.email, true)).status).toBe(202);
@@ -78,8 +95,8 @@ describe("offering a model to another account", () => {
   });
 
   it("accepting without history gives the buyer a fresh model; the seller keeps the sold one with its history", async () => {
-    const seller = await freshUser("offer-seller-n");
-    const buyer = await freshUser("offer-buyer-n");
+    const seller = await verifiedUser("offer-seller-n");
+    const buyer = await verifiedUser("offer-buyer-n");
     const modelId = await modelWithHistory(seller);
     actAs(seller);
     await offerTo(modelId, buyer.email, false);
@@ -97,9 +114,9 @@ describe("offering a model to another account", () => {
   });
 
   it("declining or withdrawing leaves the model where it was; a third party gets 404", async () => {
-    const seller = await freshUser("offer-seller-d");
-    const buyer = await freshUser("offer-buyer-d");
-    const third = await freshUser("offer-third");
+    const seller = await verifiedUser("offer-seller-d");
+    const buyer = await verifiedUser("offer-buyer-d");
+    const third = await verifiedUser("offer-third");
     const modelId = await modelWithHistory(seller);
     const ownerOf = async () => (await db.select({ o: models.ownerId, s: models.status }).from(models).where(eq(models.id, modelId)))[0];
 
@@ -132,9 +149,9 @@ describe("offering a model to another account", () => {
   });
 
   it("a new offer of the same model replaces the waiting one; your own address is refused", async () => {
-    const seller = await freshUser("offer-seller-r");
-    const one = await freshUser("offer-one");
-    const two = await freshUser("offer-two");
+    const seller = await verifiedUser("offer-seller-r");
+    const one = await verifiedUser("offer-one");
+    const two = await verifiedUser("offer-two");
     const modelId = await insertModel(seller.id);
     actAs(seller);
     await offerTo(modelId, one.email);

@@ -1,5 +1,6 @@
 import "server-only";
 import { and, desc, eq, gt, isNull, ne, sql } from "drizzle-orm";
+import { holdsVerifiedAddress } from "../users";
 import type { Database } from "../../index";
 import { coachGrants, coachInvites, users } from "../../schema";
 import type { PilotGrantRow } from "@/lib/coach/types";
@@ -69,7 +70,7 @@ async function grant(tx: Pick<Database, "insert" | "select">, pilotId: string, c
 export async function acceptEmailOffers(db: Database, coach: { id: string; email: string }, now = new Date()): Promise<number> {
   return db.transaction(async (tx) => {
     const offers = await tx.update(coachInvites).set({ acceptedAt: now })
-      .where(and(eq(coachInvites.email, coach.email.toLowerCase()), ne(coachInvites.pilotId, coach.id),
+      .where(and(eq(coachInvites.email, coach.email.toLowerCase()), holdsVerifiedAddress(coach.id, coachInvites.email), ne(coachInvites.pilotId, coach.id),
         isNull(coachInvites.revokedAt), isNull(coachInvites.acceptedAt), gt(coachInvites.expiresAt, now)))
       .returning({ pilotId: coachInvites.pilotId });
     for (const o of offers) await grant(tx, o.pilotId, coach.id);
@@ -103,6 +104,6 @@ export async function coachesAnyone(db: Database, user: { id: string; email: str
     .where(and(eq(coachGrants.coachId, user.id), isNull(coachGrants.revokedAt))).limit(1);
   if (grant) return true;
   const [offer] = await db.select({ id: coachInvites.id }).from(coachInvites)
-    .where(and(eq(coachInvites.email, user.email.toLowerCase()), isNull(coachInvites.revokedAt), isNull(coachInvites.acceptedAt), gt(coachInvites.expiresAt, now))).limit(1);
+    .where(and(eq(coachInvites.email, user.email.toLowerCase()), holdsVerifiedAddress(user.id, coachInvites.email), isNull(coachInvites.revokedAt), isNull(coachInvites.acceptedAt), gt(coachInvites.expiresAt, now))).limit(1);
   return !!offer;
 }
