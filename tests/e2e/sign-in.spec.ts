@@ -3,14 +3,16 @@ import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
 
 test("a demo pilot signs in and sees the seeded sessions", async ({ page }) => {
-  // Lena flies in no other end-to-end test, and npm test seeds a fresh database for this suite,
-  // so her ten newest sessions are all seeded ones (db/seed: 2–3 runs each at Five Acre Meadow).
+  // npm test seeds a fresh database for this suite: Lena's newest sessions are seeded ones
+  // (db/seed: 2–3 runs each at Five Acre Meadow), but for the one window coach.spec sets up for
+  // her from her coach's plan (1 run), when that spec ran first.
   await signInAs(page, "lena@example.com");
   const items = page.getByRole("list", { name: "Recent sessions" }).getByRole("listitem");
   await expect(items).toHaveCount(10);
-  for (const item of await items.all()) {
+  const seeded = items.filter({ hasText: /(?<!\d)[23] runs/ });
+  expect(await seeded.count()).toBeGreaterThanOrEqual(9);
+  for (const item of await seeded.all()) {
     await expect(item).toContainText("Five Acre Meadow");
-    await expect(item).toContainText(/(?<!\d)[23] runs/);
     await expect(item).toContainText(/tasks [A-N](, [A-N])*/);
   }
 });
