@@ -22,7 +22,7 @@ export function checkSetup(plan: SetupPlan): SetupCheck {
     if (r.letter === "M") errors.push(`Round ${i + 1}: task M is for fly-off rounds only (F3K.10).`);
   });
   const flyOffRounds = plan.rounds.length - main.length;
-  if (flyOffRounds > 0) errors.push(...flyOffPlanProblems(flyOffRounds).map((p) => p.replace(/\.$/, " (F3K.10).")));
+  if (flyOffRounds > 0) errors.push(...flyOffPlanProblems(flyOffRounds));
   if (main.length < MIN_ROUNDS) soft.push(`A valid contest has at least ${MIN_ROUNDS} rounds (F3K.10); this one has ${main.length}.`);
   const seen = new Map<string, number>();
   main.forEach((r, i) => {

@@ -13,8 +13,8 @@ export function roundTaskProblem(letter: TaskLetter | null, stage: Stage): strin
 
 /** Problems with a planned fly-off: its number of rounds (F3K.10); empty when it may be flown. */
 export function flyOffPlanProblems(rounds: number): string[] {
-  if (!Number.isInteger(rounds) || rounds < FLY_OFF_ROUNDS.min) return [`A fly-off has at least ${FLY_OFF_ROUNDS.min} rounds.`];
-  if (rounds > FLY_OFF_ROUNDS.max) return [`A fly-off has at most ${FLY_OFF_ROUNDS.max} rounds.`];
+  if (!Number.isInteger(rounds) || rounds < FLY_OFF_ROUNDS.min) return [`A fly-off has at least ${FLY_OFF_ROUNDS.min} rounds (F3K.10).`];
+  if (rounds > FLY_OFF_ROUNDS.max) return [`A fly-off has at most ${FLY_OFF_ROUNDS.max} rounds (F3K.10).`];
   return [];
 }
 

@@ -10,8 +10,8 @@ const preliminary = rankPilots([
 
 describe("fly-off (F3K.10)", () => {
   it("is planned with 3 to 6 rounds", () => {
-    expect(flyOffPlanProblems(2)).toEqual(["A fly-off has at least 3 rounds."]);
-    expect(flyOffPlanProblems(7)).toEqual(["A fly-off has at most 6 rounds."]);
+    expect(flyOffPlanProblems(2)).toEqual(["A fly-off has at least 3 rounds (F3K.10)."]);
+    expect(flyOffPlanProblems(7)).toEqual(["A fly-off has at most 6 rounds (F3K.10)."]);
     expect([3, 4, 5, 6].map(flyOffPlanProblems)).toEqual([[], [], [], []]);
   });
   it("fewer than 3 completed rounds: the preliminary results stand", () => {
