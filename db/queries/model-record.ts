@@ -22,8 +22,11 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
       (select json_agg(json_build_object('atMs', e.corrected_ms, 'modelId', e.body->>'modelId')) from events e
         where e.run_id = l.run_id and e.kind = 'model' and (e.body->>'lane')::int = l.lane
           and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body->>'targetId' = e.id::text)) as choices,
-      (select json_agg(json_build_object('i', h.flight_index, 'h', h.height_m)) from launch_heights h
-        where h.run_id = l.run_id and h.lane = l.lane and h.flight_index is not null) as heights
+      -- one height per flight, as the Season picks it (season_heights): the newest log's, its first launch
+      (select json_agg(json_build_object('i', x.flight_index, 'h', x.height_m)) from (
+        select distinct on (h.flight_index) h.flight_index, h.height_m from launch_heights h join altimeter_logs g on g.id = h.log_id
+        where h.run_id = l.run_id and h.lane = l.lane and h.flight_index is not null
+        order by h.flight_index, g.created_at desc, h.at_ms) x) as heights
     from named n
     join run_lanes l on l.run_id = n.run_id and l.lane = n.lane
     join runs r on r.id = l.run_id

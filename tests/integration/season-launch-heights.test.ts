@@ -2,9 +2,11 @@ import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { listModelLanes } from "@/db/queries/model-record";
 import { createModel } from "@/db/queries/models";
 import { getSeasonSummary } from "@/db/queries/season/summary";
 import { altimeterLogs, events, launchHeights, runs } from "@/db/schema";
+import { modelStats } from "@/lib/hangar/stats";
 import { seasonFiltersSchema } from "@/lib/validations/season";
 import { db, freshUser, getPool } from "./support/db";
 import { seasonRun } from "./support/season-records";
@@ -117,5 +119,19 @@ describe("season launch heights (hand-computed)", () => {
 
   it("the filter refuses what is not a model id", () => {
     expect(seasonFiltersSchema.safeParse({ model: "heron" }).success).toBe(false);
+  });
+
+  it("the model's page counts the same launch height per flight as the Season: the newer log's, whatever order the rows were stored in", async () => {
+    const owner = await freshUser("season-heights-one-truth");
+    const kite = (await createModel(db, { ownerId: owner.id, input: { name: "Truth Kite", spanMm: 1490, massG: 250, marking: "", notes: "", status: "flying" } })).id;
+    const run = await seasonRun({ pilotId: owner.id, at: "2026-06-03T10:00:00Z", flights: [[10, 70]] });
+    await modelEvent(run, 1, kite);
+    await logWith(owner.id, run, [[0, 38, kite]]); // the newer log, stored first
+    await logWith(owner.id, run, [[0, 91, kite]], 3600); // an older log of the same lane, stored after it
+    const onSeason = await getSeasonSummary(db, { pilotId: owner.id, filters: seasonFiltersSchema.parse({ model: kite }), now: NOW });
+    expect(onSeason.heights).toMatchObject({ launches: 1, medianM: 38 });
+    const onModelPage = modelStats(kite, await listModelLanes(db, { modelId: kite, ownerIds: [owner.id] }));
+    expect(onModelPage.medianLaunchM).toBe(38);
+    expect(onModelPage.bestLaunchM).toBe(38);
   });
 });
