@@ -86,29 +86,6 @@ export async function listRunLaunchHeights(db: Database, p: { runId: string }) {
   }));
 }
 
-export type PilotLaunch = { runId: string; lane: number; atMs: number; heightM: number; flightIndex: number; flightTenths: number | null; modelId: string | null };
-
-/**
- * Every matched launch height of a pilot's lanes (their own account as the lane's pilot, or runs they
- * recorded without an account in the lane), oldest first, with the flight's time: what the Season
- * charts plot (height per flight over time; height against flight time).
- */
-export async function listPilotLaunchHeights(db: Database, p: { userId: string; fromMs?: number; toMs?: number }): Promise<PilotLaunch[]> {
-  const res = await db.execute<{ run_id: string; lane: number; at_ms: number; height_m: number; flight_index: number; flight_tenths: number | null; model_id: string | null }>(sql`
-    select h.run_id, h.lane, h.at_ms, h.height_m, h.flight_index, h.model_id,
-      (select (f->>'timeTenths')::int from jsonb_array_elements(l.derived->'flights') f where (f->>'index')::int = h.flight_index limit 1) as flight_tenths
-    from launch_heights h
-    join run_lanes l on l.run_id = h.run_id and l.lane = h.lane
-    join runs r on r.id = h.run_id
-    where h.flight_index is not null
-      and (l.pilot_user_id = ${p.userId} or (l.pilot_user_id is null and r.created_by = ${p.userId}))
-      and h.at_ms >= ${p.fromMs ?? 0} and h.at_ms <= ${p.toMs ?? Number.MAX_SAFE_INTEGER}
-    order by h.at_ms`);
-  return res.rows.map((r) => ({
-    runId: r.run_id, lane: r.lane, atMs: Number(r.at_ms), heightM: r.height_m, flightIndex: r.flight_index, flightTenths: r.flight_tenths, modelId: r.model_id,
-  }));
-}
-
 /** The storage keys of every log the user uploaded (to delete the files with the account). */
 export async function listOwnLogKeys(db: Database, p: { ownerId: string }): Promise<string[]> {
   const rows = await db.select({ key: altimeterLogs.objectKey }).from(altimeterLogs).where(eq(altimeterLogs.ownerId, p.ownerId));

@@ -9,7 +9,8 @@ import { DELETE as deleteAccountRoute } from "@/app/api/account/route";
 import { hashPassword } from "@/lib/auth/password";
 import { models } from "@/db/schema";
 import { createModel } from "@/db/queries/models";
-import { listPilotLaunchHeights } from "@/db/queries/altimeter";
+import { getSeasonSummary } from "@/db/queries/season/summary";
+import { seasonFiltersSchema } from "@/lib/validations/season";
 import { exportAccount } from "@/db/queries/account-export";
 import { altimeterLogs, launchHeights } from "@/db/schema";
 import { generateTrace } from "../unit/altimeter/trace";
@@ -74,9 +75,13 @@ describe("altimeter logs through the SDK and the local object server", () => {
     expect(exported.models.map((m) => m.name)).toEqual(["Test glider"]);
     expect(exported.altimeterLogs[0]!.launches).toHaveLength(5);
     expect(JSON.stringify(exported)).not.toContain("logs/"); // no storage keys in the export
-    const season = await listPilotLaunchHeights(db, { userId: pilot.id });
-    expect(season.map((x) => [x.flightIndex, x.flightTenths, x.modelId])).toEqual([0, 1, 2, 3].map((i) => [i, 600, modelId]));
-    expect(await listPilotLaunchHeights(db, { userId: other.id })).toEqual([]);
+    // the Season counts the four matched launches (flights of 60.0 s), with the model; the other pilot's season none
+    const season = (pilotId: string, filters = {}) => getSeasonSummary(db, { pilotId, filters: seasonFiltersSchema.parse(filters), now: new Date() });
+    expect((await season(pilot.id, { model: modelId })).heights.launches).toBe(4);
+    const bins = (await season(pilot.id)).heightVsTime;
+    expect(bins.reduce((n, b) => n + b.flights, 0)).toBe(4);
+    for (const b of bins) expect(b.medianTenths).toBe(600);
+    expect((await season(other.id)).heights.launches).toBe(0);
     const link = (await (await download(new Request("http://test"), logParams(logId))).json()) as { url: string };
     expect(await (await fetch(link.url)).text()).toBe(csv);
   });

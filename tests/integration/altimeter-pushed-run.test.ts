@@ -4,7 +4,8 @@ import { POST as presign } from "@/app/api/runs/[runId]/logs/route";
 import { POST as complete } from "@/app/api/logs/[logId]/complete/route";
 import { GET as getModelRoute } from "@/app/api/models/[modelId]/route";
 import { createModel } from "@/db/queries/models";
-import { listPilotLaunchHeights } from "@/db/queries/altimeter";
+import { getSeasonSummary } from "@/db/queries/season/summary";
+import { seasonFiltersSchema } from "@/lib/validations/season";
 import { db, freshUser, getPool } from "./support/db";
 import { pushingAs, recorder, T0 } from "./sync-fixtures";
 
@@ -69,7 +70,9 @@ describe("a pushed run's launches are matched to the uploaded log", () => {
     const model = (await (await getModelRoute(new Request("http://test"), { params: Promise.resolve({ modelId }) })).json()) as { stats: { flights: number; launches: number; bestLaunchM: number } };
     expect(model.stats).toMatchObject({ flights: 2, launches: 2 });
     expect(Math.abs(model.stats.bestLaunchM - 63)).toBeLessThanOrEqual(1.5);
-    const season = await listPilotLaunchHeights(db, { userId: pilot.id });
-    expect(season.map((s) => [s.flightIndex, s.modelId])).toEqual([[0, modelId], [1, modelId]]);
+    // the Season (filtered to the model) counts the same two launches and the same best as the model's page
+    const season = await getSeasonSummary(db, { pilotId: pilot.id, filters: seasonFiltersSchema.parse({ model: modelId }), now: new Date() });
+    expect(season.heights.launches).toBe(2);
+    expect(season.heightByWeek.map((w) => w.bestM)).toEqual([model.stats.bestLaunchM]);
   });
 });
