@@ -3,6 +3,7 @@ import { expect, test, type Page, type Route } from "@playwright/test";
 import { signUpByApi } from "./support/api";
 import { signInAs } from "./support/auth";
 import { press } from "./support/field";
+import { zoomLogCsv } from "../support/zoom-log";
 
 /**
  * The hangar and altimeter logs as a pilot uses them: add a model, fly a window with it, upload
@@ -15,20 +16,6 @@ test.describe.configure({ timeout: 180_000 });
 test.use({ viewport: { width: 390, height: 844 } });
 const PASSWORD = "hangar-window-2026";
 const HEIGHTS = [46, 63];
-
-/** A 10 Hz log (seconds from `startMs`, metres): a 3 s zoom to each height, a glide down to the landing. */
-function altimeterCsv(startMs: number, flights: { launch: number; land: number }[]): string {
-  const rows = ["seconds,altitude_m"];
-  const end = flights[flights.length - 1]!.land + 15_000;
-  for (let t = startMs; t <= end; t += 100) {
-    const i = flights.findIndex((f) => t >= f.launch && t < f.land);
-    const f = flights[i];
-    let h = 0;
-    if (f) h = t <= f.launch + 3000 ? HEIGHTS[i]! * (1 - ((f.launch + 3000 - t) / 3000) ** 2) : HEIGHTS[i]! * (1 - (t - f.launch - 3000) / (f.land - f.launch - 3000));
-    rows.push(`${((t - startMs) / 1000).toFixed(1)},${h.toFixed(1)}`);
-  }
-  return `${rows.join("\n")}\n`;
-}
 
 async function noSeriousViolations(page: Page, what: string) {
   const results = await new AxeBuilder({ page }).analyze();
@@ -85,7 +72,7 @@ test("a pilot adds a model, flies a window with it, uploads a log and sees launc
   await page.getByText("Upload an altimeter log").click();
   await page.getByLabel("Logger").fill("Pocket logger");
   const startMs = Math.floor(flights[0]!.launch / 1000) * 1000 - 20_000;
-  await page.getByLabel("CSV file (at most 5 MB)").setInputFiles({ name: "evening.csv", mimeType: "text/csv", buffer: Buffer.from(altimeterCsv(startMs, flights)) });
+  await page.getByLabel("CSV file (at most 5 MB)").setInputFiles({ name: "evening.csv", mimeType: "text/csv", buffer: Buffer.from(zoomLogCsv(startMs, flights, HEIGHTS)) });
   await page.getByLabel("Log started at").fill(await localInput(page, startMs));
   // the first PUT to the storage is held (the progress bar shows), then its connection drops; the retry goes through
   let release!: () => void;

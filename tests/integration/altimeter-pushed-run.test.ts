@@ -8,6 +8,7 @@ import { getSeasonSummary } from "@/db/queries/season/summary";
 import { seasonFiltersSchema } from "@/lib/validations/season";
 import { db, freshUser, getPool } from "./support/db";
 import { pushingAs, recorder, T0 } from "./sync-fixtures";
+import { zoomLogCsv } from "../support/zoom-log";
 
 /**
  * A log matched against a run as a phone pushes it (the server derives the lane's flights from the
@@ -18,19 +19,6 @@ import { pushingAs, recorder, T0 } from "./sync-fixtures";
 const HEIGHTS = [46, 63];
 const mapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds" as const, utcOffsetMin: 0, valueColumn: 2, valueKind: "m" as const };
 const json = (body: unknown) => new Request("http://test/api", { method: "POST", body: JSON.stringify(body), headers: { "content-type": "application/json" } });
-
-/** A 10 Hz log in seconds from `startMs`: a 3 s zoom to each height, a glide down to the landing. */
-function csvOf(startMs: number, flights: { launch: number; land: number }[]): string {
-  const rows = ["seconds,altitude_m"];
-  for (let t = startMs; t <= flights.at(-1)!.land + 15_000; t += 100) {
-    const i = flights.findIndex((f) => t >= f.launch && t < f.land);
-    const f = flights[i];
-    let h = 0;
-    if (f) h = t <= f.launch + 3000 ? HEIGHTS[i]! * (1 - ((f.launch + 3000 - t) / 3000) ** 2) : HEIGHTS[i]! * (1 - (t - f.launch - 3000) / (f.land - f.launch - 3000));
-    rows.push(`${((t - startMs) / 1000).toFixed(1)},${h.toFixed(1)}`);
-  }
-  return `${rows.join("\n")}\n`;
-}
 
 afterAll(async () => {
   await getPool().end();
@@ -54,7 +42,7 @@ describe("a pushed run's launches are matched to the uploaded log", () => {
     expect(pushed.body.acks.every((a) => a.status === "applied")).toBe(true);
 
     const startAtMs = T0 - 5000; // the time the pilot types in as "Log started at"
-    const csv = csvOf(startAtMs, flights);
+    const csv = zoomLogCsv(startAtMs, flights, HEIGHTS);
     const ask = await presign(json({ lane: 0, fileName: "evening.csv", sizeBytes: Buffer.byteLength(csv), contentType: "text/csv", loggerName: "Pocket", mapping, startAtMs }), { params: Promise.resolve({ runId: r.id }) });
     expect(ask.status).toBe(201);
     const { logId, url } = (await ask.json()) as { logId: string; url: string };
