@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { text } from "./bounds";
+import { calendarDaySchema } from "./calendar-day";
 
 /**
  * The Season screen's inputs (app/(app)/season, /api/pilots/[pilotId]/season/**): the filters
@@ -8,13 +9,6 @@ import { text } from "./bounds";
  * heights, the launches made with it (db/queries/season/scope.ts `filterWhere`, `season_heights`).
  */
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "A date is written YYYY-MM-DD.").refine(isCalendarDay, "Not a calendar date.");
-
-/** Whether "YYYY-MM-DD" names a real day (Date.parse takes 2026-02-30 for 2 March). */
-function isCalendarDay(s: string): boolean {
-  const t = Date.parse(`${s}T00:00:00Z`);
-  return !Number.isNaN(t) && new Date(t).toISOString().slice(0, 10) === s;
-}
 const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);
 
 export const SEASON_KINDS = ["all", "practice", "contest"] as const;
@@ -25,8 +19,8 @@ export const seasonTaskSchema = z.union([z.enum(["A", "B", "C", "D", "E", "F", "
 
 export const seasonFiltersSchema = z.object({
   /** First and last calendar day (UTC), both included. */
-  from: z.preprocess(blankToUndefined, day.optional()),
-  to: z.preprocess(blankToUndefined, day.optional()),
+  from: z.preprocess(blankToUndefined, calendarDaySchema.optional()),
+  to: z.preprocess(blankToUndefined, calendarDaySchema.optional()),
   task: z.preprocess(blankToUndefined, seasonTaskSchema.optional()),
   /** The field's name, exactly as the sessions name it. */
   field: z.preprocess(blankToUndefined, text(120).optional()),

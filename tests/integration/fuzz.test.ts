@@ -252,7 +252,7 @@ const queryArb = fc.array(
     fc.oneof(
       fc.constantFrom("0", "-1", "1.5", "1e400", "9007199254740993", "%00", "\u0000", "abc", "", uuidv7()),
       // the season's filters and paging (lib/validations/season.ts)
-      fc.constantFrom("2026-06-01", "2026-02-30", "99999-01-01", "A", "custom", "contest", "practice", "25", "100000", "duration", "asc", "runs", "flights"),
+      fc.constantFrom("2026-06-01", "2026-02-30", "99999-01-01", "0000-01-01", "9999-12-31", "A", "custom", "contest", "practice", "25", "100000", "duration", "asc", "runs", "flights"),
       fc.string({ maxLength: 30 }),
     ),
   ),

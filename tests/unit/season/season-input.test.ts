@@ -16,6 +16,15 @@ describe("season filters", () => {
     expect(seasonRunsQuerySchema.parse({ size: "50", page: "2" })).toMatchObject({ size: 50, page: 2, sort: "date", dir: "desc" });
   });
 
+  it("refuses a day the database cannot hold as an instant (year 0000; 9999-12-31, whose next day has five digits) instead of failing the query", () => {
+    // PostgreSQL refuses '0000-01-01T00:00:00.000Z'::timestamptz, and JavaScript writes the day after 9999-12-31 as "+010000-01-01…"
+    for (const day of ["0000-01-01", "9999-12-31", "1999-12-31"]) {
+      expect(seasonFiltersSchema.safeParse({ from: day }).success).toBe(false);
+      expect(seasonFiltersSchema.safeParse({ to: day }).success).toBe(false);
+    }
+    expect(seasonFiltersSchema.safeParse({ from: "2000-01-01", to: "2999-12-31" }).success).toBe(true);
+  });
+
   it("writes the same query string for the same filters, whatever their order", () => {
     expect(seasonFiltersQuery({ task: "H", from: "2026-06-01", kind: "all", field: "" })).toBe("from=2026-06-01&task=H");
     expect(seasonFiltersQuery({ from: "2026-06-01", task: "H" })).toBe("from=2026-06-01&task=H");
