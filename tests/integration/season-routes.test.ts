@@ -48,6 +48,9 @@ describe("season routes", () => {
       expect((await call(handler, "not-a-uuid", "?what=runs")).status).toBe(404);
       actAs(pilot);
       expect((await call(handler, pilot.id, "?what=runs&from=2026-02-30")).status).toBe(422);
+      // days the database cannot hold as an instant (the query failed: a 500)
+      expect((await call(handler, pilot.id, "?what=runs&from=0000-01-01")).status).toBe(422);
+      expect((await call(handler, pilot.id, "?what=runs&to=9999-12-31")).status).toBe(422);
       expect((await call(handler, pilot.id, "?what=runs&kind=sometimes")).status).toBe(422);
     }
   });
