@@ -1,11 +1,10 @@
 import { dehydrate, HydrationBoundary } from "@tanstack/react-query";
 import type { Metadata } from "next";
 import { notFound, redirect } from "next/navigation";
-import { eq } from "drizzle-orm";
-import { users } from "@/db/schema";
 import { canReadSeason } from "@/db/queries/season/access";
 import { db } from "@/db";
 import { getSeasonSummary } from "@/db/queries/season/summary";
+import { getUserById } from "@/db/queries/users";
 import { QueryProvider } from "@/components/query/query-provider";
 import { getSessionUser } from "@/lib/auth/session";
 import { makeQueryClient } from "@/lib/query/query-client";
@@ -34,8 +33,7 @@ export default async function SeasonPage({ searchParams }: Props) {
   let pilotName = user.name;
   if (!own) {
     if (!seasonParamsSchema.safeParse({ pilotId }).success || !(await canReadSeason(db, { viewerId: user.id, pilotId }))) notFound();
-    const [pilot] = await db.select({ name: users.name }).from(users).where(eq(users.id, pilotId));
-    pilotName = pilot?.name ?? "a pilot";
+    pilotName = (await getUserById(db, pilotId))?.name ?? "a pilot";
   }
   const parsed = seasonFiltersSchema.safeParse(raw);
   const queryClient = makeQueryClient();
