@@ -1,16 +1,11 @@
 import { z } from "zod";
 import { taskLetterSchema } from "@/lib/tasks/definition";
 import { text } from "./bounds";
-
-/** A calendar day YYYY-MM-DD that exists (2026-02-30 is refused). */
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Give the date as YYYY-MM-DD.").refine((s) => {
-  const d = new Date(`${s}T00:00:00Z`);
-  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s && s >= "2000-01-01" && s <= "2100-12-31";
-}, "No such date.");
+import { calendarDaySchema } from "./calendar-day";
 
 export const createContestSchema = z.object({
   name: text(80).trim().min(2, "Give the contest a name of at least 2 characters.").max(80, "Use at most 80 characters."),
-  startsOn: day,
+  startsOn: calendarDaySchema,
   fieldName: text(80).trim().min(1, "Choose the field.").max(80, "Use at most 80 characters."),
   rounds: z.array(z.object({ letter: taskLetterSchema })).min(1, "Add at least one round.").max(20, "At most 20 rounds."),
   maxGroupSize: z.number().int().min(5, "Groups hold at least 5 pilots (F3K.9.1).").max(30, "At most 30 pilots a group."),
