@@ -27,7 +27,13 @@ export type PhoneResult = RunResult & { folded: FoldedRun };
  * the flight table and the breakdown.
  */
 export function phoneResult(run: Pick<StoredRun, "lanes" | "recordedBy">, task: TaskDefinition, events: readonly RunEvent[], view: PhoneView): PhoneResult {
-  const result = runResult({
+  const result = phoneRunResult(run, task, events, view);
+  return { ...result, folded: foldRun(task, result.timeline, { laneCount: run.lanes.length }) };
+}
+
+/** phoneResult without the task engine's fold: for a screen that shows only the lanes' results. */
+export function phoneRunResult(run: Pick<StoredRun, "lanes" | "recordedBy">, task: TaskDefinition, events: readonly RunEvent[], view: PhoneView): RunResult {
+  return runResult({
     task,
     createdBy: run.recordedBy?.id ?? view.me ?? "",
     lanes: run.lanes.map((l) => ({ lane: l.lane, pilotUserId: l.pilotUserId ?? null })),
@@ -35,7 +41,6 @@ export function phoneResult(run: Pick<StoredRun, "lanes" | "recordedBy">, task: 
     events: recordedEvents(events, view),
     estimatesByDevice: phoneEstimates(view),
   });
-  return { ...result, folded: foldRun(task, result.timeline, { laneCount: run.lanes.length }) };
 }
 
 /** Every event of the run placed on the run's timeline (no record chosen): for deciding what a tap records. */
