@@ -135,6 +135,16 @@ describe("pull", () => {
     expect(client.status().lastError).toMatch(/did not advance/);
   });
 
+  it("refuses a page with one malformed item whole: nothing of it stored, the cursor where it was", async () => {
+    const db = open();
+    const good = { type: "session", seq: 1, data: { id: uuidv7(), ownerId: "u1", fieldName: "East field", conditions: {}, startedAtWallMs: 1 } };
+    const items = [...Array.from({ length: 60 }, () => good), { type: "event", seq: 2, data: { id: "not-a-uuid" } }];
+    const fetch = async () => Response.json({ items, nextCursor: "1.2", hasMore: false });
+    expect(await pullAll({ db, fetch })).toMatchObject({ kind: "bad-reply", message: expect.stringMatching(/^item 61: /) });
+    expect(await db.sessions.count()).toBe(0);
+    expect(await getMeta(db, "pullCursor")).toBeUndefined();
+  });
+
   it("keeps what earlier pages stored when a later page fails", async () => {
     const { server } = await serverWithData(3);
     server.pullPageSize = 2;
