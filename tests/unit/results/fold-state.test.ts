@@ -228,6 +228,22 @@ describe("incremental derivation equals full derivation (property)", () => {
     expect(t.resumed).toBeGreaterThanOrEqual(batches.length - 2);
   });
 
+  it("keeps a cross-device record's landing uncertainty: a landing timed on a never-measured clock stays for review when it is folded in", () => {
+    const step = (phone: 0 | 1, kind: Kind, gapMs: number): Step => ({ phone, kind, lane: 0, gapMs, pick: 0, reload: false, jump: false, noOffset: phone === 1 });
+    const events = makeEvents([step(0, "window-start", 0), step(1, "launch", 20_000), step(1, "landing", 40_000)]);
+    const estimates = new Map<string, ClockEstimate[]>([[PHONES[0].id, [{ thetaMs: 0, deltaMs: 30, measuredAtWallMs: T0 }]]]);
+    const facts = factsFor("H", estimates);
+    const landing = events.find((e) => e.body.kind === "landing")!;
+    const first = events.filter((e) => e !== landing);
+    const fold = JSON.parse(json(buildFold({ ...facts, events: first }))) as RunFold;
+    const resumed = resumeFold(fold, facts, [landing], events.length);
+    const full = runResult({ ...facts, events: [...events].sort(byId) }).lanes;
+    // the case is there: the landing's unknown clock leaves the end of the landing window uncertain
+    expect(full[0]!.derived.review.map((r) => r.boundary)).toContain("end of the landing window");
+    expect(resumed.ok).toBe(true);
+    expect(resumed.ok && json(resumed.lanes)).toBe(json(full));
+  });
+
   it("falls back, and says why, for an out-of-order arrival, an undo, a late estimate and another fold version", () => {
     const steps: Step[] = [{ phone: 0, kind: "window-start", lane: 0, gapMs: 0, pick: 0, reload: false, jump: false, noOffset: false }];
     for (let i = 0; i < 8; i++) steps.push({ phone: 0, kind: i % 2 ? "landing" : "launch", lane: 0, gapMs: 30_000, pick: 0, reload: false, jump: false, noOffset: false });
