@@ -6,7 +6,7 @@ import { applyUndoAndCorrections, type TimelineEvent } from "@/lib/tasks/timelin
 import type { TaskDefinition } from "@/lib/tasks";
 import { assembleLane, type CandidateFacts } from "./lane-derivation";
 import { anchorOf, placeEvents, type RecordedEvent } from "./place";
-import { effectiveSignals, laneUncertainty } from "./run-result";
+import { effectiveSignals } from "./run-result";
 import { laneRulings, laneSources, rulingNotes, signalSources } from "./sources";
 import { wasStarted } from "./started";
 import type { DerivationEvent, DerivationInput, LaneDerivation, RulingNote } from "./types";
@@ -225,13 +225,21 @@ export function buildFold(input: DerivationInput): RunFold | null {
   };
 }
 
+/** The record's effective launches and landings with their uncertainties, as laneUncertainty reads them. */
 function uncertaintiesOf(events: readonly DerivationEvent[]): NonNullable<CandidateFold["unc"]> {
-  const u = laneUncertainty({ events: [...events] });
-  const effective = applyUndoAndCorrections(events.map(toTimeline));
-  return {
-    launches: effective.filter((e) => e.body.kind === "launch").map((e) => [e.id, enc(u.launch(e.id))]),
-    landings: effective.filter((e) => e.body.kind === "landing").map((e) => [e.atMs, enc(events.find((x) => x.id === e.id)!.uncertaintyMs)]),
-  };
+  const out: NonNullable<CandidateFold["unc"]> = { launches: [], landings: [] };
+  appendUncertainties(out, events);
+  return out;
+}
+
+/** Adds these events' effective launches and landings (after their own undos) to `unc`. */
+function appendUncertainties(unc: NonNullable<CandidateFold["unc"]>, events: readonly DerivationEvent[]): void {
+  const byId = new Map(events.map((e) => [e.id, e.uncertaintyMs]));
+  for (const e of applyUndoAndCorrections(events.map(toTimeline))) {
+    const u = enc(byId.get(e.id) ?? Number.POSITIVE_INFINITY);
+    if (e.body.kind === "launch") unc.launches.push([e.id, u]);
+    else if (e.body.kind === "landing") unc.landings.push([e.atMs, u]);
+  }
 }
 
 const plain = (e: RecordedEvent): RecordedEvent => ({ id: e.id, deviceId: e.deviceId, seq: e.seq, recordedBy: e.recordedBy, stamp: e.stamp, body: e.body });
@@ -332,13 +340,7 @@ export function resumeFold(stored: RunFold, facts: RunFacts, added: readonly Rec
       if (c && own.length > 0) {
         c.eventCount += own.length;
         c.maxUnc = enc(Math.max(dec(c.maxUnc), ...own.map((e) => e.uncertaintyMs)));
-        if (c.unc) {
-          for (const e of applyUndoAndCorrections(own.map(toTimeline))) {
-            const u = enc(own.find((x) => x.id === e.id)!.uncertaintyMs);
-            if (e.body.kind === "launch") c.unc.launches.push([e.id, u]);
-            else if (e.body.kind === "landing") c.unc.landings.push([e.atMs, u]);
-          }
-        }
+        if (c.unc) appendUncertainties(c.unc, own);
       }
     }
   }
