@@ -36,5 +36,6 @@ describe("the coach's roster, aggregated in SQL", () => {
     const later = nextMonth.find((p) => p.pilotId === pilot.id)!;
     expect(later.runsThisMonth).toBe(0);
     expect(later.result).toEqual({ recent: null, before: expect.closeTo(180 / 596, 5) });
+    expect(later.turnaround).toEqual({ recent: null, before: expect.closeTo(1.0, 5) });
   });
 });

@@ -3,11 +3,12 @@ import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
 import type { RosterPilot } from "@/lib/coach/types";
 
-
 /**
  * The coach's roster: each pilot granting them an unrevoked grant, with the figures above, all
  * aggregated here in one query over the lanes that count in each pilot's record (as the Season's
  * scope, db/queries/season/scope.ts: a run the pilot created, or one recorded for them they accepted).
+ * Turnaround is the ground time the Season reads too (lane_flights.ground_ms, stored at derive time),
+ * so the roster and the pilot's Season never disagree on it.
  */
 export async function getRoster(db: Database, coachId: string, now = new Date()): Promise<RosterPilot[]> {
   const at = now.toISOString();
@@ -20,8 +21,8 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
       where g.coach_id = ${coachId} and g.revoked_at is null and u.deleted_at is null
       group by g.pilot_id, u.name
     ), lanes as (
-      select l.pilot_user_id as pilot_id, r.id as run_id, r.created_at, s.started_at, l.result_tenths,
-        (l.season_breakdown ->> 'maxTenths')::int as max_tenths, l.season_flights as flights,
+      select l.pilot_user_id as pilot_id, r.id as run_id, l.lane, r.created_at, s.started_at, l.result_tenths,
+        (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
         ${at}::timestamptz - r.created_at as age
       from run_lanes l
       join runs r on r.id = l.run_id
@@ -31,12 +32,9 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
         and (r.created_by = l.pilot_user_id or c.status = 'accepted')
         and l.result_tenths is not null
     ), grounds as (
-      select ln.pilot_id, ln.age,
-        (f."launchMs" - (ln.flights -> (f.ord::int - 2) ->> 'landMs')::float8) / 1000.0 as ground_s
-      from lanes ln
-      cross join lateral rows from (jsonb_to_recordset(coalesce(ln.flights, '[]'::jsonb)) as ("launchMs" float8))
-        with ordinality as f("launchMs", ord)
-      where ln.age < interval '60 days' and f.ord > 1
+      select ln.pilot_id, ln.age, f.ground_ms / 1000.0 as ground_s
+      from lanes ln join lane_flights f on f.run_id = ln.run_id and f.lane = ln.lane
+      where ln.age < interval '60 days' and f.ground_ms is not null and f.ground_ms >= 0
     )
     select p.pilot_id::text, p.name,
       (select max(started_at) from lanes where pilot_id = p.pilot_id) as last_session_at,
@@ -47,9 +45,9 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
       (select avg(result_tenths::float8 / max_tenths) from lanes where pilot_id = p.pilot_id and max_tenths > 0
         and age >= interval '30 days' and age < interval '60 days') as result_before,
       (select percentile_cont(0.5) within group (order by ground_s) from grounds where pilot_id = p.pilot_id
-        and ground_s >= 0 and age < interval '30 days') as ground_recent,
+        and age < interval '30 days') as ground_recent,
       (select percentile_cont(0.5) within group (order by ground_s) from grounds where pilot_id = p.pilot_id
-        and ground_s >= 0 and age >= interval '30 days') as ground_before
+        and age >= interval '30 days') as ground_before
     from pilots p order by p.name`);
   const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
   return res.rows.map((r) => ({
