@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { text } from "@/lib/events/bounds";
+import { median } from "@/lib/hangar/stats";
 import { listVariants, taskLetterSchema, type TaskLetter } from "@/lib/tasks";
 
 /**
@@ -65,13 +66,8 @@ export type ItemProgress = {
 
 export type PlanProgress = { items: ItemProgress[]; done: boolean };
 
-/** The median of a list (the mean of the two middle values for an even count); null when empty. */
-export function median(values: readonly number[]): number | null {
-  if (values.length === 0) return null;
-  const s = [...values].sort((a, b) => a - b);
-  const mid = Math.floor(s.length / 2);
-  return s.length % 2 === 1 ? s[mid]! : (s[mid - 1]! + s[mid]!) / 2;
-}
+/** The median of a list (the mean of the two middle values for an even count); null when empty — the hangar's, not a second copy. */
+export { median };
 
 /** Ground times in seconds of one window: from each landing to the next launch (negative gaps are left out). */
 export function groundTimes(flights: PlanRun["flights"]): number[] {
@@ -110,11 +106,6 @@ export function itemProgress(item: Pick<PlanItem, "windows" | "measure">, runs: 
 export function planProgress(items: readonly Pick<PlanItem, "windows" | "measure">[], runs: readonly PlanRun[]): PlanProgress {
   const out = items.map((item, i) => itemProgress(item, runs.filter((r) => r.item === i)));
   return { items: out, done: out.length > 0 && out.every((p) => p.met) };
-}
-
-/** The measure in words, e.g. "median turnaround under 3 s". */
-export function measureText(m: PlanMeasure): string {
-  return m.kind === "median-turnaround-below" ? `median turnaround under ${m.seconds} s` : `median result at least ${m.percent} % of the maximum`;
 }
 
 /** The measured value in words, e.g. "2.4 s" or "83 %". */
