@@ -1,9 +1,10 @@
 import Link from "next/link";
 import type { RosterPilot } from "./coach-api";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
+import { dayText, secondsText, shareText } from "@/app/(app)/season/_components/season-format";
 
-const pct = (v: number | null) => (v === null ? "—" : `${Math.round(v * 100)} %`);
-const secs = (v: number | null) => (v === null ? "—" : `${v.toFixed(1)} s`);
+// the Season's own formats, so a pilot's share and turnaround read the same on both screens
+const secs = (v: number | null) => secondsText(v === null ? null : Math.round(v * 10));
 
 /** "up", "down" or "steady" in words (a share higher is better; a turnaround lower is better). */
 function trend(recent: number | null, before: number | null, better: "higher" | "lower", fmt: (v: number | null) => string): string {
@@ -15,7 +16,7 @@ function trend(recent: number | null, before: number | null, better: "higher" | 
   return `${fmt(recent)}, ${same ? "steady" : improved ? "better" : "worse"} than the 30 days before (${fmt(before)})`;
 }
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString(undefined, { day: "numeric", month: "short", year: "numeric" }) : "never");
+const when = (iso: string | null) => (iso ? dayText(iso) : "never");
 
 /** The roster as a table: a pilot's name opens their Season. */
 export function RosterTable({ pilots, plans }: { pilots: RosterPilot[]; plans: PulledPlan[] }) {
@@ -41,7 +42,7 @@ export function RosterTable({ pilots, plans }: { pilots: RosterPilot[]; plans: P
               </th>
               <td className="p-2">{when(p.lastSessionAt)}</td>
               <td className="p-2">{p.runsThisMonth}</td>
-              <td className="p-2">{trend(p.result.recent, p.result.before, "higher", pct)}</td>
+              <td className="p-2">{trend(p.result.recent, p.result.before, "higher", shareText)}</td>
               <td className="p-2">{trend(p.turnaround.recent, p.turnaround.before, "lower", secs)}</td>
               <td className="p-2">
                 {plans.filter((x) => x.pilotId === p.pilotId && !x.progress.done).map((x) => (

@@ -5,13 +5,12 @@ import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { coachKeys, coachRequest, type PilotGrantRow } from "@/app/(app)/coach/_components/coach-api";
-
-const day = (iso: string) => new Date(iso).toLocaleDateString(undefined, { day: "numeric", month: "short", year: "numeric" });
+import { dayText } from "@/app/(app)/season/_components/season-format";
 
 function describe(g: PilotGrantRow): string {
-  if (g.kind === "grant") return `${g.coachName} (${g.coachEmail}) sees your season, runs and flights since ${day(g.createdAt)}.`;
-  if (g.kind === "email") return `Offered to ${g.email}: waiting for that coach to open the Coach desk (until ${day(g.expiresAt)}).`;
-  return `A one-time code made ${day(g.createdAt)}: waiting to be entered (until ${day(g.expiresAt)}).`;
+  if (g.kind === "grant") return `${g.coachName} (${g.coachEmail}) sees your season, runs and flights since ${dayText(g.createdAt)}.`;
+  if (g.kind === "email") return `Offered to ${g.email}: waiting for that coach to open the Coach desk (until ${dayText(g.expiresAt)}).`;
+  return `A one-time code made ${dayText(g.createdAt)}: waiting to be entered (until ${dayText(g.expiresAt)}).`;
 }
 
 /**
