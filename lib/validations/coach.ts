@@ -35,8 +35,5 @@ export const noteReplySchema = z.object({ body: noteBody });
 /** A note named in a path. */
 export const noteIdSchema = z.object({ noteId: z.uuid() });
 
-/** A pilot named in a query (?pilot=). */
-export const pilotQuerySchema = z.object({ pilot: z.uuid().optional() });
-
 /** A practice plan the coach assigns (POST /api/coach/plans). */
 export const planCreateSchema = planInputSchema.extend({ pilotId: z.uuid() });

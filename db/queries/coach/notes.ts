@@ -61,11 +61,6 @@ export async function notesFor(db: Executor, userId: string): Promise<PulledNote
   return noteRows(db, userId, sql`true`);
 }
 
-/** The notes the user may read about one pilot (the pilot themself, or a granted coach). */
-export async function notesAboutPilot(db: Executor, userId: string, pilotId: string): Promise<PulledNote[]> {
-  return noteRows(db, userId, sql`n.pilot_id = ${pilotId}`);
-}
-
 async function noteRows(db: Executor, userId: string, where: ReturnType<typeof sql>): Promise<PulledNote[]> {
   const res = await db.execute<{
     id: string; pilot_id: string; coach_id: string; author_id: string; author_name: string; session_id: string;
