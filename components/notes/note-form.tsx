@@ -4,6 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
+import { FormError } from "@/components/ui/form-footer";
 import { useOnline } from "@/components/sync/use-online";
 import { NOTE_BODY_MAX, noteReplySchema } from "@/lib/validations/coach";
 
@@ -38,7 +39,7 @@ export function NoteForm({ id, label, submitLabel, onSend }: { id: string; label
       />
       {error ? <p id={`${id}-error`} className="text-sm font-semibold text-danger">{error}</p> : null}
       <Button type="submit" variant="secondary" disabled={!online || formState.isSubmitting}>{submitLabel}</Button>
-      <p role="alert" className="text-sm font-semibold text-danger">{!online ? "Writing needs a connection; the notes below are from the last sync." : problem ?? ""}</p>
+      <FormError message={!online ? "Writing needs a connection; the notes below are from the last sync." : problem} />
     </form>
   );
 }
