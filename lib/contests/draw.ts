@@ -12,6 +12,8 @@ export type DrawInput = {
   seed: number;
   /** Whole draws tried from seeds derived from `seed`; the best is kept. */
   attempts?: number;
+  /** Meetings already flown (pilot × pilot), for a re-draw of the remaining rounds: they count as met. */
+  met?: ReadonlyArray<ReadonlyArray<number>>;
 };
 
 export type DrawResult = { rounds: Draw; seed: number; stats: MeetingStats; apartBroken: number };
@@ -30,7 +32,7 @@ export function makeDraw(input: DrawInput): DrawResult {
   let best: DrawResult | null = null;
   for (let a = 0; a < attempts; a++) {
     const rounds = drawOnce(input, mulberry32((input.seed ^ Math.imul(a + 1, 0x9e3779b1)) >>> 0));
-    const stats = meetingStats(input.pilots, rounds);
+    const stats = meetingStats(input.pilots, rounds, input.met);
     const apartBroken = countApart(rounds, input.apart ?? []);
     const candidate = { rounds, seed: input.seed, stats, apartBroken };
     if (!best || better(candidate, best)) best = candidate;
@@ -57,7 +59,7 @@ function countApart(draw: Draw, apart: ReadonlyArray<readonly [number, number]>)
 function drawOnce(input: DrawInput, random: () => number): Draw {
   const n = input.pilots;
   const sizes = groupSizes(n, input.maxGroupSize);
-  const met = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  const met = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => input.met?.[i]?.[j] ?? 0));
   const apart = Array.from({ length: n }, () => new Array<boolean>(n).fill(false));
   for (const [x, y] of input.apart ?? []) {
     if (x === y || x < 0 || y < 0 || x >= n || y >= n) continue;

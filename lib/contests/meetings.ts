@@ -18,9 +18,13 @@ export function meetingMatrix(pilots: number, draw: Draw): number[][] {
 
 export type MeetingStats = { max: number; min: number; mean: number; stdDev: number; sumSquares: number };
 
-/** Max, min, mean and standard deviation of meetings over every pair of pilots (the draw's spread). */
-export function meetingStats(pilots: number, draw: Draw): MeetingStats {
+/**
+ * Max, min, mean and standard deviation of meetings over every pair of pilots (the draw's spread),
+ * counting `before` (meetings of rounds already flown) too when given.
+ */
+export function meetingStats(pilots: number, draw: Draw, before?: ReadonlyArray<ReadonlyArray<number>>): MeetingStats {
   const m = meetingMatrix(pilots, draw);
+  if (before) for (let i = 0; i < pilots; i++) for (let j = 0; j < pilots; j++) m[i]![j]! += before[i]?.[j] ?? 0;
   let max = 0, min = Infinity, sum = 0, sumSquares = 0, pairs = 0;
   for (let i = 0; i < pilots; i++) {
     for (let j = i + 1; j < pilots; j++) {
