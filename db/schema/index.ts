@@ -15,3 +15,4 @@ export * from "./admin";
 export * from "./lane-flights";
 export * from "./club-days";
 export * from "./run-folds";
+export * from "./contest-draw-changes";

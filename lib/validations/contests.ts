@@ -34,3 +34,15 @@ export const paperEntrySchema = z.object({
 });
 
 export const drawSchema = z.object({ seed: z.number().int().min(0).max(2_147_483_647).optional() });
+
+const roundNumber = z.number({ error: "Choose a round." }).int("Choose a round.").min(1, "Choose a round.").max(20, "Contests have at most 20 rounds.");
+
+/** Two pilots (entry ids) of one round trade groups. */
+export const swapSchema = z.object({
+  round: roundNumber,
+  a: z.uuid("Choose the first pilot."),
+  b: z.uuid("Choose the second pilot."),
+});
+
+/** The rounds from `fromRound` on are drawn again; the seed is chosen when not given. */
+export const redrawSchema = z.object({ fromRound: roundNumber, seed: drawSchema.shape.seed });

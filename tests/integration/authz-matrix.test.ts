@@ -272,6 +272,8 @@ const ROWS: Record<string, Row> = {
   "POST /api/contests/[contestId]/paper-entries": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ pilotName: "Matrix Paper" }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "DELETE /api/contests/[contestId]/entries/[entryId]": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.entryReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/contests/[contestId]/draw": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ seed: 7 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "POST /api/contests/[contestId]/draw/swap": { params: contest.drawnContestOfOwnersClub, body: contest.swapBody, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "POST /api/contests/[contestId]/draw/redraw": { params: contest.drawnContestOfOwnersClub, body: () => ({ fromRound: 2, seed: 5 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "POST /api/contests/[contestId]/draw/lock": { params: (cast) => contest.contestOfOwnersClub(cast, true), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "GET /api/club-fields": signedIn({ check: (ctx, res) => club.onlyOwnClubsFields(ctx.user.id, res) }),
 };

@@ -59,6 +59,8 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/paper-entries": { POST: "json" },
   "/api/contests/[contestId]/draw": { POST: "json" },
   "/api/contests/[contestId]/draw/lock": { POST: "none" },
+  "/api/contests/[contestId]/draw/swap": { POST: "json" },
+  "/api/contests/[contestId]/draw/redraw": { POST: "json" },
   "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
@@ -142,6 +144,8 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
   if (path.endsWith("/entries")) return { modelIds: [] };
   if (path.endsWith("/draw")) return { seed: 3 };
+  if (path.endsWith("/draw/swap")) return { round: 1, a: uuidv7(), b: uuidv7() };
+  if (path.endsWith("/draw/redraw")) return { fromRound: 2, seed: 3 };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
   if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };

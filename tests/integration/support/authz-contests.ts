@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestEntries, contestRounds, contests } from "@/db/schema";
+import { contestEntries, contestRounds, contests, groupSlots } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -22,6 +22,21 @@ export async function contestOfOwnersClub(cast: Cast, drawn = false): Promise<Re
   entryId = rows[0]!.id;
   return { contestId: c!.id, entryId };
 }
+
+let pair: [string, string] = ["", ""];
+
+/** A drawn contest whose two entries fly in different groups of every round, for the draw's changes (swap, re-draw). */
+export async function drawnContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const entries = await db.select({ id: contestEntries.id }).from(contestEntries).where(eq(contestEntries.contestId, params.contestId!));
+  const rounds = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!));
+  await db.insert(groupSlots).values(rounds.flatMap((r) => entries.map((e, i) => ({ roundId: r.id, entryId: e.id, groupNumber: i + 1 }))));
+  pair = [entries[0]!.id, entries[1]!.id];
+  return params;
+}
+
+/** The swap's body: round 1's two pilots trade groups (each actor allowed swaps them back). */
+export const swapBody = () => ({ round: 1, a: pair[0], b: pair[1] });
 
 /** After a 2xx withdrawal: the entry is marked withdrawn; un-withdraw it for the next actor. */
 export async function entryReturns(): Promise<void> {
