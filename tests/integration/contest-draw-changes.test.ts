@@ -93,7 +93,8 @@ describe("changing a locked draw", () => {
     const flown = await reply(await swapRoute(json({ round: 1, a: p1.entry, b: p2.entry }), inContest(contestId)));
     expect(flown.status).toBe(409);
     expect(flown.body.error.message).toBe("Round 1 has results already: its groups can no longer change.");
-    expect((await slotsOf(contestId)).map(({ run: _run, ...s }) => s)).toEqual(before.map(({ run: _run, ...s }) => s));
+    const placed = (rows: Slot[]) => rows.map((s) => [s.round, s.group, s.entry]);
+    expect(placed(await slotsOf(contestId))).toEqual(placed(before));
     expect(await listDrawChanges(db, contestId)).toEqual([]);
   });
 
