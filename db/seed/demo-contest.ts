@@ -3,6 +3,7 @@ import { drawEntries } from "@/lib/contests/entries-draw";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Database } from "../index";
 import { saveDraw } from "../queries/contest-draw";
+import { swapInRound } from "../queries/contest-draw-changes";
 import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
 
@@ -10,7 +11,11 @@ const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
 const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway"];
 
-/** A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked. */
+/**
+ * A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn
+ * (seed 20261212), not locked; in round 5 the officer had Gus Wendle trade groups with a pilot of
+ * another group (a change of the draw, listed under it).
+ */
 export async function seedDemoContest(db: Database): Promise<void> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (!club) return;
@@ -30,4 +35,8 @@ export async function seedDemoContest(db: Database): Promise<void> {
   const seed = 20261212;
   const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
   await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds });
+  const round5 = drawn.rounds.find((r) => r.roundNumber === 5)!.groups;
+  const gus = entries.find((e) => e.pilotName === "Gus Wendle")!;
+  const other = round5.find((g) => !g.includes(gus.id))!.map((id) => entries.find((e) => e.id === id)!).find((e) => e.keepApart === null)!;
+  if (officer[0]) await swapInRound(db, { contestId: contest!.id, roundNumber: 5, a: gus.id, b: other.id, byUserId: officer[0].id });
 }

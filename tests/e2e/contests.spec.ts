@@ -1,3 +1,4 @@
+import AxeBuilder from "@axe-core/playwright";
 import { expect, test } from "@playwright/test";
 import { signInAs } from "./support/auth";
 
@@ -57,6 +58,39 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   await expect(page.getByText(/^Seed \d+ · locked$/)).toBeVisible();
   await expect(page.getByRole("button", { name: "Draw again" })).toHaveCount(0);
 
+  // on the day, after the lock: two pilots of round 2 trade groups, a swap within one group is
+  // refused with the reason, and rounds 4–5 are drawn again while rounds 1–3 stay as they were
+  const groupOf = async (round: number, group: number) =>
+    ((await page.getByRole("region", { name: `Round ${round}` }).locator("p", { hasText: new RegExp(`^Group ${group}:`) }).textContent()) ?? "")
+      .replace(/^Group \d+:\s*/, "").split(", ");
+  const [one, two] = [await groupOf(2, 1), await groupOf(2, 2)];
+  const swap = page.getByRole("form", { name: "Swap two pilots" });
+  await swap.getByLabel("Round").selectOption("2");
+  await swap.getByLabel("First pilot").selectOption({ label: `${one[0]} (group 1)` });
+  await swap.getByLabel("Second pilot").selectOption({ label: `${two[0]} (group 2)` });
+  await swap.getByRole("button", { name: "Swap their groups" }).click();
+  await expect(swap.getByRole("status")).toHaveText(`Round 2: ${one[0]} (to group 2) and ${two[0]} (to group 1) traded groups.`);
+  await expect.poll(() => groupOf(2, 1)).toContain(two[0]);
+  expect(await groupOf(2, 2)).toContain(one[0]);
+  await swap.getByLabel("First pilot").selectOption({ label: `${one[1]} (group 1)` });
+  await swap.getByLabel("Second pilot").selectOption({ label: `${one[2]} (group 1)` });
+  await swap.getByRole("button", { name: "Swap their groups" }).click();
+  await expect(swap.getByRole("alert")).toHaveText(`${one[1]} and ${one[2]} already fly in group 1.`);
+
+  const early = [];
+  for (let r = 1; r <= 3; r++) early.push(await page.getByRole("region", { name: `Round ${r}` }).textContent());
+  const redraw = page.getByRole("form", { name: "Draw the remaining rounds again" });
+  await redraw.getByLabel("From round").selectOption("4");
+  await redraw.getByRole("button", { name: "Draw them again" }).click();
+  await expect(redraw.getByRole("status")).toHaveText(/^Rounds 4–5 drawn again for 10 pilots \(seed \d+\)\.$/);
+  for (let r = 1; r <= 3; r++) await expect(page.getByRole("region", { name: `Round ${r}` })).toHaveText(early[r - 1]!);
+  const changes = page.getByRole("region", { name: "Changes to the draw" }).getByRole("listitem");
+  await expect(changes).toHaveCount(2);
+  await expect(changes.first()).toContainText("Rounds 4–5 drawn again");
+  await expect(changes.first()).toContainText("Ines");
+  const { violations } = await new AxeBuilder({ page }).analyze();
+  expect(violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => v.id)).toEqual([]);
+
   const quinn = await (await browser.newContext()).newPage();
   await signInAs(quinn, "quinn@example.com");
   expect((await quinn.goto(url))?.status()).toBe(404);
@@ -66,4 +100,9 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   // a member who is not an officer: 404 on the set-up page and 403 on the officer routes
   expect((await ada.goto("/contests/new?club=heronmoor"))?.status()).toBe(404);
   expect((await ada.request.post(`${url.replace("/contests/", "/api/contests/")}/draw`, { data: {}, headers: { origin: new URL(url).origin } })).status()).toBe(403);
+  expect((await ada.request.post(`${url.replace("/contests/", "/api/contests/")}/draw/redraw`, { data: { fromRound: 4 }, headers: { origin: new URL(url).origin } })).status()).toBe(403);
+  // a member sees the changes to the draw but not the officer's forms
+  await ada.goto(url);
+  await expect(ada.getByRole("region", { name: "Changes to the draw" }).getByRole("listitem")).toHaveCount(2);
+  await expect(ada.getByRole("form", { name: "Swap two pilots" })).toHaveCount(0);
 });

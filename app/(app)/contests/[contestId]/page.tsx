@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
+import { listDrawChanges } from "@/db/queries/contest-draw-changes";
 import { getContest, listSlots } from "@/db/queries/contests";
 import { listModels } from "@/db/queries/models";
 import { hasClubRole } from "@/lib/clubs/roles";
@@ -8,7 +9,10 @@ import { formatDate } from "@/lib/format";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
 import { ActionButton, EnterForm, PaperEntryForm } from "./_components/actions";
+import { DrawChangeList, DrawChanges } from "./_components/draw-changes";
 import { DrawLists } from "./_components/draw-lists";
+
+const changedAt = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 
 export const metadata: Metadata = { title: "Contest" };
 export const dynamic = "force-dynamic";
@@ -27,6 +31,7 @@ export default async function ContestPage({ params }: { params: Promise<{ contes
   const mine = live.find((e) => e.pilotUserId === me.id);
   const models = mine ? [] : (await listModels(db, { ownerId: me.id })).filter((m) => m.status !== "retired").map((m) => ({ id: m.id, name: m.name }));
   const slots = contest.drawSeed === null ? [] : await listSlots(db, contestId);
+  const changes = contest.drawSeed === null ? [] : await listDrawChanges(db, contestId);
   const names = new Map(entries.map((e) => [e.id, e.pilotName]));
   const letters = new Map(rounds.map((r) => [r.number, r.task.letter ?? "custom"]));
   return (
@@ -62,6 +67,10 @@ export default async function ContestPage({ params }: { params: Promise<{ contes
           </p>
         )}
         <DrawLists slots={slots} names={names} letters={letters} />
+        <DrawChangeList changes={changes.map((c) => ({ id: c.id, summary: c.summary, by: c.by, at: `${changedAt.format(c.at)} UTC` }))} />
+        {officer && slots.length > 0 && (
+          <DrawChanges contestId={contestId} slots={slots} names={Object.fromEntries(names)} rounds={rounds.map((r) => r.number)} />
+        )}
       </section>
     </div>
   );
