@@ -5,10 +5,10 @@ import { clubs, coachGrants, coachInvites, coachNotes, devices, events, fieldSes
 import { alias } from "drizzle-orm/pg-core";
 import { exportHangar } from "./hangar-export";
 
-// the lanes as stored, without the season's generated copies of their derived flights and breakdown
+// the lanes as stored, without the season's generated copy of their breakdown
 const allLaneColumns = getTableColumns(runLanes);
 const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as Omit<
-  typeof allLaneColumns, "seasonFlights" | "seasonBreakdown"
+  typeof allLaneColumns, "seasonBreakdown"
 >;
 
 /** The format of "export all my data"; bump when its shape changes. */

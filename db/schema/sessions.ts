@@ -69,11 +69,10 @@ export const runLanes = pgTable(
     /** The points-lost breakdown and flights as last derived (a cache of a pure function of the events). */
     derived: jsonb("derived"),
     /**
-     * The derived flights and points-lost breakdown alone, kept by PostgreSQL from `derived` (never
-     * written): the season's aggregates (db/queries/season) read these small columns instead of
-     * the whole cache with every device's version.
+     * The points-lost breakdown alone, kept by PostgreSQL from `derived` (never written): the
+     * season's aggregates (db/queries/season) read this small column instead of the whole cache
+     * with every device's version. The flights are rows of lane_flights, not a second copy here.
      */
-    seasonFlights: jsonb("season_flights").generatedAlwaysAs(sql`derived -> 'flights'`),
     seasonBreakdown: jsonb("season_breakdown").generatedAlwaysAs(sql`derived -> 'breakdown'`),
     needsReview: boolean("needs_review").notNull().default(false),
     reviewReason: text("review_reason"),

@@ -19,7 +19,7 @@ type Row = Record<string, unknown>;
 const key = (r: Row) => `${r.runId}/${r.lane}/${r.flight}`;
 const byKey = (rows: Row[]) => [...rows].sort((a, b) => (key(a) < key(b) ? -1 : key(a) > key(b) ? 1 : 0));
 
-/** The flights list's values for these lanes as the Season computed them from `run_lanes.season_flights` (JSON). */
+/** The flights list's values for these lanes as the Season computed them from the derived JSON (`run_lanes.derived -> 'flights'`). */
 async function fromJson(lanes: { runId: string; lane: number }[]): Promise<Row[]> {
   if (lanes.length === 0) return [];
   const res = await db.execute<Row>(sql`
@@ -28,10 +28,10 @@ async function fromJson(lanes: { runId: string; lane: number }[]): Promise<Row[]
       f."timeTenths" as "durationTenths", f."creditedTenths" as "creditedTenths", f."targetSec" as "targetSec", f.status,
       case when g.ground_ms >= 0 then round(g.ground_ms / 100)::int end as "turnaroundTenths"
     from run_lanes l
-    cross join lateral rows from (jsonb_to_recordset(coalesce(l.season_flights, '[]'::jsonb))
+    cross join lateral rows from (jsonb_to_recordset(coalesce(l.derived -> 'flights', '[]'::jsonb))
       as ("index" int, "launchMs" float8, "landMs" float8, status text, "timeTenths" int, "creditedTenths" int, "targetSec" int)) with ordinality
       as f("index", "launchMs", "landMs", status, "timeTenths", "creditedTenths", "targetSec", ord)
-    cross join lateral (select case when f.ord > 1 then f."launchMs" - (l.season_flights -> (f.ord::int - 2) ->> 'landMs')::float8 end as ground_ms) g
+    cross join lateral (select case when f.ord > 1 then f."launchMs" - (l.derived -> 'flights' -> (f.ord::int - 2) ->> 'landMs')::float8 end as ground_ms) g
     where (l.run_id::text || '/' || l.lane) in (select jsonb_array_elements_text(${JSON.stringify(lanes.map((l) => `${l.runId}/${l.lane}`))}::jsonb))`);
   return res.rows;
 }

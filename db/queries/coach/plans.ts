@@ -43,7 +43,7 @@ async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<
     where ${where} order by p.created_at desc, p.id limit 1000`);
   if (plans.rows.length === 0) return [];
   const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: string | null; flights: unknown }>(sql`
-    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths, l.season_flights as flights
+    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths, l.derived -> 'flights' as flights
     from runs r join practice_plans p on p.id = r.plan_id
     join run_lanes l on l.run_id = r.id and l.pilot_user_id = p.pilot_id
     where r.plan_id in (${sql.join(plans.rows.map((p) => sql`${p.id}::uuid`), sql`, `)}) and r.created_by = p.pilot_id`);
