@@ -19,6 +19,9 @@ export const userSearchSchema = z.object({
 });
 export type UserSearch = z.infer<typeof userSearchSchema>;
 
+/** /admin's audit, mail and rejections lists: each list's page in the URL (from 1). */
+export const adminListPageSchema = z.coerce.number().int().min(1).max(ADMIN_PAGE_MAX);
+
 // PATCH /api/admin/users/[userId] — path
 export const adminUserParamsSchema = z.object({ userId: z.uuid() });
 

@@ -80,3 +80,34 @@ test("a member gets the not-found page at /admin, and no admin API", async ({ pa
   const api = await page.evaluate(async () => (await fetch("/api/admin/users")).status);
   expect(api).toBe(403);
 });
+
+test("an admin turns the pages of the audit log; the other lists keep their place and the address can be shared", async ({ page, request, baseURL }) => {
+  const email = await signUpByApi(request, baseURL, "Plover Reed", "admin-pages", PASSWORD);
+  await signInAs(page, "admin@example.com");
+  await page.goto(`/admin?q=${encodeURIComponent(email)}`);
+  const found = (await (await page.request.get(`/api/admin/users?q=${encodeURIComponent(email)}`)).json()) as { users: { id: string }[] };
+  const userId = found.users[0]!.id;
+  // 60 admin actions on that account (disable / re-enable), through the same route the buttons use
+  for (let i = 0; i < 60; i++) {
+    const res = await page.request.patch(`/api/admin/users/${userId}`, { data: { action: i % 2 === 0 ? "disable" : "enable" }, headers: { origin: new URL(baseURL!).origin } });
+    expect(res.status()).toBe(200);
+  }
+  await page.reload();
+  const audit = page.getByRole("region", { name: "Audit log" });
+  const entries = audit.getByRole("listitem");
+  await expect(entries).toHaveCount(50);
+  await expect(entries.first()).toContainText(`re-enabled ${email}`); // the 60th action, newest first
+  await audit.getByRole("link", { name: "Older ›" }).click();
+  await expect(page).toHaveURL(/[?&]audit=2(&|#|$)/);
+  await expect(page).toHaveURL(/[?&]q=/); // the search kept
+  await expect(audit.getByText("page 2")).toBeVisible();
+  // page 2 starts where page 1 ended: the 10 oldest of the 60 (and whatever older the log holds)
+  await expect(entries.first()).toContainText(`re-enabled ${email}`);
+  await expect(audit.getByRole("link", { name: "‹ Newer" })).toBeVisible();
+  const shared = page.url();
+  await page.goto(shared);
+  await expect(audit.getByText("page 2")).toBeVisible();
+  await audit.getByRole("link", { name: "‹ Newer" }).click();
+  await expect(page).not.toHaveURL(/audit=/);
+  await expect(entries).toHaveCount(50);
+});

@@ -1,6 +1,7 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
 import { clubs, memberships, syncRejections } from "@/db/schema";
+import { sql } from "drizzle-orm";
 import { listAdminActions, listClubsWithCounts, listSyncRejections } from "@/db/queries/admin-lists";
 import { searchUsers } from "@/db/queries/admin";
 import { actAs } from "./support/session";
@@ -47,7 +48,28 @@ describe("admin lists", () => {
     const pilot = await freshUser("refused");
     const deviceId = `admin-list-${crypto.randomUUID()}`;
     await db.insert(syncRejections).values({ itemId: crypto.randomUUID(), deviceId, userId: pilot.id, reason: "runs: too many for one day" });
-    expect((await listSyncRejections(db)).find((r) => r.deviceId === deviceId)).toMatchObject({ reason: "runs: too many for one day", userEmail: pilot.email });
+    expect((await listSyncRejections(db)).rows.find((r) => r.deviceId === deviceId)).toMatchObject({ reason: "runs: too many for one day", userEmail: pilot.email });
+  });
+
+  it("pages through refused sync items, newest first: every row once, 50 a page, the last page says there is no more", async () => {
+    const pilot = await freshUser("refused-pages");
+    const deviceId = `admin-pages-${crypto.randomUUID()}`;
+    await db.insert(syncRejections).values(Array.from({ length: 120 }, (_, i) => ({
+      itemId: crypto.randomUUID(), deviceId, userId: pilot.id, reason: `refusal ${i}`, createdAt: new Date(Date.UTC(2026, 0, 1, 0, 0, i)),
+    })));
+    const total = Number((await db.execute<{ n: string }>(sql`select count(*) as n from sync_rejections`)).rows[0]!.n);
+    const seen: { id: string; at: number }[] = [];
+    let page = 1;
+    for (let more = true; more; page++) {
+      const got = await listSyncRejections(db, page);
+      expect(got.rows.length).toBe(got.more ? 50 : total - (page - 1) * 50);
+      seen.push(...got.rows.map((r) => ({ id: r.id, at: r.createdAt.getTime() })));
+      more = got.more;
+    }
+    expect(page - 1).toBe(Math.ceil(total / 50));
+    expect(new Set(seen.map((r) => r.id)).size).toBe(total);
+    expect(seen.every((r, i) => i === 0 || seen[i - 1]!.at >= r.at)).toBe(true);
+    expect((await listSyncRejections(db, page)).rows).toEqual([]);
   });
 
   it("shows each admin action with who did it to whom", async () => {
@@ -55,7 +77,7 @@ describe("admin lists", () => {
     const pilot = await freshUser("audit-pilot");
     actAs(admin);
     expect((await patchUser(pilot.id, { action: "disable" })).status).toBe(200);
-    const [latest] = (await listAdminActions(db)).filter((a) => a.targetEmail === pilot.email);
+    const [latest] = (await listAdminActions(db)).rows.filter((a) => a.targetEmail === pilot.email);
     expect(latest).toMatchObject({ action: "user.disable", actorEmail: admin.email, targetEmail: pilot.email });
   });
 });

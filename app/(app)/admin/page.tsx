@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { notFound, redirect } from "next/navigation";
 import { Suspense, type ReactNode } from "react";
 import { getSessionUser } from "@/lib/auth/session";
-import { userSearchSchema } from "@/lib/validations/admin";
+import { adminListPageSchema, userSearchSchema } from "@/lib/validations/admin";
 import { AdminSection } from "./_components/admin-section";
 import { AuditList } from "./_components/audit-list";
 import { ClubList } from "./_components/club-list";
@@ -32,6 +32,10 @@ export default async function AdminPage({ searchParams }: Props) {
   const params = await searchParams;
   const parsed = userSearchSchema.safeParse({ q: one(params.q), page: one(params.page) });
   const search = parsed.success ? parsed.data : { q: "", page: 1 };
+  // each list's page in the URL (a bad value is page 1); the links of one list keep the others'
+  const listPage = (key: string) => adminListPageSchema.catch(1).parse(one(params[key]));
+  const pages = { audit: listPage("audit"), mail: listPage("mail"), rejections: listPage("rejections") };
+  const kept = Object.fromEntries(Object.entries(params).flatMap(([k, v]) => (["q", "page", "audit", "mail", "rejections"].includes(k) && one(v) ? [[k, one(v)!]] : [])));
   return (
     <div className="space-y-8">
       <h1 className="text-2xl font-extrabold">Administration</h1>
@@ -42,18 +46,18 @@ export default async function AdminPage({ searchParams }: Props) {
         </Suspense>
       </AdminSection>
       <AdminSection id="audit" title="Audit log">
-        <Suspense fallback={loading("the audit log")}>
-          <AuditList />
+        <Suspense key={pages.audit} fallback={loading("the audit log")}>
+          <AuditList page={pages.audit} params={kept} />
         </Suspense>
       </AdminSection>
       <AdminSection id="mail" title="E-mail queue">
-        <Suspense fallback={loading("the e-mail queue")}>
-          <MailList />
+        <Suspense key={pages.mail} fallback={loading("the e-mail queue")}>
+          <MailList page={pages.mail} params={kept} />
         </Suspense>
       </AdminSection>
       <AdminSection id="rejections" title="Sync rejections">
-        <Suspense fallback={loading("sync rejections")}>
-          <RejectionList />
+        <Suspense key={pages.rejections} fallback={loading("sync rejections")}>
+          <RejectionList page={pages.rejections} params={kept} />
         </Suspense>
       </AdminSection>
       <AdminSection id="clubs" title="Clubs">

@@ -1,13 +1,14 @@
 import { db } from "@/db";
-import { ADMIN_LIST_LIMIT, listAdminActions } from "@/db/queries/admin-lists";
+import { listAdminActions } from "@/db/queries/admin-lists";
 import { describeAdminAction } from "@/lib/admin/audit-text";
 import { Empty } from "./admin-section";
+import { ListPager, type AdminParams } from "./list-pager";
 import { When } from "./when";
 
-/** The newest admin actions: who did what to whom, and when. */
-export async function AuditList() {
-  const entries = await listAdminActions(db);
-  if (!entries.length) return <Empty>No admin actions yet.</Empty>;
+/** The admin actions, newest first, a page at a time: who did what to whom, and when. */
+export async function AuditList({ page, params }: { page: number; params: AdminParams }) {
+  const { rows: entries, more } = await listAdminActions(db, page);
+  if (!entries.length) return <Empty>{page > 1 ? "No older admin actions." : "No admin actions yet."}</Empty>;
   return (
     <>
       <ol className="space-y-2" aria-label="Admin actions, newest first">
@@ -23,7 +24,7 @@ export async function AuditList() {
           </li>
         ))}
       </ol>
-      {entries.length === ADMIN_LIST_LIMIT ? <p className="text-sm text-muted">The newest {ADMIN_LIST_LIMIT} are shown.</p> : null}
+      <ListPager params={params} param="audit" page={page} more={more} section="audit" label="audit log" />
     </>
   );
 }

@@ -2,6 +2,7 @@ import { db } from "@/db";
 import { listMailQueue } from "@/db/queries/admin-lists";
 import { canRetryMail, mailState, type MailState } from "@/lib/admin/mail-state";
 import { Empty } from "./admin-section";
+import { ListPager, type AdminParams } from "./list-pager";
 import { MailRetryButton } from "./mail-retry-button";
 import { When } from "./when";
 
@@ -11,10 +12,11 @@ const LABEL: Record<MailState, string> = { sent: "Sent", queued: "Queued", retry
  * The e-mail queue: messages whose last try failed first, then the newest. Only the envelope shows
  * (addressee, subject, kind): the bodies hold one-time links that are their addressee's alone.
  */
-export async function MailList() {
-  const mails = await listMailQueue(db);
-  if (!mails.length) return <Empty>No e-mail has been queued.</Empty>;
+export async function MailList({ page, params }: { page: number; params: AdminParams }) {
+  const { rows: mails, more } = await listMailQueue(db, page);
+  if (!mails.length) return <Empty>{page > 1 ? "No older e-mail." : "No e-mail has been queued."}</Empty>;
   return (
+    <>
     <ul className="space-y-2" aria-label="Queued e-mail">
       {mails.map((m) => {
         const state = mailState(m);
@@ -44,5 +46,7 @@ export async function MailList() {
         );
       })}
     </ul>
+    <ListPager params={params} param="mail" page={page} more={more} section="mail" label="e-mail queue" />
+    </>
   );
 }

@@ -1,13 +1,15 @@
 import { db } from "@/db";
 import { listSyncRejections } from "@/db/queries/admin-lists";
 import { Empty } from "./admin-section";
+import { ListPager, type AdminParams } from "./list-pager";
 import { When } from "./when";
 
-/** Items phones pushed that the server refused, newest first: which device, whose, why, and when. */
-export async function RejectionList() {
-  const rejections = await listSyncRejections(db);
-  if (!rejections.length) return <Empty>No pushed item has been refused.</Empty>;
+/** Items phones pushed that the server refused, newest first, a page at a time: which device, whose, why, and when. */
+export async function RejectionList({ page, params }: { page: number; params: AdminParams }) {
+  const { rows: rejections, more } = await listSyncRejections(db, page);
+  if (!rejections.length) return <Empty>{page > 1 ? "No older refusals." : "No pushed item has been refused."}</Empty>;
   return (
+    <>
     <ul className="space-y-2" aria-label="Refused items">
       {rejections.map((r) => (
         <li key={r.id} className="space-y-1 rounded-lg border border-line bg-raised p-3">
@@ -21,5 +23,7 @@ export async function RejectionList() {
         </li>
       ))}
     </ul>
+    <ListPager params={params} param="rejections" page={page} more={more} section="rejections" label="sync rejections" />
+    </>
   );
 }
