@@ -94,7 +94,11 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
   const toPoints = (cells: RoundCell[]) => cells.map((c) => (c.pointsTenths ?? 0) / 10);
   const entriesIn = rowsIn.map(({ entry, cells }) => ({ pilotId: entry.id, rounds: toPoints(cells), penalties: cells.reduce((sum, c) => sum + c.penaltyPoints, 0) }));
   const ranked = flyOff ? rankFlyOff(entriesIn) : rankPilots(entriesIn, { dropFrom });
-  return ranked.map(({ pilotId, ...standing }) => {
+  // Pilots sharing a place are listed by name (the ranking breaks nothing between them).
+  const listed = ranked.map((r) => ({ r, name: rowsIn.find((x) => x.entry.id === r.pilotId)!.entry.name }))
+    .sort((a, b) => a.r.rank - b.r.rank || a.name.localeCompare(b.name))
+    .map((x) => x.r);
+  return listed.map(({ pilotId, ...standing }) => {
     const { entry, cells } = rowsIn.find((r) => r.entry.id === pilotId)!;
     const marked = cells.map((c, i) => ({ ...c, dropped: standing.dropped?.index === i }));
     return { ...standing, entryId: entry.id, name: entry.name, team: entry.team, rounds: marked };
