@@ -24,6 +24,7 @@ export type StandingsInput = {
   slots: readonly StandingsSlot[];
   /** "f3k": lowest round dropped from 6 flown (F3K.10); "none": every round counts. */
   dropRule: string;
+  /** How exact halves of 0.1 point round when a round's task does not say (its `halves` setting wins; default half-up). */
   halves?: HalfRounding;
 };
 
@@ -69,7 +70,7 @@ function scoreSlots(input: StandingsInput): Scored {
         return { slot: s, source, resultTenths };
       });
       // F3K.1.2: a result not signed by pilot and timekeeper scores zero (so it is nobody's best either).
-      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.slot.signed ? x.resultTenths : 0)), input.halves);
+      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.slot.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
       inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
         signed: x.slot.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints,
