@@ -5,17 +5,18 @@ import type { Database } from "../index";
 import { saveDraw } from "../queries/contest-draw";
 import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
+import { seedDemoResults } from "./demo-results";
 
 const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
 const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway"];
 
-/** A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked. */
+/** A demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked; rounds 1–3 with results (./demo-results.ts). */
 export async function seedDemoContest(db: Database): Promise<void> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (!club) return;
   const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));
-  if (present) return;
+  if (present) return seedDemoResults(db, present.id);
   const pilots = await db.select({ id: users.id, name: users.name }).from(users)
     .where(inArray(users.email, ["ada@example.com", "tobi@example.com", "lena@example.com"]));
   const officer = await db.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
@@ -30,4 +31,5 @@ export async function seedDemoContest(db: Database): Promise<void> {
   const seed = 20261212;
   const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
   await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds });
+  await seedDemoResults(db, contest!.id);
 }
