@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import type { LinkableLane } from "@/lib/contests/linkable";
 import type { StandingsInput, StandingsSlot } from "@/lib/contests/standings";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
@@ -54,8 +55,9 @@ export async function listRoundSlots(db: Database, roundId: string) {
   return db.select({
     entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber, name: contestEntries.pilotName, paperFlights: groupSlots.paperFlights,
     penaltyPoints: groupSlots.penaltyPoints, signedAt: groupSlots.signedAt, signedFrom: groupSlots.signedFrom, runId: groupSlots.runId,
-    recordedAt: groupSlots.recordedAt,
+    lane: groupSlots.lane, runResultTenths: runLanes.resultTenths, recordedAt: groupSlots.recordedAt,
   }).from(groupSlots).innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(eq(groupSlots.roundId, roundId)).orderBy(asc(groupSlots.groupNumber), asc(contestEntries.pilotName));
 }
 
@@ -93,4 +95,48 @@ export async function setPublicToken(db: Database, p: { contestId: string; token
 export async function contestIdByPublicToken(db: Database, token: string): Promise<string | null> {
   const [row] = await db.select({ id: contests.id }).from(contests).where(eq(contests.publicToken, token));
   return row?.id ?? null;
+}
+
+
+/**
+ * Lanes of runs timed at the club's sessions around the contest day (the day before to the day
+ * after, in UTC: a local day spans two UTC dates) with this task letter: what an officer can link
+ * to a pilot's slot. Newest first, at most 200.
+ */
+export async function listLinkableLanes(db: Database, p: { clubId: string; day: string; letter: string | null }): Promise<LinkableLane[]> {
+  const res = await db.execute<{ run_id: string; lane: number; pilot_name: string; result_tenths: number | null; started_at: string; letter: string | null }>(sql`
+    select l.run_id, l.lane, l.pilot_name, l.result_tenths, r.created_at::text as started_at, r.task ->> 'letter' as letter
+    from run_lanes l join runs r on r.id = l.run_id join field_sessions s on s.id = r.session_id
+    where s.club_id = ${p.clubId}
+      and r.created_at >= (${p.day}::date - 1)::timestamptz and r.created_at < (${p.day}::date + 2)::timestamptz
+      and r.task ->> 'letter' is not distinct from ${p.letter}
+    order by r.created_at desc, l.lane limit 200`);
+  return res.rows.map((r) => ({ runId: r.run_id, lane: r.lane, pilotName: r.pilot_name, resultTenths: r.result_tenths, startedAt: r.started_at, taskLetter: r.letter }));
+}
+
+/**
+ * Links a timed run's lane to a pilot's slot in a round (its server result, derived by runResult,
+ * becomes the round's result; a paper card entered before and the signature are cleared), or unlinks it (null).
+ * "no_slot" when the pilot is not drawn in the round; "no_lane" when the lane is not one
+ * listLinkableLanes offers for this contest (club, day, task).
+ */
+export async function linkRun(db: Database, p: {
+  contestId: string; roundId: string; entryId: string; userId: string; link: { runId: string; lane: number } | null;
+}): Promise<"linked" | "no_slot" | "no_lane"> {
+  return db.transaction(async (tx) => {
+    const [slot] = await tx.select({ id: groupSlots.id }).from(groupSlots).where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.entryId, p.entryId)));
+    if (!slot) return "no_slot";
+    if (p.link) {
+      const [c] = await tx.select({ clubId: contests.clubId, day: contests.startsOn }).from(contests).where(eq(contests.id, p.contestId));
+      const [round] = await tx.select({ task: contestRounds.task }).from(contestRounds).where(eq(contestRounds.id, p.roundId));
+      const lanes = await listLinkableLanes(tx as unknown as Database, { clubId: c!.clubId, day: c!.day, letter: (round!.task as TaskDefinition).letter });
+      if (!lanes.some((l) => l.runId === p.link!.runId && l.lane === p.link!.lane)) return "no_lane";
+    }
+    await tx.update(groupSlots).set({
+      runId: p.link?.runId ?? null, lane: p.link?.lane ?? null, paperFlights: null, recordedBy: p.userId, recordedAt: new Date(),
+      // another result needs its own signature (F3K.1.2)
+      signedAt: null, signedFrom: null,
+    }).where(eq(groupSlots.id, slot.id));
+    return "linked";
+  });
 }

@@ -23,3 +23,10 @@ export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "fli
 
 /** A public results link's secret: 32 random bytes, base64url. */
 export const publicTokenSchema = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "Not a results link.") });
+
+/** Links a timed run's lane to a pilot's slot in the round, or unlinks it (runId null). */
+export const linkRunSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  runId: z.uuid("Not a run.").nullable(),
+  lane: z.number().int("Not a lane.").min(0, "Not a lane.").max(49, "Not a lane.").nullable(),
+}).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] });

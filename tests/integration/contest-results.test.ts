@@ -6,7 +6,8 @@ import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/rout
 import { PUT as cardsRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/cards/route";
 import { DELETE as revokeRoute, POST as publishRoute } from "@/app/api/contests/[contestId]/public-link/route";
 import { GET as publicRoute } from "@/app/api/public-results/[token]/route";
-import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships } from "@/db/schema";
+import { PUT as linkRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/runs/route";
+import { clubs, contestEntries, contestRounds, contests, fieldSessions, groupSlots, memberships, runLanes, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
@@ -24,12 +25,14 @@ afterAll(async () => {
 let officer: MockSessionUser;
 let member: MockSessionUser;
 let contestId = "";
+let clubId = "";
 const ids: Record<string, string> = {};
 
 beforeAll(async () => {
   officer = await freshUser("results-officer");
   member = await freshUser("results-member");
   const [club] = await db.insert(clubs).values({ name: "Results Club", slug: `results-${randomUUID().slice(0, 8)}` }).returning();
+  clubId = club!.id;
   await db.insert(memberships).values([{ clubId: club!.id, userId: officer.id, role: "officer" }, { clubId: club!.id, userId: member.id, role: "member" }]);
   const [c] = await db.insert(contests).values({ clubId: club!.id, name: "Results Cup", startsOn: "2027-02-13", fieldName: "Mere Field", drawSeed: 5 }).returning();
   contestId = c!.id;
@@ -134,5 +137,53 @@ describe("the public results link", () => {
     expect((await revokeRoute(new Request("http://test/api", { method: "DELETE" }), ctx())).status).toBe(200);
     actAs(null);
     expect((await open(renewed.token)).status).toBe(404);
+  });
+});
+
+describe("linking a run a phone timed", () => {
+  /** A run of task `letter` at a session of `club` on `at`, one lane for Una with this server result. */
+  async function timedRun(p: { club: string | null; at: string; letter: "A" | "B"; resultTenths: number }) {
+    const sessionId = randomUUID();
+    await db.insert(fieldSessions).values({ id: sessionId, ownerId: officer.id, clubId: p.club, fieldName: "Mere Field", startedAt: new Date(p.at) });
+    const runId = randomUUID();
+    const task = getCatalogueTask(p.letter);
+    await db.insert(runs).values({ id: runId, sessionId, createdBy: officer.id, task, taskCode: p.letter, edition: String(task.edition), createdAt: new Date(p.at) });
+    await db.insert(runLanes).values({ runId, lane: 0, pilotName: "Una", resultTenths: p.resultTenths });
+    return runId;
+  }
+  const link = (body: unknown, roundNumber = "1") =>
+    linkRoute(new Request("http://test/api", { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), { params: Promise.resolve({ contestId, roundNumber }) });
+  const una = async () => {
+    actAs(member);
+    const { standings } = (await (await get()).json()) as { standings: { pilots: { name: string; totalTenths: number; rounds: { resultTenths: number; source: string; signed: boolean }[] }[] } };
+    return standings.pilots;
+  };
+
+  it("the run's server result becomes the round's result once signed; the wrong club, day or task is refused", async () => {
+    const good = await timedRun({ club: clubId, at: "2027-02-13T10:00:00Z", letter: "A", resultTenths: 2950 });
+    const otherClub = await timedRun({ club: null, at: "2027-02-13T10:05:00Z", letter: "A", resultTenths: 3000 });
+    const otherDay = await timedRun({ club: clubId, at: "2027-02-20T10:00:00Z", letter: "A", resultTenths: 3000 });
+    const otherTask = await timedRun({ club: clubId, at: "2027-02-13T10:10:00Z", letter: "B", resultTenths: 2400 });
+    actAs(officer);
+    for (const runId of [otherClub, otherDay, otherTask]) expect((await link({ entryId: ids.Una, runId, lane: 0 })).status).toBe(422);
+    expect((await link({ entryId: ids.Una, runId: good, lane: 1 })).status).toBe(422);
+    expect((await link({ entryId: ids.Una, runId: good, lane: null })).status).toBe(422);
+    actAs(member);
+    expect((await link({ entryId: ids.Una, runId: good, lane: 0 })).status).toBe(403);
+
+    actAs(officer);
+    expect((await link({ entryId: ids.Una, runId: good, lane: 0 })).status).toBe(200);
+    // linking cleared the paper card and the signature: Una's 295.0 s counts zero until signed (F3K.1.2)
+    expect((await una()).find((p) => p.name === "Una")!.rounds[0]).toMatchObject({ resultTenths: 2950, source: "run", signed: false });
+    actAs(officer);
+    expect((await put({ groupNumber: 1, cards: [{ entryId: ids.Una, flights: null, penaltyPoints: 100, signed: true }] })).status).toBe(200);
+    // group 1 now: Una 295.0 s (best, 1000 − 100 penalty = 900.0); Vic 180/295 × 1000 = 610.17 → 610.2; Wim unsigned 0
+    const pilots = await una();
+    expect(pilots.find((p) => p.name === "Una")!.totalTenths).toBe(9000);
+    expect(pilots.find((p) => p.name === "Vic")!.totalTenths).toBe(6102);
+
+    actAs(officer);
+    expect((await link({ entryId: ids.Una, runId: null, lane: null })).status).toBe(200);
+    expect((await una()).find((p) => p.name === "Una")!.rounds[0]).toMatchObject({ resultTenths: null, source: null });
   });
 });

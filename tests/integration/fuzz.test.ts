@@ -61,6 +61,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/draw/lock": { POST: "none" },
   "/api/contests/[contestId]/results": { GET: "query" },
   "/api/contests/[contestId]/rounds/[roundNumber]/cards": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/runs": { PUT: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
   "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },
@@ -146,6 +147,7 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
   if (path.endsWith("/entries")) return { modelIds: [] };
   if (path.endsWith("/draw")) return { seed: 3 };
+  if (path.endsWith("/runs")) return { entryId: uuidv7(), runId: uuidv7(), lane: 0 };
   if (path.endsWith("/cards")) return { groupNumber: 1, cards: [{ entryId: uuidv7(), flights: [834, 1200], penaltyPoints: 100, signed: true }] };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };

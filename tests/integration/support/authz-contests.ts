@@ -56,6 +56,9 @@ export async function cardsSaved(ctx: { user: { id: string } }): Promise<void> {
   await db.update(groupSlots).set({ paperFlights: null, recordedBy: null, signedAt: null, signedFrom: null }).where(eq(groupSlots.entryId, entryId));
 }
 
+/** The officer unlinks Matrix One's (absent) timed run in round 1: allowed for officers, changes no result. */
+export const unlinkBody = () => ({ entryId, runId: null, lane: null });
+
 /** After a 2xx: the link returned is the one stored. */
 export async function linkMade(_ctx: unknown, res: Response): Promise<void> {
   const body = (await res.json()) as { token: string };

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
-import { getRound, listRoundSlots } from "@/db/queries/contest-results";
+import { getRound, listLinkableLanes, listRoundSlots } from "@/db/queries/contest-results";
 import { getContest } from "@/db/queries/contests";
 import { paperCardProblem } from "@/lib/contests/paper-card";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
@@ -20,7 +20,10 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${roundNumber}/cards` });
   const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber })]);
   if (!found || !round) notFound();
-  const slots = await listRoundSlots(db, round.id);
+  const [slots, lanes] = await Promise.all([
+    listRoundSlots(db, round.id),
+    listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }),
+  ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const problem = paperCardProblem(round.task);
   const others = found.rounds.filter((r) => r.number !== roundNumber);
@@ -31,7 +34,8 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
         <h1 className="text-2xl font-extrabold">Round {roundNumber}: paper cards</h1>
         <p>Task {round.task.letter}: {round.task.name}</p>
         <p className="text-sm text-muted">
-          Type each pilot&apos;s flight times as on the card, in flown order, separated by spaces (seconds like 83.4, or 1:23.4).
+          Type each pilot&apos;s flight times as on the card, in flown order, separated by spaces (seconds like 83.4, or 1:23.4),
+          or choose the run a timekeeper&apos;s phone timed and synced for the pilot (runs of the club&apos;s sessions on the contest day with this task).
           The task&apos;s rules are checked as you type. Tick &quot;Signed&quot; only when pilot and timekeeper signed the card: an unsigned result scores zero (F3K.1.2).
         </p>
       </header>
@@ -44,9 +48,11 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
           roundNumber={roundNumber}
           groupNumber={g}
           task={round.task}
+          lanes={lanes}
           pilots={slots.filter((s) => s.groupNumber === g).map((s) => ({
             entryId: s.entryId, name: s.name, flights: s.paperFlights, penaltyPoints: s.penaltyPoints,
-            signed: s.signedAt !== null, timedRun: s.runId !== null && s.paperFlights === null, recordedAt: s.recordedAt?.toISOString() ?? null,
+            signed: s.signedAt !== null, recordedAt: s.recordedAt?.toISOString() ?? null,
+            link: s.runId !== null && s.lane !== null ? { runId: s.runId, lane: s.lane, resultTenths: s.runResultTenths } : null,
           }))}
         />
       ))}
