@@ -19,7 +19,7 @@ export const groupCardsSchema = z.object({
 });
 export type GroupCardsInput = z.infer<typeof groupCardsSchema>;
 
-export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv"]).default("json") });
+export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv", "pdf"]).default("json") });
 
 /** A public results link's secret: 32 random bytes, base64url. */
 export const publicTokenSchema = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "Not a results link.") });

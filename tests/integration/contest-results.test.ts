@@ -81,7 +81,7 @@ describe("paper cards and standings", () => {
     ]);
   });
 
-  it("CSV: the results with every round's points, and every flight with what the task engine counted", async () => {
+  it("CSV and PDF: the results with every round's points, and every flight with what the task engine counted", async () => {
     actAs(member);
     const results = await get("csv");
     expect(results.headers.get("content-type")).toMatch(/text\/csv/);
@@ -89,6 +89,9 @@ describe("paper cards and standings", () => {
     expect(lines[0]).toBe("Place,Pilot,Team,Round 1 (A),Penalties,Total,Note");
     expect(lines).toContain("5,Una,,833.3,100.0,733.3,");
     expect(lines).toContain("6,Wim,,0.0,0.0,0.0,round 1 unsigned");
+    const pdf = await get("pdf");
+    expect(pdf.headers.get("content-type")).toBe("application/pdf");
+    expect(new TextDecoder("latin1").decode(await pdf.arrayBuffer())).toContain("(733.3)");
     const flights = (await (await get("flights-csv")).text()).split("\r\n");
     expect(flights).toHaveLength(1 + 7);
     expect(flights).toContain("1,A,1,Una,paper card,1,120.0,0.0,not-counted,superseded,yes");

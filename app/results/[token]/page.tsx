@@ -3,7 +3,6 @@ import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { contestIdByPublicToken, getResultsData } from "@/db/queries/contest-results";
 import { LiveStandings } from "@/components/contests/live-standings";
-import { QueryProvider } from "@/components/query/query-provider";
 import { contestStandings } from "@/lib/contests/standings";
 import { formatDate } from "@/lib/format";
 import { publicTokenSchema } from "@/lib/validations/contest-results";
@@ -26,9 +25,7 @@ export default async function PublicResultsPage({ params }: { params: Promise<{ 
         <h1 className="text-2xl font-extrabold">{data.contest.name}</h1>
         <p className="text-muted">{formatDate(new Date(`${data.contest.startsOn}T12:00:00Z`))} · {data.contest.fieldName}</p>
       </header>
-      <QueryProvider>
-        <LiveStandings url={`/api/public-results/${parsed.data.token}`} initial={contestStandings(data.input)} />
-      </QueryProvider>
+      <LiveStandings url={`/api/public-results/${parsed.data.token}`} initial={contestStandings(data.input)} />
       <p className="print:hidden"><a className="inline-flex min-h-12 items-center underline" href={`/api/public-results/${parsed.data.token}?format=csv`} download>Results (CSV)</a></p>
     </main>
   );

@@ -35,6 +35,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
       <section aria-labelledby="downloads" className="space-y-2 print:hidden">
         <h2 id="downloads" className="text-lg font-bold">Print and download</h2>
         <ul className="space-y-2">
+          <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=pdf`} download>Results (PDF)</a></li>
           <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=csv`} download>Results (CSV)</a></li>
           <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=flights-csv`} download>Every flight (CSV)</a></li>
           <li><Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/sheets`}>Group lists and scoresheets</Link></li>
