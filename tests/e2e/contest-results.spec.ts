@@ -118,6 +118,9 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);
   expect((await csv.text()).split("\r\n")[0]).toBe("Place,Pilot,Team,Round 1 (A),Round 2 (B),Round 3 (D),Penalties,Total,Note");
+  const pdf = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=pdf`);
+  expect(pdf.headers()["content-type"]).toBe("application/pdf");
+  expect((await pdf.body()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
 
   await page.getByRole("link", { name: "Group lists and scoresheets" }).click();
   await expect(page.getByRole("region", { name: "Scoresheet round 1 group 1" }).getByRole("columnheader", { name: "Timekeeper's signature" })).toBeVisible();
