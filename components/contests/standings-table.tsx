@@ -17,7 +17,7 @@ function RoundCellText({ cell }: { cell: PilotRow["rounds"][number] }) {
 function PilotTable({ caption, rounds, pilots, places }: { caption: string; rounds: Standings["rounds"]; pilots: PilotRow[]; places?: Map<string, number> }) {
   const rows = places ? [...pilots].sort((a, b) => (places.get(a.entryId) ?? 0) - (places.get(b.entryId) ?? 0)) : pilots;
   return (
-    <div className="overflow-x-auto print:overflow-visible">
+    <div className="overflow-x-auto print:overflow-visible" tabIndex={0}>
       <table className="figures w-full border-collapse text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead>

@@ -61,7 +61,7 @@ export default async function SheetsPage({ params }: { params: Promise<{ contest
           <section key={`${r.id}-${group}`} aria-label={`Scoresheet round ${r.number} group ${group}`} className="print-sheet card space-y-2 rounded-xl border border-line bg-raised p-3 print:rounded-none print:border-0 print:p-0">
             <h2 className="text-lg font-bold">Scoresheet · round {r.number} · group {group}</h2>
             <p className="text-sm">{contest.name} · {day} · task {r.task.letter}: {r.task.name}</p>
-            <div className="overflow-x-auto print:overflow-visible">
+            <div className="overflow-x-auto print:overflow-visible" tabIndex={0}>
               <table className="w-full border-collapse text-sm">
                 <thead>
                   <tr>
