@@ -8,7 +8,7 @@ import { NAV_ITEMS } from "./nav-items";
 export function BottomNav() {
   const path = usePathname();
   return (
-    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-line bg-raised pb-[env(safe-area-inset-bottom)]">
+    <nav aria-label="Main" className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-line bg-raised pb-[env(safe-area-inset-bottom)]">
       <ul className="mx-auto grid max-w-xl" style={{ gridTemplateColumns: `repeat(${NAV_ITEMS.length}, minmax(0, 1fr))` }}>
         {NAV_ITEMS.map((item) => {
           const current = item.href === "/" ? path === "/" : path === item.href || path.startsWith(item.href + "/");

@@ -6,7 +6,7 @@ import { SETTINGS_ICON } from "./nav-items";
 /** The slim top bar: the name (home) on the left; sync status and the Settings gear on the right. */
 export function TopBar({ right }: { right?: ReactNode }) {
   return (
-    <header className="sticky top-0 z-20 border-b-2 border-line bg-raised pt-[env(safe-area-inset-top)]">
+    <header className="sticky top-0 z-20 border-b-2 print:hidden border-line bg-raised pt-[env(safe-area-inset-top)]">
       <div className="mx-auto flex h-14 max-w-xl items-center justify-between px-4">
         <Link href="/" className="text-lg font-extrabold tracking-tight">
           Windowcall

@@ -14,13 +14,15 @@ async function lockDrawnContest(tx: Tx, contestId: string): Promise<boolean> {
   return r.rows[0]?.draw_seed != null;
 }
 
-/** Rounds (not fly-off) of the contest from `from` on, with their slots; a slot with a run has a result. */
+/** Rounds (not fly-off) of the contest from `from` on, with their slots; `result`: a linked run, a paper card or a signature. */
 async function roundsWithSlots(tx: Tx, contestId: string, from = 1) {
   const rounds = await tx.select({ id: contestRounds.id, number: contestRounds.number }).from(contestRounds)
     .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, false), gte(contestRounds.number, from)))
     .orderBy(asc(contestRounds.number));
-  const slots = rounds.length === 0 ? [] : await tx.select({ roundId: groupSlots.roundId, entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber, runId: groupSlots.runId })
-    .from(groupSlots).where(inArray(groupSlots.roundId, rounds.map((r) => r.id)));
+  const slots = rounds.length === 0 ? [] : await tx.select({
+    roundId: groupSlots.roundId, entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber,
+    result: sql<boolean>`(${groupSlots.runId} is not null or ${groupSlots.paperFlights} is not null or ${groupSlots.signedAt} is not null)`,
+  }).from(groupSlots).where(inArray(groupSlots.roundId, rounds.map((r) => r.id)));
   return rounds.map((r) => ({ ...r, slots: slots.filter((s) => s.roundId === r.id) }));
 }
 
@@ -37,7 +39,7 @@ export async function swapInRound(db: Database, p: { contestId: string; roundNum
     if (!(await lockDrawnContest(tx, p.contestId))) return { ok: false, code: "no_draw", message: "Make the draw first." };
     const round = (await roundsWithSlots(tx, p.contestId, p.roundNumber)).find((r) => r.number === p.roundNumber);
     if (!round) return { ok: false, code: "no_round", message: `The contest has no round ${p.roundNumber}.` };
-    if (round.slots.some((s) => s.runId !== null)) return flownRefusal(p.roundNumber, "its groups can no longer change.");
+    if (round.slots.some((s) => s.result)) return flownRefusal(p.roundNumber, "its groups can no longer change.");
     const entries = await tx.select({ id: contestEntries.id, keepApart: contestEntries.keepApart, name: contestEntries.pilotName })
       .from(contestEntries).where(eq(contestEntries.contestId, p.contestId));
     const names = new Map(entries.map((e) => [e.id, e.name]));
@@ -65,7 +67,7 @@ export async function redrawFrom(db: Database, p: { contestId: string; fromRound
     const all = await roundsWithSlots(tx, p.contestId);
     const remaining = all.filter((r) => r.number >= p.fromRound);
     if (remaining.length === 0) return { ok: false, code: "no_round", message: `The contest has no round ${p.fromRound}.` };
-    const flownLater = remaining.find((r) => r.slots.some((s) => s.runId !== null));
+    const flownLater = remaining.find((r) => r.slots.some((s) => s.result));
     if (flownLater) return flownRefusal(flownLater.number, "re-draw from a later round.");
     const [{ maxGroupSize }] = await tx.select({ maxGroupSize: contests.maxGroupSize }).from(contests).where(eq(contests.id, p.contestId)) as [{ maxGroupSize: number }];
     const live = await tx.select({ id: contestEntries.id, keepApart: contestEntries.keepApart }).from(contestEntries)

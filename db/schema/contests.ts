@@ -40,6 +40,8 @@ export const contests = pgTable(
     /** The draw's seed (printed with it), null until drawn; locked: no re-draw. */
     drawSeed: integer("draw_seed"),
     drawLockedAt: timestamp("draw_locked_at", { withTimezone: true }),
+    /** The public read-only results link's secret (base64url, 32 random bytes); null = no link. */
+    publicToken: text("public_token").unique(),
     createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -97,6 +99,14 @@ export const groupSlots = pgTable(
     runId: uuid("run_id"),
     lane: smallint("lane"),
     penaltyPoints: integer("penalty_points").notNull().default(0),
+    /** A paper card's flight times in tenths of a second, in flown order; null = not entered on paper. */
+    paperFlights: jsonb("paper_flights").$type<number[]>(),
+    /** Who entered the result (paper card, penalty, signature) and when. */
+    recordedBy: uuid("recorded_by").references(() => users.id, { onDelete: "set null" }),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }),
+    /** Signed by pilot and timekeeper (F3K.1.2: an unsigned result scores zero); `signedFrom` says how it was seen. */
+    signedAt: timestamp("signed_at", { withTimezone: true }),
+    signedFrom: text("signed_from"),
   },
   (t) => [unique("group_slots_round_entry_uq").on(t.roundId, t.entryId)],
 );

@@ -6,21 +6,22 @@ import { saveDraw } from "../queries/contest-draw";
 import { swapInRound } from "../queries/contest-draw-changes";
 import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
+import { seedDemoResults } from "./demo-results";
 
 const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
 const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway"];
 
 /**
- * A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn
- * (seed 20261212), not locked; in round 5 the officer had Gus Wendle trade groups with a pilot of
- * another group (a change of the draw, listed under it).
+ * A demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed
+ * 20261212), not locked; rounds 1–3 with results (./demo-results.ts); in round 5 the officer had
+ * Gus Wendle trade groups with a pilot of another group (a change of the draw, listed under it).
  */
 export async function seedDemoContest(db: Database): Promise<void> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (!club) return;
   const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));
-  if (present) return;
+  if (present) return seedDemoResults(db, present.id);
   const pilots = await db.select({ id: users.id, name: users.name }).from(users)
     .where(inArray(users.email, ["ada@example.com", "tobi@example.com", "lena@example.com"]));
   const officer = await db.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
@@ -39,4 +40,5 @@ export async function seedDemoContest(db: Database): Promise<void> {
   const gus = entries.find((e) => e.pilotName === "Gus Wendle")!;
   const other = round5.find((g) => !g.includes(gus.id))!.map((id) => entries.find((e) => e.id === id)!).find((e) => e.keepApart === null)!;
   if (officer[0]) await swapInRound(db, { contestId: contest!.id, roundNumber: 5, a: gus.id, b: other.id, byUserId: officer[0].id });
+  await seedDemoResults(db, contest!.id);
 }

@@ -20,6 +20,7 @@ export async function seedSeasonContest(tx: Tx, p: { clubId: string; field: stri
   const flown = await tx.select({ id: runs.id, task: runs.task }).from(runs).where(eq(runs.sessionId, session.id)).orderBy(asc(runs.createdAt));
   for (const [i, run] of flown.entries()) {
     const [round] = await tx.insert(contestRounds).values({ contestId: contest!.id, number: i + 1, task: run.task }).returning();
-    await tx.insert(groupSlots).values({ roundId: round!.id, groupNumber: 1, entryId: entry!.id, runId: run.id, lane: 0 });
+    // signed on the day's paper card (F3K.1.2: an unsigned result would score zero in the standings)
+    await tx.insert(groupSlots).values({ roundId: round!.id, groupNumber: 1, entryId: entry!.id, runId: run.id, lane: 0, signedAt: session.startedAt, signedFrom: "paper card" });
   }
 }

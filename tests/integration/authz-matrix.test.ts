@@ -275,6 +275,16 @@ const ROWS: Record<string, Row> = {
   "POST /api/contests/[contestId]/draw/swap": { params: contest.drawnContestOfOwnersClub, body: contest.swapBody, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/contests/[contestId]/draw/redraw": { params: contest.drawnContestOfOwnersClub, body: () => ({ fromRound: 2, seed: 5 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "POST /api/contests/[contestId]/draw/lock": { params: (cast) => contest.contestOfOwnersClub(cast, true), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "GET /api/contests/[contestId]/results": { params: (cast) => contest.contestOfOwnersClub(cast, true), check: contest.showsStandings, expect: contest.MEMBERS(200) },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/cards": {
+    params: async (cast) => ({ ...(await contest.contestOfOwnersClub(cast, true)), roundNumber: "1" }), body: contest.cardsBody, check: contest.cardsSaved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/runs": {
+    params: async (cast) => ({ ...(await contest.contestOfOwnersClub(cast, true)), roundNumber: "1" }), body: contest.unlinkBody, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
+  "POST /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.linkMade, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "DELETE /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast, true, true), check: contest.linkRevoked, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "GET /api/public-results/[token]": publicByDesign("the officer's unguessable results link (32 random bytes) publishes the standings without an account; revoked → 404 (tests/integration/contest-results.test.ts)"),
   "GET /api/club-fields": signedIn({ check: (ctx, res) => club.onlyOwnClubsFields(ctx.user.id, res) }),
 };
 

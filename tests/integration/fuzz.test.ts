@@ -61,6 +61,11 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/draw/lock": { POST: "none" },
   "/api/contests/[contestId]/draw/swap": { POST: "json" },
   "/api/contests/[contestId]/draw/redraw": { POST: "json" },
+  "/api/contests/[contestId]/results": { GET: "query" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/cards": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/runs": { PUT: "json" },
+  "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
+  "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },
   "/api/runs/[runId]/lanes/[lane]/consent": { POST: "json" },
   "/api/health": { GET: "none" },
@@ -146,6 +151,8 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/draw")) return { seed: 3 };
   if (path.endsWith("/draw/swap")) return { round: 1, a: uuidv7(), b: uuidv7() };
   if (path.endsWith("/draw/redraw")) return { fromRound: 2, seed: 3 };
+  if (path.endsWith("/runs")) return { entryId: uuidv7(), runId: uuidv7(), lane: 0 };
+  if (path.endsWith("/cards")) return { groupNumber: 1, cards: [{ entryId: uuidv7(), flights: [834, 1200], penaltyPoints: 100, signed: true }] };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
   if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };
@@ -328,7 +335,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), roundNumber: "1", token: uuidv7().replace(/-/g, "").repeat(2).slice(0, 43), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

@@ -1,3 +1,4 @@
+import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { expect } from "vitest";
 import { contestEntries, contestRounds, contests, groupSlots } from "@/db/schema";
@@ -13,13 +14,29 @@ export const MEMBERS = (ok: number): Record<Actor, number> => ({
 
 let entryId = "";
 
-/** A contest of the owner's club (the owner is its officer) with 5 rounds and two paper entries; `drawn` gives it a seed. */
-export async function contestOfOwnersClub(cast: Cast, drawn = false): Promise<Record<string, string>> {
+let contestId = "";
+
+/**
+ * A contest of the owner's club (the owner is its officer) with 5 rounds and two paper entries; `drawn` gives it
+ * a seed and puts both entries in group 1 of round 1, Matrix One with a signed paper card of 150.0 s (task A);
+ * `published` gives it a public results link.
+ */
+export async function contestOfOwnersClub(cast: Cast, drawn = false, published = false): Promise<Record<string, string>> {
   const club = await ownersClub(cast);
-  const [c] = await db.insert(contests).values({ clubId: club.id, name: "Matrix Cup", startsOn: "2027-01-09", fieldName: "Matrix Meadow", drawSeed: drawn ? 1 : null }).returning();
-  await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId: c!.id, number: i + 1, task: getCatalogueTask(l as "A") })));
+  const [c] = await db.insert(contests).values({
+    clubId: club.id, name: "Matrix Cup", startsOn: "2027-01-09", fieldName: "Matrix Meadow", drawSeed: drawn ? 1 : null,
+    publicToken: published ? randomBytes(32).toString("base64url") : null,
+  }).returning();
+  const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId: c!.id, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
   const rows = await db.insert(contestEntries).values([{ contestId: c!.id, pilotName: "Matrix One", paper: true }, { contestId: c!.id, pilotName: "Matrix Two", paper: true }]).returning();
+  if (drawn) {
+    await db.insert(groupSlots).values([
+      { roundId: rounds[0]!.id, groupNumber: 1, entryId: rows[0]!.id, paperFlights: [1500], signedAt: new Date(), signedFrom: "paper card" },
+      { roundId: rounds[0]!.id, groupNumber: 1, entryId: rows[1]!.id },
+    ]);
+  }
   entryId = rows[0]!.id;
+  contestId = c!.id;
   return { contestId: c!.id, entryId };
 }
 
@@ -27,7 +44,8 @@ let pair: [string, string] = ["", ""];
 
 /** A drawn contest whose two entries fly in different groups of every round, for the draw's changes (swap, re-draw). */
 export async function drawnContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
-  const params = await contestOfOwnersClub(cast, true);
+  const params = await contestOfOwnersClub(cast);
+  await db.update(contests).set({ drawSeed: 1 }).where(eq(contests.id, params.contestId!));
   const entries = await db.select({ id: contestEntries.id }).from(contestEntries).where(eq(contestEntries.contestId, params.contestId!));
   const rounds = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!));
   await db.insert(groupSlots).values(rounds.flatMap((r) => entries.map((e, i) => ({ roundId: r.id, entryId: e.id, groupNumber: i + 1 }))));
@@ -37,6 +55,39 @@ export async function drawnContestOfOwnersClub(cast: Cast): Promise<Record<strin
 
 /** The swap's body: round 1's two pilots trade groups (each actor allowed swaps them back). */
 export const swapBody = () => ({ round: 1, a: pair[0], b: pair[1] });
+
+/** A member reads the standings: Matrix One's 150.0 s card is the group's best (1000 points). */
+export async function showsStandings(_ctx: unknown, res: Response): Promise<void> {
+  const body = (await res.json()) as { standings: { pilots: { name: string; totalTenths: number }[] } };
+  expect(body.standings.pilots.map((p) => [p.name, p.totalTenths])).toEqual([["Matrix One", 10000], ["Matrix Two", 0]]);
+}
+
+/** The officer's paper card for Matrix One in group 1 of round 1: 180.0 s, signed. */
+export const cardsBody = () => ({ groupNumber: 1, cards: [{ entryId, flights: [1800], penaltyPoints: 0, signed: true }] });
+
+/** After a 2xx: the card is stored with who entered it, then cleared for the next actor. */
+export async function cardsSaved(ctx: { user: { id: string } }): Promise<void> {
+  const rows = await db.select().from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  expect(rows[0]).toMatchObject({ paperFlights: [1800], recordedBy: ctx.user.id, signedFrom: "paper card" });
+  await db.update(groupSlots).set({ paperFlights: null, recordedBy: null, signedAt: null, signedFrom: null }).where(eq(groupSlots.entryId, entryId));
+}
+
+/** The officer unlinks Matrix One's (absent) timed run in round 1: allowed for officers, changes no result. */
+export const unlinkBody = () => ({ entryId, runId: null, lane: null });
+
+/** After a 2xx: the link returned is the one stored. */
+export async function linkMade(_ctx: unknown, res: Response): Promise<void> {
+  const body = (await res.json()) as { token: string };
+  const [row] = await db.select({ token: contests.publicToken }).from(contests).where(eq(contests.id, contestId));
+  expect(row?.token).toBe(body.token);
+}
+
+/** After a 2xx revocation: no link; a link again for the next actor. */
+export async function linkRevoked(): Promise<void> {
+  const [row] = await db.select({ token: contests.publicToken }).from(contests).where(eq(contests.id, contestId));
+  expect(row?.token).toBeNull();
+  await db.update(contests).set({ publicToken: randomBytes(32).toString("base64url") }).where(eq(contests.id, contestId));
+}
 
 /** After a 2xx withdrawal: the entry is marked withdrawn; un-withdraw it for the next actor. */
 export async function entryReturns(): Promise<void> {

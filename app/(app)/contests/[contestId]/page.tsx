@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listDrawChanges } from "@/db/queries/contest-draw-changes";
@@ -39,11 +40,21 @@ export default async function ContestPage({ params }: { params: Promise<{ contes
       <header className="space-y-1">
         <h1 className="text-2xl font-extrabold">{contest.name}</h1>
         <p className="text-muted">{formatDate(new Date(`${contest.startsOn}T12:00:00Z`))} · {contest.fieldName} · {me.club.name}{contest.practice ? " · practice event" : ""}</p>
+        <p className="flex flex-wrap gap-x-4">
+          <Link className="inline-flex min-h-12 items-center font-bold underline" href={`/contests/${contestId}/results`}>Results</Link>
+          <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/sheets`}>Group lists and scoresheets</Link>
+        </p>
         <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"}</p>
       </header>
       <section aria-labelledby="rounds" className="space-y-2">
         <h2 id="rounds" className="text-lg font-bold">Rounds</h2>
-        <ol className="list-decimal pl-5" aria-label="Rounds">{rounds.map((r) => <li key={r.id}>Task {r.task.letter}: {r.task.name}</li>)}</ol>
+        <ol className="list-decimal pl-5" aria-label="Rounds">
+          {rounds.map((r) => (
+            <li key={r.id}>Task {r.task.letter}: {r.task.name}
+              {officer && contest.drawSeed !== null && <> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}/cards`}>Paper cards for round {r.number}</Link></>}
+            </li>
+          ))}
+        </ol>
       </section>
       <section aria-labelledby="entries" className="space-y-2">
         <h2 id="entries" className="text-lg font-bold">Entries ({live.length})</h2>

@@ -1,0 +1,48 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { db } from "@/db";
+import { getResultsData } from "@/db/queries/contest-results";
+import { LiveStandings } from "@/components/contests/live-standings";
+import { hasClubRole } from "@/lib/clubs/roles";
+import { contestStandings } from "@/lib/contests/standings";
+import { formatDate } from "@/lib/format";
+import { contestIdSchema } from "@/lib/validations/contests";
+import { contestPageAccess } from "../../_components/guard";
+import { PrintButton, PublicLink } from "./_components/results-tools";
+
+export const metadata: Metadata = { title: "Results" };
+export const dynamic = "force-dynamic";
+
+/** The live standings for the club's members; the officer publishes a public link. CSV and print for everyone who sees it. */
+export default async function ResultsPage({ params }: { params: Promise<{ contestId: string }> }) {
+  const parsed = contestIdSchema.safeParse(await params);
+  if (!parsed.success) notFound();
+  const { contestId } = parsed.data;
+  const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/results` });
+  const data = await getResultsData(db, contestId);
+  if (!data) notFound();
+  const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
+  const api = `/api/contests/${contestId}/results`;
+  return (
+    <div className="space-y-6">
+      <header className="space-y-1">
+        <p className="print:hidden"><Link className="underline" href={`/contests/${contestId}`}>{data.contest.name}</Link></p>
+        <h1 className="text-2xl font-extrabold">Results: {data.contest.name}</h1>
+        <p className="text-muted">{formatDate(new Date(`${data.contest.startsOn}T12:00:00Z`))} · {data.contest.fieldName}</p>
+      </header>
+      <LiveStandings url={api} initial={contestStandings(data.input)} />
+      <section aria-labelledby="downloads" className="space-y-2 print:hidden">
+        <h2 id="downloads" className="text-lg font-bold">Print and download</h2>
+        <ul className="space-y-2">
+          <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=pdf`} download>Results (PDF)</a></li>
+          <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=csv`} download>Results (CSV)</a></li>
+          <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=flights-csv`} download>Every flight (CSV)</a></li>
+          <li><Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/sheets`}>Group lists and scoresheets</Link></li>
+        </ul>
+        <PrintButton />
+      </section>
+      {officer && <PublicLink contestId={contestId} token={data.contest.publicToken} />}
+    </div>
+  );
+}

@@ -1,0 +1,47 @@
+import Papa from "papaparse";
+import { secondsText } from "@/lib/tasks/time";
+import { paperCardResult } from "./paper-card";
+import type { Standings, StandingsInput } from "./standings";
+
+const points = (tenths: number | null) => (tenths === null ? "" : (tenths / 10).toFixed(1));
+/** CSV with a header row; cells that a spreadsheet would run as a formula are escaped (papaparse escapeFormulae). */
+const csv = (fields: string[], data: (string | number)[][]) => Papa.unparse({ fields, data }, { escapeFormulae: true, newline: "\r\n" });
+
+/** The standings as CSV: place, pilot, team, each round's points (a dropped one in brackets), penalties, total. */
+export function resultsCsv(s: Standings): string {
+  const place = new Map(s.final.map((f) => [f.pilotId, f.rank]));
+  const fields = ["Place", "Pilot", "Team", ...s.rounds.map((r) => `Round ${r.number}${r.letter ? ` (${r.letter})` : ""}`), "Penalties", "Total", "Note"];
+  const data = [...s.pilots].sort((a, b) => (place.get(a.entryId) ?? 0) - (place.get(b.entryId) ?? 0)).map((p) => [
+    place.get(p.entryId) ?? p.rank, p.name, p.team ?? "",
+    ...p.rounds.map((c) => (c.dropped ? `(${points(c.pointsTenths)})` : points(c.pointsTenths))),
+    points(p.penaltyTenths), points(p.totalTenths),
+    [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`)].filter(Boolean).join("; "),
+  ]);
+  return csv(fields, data);
+}
+
+export type SlotFlights = { roundId: string; groupNumber: number; entryId: string; runFlights: { timeTenths: number; creditedTenths: number; status: string; reason: string | null }[] | null };
+
+/** Every flight of the contest as CSV: a paper card's times scored by the task engine, or the linked run lane's derived flights. */
+export function flightsCsv(input: StandingsInput, slotFlights: readonly SlotFlights[]): string {
+  const names = new Map(input.entries.map((e) => [e.id, e.name]));
+  const rows: (string | number)[][] = [];
+  for (const round of [...input.rounds].sort((a, b) => Number(a.isFlyOff) - Number(b.isFlyOff) || a.number - b.number)) {
+    for (const slot of input.slots.filter((s) => s.roundId === round.id).sort((a, b) => a.groupNumber - b.groupNumber)) {
+      const label = `${round.isFlyOff ? "Fly-off " : ""}${round.number}`;
+      const base = [label, round.task.letter ?? "", slot.groupNumber, names.get(slot.entryId) ?? "?"];
+      const signed = slot.signed ? "yes" : "no";
+      if (slot.paperFlights !== null) {
+        const scored = paperCardResult(round.task, slot.paperFlights);
+        slot.paperFlights.forEach((t, i) => {
+          const f = scored.flights[i];
+          rows.push([...base, "paper card", i + 1, secondsText(t), secondsText(f?.countedTenths ?? 0), f?.status ?? "", f?.reason ?? "", signed]);
+        });
+      } else {
+        const run = slotFlights.find((f) => f.roundId === slot.roundId && f.entryId === slot.entryId)?.runFlights ?? [];
+        run.forEach((f, i) => rows.push([...base, "timed run", i + 1, secondsText(f.timeTenths), secondsText(f.creditedTenths), f.status, f.reason ?? "", signed]));
+      }
+    }
+  }
+  return csv(["Round", "Task", "Group", "Pilot", "Recorded by", "Flight", "Time (s)", "Counted (s)", "Status", "Reason", "Signed"], rows);
+}

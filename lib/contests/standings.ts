@@ -1,0 +1,160 @@
+import type { TaskDefinition } from "@/lib/tasks";
+import {
+  DROP_FROM_ROUNDS, finalResults, MIN_VALID_ROUNDS, normaliseUnits, rankFlyOff, rankPilots, rankTeams,
+  type FinalPlace, type HalfRounding, type Standing,
+} from "@/lib/scoring";
+import { paperCardResult } from "./paper-card";
+
+export type StandingsRound = { id: string; number: number; isFlyOff: boolean; task: TaskDefinition };
+export type StandingsEntry = { id: string; name: string; team: string | null; withdrawn: boolean };
+export type StandingsSlot = {
+  roundId: string;
+  groupNumber: number;
+  entryId: string;
+  /** The server's result of the linked run's lane (run_lanes.result_tenths, derived by lib/results runResult); null when none. */
+  runResultTenths: number | null;
+  /** A paper card's flight times (tenths); when present they are the result. */
+  paperFlights: readonly number[] | null;
+  signed: boolean;
+  penaltyPoints: number;
+};
+export type StandingsInput = {
+  rounds: readonly StandingsRound[];
+  entries: readonly StandingsEntry[];
+  slots: readonly StandingsSlot[];
+  /** "f3k": lowest round dropped from 6 flown (F3K.10); "none": every round counts. */
+  dropRule: string;
+  /** How exact halves of 0.1 point round when a round's task does not say (its `halves` setting wins; default half-up). */
+  halves?: HalfRounding;
+};
+
+/** One pilot's round: the task result, the points it scored in its group, how it was recorded. */
+export type RoundCell = {
+  roundNumber: number;
+  groupNumber: number | null;
+  /** The task result in tenths of a second; null = not recorded yet. */
+  resultTenths: number | null;
+  /** Round points in tenths of a point (0 when unsigned, F3K.1.2); null = not recorded yet. */
+  pointsTenths: number | null;
+  signed: boolean;
+  source: "paper" | "run" | null;
+  penaltyPoints: number;
+  dropped: boolean;
+};
+export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[] };
+export type Standings = {
+  /** Rounds with at least one recorded result, in order (the ones that count so far). */
+  rounds: { number: number; letter: string | null; name: string }[];
+  pilots: PilotRow[];
+  /** F3K.10: at least 5 rounds flown. */
+  valid: boolean;
+  flyOff: { rounds: { number: number; letter: string | null; name: string }[]; pilots: PilotRow[]; counted: boolean } | null;
+  /** The final order: fly-off pilots first when the fly-off counts (F3K.10), then the preliminary order. */
+  final: (FinalPlace & { name: string })[];
+  /** F3K.10.4: each team's three best members' final scores (preliminary totals), in tenths. */
+  teams: { team: string; rank: number; totalTenths: number; counted: string[] }[];
+};
+
+type Scored = Map<string, Map<string, Omit<RoundCell, "roundNumber" | "dropped">>>;
+
+/** Each slot's result (paper card through the task engine, else the linked run's) and its points, normalised per group (F3K.9.1). */
+function scoreSlots(input: StandingsInput): Scored {
+  const byRound: Scored = new Map();
+  for (const round of input.rounds) {
+    const cells = new Map<string, Omit<RoundCell, "roundNumber" | "dropped">>();
+    const slots = input.slots.filter((s) => s.roundId === round.id);
+    for (const group of new Set(slots.map((s) => s.groupNumber))) {
+      const inGroup = slots.filter((s) => s.groupNumber === group).map((s) => {
+        const source = s.paperFlights !== null ? "paper" as const : s.runResultTenths !== null ? "run" as const : null;
+        const resultTenths = source === "paper" ? paperCardResult(round.task, s.paperFlights!).tenths : source === "run" ? s.runResultTenths : null;
+        return { slot: s, source, resultTenths };
+      });
+      // F3K.1.2: a result not signed by pilot and timekeeper scores zero (so it is nobody's best either).
+      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.slot.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
+      inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
+        groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
+        signed: x.slot.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints,
+      }));
+    }
+    byRound.set(round.id, cells);
+  }
+  return byRound;
+}
+
+const roundLabel = (r: StandingsRound) => ({ number: r.number, letter: r.task.letter ?? null, name: r.task.name });
+
+function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: readonly StandingsEntry[], dropFrom: number, flyOff: boolean): PilotRow[] {
+  const rowsIn = entries.map((e) => {
+    const cells = rounds.map((r): RoundCell => {
+      const c = scored.get(r.id)?.get(e.id);
+      return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false };
+    });
+    return { entry: e, cells };
+  });
+  const toPoints = (cells: RoundCell[]) => cells.map((c) => (c.pointsTenths ?? 0) / 10);
+  const entriesIn = rowsIn.map(({ entry, cells }) => ({ pilotId: entry.id, rounds: toPoints(cells), penalties: cells.reduce((sum, c) => sum + c.penaltyPoints, 0) }));
+  const ranked = flyOff ? rankFlyOff(entriesIn) : rankPilots(entriesIn, { dropFrom });
+  // Pilots sharing a place are listed by name (the ranking breaks nothing between them).
+  const listed = ranked.map((r) => ({ r, name: rowsIn.find((x) => x.entry.id === r.pilotId)!.entry.name }))
+    .sort((a, b) => a.r.rank - b.r.rank || a.name.localeCompare(b.name))
+    .map((x) => x.r);
+  return listed.map(({ pilotId, ...standing }) => {
+    const { entry, cells } = rowsIn.find((r) => r.entry.id === pilotId)!;
+    const marked = cells.map((c, i) => ({ ...c, dropped: standing.dropped?.index === i }));
+    return { ...standing, entryId: entry.id, name: entry.name, team: entry.team, rounds: marked };
+  });
+}
+
+/**
+ * A contest's standings from its draw and recorded results (pure): each round normalised per
+ * group, best = 1000 (F3K.9.1, F3K.10); an unsigned result scores zero (F3K.1.2); totals with
+ * the lowest round dropped from 6 flown and every penalty subtracted, dropped round included
+ * (F3K.10); ties broken by the better dropped score, else flagged for a fly-off (F3K.10);
+ * fly-off rounds ranked on their own, no preliminary points or penalties carried (F3K.10),
+ * counting once 3 rounds are complete; teams by their three best members (F3K.10.4).
+ * Only rounds with at least one recorded result count (live standings during the day).
+ */
+export function contestStandings(input: StandingsInput): Standings {
+  const scored = scoreSlots(input);
+  const hasResult = (r: StandingsRound) => [...(scored.get(r.id)?.values() ?? [])].some((c) => c.resultTenths !== null);
+  const prelimRounds = input.rounds.filter((r) => !r.isFlyOff && hasResult(r)).sort((a, b) => a.number - b.number);
+  const withResults = new Set(input.slots.filter((s) => s.paperFlights !== null || s.runResultTenths !== null).map((s) => s.entryId));
+  const drawn = new Set(input.slots.map((s) => s.entryId));
+  const entries = input.entries.filter((e) => withResults.has(e.id) || (!e.withdrawn && drawn.has(e.id)));
+  const dropFrom = input.dropRule === "none" ? Number.POSITIVE_INFINITY : DROP_FROM_ROUNDS;
+  const pilots = pilotRows(prelimRounds, scored, entries, dropFrom, false);
+
+  const flyOffAll = input.rounds.filter((r) => r.isFlyOff).sort((a, b) => a.number - b.number);
+  let flyOff: Standings["flyOff"] = null;
+  let final: FinalPlace[];
+  if (flyOffAll.length > 0) {
+    const flyers = entries.filter((e) => input.slots.some((s) => s.entryId === e.id && flyOffAll.some((r) => r.id === s.roundId)));
+    // A fly-off round counts once every fly-off pilot has a result in it (lib/scoring finalResults).
+    const complete = flyOffAll.filter((r) => flyers.every((e) => scored.get(r.id)?.get(e.id)?.resultTenths != null));
+    const flyRows = pilotRows(complete, scored, flyers, Number.POSITIVE_INFINITY, true);
+    const result = finalResults(
+      pilots.map((p) => ({ ...p, pilotId: p.entryId })),
+      flyRows.map((p) => ({ pilotId: p.entryId, rounds: p.rounds.map((c) => (c.pointsTenths ?? 0) / 10), penalties: p.rounds.reduce((sum, c) => sum + c.penaltyPoints, 0) })),
+    );
+    flyOff = { rounds: complete.map(roundLabel), pilots: flyRows, counted: result.flyOffCounted };
+    final = result.places;
+  } else {
+    final = finalResults(pilots.map((p) => ({ ...p, pilotId: p.entryId })), []).places;
+  }
+  const names = new Map(entries.map((e) => [e.id, e.name]));
+  const teamNames = [...new Set(entries.map((e) => e.team).filter((t): t is string => !!t))];
+  const teams = rankTeams(
+    teamNames.map((team) => ({ teamId: team, memberIds: entries.filter((e) => e.team === team).map((e) => e.id) })),
+    pilots.map((p) => ({ pilotId: p.entryId, totalTenths: p.totalTenths })),
+  ).map((t) => ({ team: t.teamId, rank: t.rank, totalTenths: t.totalTenths, counted: t.countedMemberIds.map((id) => names.get(id) ?? "?") }));
+
+  return {
+    rounds: prelimRounds.map(roundLabel),
+    pilots,
+    valid: prelimRounds.length >= MIN_VALID_ROUNDS,
+    flyOff,
+    final: final.map((f) => ({ ...f, name: names.get(f.pilotId) ?? "?" })),
+    teams,
+  };
+}

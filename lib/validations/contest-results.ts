@@ -1,0 +1,32 @@
+import { z } from "zod";
+import { PAPER_MAX_FLIGHT_TENTHS, PAPER_MAX_FLIGHTS } from "@/lib/contests/paper-card";
+
+export const roundParamsSchema = z.object({
+  contestId: z.uuid("Not a contest."),
+  roundNumber: z.string().regex(/^[1-9]\d?$/, "Not a round.").transform(Number),
+});
+
+/** One group's paper cards in a round: per pilot the flight times (tenths of a second; null keeps a timed run), penalty points and the signature. */
+export const groupCardsSchema = z.object({
+  groupNumber: z.number().int().min(1, "Not a group.").max(99, "Not a group."),
+  cards: z.array(z.object({
+    entryId: z.uuid("Not an entry."),
+    flights: z.array(z.number().int("Flight times are in tenths of a second.").min(0, "A flight time cannot be negative.").max(PAPER_MAX_FLIGHT_TENTHS, "A flight time is at most one hour."))
+      .max(PAPER_MAX_FLIGHTS, `At most ${PAPER_MAX_FLIGHTS} flights on one card.`).nullable(),
+    penaltyPoints: z.number().int("Penalties are whole points.").min(0, "Penalties are given as positive points.").max(10_000, "At most 10,000 penalty points."),
+    signed: z.boolean(),
+  })).min(1, "Enter at least one card.").max(30, "At most 30 cards in a group."),
+});
+export type GroupCardsInput = z.infer<typeof groupCardsSchema>;
+
+export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv", "pdf"]).default("json") });
+
+/** A public results link's secret: 32 random bytes, base64url. */
+export const publicTokenSchema = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "Not a results link.") });
+
+/** Links a timed run's lane to a pilot's slot in the round, or unlinks it (runId null). */
+export const linkRunSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  runId: z.uuid("Not a run.").nullable(),
+  lane: z.number().int("Not a lane.").min(0, "Not a lane.").max(49, "Not a lane.").nullable(),
+}).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] });
