@@ -125,6 +125,11 @@ describe("changing a locked draw", () => {
     expect(refused.status).toBe(409);
     expect(refused.body.error.message).toBe("Round 4 has results already: re-draw from a later round.");
     expect((await slotsOf(contestId)).filter((s) => s.round !== 4)).toEqual(after.filter((s) => s.round !== 4));
+    // a paper card (flight times typed from the card) is a result too
+    await db.execute(`update group_slots set paper_flights = '[1200]' where entry_id = '${after.find((s) => s.round === 5)!.entry}' and round_id = (select id from contest_rounds where contest_id = '${contestId}' and number = 5)`);
+    const card = await reply(await redrawRoute(json({ fromRound: 5 }), inContest(contestId)));
+    expect(card.status).toBe(409);
+    expect(card.body.error.message).toBe("Round 5 has results already: re-draw from a later round.");
     expect((await listDrawChanges(db, contestId)).map((c) => c.summary)).toEqual(["Rounds 3–5 drawn again for 11 pilots (seed 9)."]);
   });
 
