@@ -19,7 +19,8 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
       where e.kind = 'model' and e.body->>'modelId' = ${p.modelId}
     )
     select l.run_id, l.lane, r.task_code, l.derived,
-      (select json_agg(json_build_object('atMs', e.corrected_ms, 'modelId', e.body->>'modelId')) from events e
+      -- in time order, ties by id: modelAt takes the last of equal instants, as db/queries/flight-model.ts does
+      (select json_agg(json_build_object('atMs', e.corrected_ms, 'modelId', e.body->>'modelId') order by e.corrected_ms, e.id) from events e
         where e.run_id = l.run_id and e.kind = 'model' and (e.body->>'lane')::int = l.lane
           and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body->>'targetId' = e.id::text)) as choices,
       -- one height per flight, as the Season picks it (season_heights): the newest log's, its first launch

@@ -30,7 +30,7 @@ export function median(values: readonly number[]): number | null {
   return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
 
-/** The model flying at this instant: the latest choice at or before it. */
+/** The model flying at this instant: the latest choice at or before it (of equal instants, the last listed). Mirrored in SQL by db/queries/flight-model.ts. */
 export function modelAt(choices: readonly { atMs: number; modelId: string }[], atMs: number): string | null {
   let best: { atMs: number; modelId: string } | null = null;
   for (const c of choices) if (c.atMs <= atMs && (!best || c.atMs >= best.atMs)) best = c;
@@ -53,7 +53,8 @@ export function modelStats(modelId: string, lanes: readonly ModelLane[]): ModelS
       const h = lane.heights.get(f.index);
       if (h !== undefined) heights.push(h);
       const next = sorted[i + 1];
-      if (next && f.landAtMs !== null && modelAt(lane.choices, next.launchAtMs) === modelId) turnarounds.push(next.launchAtMs - f.landAtMs);
+      // a landing-to-launch gap that really is time on the ground, as the Season counts it (a record can hold a launch before the landing)
+      if (next && f.landAtMs !== null && next.launchAtMs >= f.landAtMs && modelAt(lane.choices, next.launchAtMs) === modelId) turnarounds.push(next.launchAtMs - f.landAtMs);
     });
   }
   return {

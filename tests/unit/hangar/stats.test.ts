@@ -40,6 +40,19 @@ describe("a model's record (lib/hangar/stats.ts)", () => {
     expect(b).toMatchObject({ flights: 1, bestLaunchM: 61, medianTurnaroundMs: null });
   });
 
+  it("a launch recorded before the previous landing is no turnaround (the Season's rule: ground time is never negative)", () => {
+    const overlap = { ...lane, choices: [{ atMs: 0, modelId: A }], flights: [
+      { index: 0, launchAtMs: 10_000, landAtMs: 70_000, timeTenths: 600 },
+      { index: 1, launchAtMs: 69_000, landAtMs: 100_000, timeTenths: 310 },
+      { index: 2, launchAtMs: 102_400, landAtMs: 150_000, timeTenths: 476 },
+    ] };
+    expect(modelStats(A, [overlap]).medianTurnaroundMs).toBe(2_400);
+  });
+
+  it("of two choices at the same instant the last listed counts (the SQL side orders them by time, then id)", () => {
+    expect(modelAt([{ atMs: 5, modelId: A }, { atMs: 5, modelId: B }], 5)).toBe(B);
+  });
+
   it("a model never flown has an empty record", () => {
     expect(modelStats("other", [lane])).toMatchObject({ flights: 0, launches: 0, medianLaunchM: null, lastFlownMs: null });
   });
