@@ -3,8 +3,9 @@ import { sql } from "drizzle-orm";
 import type { ModelLane } from "@/lib/hangar/stats";
 import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
+import { isTurnaround } from "./season/turnaround";
 
-type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null };
+type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null; grounds: { i: number; ms: number }[] | null };
 
 /**
  * The lanes a model flew in, as lib/hangar/stats.ts reads them: lanes whose pilot is the model's
@@ -27,7 +28,9 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
       (select json_agg(json_build_object('i', x.flight_index, 'h', x.height_m)) from (
         select distinct on (h.flight_index) h.flight_index, h.height_m from launch_heights h join altimeter_logs g on g.id = h.log_id
         where h.run_id = l.run_id and h.lane = l.lane and h.flight_index is not null
-        order by h.flight_index, g.created_at desc, h.at_ms) x) as heights
+        order by h.flight_index, g.created_at desc, h.at_ms) x) as heights,
+      (select json_agg(json_build_object('i', f.flight_index, 'ms', f.ground_ms)) from lane_flights f
+        where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`)}) as grounds
     from named n
     join run_lanes l on l.run_id = n.run_id and l.lane = n.lane
     join runs r on r.id = l.run_id
@@ -37,6 +40,7 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
     flights: flightInstants(r.derived),
     choices: (r.choices ?? []).map((c) => ({ atMs: Number(c.atMs), modelId: c.modelId })),
     heights: new Map((r.heights ?? []).map((x) => [x.i, x.h])),
+    groundMs: new Map((r.grounds ?? []).map((x) => [x.i, Number(x.ms)])),
   }));
 }
 

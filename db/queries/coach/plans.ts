@@ -2,6 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
 import type { Executor } from "../sync-db";
+import { isTurnaround } from "../season/turnaround";
 import { planItemSchema, planProgress, type PlanInput, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 
@@ -33,7 +34,8 @@ export function plansOfCoach(db: Executor, coachId: string): Promise<PulledPlan[
 /**
  * Plans with their progress: each plan's runs are those its pilot created from one of its items
  * (runs.plan_id / plan_item), read with the pilot's lane as the push derived it through
- * lib/results (result, the breakdown's maximum, the flights) and judged by lib/coach/plan-goals.
+ * lib/results (result, the breakdown's maximum) and its turnarounds as the Season counts them
+ * (season/turnaround.ts), and judged by lib/coach/plan-goals.
  */
 async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<PulledPlan[]> {
   const plans = await db.execute<{
@@ -42,15 +44,16 @@ async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<
     from practice_plans p join users pu on pu.id = p.pilot_id left join users cu on cu.id = p.coach_id
     where ${where} order by p.created_at desc, p.id limit 1000`);
   if (plans.rows.length === 0) return [];
-  const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: string | null; flights: unknown }>(sql`
-    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths, l.season_flights as flights
+  const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: string | null; ground_ms: unknown }>(sql`
+    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths,
+      array(select f.ground_ms from lane_flights f where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`)} order by f.position) as ground_ms
     from runs r join practice_plans p on p.id = r.plan_id
     join run_lanes l on l.run_id = r.id and l.pilot_user_id = p.pilot_id
     where r.plan_id in (${sql.join(plans.rows.map((p) => sql`${p.id}::uuid`), sql`, `)}) and r.created_by = p.pilot_id`);
   const byPlan = new Map<string, PlanRun[]>();
   for (const r of runs.rows) {
     const list = byPlan.get(r.plan_id) ?? [];
-    list.push({ item: Number(r.item), resultTenths: r.result_tenths, maxTenths: r.max_tenths === null ? null : Number(r.max_tenths), flights: flightsOf(r.flights) });
+    list.push({ item: Number(r.item), resultTenths: r.result_tenths, maxTenths: r.max_tenths === null ? null : Number(r.max_tenths), groundMs: (r.ground_ms as (number | string)[] | null ?? []).map(Number) });
     byPlan.set(r.plan_id, list);
   }
   return plans.rows.map((p) => {
@@ -68,12 +71,6 @@ function readItems(raw: unknown): PlanItem[] {
     const parsed = planItemSchema.safeParse(i);
     return parsed.success ? [parsed.data] : [];
   });
-}
-
-function flightsOf(raw: unknown): PlanRun["flights"] {
-  if (!Array.isArray(raw)) return [];
-  return raw.flatMap((f: { launchMs?: unknown; landMs?: unknown }) =>
-    typeof f?.launchMs === "number" ? [{ launchMs: f.launchMs, landMs: typeof f.landMs === "number" ? f.landMs : null }] : []);
 }
 
 /** Which of the given plans are the pilot's own, and how many items each has (a pushed run's plan link is kept only then). */

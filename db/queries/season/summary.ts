@@ -4,11 +4,12 @@ import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
 import { LOST_PARTS, seasonScope, shareOf, weekOf } from "./scope";
+import { isTurnaround } from "./turnaround";
 
 const WEEK = weekOf(sql`created_at`);
 const SL_WEEK = weekOf(sql`sl.created_at`);
-/** A landing-to-launch gap that really is time on the ground (the record can hold a launch before the landing). */
-const TURNAROUND = sql`ground_ms is not null and ground_ms >= 0`;
+/** A flight's ground time that counts as turnaround (turnaround.ts, the one definition). */
+const TURNAROUND = isTurnaround(sql`ground_ms`);
 /** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
 const BIN_SEC = 30;
 const LAST_BIN = 10;
