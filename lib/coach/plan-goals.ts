@@ -100,6 +100,16 @@ export function planProgress(items: readonly Pick<PlanItem, "windows" | "measure
   return { items: out, done: out.length > 0 && out.every((p) => p.met) };
 }
 
+/**
+ * The item to fly next: the first one whose goal is not met yet (its windows not all flown, or its
+ * number not reached), in the coach's order; null when every item is met or the plan is closed.
+ */
+export function nextPlanItem(plan: { items: readonly unknown[]; progress: PlanProgress; closedAtMs?: number | null }): number | null {
+  if (plan.closedAtMs != null) return null;
+  const i = plan.items.findIndex((_, k) => !plan.progress.items[k]?.met);
+  return i < 0 ? null : i;
+}
+
 /** The measured value in words, e.g. "2.4 s" or "83 %". */
 export function valueText(m: PlanMeasure, value: number | null): string {
   if (value === null) return "not measured yet";

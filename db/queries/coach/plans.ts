@@ -5,6 +5,7 @@ import type { Executor } from "../sync-db";
 import { isTurnaround } from "../season/turnaround";
 import { planItemSchema, planProgress, type PlanInput, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
+import type { PlanUpdate } from "@/lib/validations/coach";
 
 /**
  * A coach assigns a plan to a pilot who grants them their season; null (404) without the grant.
@@ -16,6 +17,25 @@ export async function createPlan(db: Database, p: { coachId: string; pilotId: st
     select ${p.pilotId}, ${p.coachId}, ${p.plan.title}, ${JSON.stringify(p.plan.items)}::jsonb
     where exists (select 1 from coach_grants g where g.coach_id = ${p.coachId} and g.pilot_id = ${p.pilotId} and g.revoked_at is null)
     returning id::text as id`);
+  const id = res.rows[0]?.id;
+  return id ? ((await plansWhere(db, sql`p.id = ${id}`))[0] ?? null) : null;
+}
+
+/**
+ * The coach who made a plan changes it while the pilot still grants them their season: title and
+ * items, and/or closed (closed_at set, or cleared to reopen). Null (404) for anyone else.
+ */
+export async function updatePlan(db: Database, p: { coachId: string; planId: string; change: PlanUpdate }): Promise<PulledPlan | null> {
+  const c = p.change;
+  const sets = [
+    ...("items" in c ? [sql`title = ${c.title}`, sql`items = ${JSON.stringify(c.items)}::jsonb`, sql`updated_at = now()`] : []),
+    ...(c.closed === undefined ? [] : [c.closed ? sql`closed_at = coalesce(closed_at, now())` : sql`closed_at = null`]),
+  ];
+  const res = await db.execute<{ id: string }>(sql`
+    update practice_plans p set ${sql.join(sets, sql`, `)}
+    where p.id = ${p.planId} and p.coach_id = ${p.coachId}
+      and exists (select 1 from coach_grants g where g.coach_id = ${p.coachId} and g.pilot_id = p.pilot_id and g.revoked_at is null)
+    returning p.id::text as id`);
   const id = res.rows[0]?.id;
   return id ? ((await plansWhere(db, sql`p.id = ${id}`))[0] ?? null) : null;
 }
@@ -40,7 +60,9 @@ export function plansOfCoach(db: Executor, coachId: string): Promise<PulledPlan[
 async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<PulledPlan[]> {
   const plans = await db.execute<{
     id: string; pilot_id: string; pilot_name: string; coach_name: string | null; title: string; items: unknown; created_at: string | Date;
-  }>(sql`select p.id::text, p.pilot_id::text, pu.name as pilot_name, cu.name as coach_name, p.title, p.items, p.created_at
+    updated_at: string | Date | null; closed_at: string | Date | null; synced_at: string | Date | null;
+  }>(sql`select p.id::text, p.pilot_id::text, pu.name as pilot_name, cu.name as coach_name, p.title, p.items, p.created_at,
+      p.updated_at, p.closed_at, (select max(d.last_seen_at) from devices d where d.user_id = p.pilot_id) as synced_at
     from practice_plans p join users pu on pu.id = p.pilot_id left join users cu on cu.id = p.coach_id
     where ${where} order by p.created_at desc, p.id limit 1000`);
   if (plans.rows.length === 0) return [];
@@ -60,10 +82,13 @@ async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<
     const items = readItems(p.items);
     return {
       id: p.id, pilotId: p.pilot_id, pilotName: p.pilot_name, coachName: p.coach_name, title: p.title, items,
-      createdAtMs: new Date(p.created_at).getTime(), progress: planProgress(items, byPlan.get(p.id) ?? []),
+      createdAtMs: new Date(p.created_at).getTime(), updatedAtMs: msOrNull(p.updated_at), closedAtMs: msOrNull(p.closed_at),
+      pilotSyncedAtMs: msOrNull(p.synced_at), progress: planProgress(items, byPlan.get(p.id) ?? []),
     };
   });
 }
+
+const msOrNull = (v: string | Date | null) => (v === null ? null : new Date(v).getTime());
 
 function readItems(raw: unknown): PlanItem[] {
   if (!Array.isArray(raw)) return [];

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { itemProgress, median, planInputSchema, planProgress, progressText, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
+import { itemProgress, nextPlanItem, median, planInputSchema, planProgress, progressText, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
 
 // Hand-computed examples. A run's turnarounds come as the Season counts them (lane_flights.ground_ms
 // through db/queries/season/turnaround.ts, checked in tests/integration/season-aggregates.test.ts:
@@ -54,6 +54,18 @@ describe("practice plan goals", () => {
     expect(p.items.map((i) => i.flown)).toEqual([0, 1]);
     expect(p.done).toBe(false);
     expect(planProgress([{ windows: 1, measure: null }], [run(0, [])]).done).toBe(true);
+  });
+
+  it("the next item to fly is the first not met, in the coach's order; none when all are met or the plan is closed", () => {
+    const met = { flown: 3, windows: 3, value: 2, met: true };
+    const open = { flown: 1, windows: 3, value: 2, met: false };
+    const items = [{}, {}, {}];
+    expect(nextPlanItem({ items, progress: { items: [met, open, open], done: false } })).toBe(1);
+    expect(nextPlanItem({ items, progress: { items: [open, met, open], done: false } })).toBe(0);
+    // an item without progress yet (e.g. just added by the coach) is not met
+    expect(nextPlanItem({ items, progress: { items: [met, met], done: false } })).toBe(2);
+    expect(nextPlanItem({ items, progress: { items: [met, met, met], done: true } })).toBeNull();
+    expect(nextPlanItem({ items, progress: { items: [open, open, open], done: false }, closedAtMs: 1 })).toBeNull();
   });
 
   it("plan input: catalogue variants only, bounded goal", () => {

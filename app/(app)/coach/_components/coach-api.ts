@@ -11,7 +11,7 @@ export const coachKeys = {
 };
 
 /** A same-origin JSON request; a refusal throws an Error carrying the server's message. */
-export async function coachRequest<T>(url: string, init: { method?: "GET" | "POST" | "DELETE"; body?: unknown } = {}): Promise<T> {
+export async function coachRequest<T>(url: string, init: { method?: "GET" | "POST" | "PATCH" | "DELETE"; body?: unknown } = {}): Promise<T> {
   const res = await fetch(url, {
     method: init.method ?? "GET",
     cache: "no-store",

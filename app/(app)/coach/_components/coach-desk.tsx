@@ -51,7 +51,7 @@ export function CoachDesk() {
         <h2 id="plans-h" className="text-lg font-bold">Practice plans</h2>
         {plans.isPending ? <p className="text-muted">Loading your plans…</p> : null}
         {plans.isError ? <p className="text-muted">{plans.error.message}</p> : null}
-        {plans.data ? <PlanList plans={plans.data.plans} /> : null}
+        {plans.data ? <PlanList plans={plans.data.plans} pilots={roster.data?.pilots ?? []} now={plans.dataUpdatedAt} /> : null}
         {roster.data && roster.data.pilots.length > 0 ? (
           <details>
             <summary className="flex min-h-touch cursor-pointer items-center font-bold">Build a plan</summary>
