@@ -34,7 +34,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
     ), months as (
       select m.which, m.start,
         (select count(*)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as runs,
-        (select count(*)::int from season_flights f where f.created_at >= m.start and f.created_at < m.start + interval '1 month') as flights,
+        (select coalesce(sum(sl.flight_count), 0)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as flights,
         (select avg(${shareOf}) from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as share,
         (select round(percentile_cont(0.5) within group (order by ground_ms) / 100)::int from season_flights
           where ${TURNAROUND} and created_at >= m.start and created_at < m.start + interval '1 month') as turnaround
