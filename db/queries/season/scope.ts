@@ -38,11 +38,12 @@ function filterWhere(f: SeasonFilters): SQL {
  * rule, db/queries/flight-model.ts): `season_flights` holds the flights of that model, a ground
  * time counts only between two of its flights (as on the model page), and `season_lanes` holds
  * the lanes with at least one such flight, `flight_count` counting only those.
+ * Each lane and flight carries `week`, the Monday (UTC) of its run's day, worked out once per lane.
  * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
  */
 export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
   const lanes = (flightCount: SQL) => sql`
-      select r.id as run_id, l.lane, r.task_code, r.created_at, s.field_name,
+      select r.id as run_id, l.lane, r.task_code, r.created_at, ${weekOf(sql`r.created_at`)} as week, s.field_name,
         l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
         ${flightCount} as flight_count, ${contest} as contest,
         ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
@@ -59,7 +60,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
   // one height per flight, the newest log's (then its first launch): picked once over the season's matched
   // launches and joined to the flights, rather than looked up flight by flight (30,000 lookups in the bench)
   const heights = sql`season_heights as materialized (
-      select f.created_at, f.time_tenths, f.land_ms, h.height_m
+      select f.created_at, f.week, f.time_tenths, f.land_ms, h.height_m
       from (
         select distinct on (h.run_id, h.lane, h.flight_index) h.run_id, h.lane, h.flight_index, h.height_m
         from launch_heights h join altimeter_logs g on g.id = h.log_id
@@ -72,7 +73,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
     return sql`
     with season_lanes as materialized (${lanes(sql`(select count(*) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane)::int`)}
     ), season_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name, ${flightColumns}, f.ground_ms
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms
       from season_lanes sl
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
     ), ${heights}`;
@@ -83,18 +84,18 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
   return sql`
     with season_named_lanes as materialized (${lanes(sql`0`)}
     ), season_model_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name, ${flightColumns}, f.ground_ms, m.model_id,
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms, m.model_id,
         lag(m.model_id) over (partition by f.run_id, f.lane order by f.position) as previous_model_id
       from season_named_lanes sl
       join run_lanes l on l.run_id = sl.run_id and l.lane = sl.lane
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
       cross join lateral (select ${modelAtSql(sql`f.run_id`, sql`f.lane`, launchAtMs(sql`l.derived`, sql`f`))} as model_id) m
     ), season_flights as materialized (
-      select run_id, lane, task_code, created_at, field_name, flight_index, launch_ms, land_ms, status, time_tenths, credited_tenths, target_sec,
+      select run_id, lane, task_code, created_at, week, field_name, flight_index, launch_ms, land_ms, status, time_tenths, credited_tenths, target_sec,
         case when previous_model_id = ${f.model} then ground_ms end as ground_ms
       from season_model_flights where model_id = ${f.model}
     ), season_lanes as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name, sl.result_tenths, sl.max_tenths, n.flights as flight_count, sl.contest,
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, sl.result_tenths, sl.max_tenths, n.flights as flight_count, sl.contest,
         ${sql.join(LOST_PARTS.map((k) => sql`sl.${sql.identifier(k)}`), sql`, `)}, sl.lost_tenths, sl.penalty_points
       from season_named_lanes sl
       join (select run_id, lane, count(*)::int as flights from season_flights group by 1, 2) n on n.run_id = sl.run_id and n.lane = sl.lane

@@ -3,11 +3,12 @@ import { sql } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { LOST_PARTS, seasonScope, shareOf, weekOf } from "./scope";
+import { LOST_PARTS, seasonScope, shareOf } from "./scope";
 import { isTurnaround } from "./turnaround";
 
-const WEEK = weekOf(sql`created_at`);
-const SL_WEEK = weekOf(sql`sl.created_at`);
+/** The week (Monday, UTC) of a flight or lane, as season_flights / season_lanes carry it (scope.ts). */
+const WEEK = sql`week`;
+const SL_WEEK = sql`sl.week`;
 /** A flight's ground time that counts as turnaround (turnaround.ts, the one definition). */
 const TURNAROUND = isTurnaround(sql`ground_ms`);
 /** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
