@@ -78,7 +78,17 @@ describe("practice plan goals", () => {
 });
 
 describe("the coach's plan form", async () => {
-  const { planFormSchema, planFromForm } = await import("@/lib/coach/plan-form");
+  const { planFormSchema, planFromForm, planToForm } = await import("@/lib/coach/plan-form");
+  it("a stored plan opens in the form for editing and comes back unchanged", () => {
+    const plan = { pilotId: "p", title: "Relaunches", items: [
+      { letter: "H" as const, variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below" as const, seconds: 2.5 } },
+      { letter: "A" as const, variant: 420, goal: "two last-flight windows", windows: 2, measure: { kind: "median-share-at-least" as const, percent: 80 } },
+      { letter: "C" as const, variant: 3, goal: "calm launches", windows: 1, measure: null },
+    ] };
+    const form = planToForm(plan);
+    expect(planFormSchema.safeParse(form).success).toBe(true);
+    expect(planFromForm(form)).toEqual(plan);
+  });
   it("turns the inputs into the route's plan and refuses a missing number", () => {
     const form = { pilotId: "p", title: " Turnarounds ", items: [{ task: "H:600", goal: "three 1-2-3-4 windows", windows: "3", measure: "median-turnaround-below" as const, target: "3" }] };
     expect(planFormSchema.safeParse(form).success).toBe(true);
