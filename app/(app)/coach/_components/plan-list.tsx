@@ -1,6 +1,7 @@
 "use client";
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { itemTaskText, progressText } from "@/lib/coach/plan-goals";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
@@ -48,15 +49,17 @@ export function PlanList({ plans, pilots, now }: { plans: PulledPlan[]; pilots: 
 function PlanActions({ plan, pilots }: { plan: PulledPlan; pilots: RosterPilot[] }) {
   const client = useQueryClient();
   const closed = plan.closedAtMs !== null;
+  const [editing, setEditing] = useState(false);
   const toggle = useMutation({
     mutationFn: () => coachRequest(`/api/coach/plans/${plan.id}`, { method: "PATCH", body: { closed: !closed } }),
     onSuccess: () => client.invalidateQueries({ queryKey: coachKeys.plans }),
   });
   return (
     <div className="space-y-2">
-      <details>
+      {/* the form is built when opened: one form per plan on the page at once would repeat every label */}
+      <details onToggle={(e) => setEditing(e.currentTarget.open)}>
         <summary className="flex min-h-touch cursor-pointer items-center font-bold">Edit “{plan.title}”</summary>
-        <PlanBuilder pilots={pilots} editing={plan} />
+        {editing ? <PlanBuilder pilots={pilots} editing={plan} /> : null}
       </details>
       <Button type="button" variant="secondary" disabled={toggle.isPending} onClick={() => toggle.mutate()}>
         {closed ? `Reopen “${plan.title}”` : `Close “${plan.title}”`}
