@@ -59,7 +59,9 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
   const flightColumns = sql`f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec`;
   // one height per flight, the newest log's (then its first launch): picked once over the season's matched
   // launches and joined to the flights, rather than looked up flight by flight (30,000 lookups in the bench)
-  const heights = sql`season_heights as materialized (
+  // (without a model filter the flight is read by its key from lane_flights, so the few matched launches drive
+  // the join and no hash of every season flight is built; with one, only the model's flights count)
+  const heights = (flights: "season_flights" | "lane_flights") => sql`season_heights as materialized (
       select f.created_at, f.week, f.time_tenths, f.land_ms, h.height_m
       from (
         select distinct on (h.run_id, h.lane, h.flight_index) h.run_id, h.lane, h.flight_index, h.height_m
@@ -67,7 +69,11 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
         where h.flight_index is not null and h.run_id in (select run_id from season_lanes)
         order by h.run_id, h.lane, h.flight_index, g.created_at desc, h.at_ms
       ) h
-      join season_flights f on f.run_id = h.run_id and f.lane = h.lane and f.flight_index = h.flight_index
+      ${flights === "season_flights"
+        ? sql`join season_flights f on f.run_id = h.run_id and f.lane = h.lane and f.flight_index = h.flight_index`
+        : sql`join season_lanes sl on sl.run_id = h.run_id and sl.lane = h.lane
+      cross join lateral (select sl.created_at, sl.week, lf.time_tenths, lf.land_ms from lane_flights lf
+        where lf.run_id = h.run_id and lf.lane = h.lane and lf.flight_index = h.flight_index) f`}
     )`;
   if (!f.model) {
     return sql`
@@ -76,7 +82,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
       select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms
       from season_lanes sl
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
-    ), ${heights}`;
+    ), ${heights("lane_flights")}`;
   }
   // The model filter counts flights, not windows: each flight belongs to the model flying at its
   // launch (db/queries/flight-model.ts, the model page's rule), a lane is kept when one of its
@@ -99,7 +105,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
         ${sql.join(LOST_PARTS.map((k) => sql`sl.${sql.identifier(k)}`), sql`, `)}, sl.lost_tenths, sl.penalty_points
       from season_named_lanes sl
       join (select run_id, lane, count(*)::int as flights from season_flights group by 1, 2) n on n.run_id = sl.run_id and n.lane = sl.lane
-    ), ${heights}`;
+    ), ${heights("season_flights")}`;
 }
 
 /** A lane's result as a share of its task's maximum (null when the task has no maximum). */
