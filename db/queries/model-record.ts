@@ -3,8 +3,9 @@ import { sql } from "drizzle-orm";
 import type { ModelLane } from "@/lib/hangar/stats";
 import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
+import { isTurnaround } from "./season/turnaround";
 
-type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null };
+type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null; grounds: { i: number; ms: number }[] | null };
 
 /**
  * The lanes a model flew in, as lib/hangar/stats.ts reads them: lanes whose pilot is the model's
@@ -19,14 +20,17 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
       where e.kind = 'model' and e.body->>'modelId' = ${p.modelId}
     )
     select l.run_id, l.lane, r.task_code, l.derived,
-      (select json_agg(json_build_object('atMs', e.corrected_ms, 'modelId', e.body->>'modelId')) from events e
+      -- in time order, ties by id: modelAt takes the last of equal instants, as db/queries/flight-model.ts does
+      (select json_agg(json_build_object('atMs', e.corrected_ms, 'modelId', e.body->>'modelId') order by e.corrected_ms, e.id) from events e
         where e.run_id = l.run_id and e.kind = 'model' and (e.body->>'lane')::int = l.lane
           and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body->>'targetId' = e.id::text)) as choices,
       -- one height per flight, as the Season picks it (season_heights): the newest log's, its first launch
       (select json_agg(json_build_object('i', x.flight_index, 'h', x.height_m)) from (
         select distinct on (h.flight_index) h.flight_index, h.height_m from launch_heights h join altimeter_logs g on g.id = h.log_id
         where h.run_id = l.run_id and h.lane = l.lane and h.flight_index is not null
-        order by h.flight_index, g.created_at desc, h.at_ms) x) as heights
+        order by h.flight_index, g.created_at desc, h.at_ms) x) as heights,
+      (select json_agg(json_build_object('i', f.flight_index, 'ms', f.ground_ms)) from lane_flights f
+        where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`)}) as grounds
     from named n
     join run_lanes l on l.run_id = n.run_id and l.lane = n.lane
     join runs r on r.id = l.run_id
@@ -36,6 +40,7 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
     flights: flightInstants(r.derived),
     choices: (r.choices ?? []).map((c) => ({ atMs: Number(c.atMs), modelId: c.modelId })),
     heights: new Map((r.heights ?? []).map((x) => [x.i, x.h])),
+    groundMs: new Map((r.grounds ?? []).map((x) => [x.i, Number(x.ms)])),
   }));
 }
 

@@ -30,24 +30,7 @@ export const coachNotes = pgTable(
   ],
 );
 
-/**
- * A practice plan a coach assigns to a pilot who grants them their season: a title and an ordered
- * list of items (lib/coach/plan-goals.ts PlanItem: a catalogue task, a goal in words, how many
- * windows, and where measurable a number to reach). Runs set up from an item name it
- * (runs.plan_id, runs.plan_item); progress is computed from those runs' derived results.
- */
-export const practicePlans = pgTable(
-  "practice_plans",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    pilotId: uuid("pilot_id").notNull().references(() => users.id, { onDelete: "cascade" }),
-    coachId: uuid("coach_id").references(() => users.id, { onDelete: "set null" }),
-    title: text("title").notNull(),
-    items: jsonb("items").notNull().default([]),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
-  },
-  (t) => [index("practice_plans_pilot_id_idx").on(t.pilotId)],
-);
+export { practicePlans } from "./practice-plans";
 
 /** Launch heights read from an uploaded altimeter CSV (generic columns), matched to a session. */
 export const altimeterTraces = pgTable(

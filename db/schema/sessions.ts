@@ -5,6 +5,7 @@ import {
 import { clubs } from "./clubs";
 import { fieldDays } from "./contests";
 import { laneConsentStatusEnum } from "./enums";
+import { practicePlans } from "./practice-plans";
 import { guestPilots, users } from "./users";
 import { writtenByXact } from "./xid";
 
@@ -48,7 +49,7 @@ export const runs = pgTable(
     edition: text("edition").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
     /** The assigned practice plan (db/schema/coaching.ts) and its item this window was set up from; null for most runs. */
-    planId: uuid("plan_id"),
+    planId: uuid("plan_id").references(() => practicePlans.id, { onDelete: "set null" }),
     planItem: smallint("plan_item"),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
     xid: writtenByXact(),

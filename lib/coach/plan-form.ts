@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { PLAN_GOAL_MAX, PLAN_ITEMS_MAX, PLAN_TITLE_MAX, PLAN_WINDOWS_MAX, type PlanInput } from "./plan-goals";
+import { PLAN_GOAL_MAX, PLAN_ITEMS_MAX, PLAN_TITLE_MAX, PLAN_WINDOWS_MAX, type PlanInput, type PlanItem } from "./plan-goals";
 import { taskLetterSchema } from "@/lib/tasks";
 
 /**
@@ -41,5 +41,20 @@ export function planFromForm(f: PlanForm): PlanInput & { pilotId: string } {
         measure: i.measure === "none" ? null : i.measure === "median-turnaround-below" ? { kind: i.measure, seconds: target } : { kind: i.measure, percent: target },
       };
     }),
+  };
+}
+
+/** A stored plan as the form's values, for the coach to edit it (the inverse of planFromForm). */
+export function planToForm(plan: { pilotId: string; title: string; items: readonly PlanItem[] }): PlanForm {
+  return {
+    pilotId: plan.pilotId,
+    title: plan.title,
+    items: plan.items.map((i) => ({
+      task: `${i.letter}:${i.variant}`,
+      goal: i.goal,
+      windows: String(i.windows),
+      measure: i.measure?.kind ?? "none",
+      target: i.measure === null ? "" : String(i.measure.kind === "median-turnaround-below" ? i.measure.seconds : i.measure.percent),
+    })),
   };
 }

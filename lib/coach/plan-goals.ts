@@ -7,7 +7,8 @@ import { listVariants, taskLetterSchema, type TaskLetter } from "@/lib/tasks";
  * Practice plans a coach assigns (db/schema/coaching.ts practice_plans): each item is a task from
  * the engine's catalogue, a goal in words, how many windows to fly, and — where the goal can be
  * measured — a number to reach. Progress is a pure function of the runs set up from the item
- * (their results and flights as lib/results derived them): no framework, no database.
+ * (their results as lib/results derived them, and their turnarounds as the Season counts them:
+ * db/queries/season/turnaround.ts — one definition, not a copy here): no framework, no database.
  */
 
 export const PLAN_TITLE_MAX = 80;
@@ -50,8 +51,11 @@ export type PlanRun = {
   resultTenths: number | null;
   /** the task's maximum in tenths (the breakdown's maxTenths); null when unknown */
   maxTenths: number | null;
-  /** the lane's flights in order, on the run's one timeline (ms) */
-  flights: { launchMs: number; landMs: number | null }[];
+  /**
+   * the lane's turnarounds in ms, in flight order: the ground times the Season counts
+   * (db/queries/season/turnaround.ts over lane_flights.ground_ms), never worked out a second way here
+   */
+  groundMs: number[];
 };
 
 export type ItemProgress = {
@@ -69,22 +73,10 @@ export type PlanProgress = { items: ItemProgress[]; done: boolean };
 /** The median of a list (the mean of the two middle values for an even count); null when empty — the hangar's, not a second copy. */
 export { median };
 
-/** Ground times in seconds of one window: from each landing to the next launch (negative gaps are left out). */
-export function groundTimes(flights: PlanRun["flights"]): number[] {
-  const out: number[] = [];
-  for (let i = 1; i < flights.length; i++) {
-    const land = flights[i - 1]!.landMs;
-    if (land === null) continue;
-    const gap = flights[i]!.launchMs - land;
-    if (gap >= 0) out.push(gap / 1000);
-  }
-  return out;
-}
-
 /** The measured value of `measure` over the runs of one item. */
 export function measureValue(measure: PlanMeasure, runs: readonly PlanRun[]): number | null {
   const scored = runs.filter((r) => r.resultTenths !== null);
-  if (measure.kind === "median-turnaround-below") return median(scored.flatMap((r) => groundTimes(r.flights)));
+  if (measure.kind === "median-turnaround-below") return median(scored.flatMap((r) => r.groundMs.map((ms) => ms / 1000)));
   return median(scored.filter((r) => r.maxTenths !== null && r.maxTenths > 0).map((r) => (100 * r.resultTenths!) / r.maxTenths!));
 }
 
@@ -106,6 +98,16 @@ export function itemProgress(item: Pick<PlanItem, "windows" | "measure">, runs: 
 export function planProgress(items: readonly Pick<PlanItem, "windows" | "measure">[], runs: readonly PlanRun[]): PlanProgress {
   const out = items.map((item, i) => itemProgress(item, runs.filter((r) => r.item === i)));
   return { items: out, done: out.length > 0 && out.every((p) => p.met) };
+}
+
+/**
+ * The item to fly next: the first one whose goal is not met yet (its windows not all flown, or its
+ * number not reached), in the coach's order; null when every item is met or the plan is closed.
+ */
+export function nextPlanItem(plan: { items: readonly unknown[]; progress: PlanProgress; closedAtMs?: number | null }): number | null {
+  if (plan.closedAtMs != null) return null;
+  const i = plan.items.findIndex((_, k) => !plan.progress.items[k]?.met);
+  return i < 0 ? null : i;
 }
 
 /** The measured value in words, e.g. "2.4 s" or "83 %". */

@@ -1,7 +1,7 @@
 /**
  * A model's record, from the lanes it flew in: which flights it flew (the lane's latest "model"
  * event at or before each launch), their launch heights, times per task, turnaround (landing to
- * the next launch in the same lane, both with this model) and when it last flew.
+ * the next launch in the same lane, both with this model: the Season's ground time) and when it last flew.
  */
 export type ModelLane = {
   taskCode: string;
@@ -11,6 +11,11 @@ export type ModelLane = {
   choices: { atMs: number; modelId: string }[];
   /** Launch heights by flight index. */
   heights: Map<number, number>;
+  /**
+   * The turnaround before each flight (by flight index), in ms: the ground time since the lane's
+   * previous landing as the Season counts it (db/queries/season/turnaround.ts); absent when none counts.
+   */
+  groundMs: Map<number, number>;
 };
 
 export type ModelStats = {
@@ -30,7 +35,7 @@ export function median(values: readonly number[]): number | null {
   return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
 
-/** The model flying at this instant: the latest choice at or before it. */
+/** The model flying at this instant: the latest choice at or before it (of equal instants, the last listed). Mirrored in SQL by db/queries/flight-model.ts. */
 export function modelAt(choices: readonly { atMs: number; modelId: string }[], atMs: number): string | null {
   let best: { atMs: number; modelId: string } | null = null;
   for (const c of choices) if (c.atMs <= atMs && (!best || c.atMs >= best.atMs)) best = c;
@@ -53,7 +58,9 @@ export function modelStats(modelId: string, lanes: readonly ModelLane[]): ModelS
       const h = lane.heights.get(f.index);
       if (h !== undefined) heights.push(h);
       const next = sorted[i + 1];
-      if (next && f.landAtMs !== null && modelAt(lane.choices, next.launchAtMs) === modelId) turnarounds.push(next.launchAtMs - f.landAtMs);
+      // the ground time between two flights of this model, the one the Season reads (never worked out again here)
+      const ground = next && modelAt(lane.choices, next.launchAtMs) === modelId ? lane.groundMs.get(next.index) : undefined;
+      if (ground !== undefined) turnarounds.push(ground);
     });
   }
   return {

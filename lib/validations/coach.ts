@@ -37,3 +37,16 @@ export const noteIdSchema = z.object({ noteId: z.uuid() });
 
 /** A practice plan the coach assigns (POST /api/coach/plans). */
 export const planCreateSchema = planInputSchema.extend({ pilotId: z.uuid() });
+
+/**
+ * The coach changes a plan (PATCH /api/coach/plans/[planId]): a new title and items (the whole list,
+ * as planInputSchema checks it; runs keep the item number they were set up from), and/or closes or
+ * reopens it.
+ */
+export const planUpdateSchema = z.union([
+  planInputSchema.extend({ closed: z.boolean().optional() }),
+  z.object({ closed: z.boolean() }).strict(),
+]);
+export type PlanUpdate = z.infer<typeof planUpdateSchema>;
+
+export const planIdParamsSchema = z.object({ planId: z.uuid() });

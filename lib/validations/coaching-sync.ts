@@ -31,6 +31,12 @@ export const pulledPlanSchema = z.object({
   title: z.string().max(200),
   items: z.array(planItemSchema).max(12),
   createdAtMs: z.number().int(),
+  /** when the coach last edited it; null: never (older servers leave it out) */
+  updatedAtMs: z.number().int().nullable().default(null),
+  /** when the coach closed it: no longer "Ready to fly"; null while open */
+  closedAtMs: z.number().int().nullable().default(null),
+  /** the progress is as of the pilot's last push (their devices' latest); null when they never synced */
+  pilotSyncedAtMs: z.number().int().nullable().default(null),
   progress: z.object({ items: z.array(itemProgressSchema), done: z.boolean() }),
 });
 export type PulledPlan = z.infer<typeof pulledPlanSchema>;

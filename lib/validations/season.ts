@@ -5,8 +5,8 @@ import { calendarDaySchema } from "./calendar-day";
 /**
  * The Season screen's inputs (app/(app)/season, /api/pilots/[pilotId]/season/**): the filters
  * that travel in the page's address and in each request, and the tables' paging and sorting.
- * The model filter keeps the lanes that flew the model (a "model" event names it) and, for launch
- * heights, the launches made with it (db/queries/season/scope.ts `filterWhere`, `season_heights`).
+ * The model filter keeps the flights the model flew (the model flying at each launch, as the model's
+ * page counts them) and the windows with one of them (db/queries/season/scope.ts).
  */
 
 const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);

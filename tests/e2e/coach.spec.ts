@@ -1,6 +1,8 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
+import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
+import { workerReady } from "./support/field";
 
 /**
  * The Coach desk as its two users use it (db/seed: Mara coaches, Ada and Tobi grant her; Lena does
@@ -169,6 +171,108 @@ test("a pilot grants a coach; the coach reads her Season, writes a note she answ
   await expect(roster.getByRole("link", { name: "Lena Strand" })).toHaveCount(0);
   // one sync later (this page's), Mara's phone holds nothing of Lena's
   await expect.poll(async () => heldOf(coach, lenaId), { timeout: 60_000 }).toMatchObject({ runs: 0, notes: 0 });
+
+  await pilotContext.close();
+  await coachContext.close();
+});
+
+/** The run `id` as the page's device database holds it: its task letter and plan link. */
+async function storedRun(page: Page, id: string): Promise<{ letter: string; plan?: { id: string; item: number } }> {
+  return page.evaluate(async (id) => {
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const req = indexedDB.open("windowcall");
+      req.onsuccess = () => resolve(req.result);
+      req.onerror = () => reject(req.error);
+    });
+    const run = await new Promise<{ task: { letter: string }; plan?: { id: string; item: number } }>((resolve, reject) => {
+      const req = db.transaction("runs").objectStore("runs").get(id);
+      req.onsuccess = () => resolve(req.result);
+      req.onerror = () => reject(req.error);
+    });
+    db.close();
+    return { letter: run.task.letter, plan: run.plan };
+  }, id);
+}
+
+test("a plan's next item starts in one tap on the pilot's Field; the coach sees its progress as of the pilot's last sync, edits and closes it; offline the coach desk shows its last data and age", async ({ browser, baseURL }) => {
+  test.setTimeout(240_000);
+  const pilotContext = await browser.newContext();
+  const coachContext = await browser.newContext();
+  const pilot = await pilotContext.newPage();
+  const coach = await coachContext.newPage();
+
+  // Mara assigns Tobi (who grants her his season in the demo) a two-item plan
+  await signInAs(coach, "mara@example.com");
+  const roster = (await (await coach.request.get("/api/coach/pilots")).json()) as { pilots: { pilotId: string; name: string }[] };
+  const tobiId = roster.pilots.find((p) => p.name === "Tobi Okafor")!.pilotId;
+  const made = await coach.request.post("/api/coach/plans", {
+    headers: sameOrigin(baseURL),
+    data: { pilotId: tobiId, title: "Tobi's launch week", items: [
+      { letter: "B", variant: 420, goal: "two windows of two flights, median turnaround under 5 s", windows: 2, measure: { kind: "median-turnaround-below", seconds: 5 } },
+      { letter: "A", variant: 600, goal: "one last-flight window", windows: 1, measure: null },
+    ] },
+  });
+  expect(made.status()).toBe(201);
+  const planId = ((await made.json()) as { plan: { id: string } }).plan.id;
+
+  // Tobi's phone has set up a window at a field before (the form remembers it); one tap starts the plan's next item
+  await signInAs(pilot, "tobi@example.com");
+  await pilot.goto("/field");
+  await pilot.evaluate(() => localStorage.setItem("windowcall.field.last-field", "Five Acre Meadow"));
+  const ready = pilot.getByRole("region", { name: "Ready to fly: plans from your coach" });
+  const card = ready.getByRole("article", { name: "Tobi's launch week" });
+  await expect(card).toBeVisible({ timeout: 60_000 });
+  await card.getByRole("button", { name: "Start next: Task B (7 min)" }).click();
+  await pilot.waitForURL(/\/field\/run\?id=/);
+  const runId = new URL(pilot.url()).searchParams.get("id")!;
+  expect(await storedRun(pilot, runId)).toEqual({ letter: "B", plan: { id: planId, item: 0 } });
+
+  // the run reaches the server with its link (Tobi's sync), and Mara reads the plan's progress as of that sync
+  await expect.poll(async () => {
+    const res = await coach.request.get("/api/coach/plans");
+    const plan = ((await res.json()) as { plans: { id: string; pilotSyncedAtMs: number | null }[] }).plans.find((p) => p.id === planId);
+    return plan?.pilotSyncedAtMs ?? null;
+  }, { timeout: 60_000 }).not.toBeNull();
+  await coach.goto("/coach");
+  const article = coach.getByRole("article", { name: "Tobi's launch week for Tobi Okafor" });
+  await expect(article.getByTestId("plan-as-of")).toHaveText(/^Progress as of Tobi Okafor's last sync, (less than a minute|\d+ minutes?) ago\.$/);
+  await noSeriousViolations(coach, "/coach with plans");
+
+  // Mara edits the title and closes the plan
+  const item = coach.locator(`#plan-${planId}`);
+  await item.getByText("Edit “Tobi's launch week”").click();
+  await item.getByLabel("Plan title").fill("Tobi's launch week, shorter");
+  await item.getByRole("button", { name: "Save the changes" }).click();
+  await expect(item.getByText("Plan changed")).toBeVisible();
+  const renamed = coach.getByRole("article", { name: "Tobi's launch week, shorter for Tobi Okafor" });
+  await expect(renamed).toBeVisible();
+  await item.getByRole("button", { name: "Close “Tobi's launch week, shorter”" }).click();
+  await expect(renamed).toContainText("For Tobi Okafor · closed");
+  await expect(item.getByRole("button", { name: "Reopen “Tobi's launch week, shorter”" })).toBeVisible();
+
+  // after Tobi's next sync it is no longer ready to fly: closed, with nothing to start
+  await expect.poll(async () => {
+    await pilot.goto("/field");
+    return ready.getByText("Finished or closed plans (").count();
+  }, { timeout: 60_000 }).toBeGreaterThan(0);
+  await expect(ready.getByRole("article", { name: "Tobi's launch week, shorter" })).toBeHidden();
+  await ready.getByText("Finished or closed plans (").click();
+  const closedCard = ready.getByRole("article", { name: "Tobi's launch week, shorter" });
+  await expect(closedCard).toContainText("closed by your coach");
+  await expect(closedCard.getByRole("button", { name: /^Start next/ })).toHaveCount(0);
+
+  // offline, Mara's coach desk shows the roster and plans it last fetched, and says how old they are
+  await coach.goto("/coach");
+  await workerReady(coach);
+  await coach.reload(); // a controlled load puts the page in the worker's cache
+  await expect(coach.getByRole("table", { name: "Pilots who let you see their season" })).toBeVisible();
+  await coachContext.setOffline(true);
+  await coach.reload().catch(() => null);
+  await expect(coach.getByRole("table", { name: "Pilots who let you see their season" }).getByRole("link", { name: "Tobi Okafor" })).toBeVisible();
+  await expect(coach.getByText(/^Offline — showing the last roster fetched, from (less than a minute|\d+ minutes?) ago\.$/)).toBeVisible();
+  await expect(coach.getByText(/^Offline — showing the last plans fetched/)).toBeVisible();
+  await expect(coach.getByRole("article", { name: "Tobi's launch week, shorter for Tobi Okafor" })).toBeVisible();
+  await coachContext.setOffline(false);
 
   await pilotContext.close();
   await coachContext.close();

@@ -2,7 +2,7 @@ import "./support/session";
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
-import { coachInvites, coachNotes, fieldSessions, mailQueue, runs } from "@/db/schema";
+import { coachInvites, coachNotes, fieldSessions, mailQueue, practicePlans, runs } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
@@ -156,6 +156,11 @@ const planBody = (ctx: Ctx | null) => ({
   pilotId: (ctx?.cast ?? seeded).owner.id, title: "Matrix plan",
   items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }],
 });
+/** A plan the granted coach assigned the owner: only that coach may change it (PATCH), nobody else, the owner included. */
+const coachesPlan = async (cast: Cast) => {
+  const [row] = await db.insert(practicePlans).values({ pilotId: cast.owner.id, coachId: cast.coachWithGrant.id, title: "Matrix plan", items: planBody(null).items }).returning({ id: practicePlans.id });
+  return { planId: row!.id };
+};
 const coachOnly = (status: number): Record<Actor, Status> => ({ ...everyone(404), signedOut: 401, coachWithGrant: status });
 
 const listsUsers = async (_ctx: Ctx, res: Response) => {
@@ -225,6 +230,7 @@ const ROWS: Record<string, Row> = {
   // practice plans: a coach lists only their own plans for pilots who still grant them, and assigns only to such a pilot
   "GET /api/coach/plans": signedIn({ check: plansNameOwner }),
   "POST /api/coach/plans": { body: planBody, expect: coachOnly(201) },
+  "PATCH /api/coach/plans/[planId]": { params: coachesPlan, body: () => ({ closed: true }), expect: coachOnly(200) },
   "POST /api/account/password": ownAccount({ body: () => ({ currentPassword: MATRIX_PASSWORD, newPassword: "matrix-window-2027" }) }),
   "POST /api/account/sign-out-everywhere": ownAccount({ body: () => ({}) }),
   "DELETE /api/account": ownAccount({ body: () => ({ password: MATRIX_PASSWORD }) }),

@@ -6,6 +6,8 @@ import { listChanges } from "@/db/queries/sync-pull";
 import { POST as notePost } from "@/app/api/notes/route";
 import { POST as replyPost } from "@/app/api/notes/[noteId]/replies/route";
 import { GET as plansGet, POST as planPost } from "@/app/api/coach/plans/route";
+import { PATCH as planPatch } from "@/app/api/coach/plans/[planId]/route";
+import { devices } from "@/db/schema";
 import { NOTE_BODY_MAX } from "@/lib/validations/coach";
 import type { PullReply } from "@/lib/validations/sync";
 import { actAs } from "./support/session";
@@ -156,5 +158,57 @@ describe("practice plans", () => {
     await db.update(coachGrants).set({ revokedAt: sql`now()` }).where(and(eq(coachGrants.pilotId, pilot!.id), eq(coachGrants.coachId, coach!.id)));
     const after = (await (await plansGet()).json()) as { plans: { id: string }[] };
     expect(after.plans.map((p) => p.id)).not.toContain(planId);
+  });
+
+  it("the coach who assigned a plan edits and closes it (anyone else: 404, nothing changed); the pull carries the change and the pilot's last sync", async () => {
+    const [pilot, coach, other] = (await freshClub(["Pilot", "Coach", "Other"])) as U[];
+    await grant(pilot!, coach!);
+    await grant(pilot!, other!);
+    actAs(coach!);
+    const res = await planPost(json("/api/coach/plans", { pilotId: pilot!.id, title: "Relaunches", items: [item()] }));
+    const planId = ((await res.json()) as { plan: { id: string } }).plan.id;
+    const patch = (body: unknown) => planPatch(new Request(`http://test/api/coach/plans/${planId}`, { method: "PATCH", body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+      { params: Promise.resolve({ planId }) });
+    const row = async () => (await db.select().from(practicePlans).where(eq(practicePlans.id, planId)))[0]!;
+
+    // another coach of the same pilot, and the pilot herself, cannot change it
+    for (const who of [other!, pilot!]) {
+      actAs(who);
+      expect((await patch({ closed: true })).status).toBe(404);
+    }
+    expect((await row()).closedAt).toBeNull();
+    actAs(coach!);
+    expect((await patch({})).status).toBe(422);
+    expect((await patch({ title: "", items: [item()] })).status).toBe(422);
+    expect((await row()).title).toBe("Relaunches");
+
+    const edited = await patch({ title: "Relaunches, week two", items: [item(), item({ letter: "A", measure: null, windows: 1, goal: "one long flight" })] });
+    expect(edited.status).toBe(200);
+    expect((await row()).updatedAt).not.toBeNull();
+    const closed = await patch({ closed: true });
+    expect(closed.status).toBe(200);
+    expect(((await closed.json()) as { plan: { closedAtMs: number | null } }).plan.closedAtMs).toEqual(expect.any(Number));
+
+    // a run she pushes names the plan; her device's last push is the "as of" the coach reads
+    await ownRun(pilot!, [60, 60], { id: planId, item: 1 });
+    const pulled = (await lastPage(pilot!.id)).plans?.find((p) => p.id === planId);
+    expect(pulled).toMatchObject({ title: "Relaunches, week two", closedAtMs: expect.any(Number) });
+    expect(pulled!.items.map((i) => i.letter)).toEqual(["H", "A"]);
+    const [seen] = await db.select({ at: sql<Date>`max(${devices.lastSeenAt})` }).from(devices).where(eq(devices.userId, pilot!.id));
+    expect(pulled!.pilotSyncedAtMs).toBe(new Date(seen!.at).getTime());
+    expect(pulled!.progress.items[1]).toMatchObject({ flown: 1, windows: 1, met: true });
+
+    // reopened; then, once the pilot revokes, a 404
+    actAs(coach!);
+    expect(((await (await patch({ closed: false })).json()) as { plan: { closedAtMs: number | null } }).plan.closedAtMs).toBeNull();
+    await db.update(coachGrants).set({ revokedAt: sql`now()` }).where(and(eq(coachGrants.pilotId, pilot!.id), eq(coachGrants.coachId, coach!.id)));
+    expect((await patch({ closed: true })).status).toBe(404);
+    expect((await row()).closedAt).toBeNull();
+  });
+
+  it("a run's plan link is a foreign key: a plan that does not exist cannot be named", async () => {
+    const [pilot] = (await freshClub(["Pilot"])) as U[];
+    const { runId } = await ownRun(pilot!, [60]);
+    await expect(db.update(runs).set({ planId: "0190aaaa-0000-7000-8000-000000000000", planItem: 0 }).where(eq(runs.id, runId))).rejects.toThrow();
   });
 });

@@ -90,6 +90,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/coach/claim": { POST: "json" },
   "/api/coach/pilots": { GET: "none" },
   "/api/coach/plans": { GET: "none", POST: "json" },
+  "/api/coach/plans/[planId]": { PATCH: "json" },
   "/api/notes": { POST: "json" },
   "/api/notes/[noteId]/replies": { POST: "json" },
 };
@@ -187,6 +188,8 @@ function template(path: string, userId: string): Record<string, unknown> {
   // the fuzz user coaches nobody and has no notes: a well-formed note, answer or plan is a 404 and writes nothing
   if (path === "/api/notes") return { pilotId: uuidv7(), runId: uuidv7(), body: "Keep the second launch lower." };
   if (path === "/api/notes/[noteId]/replies") return { body: "Thanks, will do." };
+  // a plan nobody gave the fuzz user: a well-formed change is a 404 and writes nothing
+  if (path === "/api/coach/plans/[planId]") return { title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "two windows", windows: 2, measure: null }], closed: true };
   if (path === "/api/coach/plans") {
     return { pilotId: uuidv7(), title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }] };
   }
@@ -335,7 +338,7 @@ describe("fuzz: every route under app/api", () => {
               ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
-                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), roundNumber: "1", token: uuidv7().replace(/-/g, "").repeat(2).slice(0, 43), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), userId: target } : {};
+                : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), roundNumber: "1", token: uuidv7().replace(/-/g, "").repeat(2).slice(0, 43), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), planId: uuidv7(), userId: target } : {};
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);

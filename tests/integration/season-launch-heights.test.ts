@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listModelLanes } from "@/db/queries/model-record";
 import { createModel } from "@/db/queries/models";
 import { getSeasonSummary } from "@/db/queries/season/summary";
+import { listSeasonFlights } from "@/db/queries/season/tables";
 import { altimeterLogs, events, launchHeights, runs } from "@/db/schema";
 import { modelStats } from "@/lib/hangar/stats";
 import { seasonFiltersSchema } from "@/lib/validations/season";
@@ -97,7 +98,8 @@ describe("season launch heights (hand-computed)", () => {
 
   it("the model filter keeps the lanes flown with the model and the launches made with it", async () => {
     const withHeron = await season({ model: heron });
-    expect(withHeron.totals).toEqual({ runs: 2, flights: 5 });
+    // June 2: three Heron flights; June 9: the second flight only (the first was Plover's)
+    expect(withHeron.totals).toEqual({ runs: 2, flights: 4 });
     // 40, 52, 31, 45 → median 42.5; x̄ 42, ȳ 56.15, Sxy 242, Sxx 234 → 1.0342 s per metre
     expect(withHeron.heights).toEqual({ launches: 4, medianM: 42.5, secondsPerTenMetres: 10.3 });
     expect(withHeron.heightByWeek).toEqual([
@@ -105,9 +107,27 @@ describe("season launch heights (hand-computed)", () => {
       { week: "2026-06-08", launches: 1, medianM: 45, bestM: 45 },
     ]);
     const withPlover = await season({ model: plover });
-    expect(withPlover.totals).toEqual({ runs: 1, flights: 2 });
+    expect(withPlover.totals).toEqual({ runs: 1, flights: 1 });
     expect(withPlover.heights).toEqual({ launches: 1, medianM: 20, secondsPerTenMetres: null });
     expect((await season({ model: "0190aaaa-0000-7000-8000-000000000000" })).totals.runs).toBe(0);
+  });
+
+  it("a model's flights, windows, turnaround and heights are the same on the Season as on its model page (flights by the model flying at launch)", async () => {
+    const withHeron = await season({ model: heron });
+    // Heron's ground times: June 2, 62.4 − 60 = 2.4 s and 135 − 130 = 5.0 s (median 3.7 s); June 9's 3.0 s
+    // follows a Plover landing, so it is nobody's turnaround for Heron
+    expect(withHeron.turnaroundByWeek).toEqual([{ week: "2026-06-01", count: 2, medianTenths: 37, p90Tenths: 47 }]);
+    expect(withHeron.months.this).toMatchObject({ flights: 4, turnaroundTenths: 37 });
+    const flightsTable = await listSeasonFlights(db, { pilotId, filters: seasonFiltersSchema.parse({ model: heron }), paging: "all" });
+    expect(flightsTable.rows.map((r) => r.durationTenths).sort()).toEqual([450, 550, 570, 676]);
+    for (const [model, s] of [[heron, withHeron], [plover, await season({ model: plover })]] as const) {
+      const page = modelStats(model, await listModelLanes(db, { modelId: model, ownerIds: [pilotId] }));
+      expect(s.totals.flights).toBe(page.flights);
+      expect(s.heights.launches).toBe(page.launches);
+      expect(s.heights.medianM).toBe(page.medianLaunchM);
+      expect(s.months.this.turnaroundTenths).toBe(page.medianTurnaroundMs === null ? null : Math.round(page.medianTurnaroundMs / 100));
+    }
+    expect((await season({ model: plover })).turnaroundByWeek).toEqual([]);
   });
 
   it("other filters apply to the heights too, and the hangar is listed for the filter", async () => {

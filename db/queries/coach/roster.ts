@@ -1,6 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
+import { isTurnaround } from "../season/turnaround";
 import type { RosterPilot } from "@/lib/coach/types";
 
 /**
@@ -34,7 +35,7 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
     ), grounds as (
       select ln.pilot_id, ln.age, f.ground_ms / 1000.0 as ground_s
       from lanes ln join lane_flights f on f.run_id = ln.run_id and f.lane = ln.lane
-      where ln.age < interval '60 days' and f.ground_ms is not null and f.ground_ms >= 0
+      where ln.age < interval '60 days' and ${isTurnaround(sql`f.ground_ms`)}
     )
     select p.pilot_id::text, p.name,
       (select max(started_at) from lanes where pilot_id = p.pilot_id) as last_session_at,

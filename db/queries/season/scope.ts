@@ -1,21 +1,15 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
+import { launchAtMs, lanesNamingModel, modelAtSql } from "../flight-model";
 
 const DAY_MS = 24 * 3600 * 1000;
 
-/** The filters as a SQL condition on `r` (runs) and `s` (field_sessions); dates are UTC calendar days, both ends included. */
 /** The points-lost causes of the stored breakdown (lib/tasks/breakdown.ts), each a column of `season_lanes` (tenths). */
 export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
 const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
 
-/** The lane's model events (undone ones left out) that name `modelId`. */
-function namesModel(runId: SQL, lane: SQL, modelId: string): SQL {
-  return sql`select 1 from events e where e.run_id = ${runId} and e.kind = 'model' and (e.body ->> 'lane')::int = ${lane}
-    and e.body ->> 'modelId' = ${modelId}
-    and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body ->> 'targetId' = e.id::text)`;
-}
-
+/** The filters as a SQL condition on `r` (runs), `s` (field_sessions) and `l` (run_lanes); dates are UTC calendar days, both ends included. */
 function filterWhere(f: SeasonFilters): SQL {
   const parts: SQL[] = [sql`true`];
   if (f.from) parts.push(sql`r.created_at >= ${new Date(`${f.from}T00:00:00Z`).toISOString()}::timestamptz`);
@@ -24,7 +18,8 @@ function filterWhere(f: SeasonFilters): SQL {
   if (f.field) parts.push(sql`s.field_name = ${f.field}`);
   if (f.kind === "contest") parts.push(contest);
   if (f.kind === "practice") parts.push(sql`not ${contest}`);
-  if (f.model) parts.push(sql`exists (${namesModel(sql`r.id`, sql`l.lane`, f.model)})`);
+  // only a lane some model event names can have flown the model; which of its flights did is decided per flight below
+  if (f.model) parts.push(sql`exists (${lanesNamingModel(sql`r.id`, sql`l.lane`, f.model)})`);
   return sql.join(parts, sql` and `);
 }
 
@@ -38,16 +33,19 @@ function filterWhere(f: SeasonFilters): SQL {
  *   previous landing (`ground_ms`: null for the first flight or when the previous one never landed),
  *   as stored at derive time in `lane_flights` (db/schema/lane-flights.ts), not unpacked from JSON here;
  * - `season_heights`: those flights whose launch an altimeter log matched (launch_heights; when two
- *   logs of a lane matched the same flight, the newer log's), with the model filter on the model the
- *   launch was made with.
+ *   logs of a lane matched the same flight, the newer log's).
+ * With a model filter, every flight belongs to the model flying at its launch (the model page's
+ * rule, db/queries/flight-model.ts): `season_flights` holds the flights of that model, a ground
+ * time counts only between two of its flights (as on the model page), and `season_lanes` holds
+ * the lanes with at least one such flight, `flight_count` counting only those.
+ * Each lane and flight carries `week`, the Monday (UTC) of its run's day, worked out once per lane.
  * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
  */
 export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
-  return sql`
-    with season_lanes as materialized (
-      select r.id as run_id, l.lane, r.task_code, r.created_at, s.field_name,
+  const lanes = (flightCount: SQL) => sql`
+      select r.id as run_id, l.lane, r.task_code, r.created_at, ${weekOf(sql`r.created_at`)} as week, s.field_name,
         l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
-        (select count(*) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane)::int as flight_count, ${contest} as contest,
+        ${flightCount} as flight_count, ${contest} as contest,
         ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
         (l.season_breakdown ->> 'lostTenths')::int as lost_tenths, coalesce((l.season_breakdown ->> 'penaltyPoints')::int, 0) as penalty_points
       from run_lanes l
@@ -57,22 +55,57 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
       where l.pilot_user_id = ${pilotId}
         and (r.created_by = ${pilotId} or c.status = 'accepted')
         and l.result_tenths is not null
-        and ${filterWhere(f)}
+        and ${filterWhere(f)}`;
+  const flightColumns = sql`f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec`;
+  // one height per flight, the newest log's (then its first launch): picked once over the season's matched
+  // launches and joined to the flights, rather than looked up flight by flight (30,000 lookups in the bench)
+  // (without a model filter the flight is read by its key from lane_flights, so the few matched launches drive
+  // the join and no hash of every season flight is built; with one, only the model's flights count)
+  const heights = (flights: "season_flights" | "lane_flights") => sql`season_heights as materialized (
+      select f.created_at, f.week, f.time_tenths, f.land_ms, h.height_m
+      from (
+        select distinct on (h.run_id, h.lane, h.flight_index) h.run_id, h.lane, h.flight_index, h.height_m
+        from launch_heights h join altimeter_logs g on g.id = h.log_id
+        where h.flight_index is not null and h.run_id in (select run_id from season_lanes)
+        order by h.run_id, h.lane, h.flight_index, g.created_at desc, h.at_ms
+      ) h
+      ${flights === "season_flights"
+        ? sql`join season_flights f on f.run_id = h.run_id and f.lane = h.lane and f.flight_index = h.flight_index`
+        : sql`join season_lanes sl on sl.run_id = h.run_id and sl.lane = h.lane
+      cross join lateral (select sl.created_at, sl.week, lf.time_tenths, lf.land_ms from lane_flights lf
+        where lf.run_id = h.run_id and lf.lane = h.lane and lf.flight_index = h.flight_index) f`}
+    )`;
+  if (!f.model) {
+    return sql`
+    with season_lanes as materialized (${lanes(sql`(select count(*) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane)::int`)}
     ), season_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.field_name,
-        f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec, f.ground_ms
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms
       from season_lanes sl
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
-    ), season_heights as materialized (
-      select f.created_at, f.time_tenths, f.land_ms, h.height_m
-      from season_flights f
-      join lateral (
-        select h.height_m, h.model_id from launch_heights h join altimeter_logs g on g.id = h.log_id
-        where h.run_id = f.run_id and h.lane = f.lane and h.flight_index = f.flight_index
-        order by g.created_at desc, h.at_ms limit 1
-      ) h on true
-      ${f.model ? sql`where h.model_id = ${f.model}` : sql``}
-    )`;
+    ), ${heights("lane_flights")}`;
+  }
+  // The model filter counts flights, not windows: each flight belongs to the model flying at its
+  // launch (db/queries/flight-model.ts, the model page's rule), a lane is kept when one of its
+  // flights flew the model, and a ground time counts only between two flights of that model.
+  return sql`
+    with season_named_lanes as materialized (${lanes(sql`0`)}
+    ), season_model_flights as materialized (
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms, m.model_id,
+        lag(m.model_id) over (partition by f.run_id, f.lane order by f.position) as previous_model_id
+      from season_named_lanes sl
+      join run_lanes l on l.run_id = sl.run_id and l.lane = sl.lane
+      join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
+      cross join lateral (select ${modelAtSql(sql`f.run_id`, sql`f.lane`, launchAtMs(sql`l.derived`, sql`f`))} as model_id) m
+    ), season_flights as materialized (
+      select run_id, lane, task_code, created_at, week, field_name, flight_index, launch_ms, land_ms, status, time_tenths, credited_tenths, target_sec,
+        case when previous_model_id = ${f.model} then ground_ms end as ground_ms
+      from season_model_flights where model_id = ${f.model}
+    ), season_lanes as materialized (
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, sl.result_tenths, sl.max_tenths, n.flights as flight_count, sl.contest,
+        ${sql.join(LOST_PARTS.map((k) => sql`sl.${sql.identifier(k)}`), sql`, `)}, sl.lost_tenths, sl.penalty_points
+      from season_named_lanes sl
+      join (select run_id, lane, count(*)::int as flights from season_flights group by 1, 2) n on n.run_id = sl.run_id and n.lane = sl.lane
+    ), ${heights("season_flights")}`;
 }
 
 /** A lane's result as a share of its task's maximum (null when the task has no maximum). */

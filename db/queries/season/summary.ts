@@ -3,12 +3,14 @@ import { sql } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { LOST_PARTS, seasonScope, shareOf, weekOf } from "./scope";
+import { LOST_PARTS, seasonScope, shareOf } from "./scope";
+import { isTurnaround } from "./turnaround";
 
-const WEEK = weekOf(sql`created_at`);
-const SL_WEEK = weekOf(sql`sl.created_at`);
-/** A landing-to-launch gap that really is time on the ground (the record can hold a launch before the landing). */
-const TURNAROUND = sql`ground_ms is not null and ground_ms >= 0`;
+/** The week (Monday, UTC) of a flight or lane, as season_flights / season_lanes carry it (scope.ts). */
+const WEEK = sql`week`;
+const SL_WEEK = sql`sl.week`;
+/** A flight's ground time that counts as turnaround (turnaround.ts, the one definition). */
+const TURNAROUND = isTurnaround(sql`ground_ms`);
 /** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
 const BIN_SEC = 30;
 const LAST_BIN = 10;
@@ -33,7 +35,7 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
     ), months as (
       select m.which, m.start,
         (select count(*)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as runs,
-        (select count(*)::int from season_flights f where f.created_at >= m.start and f.created_at < m.start + interval '1 month') as flights,
+        (select coalesce(sum(sl.flight_count), 0)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as flights,
         (select avg(${shareOf}) from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as share,
         (select round(percentile_cont(0.5) within group (order by ground_ms) / 100)::int from season_flights
           where ${TURNAROUND} and created_at >= m.start and created_at < m.start + interval '1 month') as turnaround

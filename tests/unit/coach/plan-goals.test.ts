@@ -1,23 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { groundTimes, itemProgress, median, planInputSchema, planProgress, progressText, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
+import { itemProgress, nextPlanItem, median, planInputSchema, planProgress, progressText, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
 
-// Hand-computed examples. Turnaround as the Season defines it (issue #12): a landing at 1:00.0 and
-// the next launch at 1:02.4 make 2.4 s of ground time.
-const at = (min: number, sec: number) => (min * 60 + sec) * 1000;
-
+// Hand-computed examples. A run's turnarounds come as the Season counts them (lane_flights.ground_ms
+// through db/queries/season/turnaround.ts, checked in tests/integration/season-aggregates.test.ts:
+// a landing at 1:00.0 and the next launch at 1:02.4 make 2.4 s); here they are given in seconds.
 const turnaroundItem: Pick<PlanItem, "windows" | "measure"> = { windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } };
 
-function run(item: number, flights: [number, number | null][], resultTenths: number | null = 1000, maxTenths: number | null = 6000): PlanRun {
-  return { item, resultTenths, maxTenths, flights: flights.map(([launchMs, landMs]) => ({ launchMs, landMs })) };
+function run(item: number, groundSec: number[], resultTenths: number | null = 1000, maxTenths: number | null = 6000): PlanRun {
+  return { item, resultTenths, maxTenths, groundMs: groundSec.map((s) => Math.round(s * 1000)) };
 }
 
 describe("practice plan goals", () => {
-  it("ground time runs from a landing to the next launch of the same window", () => {
-    expect(groundTimes(run(0, [[at(0, 0), at(1, 0)], [at(1, 2.4), at(2, 5)]]).flights)).toEqual([2.4]);
-    // a flight still in the air gives no ground time after it
-    expect(groundTimes(run(0, [[0, null], [5000, 9000]]).flights)).toEqual([]);
-  });
-
   it("median of odd and even counts", () => {
     expect(median([3, 1, 2])).toBe(2);
     expect(median([4, 1, 3, 2])).toBe(2.5);
@@ -27,11 +20,7 @@ describe("practice plan goals", () => {
   it("three 1-2-3-4 windows with median turnaround under 3 s: met with 2.4, 2.8, 3.6, 2.0, 5.0 s", () => {
     // window 1: ground 2.4 s and 2.8 s; window 2: 3.6 s; window 3: 2.0 s and 5.0 s
     // sorted: 2.0 2.4 2.8 3.6 5.0 → median 2.8 s < 3 s
-    const runs = [
-      run(0, [[at(0, 0), at(1, 0)], [at(1, 2.4), at(3, 0)], [at(3, 2.8), at(6, 0)]]),
-      run(0, [[at(0, 0), at(4, 0)], [at(4, 3.6), at(5, 0)]]),
-      run(0, [[at(0, 0), at(2, 0)], [at(2, 2), at(4, 0)], [at(4, 5), at(5, 0)]]),
-    ];
+    const runs = [run(0, [2.4, 2.8]), run(0, [3.6]), run(0, [2, 5])];
     const p = itemProgress(turnaroundItem, runs);
     expect(p.flown).toBe(3);
     expect(p.value).toBeCloseTo(2.8, 9);
@@ -40,14 +29,14 @@ describe("practice plan goals", () => {
   });
 
   it("the number reached in too few windows is not met; a median of exactly 3 s is not under 3 s", () => {
-    const two = [run(0, [[0, 60_000], [62_000, 90_000]]), run(0, [[0, 60_000], [61_000, 90_000]])];
+    const two = [run(0, [2]), run(0, [1])];
     expect(itemProgress(turnaroundItem, two)).toEqual({ flown: 2, windows: 3, value: 1.5, met: false });
-    const three = [run(0, [[0, 60_000], [63_000, 90_000]]), run(0, [[0, 60_000], [63_000, 90_000]]), run(0, [[0, 1000], [4000, 9000]])];
+    const three = [run(0, [3]), run(0, [3]), run(0, [3])];
     expect(itemProgress(turnaroundItem, three)).toMatchObject({ flown: 3, value: 3, met: false });
   });
 
   it("a window without a result does not count as flown nor measured", () => {
-    const runs = [run(0, [[0, 1000], [2000, 3000]], null)];
+    const runs = [run(0, [1], null)];
     expect(itemProgress({ windows: 1, measure: null }, runs)).toEqual({ flown: 0, windows: 1, value: null, met: false });
   });
 
@@ -60,11 +49,23 @@ describe("practice plan goals", () => {
 
   it("a plan is done when every item is met; runs count only for the item they name", () => {
     const items = [turnaroundItem, { windows: 1, measure: null }];
-    const runs = [run(1, [[0, 1000]])];
+    const runs = [run(1, [])];
     const p = planProgress(items, runs);
     expect(p.items.map((i) => i.flown)).toEqual([0, 1]);
     expect(p.done).toBe(false);
     expect(planProgress([{ windows: 1, measure: null }], [run(0, [])]).done).toBe(true);
+  });
+
+  it("the next item to fly is the first not met, in the coach's order; none when all are met or the plan is closed", () => {
+    const met = { flown: 3, windows: 3, value: 2, met: true };
+    const open = { flown: 1, windows: 3, value: 2, met: false };
+    const items = [{}, {}, {}];
+    expect(nextPlanItem({ items, progress: { items: [met, open, open], done: false } })).toBe(1);
+    expect(nextPlanItem({ items, progress: { items: [open, met, open], done: false } })).toBe(0);
+    // an item without progress yet (e.g. just added by the coach) is not met
+    expect(nextPlanItem({ items, progress: { items: [met, met], done: false } })).toBe(2);
+    expect(nextPlanItem({ items, progress: { items: [met, met, met], done: true } })).toBeNull();
+    expect(nextPlanItem({ items, progress: { items: [open, open, open], done: false }, closedAtMs: 1 })).toBeNull();
   });
 
   it("plan input: catalogue variants only, bounded goal", () => {
@@ -77,7 +78,17 @@ describe("practice plan goals", () => {
 });
 
 describe("the coach's plan form", async () => {
-  const { planFormSchema, planFromForm } = await import("@/lib/coach/plan-form");
+  const { planFormSchema, planFromForm, planToForm } = await import("@/lib/coach/plan-form");
+  it("a stored plan opens in the form for editing and comes back unchanged", () => {
+    const plan = { pilotId: "p", title: "Relaunches", items: [
+      { letter: "H" as const, variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below" as const, seconds: 2.5 } },
+      { letter: "A" as const, variant: 420, goal: "two last-flight windows", windows: 2, measure: { kind: "median-share-at-least" as const, percent: 80 } },
+      { letter: "C" as const, variant: 3, goal: "calm launches", windows: 1, measure: null },
+    ] };
+    const form = planToForm(plan);
+    expect(planFormSchema.safeParse(form).success).toBe(true);
+    expect(planFromForm(form)).toEqual(plan);
+  });
   it("turns the inputs into the route's plan and refuses a missing number", () => {
     const form = { pilotId: "p", title: " Turnarounds ", items: [{ task: "H:600", goal: "three 1-2-3-4 windows", windows: "3", measure: "median-turnaround-below" as const, target: "3" }] };
     expect(planFormSchema.safeParse(form).success).toBe(true);

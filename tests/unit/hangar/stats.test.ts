@@ -24,6 +24,8 @@ describe("a model's record (lib/hangar/stats.ts)", () => {
     ],
     choices: [{ atMs: 0, modelId: A }, { atMs: 150_000, modelId: B }],
     heights: new Map([[0, 52.5], [1, 48], [2, 61]]),
+    // the ground time before each flight, as the Season stores it (lane_flights.ground_ms)
+    groundMs: new Map([[1, 30_000], [2, 60_000]]),
   };
 
   it("the model at an instant is the latest choice before it", () => {
@@ -38,6 +40,16 @@ describe("a model's record (lib/hangar/stats.ts)", () => {
     expect(a.medianTimeByTask).toEqual([{ taskCode: "A", medianTenths: 500, flights: 2 }]);
     const b = modelStats(B, [lane]);
     expect(b).toMatchObject({ flights: 1, bestLaunchM: 61, medianTurnaroundMs: null });
+  });
+
+  it("a turnaround is the stored ground time, counted only when both flights flew the model", () => {
+    // flight 2's ground time is absent (none counts, e.g. a launch recorded before the landing): no turnaround for B, none made up
+    expect(modelStats(A, [{ ...lane, groundMs: new Map([[1, 2_400]]) }]).medianTurnaroundMs).toBe(2_400);
+    expect(modelStats(A, [{ ...lane, groundMs: new Map() }]).medianTurnaroundMs).toBeNull();
+  });
+
+  it("of two choices at the same instant the last listed counts (the SQL side orders them by time, then id)", () => {
+    expect(modelAt([{ atMs: 5, modelId: A }, { atMs: 5, modelId: B }], 5)).toBe(B);
   });
 
   it("a model never flown has an empty record", () => {

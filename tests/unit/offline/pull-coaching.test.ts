@@ -12,7 +12,7 @@ const note = (pilotId: string, body: string): PulledNote => ({
   id: uuidv7(), pilotId, coachId: uuidv7(), authorId: uuidv7(), authorName: "Coach", sessionId: uuidv7(), runId: uuidv7(), replyTo: null, body, createdAtMs: 1,
 });
 const plan = (): PulledPlan => ({
-  id: uuidv7(), pilotId: uuidv7(), pilotName: "Pilot", coachName: "Coach", title: "Relaunches", createdAtMs: 1,
+  id: uuidv7(), pilotId: uuidv7(), pilotName: "Pilot", coachName: "Coach", title: "Relaunches", createdAtMs: 1, updatedAtMs: null, closedAtMs: null, pilotSyncedAtMs: null,
   items: [{ letter: "H", variant: 600, goal: "three windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }],
   progress: { items: [{ flown: 1, windows: 3, value: 2.5, met: false }], done: false },
 });

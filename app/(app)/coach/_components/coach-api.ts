@@ -4,14 +4,10 @@ import type { PilotGrantRow, RosterPilot } from "@/lib/coach/types";
 
 export type { PilotGrantRow, RosterPilot };
 
-export const coachKeys = {
-  grants: ["coach-grants"] as const,
-  roster: ["coach-roster"] as const,
-  plans: ["coach-plans"] as const,
-};
+export { coachKeys } from "./coach-keys";
 
 /** A same-origin JSON request; a refusal throws an Error carrying the server's message. */
-export async function coachRequest<T>(url: string, init: { method?: "GET" | "POST" | "DELETE"; body?: unknown } = {}): Promise<T> {
+export async function coachRequest<T>(url: string, init: { method?: "GET" | "POST" | "PATCH" | "DELETE"; body?: unknown } = {}): Promise<T> {
   const res = await fetch(url, {
     method: init.method ?? "GET",
     cache: "no-store",

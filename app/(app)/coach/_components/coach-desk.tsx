@@ -8,6 +8,7 @@ import { coachKeys, coachRequest, type RosterPilot } from "./coach-api";
 import { RosterTable } from "./roster-table";
 import { PlanBuilder } from "./plan-builder";
 import { PlanList } from "./plan-list";
+import { DataAge } from "../../season/_components/data-age";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 
 /** The Coach desk: the roster (each granting pilot, one tap into their Season) and the one-time code box. */
@@ -38,7 +39,7 @@ export function CoachDesk() {
       <section aria-labelledby="roster-h" className="space-y-2">
         <h2 id="roster-h" className="text-lg font-bold">Your pilots</h2>
         {roster.isPending ? <p className="text-muted">Loading your pilots…</p> : null}
-        {roster.isError ? <p className="text-muted">{roster.error.message}</p> : null}
+        <DataAge query={roster} what="roster" />
         {roster.data ? (
           roster.data.pilots.length === 0 ? (
             <p>No pilot lets you see their season yet. A pilot offers it from their Settings, by your e-mail or a one-time code.</p>
@@ -50,8 +51,8 @@ export function CoachDesk() {
       <section aria-labelledby="plans-h" className="space-y-2" id="plans">
         <h2 id="plans-h" className="text-lg font-bold">Practice plans</h2>
         {plans.isPending ? <p className="text-muted">Loading your plans…</p> : null}
-        {plans.isError ? <p className="text-muted">{plans.error.message}</p> : null}
-        {plans.data ? <PlanList plans={plans.data.plans} /> : null}
+        <DataAge query={plans} what="plans" />
+        {plans.data ? <PlanList plans={plans.data.plans} pilots={roster.data?.pilots ?? []} now={plans.dataUpdatedAt} /> : null}
         {roster.data && roster.data.pilots.length > 0 ? (
           <details>
             <summary className="flex min-h-touch cursor-pointer items-center font-bold">Build a plan</summary>
