@@ -131,14 +131,10 @@ async function sendEvent(session: Session, type: string, object: Obj): Promise<v
   await deliver(sent);
 }
 
-const publicSession = (s: Session) => {
-  const { product: _p, intent_metadata: _m, declined: _d, ...rest } = s;
-  return rest;
-};
-const publicPayment = (p: Payment) => {
-  const { session: _s, refunded: _r, charge: _c, ...rest } = p;
-  return { ...rest, latest_charge: p.charge, amount_received: p.status === "succeeded" ? p.amount : 0 };
-};
+/** The fields the API shows (the rest is the fake's own bookkeeping). */
+const pick = <T extends Obj>(o: T, hidden: string[]) => Object.fromEntries(Object.entries(o).filter(([k]) => !hidden.includes(k)));
+const publicSession = (s: Session) => pick(s, ["product", "intent_metadata", "declined"]);
+const publicPayment = (p: Payment) => ({ ...pick(p, ["session", "refunded", "charge"]), latest_charge: p.charge, amount_received: p.status === "succeeded" ? p.amount : 0 });
 
 function createSession(res: ServerResponse, f: Obj): void {
   const item = ((f.line_items as Obj | undefined)?.["0"] ?? {}) as Obj;
