@@ -5,13 +5,19 @@ import type { Database } from "../index";
 import { saveDraw } from "../queries/contest-draw";
 import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
+import { seedDemoFees } from "./demo-fees";
 
 const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
 const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway"];
 
-/** A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked. */
+/** A coming demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed 20261212), not locked; with an entry fee (demo-fees.ts). */
 export async function seedDemoContest(db: Database): Promise<void> {
+  await seedContest(db);
+  await seedDemoFees(db, NAME);
+}
+
+async function seedContest(db: Database): Promise<void> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (!club) return;
   const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));
