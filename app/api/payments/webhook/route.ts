@@ -2,16 +2,16 @@
 // STRIPE_WEBHOOK_SECRET; public by design: the signature is the credential. Each event id is applied once.
 import { db } from "@/db";
 import { applyPaymentEvent } from "@/db/queries/contest-payments";
-import { readBody, route } from "@/lib/api";
+import { BODY_LIMIT, readBody, route } from "@/lib/api";
 import { AppError } from "@/lib/errors";
 import { changeOf, eventHeadSchema } from "@/lib/payments/events";
 import { verifiedEvent } from "@/lib/payments/server/stripe";
 
 export const dynamic = "force-dynamic";
 
-/** 400 a missing, wrong or stale signature (nothing read further) or an event of another shape; 200 with what it did (a redelivery: "duplicate"). */
+/** 413 over 64 kB, 400 a missing, wrong or stale signature (nothing read further) or an event of another shape; 200 with what it did (a redelivery: "duplicate"). */
 export const POST = route(async (request: Request) => {
-  const body = await readBody(request, 256 * 1024);
+  const body = await readBody(request, BODY_LIMIT.default);
   const event = verifiedEvent(body, request.headers.get("stripe-signature"));
   if (!event) throw new AppError("bad_signature", "The payment event's signature does not verify.", 400);
   const head = eventHeadSchema.safeParse(event);
