@@ -58,6 +58,8 @@ try {
 }
 function save(): void {
   state.events = state.events.slice(-500);
+  const keys = Object.keys(state.idempotent);
+  for (const k of keys.slice(0, Math.max(0, keys.length - 1000))) delete state.idempotent[k];
   writeFileSync(`${file}.tmp`, JSON.stringify(state));
   renameSync(`${file}.tmp`, file);
 }
