@@ -166,6 +166,27 @@ describe("entry fees through the payments fake and the webhook", () => {
     expect(await reply(await enterRoute(json({ modelIds: [] }), ctx({ contestId })))).toMatchObject({ status: 409, body: { error: { code: "entries_closed" } } });
   });
 
+  it("a pilot withdraws their own entry before entries close and gets the card payment back; nobody else's, and not after the deadline", async () => {
+    const { cast, contestId } = await feeContest();
+    const { entryId, checkoutUrl } = await enter(cast, contestId);
+    await pressOnPage(checkoutUrl, "pay");
+    await deliver((await lastEvent(entryId, "checkout.session.completed")).body);
+    actAs(cast.coachWithGrant); // a member of the club, not the entry's pilot
+    expect((await withdrawRoute(del(), ctx({ contestId, entryId }))).status).toBe(403);
+    expect((await entry(entryId)).withdrawnAt).toBeNull();
+    actAs(cast.otherPilot);
+    expect(await reply(await withdrawRoute(del(), ctx({ contestId, entryId })))).toMatchObject({ status: 200, body: { withdrawn: true, refunded: true } });
+    expect((await entry(entryId)).paymentStatus).toBe("refunded");
+    expect((await eventsFor(entryId)).filter((e) => e.type === "charge.refunded")).toHaveLength(1);
+
+    const late = await feeContest();
+    const second = await enter(late.cast, late.contestId);
+    await db.update(contests).set({ entriesCloseAt: new Date(Date.now() - 60_000) }).where(eq(contests.id, late.contestId));
+    actAs(late.cast.otherPilot);
+    expect(await reply(await withdrawRoute(del(), ctx({ contestId: late.contestId, entryId: second.entryId })))).toMatchObject({ status: 409, body: { error: { code: "entries_closed" } } });
+    expect((await entry(second.entryId)).withdrawnAt).toBeNull();
+  });
+
   it("the officer marks an unpaid entry paid in cash once; a member may not; another pilot cannot start paying someone's entry", async () => {
     const { cast, contestId } = await feeContest();
     const { entryId } = await enter(cast, contestId);

@@ -6,7 +6,7 @@ import { getContest, listSlots } from "@/db/queries/contests";
 import { listModels } from "@/db/queries/models";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { formatDate } from "@/lib/format";
-import { entriesOpen, formatFee, paymentLabel } from "@/lib/payments/fees";
+import { entriesOpen, formatFee, paymentLabel, refundOnWithdrawal } from "@/lib/payments/fees";
 import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
@@ -71,7 +71,10 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
             </li>
           ))}
         </ul>
-        {mine ? <><p>You are entered.</p><MyFee contest={contest} mine={mine} returned={returned} /></>
+        {mine ? <><p>You are entered.</p><MyFee contest={contest} mine={mine} returned={returned} />
+          {open && contest.drawLockedAt === null && (
+            <p><ActionButton label={refundOnWithdrawal(mine, contest, new Date()) ? "Withdraw my entry (the card payment is refunded)" : "Withdraw my entry"} method="DELETE" url={`/api/contests/${contestId}/entries/${mine.id}`} /></p>
+          )}</>
           : open ? <EnterForm contestId={contestId} models={models} fee={contest.entryFeeCents === null ? null : formatFee(contest.entryFeeCents, contest.currency)} />
           : <p>Entries are closed.</p>}
         {officer && <PaperEntryForm contestId={contestId} />}
