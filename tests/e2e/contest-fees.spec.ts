@@ -6,7 +6,7 @@ import { signInAs } from "./support/auth";
  * Entry fees (issue 15) through the local payments fake (scripts/payments-server.ts, started beside the
  * app by the test scripts): Ines (Heronmoor's officer) sets up a contest with a fee; Ada enters, her
  * card is declined on the payments page, she comes back and pays on the retry; the webhook marks the
- * entry paid and Ines sees it; Ines marks a paper entry's cash and withdraws Ada before entries close
+ * entry paid and Ines sees it; Tobi pays and withdraws himself (refunded); Ines marks a paper entry's cash and withdraws Ada before entries close
  * (refunded). On a 360 px phone; axe finds nothing serious on the contest page or the payments parts.
  */
 test.use({ viewport: { width: 360, height: 800 } });
@@ -60,8 +60,19 @@ test("a pilot enters a paid contest: the first payment fails, the retry succeeds
   await expect(fee.getByRole("button")).toHaveCount(0);
   expect(new URL(ada.url()).searchParams.get("payment")).toBe("done");
 
+  // another pilot pays at once, then withdraws before entries close: the card payment comes back
+  const tobi = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
+  await signInAs(tobi, "tobi@example.com");
+  await tobi.goto(contestUrl);
+  await tobi.getByRole("button", { name: "Enter and pay" }).click();
+  await tobi.getByRole("button", { name: "Pay 12.50 EUR" }).click();
+  await expect(tobi.getByRole("group", { name: "Your entry fee" })).toContainText("paid by card");
+  await tobi.getByRole("button", { name: "Withdraw my entry (the card payment is refunded)" }).click();
+  await expect(tobi.getByRole("button", { name: "Enter and pay" })).toBeVisible();
+
   // the officer sees the entry paid
   await page.reload();
+  await expect(page.getByRole("list", { name: "Withdrawn entries" })).toContainText("Tobi Okafor · refunded");
   await expect(page.getByRole("list", { name: "Entries", exact: true })).toContainText("Ada Fenwick · paid by card");
   const fees = page.getByRole("region", { name: "Entry fees" });
   await expect(fees).toContainText("1 of 1 entries paid · 12.50 EUR taken");
