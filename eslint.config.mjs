@@ -39,7 +39,8 @@ export default defineConfig([
     files: ["lib/**/*.ts"],
     // lib/mail/server/ sends mail (SMTP connection, queue drain, timer): server I/O guarded by server-only, like lib/auth.
     // lib/storage/server/ talks to object storage (S3 client, presigned URLs): server I/O guarded by server-only too.
-    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**", "lib/mail/server/**", "lib/storage/server/**"],
+    // lib/payments/server/ talks to the payments service (the stripe SDK, webhook signatures): server I/O guarded by server-only too.
+    ignores: ["lib/auth/**", "lib/query/**", "lib/offline/**", "lib/mail/server/**", "lib/storage/server/**", "lib/payments/server/**"],
     rules: {
       "no-restricted-imports": [
         "error",

@@ -12,6 +12,7 @@ bash scripts/db.sh up 9>&-
 ensure_env_file
 mail_up 9>&-
 s3_up 9>&-
+payments_up 9>&-
 trap fakes_stop_if_started EXIT
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_e2e)"
 export E2E_PORT="${E2E_PORT:-$(free_port 3410)}"

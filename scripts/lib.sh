@@ -64,6 +64,10 @@ ensure_env_file() {
   # Object storage (altimeter logs): the bucket and region; an older .env gets them added once.
   # S3_ENDPOINT and keys come from s3_up (the local fake) unless this file names a real service.
   grep -q '^S3_BUCKET=' .env || printf 'S3_BUCKET=windowcall-logs\nS3_REGION=us-east-1\n' >> .env
+  # Entry fees: a test key and a fresh webhook secret shared by the app and the local payments fake (payments_up).
+  # Production sets STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET of the real account and no STRIPE_API_URL.
+  grep -q '^STRIPE_SECRET_KEY=' .env || printf 'STRIPE_SECRET_KEY=sk_test_windowcall_local\nSTRIPE_WEBHOOK_SECRET=whsec_%s\n' \
+    "$(node -e 'console.log(require("crypto").randomBytes(24).toString("hex"))')" >> .env
   set -a; . ./.env; set +a
 }
 
@@ -141,5 +145,41 @@ s3_stop_if_started() {
     S3_STARTED=0
   fi
 }
-# Stops both local fakes this script started (an EXIT trap).
-fakes_stop_if_started() { mail_stop_if_started; s3_stop_if_started; }
+# The local payments fake (scripts/payments-server.ts) for this checkout, on 127.0.0.1, with its state in
+# .data/payments: started once and reused while it runs (pid and port in .data/payments-server). Exports
+# STRIPE_API_URL (the SDK's host, port and protocol come from it) unless it is already set or the key is a
+# live one (the real service). PAYMENTS_STARTED=1 when this call started it (stop it with payments_stop_if_started).
+PAY_RUN="$ROOT/.data/payments-server"
+PAYMENTS_STARTED=0
+payments_running() {
+  [ -f "$PAY_RUN/server.pid" ] && [ -f "$PAY_RUN/port" ] && kill -0 "$(cat "$PAY_RUN/server.pid")" 2>/dev/null &&
+    port_in_use "$(cat "$PAY_RUN/port")"
+}
+payments_up() {
+  [ -n "${STRIPE_API_URL:-}" ] && return 0
+  case "${STRIPE_SECRET_KEY:-}" in sk_live_*) return 0 ;; esac
+  [ -n "${STRIPE_SECRET_KEY:-}" ] && [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are not set (ensure_env_file writes local ones)"
+  mkdir -p "$PAY_RUN"
+  if ! payments_running; then
+    local port i
+    port="$(free_port "${WINDOWCALL_PAYMENTS_PORT:-4580}")"
+    PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments" \
+      setsid node --import tsx scripts/payments-server.ts >"$PAY_RUN/server.log" 2>&1 </dev/null 9>&- &
+    echo $! > "$PAY_RUN/server.pid"
+    echo "$port" > "$PAY_RUN/port"
+    for i in $(seq 1 100); do port_in_use "$port" && break; sleep 0.1; done
+    port_in_use "$port" || { cat "$PAY_RUN/server.log" >&2; die "the local payments fake did not start"; }
+    PAYMENTS_STARTED=1
+    say "local payments fake: http://127.0.0.1:$port"
+  fi
+  export STRIPE_API_URL="http://127.0.0.1:$(cat "$PAY_RUN/port")"
+}
+payments_stop_if_started() {
+  if [ "$PAYMENTS_STARTED" = 1 ] && [ -f "$PAY_RUN/server.pid" ]; then
+    kill -TERM "$(cat "$PAY_RUN/server.pid")" 2>/dev/null || true
+    rm -f "$PAY_RUN/server.pid" "$PAY_RUN/port"
+    PAYMENTS_STARTED=0
+  fi
+}
+# Stops the local fakes this script started (an EXIT trap).
+fakes_stop_if_started() { mail_stop_if_started; s3_stop_if_started; payments_stop_if_started; }

@@ -13,6 +13,7 @@ export DATABASE_URL="$(bash scripts/db.sh url windowcall)"
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 # Mail goes to the local SMTP fake unless SMTP_URL (environment or .env) names a real server.
 [ -z "${SMTP_URL:-}" ] && mail_up
+payments_up # entry fees go to the local payments fake unless STRIPE_API_URL or a live key says otherwise
 s3_up # altimeter logs go to the local object server unless S3_ENDPOINT names a real one
 trap fakes_stop_if_started EXIT # also when a step below fails
 npx tsx scripts/migrate.ts

@@ -11,6 +11,7 @@ bash scripts/db.sh up
 ensure_env_file
 mail_up # tests always send to the local SMTP fake
 s3_up
+payments_up # entry fees go to the local payments fake
 trap fakes_stop_if_started EXIT
 
 ADMIN_URL="$(bash scripts/db.sh url postgres)"

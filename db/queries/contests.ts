@@ -11,9 +11,9 @@ export type EntryRow = typeof contestEntries.$inferSelect;
 
 /** Creates a contest with its rounds (each round's whole catalogue task stored, tagged with its edition). */
 export async function createContest(db: Database, p: { clubId: string; userId: string; input: CreateContestInput }): Promise<ContestRow> {
-  const { rounds, ...rest } = p.input;
+  const { rounds, entriesCloseAt, ...rest } = p.input;
   return db.transaction(async (tx) => {
-    const [row] = await tx.insert(contests).values({ ...rest, clubId: p.clubId, createdBy: p.userId, status: "open" }).returning();
+    const [row] = await tx.insert(contests).values({ ...rest, entriesCloseAt: entriesCloseAt === null ? null : new Date(entriesCloseAt), clubId: p.clubId, createdBy: p.userId, status: "open" }).returning();
     await tx.insert(contestRounds).values(rounds.map((r, i) => ({ contestId: row!.id, number: i + 1, task: getCatalogueTask(r.letter) })));
     return row!;
   });

@@ -29,6 +29,8 @@ export const contests = pgTable(
     /** Entry fee in the smallest currency unit; null = free. */
     entryFeeCents: integer("entry_fee_cents"),
     currency: text("currency").notNull().default("eur"),
+    /** Entries close (and a withdrawal is refunded only) before this instant; null = until the contest day. */
+    entriesCloseAt: timestamp("entries_close_at", { withTimezone: true }),
     /** Largest group the officer can staff (lanes, timekeepers); lib/contests/groups.ts plans the sizes. */
     maxGroupSize: smallint("max_group_size").notNull().default(10),
     prepMinutes: smallint("prep_minutes").notNull().default(5),
@@ -59,7 +61,11 @@ export const contestEntries = pgTable(
     pilotName: text("pilot_name").notNull(),
     team: text("team"),
     paymentStatus: paymentStatusEnum("payment_status").notNull().default("pending"),
+    /** The card payment's id at the payments service (refunds name it), or "cash" when the officer marked it paid. */
     paymentRef: text("payment_ref"),
+    paidAt: timestamp("paid_at", { withTimezone: true }),
+    /** The officer who marked a cash payment. */
+    paymentMarkedBy: uuid("payment_marked_by").references(() => users.id, { onDelete: "set null" }),
     /** Up to five models from the pilot's hangar (F3K.2.3): [{ id, name }] as entered. */
     models: jsonb("models").$type<{ id: string | null; name: string }[]>().notNull().default([]),
     /** Entries sharing this word (a timekeeper, a helper, a family) never fly in one group. */
@@ -110,3 +116,11 @@ export const groupSlots = pgTable(
   },
   (t) => [unique("group_slots_round_entry_uq").on(t.roundId, t.entryId)],
 );
+
+/** Webhook events of the payments service already applied, by the service's event id: a redelivery changes nothing. */
+export const paymentEvents = pgTable("payment_events", {
+  id: text("id").primaryKey(),
+  type: text("type").notNull(),
+  entryId: uuid("entry_id").references(() => contestEntries.id, { onDelete: "set null" }),
+  receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+});

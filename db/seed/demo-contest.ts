@@ -7,6 +7,7 @@ import { swapInRound } from "../queries/contest-draw-changes";
 import { clubs, contestEntries, contestRounds, contests, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
 import { seedDemoResults } from "./demo-results";
+import { seedDemoFees } from "./demo-fees";
 
 const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
@@ -14,10 +15,16 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
 
 /**
  * A demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed
- * 20261212), not locked; rounds 1–3 with results (./demo-results.ts); in round 5 the officer had
- * Gus Wendle trade groups with a pilot of another group (a change of the draw, listed under it).
+ * 20261212), not locked; with an entry fee (demo-fees.ts); rounds 1–3 with results
+ * (./demo-results.ts); in round 5 the officer had Gus Wendle trade groups with a pilot of another
+ * group (a change of the draw, listed under it).
  */
 export async function seedDemoContest(db: Database): Promise<void> {
+  await seedContest(db);
+  await seedDemoFees(db, NAME);
+}
+
+async function seedContest(db: Database): Promise<void> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
   if (!club) return;
   const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));

@@ -5,8 +5,12 @@
  * user's cookies; SameSite cookies are the only other guard. Every state-changing /api request
  * must therefore say it is JSON (which a cross-site page cannot send without a CORS preflight we
  * never answer) and come from this very origin. next-auth's own endpoints (/api/auth/*) are left
- * to next-auth, which checks its own CSRF token on form posts.
+ * to next-auth, which checks its own CSRF token on form posts; the payments webhook is sent by the
+ * payments service, not a browser, and checks its signature instead (app/api/payments/webhook).
  */
+
+/** Writes that come from a server, not a page of ours: each route authenticates them itself. */
+const SERVER_TO_SERVER = new Set(["/api/payments/webhook"]);
 
 /** The part of `Headers` read here. */
 export type HeaderReader = Pick<Headers, "get">;
@@ -19,6 +23,7 @@ const WRITE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);
 export function isGuardedWrite(method: string, pathname: string): boolean {
   if (!WRITE_METHODS.has(method.toUpperCase())) return false;
   if (pathname !== "/api" && !pathname.startsWith("/api/")) return false;
+  if (SERVER_TO_SERVER.has(pathname)) return false;
   return pathname !== "/api/auth" && !pathname.startsWith("/api/auth/");
 }
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { CURRENCIES, MAX_FEE_CENTS, MIN_FEE_CENTS } from "@/lib/payments/fees";
 import { taskLetterSchema } from "@/lib/tasks/definition";
 import { text } from "./bounds";
 import { calendarDaySchema } from "./calendar-day";
@@ -13,6 +14,14 @@ export const createContestSchema = z.object({
   noFlySeconds: z.number().int().min(0).max(600),
   dropRule: z.enum(["f3k", "none"]),
   practice: z.boolean(),
+  /** The entry fee in cents (null or absent: free) and the instant entries close (refunds only before it). */
+  entryFeeCents: z.number().int("Give the fee in whole cents.").min(MIN_FEE_CENTS, "An entry fee is at least 0.50.").max(MAX_FEE_CENTS, "An entry fee is at most 1000.00.").nullable().default(null),
+  currency: z.enum(CURRENCIES, "Choose a currency from the list.").default("eur"),
+  entriesCloseAt: z.iso.datetime({ offset: true, message: "Give the closing time as a date and time." }).nullable().default(null)
+    .refine((s) => s === null || (Date.parse(s) > Date.parse("2000-01-01T00:00:00Z") && Date.parse(s) < Date.parse("2200-01-01T00:00:00Z")), "Entries close between 2000 and 2200."),
+}).superRefine((c, ctx) => {
+  if (c.entryFeeCents !== null && c.entriesCloseAt === null) ctx.addIssue({ code: "custom", path: ["entriesCloseAt"], message: "A contest with an entry fee needs the time entries close (withdrawals before it are refunded)." });
+  if (c.entriesCloseAt !== null && Date.parse(c.entriesCloseAt) > Date.parse(`${c.startsOn}T23:59:59Z`) + 14 * 3600_000) ctx.addIssue({ code: "custom", path: ["entriesCloseAt"], message: "Entries close on the contest day at the latest." });
 });
 export type CreateContestInput = z.infer<typeof createContestSchema>;
 

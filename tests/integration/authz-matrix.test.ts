@@ -291,6 +291,10 @@ const ROWS: Record<string, Row> = {
   "POST /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.linkMade, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "DELETE /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast, true, true), check: contest.linkRevoked, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "GET /api/public-results/[token]": publicByDesign("the officer's unguessable results link (32 random bytes) publishes the standings without an account; revoked → 404 (tests/integration/contest-results.test.ts)"),
+  // Entry fees (issue 15): the entry's own pilot pays (a Checkout session at the local fake); the officer marks cash
+  "POST /api/contests/[contestId]/entries/[entryId]/checkout": { params: (cast) => contest.feeContestOfOwnersClub(cast), cast: "fresh", expect: contest.OWN_ENTRY(201) },
+  "POST /api/contests/[contestId]/entries/[entryId]/cash": { params: (cast) => contest.feeContestOfOwnersClub(cast), check: contest.cashReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "POST /api/payments/webhook": publicByDesign("the payments service's events: the signature (STRIPE_WEBHOOK_SECRET) is the credential; a missing or bad one is a 400 (payments-webhook.test.ts)"),
   "GET /api/club-fields": signedIn({ check: (ctx, res) => club.onlyOwnClubsFields(ctx.user.id, res) }),
 };
 

@@ -9,6 +9,7 @@ import { clubs, memberships, users } from "@/db/schema";
 import { BODY_LIMIT } from "@/lib/api";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
+import { webhookRequest } from "./support/payments";
 import { db, getPool } from "./support/db";
 
 /**
@@ -56,6 +57,9 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/contests": { POST: "json" },
   "/api/contests/[contestId]/entries": { POST: "json" },
   "/api/contests/[contestId]/entries/[entryId]": { DELETE: "none" },
+  "/api/contests/[contestId]/entries/[entryId]/checkout": { POST: "none" },
+  "/api/contests/[contestId]/entries/[entryId]/cash": { POST: "none" },
+  "/api/payments/webhook": { POST: "json" },
   "/api/contests/[contestId]/paper-entries": { POST: "json" },
   "/api/contests/[contestId]/draw": { POST: "json" },
   "/api/contests/[contestId]/draw/lock": { POST: "none" },
@@ -145,7 +149,12 @@ const evilValue = fc.oneof(
 function template(path: string, userId: string): Record<string, unknown> {
   if (path === "/api/time") return { t1: Date.now() };
   if (path === "/api/clubs/[slug]/contests") {
-    return { name: "Fuzz Cup", startsOn: "2027-02-06", fieldName: "Fuzz Meadow", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })), maxGroupSize: 10, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false };
+    return { name: "Fuzz Cup", startsOn: "2027-02-06", fieldName: "Fuzz Meadow", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })), maxGroupSize: 10, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false, entryFeeCents: 1500, currency: "eur", entriesCloseAt: "2027-02-04T18:00:00Z" };
+  }
+  // a payment event for an entry nobody has (signed when the run is "signed in": see below); 200 and recorded, or 400
+  if (path === "/api/payments/webhook") {
+    return { id: `evt_fuzz_${uuidv7().replace(/-/g, "")}`, object: "event", type: "checkout.session.completed",
+      data: { object: { client_reference_id: uuidv7(), payment_status: "paid", payment_intent: "pi_fuzz", amount_total: 1500, currency: "eur", metadata: { entryId: uuidv7() } } } };
   }
   if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
   if (path.endsWith("/entries")) return { modelIds: [] };
@@ -210,6 +219,8 @@ function template(path: string, userId: string): Record<string, unknown> {
     clockEstimates: [offset],
   };
 }
+
+const signWebhook = (body: string) => webhookRequest(body).headers.get("stripe-signature")!;
 
 /** Every path to a value inside `v` (objects and arrays), the root included; `leaves` keeps only primitives. */
 function paths(v: unknown, leaves: boolean, at: (string | number)[] = []): (string | number)[][] {
@@ -325,7 +336,10 @@ describe("fuzz: every route under app/api", () => {
             if (input === "json") {
               const body = bodyText(shape as Body, template(path, user.id));
               bytes = new TextEncoder().encode(body).length;
-              request = new Request(`http://test${path}`, { method, body, headers: contentType ? { "content-type": contentType } : {} });
+              const headers: Record<string, string> = contentType ? { "content-type": contentType } : {};
+              // the payments webhook has no session: its credential is the signature, given on the runs that are "signed in"
+              if (path === "/api/payments/webhook" && signedIn) headers["stripe-signature"] = signWebhook(body);
+              request = new Request(`http://test${path}`, { method, body, headers });
             } else {
               const qs = new URLSearchParams(shape as [string, string][]).toString();
               request = new Request(`http://test${path}${qs ? `?${qs}` : ""}`, { method });

@@ -95,3 +95,24 @@ export async function entryReturns(): Promise<void> {
   expect(row?.withdrawnAt).toBeInstanceOf(Date);
   await db.update(contestEntries).set({ withdrawnAt: null }).where(eq(contestEntries.id, entryId));
 }
+
+/** The same contest with an entry fee (entries close in a week) and an unpaid entry of the owner's own, for the payment rows. */
+export async function feeContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const { contestId } = await contestOfOwnersClub(cast);
+  await db.update(contests).set({ entryFeeCents: 1500, currency: "eur", entriesCloseAt: new Date(Date.now() + 7 * 86_400_000) }).where(eq(contests.id, contestId!));
+  const [own] = await db.insert(contestEntries).values({ contestId: contestId!, pilotUserId: cast.owner.id, pilotName: cast.owner.name }).returning();
+  entryId = own!.id;
+  return { contestId: contestId!, entryId };
+}
+
+/** Only the entry's own pilot starts paying it: the owner; every other actor finds no such entry. */
+export const OWN_ENTRY = (ok: number): Record<Actor, number> => ({
+  signedOut: 401, owner: ok, otherPilot: 404, coachWithGrant: 404, coachWithoutGrant: 404, officerOtherClub: 404, admin: 404,
+});
+
+/** After a 2xx cash marking: the entry is paid in cash; unpaid again for the next actor. */
+export async function cashReturns(): Promise<void> {
+  const [row] = await db.select().from(contestEntries).where(eq(contestEntries.id, entryId));
+  expect([row?.paymentStatus, row?.paymentRef]).toEqual(["paid", "cash"]);
+  await db.update(contestEntries).set({ paymentStatus: "pending", paymentRef: null, paidAt: null, paymentMarkedBy: null }).where(eq(contestEntries.id, entryId));
+}

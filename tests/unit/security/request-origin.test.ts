@@ -17,6 +17,11 @@ describe("isGuardedWrite", () => {
     expect(isGuardedWrite("POST", "/apis")).toBe(false);
     expect(isGuardedWrite("POST", "/settings")).toBe(false);
   });
+  it("leaves the payments webhook to its signature check (the payments service sends no Origin), and only that path", () => {
+    expect(isGuardedWrite("POST", "/api/payments/webhook")).toBe(false);
+    expect(isGuardedWrite("POST", "/api/payments/webhook/x")).toBe(true);
+    expect(isGuardedWrite("POST", "/api/payments")).toBe(true);
+  });
 });
 
 describe("ownOrigin", () => {

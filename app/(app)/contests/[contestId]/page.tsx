@@ -3,15 +3,22 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listDrawChanges } from "@/db/queries/contest-draw-changes";
+import { applyPaymentChange } from "@/db/queries/contest-payments";
 import { getContest, listSlots } from "@/db/queries/contests";
 import { listModels } from "@/db/queries/models";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { formatDate } from "@/lib/format";
+import { entriesOpen, formatFee, paymentLabel, refundOnWithdrawal } from "@/lib/payments/fees";
+import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
 import { ActionButton, EnterForm, PaperEntryForm } from "./_components/actions";
 import { DrawChangeList, DrawChanges } from "./_components/draw-changes";
 import { DrawLists } from "./_components/draw-lists";
+import { MyFee, OfficerFees } from "./_components/fees";
+
+const closing = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
+type Search = Promise<{ payment?: string | string[]; session_id?: string | string[] }>;
 
 const changedAt = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 
@@ -19,17 +26,27 @@ export const metadata: Metadata = { title: "Contest" };
 export const dynamic = "force-dynamic";
 
 /** A contest: its set-up, entries (the officer adds paper entries and withdraws), the draw per round. */
-export default async function ContestPage({ params }: { params: Promise<{ contestId: string }> }) {
+export default async function ContestPage({ params, searchParams }: { params: Promise<{ contestId: string }>; searchParams: Search }) {
   const parsed = contestIdSchema.safeParse(await params);
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}` });
   const found = await getContest(db, contestId);
   if (!found) notFound();
-  const { contest, rounds, entries } = found;
+  const { contest, rounds } = found;
+  let { entries } = found;
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
+  const search = await searchParams;
+  const returned = search.payment === "done" ? "done" : search.payment === "cancelled" ? "cancelled" : null;
+  const ownEntry = entries.find((e) => !e.withdrawnAt && e.pilotUserId === me.id);
+  // back from paying: ask the payments service about this session (the webhook may not have arrived yet); the same rule applies
+  if (ownEntry && returned === "done" && typeof search.session_id === "string" && /^cs_\w{1,200}$/.test(search.session_id) && ownEntry.paymentStatus !== "paid") {
+    const change = await sessionChange(search.session_id, ownEntry.id).catch(() => null);
+    if (change && (await applyPaymentChange(db, change))) entries = (await getContest(db, contestId))?.entries ?? entries;
+  }
   const live = entries.filter((e) => !e.withdrawnAt);
   const mine = live.find((e) => e.pilotUserId === me.id);
+  const open = entriesOpen(contest, new Date());
   const models = mine ? [] : (await listModels(db, { ownerId: me.id })).filter((m) => m.status !== "retired").map((m) => ({ id: m.id, name: m.name }));
   const slots = contest.drawSeed === null ? [] : await listSlots(db, contestId);
   const changes = contest.drawSeed === null ? [] : await listDrawChanges(db, contestId);
@@ -44,6 +61,10 @@ export default async function ContestPage({ params }: { params: Promise<{ contes
           <Link className="inline-flex min-h-12 items-center font-bold underline" href={`/contests/${contestId}/results`}>Results</Link>
           <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/sheets`}>Group lists and scoresheets</Link>
         </p>
+        {(contest.entryFeeCents !== null || contest.entriesCloseAt) && (
+          <p>{contest.entryFeeCents !== null ? `Entry fee ${formatFee(contest.entryFeeCents, contest.currency)}` : "No entry fee"}
+            {contest.entriesCloseAt && ` · entries close ${closing.format(contest.entriesCloseAt)} UTC${contest.entryFeeCents !== null ? " (withdrawals before then are refunded)" : ""}`}</p>
+        )}
         <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"}</p>
       </header>
       <section aria-labelledby="rounds" className="space-y-2">
@@ -61,13 +82,20 @@ export default async function ContestPage({ params }: { params: Promise<{ contes
         <ul aria-label="Entries" className="space-y-1">
           {live.map((e) => (
             <li key={e.id}>{e.pilotName}{e.paper ? " (paper)" : ""}{e.models.length > 0 ? ` · ${e.models.map((m) => m.name).join(", ")}` : ""}
+              {officer && contest.entryFeeCents !== null && ` · ${paymentLabel(e)}`}
               {officer && contest.drawLockedAt === null && <> · <ActionButton label={`Withdraw ${e.pilotName}`} method="DELETE" url={`/api/contests/${contestId}/entries/${e.id}`} /></>}
             </li>
           ))}
         </ul>
-        {mine ? <p>You are entered.</p> : <EnterForm contestId={contestId} models={models} />}
+        {mine ? <><p>You are entered.</p><MyFee contest={contest} mine={mine} returned={returned} />
+          {open && contest.drawLockedAt === null && (
+            <p><ActionButton label={refundOnWithdrawal(mine, contest, new Date()) ? "Withdraw my entry (the card payment is refunded)" : "Withdraw my entry"} method="DELETE" url={`/api/contests/${contestId}/entries/${mine.id}`} /></p>
+          )}</>
+          : open ? <EnterForm contestId={contestId} models={models} fee={contest.entryFeeCents === null ? null : formatFee(contest.entryFeeCents, contest.currency)} />
+          : <p>Entries are closed.</p>}
         {officer && <PaperEntryForm contestId={contestId} />}
       </section>
+      {officer && <OfficerFees contest={contest} entries={entries} />}
       <section aria-labelledby="draw" className="space-y-2">
         <h2 id="draw" className="text-lg font-bold">The draw</h2>
         {contest.drawSeed === null ? <p className="text-muted">Not drawn yet.</p> : <p>Seed {contest.drawSeed}{contest.drawLockedAt ? " · locked" : ""}</p>}

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { sendJson } from "@/app/(app)/clubs/_components/send-json";
 import { checkSetup } from "@/lib/contests/setup";
+import { CURRENCIES } from "@/lib/payments/fees";
 
 const LETTERS = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "N"];
 const input = "mt-1 block w-full rounded-lg border border-line bg-raised p-2";
@@ -20,6 +21,9 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
   const [noFlySeconds, setNoFlySeconds] = useState(60);
   const [dropRule, setDropRule] = useState<"f3k" | "none">("f3k");
   const [practice, setPractice] = useState(false);
+  const [fee, setFee] = useState("");
+  const [currency, setCurrency] = useState<string>("eur");
+  const [closesAt, setClosesAt] = useState("");
   const [error, setError] = useState<string | null>(null);
   const check = checkSetup({ rounds: rounds.map((letter) => ({ letter })), practice, prepMinutes, noFlySeconds });
 
@@ -27,6 +31,9 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
     e.preventDefault();
     const reply = await sendJson<{ contest: { id: string } }>("POST", `/api/clubs/${slug}/contests`, {
       name, startsOn, fieldName, rounds: rounds.map((letter) => ({ letter })), maxGroupSize, prepMinutes, noFlySeconds, dropRule, practice,
+      // the fee in cents; the closing time in this device's time zone, sent as an instant
+      entryFeeCents: fee.trim() === "" ? null : Math.round(Number(fee) * 100), currency,
+      entriesCloseAt: closesAt === "" || Number.isNaN(new Date(closesAt).getTime()) ? null : new Date(closesAt).toISOString(),
     });
     if (reply.ok) router.push(`/contests/${reply.data.contest.id}`);
     else setError(reply.issues?.map((i) => i.message).join(" ") || reply.message);
@@ -64,6 +71,14 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
           <option value="none">Every round counts</option>
         </select>
       </label>
+      <fieldset className="space-y-2">
+        <legend className="font-bold">Entry fee</legend>
+        <label className="block">Entry fee (empty: free)<input className={input} type="number" inputMode="decimal" min={0.5} max={1000} step={0.01} value={fee} onChange={(e) => setFee(e.target.value)} /></label>
+        <label className="block">Currency
+          <select className={input} value={currency} onChange={(e) => setCurrency(e.target.value)}>{CURRENCIES.map((c) => <option key={c} value={c}>{c.toUpperCase()}</option>)}</select>
+        </label>
+        <label className="block">Entries close (withdrawals before then are refunded)<input className={input} type="datetime-local" value={closesAt} onChange={(e) => setClosesAt(e.target.value)} /></label>
+      </fieldset>
       <label className="flex items-center gap-2"><input type="checkbox" checked={practice} onChange={(e) => setPractice(e.target.checked)} />Practice event (the rules only warn)</label>
       {[...check.errors, ...check.warnings].length > 0 && (
         <ul aria-label="Rule checks" className="list-disc pl-5 text-sm">{[...check.errors, ...check.warnings].map((m) => <li key={m}>{m}</li>)}</ul>

@@ -8,8 +8,10 @@ function useAction() {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   async function run(method: "POST" | "DELETE", url: string, body?: unknown) {
-    const reply = await sendJson(method, url, body);
-    if (reply.ok) { setMessage(null); router.refresh(); } else setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
+    const reply = await sendJson<{ checkoutUrl?: string | null }>(method, url, body);
+    // an entry with a fee goes on to the payments service's page, and comes back here
+    if (reply.ok && reply.data?.checkoutUrl) window.location.assign(reply.data.checkoutUrl);
+    else if (reply.ok) { setMessage(null); router.refresh(); } else setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
   }
   return { message, run };
 }
@@ -17,7 +19,7 @@ function useAction() {
 const Alert = ({ message }: { message: string | null }) => (message ? <p role="alert" className="text-danger">{message}</p> : null);
 
 /** A pilot enters, ticking up to five models of their hangar (F3K.2.3). */
-export function EnterForm({ contestId, models }: { contestId: string; models: { id: string; name: string }[] }) {
+export function EnterForm({ contestId, models, fee }: { contestId: string; models: { id: string; name: string }[]; fee: string | null }) {
   const { message, run } = useAction();
   const [picked, setPicked] = useState<string[]>([]);
   return (
@@ -32,7 +34,8 @@ export function EnterForm({ contestId, models }: { contestId: string; models: { 
         ))}
       </fieldset>
       <Alert message={message} />
-      <Button type="submit">Enter this contest</Button>
+      {fee && <p>The entry fee is {fee}, paid by card on the next page (or in cash to the officer).</p>}
+      <Button type="submit">{fee ? "Enter and pay" : "Enter this contest"}</Button>
     </form>
   );
 }

@@ -1,0 +1,64 @@
+/**
+ * Entry fees: what the contest page and the routes decide about a fee, with no I/O. Amounts are in
+ * the currency's smallest unit (cents), as the payments API takes them.
+ */
+
+/** Currencies an officer may charge in: two-decimal currencies the payments service takes (ISO 4217, lower case as its API writes them). */
+export const CURRENCIES = ["eur", "gbp", "usd", "chf", "sek", "nok", "dkk", "pln", "czk", "cad", "aud", "nzd"] as const;
+export type Currency = (typeof CURRENCIES)[number];
+
+/** The smallest and largest fee a contest may ask (0.50 is the payments service's usual card minimum). */
+export const MIN_FEE_CENTS = 50;
+export const MAX_FEE_CENTS = 100_000;
+
+export type PaymentStatus = "pending" | "paid" | "failed" | "refunded";
+
+/** "15.00 EUR": the fee as the page shows it (no locale-dependent symbol). */
+export function formatFee(cents: number, currency: string): string {
+  return `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+}
+
+/** The moment entries close: the deadline set, or else the start of the contest day (UTC). */
+export function closesAt(contest: { entriesCloseAt: Date | null; startsOn: string }): Date {
+  return contest.entriesCloseAt ?? new Date(`${contest.startsOn}T00:00:00Z`);
+}
+
+/** Pilots may enter strictly before the deadline the officer set (no deadline: entries stay open). */
+export function entriesOpen(contest: { entriesCloseAt: Date | null }, now: Date): boolean {
+  return contest.entriesCloseAt === null || now.getTime() < contest.entriesCloseAt.getTime();
+}
+
+/** A card payment's reference at the payments service (a payment id), as opposed to "cash" or a checkout still open. */
+export function isCardPayment(ref: string | null): ref is string {
+  return ref !== null && ref.startsWith("pi_");
+}
+
+/** Whether withdrawing this entry now gives the card payment back: paid by card and entries still open. */
+export function refundOnWithdrawal(entry: { paymentStatus: PaymentStatus; paymentRef: string | null }, contest: { entriesCloseAt: Date | null; startsOn: string }, now: Date): boolean {
+  return entry.paymentStatus === "paid" && isCardPayment(entry.paymentRef) && now.getTime() < closesAt(contest).getTime();
+}
+
+/** The status in words, for the entry list. */
+export function paymentLabel(entry: { paymentStatus: PaymentStatus; paymentRef: string | null }): string {
+  switch (entry.paymentStatus) {
+    case "paid":
+      return entry.paymentRef === "cash" ? "paid in cash" : "paid by card";
+    case "failed":
+      return "payment failed";
+    case "refunded":
+      return "refunded";
+    default:
+      return "unpaid";
+  }
+}
+
+/**
+ * The next status on a payment event, or null when the event changes nothing: a payment completes
+ * an unpaid or failed entry; a failure marks only an unpaid one (never undoes a payment); a refund
+ * applies to a paid entry.
+ */
+export function nextStatus(current: PaymentStatus, event: "paid" | "failed" | "refunded"): PaymentStatus | null {
+  if (event === "paid") return current === "pending" || current === "failed" ? "paid" : null;
+  if (event === "failed") return current === "pending" ? "failed" : null;
+  return current === "paid" ? "refunded" : null;
+}
