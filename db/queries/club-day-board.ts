@@ -114,6 +114,7 @@ export async function getDayBoard(db: Database, params: { clubId: string; day: s
   const board = buildDayBoard(
     lanes,
     devices.flatMap((d) => (d.first_wall === null ? [] : [{ deviceId: d.id, ownerId: d.user_id, firstWallMs: Number(d.first_wall), estimates: d.estimates }])),
+    dayBounds(params.day),
   );
 
   const ids = new Set<string>([

@@ -97,7 +97,11 @@ function recordedDifferently(versions: Disagreement["versions"]): boolean {
 
 const byResult = (a: BestRow, b: BestRow) => b.resultTenths - a.resultTenths || (a.pilotId < b.pilotId ? -1 : 1);
 
-export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonly BoardDevice[]): DayBoard {
+/**
+ * `day` bounds the lift timeline: a run a pilot chose for the day from another date is listed with
+ * its results, but only flights launched within the day paint its air.
+ */
+export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonly BoardDevice[], day: { startMs: number; endMs: number }): DayBoard {
   const runs = new Map<string, BoardRun>();
   const best = new Map<string, Map<string, BestRow>>();
   const flown = new Map<string, FlightLeader>();
@@ -134,7 +138,7 @@ export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonl
         leader.longestTenths = Math.max(leader.longestTenths, f.timeTenths);
         leader.totalTenths += f.timeTenths;
         leader.flights += 1;
-        liftFlights.push({ pilotId: l.pilotId, launchedAtMs: f.launchAtMs, durationMs: f.timeTenths * 100 });
+        if (f.launchAtMs >= day.startMs && f.launchAtMs < day.endMs) liftFlights.push({ pilotId: l.pilotId, launchedAtMs: f.launchAtMs, durationMs: f.timeTenths * 100 });
       }
     }
     const turns = l.groundMs.filter((g): g is number => g !== null && Number.isFinite(g) && g >= 0);
