@@ -31,7 +31,7 @@ let board: DayBoardView;
 let P1: MockSessionUser, P2: MockSessionUser, P3: MockSessionUser, N: MockSessionUser, outsider: MockSessionUser;
 const ids: Record<string, string> = {};
 let dayId = "";
-let phones: Record<string, Phone> = {};
+let phones = {} as Record<"p1" | "p2" | "p3" | "p9" | "p10" | "pn", Phone>;
 
 const at = (iso: string) => Date.parse(iso);
 const json = (method: string, body: unknown) =>
@@ -44,7 +44,8 @@ async function getBoard(as: MockSessionUser | null, date = DAY, clubSlug = slug)
 }
 
 beforeAll(async () => {
-  [P1, P2, P3, N, outsider] = await Promise.all(["day-p1", "day-p2", "day-p3", "day-n", "day-outsider"].map((l) => freshUser(l)));
+  const made = await Promise.all(["day-p1", "day-p2", "day-p3", "day-n", "day-outsider"].map((l) => freshUser(l)));
+  [P1, P2, P3, N, outsider] = made as [MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser];
   slug = `board-club-${Date.now()}`;
   const [club] = await db.insert(clubs).values({ name: "Board Club", slug }).returning();
   await db.insert(memberships).values([
@@ -150,21 +151,21 @@ describe("Day board: which runs belong to the day", () => {
     const d = board.disagreements[0]!;
     expect(d).toMatchObject({ runId: ids.R3, lane: 0, pilotId: P2.id });
     expect(d.versions.map((v) => ({ deviceId: v.deviceId, chosen: v.chosen, resultTenths: v.resultTenths, flights: v.flights }))).toEqual([
-      { deviceId: phones.p2!.id, chosen: true, resultTenths: 800, flights: 2 },
-      { deviceId: phones.p1!.id, chosen: false, resultTenths: 600, flights: 1 },
+      { deviceId: phones.p2.id, chosen: true, resultTenths: 800, flights: 2 },
+      { deviceId: phones.p1.id, chosen: false, resultTenths: 600, flights: 1 },
     ]);
   });
 
   it("each phone's clock offset at its first tap of the day, with its uncertainty δ/2 + 15 ppm × 60 s", () => {
     const clocks = Object.fromEntries(board.clocks.map((c) => [c.deviceId, c]));
-    expect(Object.keys(clocks).sort()).toEqual([phones.p1!.id, phones.p2!.id, phones.p3!.id, phones.p10!.id].sort());
-    expect(clocks[phones.p1!.id]!.offsetMs).toBe(0);
-    expect(clocks[phones.p1!.id]!.uncertaintyMs).toBeCloseTo(20.9, 6);
-    expect(clocks[phones.p2!.id]!.offsetMs).toBe(900_000);
-    expect(clocks[phones.p2!.id]!.uncertaintyMs).toBeCloseTo(30.9, 6);
-    expect(clocks[phones.p10!.id]!.offsetMs).toBe(1_800_000);
-    expect(clocks[phones.p10!.id]!.uncertaintyMs).toBeCloseTo(25.9, 6);
-    expect(clocks[phones.p3!.id]!.uncertaintyMs).toBeCloseTo(10.9, 6);
+    expect(Object.keys(clocks).sort()).toEqual([phones.p1.id, phones.p2.id, phones.p3.id, phones.p10.id].sort());
+    expect(clocks[phones.p1.id]!.offsetMs).toBe(0);
+    expect(clocks[phones.p1.id]!.uncertaintyMs).toBeCloseTo(20.9, 6);
+    expect(clocks[phones.p2.id]!.offsetMs).toBe(900_000);
+    expect(clocks[phones.p2.id]!.uncertaintyMs).toBeCloseTo(30.9, 6);
+    expect(clocks[phones.p10.id]!.offsetMs).toBe(1_800_000);
+    expect(clocks[phones.p10.id]!.uncertaintyMs).toBeCloseTo(25.9, 6);
+    expect(clocks[phones.p3.id]!.uncertaintyMs).toBeCloseTo(10.9, 6);
   });
 
   it("lift timeline: quarter hours of the day from the first flight's to the last's, weighted by each pilot's median", () => {

@@ -48,7 +48,7 @@ export async function dayRun(input: {
     for (const [lane, flights] of Object.entries(r.lanes)) {
       for (const [launch, land] of flights) taps.push([launch * 1000, { kind: "launch", lane: Number(lane) }], [land * 1000, { kind: "landing", lane: Number(lane) }]);
     }
-    if (r.signals) taps.push([(task.workingTimeSec + 40) * 1000, { kind: "run-end" }]);
+    if (r.signals) taps.push([("workingTimeSec" in task ? task.workingTimeSec + 40 : 600) * 1000, { kind: "run-end" }]);
     taps.sort((a, b) => a[0] - b[0]);
     const page = `day-${runId}-${r.phone.id}`;
     for (const [offsetMs, body] of taps) {
