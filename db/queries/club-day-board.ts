@@ -1,17 +1,11 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
-import { buildDayBoard, type BoardLaneInput, type DayBoard } from "@/lib/days/board";
+import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
 import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
 
-export type DayBoardView = DayBoard & {
-  day: string;
-  fields: { id: string; name: string }[];
-  closedAt: string | null;
-  /** Names of the people the board mentions (members of the club only). */
-  people: Record<string, string>;
-};
+export type { DayBoardView };
 
 type LaneRow = {
   run_id: string; session_field: string; created_at: Date | string; created_by: string; task_code: string; chosen: boolean;

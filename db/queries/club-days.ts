@@ -127,3 +127,15 @@ export async function chooseRunDay(db: Database, params: { userId: string; runId
   }
   return true;
 }
+
+export type ClubDayDate = { day: string; fields: string[]; closed: boolean };
+
+/** The club's field days from `from` on (YYYY-MM-DD), newest first, one entry per date with its fields. */
+export async function listClubDayDates(db: Database, params: { clubId: string; from: string; limit?: number }): Promise<ClubDayDate[]> {
+  const res = await db.execute<{ day: string; fields: string[]; closed: boolean }>(sql`
+    select d.day::text as day, array_agg(f.name order by f.name) as fields, bool_or(d.closed_at is not null) as closed
+    from club_days d join club_fields f on f.id = d.field_id
+    where d.club_id = ${params.clubId} and d.day >= ${params.from}::date
+    group by d.day order by d.day desc limit ${params.limit ?? 20}`);
+  return res.rows;
+}

@@ -75,6 +75,15 @@ export type DayBoard = {
   lift: LiftBin[];
 };
 
+/** What the Day board route answers: the aggregates, the day's fields and the names they mention. */
+export type DayBoardView = DayBoard & {
+  day: string;
+  fields: { id: string; name: string }[];
+  closedAt: string | null;
+  /** Names of the people the board mentions (members of the club only). */
+  people: Record<string, string>;
+};
+
 const str = (v: unknown): string | null => (typeof v === "string" ? v : null);
 const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
 

@@ -3,7 +3,7 @@
 export type Reply<T = unknown> = { ok: true; data: T } | { ok: false; status: number; message: string; issues?: { path: string; message: string }[] };
 
 /** A same-origin JSON request from a club screen; a network failure is a reply with status 0 and a sentence. */
-export async function sendJson<T = unknown>(method: "POST" | "PATCH" | "DELETE", url: string, body?: unknown): Promise<Reply<T>> {
+export async function sendJson<T = unknown>(method: "POST" | "PUT" | "PATCH" | "DELETE", url: string, body?: unknown): Promise<Reply<T>> {
   const init: RequestInit = { method, headers: { "content-type": "application/json" } };
   if (body !== undefined) init.body = JSON.stringify(body);
   const res = await fetch(url, init).catch(() => null);
