@@ -26,3 +26,12 @@ export function daySummaryLines(
   if (air) lines.push(`Best air: the quarter hour from ${formatTime(air.startMs)} (UTC).`);
   return lines;
 }
+
+const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];
+const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
+
+/** "2026-07-04" as "Sat 4 Jul 2026" (the same whatever the server's locale data). */
+export function dayLabel(day: string): string {
+  const d = new Date(`${day}T12:00:00Z`);
+  return `${WEEKDAYS[d.getUTCDay()]} ${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}`;
+}

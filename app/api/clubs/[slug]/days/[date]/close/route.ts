@@ -4,7 +4,7 @@ import { getDayBoard } from "@/db/queries/club-day-board";
 import { closeClubDay } from "@/db/queries/club-days";
 import { route } from "@/lib/api";
 import { requireClubRole } from "@/lib/auth/session";
-import { daySummaryLines } from "@/lib/days/summary";
+import { dayLabel, daySummaryLines } from "@/lib/days/summary";
 import { NotFoundError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
 import { daySummaryMail } from "@/lib/mail/messages";
@@ -17,7 +17,6 @@ export const dynamic = "force-dynamic";
 type Context = { params: Promise<{ slug: string; date: string }> };
 
 const timeOfDay = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
-const dayFormat = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 /** 401 signed out; 404 not a member or no day on that date; 403 not an officer. 200 with how many summaries were queued (0 after the first close). */
 export const POST = route(async (_request: Request, context: Context) => {
@@ -31,8 +30,8 @@ export const POST = route(async (_request: Request, context: Context) => {
     const board = await getDayBoard(db, { clubId: me.clubId, day });
     const lines = board ? daySummaryLines(board, (id) => board.people[id] ?? "a member", (ms) => timeOfDay.format(ms)) : [];
     const mail = daySummaryMail({
-      clubName: me.club.name, dayText: dayFormat.format(new Date(`${day}T12:00:00Z`)), lines,
-      boardLink: appLink(`/clubs/${me.club.slug}/days/${day}`), unsubscribe: appLink(`/clubs/${me.club.slug}`, { settings: "day-summaries" }),
+      clubName: me.club.name, dayText: dayLabel(day), lines,
+      boardLink: appLink(`/clubs/${me.club.slug}/days/${day}`), unsubscribe: `${appLink(`/clubs/${me.club.slug}`)}#day-summaries`, // the setting, on the club page
     });
     for (const to of closed.summaryRecipients) await sendMail(to.email, mail);
   }
