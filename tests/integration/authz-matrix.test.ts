@@ -246,6 +246,7 @@ const ROWS: Record<string, Row> = {
     cast: "fresh",
     expect: club.OFFICERS_ONLY(202),
   },
+  "DELETE /api/clubs/[slug]/invitations/[invitationId]": { params: club.invitationOfOwnersClub, check: club.invitationReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "PATCH /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, body: () => ({ role: "coach" }), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "DELETE /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, check: club.rejoins, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/clubs/[slug]/fields": {

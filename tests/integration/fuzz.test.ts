@@ -49,6 +49,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/club-fields": { GET: "none" },
   "/api/clubs": { POST: "json" },
   "/api/clubs/[slug]/invitations": { POST: "json" },
+  "/api/clubs/[slug]/invitations/[invitationId]": { DELETE: "none" },
   "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
   "/api/clubs/[slug]/fields": { POST: "json" },
   "/api/clubs/[slug]/days": { POST: "json" },
@@ -328,7 +329,7 @@ describe("fuzz: every route under app/api", () => {
             // the admin's change of an account acts on its own target; club routes get the fuzz user's own club,
             // itself as the member and a field nobody has; a pilot's routes get the fuzz user's own id (their season: a 200)
             const params = path.includes("[slug]")
-              ? { slug: clubSlug, userId: user.id, fieldId: uuidv7(), date: "2026-06-14" }
+              ? { slug: clubSlug, userId: user.id, fieldId: uuidv7(), date: "2026-06-14", invitationId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
                 : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), userId: target } : {};

@@ -125,3 +125,22 @@ export async function offersDayToOwnerOnly(actor: string, res: Response): Promis
   const { days } = (await res.json()) as { days: { dayId: string }[] };
   expect({ actor, offered: days.map((d) => d.dayId) }).toEqual({ actor, offered: actor === "owner" ? [choiceDay] : [] });
 }
+
+/**
+ * An unused invitation of the owner's club, made again before each actor (a withdrawal deletes it):
+ * the params function runs once, so the row is put back by id after every 2xx (`invitationReturns`).
+ */
+let withdrawn: typeof invitations.$inferInsert | null = null;
+export async function invitationOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const { tokenHash } = newEmailToken();
+  const [row] = await db.insert(invitations).values({ clubId: club.id, email: `matrix-withdraw-${randomUUID()}@example.com`, role: "member", tokenHash, invitedBy: cast.owner.id, expiresAt: new Date(Date.now() + 3600_000) }).returning();
+  withdrawn = row!;
+  return { slug: club.slug, invitationId: row!.id };
+}
+
+/** After a 2xx withdrawal: the invitation is gone; put it back (same id) for the next actor. */
+export async function invitationReturns(): Promise<void> {
+  expect(await db.select().from(invitations).where(eq(invitations.id, withdrawn!.id!))).toEqual([]);
+  await db.insert(invitations).values(withdrawn!);
+}
