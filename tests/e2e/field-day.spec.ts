@@ -22,6 +22,8 @@ async function seriousViolations(page: Page): Promise<string[]> {
   return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
 }
 
+const partnerOf: Record<string, string> = { "ada@example.com": "Tobi Okafor", "tobi@example.com": "Ada Fenwick" };
+
 /** One phone: signed in, the club list fetched with signal (so the partner is offered offline), the worker ready. */
 async function phone(context: BrowserContext, email: string, skewMs = 0): Promise<Page> {
   const page = await context.newPage();
@@ -29,6 +31,9 @@ async function phone(context: BrowserContext, email: string, skewMs = 0): Promis
   await signInAs(page, email);
   await page.goto("/field/new");
   await workerReady(page);
+  await expect
+    .poll(() => page.locator("datalist option").evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value)))
+    .toContain(partnerOf[email]);
   return page;
 }
 

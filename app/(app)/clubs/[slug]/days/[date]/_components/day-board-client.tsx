@@ -117,8 +117,9 @@ function Timeline({ board, name }: Part) {
 }
 
 function Table({ caption, head, rows }: { caption: string; head: string[]; rows: (string | number)[][] }) {
+  // a region that can scroll sideways on a narrow phone, so it takes the keyboard's focus
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" role="region" aria-label={caption} tabIndex={0}>
       <table className="w-full text-left text-sm">
         <caption className="text-left font-semibold">{caption}</caption>
         <thead>

@@ -17,13 +17,13 @@ export function LiftStrip({ bins }: { bins: LiftBin[] }) {
       <p data-testid="lift-sentence">{sentence}</p>
       {bins.length > 0 ? (
         <>
-          <div aria-hidden="true" className="overflow-x-auto">
-            <div className="flex min-w-full gap-px" data-testid="lift-strip">
+          <div aria-hidden="true">
+            <div className="flex w-full gap-px" data-testid="lift-strip">
               {bins.map((b) => (
                 <div
                   key={b.startMs}
                   title={`${quarterText(b.startMs)}: ${b.flights} flights`}
-                  className="h-10 min-w-3 flex-1 rounded-sm border border-line"
+                  className="h-10 min-w-0 flex-1 rounded-sm border border-line"
                   style={{ backgroundColor: `rgb(234 88 12 / ${b.flights === 0 ? 0 : 0.12 + 0.88 * b.intensity})` }}
                 />
               ))}
