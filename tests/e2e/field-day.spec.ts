@@ -134,6 +134,7 @@ test("an officer opens a day; two members time each other offline with clocks 15
     await expect(officer.getByTestId("lift-strip")).toBeVisible();
     await expect(officer.getByRole("table", { name: /Flights and lift by quarter hour/ })).toBeAttached();
     expect(await seriousViolations(officer)).toEqual([]);
+    if (process.env.SHOTS) await officer.screenshot({ path: "/tmp/field-day-board.png", fullPage: true });
 
     // A member of another club gets 404 on the board, and on its data.
     const stranger = await (await context()).newPage();
