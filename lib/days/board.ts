@@ -3,7 +3,8 @@
 // runResult): the board adds nothing of its own to a run's score. Pure: no framework, no I/O.
 import { offsetAt, type ClockEstimate } from "@/lib/clock";
 import { flightInstants } from "@/lib/results/flight-instants";
-import { buildLiftTimeline, median, type LiftBin } from "./lift-timeline";
+import { median } from "@/lib/hangar/stats";
+import { buildLiftTimeline, type LiftBin } from "./lift-timeline";
 
 export type BoardLaneInput = {
   runId: string;
@@ -174,7 +175,7 @@ export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonl
     best: [...best.entries()].sort(([a], [b]) => (a < b ? -1 : 1)).map(([taskCode, rows]) => ({ taskCode, rows: [...rows.values()].sort(byResult) })),
     flightLeaders: [...flown.values()].sort((a, b) => b.longestTenths - a.longestTenths || b.totalTenths - a.totalTenths || (a.pilotId < b.pilotId ? -1 : 1)),
     turnaroundLeaders: [...ground.entries()]
-      .map(([pilotId, times]) => ({ pilotId, medianGroundMs: median(times), turns: times.length }))
+      .map(([pilotId, times]) => ({ pilotId, medianGroundMs: median(times) ?? 0, turns: times.length }))
       .sort((a, b) => a.medianGroundMs - b.medianGroundMs || (a.pilotId < b.pilotId ? -1 : 1)),
     timed: [...timed.values()].sort((a, b) => b.lanes - a.lanes || (a.timerId + a.pilotId < b.timerId + b.pilotId ? -1 : 1)),
     clocks,
