@@ -99,5 +99,10 @@ describe("describeLiftTimeline", () => {
       "7 flights from 10:00 to 10:45, by quarter hour, weighted by how far each flight beat its pilot's usual time; the best air came at 10:30.",
     );
     expect(describeLiftTimeline([], hhmm)).toMatch(/No flights/);
+    // one quarter hour: not "from 10:00 to 10:00"; one flight is "1 flight"
+    expect(describeLiftTimeline(buildLiftTimeline(day.slice(0, 2)), hhmm)).toBe(
+      "2 flights in the quarter hour from 10:00; no flight beat its pilot's usual time, so no quarter hour stands out.",
+    );
+    expect(describeLiftTimeline(buildLiftTimeline(day.slice(0, 1)), hhmm)).toMatch(/^1 flight in the quarter hour from 10:00;/);
   });
 });
