@@ -3,6 +3,7 @@ import { expect, test, type BrowserContext, type Page } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
 import { workerReady } from "./support/field";
+import { openMail } from "./support/mail";
 
 /**
  * Issue #14, the field day end to end. Ines (the demo club's officer) opens today's day at Five
@@ -147,4 +148,33 @@ test("an officer opens a day; two members time each other offline with clocks 15
     for (const c of contexts) await c.close();
     await db.end();
   }
+});
+
+test("a member asks for day summaries on the club page; the officer closes a seeded day and the summary reaches her mailbox", async ({ browser }) => {
+  const member = await (await browser.newContext()).newPage();
+  await signInAs(member, "lena@example.com");
+  await member.goto("/clubs/heronmoor");
+  const toggle = member.getByRole("checkbox", { name: "E-mail me the summary of each field day when it is closed" });
+  await expect(toggle).not.toBeChecked();
+  await toggle.check();
+  await expect(toggle).toBeChecked();
+  await member.reload();
+  await expect(toggle).toBeChecked(); // kept on the server
+
+  // The club evening the seed opened (Tobi timed Ada): the officer closes it from its Day board.
+  const officer = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
+  await signInAs(officer, "ines@example.com");
+  await officer.goto("/clubs/heronmoor");
+  await officer.getByRole("list", { name: "Field days" }).getByRole("link", { name: /21 Nov 2026/ }).click();
+  await expect(officer).toHaveURL(/\/clubs\/heronmoor\/days\/2026-11-21$/);
+  await expect(officer.getByRole("list", { name: "Who timed whom" })).toContainText("Tobi Okafor timed Ada Fenwick: 2 windows");
+  expect(await seriousViolations(officer)).toEqual([]);
+  await officer.getByRole("button", { name: "Close the day and send the summary" }).click();
+  await expect(officer.getByText(/^Closed\. The summary goes to 1 member who asked for it\.$/)).toBeVisible();
+
+  const mail = await openMail(member, /Heronmoor Hand-Launch Club: the field day of Sat 21 Nov 2026/, "lena@example.com");
+  await expect(mail).toContainText("Best in task");
+  await expect(mail).toContainText("To stop these e-mails, open");
+  await member.context().close();
+  await officer.context().close();
 });
