@@ -10,13 +10,17 @@ export function DaySummariesToggle({ slug, on }: { slug: string; on: boolean }) 
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
 
+  // the box follows the click at once and goes back if the server refuses
   async function change(next: boolean) {
+    setChecked(next);
     setBusy(true);
     setError(null);
     const reply = await sendJson("PUT", `/api/clubs/${slug}/day-summaries`, { on: next });
     setBusy(false);
-    if (!reply.ok) return setError(reply.message);
-    setChecked(next);
+    if (!reply.ok) {
+      setChecked(!next);
+      setError(reply.message);
+    }
   }
 
   return (
