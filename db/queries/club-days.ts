@@ -45,3 +45,97 @@ export async function listClubDays(
     )
     .orderBy(asc(clubFields.name), asc(clubDays.id));
 }
+
+/**
+ * Closes the club's days on a date (every field's at once; closing again changes nothing) and claims
+ * the day summary: `summaryRecipients` is the members who asked for it, and it is non-empty only the
+ * first time (summary_sent_at is set in the same statement), so a second close or a double press
+ * mails nobody twice. Null when no day is open on that date.
+ */
+export async function closeClubDay(
+  db: Database,
+  params: { clubId: string; day: string; userId: string },
+): Promise<{ closedAt: Date; summaryRecipients: { email: string; name: string }[] } | null> {
+  return db.transaction(async (tx) => {
+    const closed = await tx.execute<{ closed_at: Date | string; claimed: boolean }>(sql`
+      with old as (
+        select id, summary_sent_at from club_days where club_id = ${params.clubId} and day = ${params.day}::date for update
+      )
+      update club_days d set closed_at = coalesce(d.closed_at, now()), closed_by = coalesce(d.closed_by, ${params.userId}::uuid),
+        summary_sent_at = coalesce(d.summary_sent_at, now())
+      from old where old.id = d.id
+      returning d.closed_at, (old.summary_sent_at is null) as claimed`);
+    if (closed.rows.length === 0) return null;
+    const closedAt = new Date(closed.rows[0]!.closed_at);
+    if (!closed.rows.some((r) => r.claimed)) return { closedAt, summaryRecipients: [] };
+    const to = await tx.execute<{ email: string; name: string }>(sql`
+      select u.email, u.name from memberships m join users u on u.id = m.user_id
+      where m.club_id = ${params.clubId} and m.day_summaries and u.disabled_at is null and u.deleted_at is null
+      order by u.email`);
+    return { closedAt, summaryRecipients: to.rows };
+  });
+}
+
+/** The member's own day-summary setting for the club; false when they are not a member (nothing changes). */
+export async function setDaySummaries(db: Database, params: { clubId: string; userId: string; on: boolean }): Promise<boolean> {
+  const res = await db.execute(sql`
+    update memberships set day_summaries = ${params.on} where club_id = ${params.clubId} and user_id = ${params.userId} returning id`);
+  return res.rows.length > 0;
+}
+
+export async function getDaySummaries(db: Database, params: { clubId: string; userId: string }): Promise<boolean> {
+  const res = await db.execute<{ on: boolean }>(sql`
+    select day_summaries as on from memberships where club_id = ${params.clubId} and user_id = ${params.userId}`);
+  return res.rows[0]?.on ?? false;
+}
+
+/** The club days (every club of the user's) a run may be put in, newest first, with whether it is in each. */
+export type RunDayChoice = { dayId: string; clubSlug: string; clubName: string; fieldName: string; day: string; chosen: boolean };
+
+/**
+ * Days of the user's clubs within a week of the run, for a run the user set up or flies in (else
+ * nothing: the choice is the pilot's). The run must be the user's own record there: disputed or
+ * hidden lanes offer nothing.
+ */
+export async function listRunDayChoices(db: Database, params: { userId: string; runId: string }): Promise<RunDayChoice[]> {
+  const res = await db.execute<{ day_id: string; slug: string; club_name: string; field_name: string; day: string; chosen: boolean }>(sql`
+    with r as (
+      select r.id, r.created_at from runs r
+      where r.id = ${params.runId} and (r.created_by = ${params.userId} or exists (
+        select 1 from run_lanes l left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
+        where l.run_id = r.id and l.pilot_user_id = ${params.userId} and (c.status is null or c.status = 'accepted')))
+    )
+    select d.id as day_id, c.slug, c.name as club_name, f.name as field_name, d.day::text as day,
+      exists (select 1 from club_day_runs x where x.day_id = d.id and x.run_id = r.id) as chosen
+    from r
+    join memberships m on m.user_id = ${params.userId}
+    join clubs c on c.id = m.club_id
+    join club_days d on d.club_id = m.club_id and d.day between (r.created_at - interval '7 days')::date and (r.created_at + interval '7 days')::date
+    join club_fields f on f.id = d.field_id
+    order by d.day desc, c.name, f.name`);
+  return res.rows.map((r) => ({ dayId: r.day_id, clubSlug: r.slug, clubName: r.club_name, fieldName: r.field_name, day: r.day, chosen: r.chosen }));
+}
+
+/** Puts the run in the day (or takes it out); false when the day is not among the run's choices for this user. */
+export async function chooseRunDay(db: Database, params: { userId: string; runId: string; dayId: string; chosen: boolean }): Promise<boolean> {
+  const choices = await listRunDayChoices(db, params);
+  if (!choices.some((c) => c.dayId === params.dayId)) return false;
+  if (params.chosen) {
+    await db.execute(sql`insert into club_day_runs (day_id, run_id, chosen_by) values (${params.dayId}, ${params.runId}, ${params.userId}) on conflict do nothing`);
+  } else {
+    await db.execute(sql`delete from club_day_runs where day_id = ${params.dayId} and run_id = ${params.runId}`);
+  }
+  return true;
+}
+
+export type ClubDayDate = { day: string; fields: string[]; closed: boolean };
+
+/** The club's field days from `from` on (YYYY-MM-DD), newest first, one entry per date with its fields. */
+export async function listClubDayDates(db: Database, params: { clubId: string; from: string; limit?: number }): Promise<ClubDayDate[]> {
+  const res = await db.execute<{ day: string; fields: string[]; closed: boolean }>(sql`
+    select d.day::text as day, array_agg(f.name order by f.name) as fields, bool_or(d.closed_at is not null) as closed
+    from club_days d join club_fields f on f.id = d.field_id
+    where d.club_id = ${params.clubId} and d.day >= ${params.from}::date
+    group by d.day order by d.day desc limit ${params.limit ?? 20}`);
+  return res.rows;
+}

@@ -11,7 +11,8 @@ export type ComingItem = { kind: "day" | "contest"; id: string; on: string; name
 export async function listComing(db: Database, params: { clubId: string; today: string; limit?: number }): Promise<ComingItem[]> {
   const res = await db.execute<{ kind: "day" | "contest"; id: string; on: string; name: string; field_name: string }>(sql`
     select * from (
-      select 'day' as kind, d.id, d.day::text as on, d.field_name as name, d.field_name from field_days d
+      select 'day' as kind, d.id, d.day::text as on, f.name as name, f.name as field_name
+      from club_days d join club_fields f on f.id = d.field_id
       where d.club_id = ${params.clubId} and d.day >= ${params.today}::date
       union all
       select 'contest', c.id, c.starts_on::text, c.name, c.field_name from contests c

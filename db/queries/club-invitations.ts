@@ -83,3 +83,15 @@ export async function listPendingInvitations(db: Database, clubId: string): Prom
     .where(and(eq(invitations.clubId, clubId), isNull(invitations.acceptedAt), gt(invitations.expiresAt, sql`now()`)))
     .orderBy(desc(invitations.createdAt));
 }
+
+/**
+ * An officer withdraws an invitation not yet used: its row goes, as when a newer invitation retires
+ * it, so its link answers "not valid" from then on. False when the club has no such unused invitation.
+ */
+export async function withdrawInvitation(db: Database, params: { clubId: string; invitationId: string }): Promise<boolean> {
+  const gone = await db
+    .delete(invitations)
+    .where(and(eq(invitations.id, params.invitationId), eq(invitations.clubId, params.clubId), isNull(invitations.acceptedAt)))
+    .returning({ id: invitations.id });
+  return gone.length > 0;
+}

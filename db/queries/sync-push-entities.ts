@@ -7,7 +7,7 @@ import { taskDefinitionSchema } from "@/lib/tasks";
 import type { Ack } from "@/lib/validations/sync";
 import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { MAX_RUNS_PER_DAY } from "@/lib/validations/sync-push";
-import { fieldDays, fieldSessions, memberships, runLanes, runs, users } from "../schema";
+import { fieldSessions, memberships, runLanes, runs, users } from "../schema";
 import { isDateMs, isUuid, lockAccountRuns, type Tx } from "./sync-db";
 
 /** What every part of one push shares: the transaction, who pushes, and the acks so far. */
@@ -56,9 +56,8 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   const sessionIds = [...new Set(items.map((r) => r.sessionId))];
   const existing = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, items.map((r) => r.id)));
   const sessionRows = await tx
-    .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId, fieldDayClubId: fieldDays.clubId })
+    .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId })
     .from(fieldSessions)
-    .leftJoin(fieldDays, eq(fieldDays.id, fieldSessions.fieldDayId))
     .where(inArray(fieldSessions.id, sessionIds));
   const creators = new Map(existing.map((r) => [r.id, r.createdBy]));
   const sessionsById = new Map(sessionRows.map((s) => [s.id, s]));
@@ -82,7 +81,7 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
     const refusal =
       (!task.success ? `The task definition is not valid: ${task.error.issues[0]?.message ?? "?"}` : null) ??
       (!isDateMs(r.createdAtWallMs) ? "The run's creation time is not a valid date." : null) ??
-      runSessionRefusal(ctx.userId, sessionsById.get(r.sessionId) ?? null, ctx.clubIds) ??
+      runSessionRefusal(ctx.userId, sessionsById.get(r.sessionId) ?? null) ??
       ((perDay.get(utcDay(r.createdAtWallMs)) ?? 0) >= MAX_RUNS_PER_DAY
         ? `You already have ${MAX_RUNS_PER_DAY} runs on that day, the most one account may record per day.`
         : null) ??

@@ -1,10 +1,12 @@
-import { date, index, pgTable, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { date, index, pgTable, primaryKey, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { runs } from "./sessions";
 import { clubFields, clubs } from "./clubs";
 import { users } from "./users";
 
 /**
  * A field day: an officer opens a day at one of the club's fields; members' runs recorded at that
- * field that day sync into it. One day per club, field and date.
+ * field that day sync into it. One day per club, field and date. (Replaces the older `field_days`,
+ * which named its field by text and which nothing wrote runs into.)
  */
 export const clubDays = pgTable(
   "club_days",
@@ -16,9 +18,29 @@ export const clubDays = pgTable(
     day: date("day", { mode: "string" }).notNull(),
     openedBy: uuid("opened_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    /** Set when an officer closes the day (all of the club's days on that date close together). */
+    closedAt: timestamp("closed_at", { withTimezone: true }),
+    closedBy: uuid("closed_by").references(() => users.id, { onDelete: "set null" }),
+    /** When the day summary was queued to the members who asked for it: at most once per day. */
+    summarySentAt: timestamp("summary_sent_at", { withTimezone: true }),
   },
   (t) => [
     unique("club_days_club_field_day_uq").on(t.clubId, t.fieldId, t.day),
     index("club_days_club_id_day_idx").on(t.clubId, t.day),
   ],
+);
+
+/**
+ * A run its pilot chose for a club day from the run page (whatever field its session names and
+ * whenever it was flown): it shows on that day's board. One row per day and run.
+ */
+export const clubDayRuns = pgTable(
+  "club_day_runs",
+  {
+    dayId: uuid("day_id").notNull().references(() => clubDays.id, { onDelete: "cascade" }),
+    runId: uuid("run_id").notNull().references(() => runs.id, { onDelete: "cascade" }),
+    chosenBy: uuid("chosen_by").notNull().references(() => users.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.dayId, t.runId] }), index("club_day_runs_run_id_idx").on(t.runId)],
 );

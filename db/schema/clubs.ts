@@ -1,4 +1,4 @@
-import { doublePrecision, index, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, doublePrecision, index, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { clubRoleEnum } from "./enums";
 import { users } from "./users";
 
@@ -17,6 +17,8 @@ export const memberships = pgTable(
     clubId: uuid("club_id").notNull().references(() => clubs.id, { onDelete: "cascade" }),
     userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
     role: clubRoleEnum("role").notNull().default("member"),
+    /** The member asked for the summary e-mail of each field day this club closes (off until they turn it on). */
+    daySummaries: boolean("day_summaries").notNull().default(false),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique("memberships_club_user_uq").on(t.clubId, t.userId), index("memberships_user_id_idx").on(t.userId)],

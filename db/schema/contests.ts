@@ -4,19 +4,6 @@ import { clubs } from "./clubs";
 import { contestStatusEnum, paymentStatusEnum } from "./enums";
 import { guestPilots, users } from "./users";
 
-/** A club's day at a field: every member's sessions that day sync into it (the Day board). */
-export const fieldDays = pgTable(
-  "field_days",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    clubId: uuid("club_id").notNull().references(() => clubs.id, { onDelete: "cascade" }),
-    day: date("day").notNull(),
-    fieldName: text("field_name").notNull(),
-    createdBy: uuid("created_by").notNull().references(() => users.id),
-  },
-  (t) => [index("field_days_club_id_idx").on(t.clubId)],
-);
-
 export const contests = pgTable(
   "contests",
   {

@@ -3,7 +3,6 @@ import {
   bigint, boolean, doublePrecision, index, integer, jsonb, pgTable, primaryKey, smallint, text, timestamp, unique, uuid,
 } from "drizzle-orm/pg-core";
 import { clubs } from "./clubs";
-import { fieldDays } from "./contests";
 import { laneConsentStatusEnum } from "./enums";
 import { practicePlans } from "./practice-plans";
 import { guestPilots, users } from "./users";
@@ -18,7 +17,6 @@ export const fieldSessions = pgTable(
     id: uuid("id").primaryKey(),
     ownerId: uuid("owner_id").notNull().references(() => users.id, { onDelete: "cascade" }),
     clubId: uuid("club_id").references(() => clubs.id, { onDelete: "set null" }),
-    fieldDayId: uuid("field_day_id").references(() => fieldDays.id, { onDelete: "set null" }),
     fieldName: text("field_name").notNull(),
     latitude: doublePrecision("latitude"),
     longitude: doublePrecision("longitude"),

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import type { Database } from "../index";
-import { clubFields, clubs, contests, fieldDays, memberships, users } from "../schema";
+import { clubDays, clubFields, clubs, contests, memberships, users } from "../schema";
 import { DEMO_CLUB } from "./demo-people";
 import { DEMO_FIELDS, HERONMOOR_COMING, KESTREL_CLUB, KESTREL_PEOPLE } from "./demo-clubs";
 
@@ -17,9 +17,12 @@ export async function seedClubs(db: Database, passwordHash: () => Promise<string
     const [heronmoor] = await tx.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
     const [officer] = await tx.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
     if (heronmoor) {
-      await tx.insert(clubFields).values(DEMO_FIELDS.heronmoor.map((f) => ({ clubId: heronmoor.id, ...f }))).onConflictDoNothing();
+      const fields = await tx
+        .insert(clubFields).values(DEMO_FIELDS.heronmoor.map((f) => ({ clubId: heronmoor.id, ...f }))).onConflictDoNothing()
+        .returning({ id: clubFields.id, name: clubFields.name });
+      const comingField = fields.find((f) => f.name === HERONMOOR_COMING.day.fieldName);
       if (officer) {
-        await tx.insert(fieldDays).values({ clubId: heronmoor.id, createdBy: officer.id, ...HERONMOOR_COMING.day });
+        if (comingField) await tx.insert(clubDays).values({ clubId: heronmoor.id, fieldId: comingField.id, day: HERONMOOR_COMING.day.day, openedBy: officer.id });
         await tx.insert(contests).values({ clubId: heronmoor.id, ...HERONMOOR_COMING.contest });
       }
     }

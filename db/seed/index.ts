@@ -8,6 +8,7 @@ import { seedAdminDemo } from "./admin-demo";
 import { seedClubs } from "./clubs";
 import { seedCoaching } from "./coaching";
 import { seedDemoContest } from "./demo-contest";
+import { seedFieldDays } from "./field-days";
 import { seedRecordedFor } from "./recorded-for";
 import { seedHangar } from "./hangar";
 import { seedSeasonContest } from "./season-contest";
@@ -25,6 +26,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     await seedClubs(db, () => hashPassword(DEMO_PASSWORD));
     await seedDemoContest(db);
     await seedCoaching(db);
+    await seedFieldDays(db);
     return "present";
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -96,5 +98,6 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
   await seedClubs(db, async () => passwordHash);
   await seedDemoContest(db);
   await seedCoaching(db);
+  await seedFieldDays(db);
   return "seeded";
 }

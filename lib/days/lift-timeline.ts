@@ -3,6 +3,7 @@
 // how far it beat that pilot's own median flight time (flights at or under the
 // median count nothing), so one strong pilot does not paint the whole day.
 // Pure: no framework, no clock, no I/O.
+import { median } from "@/lib/hangar/stats";
 
 export const QUARTER_HOUR_MS = 15 * 60_000;
 
@@ -24,14 +25,6 @@ export type LiftBin = {
   /** lift divided by the strongest bin's lift: 0 (still air) … 1 (best quarter hour). */
   intensity: number;
 };
-
-export function median(values: readonly number[]): number {
-  if (values.length === 0) return 0;
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = Math.floor(sorted.length / 2);
-  if (sorted.length % 2 === 1) return sorted[middle]!;
-  return (sorted[middle - 1]! + sorted[middle]!) / 2;
-}
 
 /** How far one flight beat its pilot's median, as a fraction of that median (never negative). */
 export function flightLift(durationMs: number, pilotMedianMs: number): number {
@@ -55,7 +48,7 @@ export function buildLiftTimeline(flights: readonly DayFlight[]): LiftBin[] {
     list.push(f.durationMs);
     byPilot.set(f.pilotId, list);
   }
-  const medians = new Map([...byPilot].map(([pilot, times]) => [pilot, median(times)]));
+  const medians = new Map([...byPilot].map(([pilot, times]) => [pilot, median(times) ?? 0]));
 
   const first = Math.min(...usable.map((f) => quarterStart(f.launchedAtMs)));
   const last = Math.max(...usable.map((f) => quarterStart(f.launchedAtMs)));

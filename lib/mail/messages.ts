@@ -63,3 +63,16 @@ export function clubInvitationMail(input: { clubName: string; inviterName: strin
     `The link works once, for ${input.days} days. If you do not know this club, ignore this message: nothing happens until the link is used.`,
   ]);
 }
+
+/**
+ * A field day's summary, to the club's members who asked for it (a club setting of theirs). Not
+ * transactional: it ends with the unsubscribe line, a link to the club page where the setting is.
+ */
+export function daySummaryMail(input: { clubName: string; dayText: string; lines: string[]; boardLink: string; unsubscribe: string }): Mail {
+  return compose(
+    "day-summary",
+    `${input.clubName}: the field day of ${input.dayText}`,
+    [`The field day of ${input.dayText} at ${input.clubName} is closed. What the club's phones recorded:`, ...input.lines, { link: input.boardLink, label: "Open the Day board" }],
+    { unsubscribe: input.unsubscribe },
+  );
+}

@@ -32,16 +32,15 @@ export function eventRefusal(userId: string, run: RunFacts, body: EventBody, tar
   return null;
 }
 
-/** Whether the user may add a run to this session: their own, or a club day of a club they belong to. */
-export function runSessionRefusal(
-  userId: string,
-  session: { ownerId: string; fieldDayClubId: string | null } | null,
-  clubIds: ReadonlySet<string>,
-): string | null {
+/**
+ * Whether the user may add a run to this session: only their own. (A club's field day gathers its
+ * members' runs from their own sessions by field and date, db/queries/club-day-board.ts; nobody
+ * adds runs to another's session.)
+ */
+export function runSessionRefusal(userId: string, session: { ownerId: string } | null): string | null {
   if (!session) return "Its session is not on the server (sessions are sent first, so it was refused or never sent).";
   if (session.ownerId === userId) return null;
-  if (session.fieldDayClubId !== null && clubIds.has(session.fieldDayClubId)) return null;
-  return "You can add runs only to your own sessions or to a club day of your club.";
+  return "You can add runs only to your own sessions.";
 }
 
 /**

@@ -252,6 +252,7 @@ const ROWS: Record<string, Row> = {
     cast: "fresh",
     expect: club.OFFICERS_ONLY(202),
   },
+  "DELETE /api/clubs/[slug]/invitations/[invitationId]": { params: club.invitationOfOwnersClub, check: club.invitationReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "PATCH /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, body: () => ({ role: "coach" }), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "DELETE /api/clubs/[slug]/members/[userId]": { params: club.memberOfOwnersClub, check: club.rejoins, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/clubs/[slug]/fields": {
@@ -261,6 +262,22 @@ const ROWS: Record<string, Row> = {
     expect: club.OFFICERS_ONLY(201),
   },
   "POST /api/clubs/[slug]/days": { params: club.fieldForDays, body: club.nextDayBody, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  // the Day board: members of the club (and site admins) read it; officers close the day
+  "GET /api/clubs/[slug]/days/[date]": { params: club.dayOfOwnersClub, cast: "fresh", expect: contest.MEMBERS(200) },
+  "POST /api/clubs/[slug]/days/[date]/close": { params: club.dayOfOwnersClub, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  // a member's own setting: a site admin outside the club has none (404)
+  "PUT /api/clubs/[slug]/day-summaries": {
+    params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }), body: () => ({ on: true }), cast: "fresh",
+    expect: { ...contest.MEMBERS(200), admin: 404 },
+  },
+  // a pilot chooses a field day for their own run: others are offered nothing and cannot choose
+  "GET /api/runs/[runId]/club-days": {
+    ...signedIn({ params: (cast) => club.runAndDayOfOwner(cast, () => insertOwnRun(cast.owner.id)), check: (ctx, res) => club.offersDayToOwnerOnly(ctx.actor, res) }),
+    cast: "fresh",
+  },
+  "PUT /api/runs/[runId]/club-days": {
+    ...ownerOnly({ params: (cast) => club.runAndDayOfOwner(cast, () => insertOwnRun(cast.owner.id)), body: club.choiceBody }), cast: "fresh",
+  },
   "DELETE /api/clubs/[slug]/fields/[fieldId]": { params: club.fieldOfOwnersClub, check: club.fieldReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   // the one-time token is the credential: every signed-in account with its own link joins (and each link joins once)
   "POST /api/invitations/accept": {

@@ -50,9 +50,14 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/club-fields": { GET: "none" },
   "/api/clubs": { POST: "json" },
   "/api/clubs/[slug]/invitations": { POST: "json" },
+  "/api/clubs/[slug]/invitations/[invitationId]": { DELETE: "none" },
   "/api/clubs/[slug]/members/[userId]": { PATCH: "json", DELETE: "none" },
   "/api/clubs/[slug]/fields": { POST: "json" },
   "/api/clubs/[slug]/days": { POST: "json" },
+  "/api/clubs/[slug]/days/[date]": { GET: "none" },
+  "/api/clubs/[slug]/days/[date]/close": { POST: "none" },
+  "/api/clubs/[slug]/day-summaries": { PUT: "json" },
+  "/api/runs/[runId]/club-days": { GET: "none", PUT: "json" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
   "/api/clubs/[slug]/contests": { POST: "json" },
   "/api/contests/[contestId]/entries": { POST: "json" },
@@ -190,6 +195,9 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/members/[userId]")) return { role: "member" };
   if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
   if (path.endsWith("/days")) return { fieldId: uuidv7(), day: "2026-06-14" };
+  if (path.endsWith("/day-summaries")) return { on: true };
+  // a day nobody opened (the run is nobody's): a well-formed choice is a 404 and writes nothing
+  if (path.endsWith("/club-days")) return { dayId: uuidv7(), chosen: true };
   if (path === "/api/invitations/accept") return { token };
   // an offer of the fuzz user's season to an address; a code nobody issued (404, nothing written)
   if (path === "/api/coach-grants") return { kind: "email", email: `fuzz-coach-${uuidv7()}@example.com` };
@@ -349,7 +357,7 @@ describe("fuzz: every route under app/api", () => {
             // the admin's change of an account acts on its own target; club routes get the fuzz user's own club,
             // itself as the member and a field nobody has; a pilot's routes get the fuzz user's own id (their season: a 200)
             const params = path.includes("[slug]")
-              ? { slug: clubSlug, userId: user.id, fieldId: uuidv7() }
+              ? { slug: clubSlug, userId: user.id, fieldId: uuidv7(), date: "2026-06-14", invitationId: uuidv7() }
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
                 : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), roundNumber: "1", token: uuidv7().replace(/-/g, "").repeat(2).slice(0, 43), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), planId: uuidv7(), userId: target } : {};

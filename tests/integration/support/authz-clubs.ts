@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { and, eq, sql } from "drizzle-orm";
 import { expect } from "vitest";
-import { clubFields, clubs, invitations, memberships } from "@/db/schema";
+import { clubDays, clubFields, clubs, invitations, memberships } from "@/db/schema";
 import { hashEmailToken, newEmailToken } from "@/lib/auth/email-tokens";
 import type { Actor, Cast } from "./authz-actors";
 import { db, freshUser } from "./db";
@@ -100,3 +100,47 @@ export async function fieldForDays(cast: Cast): Promise<Record<string, string>> 
   return { slug: club.slug };
 }
 export const nextDayBody = () => ({ fieldId: dayField, day: `2026-07-${String(1 + (dayCount++ % 28)).padStart(2, "0")}` });
+
+/** The owner's club with a field day open on 2026-06-20 at a field of its own: the Day board's address. */
+export async function dayOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: "Matrix Board Field" }).returning();
+  await db.insert(clubDays).values({ clubId: club.id, fieldId: field!.id, day: "2026-06-20", openedBy: cast.owner.id });
+  return { slug: club.slug, date: "2026-06-20" };
+}
+
+/** A run of the owner's (set up 2025-12-29, records.ts) and a day of the owner's club that day, which only the owner may choose for it. */
+let choiceDay = "";
+export async function runAndDayOfOwner(cast: Cast, insertOwnRun: () => Promise<string>): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: "Matrix Choice Field" }).returning();
+  const [day] = await db.insert(clubDays).values({ clubId: club.id, fieldId: field!.id, day: "2025-12-29", openedBy: cast.owner.id }).returning();
+  choiceDay = day!.id;
+  return { runId: await insertOwnRun() };
+}
+export const choiceBody = () => ({ dayId: choiceDay, chosen: true });
+
+/** GET /api/runs/[runId]/club-days offers the day to the run's owner only; everyone else gets an empty list. */
+export async function offersDayToOwnerOnly(actor: string, res: Response): Promise<void> {
+  const { days } = (await res.json()) as { days: { dayId: string }[] };
+  expect({ actor, offered: days.map((d) => d.dayId) }).toEqual({ actor, offered: actor === "owner" ? [choiceDay] : [] });
+}
+
+/**
+ * An unused invitation of the owner's club, made again before each actor (a withdrawal deletes it):
+ * the params function runs once, so the row is put back by id after every 2xx (`invitationReturns`).
+ */
+let withdrawn: typeof invitations.$inferInsert | null = null;
+export async function invitationOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const { tokenHash } = newEmailToken();
+  const [row] = await db.insert(invitations).values({ clubId: club.id, email: `matrix-withdraw-${randomUUID()}@example.com`, role: "member", tokenHash, invitedBy: cast.owner.id, expiresAt: new Date(Date.now() + 3600_000) }).returning();
+  withdrawn = row!;
+  return { slug: club.slug, invitationId: row!.id };
+}
+
+/** After a 2xx withdrawal: the invitation is gone; put it back (same id) for the next actor. */
+export async function invitationReturns(): Promise<void> {
+  expect(await db.select().from(invitations).where(eq(invitations.id, withdrawn!.id!))).toEqual([]);
+  await db.insert(invitations).values(withdrawn!);
+}

@@ -4,8 +4,8 @@ import {
   bestQuarter,
   buildLiftTimeline,
   flightLift,
-  median,
 } from "@/lib/days/lift-timeline";
+import { median } from "@/lib/hangar/stats";
 
 // A hand-made day starting 10:00 UTC on 2026-06-06.
 const T0 = Date.UTC(2026, 5, 6, 10, 0, 0);
@@ -23,11 +23,11 @@ const day = [
   { pilotId: "b", launchedAtMs: at(59), durationMs: s(40) }, // 10:45 bin → 0
 ];
 
-describe("median", () => {
+describe("median (the hangar's, which the lift timeline uses)", () => {
   it("takes the middle of an odd list and the mean of the two middles of an even one", () => {
     expect(median([120, 60, 90])).toBe(90);
     expect(median([80, 30, 50, 40])).toBe(45);
-    expect(median([])).toBe(0);
+    expect(median([])).toBeNull();
   });
 });
 
@@ -99,5 +99,10 @@ describe("describeLiftTimeline", () => {
       "7 flights from 10:00 to 10:45, by quarter hour, weighted by how far each flight beat its pilot's usual time; the best air came at 10:30.",
     );
     expect(describeLiftTimeline([], hhmm)).toMatch(/No flights/);
+    // one quarter hour: not "from 10:00 to 10:00"; one flight is "1 flight"
+    expect(describeLiftTimeline(buildLiftTimeline(day.slice(0, 2)), hhmm)).toBe(
+      "2 flights in the quarter hour from 10:00; no flight beat its pilot's usual time, so no quarter hour stands out.",
+    );
+    expect(describeLiftTimeline(buildLiftTimeline(day.slice(0, 1)), hhmm)).toMatch(/^1 flight in the quarter hour from 10:00;/);
   });
 });

@@ -31,11 +31,10 @@ describe("eventRefusal", () => {
 });
 
 describe("runSessionRefusal and pilotRefusal", () => {
-  it("allows runs in one's own sessions and in club days of one's clubs only", () => {
-    expect(runSessionRefusal("ada", { ownerId: "ada", fieldDayClubId: null }, new Set())).toBeNull();
-    expect(runSessionRefusal("ada", { ownerId: "ines", fieldDayClubId: "club" }, new Set(["club"]))).toBeNull();
-    expect(runSessionRefusal("ada", { ownerId: "ines", fieldDayClubId: null }, new Set(["club"]))).toMatch(/own sessions/);
-    expect(runSessionRefusal("ada", null, new Set())).toMatch(/not on the server/);
+  it("allows runs in one's own sessions only", () => {
+    expect(runSessionRefusal("ada", { ownerId: "ada" })).toBeNull();
+    expect(runSessionRefusal("ada", { ownerId: "ines" })).toMatch(/own sessions/);
+    expect(runSessionRefusal("ada", null)).toMatch(/not on the server/);
   });
 
   it("names as pilot oneself or a club mate, never a stranger", () => {

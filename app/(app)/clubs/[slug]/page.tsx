@@ -4,6 +4,7 @@ import { Suspense } from "react";
 import { ROLE_LABEL } from "@/lib/clubs/roles";
 import { clubPageAccess } from "./_components/access";
 import { Coming } from "./_components/coming";
+import { Days } from "./_components/days";
 import { Fields } from "./_components/fields";
 import { Members } from "./_components/members";
 import { RecentResults } from "./_components/recent-results";
@@ -27,8 +28,11 @@ export default async function ClubPage({ params }: { params: Promise<{ slug: str
       <Suspense fallback={<p aria-busy="true">Loading the fields…</p>}>
         <Fields access={access} />
       </Suspense>
+      <Suspense fallback={<p aria-busy="true">Loading the field days…</p>}>
+        <Days access={access} />
+      </Suspense>
       <Suspense fallback={<p aria-busy="true">Loading what is coming…</p>}>
-        <Coming clubId={club.id} />
+        <Coming clubId={club.id} slug={club.slug} />
       </Suspense>
       <Suspense fallback={<p aria-busy="true">Loading members…</p>}>
         <Members access={access} />

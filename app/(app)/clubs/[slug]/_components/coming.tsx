@@ -4,7 +4,7 @@ import { listComing } from "@/db/queries/club-home";
 import { formatDate } from "@/lib/format";
 
 /** The club's coming field days and contests (from today, UTC), soonest first; a plain line when there are none. */
-export async function Coming({ clubId }: { clubId: string }) {
+export async function Coming({ clubId, slug }: { clubId: string; slug: string }) {
   const items = await listComing(db, { clubId, today: new Date().toISOString().slice(0, 10) });
   return (
     <section aria-labelledby="coming" className="space-y-3">
@@ -18,7 +18,7 @@ export async function Coming({ clubId }: { clubId: string }) {
           {items.map((i) => (
             <li key={`${i.kind}-${i.id}`} className="card rounded-xl border border-line bg-raised p-3">
               <p className="font-bold">
-                {i.kind === "day" ? `Field day: ${i.fieldName}` : <Link className="underline" href={`/contests/${i.id}`}>Contest: {i.name}</Link>}
+                {i.kind === "day" ? <Link className="underline" href={`/clubs/${slug}/days/${i.on}`}>Field day: {i.fieldName}</Link> : <Link className="underline" href={`/contests/${i.id}`}>Contest: {i.name}</Link>}
               </p>
               <p className="text-sm text-muted">
                 {formatDate(new Date(`${i.on}T12:00:00Z`))}

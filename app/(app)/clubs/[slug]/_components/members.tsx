@@ -52,8 +52,11 @@ export async function Members({ access }: { access: ClubAccess }) {
           {pending.length > 0 ? (
             <ul aria-label="Invitations not yet used" className="space-y-1 text-sm">
               {pending.map((p) => (
-                <li key={p.id}>
-                  {p.email} · {ROLE_LABEL[p.role]} · link works until {formatDate(p.expiresAt)}
+                <li key={p.id} className="flex flex-wrap items-center justify-between gap-2">
+                  <span>
+                    {p.email} · {ROLE_LABEL[p.role]} · link works until {formatDate(p.expiresAt)}
+                  </span>
+                  <ActionButton method="DELETE" url={`/api/clubs/${club.slug}/invitations/${p.id}`} label={`Withdraw the invitation to ${p.email}`} confirm={`Withdraw the invitation to ${p.email}? Its link stops working.`} />
                 </li>
               ))}
             </ul>

@@ -4,6 +4,7 @@ import { useSearchParams } from "next/navigation";
 import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulings, TimelineStrip } from "@/components/run";
 import { DiscardButton } from "@/components/field/discard-button";
 import { RunNotes } from "@/components/notes/run-notes";
+import { ClubDayChoice } from "@/components/run/club-day-choice";
 import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
@@ -92,6 +93,7 @@ export function RunReview() {
         );
       })}
       <RunNotes run={run} me={me} />
+      <ClubDayChoice runId={run.id} />
       <section aria-labelledby="versions-h" className="space-y-2">
         <h2 id="versions-h" className="text-lg font-bold">Server result and each phone’s version</h2>
         <Versions run={run} deviceId={data.deviceId} />

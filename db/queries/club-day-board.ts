@@ -1,0 +1,130 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import type { ClockEstimate } from "@/lib/clock";
+import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
+import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
+import type { Database } from "../index";
+
+export type { DayBoardView };
+
+type LaneRow = {
+  run_id: string; session_field: string; created_at: Date | string; created_by: string; task_code: string; chosen: boolean;
+  lane: number; pilot_user_id: string; result_tenths: number | null; needs_review: boolean; derived: unknown;
+  status: "accepted" | "pending" | null; ground: (number | null)[] | null;
+};
+
+/**
+ * The lanes of every run that may belong to the club's day: runs whose session names one of the
+ * day's fields and whose phone put them within a day of it (matchDayRuns then keeps those whose
+ * corrected start falls on the day), and runs a pilot chose for the day. Only runs set up by a
+ * member, only lanes flown by a member whose account is enabled, and never a lane its pilot
+ * disputed or hid (lib/sync/consent.ts): own, accepted and pending lanes show.
+ */
+async function candidateLanes(db: Database, params: { clubId: string; day: string }): Promise<LaneRow[]> {
+  const { startMs, endMs } = dayBounds(params.day);
+  const from = new Date(startMs - DAY_MS).toISOString();
+  const to = new Date(endMs + DAY_MS).toISOString();
+  const res = await db.execute<LaneRow>(sql`
+    with d as (select id, field_id from club_days where club_id = ${params.clubId} and day = ${params.day}::date),
+    names as (select lower(regexp_replace(btrim(f.name), '\\s+', ' ', 'g')) as k from club_fields f join d on d.field_id = f.id),
+    chosen as (select distinct cr.run_id from club_day_runs cr join d on d.id = cr.day_id),
+    cand as (
+      select r.id from runs r join field_sessions s on s.id = r.session_id
+      where r.created_at >= ${from}::timestamptz and r.created_at < ${to}::timestamptz
+        and lower(regexp_replace(btrim(s.field_name), '\\s+', ' ', 'g')) in (select k from names)
+      union select run_id from chosen
+    )
+    select r.id as run_id, s.field_name as session_field, r.created_at, r.created_by, r.task_code,
+      (ch.run_id is not null) as chosen, l.lane, l.pilot_user_id, l.result_tenths, l.needs_review, l.derived,
+      case when r.created_by = l.pilot_user_id then null else coalesce(c.status::text, 'pending') end as status,
+      (select array_agg(lf.ground_ms order by lf.position) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane) as ground
+    from cand
+    join runs r on r.id = cand.id
+    join field_sessions s on s.id = r.session_id
+    join memberships mc on mc.club_id = ${params.clubId} and mc.user_id = r.created_by
+    join run_lanes l on l.run_id = r.id
+    join memberships mp on mp.club_id = ${params.clubId} and mp.user_id = l.pilot_user_id
+    join users u on u.id = l.pilot_user_id and u.disabled_at is null
+    left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
+    left join chosen ch on ch.run_id = r.id
+    where r.created_by = l.pilot_user_id or c.status is null or c.status = 'accepted'
+    order by r.id, l.lane`);
+  return res.rows;
+}
+
+/** A uuid[] literal of bound parameters (never empty: an empty list gives an empty typed array). */
+const uuids = (ids: readonly string[]) =>
+  ids.length === 0 ? sql`array[]::uuid[]` : sql`array[${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)}]`;
+
+type DeviceRow = { id: string; user_id: string; first_wall: number | null; estimates: ClockEstimate[] };
+
+/** The phones that recorded the day's lanes (members' only), with every clock estimate each one stored. */
+async function dayDevices(db: Database, params: { clubId: string; deviceIds: string[]; runIds: string[] }): Promise<DeviceRow[]> {
+  if (params.deviceIds.length === 0) return [];
+  const res = await db.execute<DeviceRow>(sql`
+    select d.id, d.user_id,
+      (select min(e.wall_ms) from events e where e.device_id = d.id and e.run_id = any(${uuids(params.runIds)})) as first_wall,
+      coalesce((select json_agg(json_build_object('thetaMs', x.theta_ms, 'deltaMs', x.delta_ms, 'measuredAtWallMs', x.measured_at_wall_ms))
+        from device_clock_estimates x where x.device_id = d.id), '[]'::json) as estimates
+    from devices d join memberships m on m.user_id = d.user_id and m.club_id = ${params.clubId}
+    where d.id = any(array[${sql.join(params.deviceIds.map((id) => sql`${id}::text`), sql`, `)}])
+    order by d.id`);
+  return res.rows;
+}
+
+/** The Day board of a club's date, or null when no day is open at any of its fields on that date. */
+export async function getDayBoard(db: Database, params: { clubId: string; day: string }): Promise<DayBoardView | null> {
+  const days = await db.execute<{ field_id: string; name: string; closed_at: Date | string | null }>(sql`
+    select d.field_id, f.name, d.closed_at from club_days d join club_fields f on f.id = d.field_id
+    where d.club_id = ${params.clubId} and d.day = ${params.day}::date order by f.name`);
+  if (days.rows.length === 0) return null;
+  const fields = days.rows.map((r) => ({ id: r.field_id, name: r.name }));
+
+  const rows = await candidateLanes(db, params);
+  const byRun = new Map<string, LaneRow[]>();
+  for (const r of rows) byRun.set(r.run_id, [...(byRun.get(r.run_id) ?? []), r]);
+  const matched = matchDayRuns(
+    [...byRun.entries()].map(([runId, lanes]) => ({
+      runId, sessionField: lanes[0]!.session_field, createdAtMs: new Date(lanes[0]!.created_at).getTime(), chosen: lanes[0]!.chosen,
+      laneDerived: lanes.map((l) => l.derived), lanes,
+    })),
+    params.day,
+    fields.map((f) => f.name),
+  );
+  const fieldByKey = new Map(fields.map((f) => [fieldKey(f.name), f.name]));
+  const lanes: BoardLaneInput[] = matched.flatMap((m) =>
+    m.lanes.map((l) => ({
+      runId: m.runId, startMs: m.startMs, fieldName: fieldByKey.get(fieldKey(l.session_field)) ?? l.session_field,
+      taskCode: l.task_code, createdBy: l.created_by, lane: l.lane, pilotId: l.pilot_user_id,
+      consent: l.status ?? "own", resultTenths: l.result_tenths, needsReview: l.needs_review, derived: l.derived, groundMs: l.ground ?? [],
+    })),
+  );
+
+  const deviceIds = new Set<string>();
+  for (const l of lanes) {
+    for (const v of (l.derived as { versions?: { deviceId?: unknown }[] } | null)?.versions ?? []) if (typeof v.deviceId === "string") deviceIds.add(v.deviceId);
+  }
+  const devices = await dayDevices(db, { clubId: params.clubId, deviceIds: [...deviceIds], runIds: matched.map((m) => m.runId) });
+  const board = buildDayBoard(
+    lanes,
+    devices.flatMap((d) => (d.first_wall === null ? [] : [{ deviceId: d.id, ownerId: d.user_id, firstWallMs: Number(d.first_wall), estimates: d.estimates }])),
+    dayBounds(params.day),
+  );
+
+  const ids = new Set<string>([
+    ...lanes.flatMap((l) => [l.pilotId, l.createdBy]),
+    ...board.runs.flatMap((r) => r.lanes.map((l) => l.timedBy)),
+    ...devices.map((d) => d.user_id),
+  ]);
+  const people = await db.execute<{ id: string; name: string }>(sql`
+    select u.id, u.name from users u join memberships m on m.user_id = u.id and m.club_id = ${params.clubId}
+    where u.id = any(${uuids([...ids])})`);
+  const closed = days.rows.map((r) => r.closed_at).find((c) => c !== null) ?? null;
+  return {
+    ...board,
+    day: params.day,
+    fields,
+    closedAt: closed === null ? null : new Date(closed).toISOString(),
+    people: Object.fromEntries(people.rows.map((p) => [p.id, p.name])),
+  };
+}
