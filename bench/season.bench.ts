@@ -40,7 +40,7 @@ console.log(`machine: ${os.cpus().length} cores, load ${os.loadavg()[0]!.toFixed
 const t0 = performance.now();
 const { pilotId, email } = await seedBenchSeason({ runs: RUNS, flights: 6, password: PASSWORD });
 const counted = await db.execute<{ lanes: number; flights: number }>(sql`
-  select count(*)::int as lanes, sum(jsonb_array_length(season_flights))::int as flights from run_lanes where pilot_user_id = ${pilotId}`);
+  select count(*)::int as lanes, sum(jsonb_array_length(derived -> 'flights'))::int as flights from run_lanes where pilot_user_id = ${pilotId}`);
 console.log(`seeded ${counted.rows[0]!.lanes} runs / ${counted.rows[0]!.flights} flights for one pilot in ${((performance.now() - t0) / 1000).toFixed(0)} s`);
 
 try {
