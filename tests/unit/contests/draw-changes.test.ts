@@ -66,7 +66,7 @@ describe("swapping two pilots of a round", () => {
   it("refuses a swap that puts a pilot with one they are kept apart from (any case), and allows the two who share the word to trade", () => {
     const apart = entries.map((e) => (e.id === "B" || e.id === "G" ? { ...e, keepApart: e.id === "B" ? "Sam's helper" : "sam's HELPER" } : e));
     expect(swapPilots({ round, a: "B", b: "H", entries: apart, names })).toEqual({ ok: false, reason: "Pilot B is to be kept apart from Pilot G, who flies in group 2." });
-    expect(swapPilots({ round, a: "F", b: "G", entries: apart, names }).ok).toBe(false); // F into group 2? no: same group
+    expect(swapPilots({ round, a: "F", b: "G", entries: apart, names }).ok).toBe(false); // both fly in group 2 already
     expect(swapPilots({ round, a: "A", b: "G", entries: apart, names })).toEqual({ ok: false, reason: "Pilot G is to be kept apart from Pilot B, who flies in group 1." });
     expect(swapPilots({ round, a: "B", b: "G", entries: apart, names }).ok).toBe(true); // they only trade places: still apart
   });

@@ -13,8 +13,8 @@ import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
 import { ActionButton, EnterForm, PaperEntryForm } from "./_components/actions";
-import { DrawChangeList, DrawChanges } from "./_components/draw-changes";
-import { DrawLists } from "./_components/draw-lists";
+import { DrawChanges } from "./_components/draw-changes";
+import { DrawChangeList, DrawLists } from "./_components/draw-lists";
 import { MyFee, OfficerFees } from "./_components/fees";
 
 const closing = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });

@@ -93,16 +93,3 @@ export function DrawChanges({ contestId, slots, names, rounds }: { contestId: st
     </div>
   );
 }
-
-/** The draw's changes, newest first, with who made them and when (every member sees why a group changed). */
-export function DrawChangeList({ changes }: { changes: { id: string; summary: string; by: string | null; at: string }[] }) {
-  if (changes.length === 0) return null;
-  return (
-    <section aria-labelledby="changes-title" className="space-y-1">
-      <h3 id="changes-title" className="font-bold">Changes to the draw</h3>
-      <ul className="space-y-1 text-sm">
-        {changes.map((c) => <li key={c.id}>{c.summary} <span className="text-muted">— {c.by ?? "a former officer"}, {c.at}</span></li>)}
-      </ul>
-    </section>
-  );
-}
