@@ -1,6 +1,7 @@
 "use client";
 
 import { useLiveQuery } from "dexie-react-hooks";
+import { requestJson } from "@/components/request/json";
 import { useSync } from "@/components/sync/sync-provider";
 import { formatDate } from "@/lib/format";
 import { getMeta, getWindowcallDb, setMeta } from "@/lib/offline/db";
@@ -11,10 +12,7 @@ import { NoteForm } from "./note-form";
 
 /** Sends a note or an answer; the reply is kept in the device database at once, and a pull follows. */
 async function post(url: string, body: unknown): Promise<PulledNote> {
-  const res = await fetch(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }).catch(() => null);
-  if (!res) throw new Error("Could not reach the server. This needs a connection.");
-  const data = (await res.json().catch(() => null)) as { note?: PulledNote; error?: { message?: string } } | null;
-  if (!res.ok || !data?.note) throw new Error(data?.error?.message ?? "Nothing was sent. Try again.");
+  const data = await requestJson<{ note: PulledNote }>("POST", url, body);
   const db = getWindowcallDb();
   const kept = (await getMeta(db, "notes")) ?? [];
   await setMeta(db, "notes", [...kept.filter((n) => n.id !== data.note!.id), data.note]);

@@ -1,6 +1,7 @@
 "use client";
 
 import { useEffect, useState } from "react";
+import { sendJson } from "@/components/request/json";
 import { InlineError } from "@/components/ui/form-footer";
 
 type Choice = { dayId: string; clubSlug: string; clubName: string; fieldName: string; day: string; chosen: boolean };
@@ -32,14 +33,9 @@ export function ClubDayChoice({ runId }: { runId: string }) {
   async function toggle(c: Choice) {
     setBusy(c.dayId);
     setError(null);
-    const res = await fetch(`/api/runs/${runId}/club-days`, {
-      method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ dayId: c.dayId, chosen: !c.chosen }),
-    }).catch(() => null);
+    const reply = await sendJson("PUT", `/api/runs/${runId}/club-days`, { dayId: c.dayId, chosen: !c.chosen });
     setBusy(null);
-    if (!res?.ok) {
-      const body = (await res?.json().catch(() => null)) as { error?: { message?: string } } | null;
-      return setError(body?.error?.message ?? "Could not reach the server. This needs a connection.");
-    }
+    if (!reply.ok) return setError(reply.message);
     setVersion((v) => v + 1);
   }
 

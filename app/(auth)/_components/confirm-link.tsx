@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
-import { postJson } from "./post-json";
+import { sendJson } from "@/components/request/json";
 
 /**
  * A mailed link's page: one button that uses the token. It is not used on load, so a mail scanner
@@ -16,7 +16,7 @@ export function ConfirmLink({ token, url, action, done }: { token: string; url: 
 
   async function confirm() {
     setBusy(true);
-    const reply = await postJson(url, { token });
+    const reply = await sendJson("POST", url, { token });
     setBusy(false);
     setState(reply.ok ? { ok: true, message: done } : { ok: false, message: reply.message ?? "Something went wrong." });
   }

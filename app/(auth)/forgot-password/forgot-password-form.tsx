@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { forgotPasswordSchema, type ForgotPasswordInput } from "@/lib/validations/email";
-import { postJson } from "../_components/post-json";
+import { sendJson } from "@/components/request/json";
 
 /**
  * Asks for a reset link (react-hook-form with the zod resolver: the message beside the field; a
@@ -17,7 +17,7 @@ export function ForgotPasswordForm({ initialEmail }: { initialEmail: string }) {
   const { register, handleSubmit, setError, formState } = useForm<ForgotPasswordInput>({ resolver: zodResolver(forgotPasswordSchema), defaultValues: { email: initialEmail } });
 
   async function onValid(data: ForgotPasswordInput) {
-    const reply = await postJson("/api/account/forgot-password", data);
+    const reply = await sendJson("POST", "/api/account/forgot-password", data);
     if (!reply.ok) return setError("email", { message: reply.message });
     setSentTo(data.email);
   }

@@ -2,6 +2,7 @@
 
 import Link from "next/link";
 import { useState } from "react";
+import { sendJson } from "@/components/request/json";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 
@@ -12,11 +13,9 @@ export function JoinButton({ token, clubName, who }: { token: string; clubName: 
 
   async function join() {
     setBusy(true);
-    const res = await fetch("/api/invitations/accept", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ token }) }).catch(() => null);
-    const data = (await res?.json().catch(() => null)) as { joined?: { slug: string }; error?: { message?: string } } | null;
+    const reply = await sendJson<{ joined: { slug: string } }>("POST", "/api/invitations/accept", { token });
     setBusy(false);
-    if (res?.ok && data?.joined) return setState({ ok: true, slug: data.joined.slug });
-    setState({ ok: false, message: data?.error?.message ?? (res ? "Something went wrong. Try again." : "Could not reach the server. Try again when online.") });
+    setState(reply.ok ? { ok: true, slug: reply.data.joined.slug } : { ok: false, message: reply.message });
   }
 
   if (state?.ok) {

@@ -7,7 +7,7 @@ import { useForm } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { FormFooter } from "@/components/ui/form-footer";
 import { resetPasswordFormSchema, type ResetPasswordFormInput } from "@/lib/validations/email";
-import { postJson } from "../_components/post-json";
+import { sendJson } from "@/components/request/json";
 
 /**
  * The new password for the account the link was sent to (react-hook-form with the zod resolver:
@@ -21,7 +21,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
   async function onValid({ password }: ResetPasswordFormInput) {
     setError(undefined);
-    const reply = await postJson("/api/account/reset-password", { token, password });
+    const reply = await sendJson("POST", "/api/account/reset-password", { token, password });
     if (!reply.ok) {
       const onField = reply.issues?.find((i) => i.path === "password")?.message;
       if (onField) return form.setError("password", { message: onField });

@@ -1,10 +1,9 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
+import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { useSend } from "@/components/request/use-send";
 import type { AdminUserAction } from "@/lib/validations/admin";
-import { adminRequest } from "./admin-request";
 
 type Props = { userId: string; email: string; role: "member" | "admin"; disabled: boolean; isMe: boolean };
 
@@ -15,33 +14,29 @@ const DONE: Record<AdminUserAction["action"], string> = { disable: "Disabled", e
  * request; the page then reloads its server parts (this list and the audit log).
  */
 export function UserActions({ userId, email, role, disabled, isMe }: Props) {
-  const router = useRouter();
-  const [busy, startTransition] = useTransition();
-  const [message, setMessage] = useState<{ text: string; error: boolean } | null>(null);
+  const { send, busy, error } = useSend();
+  const [done, setDone] = useState<string | null>(null);
 
-  function act(change: AdminUserAction) {
-    setMessage(null);
-    startTransition(async () => {
-      const reply = await adminRequest(`/api/admin/users/${userId}`, "PATCH", change);
-      if (!reply.ok) return setMessage({ text: reply.message, error: true });
-      setMessage({ text: `${DONE[change.action]} ${email}.`, error: false });
-      router.refresh();
-    });
+  async function act(change: AdminUserAction) {
+    setDone(null);
+    const reply = await send("PATCH", `/api/admin/users/${userId}`, change);
+    if (reply?.ok) setDone(`${DONE[change.action]} ${email}.`);
   }
+  const message = error ? { text: error, error: true } : done ? { text: done, error: false } : null;
 
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap gap-2">
         {disabled ? (
-          <Button variant="secondary" disabled={busy} onClick={() => act({ action: "enable" })}>
+          <Button variant="secondary" disabled={busy} onClick={() => void act({ action: "enable" })}>
             Re-enable
           </Button>
         ) : (
-          <Button variant="danger" disabled={busy} onClick={() => act({ action: "disable" })}>
+          <Button variant="danger" disabled={busy} onClick={() => void act({ action: "disable" })}>
             {isMe ? "Disable my account" : "Disable"}
           </Button>
         )}
-        <Button variant="secondary" disabled={busy} onClick={() => act({ action: "set-role", role: role === "admin" ? "member" : "admin" })}>
+        <Button variant="secondary" disabled={busy} onClick={() => void act({ action: "set-role", role: role === "admin" ? "member" : "admin" })}>
           {role === "admin" ? "Make member" : "Make admin"}
         </Button>
       </div>

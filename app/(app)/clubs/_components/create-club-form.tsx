@@ -7,7 +7,7 @@ import { useForm } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { FormFooter } from "@/components/ui/form-footer";
 import { createClubSchema, type CreateClubInput } from "@/lib/validations/clubs";
-import { sendJson } from "./send-json";
+import { sendJson } from "@/components/request/json";
 
 /** Start a club: its name; you become its first officer and land on its home. */
 export function CreateClubForm() {

@@ -4,7 +4,8 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { coachKeys, coachRequest, type RosterPilot } from "./coach-api";
+import { coachKeys, type RosterPilot } from "./coach-api";
+import { requestJson } from "@/components/request/json";
 import { RosterTable } from "./roster-table";
 import { PlanBuilder } from "./plan-builder";
 import { PlanList } from "./plan-list";
@@ -14,12 +15,12 @@ import type { PulledPlan } from "@/lib/validations/coaching-sync";
 /** The Coach desk: the roster (each granting pilot, one tap into their Season) and the one-time code box. */
 export function CoachDesk() {
   const client = useQueryClient();
-  const roster = useQuery({ queryKey: coachKeys.roster, queryFn: () => coachRequest<{ pilots: RosterPilot[] }>("/api/coach/pilots") });
-  const plans = useQuery({ queryKey: coachKeys.plans, queryFn: () => coachRequest<{ plans: PulledPlan[] }>("/api/coach/plans") });
+  const roster = useQuery({ queryKey: coachKeys.roster, queryFn: () => requestJson<{ pilots: RosterPilot[] }>("GET", "/api/coach/pilots") });
+  const plans = useQuery({ queryKey: coachKeys.plans, queryFn: () => requestJson<{ plans: PulledPlan[] }>("GET", "/api/coach/plans") });
   const [code, setCode] = useState("");
   const [note, setNote] = useState<string | null>(null);
   const claim = useMutation({
-    mutationFn: (c: string) => coachRequest<{ pilotId: string }>("/api/coach/claim", { method: "POST", body: { code: c } }),
+    mutationFn: (c: string) => requestJson<{ pilotId: string }>("POST", "/api/coach/claim", { code: c }),
     onSuccess: () => {
       setCode("");
       setNote("Code accepted: the pilot is on your roster.");

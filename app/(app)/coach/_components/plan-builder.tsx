@@ -9,7 +9,8 @@ import { EMPTY_ITEM, planFormSchema, planFromForm, planToForm, type PlanForm } f
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 import { itemTaskText, PLAN_ITEMS_MAX } from "@/lib/coach/plan-goals";
 import { CATALOGUE, type TaskLetter } from "@/lib/tasks";
-import { coachKeys, coachRequest, type RosterPilot } from "./coach-api";
+import { coachKeys, type RosterPilot } from "./coach-api";
+import { requestJson } from "@/components/request/json";
 
 const TASKS = (Object.keys(CATALOGUE) as TaskLetter[]).flatMap((letter) =>
   CATALOGUE[letter].map((d) => {
@@ -38,8 +39,8 @@ export function PlanBuilder({ pilots, editing }: { pilots: RosterPilot[]; editin
     mutationFn: (f: PlanForm) => {
       const { pilotId, ...plan } = planFromForm(f);
       return editing
-        ? coachRequest(`/api/coach/plans/${editing.id}`, { method: "PATCH", body: plan })
-        : coachRequest("/api/coach/plans", { method: "POST", body: { pilotId, ...plan } });
+        ? requestJson("PATCH", `/api/coach/plans/${editing.id}`, plan)
+        : requestJson("POST", "/api/coach/plans", { pilotId, ...plan });
     },
     onSuccess: () => {
       if (!editing) reset({ pilotId: form.getValues("pilotId"), title: "", items: [EMPTY_ITEM] });

@@ -6,7 +6,8 @@ import { Button } from "@/components/ui/button";
 import { itemTaskText, progressText } from "@/lib/coach/plan-goals";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 import { describeAge } from "../../season/_components/data-age";
-import { coachKeys, coachRequest, type RosterPilot } from "./coach-api";
+import { coachKeys, type RosterPilot } from "./coach-api";
+import { requestJson } from "@/components/request/json";
 import { PlanBuilder } from "./plan-builder";
 
 /**
@@ -51,7 +52,7 @@ function PlanActions({ plan, pilots }: { plan: PulledPlan; pilots: RosterPilot[]
   const closed = plan.closedAtMs !== null;
   const [editing, setEditing] = useState(false);
   const toggle = useMutation({
-    mutationFn: () => coachRequest(`/api/coach/plans/${plan.id}`, { method: "PATCH", body: { closed: !closed } }),
+    mutationFn: () => requestJson("PATCH", `/api/coach/plans/${plan.id}`, { closed: !closed }),
     onSuccess: () => client.invalidateQueries({ queryKey: coachKeys.plans }),
   });
   return (

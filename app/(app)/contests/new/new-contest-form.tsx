@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { sendJson } from "@/components/request/json";
 import { checkSetup } from "@/lib/contests/setup";
 import { CURRENCIES } from "@/lib/payments/fees";
 

@@ -4,16 +4,13 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { sendJson } from "./post-json";
+import { requestJson } from "@/components/request/json";
 
 const STATUSES = [["flying", "Flying"], ["being-repaired", "Being repaired"], ["retired", "Retired"], ["sold", "Sold"]] as const;
 
 export type WaitingOffer = { email: string; withHistory: boolean; expiresOn: string };
 
-async function withdrawOffer(modelId: string) {
-  const res = await fetch(`/api/models/${modelId}/transfer`, { method: "DELETE" });
-  if (!res.ok) throw new Error(((await res.json().catch(() => ({}))) as { error?: { message?: string } }).error?.message ?? `The server answered ${res.status}.`);
-}
+const withdrawOffer = (modelId: string) => requestJson("DELETE", `/api/models/${modelId}/transfer`);
 
 /**
  * Status, and offering the model to its buyer by e-mail (with its history only if the seller ticks
@@ -40,7 +37,7 @@ export function ModelActions({ modelId, status, offer }: { modelId: string; stat
       <h2 id="actions-h" className="text-lg font-bold">Status and sale</h2>
       <label htmlFor="model-status" className="block font-semibold">Status</label>
       <select id="model-status" defaultValue={status} className="min-h-14 w-full rounded-lg border-2 border-line bg-raised px-3 text-lg"
-        onChange={(e) => act(() => sendJson(`/api/models/${modelId}`, { status: e.target.value }, "PATCH"), "Status saved.")}>
+        onChange={(e) => act(() => requestJson("PATCH", `/api/models/${modelId}`, { status: e.target.value }), "Status saved.")}>
         {STATUSES.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
       </select>
       {offer ? (
@@ -52,7 +49,7 @@ export function ModelActions({ modelId, status, offer }: { modelId: string; stat
           <Button type="button" variant="secondary" onClick={() => void act(() => withdrawOffer(modelId), "Offer withdrawn.")}>Withdraw the offer</Button>
         </div>
       ) : status === "sold" ? null : (
-        <form className="space-y-3" aria-label="Offer to a buyer" onSubmit={(e) => { e.preventDefault(); void act(() => sendJson(`/api/models/${modelId}/transfer`, { email, withHistory }), "Offered. If an account uses that address, it sees the offer in its hangar."); }}>
+        <form className="space-y-3" aria-label="Offer to a buyer" onSubmit={(e) => { e.preventDefault(); void act(() => requestJson("POST", `/api/models/${modelId}/transfer`, { email, withHistory }), "Offered. If an account uses that address, it sees the offer in its hangar."); }}>
           <TextField id="buyer-email" type="email" label="Buyer's e-mail address" value={email} onChange={(e) => setEmail(e.target.value)} required />
           <label className="flex min-h-12 items-center gap-3"><input type="checkbox" className="size-6" checked={withHistory} onChange={(e) => setWithHistory(e.target.checked)} /> Hand over its history (flights, launch heights, repairs)</label>
           <Button type="submit" variant="danger">Offer the model</Button>

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { classCautions } from "@/lib/hangar/limits";
-import { sendJson } from "./post-json";
+import { requestJson } from "@/components/request/json";
 
 /** Adds a model. Over the class limits it warns as you type, and still saves. */
 export function ModelForm() {
@@ -20,7 +20,7 @@ export function ModelForm() {
     setBusy(true);
     setError(null);
     try {
-      const { model } = await sendJson<{ model: { id: string } }>("/api/models", { ...form, spanMm: Number(form.spanMm), massG: Number(form.massG) });
+      const { model } = await requestJson<{ model: { id: string } }>("POST", "/api/models", { ...form, spanMm: Number(form.spanMm), massG: Number(form.massG) });
       router.push(`/hangar/${model.id}`);
     } catch (err) {
       setError((err as Error).message);

@@ -3,7 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { sendJson } from "./post-json";
+import { requestJson } from "@/components/request/json";
 
 export type OfferView = { id: string; modelName: string; spanMm: number; massG: number; marking: string; sellerName: string; withHistory: boolean };
 
@@ -16,7 +16,7 @@ export function OffersToMe({ offers }: { offers: OfferView[] }) {
     setBusy(offer.id);
     setMessage(null);
     try {
-      const r = await sendJson<{ answer: string; modelId?: string }>(`/api/model-offers/${offer.id}`, { answer: a });
+      const r = await requestJson<{ answer: string; modelId?: string }>("POST", `/api/model-offers/${offer.id}`, { answer: a });
       setMessage(a === "accept" ? `${offer.modelName} is in your hangar.` : `You declined ${offer.modelName}.`);
       if (r.modelId) router.push(`/hangar/${r.modelId}`);
       else router.refresh();

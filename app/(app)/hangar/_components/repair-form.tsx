@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { sendJson } from "./post-json";
+import { requestJson } from "@/components/request/json";
 
 /** Logs a repair: when, what was done, the mass after it (becomes the model's mass). */
 export function RepairForm({ modelId }: { modelId: string }) {
@@ -16,7 +16,7 @@ export function RepairForm({ modelId }: { modelId: string }) {
     e.preventDefault();
     setError(null);
     try {
-      await sendJson(`/api/models/${modelId}/repairs`, { ...form, massAfterG: form.massAfterG ? Number(form.massAfterG) : null });
+      await requestJson("POST", `/api/models/${modelId}/repairs`, { ...form, massAfterG: form.massAfterG ? Number(form.massAfterG) : null });
       setForm({ ...form, work: "", massAfterG: "" });
       router.refresh();
     } catch (err) {

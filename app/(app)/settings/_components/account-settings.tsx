@@ -4,7 +4,8 @@ import { useState } from "react";
 import { useSessionState } from "@/components/auth/session-state";
 import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
-import { accountRequest, signOutHere } from "./account-request";
+import { sendJson } from "@/components/request/json";
+import { signOutHere } from "./account-session";
 import { ChangePasswordForm } from "./change-password-form";
 import { DeleteAccountForm } from "./delete-account-form";
 import { EmailSettings } from "./email-settings";
@@ -22,7 +23,7 @@ export function AccountSettings() {
   if (!user?.email) return <p className="text-muted">Sign in (with a connection) to manage your account.</p>;
 
   async function signOutEverywhere() {
-    const reply = await accountRequest("/api/account/sign-out-everywhere", "POST", {});
+    const reply = await sendJson("POST", "/api/account/sign-out-everywhere", {});
     if (!reply.ok) return setError(reply.message ?? "Could not sign out everywhere.");
     await signOutHere("?signedOut=everywhere", client);
   }

@@ -9,7 +9,8 @@ import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { changePasswordSchema, type ChangePasswordInput } from "@/lib/validations/account";
-import { accountRequest, fieldErrors, signOutHere } from "./account-request";
+import { sendJson } from "@/components/request/json";
+import { fieldErrors, signOutHere } from "./account-session";
 
 /**
  * Current + new password (react-hook-form with the zod resolver: each message beside its field;
@@ -31,7 +32,7 @@ export function ChangePasswordForm({ email }: { email: string }) {
   async function onValid(data: ChangePasswordInput) {
     setDone(null);
     setFormError(null);
-    const reply = await accountRequest("/api/account/password", "POST", data);
+    const reply = await sendJson("POST", "/api/account/password", data);
     if (!reply.ok) {
       if (reply.code === "wrong_password") return setError("currentPassword", { message: reply.message });
       const byField = fieldErrors<keyof ChangePasswordInput>(reply.issues ?? []);

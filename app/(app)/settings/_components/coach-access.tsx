@@ -4,7 +4,8 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
-import { coachKeys, coachRequest, type PilotGrantRow } from "@/app/(app)/coach/_components/coach-api";
+import { coachKeys, type PilotGrantRow } from "@/app/(app)/coach/_components/coach-api";
+import { requestJson } from "@/components/request/json";
 import { dayText } from "@/app/(app)/season/_components/season-format";
 
 function describe(g: PilotGrantRow): string {
@@ -20,13 +21,13 @@ function describe(g: PilotGrantRow): string {
  */
 export function CoachAccess() {
   const client = useQueryClient();
-  const grants = useQuery({ queryKey: coachKeys.grants, queryFn: () => coachRequest<{ grants: PilotGrantRow[] }>("/api/coach-grants") });
+  const grants = useQuery({ queryKey: coachKeys.grants, queryFn: () => requestJson<{ grants: PilotGrantRow[] }>("GET", "/api/coach-grants") });
   const [email, setEmail] = useState("");
   const [note, setNote] = useState<string | null>(null);
   const refresh = () => client.invalidateQueries({ queryKey: coachKeys.grants });
   const offer = useMutation({
     mutationFn: (body: { kind: "email"; email: string } | { kind: "code" }) =>
-      coachRequest<{ offer: { kind: string; code?: string; email?: string } }>("/api/coach-grants", { method: "POST", body }),
+      requestJson<{ offer: { kind: string; code?: string; email?: string } }>("POST", "/api/coach-grants", body),
     onSuccess: ({ offer: o }) => {
       setNote(o.code ? `Give your coach this code: ${o.code}. It works once, within a day.` : `Offered to ${o.email}. They get access when they open the Coach desk signed in with that address.`);
       setEmail("");
@@ -34,7 +35,7 @@ export function CoachAccess() {
     },
   });
   const revoke = useMutation({
-    mutationFn: (id: string) => coachRequest<void>(`/api/coach-grants/${id}`, { method: "DELETE" }),
+    mutationFn: (id: string) => requestJson<void>("DELETE", `/api/coach-grants/${id}`),
     onSuccess: () => { setNote("Revoked. That coach no longer sees your records."); return refresh(); },
   });
 

@@ -6,7 +6,8 @@ import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { deleteAccountSchema, type DeleteAccountInput } from "@/lib/validations/account";
-import { accountRequest, fieldErrors, signOutHere } from "./account-request";
+import { sendJson } from "@/components/request/json";
+import { fieldErrors, signOutHere } from "./account-session";
 
 /**
  * Deletes the account after its password is typed again (react-hook-form with the zod resolver:
@@ -17,7 +18,7 @@ export function DeleteAccountForm() {
   const { register, handleSubmit, setError, formState } = useForm<DeleteAccountInput>({ resolver: zodResolver(deleteAccountSchema), defaultValues: { password: "" } });
 
   async function onValid(data: DeleteAccountInput) {
-    const reply = await accountRequest("/api/account", "DELETE", data);
+    const reply = await sendJson("DELETE", "/api/account", data);
     if (!reply.ok) return setError("password", { message: fieldErrors<"password">(reply.issues ?? []).password ?? reply.message });
     await signOutHere("?deleted=1", client);
   }

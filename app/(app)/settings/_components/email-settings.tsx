@@ -6,7 +6,8 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { changeEmailSchema, type ChangeEmailInput } from "@/lib/validations/email";
-import { accountRequest, fieldErrors } from "./account-request";
+import { sendJson } from "@/components/request/json";
+import { fieldErrors } from "./account-session";
 
 type State = { email: string; verified: boolean } | "loading" | "offline";
 
@@ -34,13 +35,13 @@ export function EmailSettings() {
   }, []);
 
   async function resend() {
-    const reply = await accountRequest("/api/account/verification", "POST", {});
+    const reply = await sendJson("POST", "/api/account/verification", {});
     setNote(reply.ok ? "Sent. Check your e-mail for the link." : (reply.message ?? "Could not send."));
   }
 
   async function onValid(data: ChangeEmailInput) {
     setFormError(null);
-    const reply = await accountRequest("/api/account/email", "POST", data);
+    const reply = await sendJson("POST", "/api/account/email", data);
     if (!reply.ok) {
       if (reply.code === "wrong_password") return setError("currentPassword", { message: reply.message });
       const byField = fieldErrors<keyof ChangeEmailInput>(reply.issues ?? []);

@@ -5,7 +5,7 @@ import { useSync } from "@/components/sync/sync-provider";
 import { Button } from "@/components/ui/button";
 import { getWindowcallDb } from "@/lib/offline/db";
 import { countKeptAtSignOut } from "@/lib/offline/sign-out";
-import { signOutHere } from "./account-request";
+import { signOutHere } from "./account-session";
 
 /**
  * Signs out and clears this account from the phone (lib/offline/sign-out.ts), so the next person

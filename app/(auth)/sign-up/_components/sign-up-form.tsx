@@ -3,6 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { Suspense, useState } from "react";
 import { useForm } from "react-hook-form";
+import { sendJson } from "@/components/request/json";
 import { TextField } from "@/components/ui/field";
 import { FormFooter } from "@/components/ui/form-footer";
 import { signUpSchema, type SignUpInput } from "@/lib/validations/auth";
@@ -23,15 +24,8 @@ export function SignUpForm() {
 
   async function onValid(data: SignUpInput) {
     setFormError(null);
-    const res = await fetch("/api/account/sign-up", {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(data),
-    }).catch(() => null);
-    if (!res?.ok) {
-      const body = (await res?.json().catch(() => null)) as { error?: { message?: string } } | null;
-      return setFormError(body?.error?.message ?? "Could not reach the server. Try again when online.");
-    }
+    const reply = await sendJson("POST", "/api/account/sign-up", data);
+    if (!reply.ok) return setFormError(reply.message);
     setMade(data.email);
   }
 

@@ -1,8 +1,6 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { sendJson } from "../../_components/send-json";
+import { useSend } from "@/components/request/use-send";
 import { InlineError } from "@/components/ui/form-footer";
 
 type Props = {
@@ -19,20 +17,8 @@ type Props = {
 
 /** One button that sends one request; the server's refusal is shown beside it. */
 export function ActionButton({ url, method, body, label, confirm, then, className = "" }: Props) {
-  const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-
-  async function act() {
-    if (confirm && !window.confirm(confirm)) return;
-    setBusy(true);
-    setError(null);
-    const reply = await sendJson(method, url, body);
-    setBusy(false);
-    if (!reply.ok) return setError(reply.message);
-    if (then) router.push(then);
-    router.refresh();
-  }
+  const { send, busy, error } = useSend();
+  const act = () => void send(method, url, body, { confirm, then });
 
   return (
     <span className="inline-flex flex-col gap-1">

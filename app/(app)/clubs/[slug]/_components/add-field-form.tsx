@@ -7,7 +7,7 @@ import { useForm } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { FormFooter } from "@/components/ui/form-footer";
 import { clubFieldSchema, type ClubField, type ClubFieldInput } from "@/lib/validations/clubs";
-import { sendJson } from "../../_components/send-json";
+import { sendJson } from "@/components/request/json";
 
 const EMPTY = { name: "", latitude: "", longitude: "", launchDirection: "", safetyAreas: "", localRules: "" };
 

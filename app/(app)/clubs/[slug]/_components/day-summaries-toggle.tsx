@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { InlineError } from "@/components/ui/form-footer";
-import { sendJson } from "../../_components/send-json";
+import { sendJson } from "@/components/request/json";
 
 /** The member's own choice: an e-mail with each field day's summary when an officer closes the day. */
 export function DaySummariesToggle({ slug, on }: { slug: string; on: boolean }) {

@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { ROLE_LABEL } from "@/lib/clubs/roles";
 import { CLUB_ROLES, inviteSchema, type InviteInput } from "@/lib/validations/clubs";
-import { sendJson } from "../../_components/send-json";
+import { sendJson } from "@/components/request/json";
 
 /** An officer invites by e-mail with a role: the invitee gets a one-time link that works for 7 days. */
 export function InviteForm({ slug }: { slug: string }) {

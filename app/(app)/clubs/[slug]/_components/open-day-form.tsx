@@ -7,7 +7,7 @@ import { useForm } from "react-hook-form";
 import { TextField } from "@/components/ui/field";
 import { FormFooter } from "@/components/ui/form-footer";
 import { openClubDaySchema, type OpenClubDay } from "@/lib/validations/club-days";
-import { sendJson } from "../../_components/send-json";
+import { sendJson } from "@/components/request/json";
 
 /** An officer opens a field day at one of the club's fields; the Day board opens once it is there. */
 export function OpenDayForm({ slug, fields, today }: { slug: string; fields: { id: string; name: string }[]; today: string }) {

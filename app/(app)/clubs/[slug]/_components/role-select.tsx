@@ -1,27 +1,21 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { CLUB_ROLES } from "@/lib/validations/clubs";
 import { ROLE_LABEL, type ClubRole } from "@/lib/clubs/roles";
-import { sendJson } from "../../_components/send-json";
+import { useSend } from "@/components/request/use-send";
 import { InlineError } from "@/components/ui/form-footer";
 
 /** An officer's choice of a member's role; the change is sent at once and refused with a sentence (e.g. the last officer). */
 export function RoleSelect({ slug, userId, name, role }: { slug: string; userId: string; name: string; role: ClubRole }) {
-  const router = useRouter();
+  const { send, error } = useSend();
   const [value, setValue] = useState(role);
-  const [error, setError] = useState<string | null>(null);
 
+  // the choice shows at once and goes back if the server refuses it
   async function change(next: ClubRole) {
-    setError(null);
     setValue(next);
-    const reply = await sendJson("PATCH", `/api/clubs/${slug}/members/${userId}`, { role: next });
-    if (!reply.ok) {
-      setValue(role);
-      return setError(reply.message);
-    }
-    router.refresh();
+    const reply = await send("PATCH", `/api/clubs/${slug}/members/${userId}`, { role: next });
+    if (reply && !reply.ok) setValue(role);
   }
 
   return (

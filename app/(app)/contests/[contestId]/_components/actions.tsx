@@ -1,19 +1,16 @@
 "use client";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 
 function useAction() {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
+  const { send, error } = useSend();
   async function run(method: "POST" | "DELETE", url: string, body?: unknown) {
-    const reply = await sendJson<{ checkoutUrl?: string | null }>(method, url, body);
+    const reply = await send<{ checkoutUrl?: string | null }>(method, url, body);
     // an entry with a fee goes on to the payments service's page, and comes back here
-    if (reply.ok && reply.data?.checkoutUrl) window.location.assign(reply.data.checkoutUrl);
-    else if (reply.ok) { setMessage(null); router.refresh(); } else setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
+    if (reply?.ok && reply.data?.checkoutUrl) window.location.assign(reply.data.checkoutUrl);
   }
-  return { message, run };
+  return { message: error, run };
 }
 
 const Alert = ({ message }: { message: string | null }) => (message ? <p role="alert" className="text-danger">{message}</p> : null);

@@ -1,7 +1,6 @@
 "use client";
-import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 
@@ -10,24 +9,14 @@ const select = "mt-1 block min-h-touch w-full rounded-lg border-2 border-line bg
 
 /** Sends one change of the draw; the server's refusal shows under the form, a success reloads the lists. */
 function useChange(url: string) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
+  const request = useSend();
   const [done, setDone] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
   async function send(body: unknown) {
-    setBusy(true);
-    const reply = await sendJson<{ summary: string }>("POST", url, body);
-    setBusy(false);
-    if (reply.ok) {
-      setMessage(null);
-      setDone(reply.data.summary);
-      router.refresh();
-    } else {
-      setDone(null);
-      setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
-    }
+    setDone(null);
+    const reply = await request.send<{ summary: string }>("POST", url, body);
+    if (reply?.ok) setDone(reply.data.summary);
   }
-  return { message, done, busy, send };
+  return { message: request.error, done, busy: request.busy, send };
 }
 
 /**

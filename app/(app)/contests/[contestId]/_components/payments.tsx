@@ -1,7 +1,7 @@
 "use client";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { sendJson } from "@/components/request/json";
+import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 
 const Alert = ({ message }: { message: string | null }) => (message ? <p role="alert" className="text-danger">{message}</p> : null);
@@ -26,16 +26,13 @@ export function PayButton({ contestId, entryId, label }: { contestId: string; en
 
 /** The officer marks an entry paid in cash. */
 export function CashButton({ contestId, entryId, pilotName }: { contestId: string; entryId: string; pilotName: string }) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  async function mark() {
-    const reply = await sendJson("POST", `/api/contests/${contestId}/entries/${entryId}/cash`);
-    if (reply.ok) { setMessage(null); router.refresh(); } else setMessage(reply.message);
-  }
+  const { send, busy, error } = useSend();
   return (
     <span>
-      <Button type="button" variant="secondary" className="px-3 text-sm" onClick={() => void mark()}>Mark {pilotName} paid in cash</Button>
-      <Alert message={message} />
+      <Button type="button" variant="secondary" className="px-3 text-sm" disabled={busy} onClick={() => void send("POST", `/api/contests/${contestId}/entries/${entryId}/cash`)}>
+        Mark {pilotName} paid in cash
+      </Button>
+      <Alert message={error} />
     </span>
   );
 }

@@ -1,7 +1,5 @@
 "use client";
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 
@@ -11,13 +9,8 @@ export function PrintButton({ label = "Print" }: { label?: string }) {
 
 /** The officer's public results link: make one (a new one replaces the old), copy it, or revoke it. */
 export function PublicLink({ contestId, token }: { contestId: string; token: string | null }) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const url = `/api/contests/${contestId}/public-link`;
-  async function act(method: "POST" | "DELETE") {
-    const reply = await sendJson(method, url);
-    if (reply.ok) { setMessage(null); router.refresh(); } else setMessage(reply.message);
-  }
+  const { send, busy, error } = useSend();
+  const act = (method: "POST" | "DELETE") => void send(method, `/api/contests/${contestId}/public-link`);
   const href = token ? `/results/${token}` : null;
   return (
     <section aria-labelledby="public-link" className="space-y-2 print:hidden">
@@ -27,10 +20,10 @@ export function PublicLink({ contestId, token }: { contestId: string; token: str
         <p className="break-all"><a className="inline-flex min-h-12 items-center underline" href={href}>{href}</a></p>
       ) : <p className="text-muted">No public link.</p>}
       <div className="flex flex-wrap gap-3">
-        <Button type="button" onClick={() => void act("POST")}>{href ? "Make a new public link" : "Make a public link"}</Button>
-        {href && <Button type="button" variant="danger" onClick={() => void act("DELETE")}>Revoke the public link</Button>}
+        <Button type="button" disabled={busy} onClick={() => act("POST")}>{href ? "Make a new public link" : "Make a public link"}</Button>
+        {href && <Button type="button" variant="danger" disabled={busy} onClick={() => act("DELETE")}>Revoke the public link</Button>}
       </div>
-      <FormError message={message} />
+      <FormError message={error} />
     </section>
   );
 }

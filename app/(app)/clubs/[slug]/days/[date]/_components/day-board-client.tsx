@@ -6,7 +6,7 @@ import { useState } from "react";
 import { InlineError } from "@/components/ui/form-footer";
 import type { DayBoardView } from "@/lib/days/board";
 import { secondsText, taskText } from "../../../../../season/_components/season-format";
-import { sendJson } from "../../../../_components/send-json";
+import { sendJson } from "@/components/request/json";
 import { dayTitle, offsetText, timeText, uncertaintyText } from "./day-format";
 import { dayBoardKey, dayBoardQuery } from "./day-board-query";
 import { LiftStrip } from "./lift-strip";

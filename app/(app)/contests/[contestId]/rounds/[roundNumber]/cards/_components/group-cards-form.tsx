@@ -1,7 +1,7 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { sendJson } from "@/app/(app)/clubs/_components/send-json";
+import { sendJson } from "@/components/request/json";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 import { PAPER_MAX_FLIGHTS, paperCardResult, parseFlightTime } from "@/lib/contests/paper-card";

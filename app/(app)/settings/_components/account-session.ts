@@ -4,17 +4,6 @@ import { signOut } from "next-auth/react";
 import { getWindowcallDb } from "@/lib/offline/db";
 import { clearAccountOnDevice, endServerSession } from "@/lib/offline/sign-out";
 
-export type AccountReply = { ok: boolean; status: number; code?: string; message?: string; issues?: { path: string; message: string }[] };
-
-/** A same-origin JSON request to an /api/account route; a network failure is a reply with status 0. */
-export async function accountRequest(url: string, method: "POST" | "DELETE", body: unknown): Promise<AccountReply> {
-  const res = await fetch(url, { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) }).catch(() => null);
-  if (!res) return { ok: false, status: 0, message: "Could not reach the server. Account changes need a connection." };
-  if (res.ok) return { ok: true, status: res.status };
-  const data = (await res.json().catch(() => null)) as { error?: { code?: string; message?: string; issues?: AccountReply["issues"] } } | null;
-  return { ok: false, status: res.status, code: data?.error?.code, message: data?.error?.message ?? "Something went wrong. Try again.", issues: data?.error?.issues };
-}
-
 /** Field errors from a zod-shaped list of issues (the first message per field). */
 export function fieldErrors<K extends string>(issues: { path: PropertyKey[] | string; message: string }[]): Partial<Record<K, string>> {
   const out: Partial<Record<K, string>> = {};
