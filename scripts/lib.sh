@@ -71,115 +71,88 @@ ensure_env_file() {
   set -a; . ./.env; set +a
 }
 
-# The local SMTP fake (scripts/mail-server.ts) for this checkout, on 127.0.0.1: started once and
-# reused while it runs (its pid and ports are in .data/mail). Exports SMTP_URL (the app sends there)
-# and DEV_MAILBOX_URL (its message list: /dev/mailbox and the tests read it). MAIL_STARTED=1 when this
-# call started it, so the caller stops it again with mail_stop_if_started.
-MAIL_DIR="$ROOT/.data/mail"
-MAIL_STARTED=0
-mail_running() {
-  [ -f "$MAIL_DIR/server.pid" ] && [ -f "$MAIL_DIR/ports" ] && kill -0 "$(cat "$MAIL_DIR/server.pid")" 2>/dev/null &&
-    port_in_use "$(cut -d' ' -f2 "$MAIL_DIR/ports")"
+# The local fakes of outside services (e-mail, object storage, payments), one per checkout on 127.0.0.1: each
+# is started once and reused while it runs; its pid, ports and log are in its run folder (.data/<name>-server,
+# .data/mail for e-mail). A script stops on exit only the fakes it started itself (fakes_stop_if_started).
+FAKES_STARTED=""
+# fake_running DIR: its process is alive and its first port answers.
+fake_running() {
+  [ -f "$1/server.pid" ] && [ -f "$1/ports" ] && kill -0 "$(cat "$1/server.pid")" 2>/dev/null &&
+    port_in_use "$(cut -d' ' -f1 "$1/ports")"
 }
+# fake_start WHAT DIR SCRIPT READY "PORTS" [VAR=value…]: runs `node scripts/SCRIPT` with the variables, detached
+# (it must not hold the e2e lock, fd 9), records its pid and PORTS, waits up to 10 s for the shell test READY.
+fake_start() {
+  local what="$1" dir="$2" script="$3" ready="$4" ports="$5" i
+  shift 5
+  mkdir -p "$dir"
+  env "$@" setsid node --import tsx "scripts/$script" >"$dir/server.log" 2>&1 </dev/null 9>&- &
+  echo $! > "$dir/server.pid"
+  echo "$ports" > "$dir/ports"
+  for i in $(seq 1 100); do eval "$ready" && break; sleep 0.1; done
+  eval "$ready" || { cat "$dir/server.log" >&2; die "the local $what did not start"; }
+  FAKES_STARTED="$FAKES_STARTED $dir"
+}
+# fake_port DIR [N]: the Nth (default first) port the fake in DIR listens on.
+fake_port() { cut -d' ' -f"${2:-1}" "$1/ports"; }
+# Stops the local fakes this script started (an EXIT trap).
+fakes_stop_if_started() {
+  local dir
+  for dir in $FAKES_STARTED; do
+    [ -f "$dir/server.pid" ] && kill -TERM "$(cat "$dir/server.pid")" 2>/dev/null || true
+    rm -f "$dir/server.pid" "$dir/ports"
+  done
+  FAKES_STARTED=""
+}
+
+# E-mail: scripts/mail-server.ts (SMTP in, messages kept in .data/mail). Exports SMTP_URL (the app sends there)
+# and DEV_MAILBOX_URL (its message list: /dev/mailbox and the tests read it).
+MAIL_DIR="$ROOT/.data/mail"
 mail_up() {
-  mkdir -p "$MAIL_DIR"
-  if ! mail_running; then
-    local smtp http i
+  if ! fake_running "$MAIL_DIR"; then
+    local smtp http
     smtp="$(free_port "${WINDOWCALL_SMTP_PORT:-2525}")"
     http="$(free_port "${WINDOWCALL_MAILBOX_PORT:-8025}")"
     [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
-    MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR" \
-      setsid node --import tsx scripts/mail-server.ts >"$MAIL_DIR/server.log" 2>&1 </dev/null 9>&- &
-    echo $! > "$MAIL_DIR/server.pid"
-    echo "$smtp $http" > "$MAIL_DIR/ports"
-    for i in $(seq 1 100); do port_in_use "$http" && break; sleep 0.1; done
-    port_in_use "$http" || { cat "$MAIL_DIR/server.log" >&2; die "the local mail server did not start"; }
-    MAIL_STARTED=1
+    fake_start "mail server" "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
+      MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR"
     say "local mail server: SMTP on 127.0.0.1:$smtp, messages on http://127.0.0.1:$http"
   fi
-  local ports; ports="$(cat "$MAIL_DIR/ports")"
-  export SMTP_URL="smtp://127.0.0.1:${ports%% *}"
-  export DEV_MAILBOX_URL="http://127.0.0.1:${ports##* }"
-}
-mail_stop_if_started() {
-  if [ "$MAIL_STARTED" = 1 ] && [ -f "$MAIL_DIR/server.pid" ]; then
-    kill -TERM "$(cat "$MAIL_DIR/server.pid")" 2>/dev/null || true
-    rm -f "$MAIL_DIR/server.pid" "$MAIL_DIR/ports"
-    MAIL_STARTED=0
-  fi
+  export SMTP_URL="smtp://127.0.0.1:$(fake_port "$MAIL_DIR")"
+  export DEV_MAILBOX_URL="http://127.0.0.1:$(fake_port "$MAIL_DIR" 2)"
 }
 
-# The local object-storage fake (scripts/s3-server.ts, s3rver) for this checkout, on 127.0.0.1, with its
-# objects in .data/s3 and the private bucket $S3_BUCKET created at start: started once and reused while it
-# runs (pid and port in .data/s3-server). Exports S3_ENDPOINT and the fake's keys unless S3_ENDPOINT is
-# already set (a real service). S3_STARTED=1 when this call started it (stop it with s3_stop_if_started).
+# Object storage: scripts/s3-server.ts (s3rver, objects in .data/s3, the private bucket $S3_BUCKET created at
+# start). Exports S3_ENDPOINT and the fake's keys unless S3_ENDPOINT is already set (a real service).
 S3_RUN="$ROOT/.data/s3-server"
-S3_STARTED=0
-s3_running() {
-  [ -f "$S3_RUN/server.pid" ] && [ -f "$S3_RUN/port" ] && kill -0 "$(cat "$S3_RUN/server.pid")" 2>/dev/null &&
-    port_in_use "$(cat "$S3_RUN/port")"
-}
 s3_up() {
   [ -n "${S3_ENDPOINT:-}" ] && return 0
-  mkdir -p "$S3_RUN"
   export S3_BUCKET="${S3_BUCKET:-windowcall-logs}" S3_REGION="${S3_REGION:-us-east-1}"
-  if ! s3_running; then
-    local port i
+  if ! fake_running "$S3_RUN"; then
+    local port
     port="$(free_port "${WINDOWCALL_S3_PORT:-4569}")"
-    S3_PORT="$port" S3_DIR="$ROOT/.data/s3" \
-      setsid node --import tsx scripts/s3-server.ts >"$S3_RUN/server.log" 2>&1 </dev/null 9>&- &
-    echo $! > "$S3_RUN/server.pid"
-    echo "$port" > "$S3_RUN/port"
-    for i in $(seq 1 100); do grep -q 's3rver on' "$S3_RUN/server.log" && break; sleep 0.1; done
-    grep -q 's3rver on' "$S3_RUN/server.log" || { cat "$S3_RUN/server.log" >&2; die "the local object server did not start"; }
-    S3_STARTED=1
+    # ready once it says so: the bucket is made after the port opens
+    fake_start "object server" "$S3_RUN" s3-server.ts "grep -q 's3rver on' '$S3_RUN/server.log'" "$port" \
+      S3_PORT="$port" S3_DIR="$ROOT/.data/s3"
     say "local object server: http://127.0.0.1:$port, bucket $S3_BUCKET"
   fi
-  export S3_ENDPOINT="http://127.0.0.1:$(cat "$S3_RUN/port")"
+  export S3_ENDPOINT="http://127.0.0.1:$(fake_port "$S3_RUN")"
   export S3_ACCESS_KEY_ID="${S3_ACCESS_KEY_ID:-S3RVER}" S3_SECRET_ACCESS_KEY="${S3_SECRET_ACCESS_KEY:-S3RVER}"
 }
-s3_stop_if_started() {
-  if [ "$S3_STARTED" = 1 ] && [ -f "$S3_RUN/server.pid" ]; then
-    kill -TERM "$(cat "$S3_RUN/server.pid")" 2>/dev/null || true
-    rm -f "$S3_RUN/server.pid" "$S3_RUN/port"
-    S3_STARTED=0
-  fi
-}
-# The local payments fake (scripts/payments-server.ts) for this checkout, on 127.0.0.1, with its state in
-# .data/payments: started once and reused while it runs (pid and port in .data/payments-server). Exports
-# STRIPE_API_URL (the SDK's host, port and protocol come from it) unless it is already set or the key is a
-# live one (the real service). PAYMENTS_STARTED=1 when this call started it (stop it with payments_stop_if_started).
+
+# Payments: scripts/payments-server.ts (state in .data/payments). Exports STRIPE_API_URL (the SDK's host, port and
+# protocol come from it) unless it is already set or the key is a live one (the real service).
 PAY_RUN="$ROOT/.data/payments-server"
-PAYMENTS_STARTED=0
-payments_running() {
-  [ -f "$PAY_RUN/server.pid" ] && [ -f "$PAY_RUN/port" ] && kill -0 "$(cat "$PAY_RUN/server.pid")" 2>/dev/null &&
-    port_in_use "$(cat "$PAY_RUN/port")"
-}
 payments_up() {
   [ -n "${STRIPE_API_URL:-}" ] && return 0
   case "${STRIPE_SECRET_KEY:-}" in sk_live_*) return 0 ;; esac
   [ -n "${STRIPE_SECRET_KEY:-}" ] && [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are not set (ensure_env_file writes local ones)"
-  mkdir -p "$PAY_RUN"
-  if ! payments_running; then
-    local port i
+  if ! fake_running "$PAY_RUN"; then
+    local port
     port="$(free_port "${WINDOWCALL_PAYMENTS_PORT:-4580}")"
-    PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments" \
-      setsid node --import tsx scripts/payments-server.ts >"$PAY_RUN/server.log" 2>&1 </dev/null 9>&- &
-    echo $! > "$PAY_RUN/server.pid"
-    echo "$port" > "$PAY_RUN/port"
-    for i in $(seq 1 100); do port_in_use "$port" && break; sleep 0.1; done
-    port_in_use "$port" || { cat "$PAY_RUN/server.log" >&2; die "the local payments fake did not start"; }
-    PAYMENTS_STARTED=1
+    fake_start "payments fake" "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" \
+      PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments"
     say "local payments fake: http://127.0.0.1:$port"
   fi
-  export STRIPE_API_URL="http://127.0.0.1:$(cat "$PAY_RUN/port")"
+  export STRIPE_API_URL="http://127.0.0.1:$(fake_port "$PAY_RUN")"
 }
-payments_stop_if_started() {
-  if [ "$PAYMENTS_STARTED" = 1 ] && [ -f "$PAY_RUN/server.pid" ]; then
-    kill -TERM "$(cat "$PAY_RUN/server.pid")" 2>/dev/null || true
-    rm -f "$PAY_RUN/server.pid" "$PAY_RUN/port"
-    PAYMENTS_STARTED=0
-  fi
-}
-# Stops the local fakes this script started (an EXIT trap).
-fakes_stop_if_started() { mail_stop_if_started; s3_stop_if_started; payments_stop_if_started; }

@@ -1,7 +1,7 @@
 // The local payments fake: a node:http server on 127.0.0.1 that answers the few calls of the payments
 // API (Stripe's REST shapes) that Windowcall makes through the `stripe` SDK, serves a simple hosted
 // checkout page, and sends signed webhooks back to the app. Started and stopped by scripts/lib.sh
-// (payments_up / payments_stop_if_started); never used in production, where the SDK talks to the real API.
+// (payments_up / fakes_stop_if_started); never used in production, where the SDK talks to the real API.
 //   PAYMENTS_PORT                 port to listen on (127.0.0.1 only)
 //   PAYMENTS_DIR                  where state.json lives (sessions, payments, refunds, events)
 //   STRIPE_SECRET_KEY             the API key the app must send (Authorization: Bearer …); others get 401

@@ -1,6 +1,6 @@
 // The local object-storage fake: s3rver (an S3-compatible server) on 127.0.0.1 with its objects in
 // $S3_DIR, and the app's private bucket created at start. Started and stopped by scripts/lib.sh
-// (s3_up / s3_stop_if_started); never used in production, where S3_ENDPOINT names a real service.
+// (s3_up / fakes_stop_if_started); never used in production, where S3_ENDPOINT names a real service.
 //   S3_PORT    the port to listen on (127.0.0.1 only)
 //   S3_DIR     where the objects live (created if missing)
 //   S3_BUCKET  the bucket to create (private: s3rver answers only signed requests for it)
