@@ -53,6 +53,23 @@ export function paymentLabel(entry: { paymentStatus: PaymentStatus; paymentRef: 
 }
 
 /**
+ * A card payment that cannot settle its entry and is given back at once: the entry was withdrawn, or
+ * is settled already by another payment (a second page paid too), or the amount or currency is not
+ * the contest's fee now (the officer changed it after the page was made). The same payment learnt
+ * twice (the return from checkout, then its event) is not stray.
+ */
+export function strayPayment(
+  entry: { paymentStatus: PaymentStatus; paymentRef: string | null; withdrawnAt: Date | null },
+  contest: { feeCents: number | null; currency: string },
+  payment: { paymentRef: string; amount: number; currency: string },
+): boolean {
+  if (entry.paymentRef === payment.paymentRef) return false;
+  if (entry.withdrawnAt !== null) return true;
+  if (entry.paymentStatus === "paid" || entry.paymentStatus === "refunded") return true;
+  return contest.feeCents === null || payment.amount !== contest.feeCents || payment.currency !== contest.currency;
+}
+
+/**
  * The next status on a payment event, or null when the event changes nothing: a payment completes
  * an unpaid or failed entry; a failure marks only an unpaid one (never undoes a payment); a refund
  * applies to a paid entry.

@@ -137,9 +137,6 @@ describe("entry fees through the payments fake and the webhook", () => {
     const { cast, contestId } = await feeContest();
     const { entryId, checkoutUrl } = await enter(cast, contestId);
     const body = (id: string, object: Record<string, unknown>, type = "checkout.session.completed") => JSON.stringify({ id, object: "event", type, data: { object } });
-    const session = { client_reference_id: entryId, payment_status: "paid", payment_intent: "pi_test_other", amount_total: FEE - 100, currency: "eur" };
-    expect((await deliver(body(`evt_test_low_${entryId.slice(0, 8)}`, session))).body.outcome).toBe("ignored");
-    expect((await entry(entryId)).paymentStatus).toBe("pending");
     await pressOnPage(checkoutUrl, "pay");
     expect((await deliver((await lastEvent(entryId, "checkout.session.completed")).body)).body.outcome).toBe("applied");
     const late = body(`evt_test_late_${entryId.slice(0, 8)}`, { metadata: { entryId } }, "payment_intent.payment_failed");
@@ -149,6 +146,46 @@ describe("entry fees through the payments fake and the webhook", () => {
     expect(await deliver(body(`evt_test_other_${entryId.slice(0, 8)}`, { id: "cus_x" }, "customer.created"))).toMatchObject({ status: 200, body: { outcome: "ignored" } });
     // not an event at all, rightly signed: 400, not a 500
     expect((await deliver(JSON.stringify({ hello: "world" }))).status).toBe(400);
+  });
+
+  it("a payment that cannot settle its entry is given back at once: a second page paid too, a withdrawn entry, a fee changed since the page", async () => {
+    // two pages of one entry (two tabs), both paid: the first settles the entry, the second is refunded
+    const { cast, contestId } = await feeContest();
+    const { entryId, checkoutUrl } = await enter(cast, contestId);
+    actAs(cast.otherPilot);
+    const second = (await reply(await checkoutRoute(json(), ctx({ contestId, entryId })))).body.checkoutUrl as string;
+    await pressOnPage(checkoutUrl, "pay");
+    await pressOnPage(second, "pay");
+    const [first, again] = (await eventsFor(entryId)).filter((e) => e.type === "checkout.session.completed");
+    expect((await deliver(first!.body)).body.outcome).toBe("applied");
+    const settled = (await entry(entryId)).paymentRef;
+    expect(await deliver(again!.body)).toMatchObject({ status: 200, body: { outcome: "refunded" } });
+    const secondRef = (JSON.parse(again!.body) as { data: { object: { payment_intent: string } } }).data.object.payment_intent;
+    expect(secondRef).not.toBe(settled);
+    const refunds = (await eventsFor(entryId)).filter((e) => e.type === "charge.refunded").map((e) => (JSON.parse(e.body) as { data: { object: { payment_intent: string } } }).data.object.payment_intent);
+    expect(refunds).toEqual([secondRef]);
+    expect(await entry(entryId)).toMatchObject({ paymentStatus: "paid", paymentRef: settled });
+    // the same event again is a duplicate: no second refund
+    expect((await deliver(again!.body)).body.outcome).toBe("duplicate");
+
+    // the officer withdraws an unpaid entry; its pilot then pays on the page still open: refunded, still withdrawn and unpaid
+    const other = await feeContest();
+    const late = await enter(other.cast, other.contestId);
+    actAs(other.cast.owner);
+    expect((await withdrawRoute(del(), ctx({ contestId: other.contestId, entryId: late.entryId }))).status).toBe(200);
+    await pressOnPage(late.checkoutUrl, "pay");
+    expect((await deliver((await lastEvent(late.entryId, "checkout.session.completed")).body)).body.outcome).toBe("refunded");
+    expect((await eventsFor(late.entryId)).filter((e) => e.type === "charge.refunded")).toHaveLength(1);
+    expect(await entry(late.entryId)).toMatchObject({ paymentStatus: "pending", paymentRef: null });
+    expect((await entry(late.entryId)).withdrawnAt).toBeInstanceOf(Date);
+
+    // the officer lowers the fee after the page was made: the page's amount does not settle the entry and is given back
+    const cheaper = await feeContest();
+    const old = await enter(cheaper.cast, cheaper.contestId);
+    await db.update(contests).set({ entryFeeCents: FEE - 500 }).where(eq(contests.id, cheaper.contestId));
+    await pressOnPage(old.checkoutUrl, "pay");
+    expect((await deliver((await lastEvent(old.entryId, "checkout.session.completed")).body)).body.outcome).toBe("refunded");
+    expect((await entry(old.entryId)).paymentStatus).toBe("pending");
   });
 
   it("after entries close: a withdrawal keeps the card payment (no refund) and pilots cannot enter", async () => {

@@ -46,7 +46,12 @@ export async function sessionChange(sessionId: string, entryId: string): Promise
   return change && change.entryId === entryId ? change : null;
 }
 
-/** Gives a card payment back whole; one refund per entry (the idempotency key), so a retried withdrawal cannot refund twice. */
-export async function refundPayment(p: { paymentRef: string; entryId: string }): Promise<void> {
-  await call(() => payments().refunds.create({ payment_intent: p.paymentRef, metadata: { entryId: p.entryId } }, { idempotencyKey: `refund-${p.entryId}` }));
+/**
+ * Gives a card payment back whole. One refund per entry on withdrawal (the idempotency key), so a
+ * retried withdrawal cannot refund twice; a stray payment (lib/payments/fees strayPayment) is keyed by
+ * the payment itself.
+ */
+export async function refundPayment(p: { paymentRef: string; entryId: string; stray?: boolean }): Promise<void> {
+  const idempotencyKey = p.stray ? `refund-${p.paymentRef}` : `refund-${p.entryId}`;
+  await call(() => payments().refunds.create({ payment_intent: p.paymentRef, metadata: { entryId: p.entryId } }, { idempotencyKey }));
 }

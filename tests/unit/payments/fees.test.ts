@@ -2,7 +2,7 @@ import { createHmac } from "node:crypto";
 import Stripe from "stripe";
 import { describe, expect, it } from "vitest";
 import { changeOf } from "@/lib/payments/events";
-import { closesAt, entriesOpen, formatFee, nextStatus, paymentLabel, refundOnWithdrawal, type PaymentStatus } from "@/lib/payments/fees";
+import { closesAt, entriesOpen, formatFee, nextStatus, paymentLabel, refundOnWithdrawal, strayPayment, type PaymentStatus } from "@/lib/payments/fees";
 import { createContestSchema } from "@/lib/validations/contests";
 
 const STATUSES: PaymentStatus[] = ["pending", "paid", "failed", "refunded"];
@@ -90,5 +90,24 @@ describe("the set-up's fee fields", () => {
     expect(issues({ entryFeeCents: 100_001, entriesCloseAt: "2027-03-12T18:00:00Z" })).toEqual(["entryFeeCents"]);
     expect(issues({ currency: "xyz" })).toEqual(["currency"]);
     expect(issues({ entriesCloseAt: "0000-01-01T00:00:00Z" })).toEqual(["entriesCloseAt"]);
+  });
+});
+
+describe("strayPayment: a card payment that cannot settle its entry is given back", () => {
+  const fee = { feeCents: 1500, currency: "eur" };
+  const pay = { paymentRef: "pi_2", amount: 1500, currency: "eur" };
+  const live = { paymentStatus: "pending" as const, paymentRef: null, withdrawnAt: null };
+  it("settles an unpaid or failed live entry at the contest's fee", () => {
+    expect(strayPayment(live, fee, pay)).toBe(false);
+    expect(strayPayment({ ...live, paymentStatus: "failed" }, fee, pay)).toBe(false);
+  });
+  it("the same payment learnt twice is not stray; a second payment, a withdrawn entry or another amount or currency is", () => {
+    expect(strayPayment({ ...live, paymentStatus: "paid", paymentRef: "pi_2" }, fee, pay)).toBe(false);
+    expect(strayPayment({ ...live, paymentStatus: "paid", paymentRef: "pi_1" }, fee, pay)).toBe(true);
+    expect(strayPayment({ ...live, paymentStatus: "paid", paymentRef: "cash" }, fee, pay)).toBe(true);
+    expect(strayPayment({ ...live, withdrawnAt: new Date(0) }, fee, pay)).toBe(true);
+    expect(strayPayment(live, { ...fee, feeCents: 1000 }, pay)).toBe(true);
+    expect(strayPayment(live, { ...fee, currency: "gbp" }, pay)).toBe(true);
+    expect(strayPayment(live, { ...fee, feeCents: null }, pay)).toBe(true);
   });
 });
