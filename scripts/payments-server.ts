@@ -6,10 +6,13 @@
 //   PAYMENTS_DIR                  where state.json lives (sessions, payments, refunds, events)
 //   STRIPE_SECRET_KEY             the API key the app must send (Authorization: Bearer …); others get 401
 //   STRIPE_WEBHOOK_SECRET         the signing secret of the webhooks it sends
+//   PAYMENTS_RETRY_MS             first wait before a failed webhook is sent again (default 1000; doubles each time)
+//   PAYMENTS_ATTEMPTS             how many times a webhook is tried in all (default 6)
 //
 // The API (form-encoded bodies, JSON replies, errors as { error: { type, code, message } }):
 //   POST /v1/checkout/sessions            create (mode, line_items[0][price_data], client_reference_id,
-//                                         metadata, payment_intent_data[metadata], success_url, cancel_url)
+//                                         metadata, payment_intent_data[metadata], success_url, cancel_url,
+//                                         expires_at: 30 minutes to 24 hours ahead, 24 hours when left out)
 //   GET  /v1/checkout/sessions/:id        retrieve
 //   POST /v1/refunds                      create (payment_intent, optional amount; whole refunds only)
 // A repeated Idempotency-Key on a POST returns the first reply, as the real API does.
@@ -18,12 +21,18 @@
 // fails (the session stays open: the page says so and offers both again, and a link back to cancel_url).
 // Tests drive the same page by POST /pay/:sessionId with outcome=pay or outcome=decline.
 //
-// Webhooks: each event (checkout.session.completed, payment_intent.payment_failed, charge.refunded) is
+// A session past its expires_at closes (status "expired", no page to pay on) and sends checkout.session.expired.
+//
+// Webhooks: each event (checkout.session.completed, checkout.session.expired, payment_intent.payment_failed,
+// charge.refunded) is
 // POSTed, before the page redirects, to the origin of the session's success_url + /api/payments/webhook
 // (the real service sends them to the endpoint set in its dashboard), signed like the real service:
 // header Stripe-Signature: t=<unix seconds>,v1=<hex HMAC-SHA256 of "<t>.<body>" keyed by the secret>.
-// Control (tests only): GET /_fake/events (newest first, with body and signature header as sent),
-// POST /_fake/events/:id/redeliver (the same body, signed anew), GET /health.
+// An answer other than 2xx (or none) is retried with waits doubling from PAYMENTS_RETRY_MS, as the real
+// service retries for days; each try is signed anew.
+// Control (tests only): GET /_fake/events (newest first, with body, signature header as last sent, attempts),
+// POST /_fake/events/:id/redeliver (the same body, signed anew), POST /_fake/sessions/:id/expire (its
+// expiry comes now), GET /health.
 import { createHmac, randomBytes } from "node:crypto";
 import { mkdirSync, readFileSync, renameSync, writeFileSync } from "node:fs";
 import { createServer, type IncomingMessage, type ServerResponse } from "node:http";
@@ -34,16 +43,18 @@ type Session = {
   id: string; object: "checkout.session"; url: string | null; status: "open" | "complete" | "expired"; payment_status: "unpaid" | "paid";
   mode: string; amount_total: number; currency: string; client_reference_id: string | null; metadata: Obj;
   payment_intent: string | null; success_url: string; cancel_url: string | null; created: number; livemode: false;
-  product: string; intent_metadata: Obj; declined: number;
+  product: string; intent_metadata: Obj; declined: number; expires_at: number;
 };
 type Payment = { id: string; object: "payment_intent"; amount: number; currency: string; status: string; metadata: Obj; session: string; refunded: number; charge: string };
-type Sent = { id: string; type: string; body: string; signature: string; target: string; status: number | string; created: number };
+type Sent = { id: string; type: string; body: string; signature: string; target: string; status: number | string; created: number; attempts: number };
 type State = { sessions: Record<string, Session>; payments: Record<string, Payment>; events: Sent[]; idempotent: Record<string, { status: number; body: unknown }> };
 
 const port = Number(process.env.PAYMENTS_PORT);
 const dir = process.env.PAYMENTS_DIR ?? ".data/payments";
 const apiKey = process.env.STRIPE_SECRET_KEY ?? "";
 const webhookSecret = process.env.STRIPE_WEBHOOK_SECRET ?? "";
+const retryMs = Number(process.env.PAYMENTS_RETRY_MS ?? 1000);
+const attemptsInAll = Number(process.env.PAYMENTS_ATTEMPTS ?? 6);
 if (!port || !apiKey || !webhookSecret) {
   console.error("[payments] PAYMENTS_PORT, STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are needed");
   process.exit(1);
@@ -107,16 +118,23 @@ function sign(body: string, t = now()): string {
   return `t=${t},v1=${createHmac("sha256", webhookSecret).update(`${t}.${body}`, "utf8").digest("hex")}`;
 }
 
+/** Sends one event; an answer other than 2xx (or none) is tried again later, up to PAYMENTS_ATTEMPTS tries in all. */
 async function deliver(sent: Sent): Promise<void> {
   sent.signature = sign(sent.body);
+  sent.attempts = (sent.attempts ?? 0) + 1;
   try {
     const r = await fetch(sent.target, { method: "POST", headers: { "content-type": "application/json", "stripe-signature": sent.signature }, body: sent.body, signal: AbortSignal.timeout(10_000) });
+    await r.arrayBuffer();
     sent.status = r.status;
   } catch (e) {
     sent.status = `not delivered: ${(e as Error).message}`;
   }
-  console.log(`[payments] ${sent.type} ${sent.id} → ${sent.target}: ${sent.status}`);
+  console.log(`[payments] ${sent.type} ${sent.id} → ${sent.target}: ${sent.status} (try ${sent.attempts})`);
   save();
+  const delivered = typeof sent.status === "number" && sent.status >= 200 && sent.status < 300;
+  if (!delivered && sent.attempts < attemptsInAll) {
+    setTimeout(() => void deliver(sent), retryMs * 2 ** (sent.attempts - 1)).unref();
+  }
 }
 
 async function sendEvent(session: Session, type: string, object: Obj): Promise<void> {
@@ -128,7 +146,7 @@ async function sendEvent(session: Session, type: string, object: Obj): Promise<v
   } catch {
     return;
   }
-  const sent: Sent = { id, type, body: JSON.stringify(event), signature: "", target, status: "pending", created: event.created };
+  const sent: Sent = { id, type, body: JSON.stringify(event), signature: "", target, status: "pending", created: event.created, attempts: 0 };
   state.events.push(sent);
   await deliver(sent);
 }
@@ -136,6 +154,18 @@ async function sendEvent(session: Session, type: string, object: Obj): Promise<v
 /** The fields the API shows (the rest is the fake's own bookkeeping). */
 const pick = <T extends Obj>(o: T, hidden: string[]) => Object.fromEntries(Object.entries(o).filter(([k]) => !hidden.includes(k)));
 const publicSession = (s: Session) => pick(s, ["product", "intent_metadata", "declined"]);
+
+/** Closes every open session past its expiry, telling the app (checkout.session.expired). */
+async function expireDue(): Promise<void> {
+  for (const s of Object.values(state.sessions)) {
+    if (s.status !== "open" || s.expires_at > now()) continue;
+    s.status = "expired";
+    s.url = null;
+    save();
+    await sendEvent(s, "checkout.session.expired", publicSession(s));
+  }
+}
+setInterval(() => void expireDue(), 1000).unref();
 const publicPayment = (p: Payment) => ({ ...pick(p, ["session", "refunded", "charge"]), latest_charge: p.charge, amount_received: p.status === "succeeded" ? p.amount : 0 });
 
 function createSession(res: ServerResponse, f: Obj): void {
@@ -146,13 +176,17 @@ function createSession(res: ServerResponse, f: Obj): void {
   if (!Number.isInteger(amount) || amount < 50) return apiError(res, 400, "amount_too_small", "line_items[0][price_data][unit_amount] must be an integer of at least 50.", "line_items");
   if (typeof price.currency !== "string" || !/^[a-z]{3}$/.test(price.currency)) return apiError(res, 400, "parameter_invalid_string", "Give a three-letter currency.", "currency");
   if (typeof f.success_url !== "string" || !/^https?:\/\//.test(f.success_url)) return apiError(res, 400, "url_invalid", "success_url must be an http(s) URL.", "success_url");
+  const expiresAt = f.expires_at === undefined ? now() + 24 * 3600 : Number(f.expires_at);
+  if (!Number.isInteger(expiresAt) || expiresAt < now() + 30 * 60 || expiresAt > now() + 24 * 3600) {
+    return apiError(res, 400, "parameter_invalid_integer", "expires_at must be 30 minutes to 24 hours after the session is created.", "expires_at");
+  }
   const id = newId("cs");
   const session: Session = {
     id, object: "checkout.session", url: `http://127.0.0.1:${port}/pay/${id}`, status: "open", payment_status: "unpaid", mode: "payment",
     amount_total: amount, currency: price.currency, client_reference_id: typeof f.client_reference_id === "string" ? f.client_reference_id : null,
     metadata: (f.metadata ?? {}) as Obj, payment_intent: null, success_url: f.success_url, cancel_url: typeof f.cancel_url === "string" ? f.cancel_url : null,
     created: now(), livemode: false, product: String((price.product_data as Obj | undefined)?.name ?? "Payment"),
-    intent_metadata: (((f.payment_intent_data as Obj | undefined)?.metadata) ?? {}) as Obj, declined: 0,
+    intent_metadata: (((f.payment_intent_data as Obj | undefined)?.metadata) ?? {}) as Obj, declined: 0, expires_at: expiresAt,
   };
   state.sessions[id] = session;
   save();
@@ -187,7 +221,7 @@ function page(res: ServerResponse, s: Session, note = ""): void {
 <title>Test payment</title><style>body{font-family:sans-serif;max-width:28rem;margin:2rem auto;padding:0 1rem}button{min-height:48px;width:100%;margin:.5rem 0;font-size:1rem}a{display:inline-block;min-height:48px;line-height:48px}</style></head>
 <body><main><h1>Test payment</h1><p>This is Windowcall's local payments fake: no money moves.</p>
 <p>${esc(s.product)}: <strong>${esc(money)}</strong></p>${note ? `<p role="alert">${esc(note)}</p>` : ""}
-${done ? `<p>This payment is ${s.payment_status === "paid" ? "paid" : "closed"}.</p>` : `<form method="post" action="/pay/${esc(s.id)}">
+${done ? `<p>This payment is ${s.payment_status === "paid" ? "paid" : s.status === "expired" ? "expired: start again from Windowcall" : "closed"}.</p>` : `<form method="post" action="/pay/${esc(s.id)}">
 <button name="outcome" value="pay">Pay ${esc(money)}</button><button name="outcome" value="decline">Decline the card</button></form>`}
 ${s.cancel_url ? `<p><a href="${esc(s.cancel_url)}">Back to Windowcall without paying</a></p>` : ""}</main></body></html>`;
   res.writeHead(200, { "content-type": "text/html; charset=utf-8", "cache-control": "no-store" });
@@ -195,7 +229,8 @@ ${s.cancel_url ? `<p><a href="${esc(s.cancel_url)}">Back to Windowcall without p
 }
 
 async function pay(res: ServerResponse, s: Session, outcome: string): Promise<void> {
-  if (s.status !== "open") return page(res, s, "This payment is already closed.");
+  if (s.status === "open" && s.expires_at <= now()) await expireDue();
+  if (s.status !== "open") return page(res, s, s.status === "expired" ? "This payment page has expired." : "This payment is already closed.");
   const intent: Payment = {
     id: newId("pi"), object: "payment_intent", amount: s.amount_total, currency: s.currency, status: "requires_payment_method",
     metadata: s.intent_metadata, session: s.id, refunded: 0, charge: newId("ch"),
@@ -233,6 +268,13 @@ const server = createServer((req, res) => {
         return reply(res, 200, sent);
       }
       return reply(res, 404, { error: "no such event" });
+    }
+    if (parts[0] === "_fake" && parts[1] === "sessions" && parts[3] === "expire" && req.method === "POST") {
+      const s = state.sessions[parts[2] ?? ""];
+      if (!s) return reply(res, 404, { error: "no such session" });
+      s.expires_at = Math.min(s.expires_at, now());
+      await expireDue();
+      return reply(res, 200, publicSession(s));
     }
     if (parts[0] === "pay" && parts[1]) {
       const s = state.sessions[parts[1]];

@@ -46,7 +46,7 @@ export async function seedDemoFees(db: Database, contestName: string): Promise<v
 async function demoCardPayment(entry: { id: string; contestId: string; contestName: string }): Promise<string | null> {
   if (!process.env.STRIPE_API_URL || !process.env.STRIPE_SECRET_KEY) return null;
   try {
-    const session = await startCheckout({ entryId: entry.id, contestId: entry.contestId, contestName: entry.contestName, feeCents: FEE, currency: "eur", origin: new URL(appLink("/")).origin });
+    const session = await startCheckout({ entryId: entry.id, contestId: entry.contestId, contestName: entry.contestName, feeCents: FEE, currency: "eur", origin: new URL(appLink("/")).origin, expiresAt: new Date(Date.now() + 3600_000) });
     await fetch(session.url, { method: "POST", headers: { "content-type": "application/x-www-form-urlencoded" }, body: "outcome=pay", redirect: "manual" });
     const change = await sessionChange(session.id, entry.id);
     return change?.kind === "paid" ? change.paymentRef : null;

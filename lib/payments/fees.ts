@@ -23,6 +23,18 @@ export function closesAt(contest: { entriesCloseAt: Date | null; startsOn: strin
   return contest.entriesCloseAt ?? new Date(`${contest.startsOn}T00:00:00Z`);
 }
 
+/**
+ * When a payment page made now stops taking payments: when entries close, but no sooner than 30 minutes
+ * and no later than 24 hours ahead (the range the payments service accepts for a Checkout session's
+ * expires_at, per its API reference). An abandoned page cannot be paid weeks later; a second page or a
+ * late payment is given back anyway (strayPayment).
+ */
+export function checkoutExpiry(contest: { entriesCloseAt: Date | null; startsOn: string }, now: Date): Date {
+  const min = now.getTime() + 31 * 60_000; // a minute to spare for the request's way there
+  const max = now.getTime() + 24 * 3600_000 - 60_000;
+  return new Date(Math.min(max, Math.max(min, closesAt(contest).getTime())));
+}
+
 /** Pilots may enter strictly before the deadline the officer set (no deadline: entries stay open). */
 export function entriesOpen(contest: { entriesCloseAt: Date | null }, now: Date): boolean {
   return contest.entriesCloseAt === null || now.getTime() < contest.entriesCloseAt.getTime();

@@ -21,10 +21,10 @@ async function call<T>(f: () => Promise<T>): Promise<T> {
 
 /**
  * A Checkout session for one entry's fee; the pilot is sent to its `url` and comes back to the
- * contest page (`session_id` in the query when paid). The entry's id travels as client_reference_id
+ * contest page (`session_id` in the query when paid); the page closes at `expiresAt`. The entry's id travels as client_reference_id
  * and in the payment's metadata, so the webhook finds the entry.
  */
-export async function startCheckout(p: { entryId: string; contestId: string; contestName: string; feeCents: number; currency: string; origin: string }) {
+export async function startCheckout(p: { entryId: string; contestId: string; contestName: string; feeCents: number; currency: string; origin: string; expiresAt: Date }) {
   const back = `${p.origin}/contests/${p.contestId}`;
   const session = await call(() => payments().checkout.sessions.create({
     mode: "payment",
@@ -34,6 +34,7 @@ export async function startCheckout(p: { entryId: string; contestId: string; con
     payment_intent_data: { metadata: { entryId: p.entryId, contestId: p.contestId } },
     success_url: `${back}?payment=done&session_id={CHECKOUT_SESSION_ID}`,
     cancel_url: `${back}?payment=cancelled`,
+    expires_at: Math.floor(p.expiresAt.getTime() / 1000),
   }, { idempotencyKey: `checkout-${p.entryId}-${Date.now()}` }));
   if (!session.url) throw new PaymentServiceError("The payments service gave no page to pay on.");
   return { id: session.id, url: session.url };

@@ -2,7 +2,7 @@ import { createHmac } from "node:crypto";
 import Stripe from "stripe";
 import { describe, expect, it } from "vitest";
 import { changeOf } from "@/lib/payments/events";
-import { closesAt, entriesOpen, formatFee, nextStatus, paymentLabel, refundOnWithdrawal, strayPayment, type PaymentStatus } from "@/lib/payments/fees";
+import { checkoutExpiry, closesAt, entriesOpen, formatFee, nextStatus, paymentLabel, refundOnWithdrawal, strayPayment, type PaymentStatus } from "@/lib/payments/fees";
 import { createContestSchema } from "@/lib/validations/contests";
 
 const STATUSES: PaymentStatus[] = ["pending", "paid", "failed", "refunded"];
@@ -109,5 +109,19 @@ describe("strayPayment: a card payment that cannot settle its entry is given bac
     expect(strayPayment(live, { ...fee, feeCents: 1000 }, pay)).toBe(true);
     expect(strayPayment(live, { ...fee, currency: "gbp" }, pay)).toBe(true);
     expect(strayPayment(live, { ...fee, feeCents: null }, pay)).toBe(true);
+  });
+});
+
+describe("checkoutExpiry: a payment page closes when entries close, within the service's 30 min – 24 h", () => {
+  const now = new Date("2026-06-01T10:00:00Z");
+  const at = (iso: string | null) => checkoutExpiry({ entriesCloseAt: iso ? new Date(iso) : null, startsOn: "2026-06-20" }, now).toISOString();
+  it("entries closing in 5 hours: the page closes then", () => expect(at("2026-06-01T15:00:00Z")).toBe("2026-06-01T15:00:00.000Z"));
+  it("closing in 10 minutes (or past): 31 minutes ahead, the least the service takes plus a minute", () => {
+    expect(at("2026-06-01T10:10:00Z")).toBe("2026-06-01T10:31:00.000Z");
+    expect(at("2026-05-30T00:00:00Z")).toBe("2026-06-01T10:31:00.000Z");
+  });
+  it("closing in weeks, or no deadline (the contest day): a minute short of 24 hours", () => {
+    expect(at("2026-06-15T00:00:00Z")).toBe("2026-06-02T09:59:00.000Z");
+    expect(at(null)).toBe("2026-06-02T09:59:00.000Z");
   });
 });

@@ -7,7 +7,7 @@ import { requireContestRole } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
-import { entriesOpen } from "@/lib/payments/fees";
+import { checkoutExpiry, entriesOpen } from "@/lib/payments/fees";
 import { startCheckout } from "@/lib/payments/server/checkout";
 import { contestIdSchema, enterSchema } from "@/lib/validations/contests";
 
@@ -30,7 +30,7 @@ export const POST = route(async (request: Request, context: Context) => {
   if (row === "taken") throw new ConflictError("entered", "You are entered already.");
   if (row === "models") throw new ValidationError("Choose models from your own hangar.");
   const checkout = contest.entryFeeCents === null ? null : await startCheckout({
-    entryId: row.id, contestId: contest.id, contestName: contest.name, feeCents: contest.entryFeeCents, currency: contest.currency, origin: new URL(appLink("/")).origin,
+    entryId: row.id, contestId: contest.id, contestName: contest.name, feeCents: contest.entryFeeCents, currency: contest.currency, origin: new URL(appLink("/")).origin, expiresAt: checkoutExpiry(contest, new Date()),
   });
   return Response.json({ entry: { id: row.id }, checkoutUrl: checkout?.url ?? null }, { status: 201, headers: { "cache-control": "no-store" } });
 });

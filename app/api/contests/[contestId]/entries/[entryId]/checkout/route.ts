@@ -6,6 +6,7 @@ import { requireContestRole } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import { appLink } from "@/lib/mail/links";
+import { checkoutExpiry } from "@/lib/payments/fees";
 import { startCheckout } from "@/lib/payments/server/checkout";
 import { entryIdSchema } from "@/lib/validations/contests";
 
@@ -25,7 +26,7 @@ export const POST = route(async (_request: Request, context: Context) => {
   if (contest.entryFeeCents === null) throw new ConflictError("no_fee", "This contest has no entry fee.");
   if (entry.paymentStatus === "paid" || entry.paymentStatus === "refunded") throw new ConflictError("paid", "This entry is paid already.");
   const checkout = await startCheckout({
-    entryId: entry.id, contestId: contest.id, contestName: contest.name, feeCents: contest.entryFeeCents, currency: contest.currency, origin: new URL(appLink("/")).origin,
+    entryId: entry.id, contestId: contest.id, contestName: contest.name, feeCents: contest.entryFeeCents, currency: contest.currency, origin: new URL(appLink("/")).origin, expiresAt: checkoutExpiry(contest, new Date()),
   });
   return Response.json({ checkoutUrl: checkout.url }, { status: 201, headers: { "cache-control": "no-store" } });
 });
