@@ -45,6 +45,8 @@ function PilotTable({ caption, rounds, pilots, places }: { caption: string; roun
   );
 }
 
+const ordinal = (n: number) => `${n}${n % 100 >= 11 && n % 100 <= 13 ? "th" : ["th", "st", "nd", "rd"][n % 10] ?? "th"}`;
+
 /**
  * The standings: places with each round's points (normalised per group, best = 1000; a dropped
  * round in brackets), penalties and totals; the fly-off and teams when there are any. Plain
@@ -71,6 +73,17 @@ export function StandingsTable({ standings }: { standings: Standings }) {
           <h2 id="fly-off-heading" className="text-lg font-bold">Fly-off</h2>
           <p className="text-sm">{standings.flyOff.counted ? "The fly-off decides the top places." : "Fewer than 3 complete fly-off rounds: the preliminary order stands for now."}</p>
           <PilotTable caption="Fly-off" rounds={standings.flyOff.rounds} pilots={standings.flyOff.pilots} />
+        </section>
+      )}
+      {standings.juniors.length > 0 && (
+        <section aria-labelledby="juniors-heading" className="space-y-2">
+          <h2 id="juniors-heading" className="text-lg font-bold">Juniors</h2>
+          <ol aria-label="Juniors" className="space-y-1">
+            {standings.juniors.map((j) => (
+              <li key={j.entryId}><span className="font-semibold">{j.rank}. {j.name}</span> <span className="text-sm text-muted">({ordinal(j.overallRank)} overall)</span></li>
+            ))}
+          </ol>
+          <p className="text-xs text-muted">Juniors fly in the same groups and are also ranked among themselves.</p>
         </section>
       )}
       {standings.teams.length > 0 && (

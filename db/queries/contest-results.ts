@@ -19,7 +19,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
   if (!c) return null;
   const rounds = await db.select({ id: contestRounds.id, number: contestRounds.number, isFlyOff: contestRounds.isFlyOff, task: contestRounds.task })
     .from(contestRounds).where(eq(contestRounds.contestId, contestId)).orderBy(asc(contestRounds.isFlyOff), asc(contestRounds.number));
-  const entries = await db.select({ id: contestEntries.id, name: contestEntries.pilotName, team: contestEntries.team, withdrawnAt: contestEntries.withdrawnAt })
+  const entries = await db.select({ id: contestEntries.id, name: contestEntries.pilotName, team: contestEntries.team, pilotClass: contestEntries.pilotClass, withdrawnAt: contestEntries.withdrawnAt })
     .from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.createdAt), asc(contestEntries.id));
   const slots = rounds.length === 0 ? [] : await db.select({
     roundId: groupSlots.roundId, groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId, paperFlights: groupSlots.paperFlights,
@@ -32,8 +32,9 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken },
     input: {
       dropRule: c.dropRule,
+      halves: c.halves,
       rounds: rounds.map((r) => ({ ...r, task: r.task as TaskDefinition })),
-      entries: entries.map((e) => ({ id: e.id, name: e.name, team: e.team, withdrawn: e.withdrawnAt !== null })),
+      entries: entries.map((e) => ({ id: e.id, name: e.name, team: e.team, pilotClass: e.pilotClass, withdrawn: e.withdrawnAt !== null })),
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
         paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints,

@@ -35,23 +35,32 @@ export async function getContest(db: Database, contestId: string) {
 }
 
 /** A pilot enters with models of their own hangar; "taken" when already entered, "models" when a model is not theirs. */
-export async function enterPilot(db: Database, p: { contestId: string; userId: string; pilotName: string; modelIds: string[] }): Promise<EntryRow | "taken" | "models"> {
+export async function enterPilot(db: Database, p: { contestId: string; userId: string; pilotName: string; modelIds: string[]; pilotClass: "senior" | "junior" }): Promise<EntryRow | "taken" | "models"> {
   const mine = p.modelIds.length === 0 ? [] : await db.select({ id: models.id, name: models.name }).from(models)
     .where(and(eq(models.ownerId, p.userId), inArray(models.id, p.modelIds)));
   if (mine.length !== p.modelIds.length) return "models";
   const ordered = p.modelIds.map((id) => mine.find((m) => m.id === id)!);
   const [row] = await db.insert(contestEntries)
-    .values({ contestId: p.contestId, pilotUserId: p.userId, pilotName: p.pilotName, models: ordered })
+    .values({ contestId: p.contestId, pilotUserId: p.userId, pilotName: p.pilotName, models: ordered, pilotClass: p.pilotClass })
     .onConflictDoNothing().returning();
   return row ?? "taken";
 }
 
-export async function addPaperEntry(db: Database, p: { contestId: string; pilotName: string; models: string[]; keepApart: string | null }): Promise<EntryRow> {
+export async function addPaperEntry(db: Database, p: { contestId: string; pilotName: string; models: string[]; keepApart: string | null; pilotClass: "senior" | "junior" }): Promise<EntryRow> {
   const [row] = await db.insert(contestEntries).values({
-    contestId: p.contestId, pilotName: p.pilotName, paper: true, keepApart: p.keepApart,
+    contestId: p.contestId, pilotName: p.pilotName, paper: true, keepApart: p.keepApart, pilotClass: p.pilotClass,
     models: p.models.map((name) => ({ id: null, name })),
   }).returning();
   return row!;
+}
+
+/** The officer sets a live entry's team and/or class (the contest in the WHERE); false when there is no such live entry. */
+export async function changeEntry(db: Database, p: { contestId: string; entryId: string; team?: string | null; pilotClass?: "senior" | "junior" }): Promise<boolean> {
+  const set = { ...(p.team !== undefined ? { team: p.team } : {}), ...(p.pilotClass ? { pilotClass: p.pilotClass } : {}) };
+  const rows = await db.update(contestEntries).set(set)
+    .where(and(eq(contestEntries.contestId, p.contestId), eq(contestEntries.id, p.entryId), isNull(contestEntries.withdrawnAt)))
+    .returning({ id: contestEntries.id });
+  return rows.length > 0;
 }
 
 /** Withdraws an entry of this contest (the contest in the WHERE); false when there is none live. */

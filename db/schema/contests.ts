@@ -24,6 +24,10 @@ export const contests = pgTable(
     noFlySeconds: smallint("no_fly_seconds").notNull().default(60),
     /** "f3k": the lowest round dropped from 6 rounds flown (F3K.10); "none": every round counts. */
     dropRule: text("drop_rule").notNull().default("f3k"),
+    /** How an exact half of 0.1 point rounds in normalised scores (lib/scoring HalfRounding; the README's setting). */
+    halves: text("halves").$type<"half-up" | "half-even" | "down">().notNull().default("half-up"),
+    /** The edition of the class rules the contest flies (lib/tasks catalogue editions). */
+    rulesEdition: text("rules_edition").notNull().default("F3K-2025"),
     /** A practice event: the rules' round checks only warn. */
     practice: boolean("practice").notNull().default(false),
     /** The draw's seed (printed with it), null until drawn; locked: no re-draw. */
@@ -47,6 +51,8 @@ export const contestEntries = pgTable(
     guestPilotId: uuid("guest_pilot_id").references(() => guestPilots.id),
     pilotName: text("pilot_name").notNull(),
     team: text("team"),
+    /** "senior" or "junior": juniors are also ranked among themselves (common practice). */
+    pilotClass: text("pilot_class").$type<"senior" | "junior">().notNull().default("senior"),
     paymentStatus: paymentStatusEnum("payment_status").notNull().default("pending"),
     /** The card payment's id at the payments service (refunds name it), or "cash" when the officer marked it paid. */
     paymentRef: text("payment_ref"),

@@ -10,6 +10,9 @@ const TEAMS: Record<string, string> = {
   "Elin Tarrow": "Hill Kites", "Finn Brackley": "Hill Kites", "Gus Wendle": "Hill Kites",
 };
 
+/** Invented pilots of the demo contest who fly as juniors (ranked among themselves too). */
+const JUNIORS = new Set(["Finn Brackley", "Gus Wendle"]);
+
 /** Invented paper-card flight times (tenths of a second) for a round's task, from the seeded generator. */
 function cardFor(task: TaskDefinition, next: () => number): number[] {
   const between = (lo: number, hi: number) => Math.round(lo + next() * (hi - lo)) * 10 + Math.floor(next() * 10);
@@ -22,7 +25,7 @@ function cardFor(task: TaskDefinition, next: () => number): number[] {
 /**
  * Results for the first three rounds of the demo contest, entered as from paper cards by its
  * officer: signed, except one card in round 3 (scores zero, F3K.1.2), and one 100-point penalty;
- * teams for seven pilots. Does nothing when a result is already recorded.
+ * teams for seven pilots, two of them juniors. Does nothing when a result is already recorded.
  */
 export async function seedDemoResults(db: Database, contestId: string): Promise<void> {
   const rounds = await db.select({ id: contestRounds.id, number: contestRounds.number, task: contestRounds.task }).from(contestRounds)
@@ -34,7 +37,7 @@ export async function seedDemoResults(db: Database, contestId: string): Promise<
   if (recorded.length > 0) return;
   const [officer] = await db.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
   const entries = await db.select({ id: contestEntries.id, name: contestEntries.pilotName }).from(contestEntries).where(eq(contestEntries.contestId, contestId));
-  for (const e of entries) if (TEAMS[e.name]) await db.update(contestEntries).set({ team: TEAMS[e.name] }).where(eq(contestEntries.id, e.id));
+  for (const e of entries) if (TEAMS[e.name]) await db.update(contestEntries).set({ team: TEAMS[e.name], pilotClass: JUNIORS.has(e.name) ? "junior" : "senior" }).where(eq(contestEntries.id, e.id));
   const next = mulberry32(20270116);
   const at = new Date("2027-01-16T11:00:00Z");
   for (const round of first) {

@@ -6,7 +6,7 @@ import {
 import { paperCardResult } from "./paper-card";
 
 export type StandingsRound = { id: string; number: number; isFlyOff: boolean; task: TaskDefinition };
-export type StandingsEntry = { id: string; name: string; team: string | null; withdrawn: boolean };
+export type StandingsEntry = { id: string; name: string; team: string | null; withdrawn: boolean; pilotClass?: "senior" | "junior" };
 export type StandingsSlot = {
   roundId: string;
   groupNumber: number;
@@ -53,6 +53,8 @@ export type Standings = {
   final: (FinalPlace & { name: string })[];
   /** F3K.10.4: each team's three best members' final scores (preliminary totals), in tenths. */
   teams: { team: string; rank: number; totalTenths: number; counted: string[] }[];
+  /** The juniors in the final order, ranked among themselves (common practice: one contest, a junior ranking beside it). */
+  juniors: { entryId: string; name: string; rank: number; overallRank: number }[];
 };
 
 type Scored = Map<string, Map<string, Omit<RoundCell, "roundNumber" | "dropped">>>;
@@ -149,6 +151,9 @@ export function contestStandings(input: StandingsInput): Standings {
     pilots.map((p) => ({ pilotId: p.entryId, totalTenths: p.totalTenths })),
   ).map((t) => ({ team: t.teamId, rank: t.rank, totalTenths: t.totalTenths, counted: t.countedMemberIds.map((id) => names.get(id) ?? "?") }));
 
+  const junior = new Set(entries.filter((e) => e.pilotClass === "junior").map((e) => e.id));
+  const juniors = juniorRanking(final.filter((f) => junior.has(f.pilotId))).map((j) => ({ ...j, name: names.get(j.entryId) ?? "?" }));
+
   return {
     rounds: prelimRounds.map(roundLabel),
     pilots,
@@ -156,5 +161,15 @@ export function contestStandings(input: StandingsInput): Standings {
     flyOff,
     final: final.map((f) => ({ ...f, name: names.get(f.pilotId) ?? "?" })),
     teams,
+    juniors,
   };
+}
+
+/** Places among a class, from the final order: a tie in the final order (same rank) stays a tie. */
+function juniorRanking(places: readonly FinalPlace[]): { entryId: string; rank: number; overallRank: number }[] {
+  let rank = 0;
+  return places.map((p, i) => {
+    if (i === 0 || p.rank !== places[i - 1]!.rank) rank = i + 1;
+    return { entryId: p.pilotId, rank, overallRank: p.rank };
+  });
 }

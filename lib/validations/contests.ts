@@ -1,8 +1,13 @@
 import { z } from "zod";
 import { CURRENCIES, MAX_FEE_CENTS, MIN_FEE_CENTS } from "@/lib/payments/fees";
+import { CATALOGUE_EDITION } from "@/lib/tasks/catalogue";
 import { taskLetterSchema } from "@/lib/tasks/definition";
 import { text } from "./bounds";
 import { calendarDaySchema } from "./calendar-day";
+
+export const HALVES = ["half-up", "half-even", "down"] as const;
+export const PILOT_CLASSES = ["senior", "junior"] as const;
+const pilotClass = z.enum(PILOT_CLASSES, "Choose senior or junior.");
 
 export const createContestSchema = z.object({
   name: text(80).trim().min(2, "Give the contest a name of at least 2 characters.").max(80, "Use at most 80 characters."),
@@ -14,6 +19,9 @@ export const createContestSchema = z.object({
   noFlySeconds: z.number().int().min(0).max(600),
   dropRule: z.enum(["f3k", "none"]),
   practice: z.boolean(),
+  /** How an exact half of 0.1 point rounds in normalised scores (the README's setting) and the rules' edition. */
+  halves: z.enum(HALVES, "Choose how halves round.").default("half-up"),
+  rulesEdition: z.enum([CATALOGUE_EDITION], "Choose an edition of the rules this app implements.").default(CATALOGUE_EDITION),
   /** The entry fee in cents (null or absent: free) and the instant entries close (refunds only before it). */
   entryFeeCents: z.number().int("Give the fee in whole cents.").min(MIN_FEE_CENTS, "An entry fee is at least 0.50.").max(MAX_FEE_CENTS, "An entry fee is at most 1000.00.").nullable().default(null),
   currency: z.enum(CURRENCIES, "Choose a currency from the list.").default("eur"),
@@ -31,7 +39,14 @@ export const entryIdSchema = z.object({ contestId: z.uuid("Not a contest."), ent
 /** A signed-in pilot's entry: up to five models from their hangar (F3K.2.3). */
 export const enterSchema = z.object({
   modelIds: z.array(z.uuid("Not a model.")).max(5, "At most five models (F3K.2.3).").refine((a) => new Set(a).size === a.length, "A model is listed twice."),
+  pilotClass: pilotClass.default("senior"),
 });
+
+/** The officer's changes to an entry: its team (F3K.10.4; empty: none) and its class. At least one. */
+export const entryChangeSchema = z.object({
+  team: text(40).trim().max(40, "Use at most 40 characters for a team.").nullable().optional().transform((s) => (s === undefined ? undefined : s ? s : null)),
+  pilotClass: pilotClass.optional(),
+}).refine((c) => c.team !== undefined || c.pilotClass !== undefined, "Give a team or a class.");
 
 const keepApart = text(40).trim().max(40, "Use at most 40 characters.").nullable().optional().transform((s) => (s ? s : null));
 
@@ -40,6 +55,7 @@ export const paperEntrySchema = z.object({
   pilotName: text(80).trim().min(2, "Give the pilot's name.").max(80, "Use at most 80 characters."),
   models: z.array(text(80).trim().min(1).max(80)).max(5, "At most five models (F3K.2.3).").default([]),
   keepApart,
+  pilotClass: pilotClass.default("senior"),
 });
 
 export const drawSchema = z.object({ seed: z.number().int().min(0).max(2_147_483_647).optional() });

@@ -114,6 +114,11 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await expect(table.getByRole("row")).toHaveCount(1 + 12);
   await expect(table.getByRole("columnheader", { name: "R3 D" })).toBeVisible();
   await expect(page.getByRole("list", { name: "Teams" })).toContainText("Marsh Larks");
+  // the seeded juniors, ranked among themselves with their overall place beside
+  const juniors = page.getByRole("list", { name: "Juniors" }).getByRole("listitem");
+  await expect(juniors).toHaveCount(2);
+  await expect(juniors.filter({ hasText: "Finn Brackley" })).toContainText("overall");
+  await expect(juniors.filter({ hasText: "Gus Wendle" })).toContainText(/^[12]\. Gus Wendle/);
   await expect(page.getByRole("button", { name: "Make a public link" })).toHaveCount(0);
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);

@@ -19,8 +19,10 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   await expect(page.getByRole("list", { name: "Rule checks" })).toContainText("Round 5 repeats task A");
   await page.getByRole("combobox", { name: "Round 5 task" }).selectOption("H");
   await expect(page.getByRole("list", { name: "Rule checks" })).toHaveCount(0);
+  await page.getByLabel("Points rounding").selectOption({ label: "Cut off (always down)" });
   await page.getByRole("button", { name: "Create the contest" }).click();
   await expect(page.getByRole("heading", { name })).toBeVisible();
+  await expect(page.getByText(/points cut off at 0\.1 · rules F3K 2025/)).toBeVisible();
   await expect(page.getByRole("list", { name: "Rounds" }).getByRole("listitem")).toHaveCount(5);
   const url = page.url();
 
@@ -43,8 +45,19 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   await page.getByRole("button", { name: "Withdraw Paper Pilot 9" }).click();
   await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem")).toHaveCount(9);
   await page.getByLabel("Pilot's name").fill("Paper Pilot 10");
+  await page.getByLabel(/^A junior/).check();
   await page.getByRole("button", { name: "Add the paper entry" }).click();
   await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem")).toHaveCount(10);
+  await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem").filter({ hasText: "Paper Pilot 10" })).toContainText("junior");
+  // the officer puts two entries in a team, one of them a junior
+  for (const pilot of ["Paper Pilot 1", "Paper Pilot 2"]) {
+    const details = page.getByRole("form", { name: `Team and class of ${pilot}` });
+    await details.getByLabel(`Team of ${pilot}`).fill("Updraft");
+    if (pilot === "Paper Pilot 2") await details.getByLabel(`Class of ${pilot}`).selectOption("junior");
+    await details.getByRole("button", { name: "Save" }).click();
+    await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem").filter({ hasText: new RegExp(`^${pilot} \\(paper\\)`) })).toContainText("team Updraft");
+  }
+  await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem").filter({ hasText: /^Paper Pilot 2 \(paper\)/ })).toContainText("junior · team Updraft");
 
   await page.getByRole("button", { name: "Make the draw" }).click();
   await expect(page.getByText(/^Seed \d+$/)).toBeVisible();

@@ -293,6 +293,9 @@ const ROWS: Record<string, Row> = {
   },
   "POST /api/contests/[contestId]/entries": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ modelIds: [] }), cast: "fresh", expect: contest.MEMBERS(201) },
   "POST /api/contests/[contestId]/paper-entries": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ pilotName: "Matrix Paper" }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "PATCH /api/contests/[contestId]/entries/[entryId]": {
+    params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ team: "Updraft", pilotClass: "junior" }), check: contest.entryChanged, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   "DELETE /api/contests/[contestId]/entries/[entryId]": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.entryReturns, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/contests/[contestId]/draw": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ seed: 7 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "POST /api/contests/[contestId]/draw/swap": { params: contest.drawnContestOfOwnersClub, body: contest.swapBody, cast: "fresh", expect: club.OFFICERS_ONLY(200) },

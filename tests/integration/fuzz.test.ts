@@ -61,7 +61,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
   "/api/clubs/[slug]/contests": { POST: "json" },
   "/api/contests/[contestId]/entries": { POST: "json" },
-  "/api/contests/[contestId]/entries/[entryId]": { DELETE: "none" },
+  "/api/contests/[contestId]/entries/[entryId]": { DELETE: "none", PATCH: "json" },
   "/api/contests/[contestId]/entries/[entryId]/checkout": { POST: "none" },
   "/api/contests/[contestId]/entries/[entryId]/cash": { POST: "none" },
   "/api/payments/webhook": { POST: "json" },

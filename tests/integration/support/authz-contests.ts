@@ -90,6 +90,13 @@ export async function linkRevoked(): Promise<void> {
 }
 
 /** After a 2xx withdrawal: the entry is marked withdrawn; un-withdraw it for the next actor. */
+/** The officer's PATCH set the entry's team and class; both go back for the next caller. */
+export async function entryChanged(): Promise<void> {
+  const [row] = await db.select().from(contestEntries).where(eq(contestEntries.id, entryId));
+  expect([row?.team, row?.pilotClass]).toEqual(["Updraft", "junior"]);
+  await db.update(contestEntries).set({ team: null, pilotClass: "senior" }).where(eq(contestEntries.id, entryId));
+}
+
 export async function entryReturns(): Promise<void> {
   const [row] = await db.select().from(contestEntries).where(eq(contestEntries.id, entryId));
   expect(row?.withdrawnAt).toBeInstanceOf(Date);

@@ -76,6 +76,23 @@ describe("contestStandings", () => {
     expect(s.final.map((f) => [f.pilotId, f.rank])).toEqual([["A", 1], ["B", 2], ["D", 2], ["C", 4]]);
   });
 
+  it("juniors are ranked among themselves from the final order; a tie stays a tie (common practice: a junior ranking beside the contest's)", () => {
+    // the tie example above: A 1st, B and D 2nd equal, C 4th; B, C and D fly as juniors → B and D 1st equal, C 3rd
+    const entries = ["A", "B", "C", "D"].map((id) => ({ ...entry(id), pilotClass: id === "A" ? ("senior" as const) : ("junior" as const) }));
+    const s = contestStandings({ rounds: rounds(6), entries, slots: tie, dropRule: "f3k" });
+    expect(s.juniors.map((j) => [j.entryId, j.rank, j.overallRank, j.name])).toEqual([["B", 1, 2, "Pilot B"], ["D", 1, 2, "Pilot D"], ["C", 3, 4, "Pilot C"]]);
+    expect(contestStandings({ rounds: rounds(6), entries: entries.map((e) => ({ ...e, pilotClass: "senior" as const })), slots: tie, dropRule: "f3k" }).juniors).toEqual([]);
+  });
+
+  it("the contest's rounding of halves applies where the round's task does not say (README: half-up by default)", () => {
+    // Round results (tenths, as the runs' server results give them): P1 400.0 s (best), P2 100.1 s.
+    // P2's points in tenths = 1001 × 10000 / 4000 = 2502.5, an exact half → half-up 2503, half-even 2502, down 2502.
+    const slots = [run("r1", "1", 4000), run("r1", "2", 1001)];
+    const points = (halves?: "half-up" | "half-even" | "down") =>
+      contestStandings({ rounds: rounds(1), entries: [entry("1"), entry("2")], slots, dropRule: "f3k", halves }).pilots.find((p) => p.entryId === "2")!.rounds[0]!.pointsTenths;
+    expect([points(), points("half-up"), points("half-even"), points("down")]).toEqual([2503, 2503, 2502, 2502]);
+  });
+
   it("teams rank by the sum of their three best members' final scores (F3K.10.4)", () => {
     // Kestrel = A, B, C, D: best three A + B + D = 15000 (C's 3000 left out). Swift = E alone in group 2:
     // 1000 in each of 6 rounds, one dropped → 5000.

@@ -12,10 +12,12 @@ import { entriesOpen, formatFee, paymentLabel, refundOnWithdrawal } from "@/lib/
 import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
-import { ActionButton, EnterForm, PaperEntryForm } from "./_components/actions";
+import { ActionButton, EnterForm, PaperEntryForm, EntryDetails } from "./_components/actions";
 import { DrawChanges } from "./_components/draw-changes";
 import { DrawChangeList, DrawLists } from "./_components/draw-lists";
 import { MyFee, OfficerFees } from "./_components/fees";
+
+const HALVES_WORDS = { "half-up": "exact halves of 0.1 point round up", "half-even": "exact halves of 0.1 point round to even", down: "points cut off at 0.1" } as const;
 
 const closing = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 type Search = Promise<{ payment?: string | string[]; session_id?: string | string[] }>;
@@ -65,7 +67,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
           <p>{contest.entryFeeCents !== null ? `Entry fee ${formatFee(contest.entryFeeCents, contest.currency)}` : "No entry fee"}
             {contest.entriesCloseAt && ` · entries close ${closing.format(contest.entriesCloseAt)} UTC${contest.entryFeeCents !== null ? " (withdrawals before then are refunded)" : ""}`}</p>
         )}
-        <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"}</p>
+        <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"} · {HALVES_WORDS[contest.halves]} · rules {contest.rulesEdition.replace("-", " ")}</p>
       </header>
       <section aria-labelledby="rounds" className="space-y-2">
         <h2 id="rounds" className="text-lg font-bold">Rounds</h2>
@@ -81,9 +83,10 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
         <h2 id="entries" className="text-lg font-bold">Entries ({live.length})</h2>
         <ul aria-label="Entries" className="space-y-1">
           {live.map((e) => (
-            <li key={e.id}>{e.pilotName}{e.paper ? " (paper)" : ""}{e.models.length > 0 ? ` · ${e.models.map((m) => m.name).join(", ")}` : ""}
+            <li key={e.id}>{e.pilotName}{e.paper ? " (paper)" : ""}{e.pilotClass === "junior" ? " · junior" : ""}{e.team ? ` · team ${e.team}` : ""}{e.models.length > 0 ? ` · ${e.models.map((m) => m.name).join(", ")}` : ""}
               {officer && contest.entryFeeCents !== null && ` · ${paymentLabel(e)}`}
               {officer && contest.drawLockedAt === null && <> · <ActionButton label={`Withdraw ${e.pilotName}`} method="DELETE" url={`/api/contests/${contestId}/entries/${e.id}`} /></>}
+              {officer && <EntryDetails contestId={contestId} entryId={e.id} pilotName={e.pilotName} team={e.team} pilotClass={e.pilotClass} />}
             </li>
           ))}
         </ul>

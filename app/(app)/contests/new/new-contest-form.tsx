@@ -5,6 +5,10 @@ import { Button } from "@/components/ui/button";
 import { sendJson } from "@/components/request/json";
 import { checkSetup } from "@/lib/contests/setup";
 import { CURRENCIES } from "@/lib/payments/fees";
+import { CATALOGUE_EDITION } from "@/lib/tasks/catalogue";
+import { HALVES } from "@/lib/validations/contests";
+
+const HALVES_LABEL: Record<(typeof HALVES)[number], string> = { "half-up": "An exact half rounds up", "half-even": "An exact half rounds to even", down: "Cut off (always down)" };
 
 const LETTERS = ["A", "B", "C", "D", "E", "F", "G", "H", "I", "J", "K", "L", "N"];
 const input = "mt-1 block w-full rounded-lg border border-line bg-raised p-2";
@@ -21,6 +25,7 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
   const [noFlySeconds, setNoFlySeconds] = useState(60);
   const [dropRule, setDropRule] = useState<"f3k" | "none">("f3k");
   const [practice, setPractice] = useState(false);
+  const [halves, setHalves] = useState<(typeof HALVES)[number]>("half-up");
   const [fee, setFee] = useState("");
   const [currency, setCurrency] = useState<string>("eur");
   const [closesAt, setClosesAt] = useState("");
@@ -30,7 +35,7 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     const reply = await sendJson<{ contest: { id: string } }>("POST", `/api/clubs/${slug}/contests`, {
-      name, startsOn, fieldName, rounds: rounds.map((letter) => ({ letter })), maxGroupSize, prepMinutes, noFlySeconds, dropRule, practice,
+      name, startsOn, fieldName, rounds: rounds.map((letter) => ({ letter })), maxGroupSize, prepMinutes, noFlySeconds, dropRule, practice, halves, rulesEdition: CATALOGUE_EDITION,
       // the fee in cents; the closing time in this device's time zone, sent as an instant
       entryFeeCents: fee.trim() === "" ? null : Math.round(Number(fee) * 100), currency,
       entriesCloseAt: closesAt === "" || Number.isNaN(new Date(closesAt).getTime()) ? null : new Date(closesAt).toISOString(),
@@ -71,6 +76,12 @@ export function NewContestForm({ slug, fields }: { slug: string; fields: string[
           <option value="none">Every round counts</option>
         </select>
       </label>
+      <label className="block">Points rounding (scores are kept to 0.1 point)
+        <select className={input} value={halves} onChange={(e) => setHalves(e.target.value as (typeof HALVES)[number])}>
+          {HALVES.map((h) => <option key={h} value={h}>{HALVES_LABEL[h]}</option>)}
+        </select>
+      </label>
+      <p>Rules: {CATALOGUE_EDITION.replace("-", " ")} edition (the one this app implements)</p>
       <fieldset className="space-y-2">
         <legend className="font-bold">Entry fee</legend>
         <label className="block">Entry fee (empty: free)<input className={input} type="number" inputMode="decimal" min={0.5} max={1000} step={0.01} value={fee} onChange={(e) => setFee(e.target.value)} /></label>

@@ -26,7 +26,7 @@ export const POST = route(async (request: Request, context: Context) => {
   if (!found) throw new NotFoundError();
   const { contest } = found;
   if (!entriesOpen(contest, new Date())) throw new ConflictError("entries_closed", "Entries for this contest are closed.");
-  const row = await enterPilot(db, { contestId: contest.id, userId: me.id, pilotName: me.name ?? me.email, modelIds: body.modelIds });
+  const row = await enterPilot(db, { contestId: contest.id, userId: me.id, pilotName: me.name ?? me.email, modelIds: body.modelIds, pilotClass: body.pilotClass });
   if (row === "taken") throw new ConflictError("entered", "You are entered already.");
   if (row === "models") throw new ValidationError("Choose models from your own hangar.");
   const checkout = contest.entryFeeCents === null ? null : await startCheckout({

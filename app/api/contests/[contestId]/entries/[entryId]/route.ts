@@ -1,19 +1,32 @@
+// PATCH /api/contests/[contestId]/entries/[entryId] — an officer sets an entry's team and class
 // DELETE /api/contests/[contestId]/entries/[entryId] — an officer withdraws an entry (kept, marked withdrawn), or a pilot their own
 // while entries are open and the draw is not locked; a card payment is given back when entries are still open (before the deadline)
 import { db } from "@/db";
 import { entryOfContest, withdrawWithRefund } from "@/db/queries/contest-payments";
-import { route } from "@/lib/api";
+import { changeEntry } from "@/db/queries/contests";
+import { parseJson, route } from "@/lib/api";
 import { requireContestRole } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
 import { entriesOpen, refundOnWithdrawal } from "@/lib/payments/fees";
 import { refundPayment } from "@/lib/payments/server/checkout";
-import { entryIdSchema } from "@/lib/validations/contests";
+import { entryChangeSchema, entryIdSchema } from "@/lib/validations/contests";
 
 export const dynamic = "force-dynamic";
 
 type Context = { params: Promise<{ contestId: string; entryId: string }> };
+
+/** 401 signed out, 404 no such contest, live entry or membership, 403 not the club's officer, 422 no team or class given (or too long). */
+export const PATCH = route(async (request: Request, context: Context) => {
+  await requireUser();
+  const body = await parseJson(request, entryChangeSchema);
+  const params = entryIdSchema.safeParse(await context.params);
+  if (!params.success) throw new NotFoundError();
+  await requireContestRole(params.data.contestId, "officer");
+  if (!(await changeEntry(db, { ...params.data, ...body }))) throw new NotFoundError("No such entry.");
+  return Response.json({ changed: true }, { headers: { "cache-control": "no-store" } });
+});
 
 /**
  * 401 signed out, 404 no such contest, entry or membership, 403 a member withdrawing someone else's entry,
