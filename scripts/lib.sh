@@ -80,19 +80,22 @@ fake_running() {
   [ -f "$1/server.pid" ] && [ -f "$1/ports" ] && kill -0 "$(cat "$1/server.pid")" 2>/dev/null &&
     port_in_use "$(cut -d' ' -f1 "$1/ports")"
 }
-# fake_start WHAT DIR SCRIPT READY "PORTS" [VAR=value…]: runs `node scripts/SCRIPT` with the variables, detached
+# fake_start DIR SCRIPT READY "PORTS" [VAR=value…]: runs `node scripts/SCRIPT` with the variables, detached
 # (it must not hold the e2e lock, fd 9), records its pid and PORTS, waits up to 10 s for the shell test READY.
+# Fails (status 1, its log kept) when it does not get ready, e.g. another checkout took the port in between.
 fake_start() {
-  local what="$1" dir="$2" script="$3" ready="$4" ports="$5" i
-  shift 5
+  local dir="$1" script="$2" ready="$3" ports="$4" i
+  shift 4
   mkdir -p "$dir"
   env "$@" setsid node --import tsx "scripts/$script" >"$dir/server.log" 2>&1 </dev/null 9>&- &
   echo $! > "$dir/server.pid"
   echo "$ports" > "$dir/ports"
-  for i in $(seq 1 100); do eval "$ready" && break; sleep 0.1; done
-  eval "$ready" || { cat "$dir/server.log" >&2; die "the local $what did not start"; }
+  for i in $(seq 1 100); do eval "$ready" && break; kill -0 "$(cat "$dir/server.pid")" 2>/dev/null || break; sleep 0.1; done
+  if ! eval "$ready"; then kill -TERM "$(cat "$dir/server.pid")" 2>/dev/null || true; rm -f "$dir/server.pid" "$dir/ports"; return 1; fi
   FAKES_STARTED="$FAKES_STARTED $dir"
 }
+# fake_failed WHAT DIR: the start's log and the reason, then stop.
+fake_failed() { cat "$2/server.log" >&2; die "the local $1 did not start"; }
 # fake_port DIR [N]: the Nth (default first) port the fake in DIR listens on.
 fake_port() { cut -d' ' -f"${2:-1}" "$1/ports"; }
 # Stops the local fakes this script started (an EXIT trap).
@@ -110,12 +113,15 @@ fakes_stop_if_started() {
 MAIL_DIR="$ROOT/.data/mail"
 mail_up() {
   if ! fake_running "$MAIL_DIR"; then
-    local smtp http
-    smtp="$(free_port "${WINDOWCALL_SMTP_PORT:-2525}")"
-    http="$(free_port "${WINDOWCALL_MAILBOX_PORT:-8025}")"
-    [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
-    fake_start "mail server" "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
-      MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR"
+    local smtp http try
+    for try in 1 2 3; do # a port taken between the check and the listen: try the next ones
+      smtp="$(free_port $((${WINDOWCALL_SMTP_PORT:-2525} + try - 1)))"
+      http="$(free_port $((${WINDOWCALL_MAILBOX_PORT:-8025} + try - 1)))"
+      [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
+      fake_start "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
+        MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR" && break
+    done
+    fake_running "$MAIL_DIR" || fake_failed "mail server" "$MAIL_DIR"
     say "local mail server: SMTP on 127.0.0.1:$smtp, messages on http://127.0.0.1:$http"
   fi
   export SMTP_URL="smtp://127.0.0.1:$(fake_port "$MAIL_DIR")"
@@ -129,11 +135,14 @@ s3_up() {
   [ -n "${S3_ENDPOINT:-}" ] && return 0
   export S3_BUCKET="${S3_BUCKET:-windowcall-logs}" S3_REGION="${S3_REGION:-us-east-1}"
   if ! fake_running "$S3_RUN"; then
-    local port
-    port="$(free_port "${WINDOWCALL_S3_PORT:-4569}")"
-    # ready once it says so: the bucket is made after the port opens
-    fake_start "object server" "$S3_RUN" s3-server.ts "grep -q 's3rver on' '$S3_RUN/server.log'" "$port" \
-      S3_PORT="$port" S3_DIR="$ROOT/.data/s3"
+    local port try
+    for try in 1 2 3; do
+      port="$(free_port $((${WINDOWCALL_S3_PORT:-4569} + try - 1)))"
+      # ready once it says so: the bucket is made after the port opens
+      fake_start "$S3_RUN" s3-server.ts "grep -q 's3rver on' '$S3_RUN/server.log'" "$port" \
+        S3_PORT="$port" S3_DIR="$ROOT/.data/s3" && break
+    done
+    fake_running "$S3_RUN" || fake_failed "object server" "$S3_RUN"
     say "local object server: http://127.0.0.1:$port, bucket $S3_BUCKET"
   fi
   export S3_ENDPOINT="http://127.0.0.1:$(fake_port "$S3_RUN")"
@@ -148,10 +157,13 @@ payments_up() {
   case "${STRIPE_SECRET_KEY:-}" in sk_live_*) return 0 ;; esac
   [ -n "${STRIPE_SECRET_KEY:-}" ] && [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are not set (ensure_env_file writes local ones)"
   if ! fake_running "$PAY_RUN"; then
-    local port
-    port="$(free_port "${WINDOWCALL_PAYMENTS_PORT:-4580}")"
-    fake_start "payments fake" "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" \
-      PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments"
+    local port try
+    for try in 1 2 3; do
+      port="$(free_port $((${WINDOWCALL_PAYMENTS_PORT:-4580} + try - 1)))"
+      fake_start "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" \
+        PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments" && break
+    done
+    fake_running "$PAY_RUN" || fake_failed "payments fake" "$PAY_RUN"
     say "local payments fake: http://127.0.0.1:$port"
   fi
   export STRIPE_API_URL="http://127.0.0.1:$(fake_port "$PAY_RUN")"
