@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { timekeeperProblem, type TimekeeperChoice } from "@/lib/contests/timekeepers";
 import type { RunEntity } from "@/lib/events/entities";
+import type { RunEvent } from "@/lib/events/schema";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
 import type { Database } from "../index";
 import { contestEntries, contestRounds, contests, groupSlots } from "../schema";
@@ -123,4 +124,40 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
     }
   }
   return linked;
+}
+
+/**
+ * Pilot and timekeeper signed lanes on the timekeeper's phone ("signed" events just pushed): each
+ * lane linked to a contest slot whose timekeeper is the pushing account gets its signature (F3K.1.2),
+ * at the phone's time of signing (its clock corrected by the event's offset estimate, when it has one),
+ * with who signed: "on the phone: pilot <lane's pilot>, timekeeper <account's name>". A slot signed
+ * already keeps its first signature. Called by the push (sync-push.ts).
+ */
+export async function signLanes(tx: Executor, userId: string, signs: readonly RunEvent[]): Promise<number> {
+  let signed = 0;
+  for (const e of signs) {
+    if (e.body.kind !== "signed") continue;
+    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+    const res = await tx.execute(sql`
+      update group_slots g set
+        signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
+        signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
+      from run_lanes l, users u
+      where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
+        and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
+    signed += res.rowCount ?? 0;
+  }
+  return signed;
+}
+
+/** Every signed result of the contest: round, group, pilot, when and how it was signed (the results page lists them). */
+export async function listSignatures(db: Database, contestId: string) {
+  return db.select({
+    roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, groupNumber: groupSlots.groupNumber, name: contestEntries.pilotName,
+    signedAt: groupSlots.signedAt, signedFrom: groupSlots.signedFrom,
+  }).from(groupSlots)
+    .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
+    .innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .where(and(eq(contestRounds.contestId, contestId), sql`${groupSlots.signedAt} is not null`))
+    .orderBy(asc(contestRounds.isFlyOff), asc(contestRounds.number), asc(groupSlots.groupNumber), asc(contestEntries.pilotName));
 }

@@ -68,10 +68,13 @@ async function lastPage(userId: string): Promise<PullReply> {
   }
 }
 
+let keeperPhone: ReturnType<typeof recorder> | null = null;
+
 /** `user`'s phone times a window of `task` with lanes for `names`, each flying `secs[i]` seconds once, tied to round 1's slots; returns the run id. */
 async function timedWindow(user: MockSessionUser, names: string[], secs: number[], task = getCatalogueTask("A")): Promise<string> {
   actAs(user);
   const phone = recorder(deviceId());
+  keeperPhone = phone;
   const s = session(user.id);
   const r = { ...run(s.id, names.map((pilotName, lane) => ({ lane, pilotName })), task), contest: { roundId: round1, slots: names.map((n, lane) => ({ lane, entryId: ids[n]! })) } };
   const events = [phone.at(r.id, T0, { kind: "window-start" }), ...names.flatMap((_, lane) => phone.flights(r.id, lane, [secs[lane]!], T0 + 1000 + lane * 500))];
@@ -140,5 +143,34 @@ describe("the timekeeper's run becomes the round's result", () => {
     const ada = standings.pilots.find((p) => p.name === "Ada Fenn")!;
     // the server's derived result of the run's lane, not yet signed (an unsigned result scores zero, F3K.1.2)
     expect(ada.rounds[0]).toMatchObject({ resultTenths: 1200, signed: false });
+  });
+
+  it("pilot and timekeeper sign on the phone: the slot is signed with who and when, and the result counts", async () => {
+    const [a] = await db.select({ runId: groupSlots.runId }).from(groupSlots).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids["Ada Fenn"]!)));
+    const runId = a!.runId!;
+    const phone = keeperPhone!;
+    // someone else's "signed" event on that run is not the timekeeper's signature
+    actAs(member);
+    const stranger = recorder(deviceId());
+    await push({ deviceId: stranger.id, sessions: [], runs: [], events: [stranger.at(runId, T0 + 400_000, { kind: "signed", lane: 0 })] });
+    expect((await slot("Ada Fenn")).signedAt).toBeNull();
+
+    actAs(keeper);
+    const res = await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(runId, T0 + 420_000, { kind: "signed", lane: 0 })] });
+    expect(res.body.acks.every((x) => x.status === "applied")).toBe(true);
+    const ada = await slot("Ada Fenn");
+    expect(ada.signedFrom).toBe(`on the phone: pilot Ada Fenn, timekeeper ${keeper.name}`);
+    // the recorder's clock is the server's here (θ = 0): signed at the event's time
+    expect(ada.signedAt?.getTime()).toBe(T0 + 420_000);
+    expect((await slot("Bo Marsh")).signedAt).toBeNull();
+
+    actAs(member);
+    const body = (await (await resultsRoute(new Request("http://test/api?format=json"), { params: Promise.resolve({ contestId }) })).json()) as {
+      standings: { pilots: { name: string; rounds: { resultTenths: number; pointsTenths: number; signed: boolean }[] }[] };
+    };
+    const round = (name: string) => body.standings.pilots.find((p) => p.name === name)!.rounds[0]!;
+    // Ada's signed 120.0 s is group 1's best (1000 points); Bo's unsigned 90.0 s scores zero (F3K.1.2)
+    expect(round("Ada Fenn")).toMatchObject({ resultTenths: 1200, signed: true, pointsTenths: 10000 });
+    expect(round("Bo Marsh")).toMatchObject({ signed: false, pointsTenths: 0 });
   });
 });
