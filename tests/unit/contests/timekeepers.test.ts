@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { dutyLanes, dutyText, MAX_PILOTS_PER_TIMEKEEPER, timekeeperProblem } from "@/lib/contests/timekeepers";
+import { foldRun, getCatalogueTask } from "@/lib/tasks";
+import { eventLog } from "../tasks/helpers";
 
 /** Issue 15, on the day: which timekeeper choices an officer may save, and the lanes a duty sets up. */
 
@@ -45,5 +47,23 @@ describe("a duty on the phone", () => {
       lanes: [{ lane: 0, pilotName: "Ilse Brook" }, { lane: 1, pilotName: "Oren Vale" }, { lane: 2, pilotName: "Pia Thorn" }],
       slots: [{ lane: 0, entryId: "a" }, { lane: 1, entryId: "b" }, { lane: 2, entryId: "c" }],
     });
+  });
+});
+
+describe("a signature on the phone", () => {
+  it("does not change a lane's result (only the contest slot records it; F3K.1.2 zeroes unsigned results in the standings)", () => {
+    // Task A: the last flight counts, up to 300 s (RULES.md task table)
+    const A = getCatalogueTask("A");
+    const log = eventLog();
+    log.start(0);
+    log.launch(1_000);
+    log.land(121_000);
+    const before = foldRun(A, log.events).lanes[0]!;
+    log.add(130_000, { kind: "run-end" });
+    log.add(131_000, { kind: "signed", lane: 0 });
+    const after = foldRun(A, log.events).lanes[0]!;
+    expect(before.resultTenths).toBe(1200);
+    expect(after.resultTenths).toBe(1200);
+    expect(after.flights).toEqual(before.flights);
   });
 });
