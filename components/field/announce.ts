@@ -37,6 +37,8 @@ export function describeWrite(event: RunEvent, task: TaskDefinition, timeline: r
       return `Penalty ${b.points} points${laneSuffix(b.lane)}`;
     case "unsigned":
       return `Result not signed${laneSuffix(b.lane)}`;
+    case "signed":
+      return `Result signed${laneSuffix(b.lane)}`;
     case "reflight":
       return `Re-flight granted${laneSuffix(b.lane)}`;
     case "run-end":

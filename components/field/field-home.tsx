@@ -1,8 +1,8 @@
 import { FirstUseCautions } from "./first-use-cautions";
-import { AssignedPlans, OpenWindows, PlanEditor, RecentResults } from "./field-islands";
+import { AssignedPlans, ContestDuties, OpenWindows, PlanEditor, RecentResults } from "./field-islands";
 
 /**
- * /field: windows still open on this phone, the start control, practice plans, recent results,
+ * /field: windows still open on this phone, the start control, contest timekeeping duties, practice plans, recent results,
  * the cautions. The shell renders on the server; what is read from the phone's database comes
  * in islands loaded after first paint (field-islands.tsx).
  */
@@ -15,6 +15,7 @@ export function FieldHome() {
       <a href="/field/new" className="flex min-h-[5.5rem] items-center justify-center rounded-2xl bg-accent text-2xl font-extrabold text-accent-ink">
         Start a task window
       </a>
+      <ContestDuties />
       <AssignedPlans />
       <PlanEditor />
       <section aria-labelledby="recent-title" className="space-y-2">

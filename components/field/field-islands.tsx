@@ -21,3 +21,5 @@ export const PlanEditor = dynamic(() => import("./plan-editor").then((m) => m.Pl
 });
 
 export const AssignedPlans = dynamic(() => import("./assigned-plans").then((m) => m.AssignedPlans), { ssr: false });
+
+export const ContestDuties = dynamic(() => import("./contest-duties").then((m) => m.ContestDuties), { ssr: false });

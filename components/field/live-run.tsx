@@ -11,6 +11,7 @@ import { phoneResult, placeOnRun, type PhoneView } from "@/lib/offline/run-resul
 import { liveState } from "@/lib/tasks";
 import { CorrectionsList } from "@/components/run";
 import { ClockPanel } from "./clock-panel";
+import { ContestSignatures } from "./contest-signatures";
 import { LaneArea } from "./lane-area";
 import { ModelPicker } from "./model-picker";
 import type { RunLane } from "@/lib/events/entities";
@@ -114,7 +115,13 @@ export function LiveRun({ data, clocks }: { data: Extract<RunData, { state: "rea
         {said.n % 2 ? "\u200b" : ""}
       </p>
       {!open ? (
-        <RunSummary runId={run.id} task={task} result={result} lanes={run.lanes} />
+        <>
+          {run.contest ? (
+            <ContestSignatures lanes={run.lanes} events={recorder.events} result={result} keeperName={profile?.name ?? "Timekeeper"}
+              onSign={(lane) => actions.ruling({ kind: "signed", lane })} />
+          ) : null}
+          <RunSummary runId={run.id} task={task} result={result} lanes={run.lanes} />
+        </>
       ) : notStarted ? (
         <>
           <PrepPanel stage={stage} onStart={(t) => void start(t)} />

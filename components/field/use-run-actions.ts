@@ -65,8 +65,8 @@ export function useRunActions({ task, laneCount, view, clocks, record, stampInpu
     /** Marks the flight launched by event `flightId` invalid: keyed by its launch, so an undo elsewhere cannot move it. */
     invalid: (lane: number, flightId: string, reason: InvalidReason) => fixed({ kind: "invalid", lane, flightId, reason }),
     penalty: (lane: number, p: PenaltyInput) => fixed({ kind: "penalty", lane, ...p }),
-    /** "Not signed" or a re-flight grant on a lane. */
-    ruling: (body: Extract<EventBody, { kind: "unsigned" | "reflight" }>) => fixed(body),
+    /** "Not signed", "signed" (pilot and timekeeper, at a contest) or a re-flight grant on a lane. */
+    ruling: (body: Extract<EventBody, { kind: "unsigned" | "signed" | "reflight" }>) => fixed(body),
     target: (lane: number, targetSec: number, timeStamp: number) => fixed({ kind: "target", lane, targetSec }, stampInput(timeStamp)),
     endCall: (lane: number, timeStamp: number) => fixed({ kind: "end-call", lane }, stampInput(timeStamp)),
     close: () => fixed({ kind: "run-end" }),

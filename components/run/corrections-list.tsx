@@ -23,6 +23,7 @@ const WORDS: Record<RunEvent["body"]["kind"], string> = {
   invalid: "invalid mark",
   penalty: "penalty",
   unsigned: "not-signed ruling",
+  signed: "signature of pilot and timekeeper",
   reflight: "re-flight",
   model: "model choice",
 };

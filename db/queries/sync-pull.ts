@@ -6,6 +6,7 @@ import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
 import { notesFor } from "./coach/notes";
 import { plansOfPilot } from "./coach/plans";
+import { dutiesOf } from "./contest-timekeepers";
 import type { Database } from "../index";
 import type { Executor } from "./sync-db";
 
@@ -84,6 +85,7 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
     reply.models = await hangarOf(db, userId);
     reply.notes = await notesFor(db, userId);
     reply.plans = await plansOfPilot(db, userId);
+    reply.contestDuties = await dutiesOf(db, userId);
   }
   return reply;
 }

@@ -1,5 +1,6 @@
 import "server-only";
 import { ownPlanItems } from "./coach/plans";
+import { linkTimedLanes } from "./contest-timekeepers";
 import { and, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
@@ -108,6 +109,8 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   if (freshRuns.length > 0) {
     await tx.insert(runs).values(freshRuns).onConflictDoNothing();
     await tx.insert(runLanes).values(freshLanes).onConflictDoNothing();
+    // a contest timekeeper's window: its lanes become the pilots' official results
+    if (items.some((r) => r.contest)) await linkTimedLanes(tx, ctx.userId, items.filter((r) => r.contest && seen.has(r.id)));
   }
   return freshRuns.map((r) => r.id!);
 }

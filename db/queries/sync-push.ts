@@ -5,6 +5,7 @@ import { ForbiddenError } from "@/lib/errors";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
+import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { storeDerivations, type DeriveStats } from "./runs";
 import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
@@ -64,6 +65,8 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
       seqs: [...new Set(req.events.map((e) => e.seq))],
     });
     const added = await applyEvents(ctx, req.events, load);
+    // a contest timekeeper's phone: pilot and timekeeper signed lanes of a run linked to contest slots
+    if (req.events.some((e) => e.body.kind === "signed")) await signLanes(tx, userId, req.events.filter((e) => e.body.kind === "signed" && added.has(e.runId)));
     const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
     if (req.discards?.length) await applyDiscards(ctx, req.discards); // after the events: a run set up and deleted in one push goes too
     const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));

@@ -106,8 +106,16 @@ export const groupSlots = pgTable(
     /** Signed by pilot and timekeeper (F3K.1.2: an unsigned result scores zero); `signedFrom` says how it was seen. */
     signedAt: timestamp("signed_at", { withTimezone: true }),
     signedFrom: text("signed_from"),
+    /**
+     * The timekeeper an officer assigned to this pilot in this round (a club member or an entered pilot who
+     * does not fly in the group), with who assigned them and when. Their phone gets the pilot's lane by sync
+     * and the run it times is linked here when it syncs back (db/queries/contest-timekeepers.ts).
+     */
+    timekeeperUserId: uuid("timekeeper_user_id").references(() => users.id, { onDelete: "set null" }),
+    timekeeperAssignedBy: uuid("timekeeper_assigned_by").references(() => users.id, { onDelete: "set null" }),
+    timekeeperAssignedAt: timestamp("timekeeper_assigned_at", { withTimezone: true }),
   },
-  (t) => [unique("group_slots_round_entry_uq").on(t.roundId, t.entryId)],
+  (t) => [unique("group_slots_round_entry_uq").on(t.roundId, t.entryId), index("group_slots_timekeeper_idx").on(t.timekeeperUserId)],
 );
 
 /** Webhook events of the payments service already applied, by the service's event id: a redelivery changes nothing. */

@@ -8,6 +8,7 @@ import { clubs, contestEntries, contestRounds, contests, users } from "../schema
 import { DEMO_CLUB } from "./demo-people";
 import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
+import { seedDemoTimekeepers } from "./demo-timekeepers";
 
 const NAME = "Heronmoor Winter Cup";
 /** Invented pilots entered on paper (any likeness is chance). */
@@ -17,18 +18,22 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
  * A demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed
  * 20261212), not locked; with an entry fee (demo-fees.ts); rounds 1–3 with results
  * (./demo-results.ts); in round 5 the officer had Gus Wendle trade groups with a pilot of another
- * group (a change of the draw, listed under it).
+ * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts).
  */
 export async function seedDemoContest(db: Database): Promise<void> {
-  await seedContest(db);
+  const contestId = await seedContest(db);
   await seedDemoFees(db, NAME);
+  if (contestId) await seedDemoTimekeepers(db, contestId);
 }
 
-async function seedContest(db: Database): Promise<void> {
+async function seedContest(db: Database): Promise<string | null> {
   const [club] = await db.select({ id: clubs.id }).from(clubs).where(eq(clubs.slug, DEMO_CLUB.slug));
-  if (!club) return;
+  if (!club) return null;
   const [present] = await db.select({ id: contests.id }).from(contests).where(and(eq(contests.clubId, club.id), eq(contests.name, NAME)));
-  if (present) return seedDemoResults(db, present.id);
+  if (present) {
+    await seedDemoResults(db, present.id);
+    return present.id;
+  }
   const pilots = await db.select({ id: users.id, name: users.name }).from(users)
     .where(inArray(users.email, ["ada@example.com", "tobi@example.com", "lena@example.com"]));
   const officer = await db.select({ id: users.id }).from(users).where(eq(users.email, "ines@example.com"));
@@ -48,4 +53,5 @@ async function seedContest(db: Database): Promise<void> {
   const other = round5.find((g) => !g.includes(gus.id))!.map((id) => entries.find((e) => e.id === id)!).find((e) => e.keepApart === null)!;
   if (officer[0]) await swapInRound(db, { contestId: contest!.id, roundNumber: 5, a: gus.id, b: other.id, byUserId: officer[0].id });
   await seedDemoResults(db, contest!.id);
+  return contest!.id;
 }

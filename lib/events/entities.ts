@@ -62,6 +62,15 @@ export const runEntitySchema = z.object({
    * (lib/coach/plan-goals.ts). The server keeps it only when the plan is the creator's own.
    */
   plan: z.object({ id: z.uuid(), item: z.number().int().min(0).max(11) }).optional(),
+  /**
+   * A contest round this window times, set up from a timekeeper's duty (lib/contests/timekeepers.ts
+   * dutyLanes): which lane times which entry. The server links each lane to the pilot's slot when the
+   * pushing account is that slot's assigned timekeeper, and ignores it otherwise.
+   */
+  contest: z.object({
+    roundId: z.uuid(),
+    slots: z.array(z.object({ lane: z.number().int().min(0).max(3), entryId: z.uuid() })).min(1).max(4),
+  }).optional(),
 });
 export type RunEntity = z.infer<typeof runEntitySchema>;
 

@@ -103,6 +103,12 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   }),
   /** The round result was not signed by pilot and timekeeper: the round scores zero (F3K.1.2). */
   z.object({ kind: z.literal("unsigned"), lane }),
+  /**
+   * Pilot and timekeeper signed the lane's result on the timekeeper's phone (F3K.1.2: an unsigned
+   * result scores zero). Scoring ignores it; for a contest run the server marks the pilot's slot signed
+   * (db/queries/contest-timekeepers.ts signLanes).
+   */
+  z.object({ kind: z.literal("signed"), lane }),
   /** The lane's pilot is granted a re-flight of this round (F3K.9.6, F3K.4.2). */
   z.object({
     kind: z.literal("reflight"),

@@ -5,6 +5,7 @@ import type { PracticePlan } from "@/lib/field/practice-plan";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult, PulledModel } from "@/lib/validations/sync";
 import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
+import type { PulledDuty } from "@/lib/validations/contest-sync";
 import { BASE_DB_NAME, currentDbName } from "./device-user";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 
@@ -73,6 +74,8 @@ export type MetaValues = {
   notes: PulledNote[];
   /** Practice plans coaches assigned to that user, with progress, as the last pull gave them: the Field shows them offline. */
   assignedPlans: PulledPlan[];
+  /** Contest groups that user keeps time for, with the pilots, as the last pull gave them: the Field offers their lanes offline. */
+  contestDuties: PulledDuty[];
   /** The fields of that user's clubs with their cautions, cached while online (the set-up form shows them offline). */
   clubFields: {
     id: string; name: string; clubName: string; latitude: number | null; longitude: number | null;

@@ -82,6 +82,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       // whole lists: what the user may no longer read (a revoked grant) drops off here
       if (r.value.notes) await setMeta(db, "notes", r.value.notes);
       if (r.value.plans) await setMeta(db, "assignedPlans", r.value.plans);
+      if (r.value.contestDuties) await setMeta(db, "contestDuties", r.value.contestDuties);
     });
     stored += items.length;
     cursor = nextCursor;

@@ -20,6 +20,7 @@ const TIE_RANK: Record<EventBody["kind"], number> = {
   invalid: 5,
   penalty: 5,
   unsigned: 5,
+  signed: 7, // signed after the round: nothing after it at the same instant changes
   reflight: 5,
   model: 3, // a model picked at the instant of a launch flies that launch
   correct: 6,

@@ -30,3 +30,13 @@ export const linkRunSchema = z.object({
   runId: z.uuid("Not a run.").nullable(),
   lane: z.number().int("Not a lane.").min(0, "Not a lane.").max(49, "Not a lane.").nullable(),
 }).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] });
+
+/** One group's timekeepers in a round: per pilot the timekeeper's account (null: none). */
+export const groupTimekeepersSchema = z.object({
+  groupNumber: z.number().int().min(1, "Not a group.").max(99, "Not a group."),
+  timekeepers: z.array(z.object({
+    entryId: z.uuid("Not an entry."),
+    timekeeperUserId: z.uuid("Not a timekeeper.").nullable(),
+  })).min(1, "Name at least one pilot.").max(30, "At most 30 pilots in a group."),
+});
+export type GroupTimekeepersInput = z.infer<typeof groupTimekeepersSchema>;

@@ -4,6 +4,7 @@ import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/ev
 import { EPOCH_MS_MAX, text } from "./bounds";
 import { laneConsentSchema, recorderSchema } from "./consent";
 import { pulledNoteSchema, pulledPlanSchema } from "./coaching-sync";
+import { pulledDutySchema } from "./contest-sync";
 import { MODEL_STATUSES } from "./hangar";
 
 export { clockEstimateSchema };
@@ -204,6 +205,8 @@ export const pullReplySchema = z.object({
   notes: z.array(pulledNoteSchema).max(5_000).optional(),
   /** Practice plans assigned to the user, with their progress, on the last page of every pull (the Field shows them offline). */
   plans: z.array(pulledPlanSchema).max(1_000).optional(),
+  /** Contest groups the user keeps time for, with the pilots to time, on the last page of every pull (the Field shows them offline). */
+  contestDuties: z.array(pulledDutySchema).max(1_000).optional(),
 });
 export type PullReply = z.infer<typeof pullReplySchema>;
 

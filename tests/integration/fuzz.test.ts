@@ -73,6 +73,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/results": { GET: "query" },
   "/api/contests/[contestId]/rounds/[roundNumber]/cards": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/runs": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/timekeepers": { PUT: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
   "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },

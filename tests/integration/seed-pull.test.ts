@@ -13,7 +13,7 @@ import { pull } from "./sync-fixtures";
 describe("seeded demo data", () => {
   afterAll(async () => getPool().end());
 
-  for (const email of ["ada@example.com", "tobi@example.com", "lena@example.com"]) {
+  for (const email of ["ada@example.com", "tobi@example.com", "lena@example.com", "mara@example.com"]) {
     it(`${email}: every page of a pull from 0 passes the phone's pull schema`, async () => {
       actAs(await demoUser(email));
       let cursor: string | number = 0;
@@ -28,4 +28,23 @@ describe("seeded demo data", () => {
       throw new Error("more than 50 pages");
     });
   }
+
+  it("mara@example.com keeps time in round 1 of the demo contest: her pull's last page carries those groups", async () => {
+    actAs(await demoUser("mara@example.com"));
+    let cursor: string | number = 0;
+    for (let pages = 0; pages < 50; pages++) {
+      const { body } = await pull(cursor);
+      if (body.hasMore) { cursor = body.nextCursor; continue; }
+      const duties = pullReplySchema.parse(body).contestDuties ?? [];
+      const cup = duties.filter((d) => d.contestName === "Heronmoor Winter Cup");
+      expect(cup.length).toBeGreaterThan(0);
+      for (const d of cup) {
+        expect(d.roundNumber).toBe(1);
+        expect(d.pilots.length).toBeGreaterThan(0);
+        expect(d.pilots.length).toBeLessThanOrEqual(4);
+      }
+      return;
+    }
+    throw new Error("more than 50 pages");
+  });
 });

@@ -75,6 +75,17 @@ export async function cardsSaved(ctx: { user: { id: string } }): Promise<void> {
 /** The officer unlinks Matrix One's (absent) timed run in round 1: allowed for officers, changes no result. */
 export const unlinkBody = () => ({ entryId, runId: null, lane: null });
 
+/** The officer makes the club's owner (a member, not flying in the group: both entries are paper ones) Matrix One's timekeeper in round 1. */
+export const timekeepersBody = (ctx: { cast: Cast } | null) => ({ groupNumber: 1, timekeepers: [{ entryId, timekeeperUserId: ctx?.cast.owner.id ?? null }] });
+
+/** After a 2xx: the owner is Matrix One's timekeeper, assigned by the caller; cleared for the next actor. */
+export async function timekeeperSaved(ctx: { user: { id: string }; cast: Cast }): Promise<void> {
+  const rows = await db.select().from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  expect(rows[0]).toMatchObject({ timekeeperUserId: ctx.cast.owner.id, timekeeperAssignedBy: ctx.user.id });
+  expect(rows[0]?.timekeeperAssignedAt).toBeInstanceOf(Date);
+  await db.update(groupSlots).set({ timekeeperUserId: null, timekeeperAssignedBy: null, timekeeperAssignedAt: null }).where(eq(groupSlots.entryId, entryId));
+}
+
 /** After a 2xx: the link returned is the one stored. */
 export async function linkMade(_ctx: unknown, res: Response): Promise<void> {
   const body = (await res.json()) as { token: string };

@@ -74,7 +74,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
         <ol className="list-decimal pl-5" aria-label="Rounds">
           {rounds.map((r) => (
             <li key={r.id}>Task {r.task.letter}: {r.task.name}
-              {officer && contest.drawSeed !== null && <> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}/cards`}>Paper cards for round {r.number}</Link></>}
+              {officer && contest.drawSeed !== null && <> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}`}>Timekeepers for round {r.number}</Link> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}/cards`}>Paper cards for round {r.number}</Link></>}
             </li>
           ))}
         </ol>

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { getResultsData } from "@/db/queries/contest-results";
+import { listSignatures } from "@/db/queries/contest-timekeepers";
 import { LiveStandings } from "@/components/contests/live-standings";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { contestStandings } from "@/lib/contests/standings";
@@ -20,7 +21,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/results` });
-  const data = await getResultsData(db, contestId);
+  const [data, signatures] = await Promise.all([getResultsData(db, contestId), listSignatures(db, contestId)]);
   if (!data) notFound();
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
   const api = `/api/contests/${contestId}/results`;
@@ -32,6 +33,18 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
         <p className="text-muted">{formatDate(new Date(`${data.contest.startsOn}T12:00:00Z`))} · {data.contest.fieldName}</p>
       </header>
       <LiveStandings url={api} initial={contestStandings(data.input)} />
+      <details className="rounded-xl border-2 border-line p-3 print:hidden">
+        <summary className="min-h-12 cursor-pointer py-3 font-bold">Signatures ({signatures.length})</summary>
+        {signatures.length === 0 ? <p className="text-muted">No result signed yet.</p> : (
+          <ul aria-label="Signatures" className="space-y-1">
+            {signatures.map((s) => (
+              <li key={`${s.isFlyOff}:${s.roundNumber}:${s.groupNumber}:${s.name}`}>
+                {s.isFlyOff ? "Fly-off round" : "Round"} {s.roundNumber}, group {s.groupNumber}, {s.name}: signed {s.signedAt!.toISOString().slice(0, 16).replace("T", " ")} UTC, {s.signedFrom ?? "signed"}
+              </li>
+            ))}
+          </ul>
+        )}
+      </details>
       <section aria-labelledby="downloads" className="space-y-2 print:hidden">
         <h2 id="downloads" className="text-lg font-bold">Print and download</h2>
         <ul className="space-y-2">

@@ -1,0 +1,34 @@
+// PUT /api/contests/[contestId]/rounds/[roundNumber]/timekeepers — an officer assigns a group's timekeepers
+import { db } from "@/db";
+import { getRound } from "@/db/queries/contest-results";
+import { saveGroupTimekeepers } from "@/db/queries/contest-timekeepers";
+import { parseJson, route } from "@/lib/api";
+import { requireContestRole } from "@/lib/auth/contest-role";
+import { requireUser } from "@/lib/auth/session";
+import { NotFoundError, ValidationError } from "@/lib/errors";
+import { groupTimekeepersSchema, roundParamsSchema } from "@/lib/validations/contest-results";
+
+export const dynamic = "force-dynamic";
+
+type Context = { params: Promise<{ contestId: string; roundNumber: string }> };
+
+/**
+ * Each named pilot's timekeeper in one group of the round (null: none), all or nothing, stored with
+ * who and when. 401 signed out, 404 no such contest/round or not a member, 403 not an officer; 422 a
+ * pilot not in the group, a timekeeper who flies in it, who is neither a club member nor an entered
+ * pilot, or who would time more than four of its pilots (lib/contests/timekeepers.ts).
+ */
+export const PUT = route(async (request: Request, context: Context) => {
+  const me = await requireUser();
+  const body = await parseJson(request, groupTimekeepersSchema);
+  const params = roundParamsSchema.safeParse(await context.params);
+  if (!params.success) throw new NotFoundError();
+  await requireContestRole(params.data.contestId, "officer");
+  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber });
+  if (!round) throw new NotFoundError("No such round.");
+  const done = await saveGroupTimekeepers(db, {
+    contestId: params.data.contestId, roundId: round.id, groupNumber: body.groupNumber, userId: me.id, choices: body.timekeepers,
+  });
+  if (!done.saved) throw new ValidationError(done.problem, []);
+  return Response.json({ saved: true }, { headers: { "cache-control": "no-store" } });
+});

@@ -1,0 +1,74 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { useState } from "react";
+import { dutyLanes, dutyText } from "@/lib/contests/timekeepers";
+import { getMeta, getWindowcallDb } from "@/lib/offline/db";
+import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
+import { isQuotaError } from "@/lib/offline/storage";
+import { taskDefinitionSchema } from "@/lib/tasks";
+import type { PulledDuty } from "@/lib/validations/contest-sync";
+import { useFieldProfile } from "./use-field-profile";
+import { useNotifyWrite } from "./use-notify-write";
+
+/**
+ * Contest groups this phone's user keeps time for, as the last pull brought them (so they show
+ * offline): "Contest: round N, group G — pilots A, B, C" and one tap that sets up the round's task
+ * with one named lane per pilot, tied to the pilots' contest slots: when the run syncs, its results
+ * are the pilots' official results for the round.
+ */
+export function ContestDuties() {
+  const duties = useLiveQuery(async () => (await getMeta(getWindowcallDb(), "contestDuties")) ?? [], []);
+  if (!duties || duties.length === 0) return null;
+  return (
+    <section aria-labelledby="duties-h" className="space-y-3">
+      <h2 id="duties-h" className="text-lg font-bold">Timekeeping at a contest</h2>
+      {duties.map((d) => <DutyCard key={`${d.roundId}:${d.groupNumber}`} duty={d} />)}
+      <p className="text-sm text-muted">As of the last sync. Stand where the contest director puts timekeepers, and follow the field&apos;s safety rules.</p>
+    </section>
+  );
+}
+
+function DutyCard({ duty }: { duty: PulledDuty }) {
+  const { profile } = useFieldProfile();
+  const notify = useNotifyWrite();
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const title = `Contest: ${dutyText(duty)}`;
+
+  const start = async () => {
+    const task = taskDefinitionSchema.safeParse(duty.task);
+    if (!task.success || !profile) return setError(!profile ? "Sign in once online on this phone first." : "This round's task cannot be timed on this phone.");
+    setBusy(true);
+    try {
+      const db = getWindowcallDb();
+      const now = Date.now();
+      const { lanes, slots } = dutyLanes(duty);
+      const session = await createSessionLocal(db, { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now });
+      const run = await createRunLocal(db, {
+        sessionId: session.id, task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now,
+        contest: { roundId: duty.roundId, slots },
+      });
+      notify();
+      // A full navigation: offline, the service worker serves the one precached run shell.
+      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
+      window.location.assign(`/field/run?id=${run.id}`);
+    } catch (e) {
+      setBusy(false);
+      setError(isQuotaError(e) ? "The phone's storage is full: nothing was saved." : `Nothing was saved: ${e instanceof Error ? e.message : String(e)}`);
+    }
+  };
+
+  return (
+    <article aria-label={title} className="space-y-2 rounded-xl border-2 border-line p-3">
+      <h3 className="font-bold">{title}</h3>
+      <p className="text-sm text-muted">{duty.contestName} · {duty.startsOn} · task {String(duty.task.letter ?? "")}: {String(duty.task.name ?? "")}</p>
+      <button type="button" onClick={() => void start()} disabled={busy}
+        className="flex min-h-touch w-full items-center justify-between gap-2 rounded-lg bg-accent px-3 text-left font-bold text-accent-ink">
+        <span>Set up round {duty.roundNumber}, group {duty.groupNumber}: {duty.pilots.length === 1 ? "one lane" : `${Math.min(duty.pilots.length, 4)} lanes`}</span>
+        <span aria-hidden>▶</span>
+      </button>
+      {error ? <p role="alert" className="text-sm font-semibold text-warn">{error}</p> : null}
+    </article>
+  );
+}

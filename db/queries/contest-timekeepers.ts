@@ -1,0 +1,163 @@
+import "server-only";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
+import { timekeeperProblem, type TimekeeperChoice } from "@/lib/contests/timekeepers";
+import type { RunEntity } from "@/lib/events/entities";
+import type { RunEvent } from "@/lib/events/schema";
+import type { PulledDuty } from "@/lib/validations/contest-sync";
+import type { Database } from "../index";
+import { contestEntries, contestRounds, contests, groupSlots } from "../schema";
+import type { Executor } from "./sync-db";
+
+/** Who may keep time at a contest: the club's members and the contest's entered pilots with an account, by name. */
+export async function listTimekeeperCandidates(db: Executor, contestId: string): Promise<{ id: string; name: string }[]> {
+  const res = await db.execute<{ id: string; name: string }>(sql`
+    select u.id::text as id, u.name from users u
+    where u.disabled_at is null and (
+      u.id in (select m.user_id from memberships m join contests c on c.club_id = m.club_id where c.id = ${contestId})
+      or u.id in (select e.pilot_user_id from contest_entries e where e.contest_id = ${contestId} and e.withdrawn_at is null)
+    )
+    order by u.name, u.id`);
+  return res.rows;
+}
+
+/** A round's pilots by group with their assigned timekeeper, who assigned them and when. */
+export async function listRoundTimekeepers(db: Database, roundId: string) {
+  const keeper = sql<string | null>`(select u.name from users u where u.id = ${groupSlots.timekeeperUserId})`;
+  const assigner = sql<string | null>`(select u.name from users u where u.id = ${groupSlots.timekeeperAssignedBy})`;
+  return db.select({
+    entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber, name: contestEntries.pilotName, pilotUserId: contestEntries.pilotUserId,
+    timekeeperUserId: groupSlots.timekeeperUserId, timekeeperName: keeper, assignedByName: assigner, assignedAt: groupSlots.timekeeperAssignedAt,
+  }).from(groupSlots).innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .where(eq(groupSlots.roundId, roundId)).orderBy(asc(groupSlots.groupNumber), asc(contestEntries.pilotName));
+}
+
+/**
+ * Saves one group's timekeepers in a round (each named pilot's timekeeper, or none), with who and
+ * when; all or nothing. Returns the problem (nothing saved) from lib/contests/timekeepers.ts
+ * timekeeperProblem, or "saved". The group's rows are locked, so two officers saving at once take turns.
+ */
+export async function saveGroupTimekeepers(db: Database, p: {
+  contestId: string; roundId: string; groupNumber: number; userId: string; choices: TimekeeperChoice[];
+}): Promise<{ saved: true } | { saved: false; problem: string }> {
+  return db.transaction(async (tx) => {
+    const group = await tx.select({ entryId: groupSlots.entryId, pilotUserId: contestEntries.pilotUserId, timekeeperUserId: groupSlots.timekeeperUserId })
+      .from(groupSlots).innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+      .where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.groupNumber, p.groupNumber))).for("update", { of: groupSlots });
+    if (group.length === 0) return { saved: false, problem: "No such group in this round." };
+    const eligible = new Set((await listTimekeeperCandidates(tx, p.contestId)).map((c) => c.id));
+    const problem = timekeeperProblem(group, eligible, p.choices, group.map((g) => ({ entryId: g.entryId, timekeeperUserId: g.timekeeperUserId })));
+    if (problem) return { saved: false, problem };
+    const now = new Date();
+    for (const c of p.choices) {
+      const before = group.find((g) => g.entryId === c.entryId)!;
+      if (before.timekeeperUserId === c.timekeeperUserId) continue; // unchanged: keeps who assigned it and when
+      await tx.update(groupSlots).set({
+        timekeeperUserId: c.timekeeperUserId, timekeeperAssignedBy: p.userId, timekeeperAssignedAt: now,
+      }).where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.entryId, c.entryId)));
+    }
+    return { saved: true };
+  });
+}
+
+/** How long after a contest's day its duties stay on the timekeeper's phone. */
+const DUTY_DAYS_AFTER = 2;
+
+/**
+ * The contest groups a user keeps time for, with the pilots assigned to them (the phone's lanes), for
+ * contests on or after two days ago (a phone syncs ahead of the day; a late sync still has them): the
+ * pull's `contestDuties`. At most 1,000 groups.
+ */
+export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty[]> {
+  const rows = await db.select({
+    contestId: contests.id, contestName: contests.name, fieldName: contests.fieldName, startsOn: contests.startsOn,
+    roundId: contestRounds.id, roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, task: contestRounds.task,
+    groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId, name: contestEntries.pilotName,
+  }).from(groupSlots)
+    .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
+    .innerJoin(contests, eq(contests.id, contestRounds.contestId))
+    .innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .where(and(
+      eq(groupSlots.timekeeperUserId, userId),
+      sql`${contests.startsOn} >= current_date - ${DUTY_DAYS_AFTER}::int`,
+      sql`${contestEntries.withdrawnAt} is null`,
+    ))
+    .orderBy(asc(contests.startsOn), asc(contests.id), asc(contestRounds.isFlyOff), asc(contestRounds.number), asc(groupSlots.groupNumber), asc(contestEntries.pilotName))
+    .limit(4_000);
+  const duties = new Map<string, PulledDuty>();
+  for (const r of rows) {
+    const key = `${r.roundId}:${r.groupNumber}`;
+    const d = duties.get(key) ?? {
+      contestId: r.contestId, contestName: r.contestName, fieldName: r.fieldName, startsOn: r.startsOn,
+      roundId: r.roundId, roundNumber: r.roundNumber, groupNumber: r.groupNumber, task: r.task as Record<string, unknown>, pilots: [],
+    };
+    d.pilots.push({ entryId: r.entryId, name: r.name });
+    duties.set(key, d);
+  }
+  return [...duties.values()].slice(0, 1_000);
+}
+
+/**
+ * Links the lanes of runs just pushed from a timekeeper's duty (RunEntity.contest) to the pilots'
+ * slots: only slots whose assigned timekeeper is the pushing account, only lanes the run has, and only
+ * when the run's task is the round's. The run's result (run_lanes.result_tenths, derived by
+ * lib/results runResult) becomes the slot's official result: a paper card is cleared, and so is an
+ * earlier signature (a new result needs its own, F3K.1.2). Called by the push (sync-push-entities.ts).
+ */
+export async function linkTimedLanes(tx: Executor, userId: string, pushed: readonly RunEntity[]): Promise<number> {
+  let linked = 0;
+  const withContest = pushed.filter((r) => r.contest);
+  if (withContest.length === 0) return 0;
+  const rounds = await tx.select({ id: contestRounds.id, task: contestRounds.task }).from(contestRounds)
+    .where(inArray(contestRounds.id, [...new Set(withContest.map((r) => r.contest!.roundId))]));
+  const letterOf = new Map(rounds.map((r) => [r.id, (r.task as { letter?: string | null }).letter ?? null]));
+  const now = new Date();
+  for (const run of withContest) {
+    const { roundId, slots } = run.contest!;
+    if (!letterOf.has(roundId) || letterOf.get(roundId) !== ((run.task as { letter?: string | null }).letter ?? null)) continue;
+    const lanes = new Set(run.lanes.map((l) => l.lane));
+    for (const s of slots) {
+      if (!lanes.has(s.lane)) continue;
+      const done = await tx.update(groupSlots).set({
+        runId: run.id, lane: s.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
+      }).where(and(eq(groupSlots.roundId, roundId), eq(groupSlots.entryId, s.entryId), eq(groupSlots.timekeeperUserId, userId))).returning({ id: groupSlots.id });
+      linked += done.length;
+    }
+  }
+  return linked;
+}
+
+/**
+ * Pilot and timekeeper signed lanes on the timekeeper's phone ("signed" events just pushed): each
+ * lane linked to a contest slot whose timekeeper is the pushing account gets its signature (F3K.1.2),
+ * at the phone's time of signing (its clock corrected by the event's offset estimate, when it has one),
+ * with who signed: "on the phone: pilot <lane's pilot>, timekeeper <account's name>". A slot signed
+ * already keeps its first signature. Called by the push (sync-push.ts).
+ */
+export async function signLanes(tx: Executor, userId: string, signs: readonly RunEvent[]): Promise<number> {
+  let signed = 0;
+  for (const e of signs) {
+    if (e.body.kind !== "signed") continue;
+    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+    const res = await tx.execute(sql`
+      update group_slots g set
+        signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
+        signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
+      from run_lanes l, users u
+      where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
+        and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
+    signed += res.rowCount ?? 0;
+  }
+  return signed;
+}
+
+/** Every signed result of the contest: round, group, pilot, when and how it was signed (the results page lists them). */
+export async function listSignatures(db: Database, contestId: string) {
+  return db.select({
+    roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, groupNumber: groupSlots.groupNumber, name: contestEntries.pilotName,
+    signedAt: groupSlots.signedAt, signedFrom: groupSlots.signedFrom,
+  }).from(groupSlots)
+    .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
+    .innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .where(and(eq(contestRounds.contestId, contestId), sql`${groupSlots.signedAt} is not null`))
+    .orderBy(asc(contestRounds.isFlyOff), asc(contestRounds.number), asc(groupSlots.groupNumber), asc(contestEntries.pilotName));
+}

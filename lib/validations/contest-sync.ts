@@ -1,0 +1,19 @@
+import { z } from "zod";
+
+/**
+ * A timekeeper's contest duties as a pull carries them (pullReplySchema.contestDuties): a whole list
+ * on the last page of every pull, so an assignment the officer changes or removes drops off the phone
+ * at its next pull (db/queries/contest-timekeepers.ts dutiesOf).
+ */
+export const pulledDutySchema = z.object({
+  contestId: z.uuid(),
+  contestName: z.string().max(500),
+  fieldName: z.string().max(500),
+  startsOn: z.string().max(10),
+  roundId: z.uuid(),
+  roundNumber: z.number().int(),
+  groupNumber: z.number().int(),
+  task: z.record(z.string(), z.unknown()),
+  pilots: z.array(z.object({ entryId: z.uuid(), name: z.string().max(500) })).min(1).max(30),
+});
+export type PulledDuty = z.infer<typeof pulledDutySchema>;
