@@ -46,7 +46,7 @@ export function GroupTimekeepersForm(p: { contestId: string; roundNumber: number
       </ul>
       <FormError message={message} />
       <div className="flex items-center gap-3">
-        <Button type="button" onClick={() => void save()}>Save group {p.groupNumber}&apos;s timekeepers</Button>
+        <Button type="button" disabled={busy} onClick={() => void save()}>Save group {p.groupNumber}&apos;s timekeepers</Button>
         {saved ? <span role="status">Saved.</span> : null}
       </div>
     </section>
