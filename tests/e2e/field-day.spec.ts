@@ -215,32 +215,35 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   const pairs = officer.getByRole("list", { name: "Runs recorded differently" });
   await expect(pairs.getByRole("listitem").filter({ hasText: "Ada Fenwick" })).toHaveCount(1);
   const pair = pairs.locator(":scope > li").first();
-  // both phones' versions: who recorded each, its result, its flights on the corrected clock and its clock
-  const tobi = pair.locator("[data-device-id]").filter({ hasText: "Tobi Okafor’s phone" });
-  const lena = pair.locator("[data-device-id]").filter({ hasText: "Lena Strand’s phone" });
-  await expect(tobi).toContainText(/Result \d+\.\d s, \d+ flights? · used/);
-  await expect(lena).toContainText(/Result \d+\.\d s, \d+ flights?/);
-  await expect(lena).not.toContainText("· used");
-  const tobiFlights = await tobi.getByRole("list").locator("li").count();
-  expect(await lena.getByRole("list").locator("li").count()).toBe(tobiFlights - 1); // Lena missed the last flight
-  await expect(tobi.getByRole("list").locator("li").first()).toContainText(/^\d{2}:\d{2}:\d{2}\.\d → \d{2}:\d{2}:\d{2}\.\d$/);
-  await expect(tobi).toContainText(/Clock (on time|\d)/);
+  // both phones' versions: Tobi's club timing phone and his own, on which he missed the last flight (the seed):
+  // whose each is, its result, its flights on the corrected clock and its clock
+  const club = pair.locator('[data-device-id="demo-phone-tobi-club"]');
+  const backup = pair.locator('[data-device-id="demo-phone-tobi"]');
+  await expect(club).toContainText("Tobi Okafor’s phone …i-club");
+  await expect(backup).toContainText("Tobi Okafor’s phone …e-tobi");
+  await expect(club).toContainText(/Result \d+\.\d s, \d+ flights? · used/);
+  await expect(backup).toContainText(/Result \d+\.\d s, \d+ flights?/);
+  await expect(backup).not.toContainText("· used");
+  const clubFlights = await club.getByRole("list").locator("li").count();
+  expect(await backup.getByRole("list").locator("li").count()).toBe(clubFlights - 1);
+  await expect(club.getByRole("list").locator("li").first()).toContainText(/^\d{2}:\d{2}:\d{2}\.\d → \d{2}:\d{2}:\d{2}\.\d$/);
+  await expect(club).toContainText(/Clock (on time|\d)/);
   expect(await seriousViolations(officer)).toEqual([]);
 
   const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
-  await form.getByRole("radio", { name: /^Tobi Okafor’s record/ }).check();
-  await form.getByLabel("Note").fill("Lena started her watch late and missed the last landing.");
+  await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
+  await form.getByLabel("Note").fill("The backup phone missed the last landing.");
   await form.getByRole("button", { name: "Record the decision" }).click();
   await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
-  await expect(pair.getByTestId("decision")).toContainText("Tobi Okafor’s record stands. Note: Lena started her watch late and missed the last landing.");
+  await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
   await officer.reload();
-  await expect(officer.getByTestId("decision")).toContainText("Tobi Okafor’s record stands");
+  await expect(officer.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
 
   // a member sees the decision but gets no form; the server refuses her a decision (403)
   const member = await (await browser.newContext()).newPage();
   await signInAs(member, "lena@example.com");
   await member.goto("/clubs/heronmoor/days/2026-11-21");
-  await expect(member.getByTestId("decision")).toContainText("Tobi Okafor’s record stands");
+  await expect(member.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
   await expect(member.getByRole("form", { name: /^Decision, / })).toHaveCount(0);
   const refused = await member.request.put("/api/clubs/heronmoor/days/2026-11-21/decisions", { data: { runId: "00000000-0000-4000-8000-000000000000", lane: 0, deviceId: null, note: "mine" } });
   expect(refused.status()).toBe(403);

@@ -54,7 +54,7 @@ export function DayBoardClient({ slug, clubName, day, canClose }: Props) {
   );
 }
 
-export type Part = { board: DayBoardView; name: (id: string) => string };
+type Part = { board: DayBoardView; name: (id: string) => string };
 
 function CloseDay({ slug, day, closed }: { slug: string; day: string; closed: boolean }) {
   const client = useQueryClient();

@@ -8,9 +8,12 @@ import { secondsText } from "../../../../../season/_components/season-format";
 import { sendJson } from "../../../../_components/send-json";
 import { momentText, offsetText, timeText, uncertaintyText } from "./day-format";
 import { dayBoardKey } from "./day-board-query";
-import type { Part } from "./day-board-client";
 
 type Lane = DayBoardView["disagreements"][number];
+type Part = { board: DayBoardView; name: (id: string) => string };
+
+/** A phone as the board names it: its recorder and the end of its id (one person may time on two phones). */
+const phoneText = (name: string, deviceId: string) => `${name}’s phone …${deviceId.slice(-6)}`;
 
 /** A corrected instant to the tenth of a second on the club's clock: "14:03:10.4". */
 const tenthText = (ms: number, timeZone: string) => `${timeText(ms, timeZone)}.${Math.floor((((ms % 1000) + 1000) % 1000) / 100)}`;
@@ -57,15 +60,13 @@ function Version({ board, name, version: v, stands }: Part & { version: Lane["ve
   const clock = board.clocks.find((c) => c.deviceId === v.deviceId);
   return (
     <div className="space-y-1 rounded-lg border border-line p-2 text-sm" data-device-id={v.deviceId}>
-      <p className="font-semibold">
-        {name(v.recordedBy)}’s phone ({v.deviceId.slice(-6)})
-      </p>
+      <p className="font-semibold">{phoneText(name(v.recordedBy), v.deviceId)}</p>
       <p>
         Result {secondsText(v.resultTenths)}, {v.flights} {v.flights === 1 ? "flight" : "flights"}
         {v.chosen ? " · used" : ""}
         {stands ? " · stands by decision" : ""}
       </p>
-      <ol className="list-decimal pl-5" aria-label={`Flights on ${name(v.recordedBy)}’s phone`}>
+      <ol className="list-decimal pl-5" aria-label={`Flights on ${phoneText(name(v.recordedBy), v.deviceId)}`}>
         {v.flightTimes.map((f, i) => (
           <li key={i}>
             {tenthText(f.launchAtMs, board.timeZone)} → {f.landAtMs === null ? "not landed" : tenthText(f.landAtMs, board.timeZone)}
@@ -85,7 +86,7 @@ function DecisionText({ board, name, lane }: Part & { lane: Lane }) {
   const stands = lane.versions.find((v) => v.deviceId === d.deviceId);
   return (
     <p role="status" data-testid="decision">
-      Decided {d.decidedBy ? `by ${name(d.decidedBy)} ` : ""}on {momentText(d.decidedAt, board.timeZone)}: {stands ? `${name(stands.recordedBy)}’s record stands` : "no record chosen"}
+      Decided {d.decidedBy ? `by ${name(d.decidedBy)} ` : ""}on {momentText(d.decidedAt, board.timeZone)}: {stands ? `the record on ${phoneText(name(stands.recordedBy), stands.deviceId)} stands` : "no record chosen"}
       {d.note ? `. Note: ${d.note}` : ""}
     </p>
   );
@@ -117,7 +118,9 @@ function DecisionForm({ board, name, lane, slug, label }: Part & { lane: Lane; s
         {lane.versions.map((v) => (
           <label key={v.deviceId} className="flex min-h-12 items-center gap-3">
             <input type="radio" name={group} className="h-6 w-6" checked={deviceId === v.deviceId} onChange={() => setDeviceId(v.deviceId)} />
-            <span>{name(v.recordedBy)}’s record ({secondsText(v.resultTenths)})</span>
+            <span>
+              The record on {phoneText(name(v.recordedBy), v.deviceId)} ({secondsText(v.resultTenths)})
+            </span>
           </label>
         ))}
         <label className="flex min-h-12 items-center gap-3">
