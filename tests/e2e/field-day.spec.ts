@@ -181,8 +181,11 @@ test("a member asks for day summaries on the club page; the officer closes a see
   await member.goto("/clubs/heronmoor");
   const toggle = member.getByRole("checkbox", { name: "E-mail me the summary of each field day when it is closed" });
   await expect(toggle).not.toBeChecked();
+  // the box follows the click at once; reload only once the server answered (a reload would cut the request off)
+  const saved = member.waitForResponse((r) => r.url().endsWith("/api/clubs/heronmoor/day-summaries") && r.request().method() === "PUT");
   await toggle.check();
   await expect(toggle).toBeChecked();
+  expect((await saved).status()).toBe(200);
   await member.reload();
   await expect(toggle).toBeChecked(); // kept on the server
 
@@ -232,7 +235,7 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
 
   const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
   await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
-  await form.getByLabel("Note").fill("The backup phone missed the last landing.");
+  await form.getByLabel("Note", { exact: true }).fill("The backup phone missed the last landing.");
   await form.getByRole("button", { name: "Record the decision" }).click();
   await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
   await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
@@ -245,8 +248,13 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   await member.goto("/clubs/heronmoor/days/2026-11-21");
   await expect(member.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
   await expect(member.getByRole("form", { name: /^Decision, / })).toHaveCount(0);
-  const refused = await member.request.put("/api/clubs/heronmoor/days/2026-11-21/decisions", { data: { runId: "00000000-0000-4000-8000-000000000000", lane: 0, deviceId: null, note: "mine" } });
-  expect(refused.status()).toBe(403);
+  const refused = await member.evaluate(async () => {
+    const res = await fetch("/api/clubs/heronmoor/days/2026-11-21/decisions", {
+      method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ runId: "00000000-0000-4000-8000-000000000000", lane: 0, deviceId: null, note: "mine" }),
+    });
+    return { status: res.status, body: (await res.json()) as { error: { message: string } } };
+  });
+  expect(refused).toEqual({ status: 403, body: { error: expect.objectContaining({ message: "Only the club's officers may do this." }) } });
   await member.context().close();
   await officer.context().close();
 });
@@ -280,8 +288,8 @@ test("a pilot puts an older run of hers in a field day from the run page, and se
     await ada.goto(`/logbook/run?id=${run.id}`);
     const choice = ada.getByRole("checkbox", { name: new RegExp(`^Heronmoor Hand-Launch Club: ${FIELD}, ${run.day}$`) });
     await expect(choice).not.toBeChecked({ timeout: 30_000 });
-    await choice.check();
-    await expect(choice).toBeChecked();
+    await choice.click(); // the box shows what the server holds: checked once the choice is stored and read back
+    await expect(choice).toBeChecked({ timeout: 15_000 });
     await ada.reload();
     await expect(choice).toBeChecked({ timeout: 30_000 }); // kept on the server
 
