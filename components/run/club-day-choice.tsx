@@ -4,7 +4,7 @@ import { useEffect, useState } from "react";
 import { sendJson } from "@/components/request/json";
 import { InlineError } from "@/components/ui/form-footer";
 
-type Choice = { dayId: string; clubSlug: string; clubName: string; fieldName: string; day: string; chosen: boolean };
+type Choice = { dayId: string; clubSlug: string; clubName: string; fieldName: string; day: string; chosen: boolean; closed: boolean };
 
 /**
  * The pilot puts this run in one of their clubs' field days (within a week of it), whatever field
@@ -48,9 +48,10 @@ export function ClubDayChoice({ runId }: { runId: string }) {
         {days.map((c) => (
           <li key={c.dayId}>
             <label className="flex min-h-12 items-center gap-3">
-              <input type="checkbox" className="h-6 w-6" checked={c.chosen} disabled={busy === c.dayId} onChange={() => void toggle(c)} />
+              <input type="checkbox" className="h-6 w-6" checked={c.chosen} disabled={busy === c.dayId || c.closed} onChange={() => void toggle(c)} />
               <span>
                 {c.clubName}: {c.fieldName}, {c.day}
+                {c.closed ? " (closed)" : ""}
               </span>
             </label>
           </li>

@@ -1,7 +1,10 @@
 import "server-only";
 import { and, asc, eq, getTableColumns, inArray, or, sql } from "drizzle-orm";
 import type { Database } from "../index";
-import { clubs, coachGrants, coachInvites, coachNotes, devices, events, fieldSessions, laneConsents, memberships, practicePlans, runLanes, runs, users } from "../schema";
+import {
+  clubDayDecisions, clubDayRuns, clubDays, clubFields, clubs, coachGrants, coachInvites, coachNotes, devices, events, fieldSessions, laneConsents, memberships,
+  practicePlans, runLanes, runs, users,
+} from "../schema";
 import { alias } from "drizzle-orm/pg-core";
 import { exportHangar } from "./hangar-export";
 
@@ -16,7 +19,8 @@ export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
 
 /**
  * Everything Windowcall holds about one account, for "export all my data" (never a password
- * hash): the account; club memberships; coach grants it gave and received, and the offers of its
+ * hash): the account; club memberships (with whether it asked for the day summaries); the runs it
+ * put in club field days and the decisions it recorded as an officer on lanes recorded differently; coach grants it gave and received, and the offers of its
  * season it made (by address or by code; never the code); devices; practice plans assigned to it
  * and those it assigned as a coach; coach notes about its runs and sessions and those it wrote; field sessions it owns; runs in those sessions, runs it created and runs where it flies
  * a lane, each with all lanes and their results; the events it recorded or that belong to its
@@ -33,9 +37,17 @@ export async function exportAccount(db: Database, userId: string) {
     or ${runs.sessionId} in (select id from field_sessions where owner_id = ${userId})
     or exists (select 1 from run_lanes l where l.run_id = ${runs.id} and l.pilot_user_id = ${userId}))`;
   const author = alias(users, "author");
-  const [clubRoles, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows, consents, offers, notes, plansAssigned] = await Promise.all([
-    db.select({ clubId: clubs.id, club: clubs.name, role: memberships.role, since: memberships.createdAt })
+  const [clubRoles, dayChoices, dayDecisions, grantsGiven, grantsReceived, myDevices, plans, sessions, runRows, consents, offers, notes, plansAssigned] = await Promise.all([
+    db.select({ clubId: clubs.id, club: clubs.name, role: memberships.role, since: memberships.createdAt, daySummaries: memberships.daySummaries })
       .from(memberships).innerJoin(clubs, eq(clubs.id, memberships.clubId)).where(eq(memberships.userId, userId)),
+    db.select({ runId: clubDayRuns.runId, dayId: clubDays.id, club: clubs.name, field: clubFields.name, day: clubDays.day, chosenAt: clubDayRuns.createdAt })
+      .from(clubDayRuns).innerJoin(clubDays, eq(clubDays.id, clubDayRuns.dayId)).innerJoin(clubs, eq(clubs.id, clubDays.clubId))
+      .innerJoin(clubFields, eq(clubFields.id, clubDays.fieldId))
+      .where(eq(clubDayRuns.chosenBy, userId)).orderBy(asc(clubDayRuns.createdAt)),
+    db.select({ club: clubs.name, day: clubDayDecisions.day, runId: clubDayDecisions.runId, lane: clubDayDecisions.lane, deviceId: clubDayDecisions.deviceId,
+      note: clubDayDecisions.note, decidedAt: clubDayDecisions.decidedAt })
+      .from(clubDayDecisions).innerJoin(clubs, eq(clubs.id, clubDayDecisions.clubId))
+      .where(eq(clubDayDecisions.decidedBy, userId)).orderBy(asc(clubDayDecisions.decidedAt)),
     db.select({ coachId: coachGrants.coachId, coach: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
       .from(coachGrants).innerJoin(users, eq(users.id, coachGrants.coachId)).where(eq(coachGrants.pilotId, userId)),
     db.select({ pilotId: coachGrants.pilotId, pilot: users.name, createdAt: coachGrants.createdAt, revokedAt: coachGrants.revokedAt })
@@ -75,6 +87,8 @@ export async function exportAccount(db: Database, userId: string) {
     exportedAt: new Date().toISOString(),
     account,
     memberships: clubRoles,
+    clubDayChoices: dayChoices,
+    clubDayDecisions: dayDecisions,
     coachGrants: { given: grantsGiven, received: grantsReceived },
     devices: myDevices,
     practicePlans: plans,

@@ -11,9 +11,11 @@ export type ComingItem = { kind: "day" | "contest"; id: string; on: string; name
 export async function listComing(db: Database, params: { clubId: string; today: string; limit?: number }): Promise<ComingItem[]> {
   const res = await db.execute<{ kind: "day" | "contest"; id: string; on: string; name: string; field_name: string }>(sql`
     select * from (
-      select 'day' as kind, d.id, d.day::text as on, f.name as name, f.name as field_name
+      select 'day' as kind, (array_agg(d.id order by f.name))[1] as id, d.day::text as on,
+        string_agg(f.name, ', ' order by f.name) as name, string_agg(f.name, ', ' order by f.name) as field_name
       from club_days d join club_fields f on f.id = d.field_id
       where d.club_id = ${params.clubId} and d.day >= ${params.today}::date
+      group by d.day
       union all
       select 'contest', c.id, c.starts_on::text, c.name, c.field_name from contests c
       where c.club_id = ${params.clubId} and c.starts_on >= ${params.today}::date and c.status <> 'finished'

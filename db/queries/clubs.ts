@@ -71,3 +71,14 @@ export async function getClubById(db: Database, id: string): Promise<ClubSummary
   const [row] = await db.select({ id: clubs.id, name: clubs.name, slug: clubs.slug, homeField: clubs.homeField }).from(clubs).where(eq(clubs.id, id)).limit(1);
   return row;
 }
+
+/** The club's time zone (an IANA name; "UTC" until an officer sets one). */
+export async function getClubTimeZone(db: Database, clubId: string): Promise<string> {
+  const [row] = await db.select({ timeZone: clubs.timeZone }).from(clubs).where(eq(clubs.id, clubId)).limit(1);
+  return row?.timeZone ?? "UTC";
+}
+
+/** Sets the club's time zone (validated by the caller with Intl): its days are dates on that clock from now on. */
+export async function setClubTimeZone(db: Database, params: { clubId: string; timeZone: string }): Promise<void> {
+  await db.update(clubs).set({ timeZone: params.timeZone }).where(eq(clubs.id, params.clubId));
+}

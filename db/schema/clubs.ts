@@ -7,6 +7,8 @@ export const clubs = pgTable("clubs", {
   name: text("name").notNull(),
   slug: text("slug").notNull().unique(),
   homeField: text("home_field"),
+  /** The club's IANA time zone (checked with Intl): a field day is a date on the club's own clock. */
+  timeZone: text("time_zone").notNull().default("UTC"),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

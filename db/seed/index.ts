@@ -86,6 +86,7 @@ export async function seedDemo(db: Database): Promise<"seeded" | "present"> {
     };
     await seedRecordedFor(tx, {
       clubId: club!.id, field: DEMO_CLUB.homeField, startedAt: SEASON_START + 37 * WEEK + 7 * 3600_000, keeper: person("tobi"), pilot: person("ada"),
+      backupDeviceId: "demo-phone-tobi",
     });
     await seedAdminDemo(tx, {
       adminId: ids.get("admin")!, pilotId: ids.get("lena")!, pilotEmail: "lena@example.com", passwordHash, at: SEASON_START + 38 * WEEK,

@@ -32,7 +32,7 @@ export type BoardDevice = {
   estimates: readonly ClockEstimate[];
 };
 
-type StoredVersion = { deviceId?: unknown; recordedBy?: unknown; chosen?: unknown; resultTenths?: unknown; flights?: unknown[] };
+type StoredVersion = { deviceId?: unknown; recordedBy?: unknown; chosen?: unknown; resultTenths?: unknown; flights?: { launchAtMs?: unknown; landAtMs?: unknown }[] };
 type StoredLane = { versions?: StoredVersion[]; source?: { deviceId?: unknown } | null } | null | undefined;
 
 export type BoardRun = {
@@ -58,12 +58,20 @@ export type FlightLeader = { pilotId: string; longestTenths: number; totalTenths
 export type TurnaroundLeader = { pilotId: string; medianGroundMs: number; turns: number };
 export type TimedPair = { timerId: string; pilotId: string; lanes: number };
 export type ClockRow = { deviceId: string; ownerId: string; offsetMs: number | null; uncertaintyMs: number | null };
-export type Disagreement = {
-  runId: string;
-  lane: number;
-  pilotId: string;
-  versions: { deviceId: string; recordedBy: string; chosen: boolean; resultTenths: number; flights: number }[];
+/** One phone's version of a lane as stored (run_lanes.derived.versions): its result is runResult's for that record. */
+export type BoardVersion = {
+  deviceId: string;
+  recordedBy: string;
+  chosen: boolean;
+  resultTenths: number;
+  flights: number;
+  /** Its flights' instants on the corrected clock (landAtMs null: not landed in that record). */
+  flightTimes: { launchAtMs: number; landAtMs: number | null }[];
 };
+export type Disagreement = { runId: string; lane: number; pilotId: string; versions: BoardVersion[] };
+
+/** An officer's decision on a lane recorded differently: whose version stands (null: a note only), who and when. */
+export type DayDecision = { deviceId: string | null; note: string; decidedBy: string | null; decidedAt: string };
 
 export type DayBoard = {
   runs: BoardRun[];
@@ -77,10 +85,15 @@ export type DayBoard = {
 };
 
 /** What the Day board route answers: the aggregates, the day's fields and the names they mention. */
-export type DayBoardView = DayBoard & {
+export type DayBoardView = Omit<DayBoard, "disagreements"> & {
+  disagreements: (Disagreement & { decision: DayDecision | null })[];
   day: string;
+  /** The club's time zone: the day is a date on its clock, and the board shows times on it. */
+  timeZone: string;
   fields: { id: string; name: string }[];
   closedAt: string | null;
+  /** Who closed the day (a user id; their name is in `people` when they are a member). */
+  closedBy: string | null;
   /** Names of the people the board mentions (members of the club only). */
   people: Record<string, string>;
 };
@@ -88,20 +101,25 @@ export type DayBoardView = DayBoard & {
 const str = (v: unknown): string | null => (typeof v === "string" ? v : null);
 const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
 
-function versionsOf(derived: unknown): NonNullable<Disagreement["versions"]> {
-  const out: Disagreement["versions"] = [];
+function versionsOf(derived: unknown): BoardVersion[] {
+  const out: BoardVersion[] = [];
   for (const v of (derived as StoredLane)?.versions ?? []) {
     const deviceId = str(v.deviceId);
     const recordedBy = str(v.recordedBy);
     const resultTenths = num(v.resultTenths);
     if (deviceId === null || recordedBy === null || resultTenths === null) continue;
-    out.push({ deviceId, recordedBy, chosen: v.chosen === true, resultTenths, flights: Array.isArray(v.flights) ? v.flights.length : 0 });
+    const flights = Array.isArray(v.flights) ? v.flights : [];
+    const flightTimes = flights.flatMap((f) => {
+      const launchAtMs = num(f?.launchAtMs);
+      return launchAtMs === null ? [] : [{ launchAtMs, landAtMs: num(f?.landAtMs) }];
+    });
+    out.push({ deviceId, recordedBy, chosen: v.chosen === true, resultTenths, flights: flights.length, flightTimes });
   }
   return out;
 }
 
 /** Whether two phones' versions of a lane differ in result or in number of flights. */
-function recordedDifferently(versions: Disagreement["versions"]): boolean {
+function recordedDifferently(versions: BoardVersion[]): boolean {
   return versions.length > 1 && versions.some((v) => v.resultTenths !== versions[0]!.resultTenths || v.flights !== versions[0]!.flights);
 }
 

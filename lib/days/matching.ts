@@ -1,10 +1,13 @@
 // Which runs belong to a club's field day. A run belongs when the pilot chose the day for it, or
 // when it was recorded at one of the day's fields (its session names the field) and its corrected
-// start falls on the day (UTC, like the Season's days and weeks). The start is read on the
+// start falls on the day on the club's clock (its time zone, ./time-zone.ts). The start is read on the
 // corrected clock (the working-time signal, else the first launch), so a phone whose clock is
 // wrong does not move its run to another day; a run nothing was recorded in yet falls back to the
 // time the phone set it up. Pure: no framework, no I/O.
 import { flightInstants } from "@/lib/results/flight-instants";
+import { dayBounds } from "./time-zone";
+
+export { dayBounds };
 
 export const DAY_MS = 24 * 3600_000;
 
@@ -13,11 +16,6 @@ export function fieldKey(name: string): string {
   return name.trim().replace(/\s+/g, " ").toLowerCase();
 }
 
-/** The UTC bounds of a calendar day "YYYY-MM-DD": [start, end). */
-export function dayBounds(day: string): { startMs: number; endMs: number } {
-  const startMs = Date.parse(`${day}T00:00:00Z`);
-  return { startMs, endMs: startMs + DAY_MS };
-}
 
 type StoredDerived = { signal?: { atMs?: unknown } | null } | null | undefined;
 
@@ -47,13 +45,14 @@ export type CandidateRun = {
   chosen: boolean;
 };
 
-/** The runs of `candidates` that belong to the day, each with its start; the day's fields by name. */
+/** The runs of `candidates` that belong to the day (a date on the club's clock), each with its start; the day's fields by name. */
 export function matchDayRuns<R extends CandidateRun>(
   candidates: readonly R[],
   day: string,
   fieldNames: readonly string[],
+  timeZone = "UTC",
 ): (R & { startMs: number })[] {
-  const { startMs, endMs } = dayBounds(day);
+  const { startMs, endMs } = dayBounds(day, timeZone);
   const fields = new Set(fieldNames.map(fieldKey));
   const out: (R & { startMs: number })[] = [];
   for (const c of candidates) {

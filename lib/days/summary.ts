@@ -10,6 +10,8 @@ export function daySummaryLines(
   board: Pick<DayBoard, "runs" | "best" | "flightLeaders" | "turnaroundLeaders" | "lift">,
   nameOf: (id: string) => string,
   formatTime: (ms: number) => string,
+  /** The club's time zone, named after the time (formatTime prints on its clock). */
+  timeZone = "UTC",
 ): string[] {
   const pilots = new Set(board.runs.flatMap((r) => r.lanes.map((l) => l.pilotId)));
   if (board.runs.length === 0) return ["No runs were recorded at the day's fields."];
@@ -23,7 +25,7 @@ export function daySummaryLines(
   const quickest = board.turnaroundLeaders[0];
   if (quickest) lines.push(`Quickest turnaround (median): ${nameOf(quickest.pilotId)}, ${(quickest.medianGroundMs / 1000).toFixed(1)} s.`);
   const air = bestQuarter(board.lift);
-  if (air) lines.push(`Best air: the quarter hour from ${formatTime(air.startMs)} (UTC).`);
+  if (air) lines.push(`Best air: the quarter hour from ${formatTime(air.startMs)} (${timeZone}).`);
   return lines;
 }
 

@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { isTimeZone } from "@/lib/days/time-zone";
+import { text } from "./bounds";
 import { calendarDaySchema } from "./calendar-day";
 
 export const openClubDaySchema = z.object({
@@ -22,4 +24,20 @@ export const daySummariesSchema = z.object({
 export const chooseDaySchema = z.object({
   dayId: z.uuid({ message: "Choose one of your clubs' field days." }),
   chosen: z.boolean({ message: "Say whether the run belongs to the day (true or false)." }),
+});
+
+/** An officer's decision on a lane two phones recorded differently: whose version stands (null: a note only), and a note. */
+export const dayDecisionSchema = z
+  .object({
+    runId: z.uuid({ message: "Name the run." }),
+    lane: z.number({ message: "Name the lane by its number." }).int("Name the lane by its number.").min(0, "Name the lane by its number.").max(63, "Name the lane by its number."),
+    deviceId: text(200).trim().min(1, "Name the phone whose record stands, or none.").max(200, "Name the phone whose record stands, or none.").nullable(),
+    note: text(500).trim().max(500, "Keep the note to 500 characters.").default(""),
+  })
+  .refine((d) => d.deviceId !== null || d.note.length > 0, { message: "Choose the record that stands, or write a note.", path: ["note"] });
+export type DayDecisionInput = z.infer<typeof dayDecisionSchema>;
+
+/** A club's time zone: an IANA name Intl knows (lib/days/time-zone.ts). */
+export const clubTimeZoneSchema = z.object({
+  timeZone: text(64).trim().max(64, "Choose a time zone from the list.").refine(isTimeZone, "Choose a time zone from the list (an IANA name such as Europe/Berlin)."),
 });

@@ -23,6 +23,17 @@ async function seriousViolations(page: Page): Promise<string[]> {
   return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
 }
 
+/** Zones without summer time, one per offset from UTC−11 to UTC+12 (IANA names). */
+const STEADY_ZONES = [
+  "Pacific/Pago_Pago", "Pacific/Honolulu", "Pacific/Gambier", "Pacific/Pitcairn", "America/Phoenix", "America/Regina", "America/Bogota", "America/La_Paz",
+  "America/Sao_Paulo", "America/Noronha", "Atlantic/Cape_Verde", "UTC", "Africa/Lagos", "Africa/Johannesburg", "Africa/Nairobi", "Asia/Dubai", "Asia/Karachi",
+  "Asia/Dhaka", "Asia/Bangkok", "Asia/Singapore", "Asia/Tokyo", "Australia/Brisbane", "Pacific/Noumea", "Pacific/Tarawa",
+];
+const localHour = (ms: number, zone: string) => Number(new Intl.DateTimeFormat("en-GB", { hour: "2-digit", hourCycle: "h23", timeZone: zone }).format(ms));
+const localDay = (ms: number, zone: string) => new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "2-digit", day: "2-digit", timeZone: zone }).format(ms);
+/** A zone where it is between 10:00 and 14:59 now: hours from either midnight. */
+const middayZone = (ms: number) => STEADY_ZONES.find((z) => localHour(ms, z) >= 10 && localHour(ms, z) <= 14)!;
+
 const partnerOf: Record<string, string> = { "ada@example.com": "Tobi Okafor", "tobi@example.com": "Ada Fenwick" };
 
 /** One phone: signed in, the club list fetched with signal (so the partner is offered offline), the worker ready. */
@@ -66,13 +77,21 @@ test("an officer opens a day; two members time each other offline with clocks 15
     return c;
   };
   try {
-    const today = new Date().toISOString().slice(0, 10);
+    // The club's clock is set to a zone where it is now mid-day, so the day cannot turn over while the
+    // test runs, whatever the wall clock's date (the zones' offsets are read through Intl, not assumed).
+    const zone = middayZone(Date.now());
+    const today = localDay(Date.now(), zone);
     const boardUrl = `/clubs/heronmoor/days/${today}`;
 
-    // The officer opens today's day at the club's home field from the club page.
+    // The officer sets the club's time zone, then opens today's day at the club's home field from the club page.
     const officer = await (await context()).newPage();
     await signInAs(officer, "ines@example.com");
     await officer.goto("/clubs/heronmoor");
+    await officer.getByText("Set the club's time zone").click();
+    await officer.getByLabel("Time zone", { exact: true }).selectOption(zone);
+    await officer.getByRole("button", { name: "Save the time zone" }).click();
+    await expect(officer.getByTestId("club-time-zone")).toHaveText(zone);
+    expect((await db.query("select time_zone from clubs where slug = 'heronmoor'")).rows[0].time_zone).toBe(zone);
     await officer.getByText("Open a field day").click();
     await officer.getByLabel("Field", { exact: true }).selectOption({ label: FIELD });
     await officer.getByLabel("Day", { exact: true }).fill(today);
@@ -80,6 +99,10 @@ test("an officer opens a day; two members time each other offline with clocks 15
     await expect(officer).toHaveURL(new RegExp(`${boardUrl}$`));
     await expect(officer.getByRole("heading", { name: /^Field day, / })).toBeVisible();
     expect((await db.query("select 1 from club_days d join clubs c on c.id = d.club_id where c.slug = 'heronmoor' and d.day = $1", [today])).rowCount).toBe(1);
+    // The club page lists the day once: under what is coming, not again among the past days.
+    await officer.goto("/clubs/heronmoor");
+    await expect(officer.getByRole("list", { name: "Coming days and contests" }).locator(`a[href="${boardUrl}"]`)).toHaveCount(1);
+    await expect(officer.locator(`a[href="${boardUrl}"]`)).toHaveCount(1);
 
     // Two phones at the field: Ada's clock is right, Tobi's runs 15 minutes slow. No signal.
     const adaContext = await context();
@@ -112,7 +135,8 @@ test("an officer opens a day; two members time each other offline with clocks 15
     expect(tobiStart.corrected_ms).toBeGreaterThan(adaStart.corrected_ms); // corrected: he started after Ada
 
     // The officer's Day board: both runs on one timeline, in the order they were flown.
-    await officer.reload();
+    await officer.goto(boardUrl);
+    await expect(officer.getByText(`times in ${zone}, on the corrected clock`)).toBeVisible();
     const runs = officer.getByRole("list", { name: "Runs of the day" });
     const adaTimedTobi = runs.locator(`li[data-run-id="${tobisRun}"]`);
     const tobiTimedAda = runs.locator(`li[data-run-id="${adasRun}"]`);
@@ -146,6 +170,7 @@ test("an officer opens a day; two members time each other offline with clocks 15
     expect((await stranger.request.get(`/api/clubs/heronmoor/days/${today}`)).status()).toBe(404);
   } finally {
     for (const c of contexts) await c.close();
+    await db.query("update clubs set time_zone = 'UTC' where slug = 'heronmoor'");
     await db.end();
   }
 });
@@ -156,8 +181,11 @@ test("a member asks for day summaries on the club page; the officer closes a see
   await member.goto("/clubs/heronmoor");
   const toggle = member.getByRole("checkbox", { name: "E-mail me the summary of each field day when it is closed" });
   await expect(toggle).not.toBeChecked();
+  // the box follows the click at once; reload only once the server answered (a reload would cut the request off)
+  const saved = member.waitForResponse((r) => r.url().endsWith("/api/clubs/heronmoor/day-summaries") && r.request().method() === "PUT");
   await toggle.check();
   await expect(toggle).toBeChecked();
+  expect((await saved).status()).toBe(200);
   await member.reload();
   await expect(toggle).toBeChecked(); // kept on the server
 
@@ -171,10 +199,105 @@ test("a member asks for day summaries on the club page; the officer closes a see
   expect(await seriousViolations(officer)).toEqual([]);
   await officer.getByRole("button", { name: "Close the day and send the summary" }).click();
   await expect(officer.getByText(/^Closed\. The summary goes to 1 member who asked for it\.$/)).toBeVisible();
+  await expect(officer.getByTestId("day-closed")).toContainText(/^Closed on \d{1,2} \w{3} \d{4}, \d{2}:\d{2} by Ines /);
+  await officer.reload();
+  await expect(officer.getByRole("button", { name: "Close the day and send the summary" })).toHaveCount(0);
+  await expect(officer.getByTestId("day-closed")).toContainText("phones that sync later change nothing here");
 
   const mail = await openMail(member, /Heronmoor Hand-Launch Club: the field day of Sat 21 Nov 2026/, "lena@example.com");
   await expect(mail).toContainText("Best in task");
   await expect(mail).toContainText("To stop these e-mails, open");
   await member.context().close();
   await officer.context().close();
+});
+
+test("an officer sees the seeded evening's lane two phones recorded differently, side by side, and decides which record stands", async ({ browser }) => {
+  const officer = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
+  await signInAs(officer, "ines@example.com");
+  await officer.goto("/clubs/heronmoor/days/2026-11-21");
+  const pairs = officer.getByRole("list", { name: "Runs recorded differently" });
+  await expect(pairs.getByRole("listitem").filter({ hasText: "Ada Fenwick" })).toHaveCount(1);
+  const pair = pairs.locator(":scope > li").first();
+  // both phones' versions: Tobi's club timing phone and his own, on which he missed the last flight (the seed):
+  // whose each is, its result, its flights on the corrected clock and its clock
+  const club = pair.locator('[data-device-id="demo-phone-tobi-club"]');
+  const backup = pair.locator('[data-device-id="demo-phone-tobi"]');
+  await expect(club).toContainText("Tobi Okafor’s phone …i-club");
+  await expect(backup).toContainText("Tobi Okafor’s phone …e-tobi");
+  await expect(club).toContainText(/Result \d+\.\d s, \d+ flights? · used/);
+  await expect(backup).toContainText(/Result \d+\.\d s, \d+ flights?/);
+  await expect(backup).not.toContainText("· used");
+  const clubFlights = await club.getByRole("list").locator("li").count();
+  expect(await backup.getByRole("list").locator("li").count()).toBe(clubFlights - 1);
+  await expect(club.getByRole("list").locator("li").first()).toContainText(/^\d{2}:\d{2}:\d{2}\.\d → \d{2}:\d{2}:\d{2}\.\d$/);
+  await expect(club).toContainText(/Clock (on time|\d)/);
+  expect(await seriousViolations(officer)).toEqual([]);
+
+  const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
+  await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
+  await form.getByLabel("Note", { exact: true }).fill("The backup phone missed the last landing.");
+  await form.getByRole("button", { name: "Record the decision" }).click();
+  await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
+  await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
+  await officer.reload();
+  await expect(officer.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
+
+  // a member sees the decision but gets no form; the server refuses her a decision (403)
+  const member = await (await browser.newContext()).newPage();
+  await signInAs(member, "lena@example.com");
+  await member.goto("/clubs/heronmoor/days/2026-11-21");
+  await expect(member.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
+  await expect(member.getByRole("form", { name: /^Decision, / })).toHaveCount(0);
+  const refused = await member.evaluate(async () => {
+    const res = await fetch("/api/clubs/heronmoor/days/2026-11-21/decisions", {
+      method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify({ runId: "00000000-0000-4000-8000-000000000000", lane: 0, deviceId: null, note: "mine" }),
+    });
+    return { status: res.status, body: (await res.json()) as { error: { message: string } } };
+  });
+  expect(refused).toEqual({ status: 403, body: { error: expect.objectContaining({ message: "Only the club's officers may do this." }) } });
+  await member.context().close();
+  await officer.context().close();
+});
+
+test("a pilot puts an older run of hers in a field day from the run page, and sees it on that day's board", async ({ browser }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    // one of Ada's seeded season runs at the home field, on a date the day after which the club has no field day yet
+    const { rows } = await db.query<{ id: string; day: string }>(`
+      select r.id, to_char((r.created_at at time zone 'UTC')::date + 1, 'YYYY-MM-DD') as day
+      from runs r join field_sessions s on s.id = r.session_id join users u on u.id = r.created_by
+      where u.email = 'ada@example.com' and s.field_name = 'Five Acre Meadow'
+        and not exists (select 1 from club_days d where d.day between (r.created_at at time zone 'UTC')::date - 8 and (r.created_at at time zone 'UTC')::date + 8)
+      order by r.created_at desc limit 1`);
+    const run = rows[0]!;
+    const boardUrl = `/clubs/heronmoor/days/${run.day}`;
+
+    const officer = await (await browser.newContext()).newPage();
+    await signInAs(officer, "ines@example.com");
+    await officer.goto("/clubs/heronmoor");
+    await officer.getByText("Open a field day").click();
+    await officer.getByLabel("Field", { exact: true }).selectOption({ label: FIELD });
+    await officer.getByLabel("Day", { exact: true }).fill(run.day);
+    await officer.getByRole("button", { name: "Open the day" }).click();
+    await expect(officer).toHaveURL(new RegExp(`${boardUrl}$`));
+    await expect(officer.locator(`li[data-run-id="${run.id}"]`)).toHaveCount(0); // flown the day before: not the day's
+
+    const ada = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
+    await signInAs(ada, "ada@example.com");
+    await ada.goto(`/logbook/run?id=${run.id}`);
+    const choice = ada.getByRole("checkbox", { name: new RegExp(`^Heronmoor Hand-Launch Club: ${FIELD}, ${run.day}$`) });
+    await expect(choice).not.toBeChecked({ timeout: 30_000 });
+    await choice.click(); // the box shows what the server holds: checked once the choice is stored and read back
+    await expect(choice).toBeChecked({ timeout: 15_000 });
+    await ada.reload();
+    await expect(choice).toBeChecked({ timeout: 30_000 }); // kept on the server
+
+    await ada.goto(boardUrl);
+    await expect(ada.getByRole("list", { name: "Runs of the day" }).locator(`li[data-run-id="${run.id}"]`)).toContainText("Ada Fenwick:");
+    await ada.context().close();
+    await officer.context().close();
+  } finally {
+    await db.end();
+  }
 });

@@ -2,7 +2,7 @@ import "./support/session";
 import { createHash } from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { eq, inArray } from "drizzle-orm";
-import { coachGrants, coachInvites, events, fieldSessions, memberships, runLanes, runs, users } from "@/db/schema";
+import { clubDayRuns, clubDays, clubFields, clubs, coachGrants, coachInvites, events, fieldSessions, memberships, runLanes, runs, users } from "@/db/schema";
 import { DELETE as deleteAccountRoute } from "@/app/api/account/route";
 import { GET as exportRoute } from "@/app/api/account/export/route";
 import { POST as passwordRoute } from "@/app/api/account/password/route";
@@ -126,6 +126,21 @@ describe("GET /api/account/export", () => {
     const stored = await db.select({ id: events.id }).from(events).where(eq(events.runId, seededRun.id));
     const exported = data.events.filter((e: { runId: string }) => e.runId === seededRun.id).map((e: { id: string }) => e.id);
     expect(exported.sort()).toEqual(stored.map((e) => e.id).sort());
+  });
+
+  it("includes the day-summary choice of each club and the runs the user put in club field days", async () => {
+    const pilot = await freshUser("export-days");
+    const [club] = await db.insert(clubs).values({ name: "Export Day Club", slug: `export-days-${pilot.id.slice(0, 8)}` }).returning();
+    await db.insert(memberships).values({ clubId: club!.id, userId: pilot.id, role: "member", daySummaries: true });
+    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Export Meadow" }).returning();
+    const [day] = await db.insert(clubDays).values({ clubId: club!.id, fieldId: field!.id, day: "2026-06-14" }).returning();
+    const runId = await insertRun(await insertSession(pilot.id), pilot.id, [{ pilotUserId: pilot.id, pilotName: pilot.name }]);
+    await db.insert(clubDayRuns).values({ dayId: day!.id, runId, chosenBy: pilot.id });
+    actAs(pilot);
+    const data = await (await exportRoute()).json();
+    expect(data.memberships).toEqual([expect.objectContaining({ club: "Export Day Club", daySummaries: true })]);
+    expect(data.clubDayChoices).toEqual([expect.objectContaining({ runId, dayId: day!.id, club: "Export Day Club", field: "Export Meadow", day: "2026-06-14" })]);
+    expect(data.clubDayDecisions).toEqual([]);
   });
 
   it("includes a run someone else timed with the user in a lane, and only the user's lane's events", async () => {

@@ -265,6 +265,10 @@ const ROWS: Record<string, Row> = {
   // the Day board: members of the club (and site admins) read it; officers close the day
   "GET /api/clubs/[slug]/days/[date]": { params: club.dayOfOwnersClub, cast: "fresh", expect: contest.MEMBERS(200) },
   "POST /api/clubs/[slug]/days/[date]/close": { params: club.dayOfOwnersClub, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "PUT /api/clubs/[slug]/days/[date]/decisions": { params: club.dayWithDifference, body: club.decisionBody, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
+  "PUT /api/clubs/[slug]/time-zone": {
+    params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }), body: () => ({ timeZone: "Europe/Berlin" }), cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   // a member's own setting: a site admin outside the club has none (404)
   "PUT /api/clubs/[slug]/day-summaries": {
     params: async (cast) => ({ slug: (await club.ownersClub(cast)).slug }), body: () => ({ on: true }), cast: "fresh",

@@ -1,7 +1,10 @@
 import "./support/session";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as boardRoute } from "@/app/api/clubs/[slug]/days/[date]/route";
+import { POST as closeRoute } from "@/app/api/clubs/[slug]/days/[date]/close/route";
+import { PUT as decideRoute } from "@/app/api/clubs/[slug]/days/[date]/decisions/route";
 import { GET as choicesRoute, PUT as chooseRoute } from "@/app/api/runs/[runId]/club-days/route";
+import { sql } from "drizzle-orm";
 import { openClubDay } from "@/db/queries/club-days";
 import type { DayBoardView } from "@/db/queries/club-day-board";
 import { clubFields, clubs, memberships } from "@/db/schema";
@@ -31,6 +34,8 @@ let board: DayBoardView;
 let P1: MockSessionUser, P2: MockSessionUser, P3: MockSessionUser, N: MockSessionUser, outsider: MockSessionUser;
 const ids: Record<string, string> = {};
 let dayId = "";
+let clubId = "";
+let southId = "";
 let phones = {} as Record<"p1" | "p2" | "p3" | "p9" | "p10" | "pn", Phone>;
 
 const at = (iso: string) => Date.parse(iso);
@@ -53,9 +58,12 @@ beforeAll(async () => {
     { clubId: club!.id, userId: P2.id, role: "member" },
     { clubId: club!.id, userId: P3.id, role: "member" },
   ]);
-  const [north] = await db.insert(clubFields).values([{ clubId: club!.id, name: "North Meadow" }, { clubId: club!.id, name: "South Field" }]).returning();
+  const [north, south] = await db.insert(clubFields).values([{ clubId: club!.id, name: "North Meadow" }, { clubId: club!.id, name: "South Field" }]).returning();
+  clubId = club!.id;
+  southId = south!.id;
   const opened = await openClubDay(db, { clubId: club!.id, fieldId: north!.id, day: DAY, userId: P1.id });
-  dayId = opened!.day.id;
+  if (!opened || opened === "closed") throw new Error("the day did not open");
+  dayId = opened.day.id;
 
   phones = {
     p1: await addPhone(P1.id, 0, 40, "p1"), p2: await addPhone(P2.id, 900_000, 60, "p2"), p3: await addPhone(P3.id, 0, 20, "p3"),
@@ -205,5 +213,82 @@ describe("Day board: who may see it", () => {
     const own = await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId: ids.R7! }) });
     expect(own.status).toBe(404);
     expect((await getBoard(P1)).body.runs.map((r) => r.runId)).not.toContain(ids.R7);
+  });
+});
+
+describe("Day board: an officer decides a lane two phones recorded differently", () => {
+  const decide = (as: MockSessionUser | null, body: unknown, date = DAY, clubSlug = slug) => {
+    actAs(as);
+    return decideRoute(json("PUT", body), { params: Promise.resolve({ slug: clubSlug, date }) });
+  };
+
+  it("the versions side by side carry each phone's flights on the corrected clock", () => {
+    const d = board.disagreements[0]!;
+    expect(d.versions.map((v) => v.flightTimes)).toEqual([
+      [{ launchAtMs: at("2026-06-14T11:05:02Z"), landAtMs: at("2026-06-14T11:05:22Z") }, { launchAtMs: at("2026-06-14T11:05:25Z"), landAtMs: at("2026-06-14T11:06:30Z") }],
+      [{ launchAtMs: at("2026-06-14T11:05:25Z"), landAtMs: at("2026-06-14T11:06:30Z") }],
+    ]);
+    expect(d.decision).toBeNull();
+  });
+
+  it("401 signed out, 404 to a non-member, 403 to a member; bad input and a lane not recorded differently change nothing", async () => {
+    const body = { runId: ids.R3, lane: 0, deviceId: phones.p1.id, note: "Ada missed the first launch" };
+    expect((await decide(null, body)).status).toBe(401);
+    expect((await decide(outsider, body)).status).toBe(404);
+    expect((await decide(N, body)).status).toBe(404);
+    expect((await decide(P2, body)).status).toBe(403);
+    expect((await decide(P1, { ...body, runId: ids.R1 })).status).toBe(404); // one phone only
+    expect((await decide(P1, { ...body, lane: 1 })).status).toBe(404);
+    expect((await decide(P1, body, "2026-06-15")).status).toBe(404);
+    expect((await decide(P1, { ...body, deviceId: phones.p3.id })).status).toBe(422); // did not record it
+    expect((await decide(P1, { ...body, deviceId: null, note: "  " })).status).toBe(422); // neither a record nor a note
+    expect((await decide(P1, { ...body, note: "x".repeat(501) })).status).toBe(422);
+    expect((await decide(P1, { ...body, note: "a\u0000b" })).status).toBe(422);
+    expect((await db.execute(sql`select 1 from club_day_decisions where run_id = ${ids.R3}`)).rows).toHaveLength(0);
+  });
+
+  it("stored with who and when, shown on the board; a second decision replaces the first", async () => {
+    const before = Date.now();
+    const first = await decide(P1, { runId: ids.R3, lane: 0, deviceId: phones.p1.id, note: "P2's first launch was a test throw" });
+    expect(first.status).toBe(200);
+    let got = (await getBoard(P2)).body.disagreements[0]!.decision!;
+    expect(got).toMatchObject({ deviceId: phones.p1.id, note: "P2's first launch was a test throw", decidedBy: P1.id });
+    expect(Date.parse(got.decidedAt)).toBeGreaterThanOrEqual(before - 1000);
+    expect((await decide(P1, { runId: ids.R3, lane: 0, deviceId: null, note: "Ask the pilot" })).status).toBe(200);
+    got = (await getBoard(P2)).body.disagreements[0]!.decision!;
+    expect(got).toMatchObject({ deviceId: null, note: "Ask the pilot", decidedBy: P1.id });
+    expect((await db.execute(sql`select 1 from club_day_decisions where run_id = ${ids.R3}`)).rows).toHaveLength(1);
+    // the result stays runResult's (run_lanes.result_tenths): a decision is recorded, not scored here
+    expect((await getBoard(P2)).body.runs.find((r) => r.runId === ids.R3)!.lanes[0]!.resultTenths).toBe(800);
+  });
+});
+
+describe("Day board: closing freezes the day", () => {
+  it("a run synced after the close does not join, the close mails nobody twice, and the board says who closed it", async () => {
+    const before = (await getBoard(P1)).body.runs.map((r) => r.runId);
+    actAs(P1);
+    const closed = await closeRoute(new Request("http://test/api", { method: "POST" }), { params: Promise.resolve({ slug, date: DAY }) });
+    expect(closed.status).toBe(200);
+    const after = (await getBoard(P2)).body;
+    expect(after.runs.map((r) => r.runId)).toEqual(before);
+    expect(after.closedBy).toBe(P1.id);
+    expect(after.closedAt).not.toBeNull();
+
+    // P1's phone syncs a run flown at North Meadow that afternoon, after the close
+    const late = await dayRun({ creatorId: P1.id, field: "North Meadow", at: "2026-06-14T15:00:00Z", pilots: [P1.id], records: [{ phone: phones.p1, signals: true, lanes: { 0: [[5, 65]] } }] });
+    expect((await getBoard(P2)).body.runs.map((r) => r.runId)).toEqual(before);
+    // … which the live rules would have taken: the freeze is what keeps it out
+    await db.execute(sql`update club_days set runs_frozen_at = null where club_id = ${clubId}`);
+    expect((await getBoard(P2)).body.runs.map((r) => r.runId)).toContain(late);
+    await db.execute(sql`update club_days set runs_frozen_at = now() where club_id = ${clubId}`);
+
+    // nor can a pilot choose the closed day for it, nor an officer open another field on the date
+    actAs(P1);
+    expect((await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId: late }) })).status).toBe(409);
+    expect(await openClubDay(db, { clubId, fieldId: southId, day: DAY, userId: P1.id })).toBe("closed");
+    actAs(P1);
+    const again = await closeRoute(new Request("http://test/api", { method: "POST" }), { params: Promise.resolve({ slug, date: DAY }) });
+    expect(((await again.json()) as { summaries: number }).summaries).toBe(0);
+    expect((await getBoard(P2)).body.runs.map((r) => r.runId)).toEqual(before);
   });
 });

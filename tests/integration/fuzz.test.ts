@@ -56,6 +56,8 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/days": { POST: "json" },
   "/api/clubs/[slug]/days/[date]": { GET: "none" },
   "/api/clubs/[slug]/days/[date]/close": { POST: "none" },
+  "/api/clubs/[slug]/days/[date]/decisions": { PUT: "json" },
+  "/api/clubs/[slug]/time-zone": { PUT: "json" },
   "/api/clubs/[slug]/day-summaries": { PUT: "json" },
   "/api/runs/[runId]/club-days": { GET: "none", PUT: "json" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
@@ -196,6 +198,8 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/members/[userId]")) return { role: "member" };
   if (path.endsWith("/fields")) return { name: `Fuzz Field ${uuidv7()}`, latitude: "51.5", longitude: 2, launchDirection: "West", safetyAreas: "Car park", localRules: "" };
   if (path.endsWith("/days")) return { fieldId: uuidv7(), day: "2026-06-14" };
+  if (path.endsWith("/decisions")) return { runId: uuidv7(), lane: 0, deviceId: "phone-1", note: "A note" };
+  if (path.endsWith("/time-zone")) return { timeZone: "Europe/Berlin" };
   if (path.endsWith("/day-summaries")) return { on: true };
   // a day nobody opened (the run is nobody's): a well-formed choice is a 404 and writes nothing
   if (path.endsWith("/club-days")) return { dayId: uuidv7(), chosen: true };

@@ -5,6 +5,7 @@ import { clubDays, clubFields, clubs, invitations, memberships } from "@/db/sche
 import { hashEmailToken, newEmailToken } from "@/lib/auth/email-tokens";
 import type { Actor, Cast } from "./authz-actors";
 import { db, freshUser } from "./db";
+import { addPhone, dayRun } from "./day-records";
 
 /**
  * Records for the club rows of the authorisation matrix: a club of the cast's own, where the owner
@@ -108,6 +109,27 @@ export async function dayOfOwnersClub(cast: Cast): Promise<Record<string, string
   await db.insert(clubDays).values({ clubId: club.id, fieldId: field!.id, day: "2026-06-20", openedBy: cast.owner.id });
   return { slug: club.slug, date: "2026-06-20" };
 }
+
+/**
+ * The owner's club with a field day on 2026-06-21 at which two of the owner's phones recorded one of
+ * the owner's runs differently (one missed the last flight): the lane an officer decides on.
+ */
+let differentRun = "";
+let differentDevice = "";
+export async function dayWithDifference(cast: Cast): Promise<Record<string, string>> {
+  const club = await ownersClub(cast);
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: "Matrix Decision Field" }).returning();
+  await db.insert(clubDays).values({ clubId: club.id, fieldId: field!.id, day: "2026-06-21", openedBy: cast.owner.id });
+  const a = await addPhone(cast.owner.id, 0, 40, "matrix-a");
+  const b = await addPhone(cast.owner.id, 0, 40, "matrix-b");
+  differentRun = await dayRun({
+    creatorId: cast.owner.id, field: "Matrix Decision Field", at: "2026-06-21T10:00:00Z", pilots: [cast.owner.id],
+    records: [{ phone: a, signals: true, lanes: { 0: [[5, 60], [70, 120]] } }, { phone: b, lanes: { 0: [[6, 61]] } }],
+  });
+  differentDevice = b.id;
+  return { slug: club.slug, date: "2026-06-21" };
+}
+export const decisionBody = () => ({ runId: differentRun, lane: 0, deviceId: differentDevice, note: "Matrix decision" });
 
 /** A run of the owner's (set up 2025-12-29, records.ts) and a day of the owner's club that day, which only the owner may choose for it. */
 let choiceDay = "";

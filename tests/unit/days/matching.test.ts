@@ -43,7 +43,7 @@ describe("day helpers", () => {
     expect(fieldKey("  Five  Acre Meadow ")).toBe("five acre meadow");
     expect(fieldKey("Five Acre Meadows")).not.toBe(fieldKey("Five Acre Meadow"));
   });
-  it("dayBounds and dayLabel read the date in UTC", () => {
+  it("dayBounds reads the date in UTC by default; dayLabel", () => {
     expect(dayBounds("2026-03-29")).toEqual({ startMs: at("2026-03-29T00:00:00Z"), endMs: at("2026-03-30T00:00:00Z") });
     expect(dayLabel("2026-07-04")).toBe("Sat 4 Jul 2026");
     expect(dayLabel("2027-03-13")).toBe("Sat 13 Mar 2027");

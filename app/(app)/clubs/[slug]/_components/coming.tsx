@@ -1,11 +1,13 @@
 import Link from "next/link";
 import { db } from "@/db";
+import { getClubTimeZone } from "@/db/queries/clubs";
 import { listComing } from "@/db/queries/club-home";
+import { localDate } from "@/lib/days/time-zone";
 import { formatDate } from "@/lib/format";
 
-/** The club's coming field days and contests (from today, UTC), soonest first; a plain line when there are none. */
+/** The club's coming field days (one entry per date, whatever its fields) and contests, from today on the club's clock, soonest first. */
 export async function Coming({ clubId, slug }: { clubId: string; slug: string }) {
-  const items = await listComing(db, { clubId, today: new Date().toISOString().slice(0, 10) });
+  const items = await listComing(db, { clubId, today: localDate(new Date().getTime(), await getClubTimeZone(db, clubId)) });
   return (
     <section aria-labelledby="coming" className="space-y-3">
       <h2 id="coming" className="text-lg font-bold">

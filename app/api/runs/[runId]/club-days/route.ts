@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { chooseRunDay, listRunDayChoices } from "@/db/queries/club-days";
 import { parseJson, route } from "@/lib/api";
 import { requireUser } from "@/lib/auth/session";
-import { NotFoundError } from "@/lib/errors";
+import { ConflictError, NotFoundError } from "@/lib/errors";
 import { chooseDaySchema } from "@/lib/validations/club-days";
 import { pathId } from "@/lib/validations/clubs";
 
@@ -20,13 +20,13 @@ export const GET = route(async (_request: Request, context: Context) => {
   return Response.json({ days }, { headers: { "cache-control": "no-store" } });
 });
 
-/** 401 signed out; 404 when the run is not the user's or the day is not one of its choices. */
+/** 401 signed out; 404 when the run is not the user's or the day is not one of its choices; 409 the day is closed. */
 export const PUT = route(async (request: Request, context: Context) => {
   const user = await requireUser();
   const input = await parseJson(request, chooseDaySchema);
   const runId = pathId((await context.params).runId);
-  if (runId === null || !(await chooseRunDay(db, { userId: user.id, runId, dayId: input.dayId, chosen: input.chosen }))) {
-    throw new NotFoundError("That run cannot go in that field day.");
-  }
+  const chose = runId === null ? false : await chooseRunDay(db, { userId: user.id, runId, dayId: input.dayId, chosen: input.chosen });
+  if (!chose) throw new NotFoundError("That run cannot go in that field day.");
+  if (chose === "closed") throw new ConflictError("day_closed", "That field day is closed: its runs no longer change.");
   return Response.json({ dayId: input.dayId, chosen: input.chosen }, { headers: { "cache-control": "no-store" } });
 });

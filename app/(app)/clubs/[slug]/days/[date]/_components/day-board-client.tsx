@@ -7,8 +7,9 @@ import { InlineError } from "@/components/ui/form-footer";
 import type { DayBoardView } from "@/lib/days/board";
 import { secondsText, taskText } from "../../../../../season/_components/season-format";
 import { sendJson } from "@/components/request/json";
-import { dayTitle, offsetText, timeText, uncertaintyText } from "./day-format";
+import { dayTitle, momentText, offsetText, timeText, uncertaintyText } from "./day-format";
 import { dayBoardKey, dayBoardQuery } from "./day-board-query";
+import { Differences } from "./differences";
 import { LiftStrip } from "./lift-strip";
 
 type Props = { slug: string; clubName: string; day: string; canClose: boolean };
@@ -32,8 +33,14 @@ export function DayBoardClient({ slug, clubName, day, canClose }: Props) {
         </p>
         <h1 className="text-2xl font-extrabold">Field day, {dayTitle(day)}</h1>
         <p className="text-muted">
-          {board.fields.map((f) => f.name).join(", ")} · times in UTC, on the corrected clock{board.closedAt ? " · closed" : ""}
+          {board.fields.map((f) => f.name).join(", ")} · times in {board.timeZone}, on the corrected clock
         </p>
+        {board.closedAt ? (
+          <p data-testid="day-closed">
+            Closed on {momentText(board.closedAt, board.timeZone)}
+            {board.closedBy ? ` by ${name(board.closedBy)}` : ""}: its runs are final; phones that sync later change nothing here.
+          </p>
+        ) : null}
         {canClose ? <CloseDay slug={slug} day={day} closed={board.closedAt !== null} /> : null}
       </header>
       <Timeline board={board} name={name} />
@@ -41,8 +48,8 @@ export function DayBoardClient({ slug, clubName, day, canClose }: Props) {
       <Leaders board={board} name={name} />
       <Timed board={board} name={name} />
       <Clocks board={board} name={name} />
-      <Differences board={board} name={name} />
-      <LiftStrip bins={board.lift} />
+      <Differences board={board} name={name} slug={slug} canDecide={canClose} />
+      <LiftStrip bins={board.lift} timeZone={board.timeZone} />
     </div>
   );
 }
@@ -63,7 +70,7 @@ function CloseDay({ slug, day, closed }: { slug: string; day: string; closed: bo
       await client.invalidateQueries({ queryKey: dayBoardKey(slug, day) });
     },
   });
-  if (closed) return <p role="status">{note ?? "This day is closed; its summary was sent to the members who asked for it."}</p>;
+  if (closed) return <p role="status">{note ?? "Its summary was sent to the members who asked for it."}</p>;
   return (
     <div className="space-y-1">
       <button type="button" onClick={() => close.mutate()} disabled={close.isPending} className="min-h-12 rounded-lg border-2 border-ink px-3 font-bold disabled:opacity-50">
@@ -95,7 +102,7 @@ function Timeline({ board, name }: Part) {
             {board.runs.map((r) => (
               <li key={r.runId} className={card} data-run-id={r.runId}>
                 <p className="font-bold">
-                  <time dateTime={new Date(r.startMs).toISOString()}>{timeText(r.startMs)}</time> · {taskText(r.taskCode)} · {r.fieldName}
+                  <time dateTime={new Date(r.startMs).toISOString()}>{timeText(r.startMs, board.timeZone)}</time> · {taskText(r.taskCode)} · {r.fieldName}
                 </p>
                 <ul className="text-sm">
                   {r.lanes.map((l) => (
@@ -229,42 +236,6 @@ function Clocks({ board, name }: Part) {
           c.uncertaintyMs === null ? "—" : uncertaintyText(c.uncertaintyMs),
         ])}
       />
-    </section>
-  );
-}
-
-function Differences({ board, name }: Part) {
-  return (
-    <section aria-labelledby="differences" className="space-y-3">
-      <h2 id="differences" className="text-lg font-bold">
-        Recorded differently
-      </h2>
-      {board.disagreements.length === 0 ? (
-        <p className="text-muted">No run was recorded differently by two phones.</p>
-      ) : (
-        <ul className="space-y-3" aria-label="Runs recorded differently">
-          {board.disagreements.map((d) => (
-            <li key={`${d.runId}-${d.lane}`} className={card}>
-              <p className="font-bold">
-                {name(d.pilotId)}, {timeText(board.runs.find((r) => r.runId === d.runId)?.startMs ?? 0)}
-              </p>
-              <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
-                {d.versions.map((v) => (
-                  <div key={v.deviceId} className="rounded-lg border border-line p-2 text-sm">
-                    <p className="font-semibold">
-                      {name(v.recordedBy)}’s phone{v.chosen ? " (used)" : ""}
-                    </p>
-                    <p>
-                      {secondsText(v.resultTenths)}, {v.flights} {v.flights === 1 ? "flight" : "flights"}
-                    </p>
-                  </div>
-                ))}
-              </div>
-              <p className="text-sm text-muted">The pilot&apos;s own record is used first (then the earlier one); the pilot decides on the run&apos;s page.</p>
-            </li>
-          ))}
-        </ul>
-      )}
     </section>
   );
 }

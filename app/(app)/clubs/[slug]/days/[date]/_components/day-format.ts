@@ -1,10 +1,24 @@
-/** Formats of the Day board: times of day in UTC (the day's own clock), seconds, clock offsets. */
-const timeFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", second: "2-digit", timeZone: "UTC" });
-const quarterFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
+/** Formats of the Day board: times of day on the club's clock (its time zone), seconds, clock offsets. */
+const formats = new Map<string, Intl.DateTimeFormat>();
+function format(kind: "time" | "quarter" | "moment", timeZone: string): Intl.DateTimeFormat {
+  const key = `${kind} ${timeZone}`;
+  let f = formats.get(key);
+  if (!f) {
+    const options: Intl.DateTimeFormatOptions =
+      kind === "time" ? { hour: "2-digit", minute: "2-digit", second: "2-digit" }
+      : kind === "quarter" ? { hour: "2-digit", minute: "2-digit" }
+      : { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" };
+    f = new Intl.DateTimeFormat("en-GB", { ...options, timeZone });
+    formats.set(key, f);
+  }
+  return f;
+}
 const dayFormat = new Intl.DateTimeFormat("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
 
-export const timeText = (ms: number): string => timeFormat.format(ms);
-export const quarterText = (ms: number): string => quarterFormat.format(ms);
+export const timeText = (ms: number, timeZone: string): string => format("time", timeZone).format(ms);
+export const quarterText = (ms: number, timeZone: string): string => format("quarter", timeZone).format(ms);
+/** "4 Dec 2026, 17:30": when a day was closed or a decision made, on the club's clock. */
+export const momentText = (iso: string, timeZone: string): string => format("moment", timeZone).format(Date.parse(iso));
 export const dayTitle = (day: string): string => dayFormat.format(new Date(`${day}T12:00:00Z`));
 
 /** θ = server − phone: positive means the phone's clock is behind. "15 min 0.000 s behind", "0.012 s ahead", "on time". */

@@ -16,8 +16,6 @@ export const dynamic = "force-dynamic";
 
 type Context = { params: Promise<{ slug: string; date: string }> };
 
-const timeOfDay = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
-
 /** 401 signed out; 404 not a member or no day on that date; 403 not an officer. 200 with how many summaries were queued (0 after the first close). */
 export const POST = route(async (_request: Request, context: Context) => {
   const params = await context.params;
@@ -28,7 +26,8 @@ export const POST = route(async (_request: Request, context: Context) => {
   if (!closed) throw new NotFoundError("No field day on that date.");
   if (closed.summaryRecipients.length > 0) {
     const board = await getDayBoard(db, { clubId: me.clubId, day });
-    const lines = board ? daySummaryLines(board, (id) => board.people[id] ?? "a member", (ms) => timeOfDay.format(ms)) : [];
+    const timeOfDay = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: board?.timeZone ?? "UTC" });
+    const lines = board ? daySummaryLines(board, (id) => board.people[id] ?? "a member", (ms) => timeOfDay.format(ms), board.timeZone) : [];
     const mail = daySummaryMail({
       clubName: me.club.name, dayText: dayLabel(day), lines,
       boardLink: appLink(`/clubs/${me.club.slug}/days/${day}`), unsubscribe: `${appLink(`/clubs/${me.club.slug}`)}#day-summaries`, // the setting, on the club page
