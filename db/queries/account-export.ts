@@ -5,11 +5,12 @@ import { clubs, coachGrants, coachInvites, coachNotes, devices, events, fieldSes
 import { alias } from "drizzle-orm/pg-core";
 import { exportHangar } from "./hangar-export";
 
-// the lanes as stored, without the season's generated copy of their breakdown
+// the lanes as stored, without the season's numbers PostgreSQL generates from their derivation
 const allLaneColumns = getTableColumns(runLanes);
-const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as Omit<
-  typeof allLaneColumns, "seasonBreakdown"
->;
+type LaneColumns = typeof allLaneColumns;
+const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as {
+  [K in keyof LaneColumns as K extends `season${string}` ? never : K]: LaneColumns[K];
+};
 
 /** The format of "export all my data"; bump when its shape changes. */
 export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
