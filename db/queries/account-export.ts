@@ -12,6 +12,12 @@ const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([k
   [K in keyof LaneColumns as K extends `season${string}` ? never : K]: LaneColumns[K];
 };
 
+// the runs as stored, without the flag PostgreSQL generates from their task
+const allRunColumns = getTableColumns(runs);
+const runColumns = Object.fromEntries(Object.entries(allRunColumns).filter(([key]) => key !== "flightsOnSignal")) as Omit<
+  typeof allRunColumns, "flightsOnSignal"
+>;
+
 /** The format of "export all my data"; bump when its shape changes. */
 export const ACCOUNT_EXPORT_FORMAT = "windowcall-account-export/1";
 
@@ -46,7 +52,7 @@ export async function exportAccount(db: Database, userId: string) {
     db.select({ id: practicePlans.id, coachId: practicePlans.coachId, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
       .from(practicePlans).where(eq(practicePlans.pilotId, userId)).orderBy(asc(practicePlans.createdAt)),
     db.select().from(fieldSessions).where(eq(fieldSessions.ownerId, userId)).orderBy(asc(fieldSessions.startedAt)),
-    db.select().from(runs).where(myRun).orderBy(asc(runs.createdAt)),
+    db.select(runColumns).from(runs).where(myRun).orderBy(asc(runs.createdAt)),
     db.select({ runId: laneConsents.runId, lane: laneConsents.lane, decision: laneConsents.status, reason: laneConsents.reason, decidedAt: laneConsents.decidedAt })
       .from(laneConsents).where(eq(laneConsents.pilotUserId, userId)).orderBy(asc(laneConsents.decidedAt)),
     // offers of the season the user made (the address offered; never a code's hash)

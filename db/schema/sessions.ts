@@ -49,6 +49,12 @@ export const runs = pgTable(
     /** The assigned practice plan (db/schema/coaching.ts) and its item this window was set up from; null for most runs. */
     planId: uuid("plan_id").references(() => practicePlans.id, { onDelete: "set null" }),
     planItem: smallint("plan_item"),
+    /**
+     * Whether every flight of the run is launched at a start signal (an all-up task, i.e. task C:
+     * lib/tasks flightsStartOnSignal), kept by PostgreSQL from `task` (never written): the Season's
+     * turnaround leaves such runs out (db/queries/season/turnaround.ts) without reading each run's task JSON.
+     */
+    flightsOnSignal: boolean("flights_on_signal").notNull().generatedAlwaysAs(sql`coalesce((task ->> 'kind') = 'all-up', false)`),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
     xid: writtenByXact(),
   },

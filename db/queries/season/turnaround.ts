@@ -19,8 +19,9 @@ export function isTurnaround(groundMs: SQL, flightsOnSignal: SQL): SQL {
 
 /**
  * Whether every flight of the run `run` (an alias of `runs`) is launched at a start signal: its stored
- * task is an all-up task (lib/tasks flightsStartOnSignal — in the catalogue, task C).
+ * task is an all-up task (lib/tasks flightsStartOnSignal — in the catalogue, task C), as the generated
+ * column runs.flights_on_signal keeps it (db/schema/sessions.ts).
  */
 export function flightsOnSignal(run: SQL): SQL {
-  return sql`coalesce((${run}.task ->> 'kind') = 'all-up', false)`;
+  return sql`${run}.flights_on_signal`;
 }

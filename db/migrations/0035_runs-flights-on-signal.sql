@@ -1,0 +1,1 @@
+ALTER TABLE "runs" ADD COLUMN "flights_on_signal" boolean GENERATED ALWAYS AS (coalesce((task ->> 'kind') = 'all-up', false)) STORED NOT NULL;
