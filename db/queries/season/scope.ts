@@ -52,8 +52,11 @@ function filterWhere(f: SeasonFilters): SQL {
  * that PostgreSQL fills from the derivation when it is stored, not read out of its JSON here.
  * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
  * the one definition), else null; `ground_ms` stays the stored ground time.
+ * `lean`: without a model filter, `season_flights` holds only what the summary reads (run_id, lane,
+ * created_at, week, flight_index, time_tenths, land_ms, target_sec, ground_ms, turnaround_ms), so its
+ * 30,000 rows in the bench stay in memory instead of spilling to a temporary file.
  */
-export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
+export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: boolean } = {}): SQL {
   const lanes = (flightCount: SQL) => sql`
       select r.id as run_id, l.lane, r.task_code, r.created_at, ${weekOf(sql`r.created_at`)} as week, s.field_name,
         l.result_tenths, l.season_max_tenths as max_tenths, ${flightCount} as flight_count, ${contestColumn} as contest,
@@ -91,7 +94,8 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
     return sql`
     with season_lanes as materialized (${lanes(sql`l.season_flight_count`)}
     ), season_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms, ${turnaround(sql`f.ground_ms`, sql`sl.flights_on_signal`)}
+      select sl.run_id, sl.lane, ${opts.lean ? sql`` : sql`sl.task_code, `}sl.created_at, sl.week, ${opts.lean ? sql`f.flight_index, f.time_tenths, f.land_ms, f.target_sec` : sql`sl.field_name, ${flightColumns}`},
+        f.ground_ms, ${turnaround(sql`f.ground_ms`, sql`sl.flights_on_signal`)}
       from season_lanes sl
       join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
     ), ${heights("lane_flights")}`;

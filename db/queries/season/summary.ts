@@ -22,7 +22,7 @@ const LAST_HEIGHT_BIN = 10;
 export async function getSeasonSummary(db: Database, params: { pilotId: string; filters: SeasonFilters; now: Date }): Promise<SeasonSummary> {
   const now = params.now.toISOString();
   const res = await db.execute<{ summary: SeasonSummary }>(sql`
-    ${seasonScope(params.pilotId, params.filters)},
+    ${seasonScope(params.pilotId, params.filters, { lean: true })},
     weekly_turnaround as (
       select week, count(*)::int as count,
         round(percentile_cont(0.5) within group (order by turnaround_ms) / 100)::int as median,
