@@ -97,7 +97,8 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
       select sl.run_id, sl.lane, ${opts.lean ? sql`` : sql`sl.task_code, `}sl.created_at, sl.week, ${opts.lean ? sql`f.flight_index, f.time_tenths, f.land_ms, f.target_sec` : sql`sl.field_name, ${flightColumns}`},
         f.ground_ms, ${turnaround(sql`f.ground_ms`, sql`sl.flights_on_signal`)}
       from season_lanes sl
-      join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
+      -- each lane's flights by its key (OFFSET 0 keeps the lookup per lane): never a hash of every pilot's flights
+      cross join lateral (select * from lane_flights f where f.run_id = sl.run_id and f.lane = sl.lane offset 0) f
     ), ${heights("lane_flights")}`;
   }
   // The model filter counts flights, not windows: each flight belongs to the model flying at its
