@@ -8,10 +8,17 @@ import {
 import { alias } from "drizzle-orm/pg-core";
 import { exportHangar } from "./hangar-export";
 
-// the lanes as stored, without the season's generated copy of their breakdown
+// the lanes as stored, without the season's numbers PostgreSQL generates from their derivation
 const allLaneColumns = getTableColumns(runLanes);
-const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as Omit<
-  typeof allLaneColumns, "seasonBreakdown"
+type LaneColumns = typeof allLaneColumns;
+const laneColumns = Object.fromEntries(Object.entries(allLaneColumns).filter(([key]) => !key.startsWith("season"))) as {
+  [K in keyof LaneColumns as K extends `season${string}` ? never : K]: LaneColumns[K];
+};
+
+// the runs as stored, without the flag PostgreSQL generates from their task
+const allRunColumns = getTableColumns(runs);
+const runColumns = Object.fromEntries(Object.entries(allRunColumns).filter(([key]) => key !== "flightsOnSignal")) as Omit<
+  typeof allRunColumns, "flightsOnSignal"
 >;
 
 /** The format of "export all my data"; bump when its shape changes. */
@@ -57,7 +64,7 @@ export async function exportAccount(db: Database, userId: string) {
     db.select({ id: practicePlans.id, coachId: practicePlans.coachId, title: practicePlans.title, items: practicePlans.items, createdAt: practicePlans.createdAt })
       .from(practicePlans).where(eq(practicePlans.pilotId, userId)).orderBy(asc(practicePlans.createdAt)),
     db.select().from(fieldSessions).where(eq(fieldSessions.ownerId, userId)).orderBy(asc(fieldSessions.startedAt)),
-    db.select().from(runs).where(myRun).orderBy(asc(runs.createdAt)),
+    db.select(runColumns).from(runs).where(myRun).orderBy(asc(runs.createdAt)),
     db.select({ runId: laneConsents.runId, lane: laneConsents.lane, decision: laneConsents.status, reason: laneConsents.reason, decidedAt: laneConsents.decidedAt })
       .from(laneConsents).where(eq(laneConsents.pilotUserId, userId)).orderBy(asc(laneConsents.decidedAt)),
     // offers of the season the user made (the address offered; never a code's hash)

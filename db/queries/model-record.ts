@@ -3,7 +3,7 @@ import { sql } from "drizzle-orm";
 import type { ModelLane } from "@/lib/hangar/stats";
 import { flightInstants } from "@/lib/results/flight-instants";
 import type { Database } from "../index";
-import { isTurnaround } from "./season/turnaround";
+import { flightsOnSignal, isTurnaround } from "./season/turnaround";
 
 type Row = { run_id: string; lane: number; task_code: string; derived: unknown; choices: { atMs: number; modelId: string }[] | null; heights: { i: number; h: number }[] | null; grounds: { i: number; ms: number }[] | null };
 
@@ -30,7 +30,7 @@ export async function listModelLanes(db: Database, p: { modelId: string; ownerId
         where h.run_id = l.run_id and h.lane = l.lane and h.flight_index is not null
         order by h.flight_index, g.created_at desc, h.at_ms) x) as heights,
       (select json_agg(json_build_object('i', f.flight_index, 'ms', f.ground_ms)) from lane_flights f
-        where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`)}) as grounds
+        where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`, flightsOnSignal(sql`r`))}) as grounds
     from named n
     join run_lanes l on l.run_id = n.run_id and l.lane = n.lane
     join runs r on r.id = l.run_id

@@ -49,6 +49,12 @@ export const runs = pgTable(
     /** The assigned practice plan (db/schema/coaching.ts) and its item this window was set up from; null for most runs. */
     planId: uuid("plan_id").references(() => practicePlans.id, { onDelete: "set null" }),
     planItem: smallint("plan_item"),
+    /**
+     * Whether every flight of the run is launched at a start signal (an all-up task, i.e. task C:
+     * lib/tasks flightsStartOnSignal), kept by PostgreSQL from `task` (never written): the Season's
+     * turnaround leaves such runs out (db/queries/season/turnaround.ts) without reading each run's task JSON.
+     */
+    flightsOnSignal: boolean("flights_on_signal").notNull().generatedAlwaysAs(sql`coalesce((task ->> 'kind') = 'all-up', false)`),
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
     xid: writtenByXact(),
   },
@@ -68,11 +74,25 @@ export const runLanes = pgTable(
     /** The points-lost breakdown and flights as last derived (a cache of a pure function of the events). */
     derived: jsonb("derived"),
     /**
-     * The points-lost breakdown alone, kept by PostgreSQL from `derived` (never written): the
-     * season's aggregates (db/queries/season) read this small column instead of the whole cache
-     * with every device's version. The flights are rows of lane_flights, not a second copy here.
+     * The numbers the Season reads per lane, kept by PostgreSQL from `derived` whenever a derivation
+     * is stored (generated columns: never written by the app, never out of step): the task's maximum,
+     * the points lost in all and by cause (lib/tasks/breakdown.ts; a missing cause is 0), the penalty
+     * points and the number of derived flights (= the lane's lane_flights rows). The season's
+     * aggregates (db/queries/season, the roster, plan progress) read these plain integers instead of
+     * unpacking the JSON of every lane on each request.
      */
-    seasonBreakdown: jsonb("season_breakdown").generatedAlwaysAs(sql`derived -> 'breakdown'`),
+    seasonMaxTenths: integer("season_max_tenths").generatedAlwaysAs(sql`(derived #>> '{breakdown,maxTenths}')::int`),
+    seasonLostTenths: integer("season_lost_tenths").generatedAlwaysAs(sql`(derived #>> '{breakdown,lostTenths}')::int`),
+    seasonPenaltyPoints: integer("season_penalty_points").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,penaltyPoints}')::int, 0)`),
+    seasonLostGroundTime: integer("season_lost_ground_time").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,groundTime}')::int, 0)`),
+    seasonLostOverCap: integer("season_lost_over_cap").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,overCap}')::int, 0)`),
+    seasonLostShortOfTarget: integer("season_lost_short_of_target").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,shortOfTarget}')::int, 0)`),
+    seasonLostInvalid: integer("season_lost_invalid").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,invalid}')::int, 0)`),
+    seasonLostNotCounted: integer("season_lost_not_counted").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,notCounted}')::int, 0)`),
+    seasonLostRoundZero: integer("season_lost_round_zero").generatedAlwaysAs(sql`coalesce((derived #>> '{breakdown,parts,roundZero}')::int, 0)`),
+    seasonFlightCount: integer("season_flight_count").generatedAlwaysAs(
+      sql`coalesce(jsonb_array_length(case when jsonb_typeof(derived -> 'flights') = 'array' then derived -> 'flights' end), 0)`,
+    ),
     needsReview: boolean("needs_review").notNull().default(false),
     reviewReason: text("review_reason"),
   },

@@ -2,6 +2,7 @@ import Dexie, { type EntityTable, type Table } from "dexie";
 import type { ClockEstimate, TimeSample } from "@/lib/clock";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PracticePlan } from "@/lib/field/practice-plan";
+import type { PilotGrantRow } from "@/lib/coach/types";
 import type { LaneConsent } from "@/lib/validations/consent";
 import type { LaneResult, PulledModel } from "@/lib/validations/sync";
 import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
@@ -76,6 +77,8 @@ export type MetaValues = {
   assignedPlans: PulledPlan[];
   /** Contest groups that user keeps time for, with the pilots, as the last pull gave them: the Field offers their lanes offline. */
   contestDuties: PulledDuty[];
+  /** Who can see that user's season (Settings' list of coaches and offers), as last fetched and when (ms): Settings shows it offline with its age. */
+  coachGrants: { grants: PilotGrantRow[]; fetchedAtMs: number };
   /** The fields of that user's clubs with their cautions, cached while online (the set-up form shows them offline). */
   clubFields: {
     id: string; name: string; clubName: string; latitude: number | null; longitude: number | null;

@@ -24,6 +24,7 @@ export {
 export { TARGET_SHOWN_WITHIN_MS } from "./poker";
 export { ALL_UP_ATTEMPTS } from "./definition";
 export { maxResultTenths, sumCapTenths, isWindowBound } from "./limits";
+export { flightsStartOnSignal } from "./launch-signal";
 export { msToTenths, tenthsToSec, formatTenths, secondsText } from "./time";
 export type { TimelineEvent } from "./timeline";
 export type { ScoredFlight, FlightStatus, LaneScore } from "./score";

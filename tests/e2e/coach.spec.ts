@@ -194,7 +194,7 @@ async function storedRun(page: Page, id: string): Promise<{ letter: string; plan
   }, id);
 }
 
-test("a plan's next item starts in one tap on the pilot's Field; the coach sees its progress as of the pilot's last sync, edits and closes it; offline the coach desk shows its last data and age", async ({ browser, baseURL }) => {
+test("a plan's next item starts in one tap on the pilot's Field; the coach sees its progress as of the pilot's last sync, edits and closes it; offline the coach desk and the pilot's list of coaches show their last data and age", async ({ browser, baseURL }) => {
   test.setTimeout(240_000);
   const pilotContext = await browser.newContext();
   const coachContext = await browser.newContext();
@@ -273,6 +273,17 @@ test("a plan's next item starts in one tap on the pilot's Field; the coach sees 
   await expect(coach.getByText(/^Offline — showing the last plans fetched/)).toBeVisible();
   await expect(coach.getByRole("article", { name: "Tobi's launch week, shorter for Tobi Okafor" })).toBeVisible();
   await coachContext.setOffline(false);
+
+  // offline, Tobi's Settings list who can see his season as this phone last fetched it, and say how old that list is
+  await pilot.goto("/settings");
+  const coaches = pilot.getByRole("region", { name: "Coaches" });
+  await expect(coaches.getByRole("button", { name: "Revoke Mara Lindqvist" })).toBeVisible();
+  await workerReady(pilot);
+  await pilotContext.setOffline(true);
+  await pilot.reload().catch(() => null);
+  await expect(coaches.getByText(/^Offline — showing the last list of coaches fetched, from (less than a minute|\d+ minutes?) ago\.$/)).toBeVisible();
+  await expect(coaches.getByText(/^Mara Lindqvist \(mara@example\.com\) sees your season/)).toBeVisible();
+  await pilotContext.setOffline(false);
 
   await pilotContext.close();
   await coachContext.close();

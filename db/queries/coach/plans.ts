@@ -2,7 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
 import type { Executor } from "../sync-db";
-import { isTurnaround } from "../season/turnaround";
+import { flightsOnSignal, isTurnaround } from "../season/turnaround";
 import { planItemSchema, planProgress, type PlanInput, type PlanItem, type PlanRun } from "@/lib/coach/plan-goals";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 import type { PlanUpdate } from "@/lib/validations/coach";
@@ -66,9 +66,9 @@ async function plansWhere(db: Executor, where: ReturnType<typeof sql>): Promise<
     from practice_plans p join users pu on pu.id = p.pilot_id left join users cu on cu.id = p.coach_id
     where ${where} order by p.created_at desc, p.id limit 1000`);
   if (plans.rows.length === 0) return [];
-  const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: string | null; ground_ms: unknown }>(sql`
-    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_breakdown ->> 'maxTenths' as max_tenths,
-      array(select f.ground_ms from lane_flights f where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`)} order by f.position) as ground_ms
+  const runs = await db.execute<{ plan_id: string; item: number; result_tenths: number | null; max_tenths: number | string | null; ground_ms: unknown }>(sql`
+    select r.plan_id::text, r.plan_item as item, l.result_tenths, l.season_max_tenths as max_tenths,
+      array(select f.ground_ms from lane_flights f where f.run_id = l.run_id and f.lane = l.lane and ${isTurnaround(sql`f.ground_ms`, flightsOnSignal(sql`r`))} order by f.position) as ground_ms
     from runs r join practice_plans p on p.id = r.plan_id
     join run_lanes l on l.run_id = r.id and l.pilot_user_id = p.pilot_id
     where r.plan_id in (${sql.join(plans.rows.map((p) => sql`${p.id}::uuid`), sql`, `)}) and r.created_by = p.pilot_id`);

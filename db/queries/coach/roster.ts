@@ -1,7 +1,7 @@
 import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../../index";
-import { isTurnaround } from "../season/turnaround";
+import { flightsOnSignal, isTurnaround } from "../season/turnaround";
 import type { RosterPilot } from "@/lib/coach/types";
 
 /**
@@ -23,7 +23,7 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
       group by g.pilot_id, u.name
     ), lanes as (
       select l.pilot_user_id as pilot_id, r.id as run_id, l.lane, r.created_at, s.started_at, l.result_tenths,
-        (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
+        l.season_max_tenths as max_tenths, ${flightsOnSignal(sql`r`)} as flights_on_signal,
         ${at}::timestamptz - r.created_at as age
       from run_lanes l
       join runs r on r.id = l.run_id
@@ -35,7 +35,7 @@ export async function getRoster(db: Database, coachId: string, now = new Date())
     ), grounds as (
       select ln.pilot_id, ln.age, f.ground_ms / 1000.0 as ground_s
       from lanes ln join lane_flights f on f.run_id = ln.run_id and f.lane = ln.lane
-      where ln.age < interval '60 days' and ${isTurnaround(sql`f.ground_ms`)}
+      where ln.age < interval '60 days' and ${isTurnaround(sql`f.ground_ms`, sql`ln.flights_on_signal`)}
     )
     select p.pilot_id::text, p.name,
       (select max(started_at) from lanes where pilot_id = p.pilot_id) as last_session_at,

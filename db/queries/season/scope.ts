@@ -2,12 +2,20 @@ import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import { launchAtMs, lanesNamingModel, modelAtSql } from "../flight-model";
+import { flightsOnSignal, isTurnaround } from "./turnaround";
 
 const DAY_MS = 24 * 3600 * 1000;
 
 /** The points-lost causes of the stored breakdown (lib/tasks/breakdown.ts), each a column of `season_lanes` (tenths). */
 export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
+/** Where run_lanes keeps each cause, filled from the breakdown by PostgreSQL at every stored derivation (db/schema/sessions.ts). */
+const LOST_COLUMNS: Record<(typeof LOST_PARTS)[number], string> = {
+  groundTime: "season_lost_ground_time", overCap: "season_lost_over_cap", shortOfTarget: "season_lost_short_of_target",
+  invalid: "season_lost_invalid", notCounted: "season_lost_not_counted", roundZero: "season_lost_round_zero",
+};
 const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
+/** The same, per lane in a select list: one hashed look-up of the drawn runs instead of a scan of the draw per lane. */
+const contestColumn = sql`coalesce(r.id in (select g.run_id from group_slots g where g.run_id is not null), false)`;
 
 /** The filters as a SQL condition on `r` (runs), `s` (field_sessions) and `l` (run_lanes); dates are UTC calendar days, both ends included. */
 function filterWhere(f: SeasonFilters): SQL {
@@ -40,14 +48,20 @@ function filterWhere(f: SeasonFilters): SQL {
  * the lanes with at least one such flight, `flight_count` counting only those.
  * Each lane and flight carries `week`, the Monday (UTC) of its run's day, worked out once per lane.
  * A run is a contest run when a contest's draw names it (group_slots.run_id); else practice.
+ * The per-lane numbers (maximum, points lost by cause, flight count) are plain columns of run_lanes
+ * that PostgreSQL fills from the derivation when it is stored, not read out of its JSON here.
+ * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
+ * the one definition), else null; `ground_ms` stays the stored ground time.
+ * `lean`: without a model filter, `season_flights` holds only what the summary reads (run_id, lane,
+ * created_at, week, flight_index, time_tenths, land_ms, target_sec, ground_ms, turnaround_ms), so its
+ * 30,000 rows in the bench stay in memory instead of spilling to a temporary file.
  */
-export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
+export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: boolean } = {}): SQL {
   const lanes = (flightCount: SQL) => sql`
       select r.id as run_id, l.lane, r.task_code, r.created_at, ${weekOf(sql`r.created_at`)} as week, s.field_name,
-        l.result_tenths, (l.season_breakdown ->> 'maxTenths')::int as max_tenths,
-        ${flightCount} as flight_count, ${contest} as contest,
-        ${sql.join(LOST_PARTS.map((k) => sql`coalesce((l.season_breakdown #>> ${`{parts,${k}}`})::int, 0) as ${sql.identifier(k)}`), sql`, `)},
-        (l.season_breakdown ->> 'lostTenths')::int as lost_tenths, coalesce((l.season_breakdown ->> 'penaltyPoints')::int, 0) as penalty_points
+        l.result_tenths, l.season_max_tenths as max_tenths, ${flightCount} as flight_count, ${contestColumn} as contest,
+        ${sql.join(LOST_PARTS.map((k) => sql`l.${sql.identifier(LOST_COLUMNS[k])} as ${sql.identifier(k)}`), sql`, `)},
+        l.season_lost_tenths as lost_tenths, l.season_penalty_points as penalty_points, ${flightsOnSignal(sql`r`)} as flights_on_signal
       from run_lanes l
       join runs r on r.id = l.run_id
       join field_sessions s on s.id = r.session_id
@@ -57,6 +71,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
         and l.result_tenths is not null
         and ${filterWhere(f)}`;
   const flightColumns = sql`f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec`;
+  const turnaround = (groundMs: SQL, onSignal: SQL) => sql`case when ${isTurnaround(groundMs, onSignal)} then ${groundMs} end as turnaround_ms`;
   // one height per flight, the newest log's (then its first launch): picked once over the season's matched
   // launches and joined to the flights, rather than looked up flight by flight (30,000 lookups in the bench)
   // (without a model filter the flight is read by its key from lane_flights, so the few matched launches drive
@@ -77,11 +92,13 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
     )`;
   if (!f.model) {
     return sql`
-    with season_lanes as materialized (${lanes(sql`(select count(*) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane)::int`)}
+    with season_lanes as materialized (${lanes(sql`l.season_flight_count`)}
     ), season_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms
+      select sl.run_id, sl.lane, ${opts.lean ? sql`` : sql`sl.task_code, `}sl.created_at, sl.week, ${opts.lean ? sql`f.flight_index, f.time_tenths, f.land_ms, f.target_sec` : sql`sl.field_name, ${flightColumns}`},
+        f.ground_ms, ${turnaround(sql`f.ground_ms`, sql`sl.flights_on_signal`)}
       from season_lanes sl
-      join lane_flights f on f.run_id = sl.run_id and f.lane = sl.lane
+      -- each lane's flights by its key (OFFSET 0 keeps the lookup per lane): never a hash of every pilot's flights
+      cross join lateral (select * from lane_flights f where f.run_id = sl.run_id and f.lane = sl.lane offset 0) f
     ), ${heights("lane_flights")}`;
   }
   // The model filter counts flights, not windows: each flight belongs to the model flying at its
@@ -90,7 +107,7 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
   return sql`
     with season_named_lanes as materialized (${lanes(sql`0`)}
     ), season_model_flights as materialized (
-      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, ${flightColumns}, f.ground_ms, m.model_id,
+      select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, sl.flights_on_signal, ${flightColumns}, f.ground_ms, m.model_id,
         lag(m.model_id) over (partition by f.run_id, f.lane order by f.position) as previous_model_id
       from season_named_lanes sl
       join run_lanes l on l.run_id = sl.run_id and l.lane = sl.lane
@@ -98,11 +115,12 @@ export function seasonScope(pilotId: string, f: SeasonFilters): SQL {
       cross join lateral (select ${modelAtSql(sql`f.run_id`, sql`f.lane`, launchAtMs(sql`l.derived`, sql`f`))} as model_id) m
     ), season_flights as materialized (
       select run_id, lane, task_code, created_at, week, field_name, flight_index, launch_ms, land_ms, status, time_tenths, credited_tenths, target_sec,
-        case when previous_model_id = ${f.model} then ground_ms end as ground_ms
+        case when previous_model_id = ${f.model} then ground_ms end as ground_ms,
+        ${turnaround(sql`(case when previous_model_id = ${f.model} then ground_ms end)`, sql`flights_on_signal`)}
       from season_model_flights where model_id = ${f.model}
     ), season_lanes as materialized (
       select sl.run_id, sl.lane, sl.task_code, sl.created_at, sl.week, sl.field_name, sl.result_tenths, sl.max_tenths, n.flights as flight_count, sl.contest,
-        ${sql.join(LOST_PARTS.map((k) => sql`sl.${sql.identifier(k)}`), sql`, `)}, sl.lost_tenths, sl.penalty_points
+        ${sql.join(LOST_PARTS.map((k) => sql`sl.${sql.identifier(k)}`), sql`, `)}, sl.lost_tenths, sl.penalty_points, sl.flights_on_signal
       from season_named_lanes sl
       join (select run_id, lane, count(*)::int as flights from season_flights group by 1, 2) n on n.run_id = sl.run_id and n.lane = sl.lane
     ), ${heights("season_flights")}`;

@@ -1,16 +1,12 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
 import { LOST_PARTS, seasonScope, shareOf } from "./scope";
-import { isTurnaround } from "./turnaround";
 
-/** The week (Monday, UTC) of a flight or lane, as season_flights / season_lanes carry it (scope.ts). */
-const WEEK = sql`week`;
-const SL_WEEK = sql`sl.week`;
-/** A flight's ground time that counts as turnaround (turnaround.ts, the one definition). */
-const TURNAROUND = isTurnaround(sql`ground_ms`);
+/** A day as the summary prints it (weeks, months, bests). */
+const day = (column: SQL) => sql`to_char(${column}, 'YYYY-MM-DD')`;
 /** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
 const BIN_SEC = 30;
 const LAST_BIN = 10;
@@ -26,34 +22,49 @@ const LAST_HEIGHT_BIN = 10;
 export async function getSeasonSummary(db: Database, params: { pilotId: string; filters: SeasonFilters; now: Date }): Promise<SeasonSummary> {
   const now = params.now.toISOString();
   const res = await db.execute<{ summary: SeasonSummary }>(sql`
-    ${seasonScope(params.pilotId, params.filters)},
+    ${seasonScope(params.pilotId, params.filters, { lean: true })},
     weekly_turnaround as (
-      select ${WEEK} as week, count(*)::int as count,
-        round(percentile_cont(0.5) within group (order by ground_ms) / 100)::int as median,
-        round(percentile_cont(0.9) within group (order by ground_ms) / 100)::int as p90
-      from season_flights where ${TURNAROUND} group by 1
-    ), months as (
-      select m.which, m.start,
-        (select count(*)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as runs,
-        (select coalesce(sum(sl.flight_count), 0)::int from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as flights,
-        (select avg(${shareOf}) from season_lanes sl where sl.created_at >= m.start and sl.created_at < m.start + interval '1 month') as share,
-        (select round(percentile_cont(0.5) within group (order by ground_ms) / 100)::int from season_flights
-          where ${TURNAROUND} and created_at >= m.start and created_at < m.start + interval '1 month') as turnaround
-      from (values ('this', date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC'),
-                   ('last', (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC')) as m(which, start)
+      select week, count(*)::int as count,
+        round(percentile_cont(0.5) within group (order by turnaround_ms) / 100)::int as median,
+        round(percentile_cont(0.9) within group (order by turnaround_ms) / 100)::int as p90
+      from season_flights where turnaround_ms is not null group by 1
+    ), month_starts as (
+      select date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC' as this,
+        (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
+    ), month_lanes as (
+      -- this month and last month in one pass over the lanes, and one over the flights
+      select ${sql.join(["this", "last"].map((m) => {
+        const within = sql.raw(`sl.created_at >= ms.${m} and sl.created_at < ms.${m} + interval '1 month'`);
+        return sql`count(*) filter (where ${within})::int as ${sql.identifier(`${m}_runs`)},
+          coalesce(sum(sl.flight_count) filter (where ${within}), 0)::int as ${sql.identifier(`${m}_flights`)},
+          avg(${shareOf}) filter (where ${within}) as ${sql.identifier(`${m}_share`)}`;
+      }), sql`, `)}
+      from season_lanes sl, month_starts ms
+    ), month_flights as (
+      select ${sql.join(["this", "last"].map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
+          filter (where ${sql.raw(`f.created_at >= ms.${m} and f.created_at < ms.${m} + interval '1 month'`)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
+      from season_flights f, month_starts ms where f.turnaround_ms is not null
+    ), weekly_lanes as (
+      select sl.week, count(*)::int as windows, sum(sl.flight_count)::int as launches, count(sl.lost_tenths)::int as with_lost,
+        ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)}) filter (where sl.lost_tenths is not null)::int as ${sql.identifier(k)}`), sql`, `)},
+        sum(sl.penalty_points) filter (where sl.lost_tenths is not null)::int as "penaltyPoints"
+      from season_lanes sl group by 1
     )
     select json_build_object(
       'models', coalesce((select json_agg(json_build_object('id', m.id, 'name', m.name) order by m.name, m.id) from models m where m.owner_id = ${params.pilotId}), '[]'),
       'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
       'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(flight_count), 0)::int) from season_lanes),
-      'months', (select json_object_agg(which, json_build_object('start', to_char(start at time zone 'UTC', 'YYYY-MM-DD'), 'runs', runs, 'flights', flights, 'share', share, 'turnaroundTenths', turnaround)) from months),
+      'months', (select json_build_object(${sql.join(["this", "last"].map((m) => sql`${m}::text, json_build_object('start', ${day(sql.raw(`ms.${m} at time zone 'UTC'`))},
+          'runs', l.${sql.identifier(`${m}_runs`)}, 'flights', l.${sql.identifier(`${m}_flights`)}, 'share', l.${sql.identifier(`${m}_share`)},
+          'turnaroundTenths', f.${sql.identifier(`${m}_turnaround`)})`), sql`, `)}) from month_starts ms, month_lanes l, month_flights f),
       'bests', coalesce((select json_agg(b order by b.task) from (
           select distinct on (sl.task_code) sl.task_code as task, sl.result_tenths as "resultTenths", sl.max_tenths as "maxTenths",
             sl.run_id as "runId", to_char(sl.created_at at time zone 'UTC', 'YYYY-MM-DD') as day
           from season_lanes sl order by sl.task_code, sl.result_tenths desc, sl.created_at) b), '[]'),
       'shareByWeek', coalesce((select json_agg(x order by x.week, x.task) from (
-          select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week, sl.task_code as task, avg(${shareOf}) as share, count(*)::int as runs
-          from season_lanes sl where sl.max_tenths > 0 group by 1, 2) x), '[]'),
+          select ${day(sql`x.week`)} as week, x.task, x.share, x.runs from (
+            select sl.week, sl.task_code as task, avg(${shareOf}) as share, count(*)::int as runs
+            from season_lanes sl where sl.max_tenths > 0 group by 1, 2) x) x), '[]'),
       'turnaroundByWeek', coalesce((select json_agg(json_build_object('week', to_char(week, 'YYYY-MM-DD'), 'count', count, 'medianTenths', median, 'p90Tenths', p90) order by week) from weekly_turnaround), '[]'),
       'turnaroundTrend', (select round((regr_slope(median, (week - date '2000-01-03') / 7))::numeric, 2)::float8 from weekly_turnaround),
       'targets', coalesce((select json_agg(t order by t."targetSec") from (
@@ -66,21 +77,17 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
       'durations', coalesce((select json_agg(json_build_object('fromSec', bin * ${BIN_SEC}, 'toSec', case when bin < ${LAST_BIN} then (bin + 1) * ${BIN_SEC} end, 'flights', n) order by bin) from (
           select least(time_tenths / ${BIN_SEC * 10}, ${LAST_BIN}) as bin, count(*)::int as n
           from season_flights where land_ms is not null group by 1) h), '[]'),
-      'launchesByWeek', coalesce((select json_agg(x order by x.week) from (
-          select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week, count(*)::int as windows,
-            sum(sl.flight_count)::int as launches
-          from season_lanes sl group by 1) x), '[]'),
-      'lostByWeek', coalesce((select json_agg(x order by x.week) from (
-          select to_char(${SL_WEEK}, 'YYYY-MM-DD') as week,
-            ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)})::int as ${sql.identifier(k)}`), sql`, `)},
-            sum(sl.penalty_points)::int as "penaltyPoints"
-          from season_lanes sl where sl.lost_tenths is not null group by 1) x), '[]'),
+      'launchesByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)}, 'windows', w.windows, 'launches', w.launches) order by w.week)
+          from weekly_lanes w), '[]'),
+      'lostByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)},
+          ${sql.join(LOST_PARTS.map((k) => sql`${k}::text, w.${sql.identifier(k)}`), sql`, `)}, 'penaltyPoints', w."penaltyPoints") order by w.week)
+          from weekly_lanes w where w.with_lost > 0), '[]'),
       'heights', (select json_build_object('launches', count(*)::int,
           'medianM', round((percentile_cont(0.5) within group (order by height_m))::numeric, 1)::float8,
           'secondsPerTenMetres', round((10 * regr_slope(time_tenths / 10.0, height_m) filter (where land_ms is not null))::numeric, 1)::float8)
         from season_heights),
       'heightByWeek', coalesce((select json_agg(x order by x.week) from (
-          select to_char(${WEEK}, 'YYYY-MM-DD') as week, count(*)::int as launches,
+          select ${day(sql`week`)} as week, count(*)::int as launches,
             round((percentile_cont(0.5) within group (order by height_m))::numeric, 1)::float8 as "medianM",
             round(max(height_m)::numeric, 1)::float8 as "bestM"
           from season_heights group by 1) x), '[]'),

@@ -12,7 +12,7 @@ const RUN_ORDER: Record<(typeof RUN_SORTS)[number], SQL> = {
   share: sql`${shareOf}`, flights: sql`sl.flight_count`,
 };
 const FLIGHT_ORDER: Record<(typeof FLIGHT_SORTS)[number], SQL> = {
-  date: sql`f.created_at`, task: sql`f.task_code`, duration: sql`f.time_tenths`, credited: sql`f.credited_tenths`, turnaround: sql`f.ground_ms`,
+  date: sql`f.created_at`, task: sql`f.task_code`, duration: sql`f.time_tenths`, credited: sql`f.credited_tenths`, turnaround: sql`f.turnaround_ms`,
 };
 
 /** ORDER BY the chosen column (nulls last), then a fixed tie-break so pages never overlap; LIMIT/OFFSET for a page. */
@@ -55,7 +55,7 @@ export async function listSeasonFlights(
       select f.run_id as "runId", f.lane, f.created_at as at, f.field_name as field, f.task_code as task, f.flight_index + 1 as flight,
         round(f.launch_ms / 100)::int as "launchTenths", round(f.land_ms / 100)::int as "landTenths",
         f.time_tenths as "durationTenths", f.credited_tenths as "creditedTenths", f.target_sec as "targetSec", f.status,
-        case when f.ground_ms >= 0 then round(f.ground_ms / 100)::int end as "turnaroundTenths"
+        round(f.turnaround_ms / 100)::int as "turnaroundTenths"
       from season_flights f ${pageClause(order, paging, sql`f.created_at desc, f.run_id, f.lane, f.flight_index`)}) x)) as page`);
   const page = res.rows[0]!.page;
   const rows = (page.rows ?? []).map((r) => ({ ...r, at: new Date(r.at).toISOString() }));

@@ -22,10 +22,11 @@ type Flights = [number, number][];
 /**
  * Stores a run of `pilot`'s flights as a phone would have recorded it (window start, launches
  * and landings, run end) and derives its result as a push does (deriveAndStoreRuns → lib/results).
+ * `signals` (seconds after the first): the start signals of a task C run, one per attempt (default: one at 0).
  * `recordedBy` another account: the lane waits for the pilot's decision (`consent` sets one).
  */
 export async function seasonRun(input: {
-  pilotId: string; at: string; flights: Flights; task?: TaskDefinition; field?: string; recordedBy?: string; consent?: "accepted" | "hidden";
+  pilotId: string; at: string; flights: Flights; task?: TaskDefinition; signals?: number[]; field?: string; recordedBy?: string; consent?: "accepted" | "hidden";
 }): Promise<string> {
   const task = input.task ?? BEST_THREE;
   const recorder = input.recordedBy ?? input.pilotId;
@@ -35,9 +36,10 @@ export async function seasonRun(input: {
   await db.insert(fieldSessions).values({ id: sessionId, ownerId: recorder, fieldName: input.field ?? "Season Meadow", startedAt: new Date(startMs) });
   await db.insert(runs).values({ id: runId, sessionId, createdBy: recorder, task, taskCode: task.letter ?? "custom", edition: task.edition, createdAt: new Date(startMs) });
   await db.insert(runLanes).values({ runId, lane: 0, pilotUserId: input.pilotId, pilotName: "Season pilot" });
-  const taps: [number, object][] = [[0, { kind: "window-start" }]];
+  const taps: [number, object][] = (input.signals ?? [0]).map((s) => [s * 1000, { kind: "window-start" }]);
   for (const [launch, land] of input.flights) taps.push([launch * 1000, { kind: "launch", lane: 0 }], [land * 1000, { kind: "landing", lane: 0 }]);
-  taps.push([(task.kind === "all-up" ? 600 : task.workingTimeSec + 40) * 1000, { kind: "run-end" }]);
+  taps.push([(task.kind === "all-up" ? Math.max(600, ...(input.signals ?? [0]).map((s) => s + 240)) : task.workingTimeSec + 40) * 1000, { kind: "run-end" }]);
+  taps.sort((a, b) => a[0] - b[0]); // in time order, as a phone records them (stable: equal times keep their order)
   const deviceId = `season-${uuidv7()}`;
   await db.insert(events).values(taps.map(([offsetMs, body], i) => ({
     id: uuidv7(), runId, deviceId, seq: i + 1, recordedBy: recorder, kind: (body as { kind: string }).kind, body,

@@ -1,12 +1,14 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useState, type FormEvent } from "react";
+import { useEffect, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/field";
 import { coachKeys, type PilotGrantRow } from "@/app/(app)/coach/_components/coach-api";
 import { requestJson } from "@/components/request/json";
 import { dayText } from "@/app/(app)/season/_components/season-format";
+import { DataAge } from "@/app/(app)/season/_components/data-age";
+import { getMeta, getWindowcallDb, setMeta } from "@/lib/offline/db";
 
 function describe(g: PilotGrantRow): string {
   if (g.kind === "grant") return `${g.coachName} (${g.coachEmail}) sees your season, runs and flights since ${dayText(g.createdAt)}.`;
@@ -18,10 +20,29 @@ function describe(g: PilotGrantRow): string {
  * Who can see the pilot's season: each coach holding a grant and each offer not yet taken up, each
  * revocable at once; and the two ways to offer it (a coach's e-mail, or a one-time code). The reply
  * to an e-mail offer is the same whether or not the address has an account.
+ * Settings opens offline (a precached page with no server data), so each fetched list is kept in the
+ * account's device database (meta "coachGrants") with its time; offline the kept list is shown with
+ * its age (DataAge), as the Season and the coach desk show theirs.
  */
 export function CoachAccess() {
   const client = useQueryClient();
-  const grants = useQuery({ queryKey: coachKeys.grants, queryFn: () => requestJson<{ grants: PilotGrantRow[] }>("GET", "/api/coach-grants") });
+  const grants = useQuery({
+    queryKey: coachKeys.grants,
+    queryFn: async () => {
+      const fetched = await requestJson<{ grants: PilotGrantRow[] }>("GET", "/api/coach-grants");
+      await setMeta(getWindowcallDb(), "coachGrants", { grants: fetched.grants, fetchedAtMs: Date.now() }).catch(() => undefined);
+      return fetched;
+    },
+  });
+  // the list last fetched on this phone, until (or unless) a fresh one arrives
+  useEffect(() => {
+    let live = true;
+    void getMeta(getWindowcallDb(), "coachGrants").then((kept) => {
+      if (!live || !kept || client.getQueryData(coachKeys.grants)) return;
+      client.setQueryData(coachKeys.grants, { grants: kept.grants }, { updatedAt: kept.fetchedAtMs });
+    }).catch(() => undefined);
+    return () => { live = false; };
+  }, [client]);
   const [email, setEmail] = useState("");
   const [note, setNote] = useState<string | null>(null);
   const refresh = () => client.invalidateQueries({ queryKey: coachKeys.grants });
@@ -48,8 +69,8 @@ export function CoachAccess() {
   const error = (offer.error ?? revoke.error)?.message;
   return (
     <div className="space-y-3">
-      {grants.isPending ? <p className="text-muted">Loading who can see your season…</p> : null}
-      {grants.isError ? <p className="text-muted">Who can see your season is shown with a connection.</p> : null}
+      {grants.isPending && grants.fetchStatus === "fetching" ? <p className="text-muted">Loading who can see your season…</p> : null}
+      <DataAge query={grants} what="list of coaches" />
       {grants.data ? (
         grants.data.grants.length === 0 ? (
           <p>Only you see your season.</p>

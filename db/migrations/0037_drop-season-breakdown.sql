@@ -1,0 +1,1 @@
+ALTER TABLE "run_lanes" DROP COLUMN "season_breakdown";
