@@ -135,8 +135,11 @@ export async function storeDerivations(
   const dropped = done.filter((d) => d.fold === null).map((d) => sql`${d.run.id}::uuid`);
   // the lanes' results, the runs' folded states and new stamps and the sequence's position in one statement
   const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
+  // each state a parameter of its own: in an array parameter the driver escapes every quote of
+  // the JSON (a long run's state is ~440 kB) and the database unescapes it again
+  const foldRows = kept.map((d) => sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${JSON.stringify(d.fold)}::jsonb)`);
   const folds = sql`${kept.length === 0 ? sql`` : sql`, folds as (insert into run_folds (run_id, version, state)
-      select * from unnest(${sql.param(kept.map((d) => d.run.id))}::uuid[], ${sql.param(kept.map(() => FOLD_VERSION))}::int[], ${sql.param(kept.map((d) => JSON.stringify(d.fold)))}::jsonb[])
+      values ${sql.join(foldRows, sql`, `)}
       on conflict (run_id) do update set version = excluded.version, state = excluded.state returning 1)`}${dropped.length === 0 ? sql`` : sql`, unfold as (delete from run_folds where run_id in (${sql.join(dropped, sql`, `)}) returning 1)`}`;
   const seq = sql`select last_value, is_called from sync_seq`;
   let last = 0;

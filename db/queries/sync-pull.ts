@@ -49,25 +49,30 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
   const at = readPullCursor(String(params.cursor));
   const after = (t: string) => sql`(${sql.raw(t)}.xid, ${sql.raw(t)}.server_seq) > (${at.xid}::xid8, ${at.seq}::bigint)
     and ${sql.raw(t)}.xid < (select xmin from horizon)`;
-  const changes = sql`${visibility(userId)}, horizon as (select pg_snapshot_xmin(pg_current_snapshot()) as xmin), changes as (
+  // events run by run through (run_id, xid, server_seq): a page needs at most limit + 1 of each
+  // run's, and reading every user's events after the cursor to keep the visible ones grew with the
+  // whole server (the count, `total`, takes them all)
+  const changes = (perRun: number | null) => sql`${visibility(userId)}, horizon as (select pg_snapshot_xmin(pg_current_snapshot()) as xmin), changes as (
       select 'session' as type, s.xid, s.server_seq as seq, s.id from field_sessions s
         where ${after("s")} and s.owner_id = ${userId}
       union all
-      select 'run', r.xid, r.server_seq, r.id from runs r
-        where ${after("r")} and r.id in (select id from visible_runs)
+      select 'run', r.xid, r.server_seq, r.id from visible_runs v join runs r on r.id = v.id
+        where ${after("r")}
       union all
-      select 'event', e.xid, e.server_seq, e.id from events e
-        where ${after("e")} and e.run_id in (select id from visible_runs)
+      select 'event', e.xid, e.server_seq, e.id from visible_runs v cross join lateral (
+        select e.xid, e.server_seq, e.id from events e
+        where e.run_id = v.id and ${after("e")}
+        order by e.xid, e.server_seq ${perRun === null ? sql`` : sql`limit ${perRun}`}) e
       union all
       select 'deleted', d.xid, d.server_seq, d.run_id from run_deletions d
         where ${after("d")} and ${userId}::uuid = any(d.seen_by)
     )`;
   const res = await db.execute<{ type: ChangeRow["type"] | "deleted"; seq: string; id: string; xid: string }>(
-    sql`${changes} select type, xid::text as xid, seq, id::text as id from changes order by changes.xid, seq limit ${limit + 1}`,
+    sql`${changes(limit + 1)} select type, xid::text as xid, seq, id::text as id from changes order by changes.xid, seq limit ${limit + 1}`,
   );
   const rows = res.rows.slice(0, limit);
   const hasMore = res.rows.length > limit;
-  const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
+  const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes(null)} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
   const deleted = rows.filter((r) => r.type === "deleted").map((r) => r.id);
   const changed = rows.filter((r): r is ChangeRow & { xid: string } => r.type !== "deleted");
   const [items, scope] = await Promise.all([loadItems(db, userId, changed), visibilityScope(db, userId)]);

@@ -14,9 +14,11 @@ export function visibility(userId: string) {
     with coached as (
       select pilot_id from coach_grants where coach_id = ${userId} and revoked_at is null
     ), full_runs as (
-      select r.id from runs r join field_sessions s on s.id = r.session_id
-      where s.owner_id = ${userId} or r.created_by = ${userId}
-         or exists (select 1 from run_lanes l where l.run_id = r.id and l.pilot_user_id = ${userId})
+      -- three index lookups (a run always has its session); one filter over a join of all runs
+      -- and sessions read every run on the server
+      select r.id from field_sessions s join runs r on r.session_id = s.id where s.owner_id = ${userId}
+      union select r.id from runs r where r.created_by = ${userId}
+      union select l.run_id from run_lanes l where l.pilot_user_id = ${userId}
     ), coach_lanes as (
       select l.run_id, l.lane from run_lanes l
       join runs r on r.id = l.run_id

@@ -33,8 +33,8 @@ export const events = pgTable(
   },
   (t) => [
     unique("events_device_seq_uq").on(t.deviceId, t.seq),
-    index("events_run_id_idx").on(t.runId),
-    index("events_server_seq_idx").on(t.serverSeq),
-    index("events_xid_seq_idx").on(t.xid, t.serverSeq),
+    // a pull reads each visible run's events after its cursor from here (db/queries/sync-pull.ts);
+    // the same index serves every read of a run's events and the foreign key
+    index("events_run_xid_seq_idx").on(t.runId, t.xid, t.serverSeq),
   ],
 );
