@@ -15,16 +15,15 @@ export const UNREACHABLE = "Could not reach the server. This needs a connection:
 const FALLBACK = "Something went wrong. Try again.";
 
 /**
- * THE same-origin JSON request of every screen: sends `body` as JSON (none when undefined), never
+ * THE same-origin JSON request of every screen: sends `body` as JSON (none when undefined; a write is
+ * always typed application/json, as the proxy requires), never
  * throws, and answers with the reply's body or the server's refusal (`{ error: { code, message,
  * issues } }`, lib/api.ts). A network failure is a refusal with status 0 and {@link UNREACHABLE}.
  */
 export async function sendJson<T = unknown>(method: Method, url: string, body?: unknown): Promise<Reply<T>> {
-  const init: RequestInit = { method, cache: "no-store" };
-  if (body !== undefined) {
-    init.headers = { "content-type": "application/json" };
-    init.body = JSON.stringify(body);
-  }
+  // every write says JSON, body or not: the proxy refuses a write of any other type (lib/security/request-origin.ts)
+  const init: RequestInit = { method, cache: "no-store", ...(method === "GET" ? {} : { headers: { "content-type": "application/json" } }) };
+  if (body !== undefined) init.body = JSON.stringify(body);
   const res = await fetch(url, init).catch(() => null);
   if (!res) return { ok: false, status: 0, message: UNREACHABLE };
   const data = res.status === 204 ? null : ((await res.json().catch(() => null)) as unknown);

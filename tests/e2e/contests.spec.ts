@@ -51,9 +51,9 @@ test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, 
   await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem").filter({ hasText: "Paper Pilot 10" })).toContainText("junior");
   // the officer puts two entries in a team, one of them a junior
   for (const pilot of ["Paper Pilot 1", "Paper Pilot 2"]) {
-    const details = page.getByRole("form", { name: `Team and class of ${pilot}` });
-    await details.getByLabel(`Team of ${pilot}`).fill("Updraft");
-    if (pilot === "Paper Pilot 2") await details.getByLabel(`Class of ${pilot}`).selectOption("junior");
+    const details = page.getByRole("form", { name: `Team and class of ${pilot}`, exact: true });
+    await details.getByLabel(`Team of ${pilot}`, { exact: true }).fill("Updraft");
+    if (pilot === "Paper Pilot 2") await details.getByLabel(`Class of ${pilot}`, { exact: true }).selectOption("junior");
     await details.getByRole("button", { name: "Save" }).click();
     await expect(page.getByRole("list", { name: "Entries" }).getByRole("listitem").filter({ hasText: new RegExp(`^${pilot} \\(paper\\)`) })).toContainText("team Updraft");
   }

@@ -16,12 +16,15 @@ describe("sendJson", () => {
     expect(init).toMatchObject({ method: "POST", body: '{"name":"Heron Flats"}', headers: { "content-type": "application/json" } });
   });
 
-  it("sends no body and no content type when there is none; a 204 has no data", async () => {
+  it("a write without a body still says JSON (the proxy refuses other writes with 415); a read says nothing; a 204 has no data", async () => {
     answer(204);
     expect(await sendJson("DELETE", "/api/coach-grants/1")).toEqual({ ok: true, status: 204, data: null });
     const init = vi.mocked(fetch).mock.calls[0]![1]!;
     expect(init.body).toBeUndefined();
-    expect(init.headers).toBeUndefined();
+    expect(init.headers).toEqual({ "content-type": "application/json" });
+    answer(200, {});
+    await sendJson("GET", "/api/coach-grants");
+    expect(vi.mocked(fetch).mock.calls[0]![1]!.headers).toBeUndefined(); // a new stub for the read
   });
 
   it("a refusal carries the server's code, sentence and field complaints (lib/api.ts shape)", async () => {
