@@ -8,6 +8,7 @@ import { signInAs } from "./support/auth";
  * adds paper entries up to 10 pilots, makes the draw (2 groups of 5 each round, F3K.9.1) and locks it.
  */
 test("an officer sets up a contest of 5 rounds, pilots enter, the draw is made, shown and locked; a non-member gets 404", async ({ page, browser }) => {
+  test.setTimeout(120_000);
   const name = `Frost Cup ${Date.now()}`;
   await signInAs(page, "ines@example.com");
   await page.goto("/clubs/heronmoor");

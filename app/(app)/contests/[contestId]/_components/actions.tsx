@@ -86,11 +86,13 @@ export function EntryDetails({ contestId, entryId, pilotName, team, pilotClass }
       <label className="block text-sm">Team of {pilotName}
         <input className="mt-1 block min-h-12 rounded-lg border border-line bg-raised px-2" value={teamName} maxLength={40} onChange={(e) => setTeamName(e.target.value)} />
       </label>
-      <label className="block text-sm">Class of {pilotName}
-        <select className="mt-1 block min-h-12 rounded-lg border border-line bg-raised px-2" value={klass} onChange={(e) => setKlass(e.target.value as "senior" | "junior")}>
+      {/* label by id, not around the select: a wrapping label's name would take in the options' words */}
+      <span className="block text-sm">
+        <label htmlFor={`class-${entryId}`}>Class of {pilotName}</label>
+        <select id={`class-${entryId}`} className="mt-1 block min-h-12 rounded-lg border border-line bg-raised px-2" value={klass} onChange={(e) => setKlass(e.target.value as "senior" | "junior")}>
           <option value="senior">Senior</option><option value="junior">Junior</option>
         </select>
-      </label>
+      </span>
       <Button type="submit" variant="secondary" disabled={busy}>Save</Button>
       <Alert message={error} />
     </form>
