@@ -94,8 +94,16 @@ fake_start() {
   if ! eval "$ready"; then kill -TERM "$(cat "$dir/server.pid")" 2>/dev/null || true; rm -f "$dir/server.pid" "$dir/ports"; return 1; fi
   FAKES_STARTED="$FAKES_STARTED $dir"
 }
-# fake_failed WHAT DIR: the start's log and the reason, then stop.
-fake_failed() { cat "$2/server.log" >&2; die "the local $1 did not start"; }
+# fake_up WHAT DIR TRY: unless the fake in DIR runs, calls the shell function TRY with 1, 2, 3 until one start
+# succeeds (TRY N picks free ports from its base + N - 1 and calls fake_start): a port another checkout took between
+# the check and the listen (seen here: EADDRINUSE) moves on to the next ones. Stops with the log when all fail.
+fake_up() {
+  local what="$1" dir="$2" n
+  fake_running "$dir" && return 0
+  for n in 1 2 3; do "$3" "$n" && break; done
+  fake_running "$dir" || { cat "$dir/server.log" >&2; die "the local $what did not start"; }
+  say "local $what on 127.0.0.1, ports $(cat "$dir/ports")"
+}
 # fake_port DIR [N]: the Nth (default first) port the fake in DIR listens on.
 fake_port() { cut -d' ' -f"${2:-1}" "$1/ports"; }
 # Stops the local fakes this script started (an EXIT trap).
@@ -111,19 +119,16 @@ fakes_stop_if_started() {
 # E-mail: scripts/mail-server.ts (SMTP in, messages kept in .data/mail). Exports SMTP_URL (the app sends there)
 # and DEV_MAILBOX_URL (its message list: /dev/mailbox and the tests read it).
 MAIL_DIR="$ROOT/.data/mail"
+mail_try() {
+  local smtp http
+  smtp="$(free_port $((${WINDOWCALL_SMTP_PORT:-2525} + $1 - 1)))"
+  http="$(free_port $((${WINDOWCALL_MAILBOX_PORT:-8025} + $1 - 1)))"
+  [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
+  fake_start "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
+    MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR"
+}
 mail_up() {
-  if ! fake_running "$MAIL_DIR"; then
-    local smtp http try
-    for try in 1 2 3; do # a port taken between the check and the listen: try the next ones
-      smtp="$(free_port $((${WINDOWCALL_SMTP_PORT:-2525} + try - 1)))"
-      http="$(free_port $((${WINDOWCALL_MAILBOX_PORT:-8025} + try - 1)))"
-      [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
-      fake_start "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
-        MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR" && break
-    done
-    fake_running "$MAIL_DIR" || fake_failed "mail server" "$MAIL_DIR"
-    say "local mail server: SMTP on 127.0.0.1:$smtp, messages on http://127.0.0.1:$http"
-  fi
+  fake_up "mail server (SMTP, message list)" "$MAIL_DIR" mail_try
   export SMTP_URL="smtp://127.0.0.1:$(fake_port "$MAIL_DIR")"
   export DEV_MAILBOX_URL="http://127.0.0.1:$(fake_port "$MAIL_DIR" 2)"
 }
@@ -131,20 +136,16 @@ mail_up() {
 # Object storage: scripts/s3-server.ts (s3rver, objects in .data/s3, the private bucket $S3_BUCKET created at
 # start). Exports S3_ENDPOINT and the fake's keys unless S3_ENDPOINT is already set (a real service).
 S3_RUN="$ROOT/.data/s3-server"
+s3_try() {
+  local port
+  port="$(free_port $((${WINDOWCALL_S3_PORT:-4569} + $1 - 1)))"
+  # ready once it says so: the bucket is made after the port opens
+  fake_start "$S3_RUN" s3-server.ts "grep -q 's3rver on' '$S3_RUN/server.log'" "$port" S3_PORT="$port" S3_DIR="$ROOT/.data/s3"
+}
 s3_up() {
   [ -n "${S3_ENDPOINT:-}" ] && return 0
   export S3_BUCKET="${S3_BUCKET:-windowcall-logs}" S3_REGION="${S3_REGION:-us-east-1}"
-  if ! fake_running "$S3_RUN"; then
-    local port try
-    for try in 1 2 3; do
-      port="$(free_port $((${WINDOWCALL_S3_PORT:-4569} + try - 1)))"
-      # ready once it says so: the bucket is made after the port opens
-      fake_start "$S3_RUN" s3-server.ts "grep -q 's3rver on' '$S3_RUN/server.log'" "$port" \
-        S3_PORT="$port" S3_DIR="$ROOT/.data/s3" && break
-    done
-    fake_running "$S3_RUN" || fake_failed "object server" "$S3_RUN"
-    say "local object server: http://127.0.0.1:$port, bucket $S3_BUCKET"
-  fi
+  fake_up "object server" "$S3_RUN" s3_try
   export S3_ENDPOINT="http://127.0.0.1:$(fake_port "$S3_RUN")"
   export S3_ACCESS_KEY_ID="${S3_ACCESS_KEY_ID:-S3RVER}" S3_SECRET_ACCESS_KEY="${S3_SECRET_ACCESS_KEY:-S3RVER}"
 }
@@ -152,19 +153,15 @@ s3_up() {
 # Payments: scripts/payments-server.ts (state in .data/payments). Exports STRIPE_API_URL (the SDK's host, port and
 # protocol come from it) unless it is already set or the key is a live one (the real service).
 PAY_RUN="$ROOT/.data/payments-server"
+payments_try() {
+  local port
+  port="$(free_port $((${WINDOWCALL_PAYMENTS_PORT:-4580} + $1 - 1)))"
+  fake_start "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments"
+}
 payments_up() {
   [ -n "${STRIPE_API_URL:-}" ] && return 0
   case "${STRIPE_SECRET_KEY:-}" in sk_live_*) return 0 ;; esac
   [ -n "${STRIPE_SECRET_KEY:-}" ] && [ -n "${STRIPE_WEBHOOK_SECRET:-}" ] || die "STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET are not set (ensure_env_file writes local ones)"
-  if ! fake_running "$PAY_RUN"; then
-    local port try
-    for try in 1 2 3; do
-      port="$(free_port $((${WINDOWCALL_PAYMENTS_PORT:-4580} + try - 1)))"
-      fake_start "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" \
-        PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments" && break
-    done
-    fake_running "$PAY_RUN" || fake_failed "payments fake" "$PAY_RUN"
-    say "local payments fake: http://127.0.0.1:$port"
-  fi
+  fake_up "payments fake" "$PAY_RUN" payments_try
   export STRIPE_API_URL="http://127.0.0.1:$(fake_port "$PAY_RUN")"
 }
