@@ -4,10 +4,9 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
 import { dutyLanes, dutyText } from "@/lib/contests/timekeepers";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
-import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
-import { isQuotaError } from "@/lib/offline/storage";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
+import { openNewRun } from "./open-new-run";
 import { useFieldProfile } from "./use-field-profile";
 import { useNotifyWrite } from "./use-notify-write";
 
@@ -40,23 +39,15 @@ function DutyCard({ duty }: { duty: PulledDuty }) {
     const task = taskDefinitionSchema.safeParse(duty.task);
     if (!task.success || !profile) return setError(!profile ? "Sign in once online on this phone first." : "This round's task cannot be timed on this phone.");
     setBusy(true);
-    try {
-      const db = getWindowcallDb();
-      const now = Date.now();
-      const { lanes, slots } = dutyLanes(duty);
-      const session = await createSessionLocal(db, { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now });
-      const run = await createRunLocal(db, {
-        sessionId: session.id, task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now,
-        contest: { roundId: duty.roundId, slots },
-      });
-      notify();
-      // A full navigation: offline, the service worker serves the one precached run shell.
-      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
-      window.location.assign(`/field/run?id=${run.id}`);
-    } catch (e) {
-      setBusy(false);
-      setError(isQuotaError(e) ? "The phone's storage is full: nothing was saved." : `Nothing was saved: ${e instanceof Error ? e.message : String(e)}`);
-    }
+    const now = Date.now();
+    const { lanes, slots } = dutyLanes(duty);
+    const problem = await openNewRun(
+      { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now },
+      { task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now, contest: { roundId: duty.roundId, slots } },
+      { notify },
+    );
+    // on success the page is already leaving: busy stays, so a second tap cannot set up a second run
+    if (problem) { setBusy(false); setError(problem); }
   };
 
   return (

@@ -9,8 +9,6 @@ import { catalogueChoiceOf, planProgressKey, progressAfter } from "@/lib/field/p
 import { prepPlanKey } from "@/lib/field/prep-plan";
 import { itemTaskText } from "@/lib/coach/plan-goals";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
-import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
-import { isQuotaError } from "@/lib/offline/storage";
 import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings, type RuleSettings, type TaskLetter } from "@/lib/tasks";
 import { newWindowFormSchema, type NewWindowForm as FormValues } from "@/lib/validations/new-window-form";
 import { CustomTaskFields, EMPTY_CUSTOM, toCustomInput } from "./custom-task-fields";
@@ -24,6 +22,7 @@ import { useFieldProfile } from "./use-field-profile";
 import { useIsClient } from "./use-is-client";
 import { useNotifyWrite } from "./use-notify-write";
 import { WhoFliesFields } from "./who-flies-fields";
+import { openNewRun } from "./open-new-run";
 
 export const LAST_FIELD_KEY = "windowcall.field.last-field";
 
@@ -76,23 +75,17 @@ function NewWindowFormInner() {
     out.plan.run.task = withRuleSettings(parsed.data, settings) as unknown as Record<string, unknown>;
     setErrors({});
     setBusy(true);
-    try {
-      const db = getWindowcallDb();
-      const session = await createSessionLocal(db, out.plan.session);
-      // a window set up from a coach's plan item (and still on its task) names that item
-      const linked = coachItem && taskKey === coachItem.taskKey ? { plan: { id: coachItem.planId, item: coachItem.item } } : {};
-      const run = await createRunLocal(db, { ...out.plan.run, sessionId: session.id, ...linked });
-      localStorage.setItem(LAST_FIELD_KEY, out.plan.session.fieldName);
-      if (planPick && planItem) localStorage.setItem(planProgressKey(planPick.plan.id), JSON.stringify(progressAfter(planPick.plan, planPick.itemIndex)));
-      if (out.plan.prep) localStorage.setItem(prepPlanKey(run.id), JSON.stringify({ beganAtWallMs: Date.now(), ...out.plan.prep }));
-      notify();
-      // A full navigation: offline, the service worker serves the one precached run shell.
-      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
-      window.location.assign(`/field/run?id=${run.id}`);
-    } catch (e) {
-      setBusy(false);
-      setErrors({ save: isQuotaError(e) ? "The phone's storage is full: nothing was saved. Free some space and try again." : `Nothing was saved: ${e instanceof Error ? e.message : String(e)}` });
-    }
+    // a window set up from a coach's plan item (and still on its task) names that item
+    const linked = coachItem && taskKey === coachItem.taskKey ? { plan: { id: coachItem.planId, item: coachItem.item } } : {};
+    const problem = await openNewRun(out.plan.session, { ...out.plan.run, ...linked }, {
+      notify,
+      stored: (run) => {
+        localStorage.setItem(LAST_FIELD_KEY, out.plan.session.fieldName);
+        if (planPick && planItem) localStorage.setItem(planProgressKey(planPick.plan.id), JSON.stringify(progressAfter(planPick.plan, planPick.itemIndex)));
+        if (out.plan.prep) localStorage.setItem(prepPlanKey(run.id), JSON.stringify({ beganAtWallMs: Date.now(), ...out.plan.prep }));
+      },
+    });
+    if (problem) { setBusy(false); setErrors({ save: problem }); } // on success the page is leaving: busy stays
   };
 
   const problems = [...Object.values(errors).filter(Boolean), ...Object.keys(fe)];

@@ -3,11 +3,9 @@
 import { useState } from "react";
 import { itemTaskText, type PlanItem } from "@/lib/coach/plan-goals";
 import { planNewWindow } from "@/lib/field/new-window";
-import { getWindowcallDb } from "@/lib/offline/db";
-import { createRunLocal, createSessionLocal } from "@/lib/offline/record";
-import { isQuotaError } from "@/lib/offline/storage";
 import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings } from "@/lib/tasks";
 import { LAST_FIELD_KEY } from "./new-window-form";
+import { openNewRun } from "./open-new-run";
 import { useFieldProfile } from "./use-field-profile";
 import { useNotifyWrite } from "./use-notify-write";
 
@@ -33,21 +31,11 @@ export function StartPlanItem({ planId, index, item, formHref }: { planId: strin
     const parsed = out.ok ? taskDefinitionSchema.safeParse(out.plan.run.task) : null;
     if (!out.ok || !parsed?.success) return setError(`This task cannot be set up here: ${Object.values(out.ok ? {} : out.errors).join(" ") || "open the form."}`);
     setBusy(true);
-    try {
-      const db = getWindowcallDb();
-      const session = await createSessionLocal(db, out.plan.session);
-      const run = await createRunLocal(db, {
-        ...out.plan.run, task: withRuleSettings(parsed.data, DEFAULT_RULE_SETTINGS) as unknown as Record<string, unknown>,
-        sessionId: session.id, plan: { id: planId, item: index },
-      });
-      notify();
-      // A full navigation: offline, the service worker serves the one precached run shell.
-      // eslint-disable-next-line @next/next/no-location-assign-relative-destination
-      window.location.assign(`/field/run?id=${run.id}`);
-    } catch (e) {
-      setBusy(false);
-      setError(isQuotaError(e) ? "The phone's storage is full: nothing was saved." : `Nothing was saved: ${e instanceof Error ? e.message : String(e)}`);
-    }
+    const problem = await openNewRun(out.plan.session, {
+      ...out.plan.run, task: withRuleSettings(parsed.data, DEFAULT_RULE_SETTINGS) as unknown as Record<string, unknown>,
+      plan: { id: planId, item: index },
+    }, { notify });
+    if (problem) { setBusy(false); setError(problem); } // on success the page is leaving: busy stays
   };
 
   return (
