@@ -42,7 +42,7 @@ function DutyCard({ duty }: { duty: PulledDuty }) {
     const now = Date.now();
     const { lanes, slots } = dutyLanes(duty);
     const problem = await openNewRun(
-      { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now },
+      { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now, ...(duty.clubId ? { clubId: duty.clubId } : {}) },
       { task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now, contest: { roundId: duty.roundId, slots } },
       { notify },
     );

@@ -5,7 +5,7 @@ import type { RunEntity } from "@/lib/events/entities";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
 import type { Database } from "../index";
-import { contestEntries, contestRounds, contests, groupSlots } from "../schema";
+import { contestEntries, contestRounds, contests, groupSlots, memberships } from "../schema";
 import type { Executor } from "./sync-db";
 
 /** Who may keep time at a contest: the club's members and the contest's entered pilots with an account, by name. */
@@ -65,17 +65,20 @@ const DUTY_DAYS_AFTER = 2;
 /**
  * The contest groups a user keeps time for, with the pilots assigned to them (the phone's lanes), for
  * contests on or after two days ago (a phone syncs ahead of the day; a late sync still has them): the
- * pull's `contestDuties`. At most 1,000 groups.
+ * pull's `contestDuties`. At most 1,000 groups. A duty carries the contest's club when the timekeeper
+ * is a member (the phone's session then belongs to the club, so the run is among the club's for the
+ * officer and on its home page); an entered pilot from elsewhere times without it (a push would refuse it).
  */
 export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty[]> {
   const rows = await db.select({
-    contestId: contests.id, contestName: contests.name, fieldName: contests.fieldName, startsOn: contests.startsOn,
+    contestId: contests.id, clubId: memberships.clubId, contestName: contests.name, fieldName: contests.fieldName, startsOn: contests.startsOn,
     roundId: contestRounds.id, roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, task: contestRounds.task,
     groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId, name: contestEntries.pilotName,
   }).from(groupSlots)
     .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
     .innerJoin(contests, eq(contests.id, contestRounds.contestId))
     .innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+    .leftJoin(memberships, and(eq(memberships.clubId, contests.clubId), eq(memberships.userId, userId)))
     .where(and(
       eq(groupSlots.timekeeperUserId, userId),
       sql`${contests.startsOn} >= current_date - ${DUTY_DAYS_AFTER}::int`,
@@ -87,7 +90,7 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
   for (const r of rows) {
     const key = `${r.roundId}:${r.groupNumber}`;
     const d = duties.get(key) ?? {
-      contestId: r.contestId, contestName: r.contestName, fieldName: r.fieldName, startsOn: r.startsOn,
+      contestId: r.contestId, ...(r.clubId ? { clubId: r.clubId } : {}), contestName: r.contestName, fieldName: r.fieldName, startsOn: r.startsOn,
       roundId: r.roundId, roundNumber: r.roundNumber, groupNumber: r.groupNumber, task: r.task as Record<string, unknown>, pilots: [],
     };
     d.pilots.push({ entryId: r.entryId, name: r.name });

@@ -7,6 +7,8 @@ import { z } from "zod";
  */
 export const pulledDutySchema = z.object({
   contestId: z.uuid(),
+  /** The contest's club, only when the timekeeper is one of its members: the duty's session belongs to it. */
+  clubId: z.uuid().optional(),
   contestName: z.string().max(500),
   fieldName: z.string().max(500),
   startsOn: z.string().max(10),

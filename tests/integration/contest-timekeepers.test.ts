@@ -4,8 +4,9 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
+import { listLinkableLanes } from "@/db/queries/contest-results";
 import { listChanges } from "@/db/queries/sync-pull";
-import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships } from "@/db/schema";
+import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { PullReply } from "@/lib/validations/sync";
 import { actAs, type MockSessionUser } from "./support/session";
@@ -25,6 +26,7 @@ afterAll(async () => {
 
 let officer: MockSessionUser, member: MockSessionUser, keeper: MockSessionUser, flyer: MockSessionUser, stranger: MockSessionUser;
 let contestId = "";
+let clubId = "";
 let round1 = "";
 const ids: Record<string, string> = {};
 const today = new Date().toISOString().slice(0, 10);
@@ -37,6 +39,7 @@ beforeAll(async () => {
   await db.insert(memberships).values([
     { clubId: club!.id, userId: officer.id, role: "officer" }, { clubId: club!.id, userId: member.id, role: "member" }, { clubId: club!.id, userId: keeper.id, role: "member" },
   ]);
+  clubId = club!.id;
   const [c] = await db.insert(contests).values({ clubId: club!.id, name: "Keepers Cup", startsOn: today, fieldName: "Long Acre", drawSeed: 3 }).returning();
   contestId = c!.id;
   const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
@@ -75,7 +78,9 @@ async function timedWindow(user: MockSessionUser, names: string[], secs: number[
   actAs(user);
   const phone = recorder(deviceId());
   keeperPhone = phone;
-  const s = session(user.id);
+  // the session as the duty card makes it: the contest's club when the duty carries it (a member)
+  const duty = ((await lastPage(user.id)).contestDuties ?? []).find((d) => d.roundId === round1);
+  const s = session(user.id, duty?.clubId ? { clubId: duty.clubId } : {});
   const r = { ...run(s.id, names.map((pilotName, lane) => ({ lane, pilotName })), task), contest: { roundId: round1, slots: names.map((n, lane) => ({ lane, entryId: ids[n]! })) } };
   const events = [phone.at(r.id, T0, { kind: "window-start" }), ...names.flatMap((_, lane) => phone.flights(r.id, lane, [secs[lane]!], T0 + 1000 + lane * 500))];
   const res = await push({ deviceId: phone.id, sessions: [s], runs: [r], events });
@@ -93,7 +98,7 @@ describe("timekeepers per group", () => {
 
     const duties = (await lastPage(keeper.id)).contestDuties ?? [];
     expect(duties).toEqual([expect.objectContaining({
-      contestId, contestName: "Keepers Cup", roundId: round1, roundNumber: 1, groupNumber: 1,
+      contestId, clubId, contestName: "Keepers Cup", roundId: round1, roundNumber: 1, groupNumber: 1,
       pilots: [{ entryId: ids["Ada Fenn"], name: "Ada Fenn" }, { entryId: ids["Bo Marsh"], name: "Bo Marsh" }],
     })]);
     expect(duties[0]!.task).toMatchObject({ letter: "A" });
@@ -111,6 +116,10 @@ describe("timekeepers per group", () => {
     expect((await slot("Cy Rook")).timekeeperUserId).toBeNull();
     // the entered pilot may keep time in group 2, where they do not fly
     expect((await put({ groupNumber: 2, timekeepers: [{ entryId: ids["Cy Rook"], timekeeperUserId: flyer.id }] })).status).toBe(200);
+    // …without the club on the duty: they are not a member, and a push would refuse a session of that club
+    const [flyerDuty] = (await lastPage(flyer.id)).contestDuties ?? [];
+    expect(flyerDuty).toMatchObject({ groupNumber: 2, pilots: [{ name: "Cy Rook" }] });
+    expect(flyerDuty).not.toHaveProperty("clubId");
     // a pilot of another group is not in this one
     expect((await put({ groupNumber: 2, timekeepers: [{ entryId: ids["Ada Fenn"], timekeeperUserId: keeper.id }] })).status).toBe(422);
   });
@@ -136,6 +145,11 @@ describe("the timekeeper's run becomes the round's result", () => {
     expect(await slot("Ada Fenn")).toMatchObject({ runId, lane: 0, recordedBy: keeper.id, signedAt: null });
     expect(await slot("Bo Marsh")).toMatchObject({ runId, lane: 1 });
     expect(othersRun).not.toBe(runId);
+    // the duty's session belongs to the club, so the officer can also find and relink the run by hand
+    // (offered around the day the run was set up on: the fixtures' phone clock, not today)
+    const [created] = await db.select({ at: runs.createdAt }).from(runs).where(eq(runs.id, runId));
+    const linkable = await listLinkableLanes(db, { clubId, day: created!.at.toISOString().slice(0, 10), letter: "A" });
+    expect(linkable.filter((l) => l.runId === runId).map((l) => l.pilotName)).toEqual(["Ada Fenn", "Bo Marsh"]);
 
     actAs(member);
     const res = await resultsRoute(new Request("http://test/api?format=json"), { params: Promise.resolve({ contestId }) });
