@@ -4,7 +4,7 @@ import type { CreateContestInput } from "@/lib/validations/contests";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
-import { contestEntries, contestRounds, contests, groupSlots, models } from "../schema";
+import { clubs, contestEntries, contestRounds, contests, groupSlots, models } from "../schema";
 
 export type ContestRow = typeof contests.$inferSelect;
 export type EntryRow = typeof contestEntries.$inferSelect;
@@ -17,6 +17,12 @@ export async function createContest(db: Database, p: { clubId: string; userId: s
     await tx.insert(contestRounds).values(rounds.map((r, i) => ({ contestId: row!.id, number: i + 1, task: getCatalogueTask(r.letter) })));
     return row!;
   });
+}
+
+/** The time zone of the contest's club (IANA name; "UTC" unless an officer set one): times on contest pages are shown in it. */
+export async function contestTimeZone(db: Database, contestId: string): Promise<string> {
+  const [row] = await db.select({ zone: clubs.timeZone }).from(contests).innerJoin(clubs, eq(clubs.id, contests.clubId)).where(eq(contests.id, contestId));
+  return row?.zone ?? "UTC";
 }
 
 /** The contest's club, to check the caller's club role; null when there is no such contest. */

@@ -4,10 +4,10 @@ import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listDrawChanges } from "@/db/queries/contest-draw-changes";
 import { applyPaymentChange } from "@/db/queries/contest-payments";
-import { getContest, listSlots } from "@/db/queries/contests";
+import { contestTimeZone, getContest, listSlots } from "@/db/queries/contests";
 import { listModels } from "@/db/queries/models";
 import { hasClubRole } from "@/lib/clubs/roles";
-import { formatDate } from "@/lib/format";
+import { formatClock, formatDate } from "@/lib/format";
 import { entriesOpen, formatFee, paymentLabel, refundOnWithdrawal } from "@/lib/payments/fees";
 import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
@@ -19,10 +19,7 @@ import { MyFee, OfficerFees } from "./_components/fees";
 
 const HALVES_WORDS = { "half-up": "exact halves of 0.1 point round up", "half-even": "exact halves of 0.1 point round to even", down: "points cut off at 0.1" } as const;
 
-const closing = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 type Search = Promise<{ payment?: string | string[]; session_id?: string | string[] }>;
-
-const changedAt = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZone: "UTC" });
 
 export const metadata: Metadata = { title: "Contest" };
 export const dynamic = "force-dynamic";
@@ -33,7 +30,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}` });
-  const found = await getContest(db, contestId);
+  const [found, zone] = await Promise.all([getContest(db, contestId), contestTimeZone(db, contestId)]);
   if (!found) notFound();
   const { contest, rounds } = found;
   let { entries } = found;
@@ -65,7 +62,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
         </p>
         {(contest.entryFeeCents !== null || contest.entriesCloseAt) && (
           <p>{contest.entryFeeCents !== null ? `Entry fee ${formatFee(contest.entryFeeCents, contest.currency)}` : "No entry fee"}
-            {contest.entriesCloseAt && ` · entries close ${closing.format(contest.entriesCloseAt)} UTC${contest.entryFeeCents !== null ? " (withdrawals before then are refunded)" : ""}`}</p>
+            {contest.entriesCloseAt && ` · entries close ${formatClock(contest.entriesCloseAt, zone)}${contest.entryFeeCents !== null ? " (withdrawals before then are refunded)" : ""}`}</p>
         )}
         <p className="text-sm">Groups of at most {contest.maxGroupSize} · preparation {contest.prepMinutes} min · no-fly {contest.noFlySeconds} s · {contest.dropRule === "f3k" ? "lowest round dropped from 6 rounds" : "every round counts"} · {HALVES_WORDS[contest.halves]} · rules {contest.rulesEdition.replace("-", " ")}</p>
       </header>
@@ -109,7 +106,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
           </p>
         )}
         <DrawLists slots={slots} names={names} letters={letters} />
-        <DrawChangeList changes={changes.map((c) => ({ id: c.id, summary: c.summary, by: c.by, at: `${changedAt.format(c.at)} UTC` }))} />
+        <DrawChangeList changes={changes.map((c) => ({ id: c.id, summary: c.summary, by: c.by, at: formatClock(c.at, zone, "short") }))} />
         {officer && slots.length > 0 && (
           <DrawChanges contestId={contestId} slots={slots} names={Object.fromEntries(names)} rounds={rounds.map((r) => r.number)} />
         )}

@@ -3,11 +3,12 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { getResultsData } from "@/db/queries/contest-results";
+import { contestTimeZone } from "@/db/queries/contests";
 import { listSignatures } from "@/db/queries/contest-timekeepers";
 import { LiveStandings } from "@/components/contests/live-standings";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { contestStandings } from "@/lib/contests/standings";
-import { formatDate } from "@/lib/format";
+import { formatClock, formatDate } from "@/lib/format";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../../_components/guard";
 import { PrintButton, PublicLink } from "./_components/results-tools";
@@ -21,7 +22,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/results` });
-  const [data, signatures] = await Promise.all([getResultsData(db, contestId), listSignatures(db, contestId)]);
+  const [data, signatures, zone] = await Promise.all([getResultsData(db, contestId), listSignatures(db, contestId), contestTimeZone(db, contestId)]);
   if (!data) notFound();
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
   const api = `/api/contests/${contestId}/results`;
@@ -39,7 +40,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
           <ul aria-label="Signatures" className="space-y-1">
             {signatures.map((s) => (
               <li key={`${s.isFlyOff}:${s.roundNumber}:${s.groupNumber}:${s.name}`}>
-                {s.isFlyOff ? "Fly-off round" : "Round"} {s.roundNumber}, group {s.groupNumber}, {s.name}: signed {s.signedAt!.toISOString().slice(0, 16).replace("T", " ")} UTC, {s.signedFrom ?? "signed"}
+                {s.isFlyOff ? "Fly-off round" : "Round"} {s.roundNumber}, group {s.groupNumber}, {s.name}: signed {formatClock(s.signedAt!, zone, "short")}, {s.signedFrom ?? "signed"}
               </li>
             ))}
           </ul>
