@@ -12,6 +12,8 @@ type Options = {
   then?: string;
   /** false: leave the page as it is on success (the caller shows the outcome itself). */
   refresh?: boolean;
+  /** The caller leaves the page on success (to another site): busy stays true, so a second tap sends nothing. */
+  leaving?: boolean;
 };
 
 /**
@@ -31,7 +33,7 @@ export function useSend() {
       setBusy(true);
       setError(null);
       const reply = await sendJson<T>(method, url, body);
-      setBusy(false);
+      if (!reply.ok || !options.leaving) setBusy(false);
       if (!reply.ok) {
         setError(reply.issues?.map((i) => i.message).join(" ") || reply.message);
         return reply;

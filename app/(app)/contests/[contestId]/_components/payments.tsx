@@ -1,6 +1,4 @@
 "use client";
-import { useState } from "react";
-import { sendJson } from "@/components/request/json";
 import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 
@@ -8,18 +6,15 @@ const Alert = ({ message }: { message: string | null }) => (message ? <p role="a
 
 /** The pilot pays (again) for their entry: a new Checkout page of the payments service, then back here. */
 export function PayButton({ contestId, entryId, label }: { contestId: string; entryId: string; label: string }) {
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { send, busy, error } = useSend();
   async function pay() {
-    setBusy(true);
-    const reply = await sendJson<{ checkoutUrl: string }>("POST", `/api/contests/${contestId}/entries/${entryId}/checkout`);
-    if (reply.ok) window.location.assign(reply.data.checkoutUrl);
-    else { setBusy(false); setMessage(reply.message); }
+    const reply = await send<{ checkoutUrl: string }>("POST", `/api/contests/${contestId}/entries/${entryId}/checkout`, undefined, { refresh: false, leaving: true });
+    if (reply?.ok) window.location.assign(reply.data.checkoutUrl);
   }
   return (
     <div className="space-y-1">
       <Button type="button" onClick={() => void pay()} disabled={busy}>{label}</Button>
-      <Alert message={message} />
+      <Alert message={error} />
     </div>
   );
 }
