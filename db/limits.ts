@@ -45,6 +45,8 @@ function build() {
     /** One-time coach codes typed in: 10 an hour per account, 60 an hour per address (nobody guesses codes). */
     coachClaims: make("coach-claims", 10, HOUR),
     coachClaimsFrom: make("coach-claims-from", 60, HOUR),
+    /** Offers of one's season (e-mail or one-time code): 20 an hour per account; every open code is one more a guesser could hit. */
+    coachOffers: make("coach-offers", 20, HOUR),
   };
 }
 

@@ -60,6 +60,14 @@ export async function invitationLimit(userId: string, email: string): Promise<Re
   return null;
 }
 
+/** A pilot's offers of their season to a coach (e-mail or code): 20 an hour per account. */
+export async function coachOfferLimit(userId: string): Promise<Response | null> {
+  const limiter = getLimiters().coachOffers;
+  const res = await count(limiter, userId);
+  if (res.consumedPoints <= limiter.points) return null;
+  return tooMany("Too many offers from this account. Try again later, or revoke an offer you no longer need.", res.msBeforeNext);
+}
+
 /**
  * One-time coach codes a signed-in user types in (POST /api/coach/claim): 10 an hour per account
  * and, when the address is visible, 60 an hour per address, so nobody guesses a pilot's code.

@@ -97,6 +97,16 @@ describe("a pilot grants a coach their season", () => {
     expect((await seasonOf(pilot.id)).status).toBe(404); // the right code, too late: no grant
   });
 
+  it("limits offers to 20 an hour per account: the 21st is a 429 and makes no offer", async () => {
+    const pilot = await verifiedUser("offer-limit");
+    actAs(pilot);
+    for (let i = 0; i < 20; i++) expect((await offer(json(i % 2 ? { kind: "code" } : { kind: "email", email: `coach${i}@example.org` }))).status).toBe(201);
+    const limited = await offer(json({ kind: "email", email: "one-more@example.org" }));
+    expect(limited.status).toBe(429);
+    expect(((await limited.json()) as { error: { code: string } }).error.code).toBe("rate_limited");
+    expect((await grantsOf(pilot)).filter((g) => g.kind === "email" || g.kind === "code")).toHaveLength(20);
+  });
+
   it("refuses bad input with a 4xx and changes nothing; another pilot cannot revoke", async () => {
     const pilot = await verifiedUser("bad-pilot");
     actAs(pilot);
