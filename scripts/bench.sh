@@ -30,7 +30,7 @@ trap 'exit 143' TERM
 drop_bench_db # a database left by a run that was killed outright
 psql "$ADMIN_URL" -qc "create database $BENCH_DB" >/dev/null
 npx tsx scripts/migrate.ts
-# the demo (the Lighthouse and tap benches sign in as its pilot); the benches add users of their own
+# the demo (the Lighthouse bench signs in as its pilot); the other benches add users of their own
 npx tsx --conditions=react-server scripts/seed.ts
 
 CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
