@@ -21,6 +21,8 @@ const LAST_HEIGHT_BIN = 10;
  */
 export async function getSeasonSummary(db: Database, params: { pilotId: string; filters: SeasonFilters; now: Date }): Promise<SeasonSummary> {
   const now = params.now.toISOString();
+  // the start of last month and of next month (UTC), as month_starts works them out: the months' flights are read from their lanes only
+  const [lastStart, nextStart] = [-1, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
   const res = await db.execute<{ summary: SeasonSummary }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
     weekly_turnaround as (
@@ -43,7 +45,8 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
     ), month_flights as (
       select ${sql.join(["this", "last"].map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
           filter (where ${sql.raw(`f.created_at >= ms.${m} and f.created_at < ms.${m} + interval '1 month'`)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
-      from season_flights f, month_starts ms where f.turnaround_ms is not null
+      from season_flights f, month_starts ms
+      where f.turnaround_ms is not null and f.created_at >= ${lastStart}::timestamptz and f.created_at < ${nextStart}::timestamptz
     ), weekly_lanes as (
       select sl.week, count(*)::int as windows, sum(sl.flight_count)::int as launches, count(sl.lost_tenths)::int as with_lost,
         ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)}) filter (where sl.lost_tenths is not null)::int as ${sql.identifier(k)}`), sql`, `)},
@@ -73,10 +76,10 @@ export async function getSeasonSummary(db: Database, params: { pilotId: string; 
             count(*) filter (where time_tenths < target_sec * 10)::int as under,
             coalesce(round(avg(time_tenths - target_sec * 10) filter (where time_tenths > target_sec * 10)), 0)::int as "meanOverTenths",
             coalesce(round(avg(target_sec * 10 - time_tenths) filter (where time_tenths < target_sec * 10)), 0)::int as "meanUnderTenths"
-          from season_flights where target_sec is not null and land_ms is not null group by 1) t), '[]'),
+          from season_target_flights where landed group by 1) t), '[]'),
       'durations', coalesce((select json_agg(json_build_object('fromSec', bin * ${BIN_SEC}, 'toSec', case when bin < ${LAST_BIN} then (bin + 1) * ${BIN_SEC} end, 'flights', n) order by bin) from (
           select least(time_tenths / ${BIN_SEC * 10}, ${LAST_BIN}) as bin, count(*)::int as n
-          from season_flights where land_ms is not null group by 1) h), '[]'),
+          from season_flights where landed group by 1) h), '[]'),
       'launchesByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)}, 'windows', w.windows, 'launches', w.launches) order by w.week)
           from weekly_lanes w), '[]'),
       'lostByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)},
