@@ -4,6 +4,7 @@ import type { ClockEstimate } from "@/lib/clock";
 import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
 import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
+import { isTurnaround } from "./season/turnaround";
 import type { Tx } from "./sync-db";
 
 type Db = Database | Tx;
@@ -44,7 +45,8 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
     select r.id as run_id, s.field_name as session_field, r.created_at, r.created_by, r.task_code,
       (ch.run_id is not null) as chosen, l.lane, l.pilot_user_id, l.result_tenths, l.needs_review, l.derived,
       case when r.created_by = l.pilot_user_id then null else coalesce(c.status::text, 'pending') end as status,
-      (select array_agg(lf.ground_ms order by lf.position) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane) as ground
+      (select array_agg(case when ${isTurnaround(sql`lf.ground_ms`, sql`r.flights_on_signal`)} then lf.ground_ms end order by lf.position)
+        from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane) as ground
     from cand
     join runs r on r.id = cand.id
     join field_sessions s on s.id = r.session_id

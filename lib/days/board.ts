@@ -20,7 +20,10 @@ export type BoardLaneInput = {
   needsReview: boolean;
   /** run_lanes.derived as stored. */
   derived: unknown;
-  /** lane_flights.ground_ms of the lane's flights (null: first flight, or the previous one never landed). */
+  /**
+   * The lane's flights' turnarounds: lane_flights.ground_ms where it counts as one (db/queries/season/turnaround.ts
+   * isTurnaround), else null (first flight, previous one never landed, or a task whose flights start on a signal).
+   */
   groundMs: readonly (number | null)[];
 };
 

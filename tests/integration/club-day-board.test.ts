@@ -10,6 +10,7 @@ import type { DayBoardView } from "@/db/queries/club-day-board";
 import { clubFields, clubs, memberships } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
+import { getCatalogueTask } from "@/lib/tasks";
 import { addPhone, dayRun, measure, type Phone } from "./support/day-records";
 
 /**
@@ -25,6 +26,12 @@ import { addPhone, dayRun, measure, type Phone } from "./support/day-records";
  *   ground 3.0 s; p1 also timed it, missing the first flight: 25→90 = 60.0 — recorded differently.
  * - R8 Sat 13 June 15:00 P3 own at "Elsewhere" (p3): 5→50 = 45.0; P3 chooses the day for it.
  * - R10 P3 own (p10), true 00:10 on the 14th (its phone said 23:40 on the 13th): 5→35 = 30.0.
+ * - RC Sat 13 June 16:00 P3 own at "Elsewhere" (p3), task C of three attempts (signals at 0, 300, 600 s),
+ *   which P3 chooses for the day: 1→5 = 4.0; 310→490 launched 10 s after its signal = 0 (F3K.11 "Task C
+ *   details": a launch later than 3 s after the signal scores zero); 601→800 = 199.0, capped at 180.0
+ *   (3 min per attempt, from memory; the catalogue's capSec) → 184.0. Its stored ground times are
+ *   5.0 s and −189.0 s (each attempt timed from its own signal), neither a turnaround: every flight of
+ *   task C waits for a signal (db/queries/season/turnaround.ts, common practice).
  * Left out: R4 (P1 timed P3, who disputed it), R5 (South Field, no day there), R6 (the 15th),
  * R7 (a non-member at North Meadow), R9 (p9, true 23:45 on the 13th though its phone said 00:15 on the 14th).
  */
@@ -89,13 +96,19 @@ beforeAll(async () => {
   await measure(p3, at("2026-06-13T15:00:00Z") - 60_000);
   ids.R9 = await dayRun({ creatorId: P3.id, field: "North Meadow", at: "2026-06-13T23:45:00Z", pilots: [P3.id], records: [{ phone: p9, signals: true, lanes: { 0: [[5, 65]] } }] });
   ids.R10 = await dayRun({ creatorId: P3.id, field: "North Meadow", at: "2026-06-14T00:10:00Z", pilots: [P3.id], records: [{ phone: p10, signals: true, lanes: { 0: [[5, 35]] } }] });
+  ids.RC = await dayRun({
+    creatorId: P3.id, field: "Elsewhere", at: "2026-06-13T16:00:00Z", pilots: [P3.id], task: getCatalogueTask("C", 3),
+    records: [{ phone: p3, signals: [0, 300, 600], lanes: { 0: [[1, 5], [310, 490], [601, 800]] } }],
+  });
 
-  // P3 chooses the day for R8 from its run page
+  // P3 chooses the day for R8 and RC from their run pages
   actAs(P3);
   const offered = await choicesRoute(new Request("http://test/api"), { params: Promise.resolve({ runId: ids.R8! }) });
   expect(((await offered.json()) as { days: { dayId: string }[] }).days.map((d) => d.dayId)).toContain(dayId);
-  const chose = await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId: ids.R8! }) });
-  expect(chose.status).toBe(200);
+  for (const runId of [ids.R8!, ids.RC!]) {
+    const chose = await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId }) });
+    expect(chose.status).toBe(200);
+  }
 
   const got = await getBoard(P2);
   expect(got.status).toBe(200);
@@ -109,9 +122,9 @@ afterAll(async () => {
 
 describe("Day board: which runs belong to the day", () => {
   it("members' runs at the day's field on the day (by corrected start), and the run a pilot chose; in order of start", () => {
-    expect(board.runs.map((r) => Object.entries(ids).find(([, id]) => id === r.runId)![0])).toEqual(["R8", "R10", "R1", "R2", "R3"]);
+    expect(board.runs.map((r) => Object.entries(ids).find(([, id]) => id === r.runId)![0])).toEqual(["R8", "RC", "R10", "R1", "R2", "R3"]);
     expect(board.runs.map((r) => r.startMs)).toEqual(
-      ["2026-06-13T15:00:00Z", "2026-06-14T00:10:00Z", "2026-06-14T10:00:00Z", "2026-06-14T10:20:00Z", "2026-06-14T11:05:00Z"].map(at),
+      ["2026-06-13T15:00:00Z", "2026-06-13T16:00:00Z", "2026-06-14T00:10:00Z", "2026-06-14T10:00:00Z", "2026-06-14T10:20:00Z", "2026-06-14T11:05:00Z"].map(at),
     );
     expect(board.runs.find((r) => r.runId === ids.R3)!.fieldName).toBe("North Meadow");
   });
@@ -122,6 +135,7 @@ describe("Day board: which runs belong to the day", () => {
     expect(lanes[ids.R2!]).toMatchObject({ pilotId: P2.id, resultTenths: 870, pending: true, timedBy: P1.id });
     expect(lanes[ids.R3!]).toMatchObject({ pilotId: P2.id, resultTenths: 800, pending: false, timedBy: P2.id });
     expect(lanes[ids.R10!]!.resultTenths).toBe(300);
+    expect(lanes[ids.RC!]!.resultTenths).toBe(40 + 0 + 1800);
     expect(lanes[ids.R3!]!.flights.map((f) => [f.launchAtMs, f.landAtMs, f.timeTenths])).toEqual([
       [at("2026-06-14T11:05:02Z"), at("2026-06-14T11:05:22Z"), 200],
       [at("2026-06-14T11:05:25Z"), at("2026-06-14T11:06:30Z"), 650],
@@ -130,6 +144,7 @@ describe("Day board: which runs belong to the day", () => {
 
   it("best results per task, each pilot's best with their number of windows", () => {
     expect(board.best).toEqual([
+      { taskCode: "C", rows: [{ pilotId: P3.id, resultTenths: 1840, runId: ids.RC, windows: 1 }] },
       { taskCode: "custom", rows: [
         { pilotId: P1.id, resultTenths: 1600, runId: ids.R1, windows: 1 },
         { pilotId: P2.id, resultTenths: 870, runId: ids.R2, windows: 2 },
@@ -139,11 +154,13 @@ describe("Day board: which runs belong to the day", () => {
   });
 
   it("flight-time leaders (longest, then total) and turnaround leaders (median ground time)", () => {
+    // RC's late launch timed nothing: not a flight here
     expect(board.flightLeaders).toEqual([
+      { pilotId: P3.id, longestTenths: 1990, totalTenths: 450 + 300 + 40 + 1990, flights: 4 },
       { pilotId: P1.id, longestTenths: 676, totalTenths: 550 + 676 + 450, flights: 3 },
       { pilotId: P2.id, longestTenths: 650, totalTenths: 300 + 570 + 200 + 650, flights: 4 },
-      { pilotId: P3.id, longestTenths: 450, totalTenths: 450 + 300, flights: 2 },
     ]);
+    // RC's stored ground times (5.0 s, −189.0 s) are waits for task C's signals: P3 has no turnaround
     expect(board.turnaroundLeaders).toEqual([
       { pilotId: P2.id, medianGroundMs: 3000, turns: 2 },
       { pilotId: P1.id, medianGroundMs: (2400 + 5000) / 2, turns: 2 },
