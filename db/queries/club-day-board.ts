@@ -4,6 +4,7 @@ import type { ClockEstimate } from "@/lib/clock";
 import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
 import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
+import { fieldKeySql } from "./club-day-locks";
 import { isTurnaround } from "./season/turnaround";
 import type { Tx } from "./sync-db";
 
@@ -31,7 +32,7 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
   const to = new Date(endMs + DAY_MS).toISOString();
   const res = await db.execute<LaneRow>(sql`
     with d as (select id, field_id from club_days where club_id = ${params.clubId} and day = ${params.day}::date),
-    names as (select lower(regexp_replace(btrim(f.name), '\\s+', ' ', 'g')) as k from club_fields f join d on d.field_id = f.id),
+    names as (select ${fieldKeySql(sql`f.name`)} as k from club_fields f join d on d.field_id = f.id),
     chosen as (
       select distinct cr.run_id from club_day_runs cr join d on d.id = cr.day_id where not ${params.frozen}
       union select k.run_id from club_day_closed_runs k join d on d.id = k.day_id where ${params.frozen}
@@ -39,7 +40,7 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
     cand as (
       select r.id from runs r join field_sessions s on s.id = r.session_id
       where not ${params.frozen} and r.created_at >= ${from}::timestamptz and r.created_at < ${to}::timestamptz
-        and lower(regexp_replace(btrim(s.field_name), '\\s+', ' ', 'g')) in (select k from names)
+        and ${fieldKeySql(sql`s.field_name`)} in (select k from names)
       union select run_id from chosen
     )
     select r.id as run_id, s.field_name as session_field, r.created_at, r.created_by, r.task_code,
