@@ -4,6 +4,7 @@ import type { ClockEstimate } from "@/lib/clock";
 import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
 import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
+import { withDecisions } from "./club-day-decided";
 import { fieldKeySql } from "./club-day-locks";
 import { isTurnaround } from "./season/turnaround";
 import type { Tx } from "./sync-db";
@@ -152,8 +153,13 @@ export async function getDayBoard(db: Database, params: { clubId: string; day: s
   if (days.length === 0) return null;
   const fields = days.map((r) => ({ id: r.field_id, name: r.name }));
   const timeZone = await clubTimeZone(db, params.clubId);
-  const lanes = await dayLanes(db, { ...params, timeZone, days });
-  const runIds = [...new Set(lanes.map((l) => l.runId))];
+  const stored = await dayLanes(db, { ...params, timeZone, days });
+  const runIds = [...new Set(stored.map((l) => l.runId))];
+  const decisions = await db.execute<DecisionRow>(sql`
+    select run_id, lane, device_id, note, decided_by, decided_at from club_day_decisions
+    where club_id = ${params.clubId} and day = ${params.day}::date and run_id = any(${uuids(runIds)})`);
+  // the officer's decisions: the record each names stands in the board's results, leaders and lift
+  const lanes = await withDecisions(db, stored, decisions.rows);
 
   const deviceIds = new Set<string>();
   for (const l of lanes) {
@@ -166,9 +172,6 @@ export async function getDayBoard(db: Database, params: { clubId: string; day: s
     dayBounds(params.day, timeZone),
   );
 
-  const decisions = await db.execute<DecisionRow>(sql`
-    select run_id, lane, device_id, note, decided_by, decided_at from club_day_decisions
-    where club_id = ${params.clubId} and day = ${params.day}::date and run_id = any(${uuids(runIds)})`);
   const decisionOf = new Map(decisions.rows.map((r) => [`${r.run_id}:${r.lane}`, r]));
   const disagreements = board.disagreements.map((d) => {
     const r = decisionOf.get(`${d.runId}:${d.lane}`);

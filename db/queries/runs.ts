@@ -163,6 +163,23 @@ export async function storeDerivations(
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
 
+/**
+ * These runs' lanes derived from all their stored events as storeDerivations derives them in full (the
+ * same facts, events and estimates), with records chosen by hand in place of the conflict rules' pick:
+ * `standing` is run → lane → device (lib/results DerivationInput.standing). Reads only; stores nothing:
+ * a club day's decisions are the day's (db/queries/club-day-board.ts), not the run's stored result.
+ */
+export async function deriveWithStanding(tx: Tx, standing: ReadonlyMap<string, ReadonlyMap<number, string>>): Promise<Map<string, LaneDerivation[]>> {
+  const out = new Map<string, LaneDerivation[]>();
+  if (standing.size === 0) return out;
+  const load = await loadForPush(tx, { runIds: [...standing.keys()], eventIds: [], deviceId: "", seqs: [], allEvents: true });
+  for (const run of load.runs.values()) {
+    const events = [...(run.events ?? [])].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+    out.set(run.id, deriveRun({ ...factsOf(run), events, estimatesByDevice: load.estimates, standing: standing.get(run.id) }));
+  }
+  return out;
+}
+
 /** Derive every run in the database (the demo seed stores events without results). */
 export async function deriveAllRuns(tx: Tx, chunk = 200): Promise<number> {
   const all = await tx.select({ id: runs.id }).from(runs).orderBy(runs.serverSeq);

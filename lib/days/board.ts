@@ -1,6 +1,7 @@
 // The Day board's aggregates, from the lanes of the runs that belong to the day (matching.ts).
-// Every result is the stored lane result (run_lanes.result_tenths, derived by lib/results
-// runResult): the board adds nothing of its own to a run's score. Pure: no framework, no I/O.
+// Every result is the lane's runResult: the stored one (run_lanes.result_tenths), or for a lane an
+// officer decided, runResult with the chosen record standing (db/queries/club-day-decided.ts). The
+// board adds nothing of its own to a run's score. Pure: no framework, no I/O.
 import { offsetAt, type ClockEstimate } from "@/lib/clock";
 import { flightInstants } from "@/lib/results/flight-instants";
 import { median } from "@/lib/hangar/stats";
@@ -25,6 +26,8 @@ export type BoardLaneInput = {
    * isTurnaround), else null (first flight, previous one never landed, or a task whose flights start on a signal).
    */
   groundMs: readonly (number | null)[];
+  /** The result follows an officer's decision on the day (db/queries/club-day-decided.ts), not the stored one. */
+  decided?: boolean;
 };
 
 export type BoardDevice = {
@@ -50,6 +53,8 @@ export type BoardRun = {
     pending: boolean;
     needsReview: boolean;
     resultTenths: number | null;
+    /** The result is the record an officer chose for the day, not the conflict rules' (the run page keeps theirs). */
+    decided: boolean;
     /** Who timed it: the recorder of the version the result comes from (the creator when no version yet). */
     timedBy: string;
     flights: { launchAtMs: number; landAtMs: number | null; timeTenths: number }[];
@@ -148,7 +153,7 @@ export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonl
     const versions = versionsOf(l.derived);
     const timedBy = versions.find((v) => v.chosen)?.recordedBy ?? l.createdBy;
     const flights = flightInstants(l.derived).map((f) => ({ launchAtMs: f.launchAtMs, landAtMs: f.landAtMs, timeTenths: f.timeTenths }));
-    run.lanes.push({ lane: l.lane, pilotId: l.pilotId, pending: l.consent === "pending", needsReview: l.needsReview, resultTenths: l.resultTenths, timedBy, flights });
+    run.lanes.push({ lane: l.lane, pilotId: l.pilotId, pending: l.consent === "pending", needsReview: l.needsReview, resultTenths: l.resultTenths, decided: l.decided === true, timedBy, flights });
 
     if (l.resultTenths !== null) {
       const perPilot = best.get(l.taskCode) ?? new Map<string, BestRow>();

@@ -275,8 +275,42 @@ describe("Day board: an officer decides a lane two phones recorded differently",
     got = (await getBoard(P2)).body.disagreements[0]!.decision!;
     expect(got).toMatchObject({ deviceId: null, note: "Ask the pilot", decidedBy: P1.id });
     expect((await db.execute(sql`select 1 from club_day_decisions where run_id = ${ids.R3}`)).rows).toHaveLength(1);
-    // the result stays runResult's (run_lanes.result_tenths): a decision is recorded, not scored here
-    expect((await getBoard(P2)).body.runs.find((r) => r.runId === ids.R3)!.lanes[0]!.resultTenths).toBe(800);
+    // a note only: the board is the conflict rules' again (P2's own record, 80.0)
+    const noted = (await getBoard(P2)).body;
+    expect(noted.runs.find((r) => r.runId === ids.R3)!.lanes[0]).toMatchObject({ resultTenths: 800, decided: false, timedBy: P2.id });
+    expect({ ...noted, disagreements: [] }).toEqual({ ...board, disagreements: [] });
+  });
+
+  /**
+   * P1's record of R3 (p1 missed the first flight: 25→90 only) chosen for the day, by hand: R3 is 60.0
+   * (65.0 capped at 60 s); P2's flights of the day are 30.0, 57.0 (R2) and 65.0 — longest 65.0, total
+   * 152.0, three flights; P2's one turnaround is R2's 3.0 s (p1's record of R3 has one flight, no ground
+   * time); P1 timed two of P2's lanes. Lift: P2's median becomes 57.0, so the 10:15 quarter (30.0, 57.0)
+   * has no lift and the 11:00 quarter (65.0) has (65.0 − 57.0) / 57.0; seven flights on the day.
+   * P2's best stays R2's 87.0 (R3 is 60.0 either way below it).
+   */
+  it("the record that stands is the board's result, leaders, timers and lift (runResult with it chosen); the stored result is left", async () => {
+    expect((await decide(P1, { runId: ids.R3, lane: 0, deviceId: phones.p1.id, note: "P2's first launch was a test throw" })).status).toBe(200);
+    const b = (await getBoard(P2)).body;
+    const lane = b.runs.find((r) => r.runId === ids.R3)!.lanes[0]!;
+    expect(lane).toMatchObject({ pilotId: P2.id, resultTenths: 600, decided: true, timedBy: P1.id });
+    expect(lane.flights.map((f) => [f.launchAtMs, f.landAtMs, f.timeTenths])).toEqual([[at("2026-06-14T11:05:25Z"), at("2026-06-14T11:06:30Z"), 650]]);
+    expect(b.disagreements[0]!.versions.map((v) => [v.deviceId, v.chosen, v.resultTenths])).toEqual([[phones.p1.id, true, 600], [phones.p2.id, false, 800]]);
+    expect(b.best.find((t) => t.taskCode === "custom")!.rows.find((r) => r.pilotId === P2.id)).toEqual({ pilotId: P2.id, resultTenths: 870, runId: ids.R2, windows: 2 });
+    expect(b.flightLeaders.find((f) => f.pilotId === P2.id)).toEqual({ pilotId: P2.id, longestTenths: 650, totalTenths: 300 + 570 + 650, flights: 3 });
+    expect(b.turnaroundLeaders).toEqual([
+      { pilotId: P2.id, medianGroundMs: 3000, turns: 1 },
+      { pilotId: P1.id, medianGroundMs: (2400 + 5000) / 2, turns: 2 },
+    ]);
+    expect(b.timed).toEqual([{ timerId: P1.id, pilotId: P2.id, lanes: 2 }]);
+    const bin = (iso: string) => b.lift.find((x) => x.startMs === at(iso))!;
+    expect(bin("2026-06-14T10:15:00Z")).toMatchObject({ flights: 2, lift: 0 });
+    expect(bin("2026-06-14T11:00:00Z").flights).toBe(1);
+    expect(bin("2026-06-14T11:00:00Z").lift).toBeCloseTo((650 - 570) / 570, 9);
+    expect(b.lift.reduce((n, x) => n + x.flights, 0)).toBe(7);
+    // the run's stored result (run page, logbook, Season) stays the conflict rules': the decision is the day's
+    const stored = await db.execute<{ result_tenths: number }>(sql`select result_tenths from run_lanes where run_id = ${ids.R3} and lane = 0`);
+    expect(stored.rows[0]!.result_tenths).toBe(800);
   });
 });
 
