@@ -22,13 +22,17 @@ const key = (runId: string, lane: number) => `${runId}:${lane}`;
  * club's for its day (see DEVELOPERS.md "Field days and the Day board").
  */
 export async function withDecisions(db: Database, lanes: readonly BoardLaneInput[], decisions: readonly StandingDecision[]): Promise<BoardLaneInput[]> {
-  const onBoard = new Set(lanes.map((l) => key(l.runId, l.lane)));
+  const usedNow = new Map(lanes.map((l) => [key(l.runId, l.lane), (l.derived as { source?: { deviceId?: unknown } | null } | null)?.source?.deviceId]));
   const standing = new Map<string, Map<number, string>>();
+  const already = new Set<string>(); // the decision names the record the stored result already uses: nothing to derive
   for (const d of decisions) {
-    if (d.device_id === null || !onBoard.has(key(d.run_id, d.lane))) continue;
-    standing.set(d.run_id, (standing.get(d.run_id) ?? new Map<number, string>()).set(d.lane, d.device_id));
+    const k = key(d.run_id, d.lane);
+    if (d.device_id === null || !usedNow.has(k)) continue;
+    if (usedNow.get(k) === d.device_id) already.add(k);
+    else standing.set(d.run_id, (standing.get(d.run_id) ?? new Map<number, string>()).set(d.lane, d.device_id));
   }
-  if (standing.size === 0) return [...lanes];
+  const mark = (l: BoardLaneInput): BoardLaneInput => (already.has(key(l.runId, l.lane)) ? { ...l, decided: true } : l);
+  if (standing.size === 0) return lanes.map(mark);
   const derived = await db.transaction((tx) => deriveWithStanding(tx, standing));
   const decided: { runId: string; lane: number; derivation: LaneDerivation }[] = [];
   for (const [runId, byLane] of standing) {
@@ -37,7 +41,7 @@ export async function withDecisions(db: Database, lanes: readonly BoardLaneInput
       if (d && d.derived.source?.deviceId === deviceId) decided.push({ runId, lane, derivation: d });
     }
   }
-  if (decided.length === 0) return [...lanes];
+  if (decided.length === 0) return lanes.map(mark);
   const rows = decided.map((d, i) => ({ i, run_id: d.runId, flights: d.derivation.derived.flights }));
   const grounds = await db.execute<{ i: number; ground: (number | null)[] | null }>(sql`
     select x.i, (select array_agg(case when ${isTurnaround(sql`g.ground_ms`, sql`r.flights_on_signal`)} then g.ground_ms end order by g.position)
@@ -48,6 +52,6 @@ export async function withDecisions(db: Database, lanes: readonly BoardLaneInput
   const byKey = new Map(decided.map((d, i) => [key(d.runId, d.lane), { ...d.derivation, groundMs: groundOf.get(i) ?? [] }]));
   return lanes.map((l) => {
     const d = byKey.get(key(l.runId, l.lane));
-    return d ? { ...l, resultTenths: d.resultTenths, needsReview: d.needsReview, derived: d.derived, groundMs: d.groundMs, decided: true } : l;
+    return d ? { ...l, resultTenths: d.resultTenths, needsReview: d.needsReview, derived: d.derived, groundMs: d.groundMs, decided: true } : mark(l);
   });
 }

@@ -311,6 +311,12 @@ describe("Day board: an officer decides a lane two phones recorded differently",
     // the run's stored result (run page, logbook, Season) stays the conflict rules': the decision is the day's
     const stored = await db.execute<{ result_tenths: number }>(sql`select result_tenths from run_lanes where run_id = ${ids.R3} and lane = 0`);
     expect(stored.rows[0]!.result_tenths).toBe(800);
+    // choosing P2's own record (the one the rules use) gives the rules' numbers back, marked as decided
+    expect((await decide(P1, { runId: ids.R3, lane: 0, deviceId: phones.p2.id, note: "" })).status).toBe(200);
+    const back = (await getBoard(P2)).body;
+    expect(back.runs.find((r) => r.runId === ids.R3)!.lanes[0]).toMatchObject({ resultTenths: 800, decided: true, timedBy: P2.id });
+    expect(back.flightLeaders).toEqual(board.flightLeaders);
+    expect(back.turnaroundLeaders).toEqual(board.turnaroundLeaders);
   });
 });
 
