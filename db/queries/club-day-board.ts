@@ -4,6 +4,9 @@ import type { ClockEstimate } from "@/lib/clock";
 import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
 import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
+import { withDecisions } from "./club-day-decided";
+import { fieldKeySql } from "./club-day-locks";
+import { isTurnaround } from "./season/turnaround";
 import type { Tx } from "./sync-db";
 
 type Db = Database | Tx;
@@ -30,7 +33,7 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
   const to = new Date(endMs + DAY_MS).toISOString();
   const res = await db.execute<LaneRow>(sql`
     with d as (select id, field_id from club_days where club_id = ${params.clubId} and day = ${params.day}::date),
-    names as (select lower(regexp_replace(btrim(f.name), '\\s+', ' ', 'g')) as k from club_fields f join d on d.field_id = f.id),
+    names as (select ${fieldKeySql(sql`f.name`)} as k from club_fields f join d on d.field_id = f.id),
     chosen as (
       select distinct cr.run_id from club_day_runs cr join d on d.id = cr.day_id where not ${params.frozen}
       union select k.run_id from club_day_closed_runs k join d on d.id = k.day_id where ${params.frozen}
@@ -38,13 +41,14 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
     cand as (
       select r.id from runs r join field_sessions s on s.id = r.session_id
       where not ${params.frozen} and r.created_at >= ${from}::timestamptz and r.created_at < ${to}::timestamptz
-        and lower(regexp_replace(btrim(s.field_name), '\\s+', ' ', 'g')) in (select k from names)
+        and ${fieldKeySql(sql`s.field_name`)} in (select k from names)
       union select run_id from chosen
     )
     select r.id as run_id, s.field_name as session_field, r.created_at, r.created_by, r.task_code,
       (ch.run_id is not null) as chosen, l.lane, l.pilot_user_id, l.result_tenths, l.needs_review, l.derived,
       case when r.created_by = l.pilot_user_id then null else coalesce(c.status::text, 'pending') end as status,
-      (select array_agg(lf.ground_ms order by lf.position) from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane) as ground
+      (select array_agg(case when ${isTurnaround(sql`lf.ground_ms`, sql`r.flights_on_signal`)} then lf.ground_ms end order by lf.position)
+        from lane_flights lf where lf.run_id = l.run_id and lf.lane = l.lane) as ground
     from cand
     join runs r on r.id = cand.id
     join field_sessions s on s.id = r.session_id
@@ -149,8 +153,13 @@ export async function getDayBoard(db: Database, params: { clubId: string; day: s
   if (days.length === 0) return null;
   const fields = days.map((r) => ({ id: r.field_id, name: r.name }));
   const timeZone = await clubTimeZone(db, params.clubId);
-  const lanes = await dayLanes(db, { ...params, timeZone, days });
-  const runIds = [...new Set(lanes.map((l) => l.runId))];
+  const stored = await dayLanes(db, { ...params, timeZone, days });
+  const runIds = [...new Set(stored.map((l) => l.runId))];
+  const decisions = await db.execute<DecisionRow>(sql`
+    select run_id, lane, device_id, note, decided_by, decided_at from club_day_decisions
+    where club_id = ${params.clubId} and day = ${params.day}::date and run_id = any(${uuids(runIds)})`);
+  // the officer's decisions: the record each names stands in the board's results, leaders and lift
+  const lanes = await withDecisions(db, stored, decisions.rows);
 
   const deviceIds = new Set<string>();
   for (const l of lanes) {
@@ -163,9 +172,6 @@ export async function getDayBoard(db: Database, params: { clubId: string; day: s
     dayBounds(params.day, timeZone),
   );
 
-  const decisions = await db.execute<DecisionRow>(sql`
-    select run_id, lane, device_id, note, decided_by, decided_at from club_day_decisions
-    where club_id = ${params.clubId} and day = ${params.day}::date and run_id = any(${uuids(runIds)})`);
   const decisionOf = new Map(decisions.rows.map((r) => [`${r.run_id}:${r.lane}`, r]));
   const disagreements = board.disagreements.map((d) => {
     const r = decisionOf.get(`${d.runId}:${d.lane}`);

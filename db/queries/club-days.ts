@@ -57,7 +57,10 @@ export async function listClubDays(
  * the day summary: `summaryRecipients` is the members who asked for it, and it is non-empty only the
  * first time (summary_sent_at is set in the same statement), so a second close or a double press
  * mails nobody twice. The close also keeps the runs that belong to the day now (freezeDayRuns): a
- * phone that syncs after it changes no closed day's list of runs. Null when no day is open on that date.
+ * phone that syncs after it changes no closed day's list of runs. The day rows' FOR UPDATE lock orders the
+ * close against pushes, which hold the days their runs may belong to FOR SHARE (club-day-locks.ts): a push
+ * that got there first is waited for and kept, one that comes later waits and stays out. Null when no day
+ * is open on that date.
  */
 export async function closeClubDay(
   db: Database,
@@ -66,7 +69,7 @@ export async function closeClubDay(
   return db.transaction(async (tx) => {
     const closed = await tx.execute<{ closed_at: Date | string; claimed: boolean; unfrozen: boolean }>(sql`
       with old as (
-        select id, summary_sent_at, runs_frozen_at from club_days where club_id = ${params.clubId} and day = ${params.day}::date for update
+        select id, summary_sent_at, runs_frozen_at from club_days where club_id = ${params.clubId} and day = ${params.day}::date order by id for update
       )
       update club_days d set closed_at = coalesce(d.closed_at, now()), closed_by = coalesce(d.closed_by, ${params.userId}::uuid),
         summary_sent_at = coalesce(d.summary_sent_at, now())

@@ -7,6 +7,7 @@ import { deriveRun, type DerivationEvent, type LaneDerivation } from "@/lib/sync
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
 import { deviceClockEstimates, events, runs } from "../schema";
+import { holdOpenDays } from "./club-day-locks";
 import { currentServerSeq, lockRuns, type Tx } from "./sync-db";
 import { loadForPush, loadRunEvents, type LoadedRun } from "./sync-push-load";
 
@@ -71,7 +72,8 @@ export type DeriveStats = { resumed: number; full: number; reasons: string[] };
  * Derive each of these runs once and store the results in run_lanes (result, derived
  * flights/breakdown/versions, review flag) with the run's folded state (run_folds), and give each
  * run a new server_seq and this transaction's xid so devices pull the new results — in ONE
- * statement for up to 500 lanes. The caller holds the runs' row locks (lockRuns) and read `runs`
+ * statement for up to 500 lanes, which also holds FOR SHARE the open club days the runs may belong
+ * to, so a concurrent close keeps them or leaves them out whole (club-day-locks.ts). The caller holds the runs' row locks (lockRuns) and read `runs`
  * after taking them.
  *
  * A run with a folded state and `added` (the events this push stored in it) is derived from the
@@ -149,7 +151,10 @@ export async function storeDerivations(
       update run_lanes set result_tenths = v.result, derived = v.derived, needs_review = v.review, review_reason = v.reason
       from (values ${sql.join(chunk, sql`, `)}) as v(run_id, lane, result, derived, review, reason)
       where run_lanes.run_id = v.run_id and run_lanes.lane = v.lane returning 1)`;
-    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? sql`with ${restamp}${folds}${lanes} ${seq}` : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
+    // the first statement also holds the club days these runs may belong to against a concurrent close (club-day-locks.ts)
+    const first = sql`with ${restamp}${folds}${lanes}, held_days as (${holdOpenDays(idList)})
+      select last_value, is_called, (select count(*) from held_days) as held_days from sync_seq`;
+    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? first : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
     const row = r.rows[0];
     last = row && row.is_called ? Number(row.last_value) : 0;
   }
@@ -157,6 +162,23 @@ export async function storeDerivations(
 }
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
+
+/**
+ * These runs' lanes derived from all their stored events as storeDerivations derives them in full (the
+ * same facts, events and estimates), with records chosen by hand in place of the conflict rules' pick:
+ * `standing` is run → lane → device (lib/results DerivationInput.standing). Reads only; stores nothing:
+ * a club day's decisions are the day's (db/queries/club-day-board.ts), not the run's stored result.
+ */
+export async function deriveWithStanding(tx: Tx, standing: ReadonlyMap<string, ReadonlyMap<number, string>>): Promise<Map<string, LaneDerivation[]>> {
+  const out = new Map<string, LaneDerivation[]>();
+  if (standing.size === 0) return out;
+  const load = await loadForPush(tx, { runIds: [...standing.keys()], eventIds: [], deviceId: "", seqs: [], allEvents: true });
+  for (const run of load.runs.values()) {
+    const events = [...(run.events ?? [])].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+    out.set(run.id, deriveRun({ ...factsOf(run), events, estimatesByDevice: load.estimates, standing: standing.get(run.id) }));
+  }
+  return out;
+}
 
 /** Derive every run in the database (the demo seed stores events without results). */
 export async function deriveAllRuns(tx: Tx, chunk = 200): Promise<number> {

@@ -1,6 +1,7 @@
 // The Day board's aggregates, from the lanes of the runs that belong to the day (matching.ts).
-// Every result is the stored lane result (run_lanes.result_tenths, derived by lib/results
-// runResult): the board adds nothing of its own to a run's score. Pure: no framework, no I/O.
+// Every result is the lane's runResult: the stored one (run_lanes.result_tenths), or for a lane an
+// officer decided, runResult with the chosen record standing (db/queries/club-day-decided.ts). The
+// board adds nothing of its own to a run's score. Pure: no framework, no I/O.
 import { offsetAt, type ClockEstimate } from "@/lib/clock";
 import { flightInstants } from "@/lib/results/flight-instants";
 import { median } from "@/lib/hangar/stats";
@@ -20,8 +21,13 @@ export type BoardLaneInput = {
   needsReview: boolean;
   /** run_lanes.derived as stored. */
   derived: unknown;
-  /** lane_flights.ground_ms of the lane's flights (null: first flight, or the previous one never landed). */
+  /**
+   * The lane's flights' turnarounds: lane_flights.ground_ms where it counts as one (db/queries/season/turnaround.ts
+   * isTurnaround), else null (first flight, previous one never landed, or a task whose flights start on a signal).
+   */
   groundMs: readonly (number | null)[];
+  /** The result follows an officer's decision on the day (db/queries/club-day-decided.ts), not the stored one. */
+  decided?: boolean;
 };
 
 export type BoardDevice = {
@@ -47,6 +53,8 @@ export type BoardRun = {
     pending: boolean;
     needsReview: boolean;
     resultTenths: number | null;
+    /** The result is the record an officer chose for the day, not the conflict rules' (the run page keeps theirs). */
+    decided: boolean;
     /** Who timed it: the recorder of the version the result comes from (the creator when no version yet). */
     timedBy: string;
     flights: { launchAtMs: number; landAtMs: number | null; timeTenths: number }[];
@@ -145,7 +153,7 @@ export function buildDayBoard(lanes: readonly BoardLaneInput[], devices: readonl
     const versions = versionsOf(l.derived);
     const timedBy = versions.find((v) => v.chosen)?.recordedBy ?? l.createdBy;
     const flights = flightInstants(l.derived).map((f) => ({ launchAtMs: f.launchAtMs, landAtMs: f.landAtMs, timeTenths: f.timeTenths }));
-    run.lanes.push({ lane: l.lane, pilotId: l.pilotId, pending: l.consent === "pending", needsReview: l.needsReview, resultTenths: l.resultTenths, timedBy, flights });
+    run.lanes.push({ lane: l.lane, pilotId: l.pilotId, pending: l.consent === "pending", needsReview: l.needsReview, resultTenths: l.resultTenths, decided: l.decided === true, timedBy, flights });
 
     if (l.resultTenths !== null) {
       const perPilot = best.get(l.taskCode) ?? new Map<string, BestRow>();

@@ -27,7 +27,8 @@ export type RunResult = {
  * disagree. From all the run's events (SYNC.md §1, §3, §4): events go on the run's timeline
  * (lib/results/place.ts: corrected by the device's clock offset, durations inside one page
  * lifetime by the steady clock, wall-clock steps flagged for review); the conflict rules (./sources.ts)
- * pick one device's record for the run's signals and one per lane; the task engine folds them
+ * pick one device's record for the run's signals and one per lane (unless `standing` names one chosen
+ * by hand: a club day's decision); the task engine folds them
  * with the rulings that count; every other device's record is scored the same way and kept as
  * a version, and rulings that do not count are kept as notes. Whether the result counts in a
  * pilot's own record is a separate question (lib/sync/consent.ts). A launch or landing judged
@@ -48,7 +49,7 @@ export function runResult(input: DerivationInput): RunResult {
   const counted = new Map<string, DerivationEvent>();
   for (const e of signalEvents) counted.set(e.id, e);
   const lanes = input.lanes.map(({ lane, pilotUserId }): LaneDerivation => {
-    const candidates = laneSources(placed, lane, pilotUserId, roles, toTimeline);
+    const candidates = chosenFirst(laneSources(placed, lane, pilotUserId, roles, toTimeline), input.standing?.get(lane));
     const chosen = candidates[0] ?? null;
     const rulings = laneRulings(placed, lane, input.officials, new Set(candidates.map((c) => c.deviceId)));
     const notes = rulingNotes(placed, lane, new Set([...(chosen?.events ?? []), ...rulings].map((e) => e.id)), toTimeline);
@@ -73,6 +74,12 @@ export function runResult(input: DerivationInput): RunResult {
     });
   });
   return { lanes, timeline: [...counted.values()].map(toTimeline), steps, started };
+}
+
+/** The candidates with the record chosen by hand (DerivationInput.standing) first, when it is one of them. */
+function chosenFirst(candidates: Source[], deviceId: string | undefined): Source[] {
+  const i = deviceId === undefined ? -1 : candidates.findIndex((c) => c.deviceId === deviceId);
+  return i <= 0 ? candidates : [candidates[i]!, ...candidates.slice(0, i), ...candidates.slice(i + 1)];
 }
 
 /** The chosen signal record's effective window starts, in order, with their bounds. */

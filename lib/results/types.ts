@@ -25,6 +25,13 @@ export type DerivationInput = {
   events: readonly RecordedEvent[];
   /** Each device's clock estimates (server: all it stored; a phone: what it knows). */
   estimatesByDevice: ReadonlyMap<string, readonly ClockEstimate[]>;
+  /**
+   * A record chosen by hand for a lane, in place of the conflict rules' pick (lib/results/sources.ts):
+   * lane → the device whose record stands. Ignored for a lane that device did not record. Only a club
+   * day's board passes it (an officer's decision, db/queries/club-day-board.ts); the stored derivation
+   * (run_lanes, run_folds) and the phones never do.
+   */
+  standing?: ReadonlyMap<number, string>;
 };
 
 /** One device's record of a lane (or of the run's signals), as a candidate in the conflict rules. */

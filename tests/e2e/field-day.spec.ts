@@ -234,11 +234,25 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   expect(await seriousViolations(officer)).toEqual([]);
 
   const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
+  // the backup's record chosen: it is the day's result for the lane (one flight fewer), marked, and "used"
+  const runId = await pair.getAttribute("data-run-id");
+  const lane = officer.getByRole("list", { name: "Runs of the day" }).locator(`[data-run-id="${runId}"] li`).filter({ hasText: "Ada Fenwick" });
+  await expect(lane).toContainText(`, ${clubFlights} flight`);
+  await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …e-tobi/ }).check();
+  await form.getByLabel("Note", { exact: true }).fill("Trying the backup phone.");
+  await form.getByRole("button", { name: "Record the decision" }).click();
+  await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …e-tobi stands");
+  await expect(lane).toContainText(`, ${clubFlights - 1} flight`);
+  await expect(lane).toContainText("the record an officer chose for this day");
+  await expect(backup).toContainText("· used");
+  await expect(club).not.toContainText("· used");
+  // then the club phone's record (the one the rules had chosen)
   await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
   await form.getByLabel("Note", { exact: true }).fill("The backup phone missed the last landing.");
   await form.getByRole("button", { name: "Record the decision" }).click();
   await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
   await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
+  await expect(lane).toContainText(`, ${clubFlights} flight`);
   await officer.reload();
   await expect(officer.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
 

@@ -10,6 +10,7 @@ import type { DayBoardView } from "@/db/queries/club-day-board";
 import { clubFields, clubs, memberships } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
+import { getCatalogueTask } from "@/lib/tasks";
 import { addPhone, dayRun, measure, type Phone } from "./support/day-records";
 
 /**
@@ -25,6 +26,12 @@ import { addPhone, dayRun, measure, type Phone } from "./support/day-records";
  *   ground 3.0 s; p1 also timed it, missing the first flight: 25→90 = 60.0 — recorded differently.
  * - R8 Sat 13 June 15:00 P3 own at "Elsewhere" (p3): 5→50 = 45.0; P3 chooses the day for it.
  * - R10 P3 own (p10), true 00:10 on the 14th (its phone said 23:40 on the 13th): 5→35 = 30.0.
+ * - RC Sat 13 June 16:00 P3 own at "Elsewhere" (p3), task C of three attempts (signals at 0, 300, 600 s),
+ *   which P3 chooses for the day: 1→5 = 4.0; 310→490 launched 10 s after its signal = 0 (F3K.11 "Task C
+ *   details": a launch later than 3 s after the signal scores zero); 601→800 = 199.0, capped at 180.0
+ *   (3 min per attempt, from memory; the catalogue's capSec) → 184.0. Its stored ground times are
+ *   5.0 s and −189.0 s (each attempt timed from its own signal), neither a turnaround: every flight of
+ *   task C waits for a signal (db/queries/season/turnaround.ts, common practice).
  * Left out: R4 (P1 timed P3, who disputed it), R5 (South Field, no day there), R6 (the 15th),
  * R7 (a non-member at North Meadow), R9 (p9, true 23:45 on the 13th though its phone said 00:15 on the 14th).
  */
@@ -89,13 +96,19 @@ beforeAll(async () => {
   await measure(p3, at("2026-06-13T15:00:00Z") - 60_000);
   ids.R9 = await dayRun({ creatorId: P3.id, field: "North Meadow", at: "2026-06-13T23:45:00Z", pilots: [P3.id], records: [{ phone: p9, signals: true, lanes: { 0: [[5, 65]] } }] });
   ids.R10 = await dayRun({ creatorId: P3.id, field: "North Meadow", at: "2026-06-14T00:10:00Z", pilots: [P3.id], records: [{ phone: p10, signals: true, lanes: { 0: [[5, 35]] } }] });
+  ids.RC = await dayRun({
+    creatorId: P3.id, field: "Elsewhere", at: "2026-06-13T16:00:00Z", pilots: [P3.id], task: getCatalogueTask("C", 3),
+    records: [{ phone: p3, signals: [0, 300, 600], lanes: { 0: [[1, 5], [310, 490], [601, 800]] } }],
+  });
 
-  // P3 chooses the day for R8 from its run page
+  // P3 chooses the day for R8 and RC from their run pages
   actAs(P3);
   const offered = await choicesRoute(new Request("http://test/api"), { params: Promise.resolve({ runId: ids.R8! }) });
   expect(((await offered.json()) as { days: { dayId: string }[] }).days.map((d) => d.dayId)).toContain(dayId);
-  const chose = await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId: ids.R8! }) });
-  expect(chose.status).toBe(200);
+  for (const runId of [ids.R8!, ids.RC!]) {
+    const chose = await chooseRoute(json("PUT", { dayId, chosen: true }), { params: Promise.resolve({ runId }) });
+    expect(chose.status).toBe(200);
+  }
 
   const got = await getBoard(P2);
   expect(got.status).toBe(200);
@@ -109,9 +122,9 @@ afterAll(async () => {
 
 describe("Day board: which runs belong to the day", () => {
   it("members' runs at the day's field on the day (by corrected start), and the run a pilot chose; in order of start", () => {
-    expect(board.runs.map((r) => Object.entries(ids).find(([, id]) => id === r.runId)![0])).toEqual(["R8", "R10", "R1", "R2", "R3"]);
+    expect(board.runs.map((r) => Object.entries(ids).find(([, id]) => id === r.runId)![0])).toEqual(["R8", "RC", "R10", "R1", "R2", "R3"]);
     expect(board.runs.map((r) => r.startMs)).toEqual(
-      ["2026-06-13T15:00:00Z", "2026-06-14T00:10:00Z", "2026-06-14T10:00:00Z", "2026-06-14T10:20:00Z", "2026-06-14T11:05:00Z"].map(at),
+      ["2026-06-13T15:00:00Z", "2026-06-13T16:00:00Z", "2026-06-14T00:10:00Z", "2026-06-14T10:00:00Z", "2026-06-14T10:20:00Z", "2026-06-14T11:05:00Z"].map(at),
     );
     expect(board.runs.find((r) => r.runId === ids.R3)!.fieldName).toBe("North Meadow");
   });
@@ -122,6 +135,7 @@ describe("Day board: which runs belong to the day", () => {
     expect(lanes[ids.R2!]).toMatchObject({ pilotId: P2.id, resultTenths: 870, pending: true, timedBy: P1.id });
     expect(lanes[ids.R3!]).toMatchObject({ pilotId: P2.id, resultTenths: 800, pending: false, timedBy: P2.id });
     expect(lanes[ids.R10!]!.resultTenths).toBe(300);
+    expect(lanes[ids.RC!]!.resultTenths).toBe(40 + 0 + 1800);
     expect(lanes[ids.R3!]!.flights.map((f) => [f.launchAtMs, f.landAtMs, f.timeTenths])).toEqual([
       [at("2026-06-14T11:05:02Z"), at("2026-06-14T11:05:22Z"), 200],
       [at("2026-06-14T11:05:25Z"), at("2026-06-14T11:06:30Z"), 650],
@@ -130,6 +144,7 @@ describe("Day board: which runs belong to the day", () => {
 
   it("best results per task, each pilot's best with their number of windows", () => {
     expect(board.best).toEqual([
+      { taskCode: "C", rows: [{ pilotId: P3.id, resultTenths: 1840, runId: ids.RC, windows: 1 }] },
       { taskCode: "custom", rows: [
         { pilotId: P1.id, resultTenths: 1600, runId: ids.R1, windows: 1 },
         { pilotId: P2.id, resultTenths: 870, runId: ids.R2, windows: 2 },
@@ -139,11 +154,13 @@ describe("Day board: which runs belong to the day", () => {
   });
 
   it("flight-time leaders (longest, then total) and turnaround leaders (median ground time)", () => {
+    // RC's late launch timed nothing: not a flight here
     expect(board.flightLeaders).toEqual([
+      { pilotId: P3.id, longestTenths: 1990, totalTenths: 450 + 300 + 40 + 1990, flights: 4 },
       { pilotId: P1.id, longestTenths: 676, totalTenths: 550 + 676 + 450, flights: 3 },
       { pilotId: P2.id, longestTenths: 650, totalTenths: 300 + 570 + 200 + 650, flights: 4 },
-      { pilotId: P3.id, longestTenths: 450, totalTenths: 450 + 300, flights: 2 },
     ]);
+    // RC's stored ground times (5.0 s, −189.0 s) are waits for task C's signals: P3 has no turnaround
     expect(board.turnaroundLeaders).toEqual([
       { pilotId: P2.id, medianGroundMs: 3000, turns: 2 },
       { pilotId: P1.id, medianGroundMs: (2400 + 5000) / 2, turns: 2 },
@@ -258,8 +275,48 @@ describe("Day board: an officer decides a lane two phones recorded differently",
     got = (await getBoard(P2)).body.disagreements[0]!.decision!;
     expect(got).toMatchObject({ deviceId: null, note: "Ask the pilot", decidedBy: P1.id });
     expect((await db.execute(sql`select 1 from club_day_decisions where run_id = ${ids.R3}`)).rows).toHaveLength(1);
-    // the result stays runResult's (run_lanes.result_tenths): a decision is recorded, not scored here
-    expect((await getBoard(P2)).body.runs.find((r) => r.runId === ids.R3)!.lanes[0]!.resultTenths).toBe(800);
+    // a note only: the board is the conflict rules' again (P2's own record, 80.0)
+    const noted = (await getBoard(P2)).body;
+    expect(noted.runs.find((r) => r.runId === ids.R3)!.lanes[0]).toMatchObject({ resultTenths: 800, decided: false, timedBy: P2.id });
+    expect({ ...noted, disagreements: [] }).toEqual({ ...board, disagreements: [] });
+  });
+
+  /**
+   * P1's record of R3 (p1 missed the first flight: 25→90 only) chosen for the day, by hand: R3 is 60.0
+   * (65.0 capped at 60 s); P2's flights of the day are 30.0, 57.0 (R2) and 65.0 — longest 65.0, total
+   * 152.0, three flights; P2's one turnaround is R2's 3.0 s (p1's record of R3 has one flight, no ground
+   * time); P1 timed two of P2's lanes. Lift: P2's median becomes 57.0, so the 10:15 quarter (30.0, 57.0)
+   * has no lift and the 11:00 quarter (65.0) has (65.0 − 57.0) / 57.0; seven flights on the day.
+   * P2's best stays R2's 87.0 (R3 is 60.0 either way below it).
+   */
+  it("the record that stands is the board's result, leaders, timers and lift (runResult with it chosen); the stored result is left", async () => {
+    expect((await decide(P1, { runId: ids.R3, lane: 0, deviceId: phones.p1.id, note: "P2's first launch was a test throw" })).status).toBe(200);
+    const b = (await getBoard(P2)).body;
+    const lane = b.runs.find((r) => r.runId === ids.R3)!.lanes[0]!;
+    expect(lane).toMatchObject({ pilotId: P2.id, resultTenths: 600, decided: true, timedBy: P1.id });
+    expect(lane.flights.map((f) => [f.launchAtMs, f.landAtMs, f.timeTenths])).toEqual([[at("2026-06-14T11:05:25Z"), at("2026-06-14T11:06:30Z"), 650]]);
+    expect(b.disagreements[0]!.versions.map((v) => [v.deviceId, v.chosen, v.resultTenths])).toEqual([[phones.p1.id, true, 600], [phones.p2.id, false, 800]]);
+    expect(b.best.find((t) => t.taskCode === "custom")!.rows.find((r) => r.pilotId === P2.id)).toEqual({ pilotId: P2.id, resultTenths: 870, runId: ids.R2, windows: 2 });
+    expect(b.flightLeaders.find((f) => f.pilotId === P2.id)).toEqual({ pilotId: P2.id, longestTenths: 650, totalTenths: 300 + 570 + 650, flights: 3 });
+    expect(b.turnaroundLeaders).toEqual([
+      { pilotId: P2.id, medianGroundMs: 3000, turns: 1 },
+      { pilotId: P1.id, medianGroundMs: (2400 + 5000) / 2, turns: 2 },
+    ]);
+    expect(b.timed).toEqual([{ timerId: P1.id, pilotId: P2.id, lanes: 2 }]);
+    const bin = (iso: string) => b.lift.find((x) => x.startMs === at(iso))!;
+    expect(bin("2026-06-14T10:15:00Z")).toMatchObject({ flights: 2, lift: 0 });
+    expect(bin("2026-06-14T11:00:00Z").flights).toBe(1);
+    expect(bin("2026-06-14T11:00:00Z").lift).toBeCloseTo((650 - 570) / 570, 9);
+    expect(b.lift.reduce((n, x) => n + x.flights, 0)).toBe(7);
+    // the run's stored result (run page, logbook, Season) stays the conflict rules': the decision is the day's
+    const stored = await db.execute<{ result_tenths: number }>(sql`select result_tenths from run_lanes where run_id = ${ids.R3} and lane = 0`);
+    expect(stored.rows[0]!.result_tenths).toBe(800);
+    // choosing P2's own record (the one the rules use) gives the rules' numbers back, marked as decided
+    expect((await decide(P1, { runId: ids.R3, lane: 0, deviceId: phones.p2.id, note: "" })).status).toBe(200);
+    const back = (await getBoard(P2)).body;
+    expect(back.runs.find((r) => r.runId === ids.R3)!.lanes[0]).toMatchObject({ resultTenths: 800, decided: true, timedBy: P2.id });
+    expect(back.flightLeaders).toEqual(board.flightLeaders);
+    expect(back.turnaroundLeaders).toEqual(board.turnaroundLeaders);
   });
 });
 

@@ -10,8 +10,8 @@ import { sql, type SQL } from "drizzle-orm";
  * "Task C details" in RULES.md) the time from one attempt's landing to the next launch is the wait
  * for the next signal, not a turnaround a pilot practises to cut (common practice).
  * The Season's charts and flights table (scope.ts), the coach's roster (coach/roster.ts), practice-plan
- * goals (coach/plans.ts → lib/coach/plan-goals.ts) and the model page (model-record.ts) all read it
- * through this condition.
+ * goals (coach/plans.ts → lib/coach/plan-goals.ts), the model page (model-record.ts) and the Day board's
+ * turnaround leaders (club-day-board.ts) all read it through this condition.
  */
 export function isTurnaround(groundMs: SQL, flightsOnSignal: SQL): SQL {
   return sql`(${groundMs} is not null and ${groundMs} >= 0 and not ${flightsOnSignal})`;

@@ -19,8 +19,11 @@ export async function measure(phone: Phone, atTrueMs: number): Promise<void> {
   await db.insert(deviceClockEstimates).values({ deviceId: phone.id, thetaMs: phone.thetaMs, deltaMs: phone.deltaMs, measuredAtWallMs: atTrueMs - phone.thetaMs });
 }
 
-/** One phone's record in a run: the window's signals (when `signals`) and flights per lane, [launch, landing] s after `at`. */
-export type PhoneRecord = { phone: Phone; signals?: boolean; lanes: Record<number, [number, number][]> };
+/**
+ * One phone's record in a run: the window's signals (when `signals`: one start at 0; a list: a task C
+ * run's start signals, one per attempt, s after `at`) and flights per lane, [launch, landing] s after `at`.
+ */
+export type PhoneRecord = { phone: Phone; signals?: boolean | number[]; lanes: Record<number, [number, number][]> };
 
 let seqs = 0;
 
@@ -44,11 +47,12 @@ export async function dayRun(input: {
   await db.insert(runLanes).values(input.pilots.map((pilotUserId, lane) => ({ runId, lane, pilotUserId, pilotName: `Day pilot ${lane + 1}` })));
   const rows: (typeof events.$inferInsert)[] = [];
   for (const r of input.records) {
-    const taps: [number, object][] = r.signals ? [[0, { kind: "window-start" }]] : [];
+    const starts = Array.isArray(r.signals) ? r.signals : r.signals ? [0] : [];
+    const taps: [number, object][] = starts.map((s) => [s * 1000, { kind: "window-start" }]);
     for (const [lane, flights] of Object.entries(r.lanes)) {
       for (const [launch, land] of flights) taps.push([launch * 1000, { kind: "launch", lane: Number(lane) }], [land * 1000, { kind: "landing", lane: Number(lane) }]);
     }
-    if (r.signals) taps.push([("workingTimeSec" in task ? task.workingTimeSec + 40 : 600) * 1000, { kind: "run-end" }]);
+    if (starts.length > 0) taps.push([("workingTimeSec" in task ? task.workingTimeSec + 40 : Math.max(600, ...starts.map((s) => s + 240))) * 1000, { kind: "run-end" }]);
     taps.sort((a, b) => a[0] - b[0]);
     const page = `day-${runId}-${r.phone.id}`;
     for (const [offsetMs, body] of taps) {

@@ -111,6 +111,7 @@ function Timeline({ board, name }: Part) {
                       {l.timedBy !== l.pilotId ? `, timed by ${name(l.timedBy)}` : ", own timing"}
                       {l.pending ? " · not yet accepted by the pilot" : ""}
                       {l.needsReview ? " · needs review" : ""}
+                      {l.decided ? " · the record an officer chose for this day" : ""}
                     </li>
                   ))}
                 </ul>

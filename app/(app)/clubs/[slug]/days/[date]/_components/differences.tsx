@@ -21,7 +21,8 @@ const tenthText = (ms: number, timeZone: string) => `${timeText(ms, timeZone)}.$
 /**
  * Lanes two phones recorded differently, each phone's version side by side: its result (runResult
  * of that record, as stored), its flights on the corrected clock, the phone and its clock offset.
- * An officer records a decision (whose record stands, or a note), kept with who and when.
+ * An officer records a decision (whose record stands, or a note), kept with who and when; the record
+ * that stands is the board's result for the lane (db/queries/club-day-decided.ts).
  */
 export function Differences({ board, name, slug, canDecide }: Part & { slug: string; canDecide: boolean }) {
   return (
@@ -37,14 +38,18 @@ export function Differences({ board, name, slug, canDecide }: Part & { slug: str
             const run = board.runs.find((r) => r.runId === d.runId);
             const label = `${name(d.pilotId)}, ${run ? timeText(run.startMs, board.timeZone) : "a run"}`;
             return (
-              <li key={`${d.runId}-${d.lane}`} aria-label={label} className="card space-y-2 rounded-xl border border-line bg-raised p-3">
+              <li key={`${d.runId}-${d.lane}`} aria-label={label} data-run-id={d.runId} className="card space-y-2 rounded-xl border border-line bg-raised p-3">
                 <p className="font-bold">{label}</p>
                 <div className="grid grid-cols-2 gap-2">
                   {d.versions.map((v) => (
                     <Version key={v.deviceId} board={board} name={name} version={v} stands={d.decision?.deviceId === v.deviceId} />
                   ))}
                 </div>
-                <p className="text-sm text-muted">The result uses the pilot&apos;s own record first (then the earlier one); the pilot can still dispute it on the run&apos;s page.</p>
+                <p className="text-sm text-muted">
+                  The result uses the pilot&apos;s own record first (then the earlier one) unless an officer decides which record stands. A
+                  decision counts on this day&apos;s board and summary only: the run&apos;s page, the logbook and the Season keep the first
+                  rule&apos;s result, and the pilot can still dispute it there.
+                </p>
                 <DecisionText board={board} name={name} lane={d} />
                 {canDecide ? <DecisionForm board={board} name={name} lane={d} slug={slug} label={label} /> : null}
               </li>

@@ -1,0 +1,31 @@
+import "server-only";
+import { sql, type SQL } from "drizzle-orm";
+
+/** A field's name as the day matching compares it (lib/days/matching.ts fieldKey: case and spacing ignored), in SQL. */
+export const fieldKeySql = (name: SQL): SQL => sql`lower(regexp_replace(btrim(${name}), '\\s+', ' ', 'g'))`;
+
+/**
+ * The lock that orders a sync against a day's close (db/queries/club-days.ts closeClubDay). The close
+ * takes its days' rows FOR UPDATE, then keeps the runs that belong to them (freezeDayRuns). A writer of
+ * runs (a push, a re-derivation: db/queries/runs.ts storeDerivations) takes FOR SHARE, in the statement
+ * that stores their results, the rows of every club day not yet frozen that those runs might belong to:
+ * at a field of the name their session gives, within three days of the run's set-up (wider than the
+ * board's candidate window: a day's local bounds ± one day, time zones within ±14 h). So:
+ * - a push that holds the share lock first makes the close wait until it commits; the close's next
+ *   statements (read committed: a new snapshot each) then see its runs;
+ * - a push that comes while the close holds its lock waits until the close commits, finds the day frozen
+ *   (the row is checked again after the wait) and commits outside it, as a later sync does.
+ * Shares do not block each other, so pushes never wait on one another here; rows in id order, as the
+ * close takes them. Only club_days rows matching the runs are touched: no table lock.
+ * Returns the body of a CTE for `with held_days as (…)`, over the run ids `runIds` (a list of uuids).
+ */
+export function holdOpenDays(runIds: SQL): SQL {
+  return sql`select d.id from club_days d
+    join club_fields f on f.id = d.field_id
+    join field_sessions s on ${fieldKeySql(sql`s.field_name`)} = ${fieldKeySql(sql`f.name`)}
+    join runs r on r.session_id = s.id
+    where r.id in (${runIds}) and d.runs_frozen_at is null
+      and d.day between (r.created_at - interval '3 days')::date and (r.created_at + interval '3 days')::date
+    order by d.id
+    for share of d`;
+}
