@@ -131,23 +131,42 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
  * lane linked to a contest slot whose timekeeper is the pushing account gets its signature (F3K.1.2),
  * at the phone's time of signing (its clock corrected by the event's offset estimate, when it has one),
  * with who signed: "on the phone: pilot <lane's pilot>, timekeeper <account's name>". A slot signed
- * already keeps its first signature. Called by the push (sync-push.ts).
+ * already keeps its first signature. An undo on the phone ("void" naming a "signed" event) takes the
+ * phone's signature off the slot again (a paper card's signature is the officer's, not the phone's).
+ * Events are applied in the order pushed (sign, undo, sign again ends signed). Called by the push (sync-push.ts).
  */
-export async function signLanes(tx: Executor, userId: string, signs: readonly RunEvent[]): Promise<number> {
-  let signed = 0;
-  for (const e of signs) {
-    if (e.body.kind !== "signed") continue;
-    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
-    const res = await tx.execute(sql`
-      update group_slots g set
-        signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
-        signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
-      from run_lanes l, users u
-      where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
-        and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
-    signed += res.rowCount ?? 0;
+export async function signLanes(tx: Executor, userId: string, events: readonly RunEvent[]): Promise<number> {
+  let changed = 0;
+  // only undos (the usual case: a flight undone): one statement for them all
+  if (!events.some((e) => e.body.kind === "signed")) return unsign(tx, userId, events.flatMap((e) => (e.body.kind === "void" ? [e.body.targetId] : [])));
+  for (const e of events) {
+    if (e.body.kind === "signed") {
+      const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+      const res = await tx.execute(sql`
+        update group_slots g set
+          signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
+          signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
+        from run_lanes l, users u
+        where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
+          and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
+      changed += res.rowCount ?? 0;
+    } else if (e.body.kind === "void") {
+      changed += await unsign(tx, userId, [e.body.targetId]);
+    }
   }
-  return signed;
+  return changed;
+}
+
+/** Takes the phone's signature off the slots whose "signed" events these undos name (the pushing timekeeper's slots only). */
+async function unsign(tx: Executor, userId: string, targetIds: readonly string[]): Promise<number> {
+  if (targetIds.length === 0) return 0;
+  const res = await tx.execute(sql`
+    update group_slots g set signed_at = null, signed_from = null
+    from events t
+    where t.id in (${sql.join(targetIds.map((id) => sql`${id}::uuid`), sql`, `)}) and t.body ->> 'kind' = 'signed'
+      and g.run_id = t.run_id and g.lane = (t.body ->> 'lane')::int and g.timekeeper_user_id = ${userId}
+      and g.signed_from like 'on the phone:%'`);
+  return res.rowCount ?? 0;
 }
 
 /** Every signed result of the contest: round, group, pilot, when and how it was signed (the results page lists them). */
