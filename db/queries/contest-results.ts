@@ -5,6 +5,7 @@ import type { StandingsInput, StandingsSlot } from "@/lib/contests/standings";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { contestEntries, contestRounds, contests, groupSlots, runLanes } from "../schema";
+import { reflightsOfRounds } from "./contest-reflights";
 
 export type ResultsData = {
   contest: { id: string; name: string; startsOn: string; fieldName: string; dropRule: string; clubId: string; publicToken: string | null };
@@ -28,6 +29,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
     .orderBy(asc(groupSlots.groupNumber));
+  const reflights = await reflightsOfRounds(db, rounds.map((r) => r.id));
   return {
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken },
     input: {
@@ -38,6 +40,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
         paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints,
+        reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null,
       })),
     },
     flights: slots.map((s) => ({ roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runFlights: (s.runFlights as ResultsData["flights"][number]["runFlights"]) ?? null })),

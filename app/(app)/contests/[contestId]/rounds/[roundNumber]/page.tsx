@@ -2,18 +2,20 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
-import { getRound } from "@/db/queries/contest-results";
+import { listRoundReflights } from "@/db/queries/contest-reflights";
+import { getRound, listLinkableLanes } from "@/db/queries/contest-results";
 import { listRoundTimekeepers, listTimekeeperCandidates } from "@/db/queries/contest-timekeepers";
 import { getContest } from "@/db/queries/contests";
 import { MAX_PILOTS_PER_TIMEKEEPER } from "@/lib/contests/timekeepers";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
+import { Reflights } from "./_components/reflights";
 
 export const metadata: Metadata = { title: "Round" };
 export const dynamic = "force-dynamic";
 
-/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane. */
+/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights. */
 export default async function RoundPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
@@ -21,7 +23,10 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${roundNumber}` });
   const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber })]);
   if (!found || !round) notFound();
-  const [slots, candidates] = await Promise.all([listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId)]);
+  const [slots, candidates, reflights, lanes] = await Promise.all([
+    listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id),
+    listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }),
+  ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const others = found.rounds.filter((r) => r.number !== roundNumber);
   return (
@@ -47,6 +52,19 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           pilots={slots.filter((s) => s.groupNumber === g).map((s) => ({ ...s, assignedAt: s.assignedAt?.toISOString() ?? null }))}
         />
       ))}
+      {groups.length > 0 && (
+        <Reflights
+          contestId={contestId}
+          roundNumber={roundNumber}
+          task={round.task}
+          groups={groups}
+          lanes={lanes}
+          pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          reflights={reflights.map((r) => ({
+            ...r, grantedAt: r.grantedAt.toISOString(), recordedAt: r.recordedAt?.toISOString() ?? null, signed: r.signedAt !== null, runResultTenths: r.runResultTenths ?? null,
+          }))}
+        />
+      )}
       {others.length > 0 && (
         <nav aria-label="Other rounds" className="flex flex-wrap gap-3">
           {others.map((r) => <Link key={r.id} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}`}>Round {r.number}</Link>)}
