@@ -101,7 +101,8 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
  * slots: only slots whose assigned timekeeper is the pushing account, only lanes the run has, and only
  * when the run's task is the round's. The run's result (run_lanes.result_tenths, derived by
  * lib/results runResult) becomes the slot's official result: a paper card is cleared, and so is an
- * earlier signature (a new result needs its own, F3K.1.2). Called by the push (sync-push-entities.ts).
+ * earlier signature (a new result needs its own, F3K.1.2); the record it replaces (a paper card or
+ * another run) is kept in slot_records for the officer's decision. Called by the push (sync-push-entities.ts).
  */
 export async function linkTimedLanes(tx: Executor, userId: string, pushed: readonly RunEntity[]): Promise<number> {
   let linked = 0;
@@ -117,6 +118,12 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
     const lanes = new Set(run.lanes.map((l) => l.lane));
     for (const s of slots) {
       if (!lanes.has(s.lane)) continue;
+      // the record this run replaces (a paper card, or another run) is kept for the officer's decision
+      await tx.execute(sql`
+        insert into slot_records (slot_id, paper_flights, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
+        select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from group_slots g
+        where g.round_id = ${roundId} and g.entry_id = ${s.entryId} and g.timekeeper_user_id = ${userId}
+          and (g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${run.id}::uuid, ${s.lane}::smallint)))`);
       const done = await tx.update(groupSlots).set({
         runId: run.id, lane: s.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
       }).where(and(eq(groupSlots.roundId, roundId), eq(groupSlots.entryId, s.entryId), eq(groupSlots.timekeeperUserId, userId))).returning({ id: groupSlots.id });

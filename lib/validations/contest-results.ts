@@ -62,3 +62,9 @@ export const recordReflightSchema = z.object({
   signed: z.boolean(),
 }).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] })
   .refine((b) => b.flights === null || b.runId === null, { message: "A paper card or a timed run, not both.", path: ["flights"] });
+
+/** The officer's decision on a pilot's two records in a round: the waiting record to count, or null to keep the counting one. */
+export const decideRecordsSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  recordId: z.uuid("Not a record.").nullable(),
+});

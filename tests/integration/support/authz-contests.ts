@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestEntries, contestReflights, contestRounds, contests, groupSlots } from "@/db/schema";
+import { contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -162,4 +162,24 @@ export async function reflightRecorded(ctx: { user: { id: string } }): Promise<v
   const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
   expect(row).toMatchObject({ paperFlights: [1200], recordedBy: ctx.user.id, signedFrom: "marked by an officer" });
   await db.update(contestReflights).set({ paperFlights: null, recordedBy: null, recordedAt: null, signedAt: null, signedFrom: null }).where(eq(contestReflights.entryId, entryId));
+}
+
+/** A drawn contest (as contestOfOwnersClub) where Matrix One's round 1 has a second record waiting: an earlier paper card of 90.0 s. */
+export async function recordsContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [slot] = await db.select({ id: groupSlots.id }).from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  await db.insert(slotRecords).values({ slotId: slot!.id, paperFlights: [900] });
+  return { ...params, roundNumber: "1" };
+}
+
+/** The officer keeps Matrix One's counting record (the waiting one is set aside). */
+export const keepRecordBody = () => ({ entryId, recordId: null });
+
+/** After a 2xx: the waiting record is set aside by the caller; waiting again for the next actor. */
+export async function recordDecided(ctx: { user: { id: string } }): Promise<void> {
+  const [slot] = await db.select({ id: groupSlots.id }).from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  const rows = await db.select().from(slotRecords).where(eq(slotRecords.slotId, slot!.id));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ outcome: "set-aside", decidedBy: ctx.user.id });
+  await db.update(slotRecords).set({ outcome: null, decidedBy: null, decidedAt: null }).where(eq(slotRecords.slotId, slot!.id));
 }
