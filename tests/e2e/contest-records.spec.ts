@@ -52,13 +52,13 @@ test("an officer compares two records of a pilot side by side and counts one", a
     await expect(oren.getByRole("group", { name: "Kept record 1, Oren Halloway" })).toContainText("Paper card: 98.4 211.3");
     await expect(oren.getByRole("group", { name: "Counting record, Oren Halloway" })).toContainText("Paper card");
 
-    // Her own contest: Pax's counting card says 120.0 s, the kept one 180.0 s.
+    // Her own contest: Pax's counting card says 120.0 s (2:00.0), the kept one 180.0 s (3:00.0).
     await page.goto(`/contests/${contestId}/rounds/1`);
     const pax = page.getByRole("listitem", { name: "Records, Pax Morrow" });
     await expect(pax).toContainText("the records disagree");
-    await expect(pax.getByRole("group", { name: "Counting record, Pax Morrow" })).toContainText("Counts now: 120.0");
+    await expect(pax.getByRole("group", { name: "Counting record, Pax Morrow" })).toContainText("Counts now: 2:00.0");
     const kept = pax.getByRole("group", { name: "Kept record 1, Pax Morrow" });
-    await expect(kept).toContainText("Kept: 180.0");
+    await expect(kept).toContainText("Kept: 3:00.0");
     await kept.getByRole("button", { name: "Count this one" }).click();
     await expect(page.getByText("No pilot has two records waiting for a decision.")).toBeVisible();
 

@@ -67,7 +67,7 @@ test("an officer grants a re-flight, enters its card, and the results follow F3K
 
     // The re-flight's paper card: 100.0 s, signed.
     await item.getByLabel("Re-flight times of Pax Morrow").fill("100.0");
-    await expect(item).toContainText("Re-flight result 100.0");
+    await expect(item).toContainText("Re-flight result 1:40.0");
     await item.getByLabel("Re-flight signed (Pax Morrow)").check();
     await item.getByRole("button", { name: "Save Pax Morrow's re-flight" }).click();
     await expect(item.getByLabel("Re-flight signed (Pax Morrow)")).toBeChecked();
