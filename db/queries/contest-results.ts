@@ -5,6 +5,7 @@ import type { StandingsInput, StandingsSlot } from "@/lib/contests/standings";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { contestEntries, contestRounds, contests, groupSlots, runLanes } from "../schema";
+import { reflightsOfRounds } from "./contest-reflights";
 
 export type ResultsData = {
   contest: { id: string; name: string; startsOn: string; fieldName: string; dropRule: string; clubId: string; publicToken: string | null };
@@ -28,6 +29,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
     .orderBy(asc(groupSlots.groupNumber));
+  const reflights = await reflightsOfRounds(db, rounds.map((r) => r.id));
   return {
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken },
     input: {
@@ -38,6 +40,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
         paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints,
+        reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null,
       })),
     },
     flights: slots.map((s) => ({ roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runFlights: (s.runFlights as ResultsData["flights"][number]["runFlights"]) ?? null })),
@@ -77,6 +80,14 @@ export async function saveGroupCards(db: Database, p: { roundId: string; groupNu
     if (p.cards.some((c) => !ids.has(c.entryId)) || new Set(p.cards.map((c) => c.entryId)).size !== p.cards.length) return "not_in_group";
     const now = new Date();
     for (const card of p.cards) {
+      // a card with flights outranks a linked timed run: the run is kept for the officer's decision (once)
+      if (card.flights !== null) {
+        await tx.execute(sql`
+          insert into slot_records (slot_id, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
+          select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from group_slots g
+          where g.round_id = ${p.roundId} and g.entry_id = ${card.entryId} and g.run_id is not null and g.paper_flights is null
+            and not exists (select 1 from slot_records r where r.slot_id = g.id and r.outcome is null and r.run_id = g.run_id and r.lane = g.lane)`);
+      }
       await tx.update(groupSlots).set({
         paperFlights: card.flights, penaltyPoints: card.penaltyPoints, recordedBy: p.userId, recordedAt: now,
         signedAt: card.signed ? sql`coalesce(${groupSlots.signedAt}, ${now.toISOString()}::timestamptz)` : null,

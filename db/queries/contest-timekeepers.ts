@@ -104,7 +104,8 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
  * slots: only slots whose assigned timekeeper is the pushing account, only lanes the run has, and only
  * when the run's task is the round's. The run's result (run_lanes.result_tenths, derived by
  * lib/results runResult) becomes the slot's official result: a paper card is cleared, and so is an
- * earlier signature (a new result needs its own, F3K.1.2). Called by the push (sync-push-entities.ts).
+ * earlier signature (a new result needs its own, F3K.1.2); the record it replaces (a paper card or
+ * another run) is kept in slot_records for the officer's decision. Called by the push (sync-push-entities.ts).
  */
 export async function linkTimedLanes(tx: Executor, userId: string, pushed: readonly RunEntity[]): Promise<number> {
   let linked = 0;
@@ -120,6 +121,12 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
     const lanes = new Set(run.lanes.map((l) => l.lane));
     for (const s of slots) {
       if (!lanes.has(s.lane)) continue;
+      // the record this run replaces (a paper card, or another run) is kept for the officer's decision
+      await tx.execute(sql`
+        insert into slot_records (slot_id, paper_flights, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
+        select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from group_slots g
+        where g.round_id = ${roundId} and g.entry_id = ${s.entryId} and g.timekeeper_user_id = ${userId}
+          and (g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${run.id}::uuid, ${s.lane}::smallint)))`);
       const done = await tx.update(groupSlots).set({
         runId: run.id, lane: s.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
       }).where(and(eq(groupSlots.roundId, roundId), eq(groupSlots.entryId, s.entryId), eq(groupSlots.timekeeperUserId, userId))).returning({ id: groupSlots.id });
@@ -134,23 +141,42 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
  * lane linked to a contest slot whose timekeeper is the pushing account gets its signature (F3K.1.2),
  * at the phone's time of signing (its clock corrected by the event's offset estimate, when it has one),
  * with who signed: "on the phone: pilot <lane's pilot>, timekeeper <account's name>". A slot signed
- * already keeps its first signature. Called by the push (sync-push.ts).
+ * already keeps its first signature. An undo on the phone ("void" naming a "signed" event) takes the
+ * phone's signature off the slot again (a paper card's signature is the officer's, not the phone's).
+ * Events are applied in the order pushed (sign, undo, sign again ends signed). Called by the push (sync-push.ts).
  */
-export async function signLanes(tx: Executor, userId: string, signs: readonly RunEvent[]): Promise<number> {
-  let signed = 0;
-  for (const e of signs) {
-    if (e.body.kind !== "signed") continue;
-    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
-    const res = await tx.execute(sql`
-      update group_slots g set
-        signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
-        signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
-      from run_lanes l, users u
-      where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
-        and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
-    signed += res.rowCount ?? 0;
+export async function signLanes(tx: Executor, userId: string, events: readonly RunEvent[]): Promise<number> {
+  let changed = 0;
+  // only undos (the usual case: a flight undone): one statement for them all
+  if (!events.some((e) => e.body.kind === "signed")) return unsign(tx, userId, events.flatMap((e) => (e.body.kind === "void" ? [e.body.targetId] : [])));
+  for (const e of events) {
+    if (e.body.kind === "signed") {
+      const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+      const res = await tx.execute(sql`
+        update group_slots g set
+          signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
+          signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
+        from run_lanes l, users u
+        where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
+          and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
+      changed += res.rowCount ?? 0;
+    } else if (e.body.kind === "void") {
+      changed += await unsign(tx, userId, [e.body.targetId]);
+    }
   }
-  return signed;
+  return changed;
+}
+
+/** Takes the phone's signature off the slots whose "signed" events these undos name (the pushing timekeeper's slots only). */
+async function unsign(tx: Executor, userId: string, targetIds: readonly string[]): Promise<number> {
+  if (targetIds.length === 0) return 0;
+  const res = await tx.execute(sql`
+    update group_slots g set signed_at = null, signed_from = null
+    from events t
+    where t.id in (${sql.join(targetIds.map((id) => sql`${id}::uuid`), sql`, `)}) and t.body ->> 'kind' = 'signed'
+      and g.run_id = t.run_id and g.lane = (t.body ->> 'lane')::int and g.timekeeper_user_id = ${userId}
+      and g.signed_from like 'on the phone:%'`);
+  return res.rowCount ?? 0;
 }
 
 /** Every signed result of the contest: round, group, pilot, when and how it was signed (the results page lists them). */

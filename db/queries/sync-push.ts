@@ -65,8 +65,9 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
       seqs: [...new Set(req.events.map((e) => e.seq))],
     });
     const added = await applyEvents(ctx, req.events, load);
-    // a contest timekeeper's phone: pilot and timekeeper signed lanes of a run linked to contest slots
-    if (req.events.some((e) => e.body.kind === "signed")) await signLanes(tx, userId, req.events.filter((e) => e.body.kind === "signed" && added.has(e.runId)));
+    // a contest timekeeper's phone: pilot and timekeeper signed (or undid a signature of) lanes of a run linked to contest slots
+    const signs = req.events.filter((e) => (e.body.kind === "signed" || e.body.kind === "void") && added.has(e.runId));
+    if (signs.length > 0) await signLanes(tx, userId, signs);
     const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
     if (req.discards?.length) await applyDiscards(ctx, req.discards); // after the events: a run set up and deleted in one push goes too
     const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));

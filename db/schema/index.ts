@@ -16,3 +16,4 @@ export * from "./lane-flights";
 export * from "./club-days";
 export * from "./run-folds";
 export * from "./contest-draw-changes";
+export * from "./contest-reflights";

@@ -8,6 +8,8 @@ import { clubs, contestEntries, contestRounds, contests, users } from "../schema
 import { DEMO_CLUB } from "./demo-people";
 import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
+import { seedDemoRecords } from "./demo-records";
+import { seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
 
 const NAME = "Heronmoor Winter Cup";
@@ -18,12 +20,15 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
  * A demo contest of the demo club: 5 rounds, the demo pilots and 9 paper entries, drawn (seed
  * 20261212), not locked; with an entry fee (demo-fees.ts); rounds 1–3 with results
  * (./demo-results.ts); in round 5 the officer had Gus Wendle trade groups with a pilot of another
- * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts).
+ * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts); a
+ * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 (./demo-records.ts).
  */
 export async function seedDemoContest(db: Database): Promise<void> {
   const contestId = await seedContest(db);
   await seedDemoFees(db, NAME);
   if (contestId) await seedDemoTimekeepers(db, contestId);
+  if (contestId) await seedDemoReflights(db, contestId);
+  if (contestId) await seedDemoRecords(db, contestId);
 }
 
 async function seedContest(db: Database): Promise<string | null> {

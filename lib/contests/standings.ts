@@ -3,6 +3,8 @@ import {
   DROP_FROM_ROUNDS, finalResults, MIN_VALID_ROUNDS, normaliseUnits, rankFlyOff, rankPilots, rankTeams,
   type FinalPlace, type HalfRounding, type Standing,
 } from "@/lib/scoring";
+import type { ReflightPlacement } from "@/lib/events/schema";
+import { standingResult } from "@/lib/scoring/reflight";
 import { paperCardResult } from "./paper-card";
 
 export type StandingsRound = { id: string; number: number; isFlyOff: boolean; task: TaskDefinition };
@@ -17,6 +19,18 @@ export type StandingsSlot = {
   paperFlights: readonly number[] | null;
   signed: boolean;
   penaltyPoints: number;
+  /** A re-flight granted in this round (F3K.9.6), with its own result and signature; absent = none. */
+  reflight?: StandingsReflight | null;
+};
+export type StandingsReflight = {
+  placement: ReflightPlacement;
+  /** False for a group mate flying again with the re-flyer (keeps the better of two, F3K.9.6). */
+  entitled: boolean;
+  /** The group it is flown in: when the re-flight stands, its result is normalised there. */
+  groupNumber: number;
+  runResultTenths: number | null;
+  paperFlights: readonly number[] | null;
+  signed: boolean;
 };
 export type StandingsInput = {
   rounds: readonly StandingsRound[];
@@ -40,6 +54,8 @@ export type RoundCell = {
   source: "paper" | "run" | null;
   penaltyPoints: number;
   dropped: boolean;
+  /** A re-flight with a recorded result: both results (tenths; 0 when unsigned) and which one stands (F3K.9.6). */
+  reflight?: { placement: ReflightPlacement; originalTenths: number; reflightTenths: number; stands: "original" | "reflight" } | null;
 };
 export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[] };
 export type Standings = {
@@ -59,23 +75,50 @@ export type Standings = {
 
 type Scored = Map<string, Map<string, Omit<RoundCell, "roundNumber" | "dropped">>>;
 
-/** Each slot's result (paper card through the task engine, else the linked run's) and its points, normalised per group (F3K.9.1). */
+type Recorded = { source: "paper" | "run" | null; resultTenths: number | null };
+
+/** A recorded result: a paper card's flights through the task engine, else the linked run's server result. */
+function recorded(task: TaskDefinition, r: { paperFlights: readonly number[] | null; runResultTenths: number | null }): Recorded {
+  if (r.paperFlights !== null) return { source: "paper", resultTenths: paperCardResult(task, r.paperFlights).tenths };
+  return r.runResultTenths !== null ? { source: "run", resultTenths: r.runResultTenths } : { source: null, resultTenths: null };
+}
+
+/**
+ * The result that stands for one slot, and the group it counts in: the first flight's, or, once a
+ * re-flight has a result, the one lib/scoring/reflight.ts standingResult picks (F3K.9.6). An
+ * unsigned result is compared as zero (F3K.1.2).
+ */
+function standing(task: TaskDefinition, s: StandingsSlot) {
+  const first = recorded(task, s);
+  const base = { group: s.groupNumber, ...first, signed: s.signed, reflight: null as RoundCell["reflight"] };
+  if (!s.reflight) return base;
+  const again = recorded(task, s.reflight);
+  if (again.resultTenths === null) return base;
+  const originalTenths = first.resultTenths !== null && s.signed ? first.resultTenths : 0;
+  const reflightTenths = s.reflight.signed ? again.resultTenths : 0;
+  const pick = standingResult({ original: originalTenths, reflight: reflightTenths, placement: s.reflight.placement, entitled: s.reflight.entitled });
+  const reflight = { placement: s.reflight.placement, originalTenths, reflightTenths, stands: pick.stands };
+  return pick.stands === "reflight"
+    ? { group: s.reflight.groupNumber, ...again, signed: s.reflight.signed, reflight }
+    : { ...base, reflight };
+}
+
+/**
+ * Each slot's standing result (paper card through the task engine, else the linked run's; a
+ * re-flight's when it stands, F3K.9.6) and its points, normalised per group it was flown in (F3K.9.1).
+ */
 function scoreSlots(input: StandingsInput): Scored {
   const byRound: Scored = new Map();
   for (const round of input.rounds) {
     const cells = new Map<string, Omit<RoundCell, "roundNumber" | "dropped">>();
-    const slots = input.slots.filter((s) => s.roundId === round.id);
-    for (const group of new Set(slots.map((s) => s.groupNumber))) {
-      const inGroup = slots.filter((s) => s.groupNumber === group).map((s) => {
-        const source = s.paperFlights !== null ? "paper" as const : s.runResultTenths !== null ? "run" as const : null;
-        const resultTenths = source === "paper" ? paperCardResult(round.task, s.paperFlights!).tenths : source === "run" ? s.runResultTenths : null;
-        return { slot: s, source, resultTenths };
-      });
+    const slots = input.slots.filter((s) => s.roundId === round.id).map((slot) => ({ slot, ...standing(round.task, slot) }));
+    for (const group of new Set(slots.map((s) => s.group))) {
+      const inGroup = slots.filter((s) => s.group === group);
       // F3K.1.2: a result not signed by pilot and timekeeper scores zero (so it is nobody's best either).
-      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.slot.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
+      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
       inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
-        signed: x.slot.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints,
+        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints, reflight: x.reflight,
       }));
     }
     byRound.set(round.id, cells);
@@ -90,7 +133,7 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
     const cells = rounds.map((r): RoundCell => {
       const c = scored.get(r.id)?.get(e.id);
       return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
-        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false };
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null };
     });
     return { entry: e, cells };
   });

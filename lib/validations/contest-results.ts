@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { PAPER_MAX_FLIGHT_TENTHS, PAPER_MAX_FLIGHTS } from "@/lib/contests/paper-card";
+import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
 
 export const roundParamsSchema = z.object({
   contestId: z.uuid("Not a contest."),
@@ -40,3 +41,30 @@ export const groupTimekeepersSchema = z.object({
   })).min(1, "Name at least one pilot.").max(30, "At most 30 pilots in a group."),
 });
 export type GroupTimekeepersInput = z.infer<typeof groupTimekeepersSchema>;
+
+/** An officer grants a pilot drawn in the round a re-flight (F3K.9.6, F3K.4.2): why, where it is flown, whether they are the entitled re-flyer. */
+export const grantReflightSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  cause: z.enum(REFLIGHT_CAUSES, "Choose why the re-flight is granted."),
+  placement: z.enum(REFLIGHT_PLACEMENTS, "Choose where the re-flight is flown."),
+  entitled: z.boolean().default(true),
+  groupNumber: z.number().int().min(1, "Not a group.").max(99, "Not a group."),
+  reason: z.string().trim().max(200, "At most 200 characters.").transform((s) => s || null).nullable().default(null),
+});
+
+/** A re-flight's result: a paper card's flight times (tenths), or a timed run's lane, or neither; and its signature. */
+export const recordReflightSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  flights: z.array(z.number().int("Flight times are in tenths of a second.").min(0, "A flight time cannot be negative.").max(PAPER_MAX_FLIGHT_TENTHS, "A flight time is at most one hour."))
+    .min(1, "Enter at least one flight, or none at all.").max(PAPER_MAX_FLIGHTS, `At most ${PAPER_MAX_FLIGHTS} flights on one card.`).nullable(),
+  runId: z.uuid("Not a run.").nullable(),
+  lane: z.number().int("Not a lane.").min(0, "Not a lane.").max(49, "Not a lane.").nullable(),
+  signed: z.boolean(),
+}).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] })
+  .refine((b) => b.flights === null || b.runId === null, { message: "A paper card or a timed run, not both.", path: ["flights"] });
+
+/** The officer's decision on a pilot's two records in a round: the waiting record to count, or null to keep the counting one. */
+export const decideRecordsSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  recordId: z.uuid("Not a record.").nullable(),
+});

@@ -187,4 +187,24 @@ describe("the timekeeper's run becomes the round's result", () => {
     expect(round("Ada Fenn")).toMatchObject({ resultTenths: 1200, signed: true, pointsTenths: 10000 });
     expect(round("Bo Marsh")).toMatchObject({ signed: false, pointsTenths: 0 });
   });
+
+  it("an undo of the signature on the phone takes it off the slot; signing again signs it anew", async () => {
+    const [a] = await db.select({ runId: groupSlots.runId }).from(groupSlots).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids["Ada Fenn"]!)));
+    const runId = a!.runId!;
+    const phone = keeperPhone!;
+    actAs(keeper);
+    // the signature pushed in the test before is stored; its undo on the phone is a "void" naming it
+    const [signedEvent] = (await getPool().query<{ id: string }>(`select id from events where run_id = $1 and body ->> 'kind' = 'signed' and recorded_by = $2`, [runId, keeper.id])).rows;
+    expect((await slot("Ada Fenn")).signedAt).not.toBeNull();
+    // an undo of a flight (not a signature) leaves the signature alone
+    const [flight] = (await getPool().query<{ id: string }>(`select id from events where run_id = $1 and body ->> 'kind' = 'launch' limit 1`, [runId])).rows;
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(runId, T0 + 425_000, { kind: "void", targetId: flight!.id })] });
+    expect((await slot("Ada Fenn")).signedAt).not.toBeNull();
+    const res = await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(runId, T0 + 430_000, { kind: "void", targetId: signedEvent!.id })] });
+    expect(res.body.acks.every((x) => x.status === "applied")).toBe(true);
+    // F3K.1.2: the result is unsigned again, so it scores zero until pilot and timekeeper sign again
+    expect(await slot("Ada Fenn")).toMatchObject({ signedAt: null, signedFrom: null });
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(runId, T0 + 440_000, { kind: "signed", lane: 0 })] });
+    expect((await slot("Ada Fenn")).signedAt?.getTime()).toBe(T0 + 440_000);
+  });
 });

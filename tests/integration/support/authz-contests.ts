@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestEntries, contestRounds, contests, groupSlots } from "@/db/schema";
+import { contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -133,4 +133,53 @@ export async function cashReturns(): Promise<void> {
   const [row] = await db.select().from(contestEntries).where(eq(contestEntries.id, entryId));
   expect([row?.paymentStatus, row?.paymentRef]).toEqual(["paid", "cash"]);
   await db.update(contestEntries).set({ paymentStatus: "pending", paymentRef: null, paidAt: null, paymentMarkedBy: null }).where(eq(contestEntries.id, entryId));
+}
+
+/** The officer grants Matrix One a re-flight of round 1 with the original group (F3K.9.6). */
+export const grantReflightBody = () => ({ entryId, cause: "organiser", placement: "original-group", groupNumber: 1, reason: "Timer failed" });
+
+/** After a 2xx: the re-flight is stored with who granted it; removed for the next actor. */
+export async function reflightGranted(ctx: { user: { id: string } }): Promise<void> {
+  const rows = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ placement: "original-group", groupNumber: 1, grantedBy: ctx.user.id, reason: "Timer failed" });
+  await db.delete(contestReflights).where(eq(contestReflights.entryId, entryId));
+}
+
+/** A drawn contest (as contestOfOwnersClub) where Matrix One was granted a re-flight of round 1 with the original group. */
+export async function reflightContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [round] = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!)).orderBy(contestRounds.number).limit(1);
+  await db.insert(contestReflights).values({ roundId: round!.id, entryId, cause: "organiser", placement: "original-group", groupNumber: 1 });
+  return { ...params, roundNumber: "1" };
+}
+
+/** The re-flight's paper card: 120.0 s, signed. */
+export const recordReflightBody = () => ({ entryId, flights: [1200], runId: null, lane: null, signed: true });
+
+/** After a 2xx: the re-flight's card is stored with who recorded it; cleared for the next actor. */
+export async function reflightRecorded(ctx: { user: { id: string } }): Promise<void> {
+  const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  expect(row).toMatchObject({ paperFlights: [1200], recordedBy: ctx.user.id, signedFrom: "marked by an officer" });
+  await db.update(contestReflights).set({ paperFlights: null, recordedBy: null, recordedAt: null, signedAt: null, signedFrom: null }).where(eq(contestReflights.entryId, entryId));
+}
+
+/** A drawn contest (as contestOfOwnersClub) where Matrix One's round 1 has a second record waiting: an earlier paper card of 90.0 s. */
+export async function recordsContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [slot] = await db.select({ id: groupSlots.id }).from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  await db.insert(slotRecords).values({ slotId: slot!.id, paperFlights: [900] });
+  return { ...params, roundNumber: "1" };
+}
+
+/** The officer keeps Matrix One's counting record (the waiting one is set aside). */
+export const keepRecordBody = () => ({ entryId, recordId: null });
+
+/** After a 2xx: the waiting record is set aside by the caller; waiting again for the next actor. */
+export async function recordDecided(ctx: { user: { id: string } }): Promise<void> {
+  const [slot] = await db.select({ id: groupSlots.id }).from(groupSlots).where(eq(groupSlots.entryId, entryId));
+  const rows = await db.select().from(slotRecords).where(eq(slotRecords.slotId, slot!.id));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ outcome: "set-aside", decidedBy: ctx.user.id });
+  await db.update(slotRecords).set({ outcome: null, decidedBy: null, decidedAt: null }).where(eq(slotRecords.slotId, slot!.id));
 }

@@ -2,12 +2,14 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
+import { listContestReflights } from "@/db/queries/contest-reflights";
 import { getResultsData } from "@/db/queries/contest-results";
 import { contestTimeZone } from "@/db/queries/contests";
 import { listSignatures } from "@/db/queries/contest-timekeepers";
 import { LiveStandings } from "@/components/contests/live-standings";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { contestStandings } from "@/lib/contests/standings";
+import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock, formatDate } from "@/lib/format";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../../_components/guard";
@@ -22,7 +24,9 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/results` });
-  const [data, signatures, zone] = await Promise.all([getResultsData(db, contestId), listSignatures(db, contestId), contestTimeZone(db, contestId)]);
+  const [data, signatures, reflights, zone] = await Promise.all([
+    getResultsData(db, contestId), listSignatures(db, contestId), listContestReflights(db, contestId), contestTimeZone(db, contestId),
+  ]);
   if (!data) notFound();
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
   const api = `/api/contests/${contestId}/results`;
@@ -41,6 +45,19 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
             {signatures.map((s) => (
               <li key={`${s.isFlyOff}:${s.roundNumber}:${s.groupNumber}:${s.name}`}>
                 {s.isFlyOff ? "Fly-off round" : "Round"} {s.roundNumber}, group {s.groupNumber}, {s.name}: signed {formatClock(s.signedAt!, zone, "short")}, {s.signedFrom ?? "signed"}
+              </li>
+            ))}
+          </ul>
+        )}
+      </details>
+      <details className="rounded-xl border-2 border-line p-3 print:hidden">
+        <summary className="min-h-12 cursor-pointer py-3 font-bold">Re-flights ({reflights.length})</summary>
+        {reflights.length === 0 ? <p className="text-muted">No re-flight granted.</p> : (
+          <ul aria-label="Re-flights" className="space-y-1">
+            {reflights.map((r) => (
+              <li key={`${r.isFlyOff}:${r.roundNumber}:${r.name}`}>
+                {r.isFlyOff ? "Fly-off round" : "Round"} {r.roundNumber}, {r.name}: {REFLIGHT_CAUSE_WORDS[r.cause]}, {REFLIGHT_PLACEMENT_WORDS[r.placement].label} (group {r.groupNumber}){r.entitled ? "" : ", flying again with the re-flyer"};
+                granted by {r.grantedBy ?? "a former officer"} {formatClock(r.grantedAt, zone, "short")}{r.reason ? ` (${r.reason})` : ""}
               </li>
             ))}
           </ul>

@@ -2,18 +2,24 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
-import { getRound } from "@/db/queries/contest-results";
+import { listPendingRecords } from "@/db/queries/contest-records";
+import { listRoundReflights } from "@/db/queries/contest-reflights";
+import { getRound, listLinkableLanes } from "@/db/queries/contest-results";
 import { listRoundTimekeepers, listTimekeeperCandidates } from "@/db/queries/contest-timekeepers";
 import { getContest } from "@/db/queries/contests";
+import { paperCardResult } from "@/lib/contests/paper-card";
 import { MAX_PILOTS_PER_TIMEKEEPER } from "@/lib/contests/timekeepers";
+import type { TaskDefinition } from "@/lib/tasks";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
+import { Records, type RecordView } from "./_components/records";
+import { Reflights } from "./_components/reflights";
 
 export const metadata: Metadata = { title: "Round" };
 export const dynamic = "force-dynamic";
 
-/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane. */
+/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights. */
 export default async function RoundPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
@@ -21,7 +27,10 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${roundNumber}` });
   const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber })]);
   if (!found || !round) notFound();
-  const [slots, candidates] = await Promise.all([listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId)]);
+  const [slots, candidates, reflights, pending, lanes] = await Promise.all([
+    listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
+    listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }),
+  ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const others = found.rounds.filter((r) => r.number !== roundNumber);
   return (
@@ -47,6 +56,26 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           pilots={slots.filter((s) => s.groupNumber === g).map((s) => ({ ...s, assignedAt: s.assignedAt?.toISOString() ?? null }))}
         />
       ))}
+      {groups.length > 0 && (
+        <Records
+          contestId={contestId}
+          roundNumber={roundNumber}
+          rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, null, p), others: p.others.map((o) => recordView(round.task, o.id, o)) }))}
+        />
+      )}
+      {groups.length > 0 && (
+        <Reflights
+          contestId={contestId}
+          roundNumber={roundNumber}
+          task={round.task}
+          groups={groups}
+          lanes={lanes}
+          pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          reflights={reflights.map((r) => ({
+            ...r, grantedAt: r.grantedAt.toISOString(), recordedAt: r.recordedAt?.toISOString() ?? null, signed: r.signedAt !== null, runResultTenths: r.runResultTenths ?? null,
+          }))}
+        />
+      )}
       {others.length > 0 && (
         <nav aria-label="Other rounds" className="flex flex-wrap gap-3">
           {others.map((r) => <Link key={r.id} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}`}>Round {r.number}</Link>)}
@@ -54,4 +83,20 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
       )}
     </div>
   );
+}
+
+const stamp = (d: Date | null) => (d ? `${d.toISOString().slice(0, 16).replace("T", " ")} UTC` : "");
+
+/** One record as the officer compares it: what it is, its result (a paper card through the task engine, a run's server result), who recorded it, its signature. */
+function recordView(task: TaskDefinition, id: string | null, r: {
+  paperFlights: number[] | null; runId: string | null; lane: number | null; runResultTenths: number | null; recordedAt: Date | null; recordedBy: string | null; signedAt: Date | null; signedFrom: string | null;
+}): RecordView {
+  const paper = r.paperFlights !== null;
+  return {
+    id,
+    what: paper ? `Paper card: ${r.paperFlights!.map((t) => (t / 10).toFixed(1)).join(" ")}` : r.runId ? `Timed run, lane ${(r.lane ?? 0) + 1}` : "Nothing recorded",
+    resultTenths: paper ? paperCardResult(task, r.paperFlights!).tenths : r.runResultTenths,
+    recorded: `recorded by ${r.recordedBy ?? "someone"} ${stamp(r.recordedAt)}`.trim(),
+    signed: r.signedAt ? `signed ${stamp(r.signedAt)}${r.signedFrom ? `, ${r.signedFrom}` : ""}` : "not signed",
+  };
 }

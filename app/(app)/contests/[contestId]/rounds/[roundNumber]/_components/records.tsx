@@ -1,0 +1,54 @@
+"use client";
+import { useSend } from "@/components/request/use-send";
+import { Button } from "@/components/ui/button";
+import { FormError } from "@/components/ui/form-footer";
+import { formatTenths } from "@/lib/tasks";
+
+export type RecordView = {
+  id: string | null;
+  /** "Paper card: 150.0 123.4" or "Phone run, lane 2". */
+  what: string;
+  resultTenths: number | null;
+  recorded: string;
+  signed: string;
+};
+export type RecordsRow = { entryId: string; name: string; groupNumber: number; current: RecordView; others: RecordView[] };
+
+/**
+ * A pilot's records of this round that wait for the officer: the counting one beside each kept one
+ * (a phone run that replaced a paper card, a second run, a run a paper card outranks). The officer
+ * counts one; the decision is kept with who and when, and the standings read the slot it sets.
+ */
+export function Records({ contestId, roundNumber, rows }: { contestId: string; roundNumber: number; rows: RecordsRow[] }) {
+  return (
+    <section aria-labelledby="records-title" className="space-y-3 rounded-xl border-2 border-line p-3">
+      <h2 id="records-title" className="text-xl font-bold">Two records for one pilot</h2>
+      {rows.length === 0 ? <p className="text-muted">No pilot has two records waiting for a decision.</p> : (
+        <ul className="space-y-3">{rows.map((r) => <RecordsItem key={r.entryId} contestId={contestId} roundNumber={roundNumber} row={r} />)}</ul>
+      )}
+    </section>
+  );
+}
+
+function RecordsItem({ contestId, roundNumber, row }: { contestId: string; roundNumber: number; row: RecordsRow }) {
+  const { send, busy, error } = useSend();
+  const all = [row.current, ...row.others];
+  const agree = all.every((r) => r.resultTenths === row.current.resultTenths);
+  const decide = (recordId: string | null) => send("PUT", `/api/contests/${contestId}/rounds/${roundNumber}/records`, { entryId: row.entryId, recordId });
+  return (
+    <li aria-label={`Records, ${row.name}`} className="space-y-2">
+      <p className="font-semibold">{row.name} (group {row.groupNumber}): {agree ? "the records agree" : "the records disagree"}</p>
+      <div className="grid gap-2 sm:grid-cols-2">
+        {all.map((r, i) => (
+          <div key={r.id ?? "current"} aria-label={i === 0 ? `Counting record, ${row.name}` : `Kept record ${i}, ${row.name}`} role="group" className="space-y-1 rounded-lg border border-line p-2">
+            <p className="font-bold">{i === 0 ? "Counts now" : "Kept"}: {r.resultTenths === null ? "no result" : formatTenths(r.resultTenths)}</p>
+            <p className="text-sm">{r.what}</p>
+            <p className="text-sm text-muted">{r.recorded} · {r.signed}</p>
+            <Button type="button" disabled={busy} onClick={() => void decide(r.id)}>{i === 0 ? "Keep this one" : "Count this one"}</Button>
+          </div>
+        ))}
+      </div>
+      <FormError message={error} />
+    </li>
+  );
+}
