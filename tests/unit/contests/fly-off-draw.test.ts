@@ -29,6 +29,11 @@ const base: StandingsInput = { rounds: [...prelim(5), ...flyOffRounds(3)], entri
 const draw = (input: StandingsInput, n: number) => drawFlyOff(input, contestStandings(input), n);
 
 describe("drawing the fly-off from the preliminary order", () => {
+  it("a fly-off planned but not drawn has no table yet: the preliminary order stands", () => {
+    const s = contestStandings(base);
+    expect(s.flyOff).toBeNull();
+    expect(s.final.map((f) => f.stage)).toEqual(Array(5).fill("preliminary"));
+  });
   it("takes the top N of the one standings value", () => {
     expect(contestStandings(base).pilots.map((p) => [p.entryId, p.totalTenths, p.rank])).toEqual([["P1", 50000, 1], ["P2", 45000, 2], ["P3", 40000, 3], ["P4", 40000, 3], ["P5", 25000, 5]]);
     expect(draw(base, 2)).toEqual({ ok: true, entryIds: ["P1", "P2"], names: ["Pilot P1", "Pilot P2"], tiedAtCutOff: [], cutOffRank: 2 });

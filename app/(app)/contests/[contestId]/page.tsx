@@ -133,7 +133,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
           </ol>
           {flyOffPilots.length === 0
             ? <p className="text-muted">Not drawn yet: the officer draws the fly-off once every preliminary round is scored.</p>
-            : <p aria-label="Fly-off pilots"><span className="font-semibold">Fly-off pilots ({flyOffPilots.length}):</span> {flyOffPilots.map((id) => names.get(id) ?? "?").sort().join(", ")}</p>}
+            : <p><span className="font-semibold">Fly-off pilots ({flyOffPilots.length}):</span> {flyOffPilots.map((id) => names.get(id) ?? "?").sort().join(", ")}</p>}
           {officer && <DrawFlyOff contestId={contestId} drawn={flyOffPilots.length > 0} />}
         </section>
       )}
