@@ -11,7 +11,7 @@ import { signInAs } from "./support/auth";
  * complete (F3K.10: preliminary points do not carry over).
  */
 
-const PILOTS = ["Rhea Calloway", "Silas Penwright", "Tamsin Oakhurst", "Ulric Fenmore", "Vera Lindqvist", "Wynn Ashby"];
+const PILOTS = ["Rhea Calloway", "Silas Penwright", "Tamsin Oakhurst", "Ulric Fenmore", "Vera Linwood", "Wynn Ashby"];
 /** One flight per card in every preliminary round (tenths, under every task's cap): Tamsin and Ulric tie exactly. */
 const PRELIM = [1100, 1000, 900, 900, 700, 600];
 
