@@ -2,7 +2,7 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
-import { dutyLanes, dutyText } from "@/lib/contests/timekeepers";
+import { dutyLanes, dutyRound, dutyText } from "@/lib/contests/timekeepers";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
@@ -56,7 +56,7 @@ function DutyCard({ duty }: { duty: PulledDuty }) {
       <p className="text-sm text-muted">{duty.contestName} · {duty.startsOn} · task {String(duty.task.letter ?? "")}: {String(duty.task.name ?? "")}</p>
       <button type="button" onClick={() => void start()} disabled={busy}
         className="flex min-h-touch w-full items-center justify-between gap-2 rounded-lg bg-accent px-3 text-left font-bold text-accent-ink">
-        <span>Set up round {duty.roundNumber}, group {duty.groupNumber}: {duty.pilots.length === 1 ? "one lane" : `${Math.min(duty.pilots.length, 4)} lanes`}</span>
+        <span>Set up {dutyRound(duty)}, group {duty.groupNumber}: {duty.pilots.length === 1 ? "one lane" : `${Math.min(duty.pilots.length, 4)} lanes`}</span>
         <span aria-hidden>▶</span>
       </button>
       {error ? <p role="alert" className="text-sm font-semibold text-warn">{error}</p> : null}

@@ -8,7 +8,7 @@ import { contestEntries, contestRounds, contests, groupSlots, runLanes } from ".
 import { reflightsOfRounds } from "./contest-reflights";
 
 export type ResultsData = {
-  contest: { id: string; name: string; startsOn: string; fieldName: string; dropRule: string; clubId: string; publicToken: string | null };
+  contest: { id: string; name: string; startsOn: string; fieldName: string; dropRule: string; clubId: string; publicToken: string | null; flyOffPilots: number | null };
   input: StandingsInput;
   /** Each slot's flights as recorded: a paper card's times, or the linked run lane's derived flights. */
   flights: { roundId: string; groupNumber: number; entryId: string; runFlights: { timeTenths: number; creditedTenths: number; status: string; reason: string | null }[] | null }[];
@@ -31,7 +31,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .orderBy(asc(groupSlots.groupNumber));
   const reflights = await reflightsOfRounds(db, rounds.map((r) => r.id));
   return {
-    contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken },
+    contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken, flyOffPilots: c.flyOffPilots },
     input: {
       dropRule: c.dropRule,
       halves: c.halves,
@@ -47,7 +47,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
   };
 }
 
-/** A round of the contest (preliminary by number), with its task; null when there is none. */
+/** A round of the contest by number (preliminary, or the fly-off's with `flyOff`), with its task; null when there is none. */
 export async function getRound(db: Database, p: { contestId: string; roundNumber: number; flyOff?: boolean }) {
   const [r] = await db.select({ id: contestRounds.id, number: contestRounds.number, task: contestRounds.task }).from(contestRounds)
     .where(and(eq(contestRounds.contestId, p.contestId), eq(contestRounds.number, p.roundNumber), eq(contestRounds.isFlyOff, p.flyOff ?? false)));

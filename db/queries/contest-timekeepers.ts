@@ -91,7 +91,7 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
     const key = `${r.roundId}:${r.groupNumber}`;
     const d = duties.get(key) ?? {
       contestId: r.contestId, ...(r.clubId ? { clubId: r.clubId } : {}), contestName: r.contestName, fieldName: r.fieldName, startsOn: r.startsOn,
-      roundId: r.roundId, roundNumber: r.roundNumber, groupNumber: r.groupNumber, task: r.task as Record<string, unknown>, pilots: [],
+      roundId: r.roundId, roundNumber: r.roundNumber, flyOff: r.isFlyOff, groupNumber: r.groupNumber, task: r.task as Record<string, unknown>, pilots: [],
     };
     d.pilots.push({ entryId: r.entryId, name: r.name });
     duties.set(key, d);

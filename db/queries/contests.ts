@@ -11,10 +11,13 @@ export type EntryRow = typeof contestEntries.$inferSelect;
 
 /** Creates a contest with its rounds (each round's whole catalogue task stored, tagged with its edition). */
 export async function createContest(db: Database, p: { clubId: string; userId: string; input: CreateContestInput }): Promise<ContestRow> {
-  const { rounds, entriesCloseAt, ...rest } = p.input;
+  const { rounds, flyOffRounds, entriesCloseAt, ...rest } = p.input;
   return db.transaction(async (tx) => {
     const [row] = await tx.insert(contests).values({ ...rest, entriesCloseAt: entriesCloseAt === null ? null : new Date(entriesCloseAt), clubId: p.clubId, createdBy: p.userId, status: "open" }).returning();
-    await tx.insert(contestRounds).values(rounds.map((r, i) => ({ contestId: row!.id, number: i + 1, task: getCatalogueTask(r.letter) })));
+    await tx.insert(contestRounds).values([
+      ...rounds.map((r, i) => ({ contestId: row!.id, number: i + 1, task: getCatalogueTask(r.letter) })),
+      ...flyOffRounds.map((r, i) => ({ contestId: row!.id, number: i + 1, isFlyOff: true, task: getCatalogueTask(r.letter) })),
+    ]);
     return row!;
   });
 }
@@ -34,10 +37,12 @@ export async function contestClubId(db: Database, contestId: string): Promise<st
 export async function getContest(db: Database, contestId: string) {
   const [contest] = await db.select().from(contests).where(eq(contests.id, contestId));
   if (!contest) return null;
-  const rounds = await db.select({ id: contestRounds.id, number: contestRounds.number, task: contestRounds.task })
-    .from(contestRounds).where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, false))).orderBy(asc(contestRounds.number));
+  const all = await db.select({ id: contestRounds.id, number: contestRounds.number, isFlyOff: contestRounds.isFlyOff, task: contestRounds.task })
+    .from(contestRounds).where(eq(contestRounds.contestId, contestId)).orderBy(asc(contestRounds.isFlyOff), asc(contestRounds.number));
   const entries = await db.select().from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.createdAt), asc(contestEntries.id));
-  return { contest, rounds: rounds.map((r) => ({ ...r, task: r.task as TaskDefinition })), entries };
+  const pick = (flyOff: boolean) => all.filter((r) => r.isFlyOff === flyOff).map((r) => ({ id: r.id, number: r.number, task: r.task as TaskDefinition }));
+  /** `rounds`: the preliminary rounds (the draw's); `flyOffRounds`: the fly-off's, numbered on their own. */
+  return { contest, rounds: pick(false), flyOffRounds: pick(true), entries };
 }
 
 /** A pilot enters with models of their own hangar; "taken" when already entered, "models" when a model is not theirs. */
@@ -77,11 +82,11 @@ export async function withdrawEntry(db: Database, p: { contestId: string; entryI
   return rows.length > 0;
 }
 
-/** The draw's group lists: per round, per group, the entries' ids. */
-export async function listSlots(db: Database, contestId: string) {
+/** The draw's group lists: per round, per group, the entries' ids (preliminary rounds; `flyOff` for the fly-off's). */
+export async function listSlots(db: Database, contestId: string, flyOff = false) {
   return db.select({ roundNumber: contestRounds.number, groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId })
     .from(groupSlots).innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
-    .where(eq(contestRounds.contestId, contestId)).orderBy(asc(contestRounds.number), asc(groupSlots.groupNumber));
+    .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, flyOff))).orderBy(asc(contestRounds.number), asc(groupSlots.groupNumber));
 }
 
 /** Coming contests (from `today`) of every club the user belongs to, soonest first, for Home. */

@@ -28,6 +28,8 @@ export const contests = pgTable(
     halves: text("halves").$type<"half-up" | "half-even" | "down">().notNull().default("half-up"),
     /** The edition of the class rules the contest flies (lib/tasks catalogue editions). */
     rulesEdition: text("rules_edition").notNull().default("F3K-2025"),
+    /** How many pilots of the preliminary order fly the fly-off (ties at the cut-off fly too); null = no fly-off planned. */
+    flyOffPilots: smallint("fly_off_pilots"),
     /** A practice event: the rules' round checks only warn. */
     practice: boolean("practice").notNull().default(false),
     /** The draw's seed (printed with it), null until drawn; locked: no re-draw. */

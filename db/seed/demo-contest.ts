@@ -21,7 +21,9 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
  * 20261212), not locked; with an entry fee (demo-fees.ts); rounds 1–3 with results
  * (./demo-results.ts); in round 5 the officer had Gus Wendle trade groups with a pilot of another
  * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts); a
- * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 (./demo-records.ts).
+ * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 (./demo-records.ts);
+ * a fly-off planned for the best 5 in 3 rounds (tasks M, A, B), not drawn yet: rounds 4 and 5 are
+ * still to be scored, so the contest page shows why the officer cannot draw it yet.
  */
 export async function seedDemoContest(db: Database): Promise<void> {
   const contestId = await seedContest(db);
@@ -29,6 +31,16 @@ export async function seedDemoContest(db: Database): Promise<void> {
   if (contestId) await seedDemoTimekeepers(db, contestId);
   if (contestId) await seedDemoReflights(db, contestId);
   if (contestId) await seedDemoRecords(db, contestId);
+  if (contestId) await seedDemoFlyOff(db, contestId);
+}
+
+/** The demo contest's planned fly-off (F3K.10: 3–6 rounds; task M is flown in fly-offs only); added once. */
+async function seedDemoFlyOff(db: Database, contestId: string): Promise<void> {
+  const [planned] = await db.select({ id: contestRounds.id }).from(contestRounds)
+    .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true))).limit(1);
+  if (planned) return;
+  await db.update(contests).set({ flyOffPilots: 5 }).where(eq(contests.id, contestId));
+  await db.insert(contestRounds).values((["M", "A", "B"] as const).map((l, i) => ({ contestId, number: i + 1, isFlyOff: true, task: getCatalogueTask(l) })));
 }
 
 async function seedContest(db: Database): Promise<string | null> {

@@ -4,12 +4,15 @@
  * least 5 minutes and a 60 s no-fly period comes before each working time (F3K.9). For an official
  * contest a breach is an error; a practice event may break the round and timing rules with a
  * warning (club evenings fly 3 rounds of their favourite task). Task M outside a fly-off is an
- * error either way: no valid round can be built on it. A planned fly-off has 3 to 6 rounds (F3K.10).
+ * error either way: no valid round can be built on it. A planned fly-off has 3 to 6 rounds (F3K.10)
+ * and says how many pilots fly it (RULES.md leaves that to the organiser).
  */
 import { flyOffPlanProblems } from "@/lib/scoring/fly-off";
+import { MAX_FLY_OFF_PILOTS, MIN_FLY_OFF_PILOTS } from "./fly-off-draw";
 
 export type RoundPlan = { letter: string; flyOff?: boolean };
-export type SetupPlan = { rounds: RoundPlan[]; practice: boolean; prepMinutes: number; noFlySeconds: number };
+/** `flyOffPilots`: how many pilots of the preliminary order fly the fly-off (the rules leave it to the organiser). */
+export type SetupPlan = { rounds: RoundPlan[]; practice: boolean; prepMinutes: number; noFlySeconds: number; flyOffPilots?: number | null };
 export type SetupCheck = { errors: string[]; warnings: string[] };
 
 export const MIN_ROUNDS = 5;
@@ -23,6 +26,12 @@ export function checkSetup(plan: SetupPlan): SetupCheck {
   });
   const flyOffRounds = plan.rounds.length - main.length;
   if (flyOffRounds > 0) errors.push(...flyOffPlanProblems(flyOffRounds));
+  if (flyOffRounds > 0 && plan.flyOffPilots !== undefined) {
+    const n = plan.flyOffPilots;
+    if (n === null || !Number.isInteger(n) || n < MIN_FLY_OFF_PILOTS || n > MAX_FLY_OFF_PILOTS) {
+      errors.push(`Give how many pilots fly the fly-off: ${MIN_FLY_OFF_PILOTS} to ${MAX_FLY_OFF_PILOTS}.`);
+    }
+  }
   if (main.length < MIN_ROUNDS) soft.push(`A valid contest has at least ${MIN_ROUNDS} rounds (F3K.10); this one has ${main.length}.`);
   const seen = new Map<string, number>();
   main.forEach((r, i) => {

@@ -64,6 +64,7 @@ export type Standings = {
   pilots: PilotRow[];
   /** F3K.10: at least 5 rounds flown. */
   valid: boolean;
+  /** The fly-off's table once it is drawn (null: none planned, or not drawn yet). */
   flyOff: { rounds: { number: number; letter: string | null; name: string }[]; pilots: PilotRow[]; counted: boolean } | null;
   /** The final order: fly-off pilots first when the fly-off counts (F3K.10), then the preliminary order. */
   final: (FinalPlace & { name: string })[];
@@ -173,8 +174,9 @@ export function contestStandings(input: StandingsInput): Standings {
   const flyOffAll = input.rounds.filter((r) => r.isFlyOff).sort((a, b) => a.number - b.number);
   let flyOff: Standings["flyOff"] = null;
   let final: FinalPlace[];
-  if (flyOffAll.length > 0) {
-    const flyers = entries.filter((e) => input.slots.some((s) => s.entryId === e.id && flyOffAll.some((r) => r.id === s.roundId)));
+  // A fly-off planned but not drawn yet (no pilot in its rounds) has no table: the preliminary order stands.
+  const flyers = entries.filter((e) => input.slots.some((s) => s.entryId === e.id && flyOffAll.some((r) => r.id === s.roundId)));
+  if (flyers.length > 0) {
     // A fly-off round counts once every fly-off pilot has a result in it (lib/scoring finalResults).
     const complete = flyOffAll.filter((r) => flyers.every((e) => scored.get(r.id)?.get(e.id)?.resultTenths != null));
     const flyRows = pilotRows(complete, scored, flyers, Number.POSITIVE_INFINITY, true);

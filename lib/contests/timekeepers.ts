@@ -43,13 +43,20 @@ export function timekeeperProblem(
 export type ContestDuty = {
   contestId: string; contestName: string; fieldName: string; startsOn: string;
   roundId: string; roundNumber: number; groupNumber: number;
+  /** A fly-off round (numbered apart from the preliminary ones); absent from phones synced before fly-offs: false. */
+  flyOff?: boolean;
   task: Record<string, unknown>;
   pilots: { entryId: string; name: string }[];
 };
 
-/** "Contest: round N, group G — pilots A, B, C": the duty as the Field shows it. */
-export function dutyText(d: Pick<ContestDuty, "roundNumber" | "groupNumber" | "pilots">): string {
-  return `round ${d.roundNumber}, group ${d.groupNumber} — pilots ${d.pilots.map((p) => p.name).join(", ")}`;
+/** "Contest: round N, group G — pilots A, B, C" ("fly-off round N, …"): the duty as the Field shows it. */
+export function dutyText(d: Pick<ContestDuty, "roundNumber" | "groupNumber" | "pilots" | "flyOff">): string {
+  return `${dutyRound(d)}, group ${d.groupNumber} — pilots ${d.pilots.map((p) => p.name).join(", ")}`;
+}
+
+/** "round N" or "fly-off round N". */
+export function dutyRound(d: Pick<ContestDuty, "roundNumber" | "flyOff">): string {
+  return `${d.flyOff ? "fly-off round" : "round"} ${d.roundNumber}`;
 }
 
 /** The lanes a duty's window gets: one per pilot, in the duty's order, named, each tied to the pilot's entry. */

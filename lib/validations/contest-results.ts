@@ -1,11 +1,17 @@
 import { z } from "zod";
+import { parseRoundKey, roundKey } from "@/lib/contests/round-key";
 import { PAPER_MAX_FLIGHT_TENTHS, PAPER_MAX_FLIGHTS } from "@/lib/contests/paper-card";
 import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
 
+/** A round's URL: `[roundNumber]` is "3" (round 3) or "fly-off-2" (fly-off round 2), lib/contests/round-key.ts. */
 export const roundParamsSchema = z.object({
   contestId: z.uuid("Not a contest."),
-  roundNumber: z.string().regex(/^[1-9]\d?$/, "Not a round.").transform(Number),
-});
+  roundNumber: z.string().max(12, "Not a round.").transform((key, ctx) => {
+    const ref = parseRoundKey(key);
+    if (!ref) { ctx.addIssue({ code: "custom", message: "Not a round." }); return z.NEVER; }
+    return ref;
+  }),
+}).transform(({ contestId, roundNumber }) => ({ contestId, roundNumber: roundNumber.number, flyOff: roundNumber.flyOff, roundKey: roundKey(roundNumber) }));
 
 /** One group's paper cards in a round: per pilot the flight times (tenths of a second; null keeps a timed run), penalty points and the signature. */
 export const groupCardsSchema = z.object({

@@ -14,6 +14,8 @@ export const pulledDutySchema = z.object({
   startsOn: z.string().max(10),
   roundId: z.uuid(),
   roundNumber: z.number().int(),
+  /** A fly-off round (its own numbering); absent in pulls from servers before fly-offs. */
+  flyOff: z.boolean().optional(),
   groupNumber: z.number().int(),
   task: z.record(z.string(), z.unknown()),
   pilots: z.array(z.object({ entryId: z.uuid(), name: z.string().max(500) })).min(1).max(30),

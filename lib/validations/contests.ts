@@ -1,5 +1,7 @@
 import { z } from "zod";
+import { MAX_FLY_OFF_PILOTS, MIN_FLY_OFF_PILOTS } from "@/lib/contests/fly-off-draw";
 import { CURRENCIES, MAX_FEE_CENTS, MIN_FEE_CENTS } from "@/lib/payments/fees";
+import { FLY_OFF_ROUNDS } from "@/lib/scoring/fly-off";
 import { CATALOGUE_EDITION } from "@/lib/tasks/catalogue";
 import { taskLetterSchema } from "@/lib/tasks/definition";
 import { text } from "./bounds";
@@ -14,6 +16,10 @@ export const createContestSchema = z.object({
   startsOn: calendarDaySchema,
   fieldName: text(80).trim().min(1, "Choose the field.").max(80, "Use at most 80 characters."),
   rounds: z.array(z.object({ letter: taskLetterSchema })).min(1, "Add at least one round.").max(20, "At most 20 rounds."),
+  /** The fly-off's rounds, each with its task (3–6, F3K.10; task M only here), and how many pilots qualify; none: no fly-off. */
+  flyOffRounds: z.array(z.object({ letter: taskLetterSchema }), "Give the fly-off rounds as a list.").max(FLY_OFF_ROUNDS.max, `A fly-off has at most ${FLY_OFF_ROUNDS.max} rounds (F3K.10).`).default([]),
+  flyOffPilots: z.number("Give how many pilots fly the fly-off.").int("Give a whole number of pilots for the fly-off.")
+    .min(MIN_FLY_OFF_PILOTS, `At least ${MIN_FLY_OFF_PILOTS} pilots fly a fly-off.`).max(MAX_FLY_OFF_PILOTS, `At most ${MAX_FLY_OFF_PILOTS} pilots fly a fly-off (one group).`).nullable().default(null),
   maxGroupSize: z.number().int().min(5, "Groups hold at least 5 pilots (F3K.9.1).").max(30, "At most 30 pilots a group."),
   prepMinutes: z.number().int().min(1).max(60),
   noFlySeconds: z.number().int().min(0).max(600),
@@ -28,6 +34,8 @@ export const createContestSchema = z.object({
   entriesCloseAt: z.iso.datetime({ offset: true, message: "Give the closing time as a date and time." }).nullable().default(null)
     .refine((s) => s === null || (Date.parse(s) > Date.parse("2000-01-01T00:00:00Z") && Date.parse(s) < Date.parse("2200-01-01T00:00:00Z")), "Entries close between 2000 and 2200."),
 }).superRefine((c, ctx) => {
+  if (c.flyOffRounds.length > 0 && c.flyOffPilots === null) ctx.addIssue({ code: "custom", path: ["flyOffPilots"], message: "Give how many pilots fly the fly-off." });
+  if (c.flyOffRounds.length === 0 && c.flyOffPilots !== null) ctx.addIssue({ code: "custom", path: ["flyOffRounds"], message: "Plan the fly-off's rounds (3 to 6, F3K.10), or leave the number of fly-off pilots empty." });
   if (c.entryFeeCents !== null && c.entriesCloseAt === null) ctx.addIssue({ code: "custom", path: ["entriesCloseAt"], message: "A contest with an entry fee needs the time entries close (withdrawals before it are refunded)." });
   if (c.entriesCloseAt !== null && Date.parse(c.entriesCloseAt) > Date.parse(`${c.startsOn}T23:59:59Z`) + 14 * 3600_000) ctx.addIssue({ code: "custom", path: ["entriesCloseAt"], message: "Entries close on the contest day at the latest." });
 });
@@ -71,3 +79,6 @@ export const swapSchema = z.object({
 
 /** The rounds from `fromRound` on are drawn again; the seed is chosen when not given. */
 export const redrawSchema = z.object({ fromRound: roundNumber, seed: drawSchema.shape.seed });
+
+/** Draws the fly-off from the preliminary order; `replaceResults` confirms that fly-off results already entered are deleted. */
+export const flyOffDrawSchema = z.object({ replaceResults: z.boolean("Say whether fly-off results may be replaced.").default(false) });

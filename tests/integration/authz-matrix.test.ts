@@ -304,6 +304,7 @@ const ROWS: Record<string, Row> = {
   "POST /api/contests/[contestId]/draw": { params: (cast) => contest.contestOfOwnersClub(cast), body: () => ({ seed: 7 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "POST /api/contests/[contestId]/draw/swap": { params: contest.drawnContestOfOwnersClub, body: contest.swapBody, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "POST /api/contests/[contestId]/draw/redraw": { params: contest.drawnContestOfOwnersClub, body: () => ({ fromRound: 2, seed: 5 }), cast: "fresh", expect: club.OFFICERS_ONLY(201) },
+  "POST /api/contests/[contestId]/draw/fly-off": { params: contest.flyOffContestOfOwnersClub, body: () => ({}), check: contest.flyOffDrawn, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "POST /api/contests/[contestId]/draw/lock": { params: (cast) => contest.contestOfOwnersClub(cast, true), cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "GET /api/contests/[contestId]/results": { params: (cast) => contest.contestOfOwnersClub(cast, true), check: contest.showsStandings, expect: contest.MEMBERS(200) },
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/cards": {

@@ -70,6 +70,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/paper-entries": { POST: "json" },
   "/api/contests/[contestId]/draw": { POST: "json" },
   "/api/contests/[contestId]/draw/lock": { POST: "none" },
+  "/api/contests/[contestId]/draw/fly-off": { POST: "json" },
   "/api/contests/[contestId]/draw/swap": { POST: "json" },
   "/api/contests/[contestId]/draw/redraw": { POST: "json" },
   "/api/contests/[contestId]/results": { GET: "query" },

@@ -1,5 +1,5 @@
 import { randomBytes } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { expect } from "vitest";
 import { contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
@@ -182,4 +182,30 @@ export async function recordDecided(ctx: { user: { id: string } }): Promise<void
   expect(rows).toHaveLength(1);
   expect(rows[0]).toMatchObject({ outcome: "set-aside", decidedBy: ctx.user.id });
   await db.update(slotRecords).set({ outcome: null, decidedBy: null, decidedAt: null }).where(eq(slotRecords.slotId, slot!.id));
+}
+
+/**
+ * A contest ready for its fly-off: the 5 preliminary rounds all scored (Matrix One 150.0 s, Matrix Two
+ * 120.0 s on signed paper cards), a fly-off of 3 rounds planned for the best 2, not drawn yet.
+ */
+export async function flyOffContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast);
+  await db.update(contests).set({ drawSeed: 1, flyOffPilots: 2 }).where(eq(contests.id, params.contestId!));
+  const entries = await db.select({ id: contestEntries.id, name: contestEntries.pilotName }).from(contestEntries).where(eq(contestEntries.contestId, params.contestId!));
+  const rounds = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!));
+  await db.insert(groupSlots).values(rounds.flatMap((r) => entries.map((e) => ({
+    roundId: r.id, entryId: e.id, groupNumber: 1, paperFlights: [e.name === "Matrix One" ? 1500 : 1200], signedAt: new Date(), signedFrom: "paper card",
+  }))));
+  await db.insert(contestRounds).values((["M", "A", "B"] as const).map((l, i) => ({ contestId: params.contestId!, number: i + 1, isFlyOff: true, task: getCatalogueTask(l) })));
+  return params;
+}
+
+/** After a 2xx: both pilots fly each of the 3 fly-off rounds in group 1 (a draw again by the next caller replaces it). */
+export async function flyOffDrawn(_ctx: unknown, res: Response): Promise<void> {
+  expect(await res.json()).toEqual({ pilots: ["Matrix One", "Matrix Two"], tiedAtCutOff: [] });
+  const rows = await db.select({ roundId: groupSlots.roundId, groupNumber: groupSlots.groupNumber }).from(groupSlots)
+    .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId))
+    .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true)));
+  expect(rows).toHaveLength(6);
+  expect(new Set(rows.map((r) => r.groupNumber))).toEqual(new Set([1]));
 }

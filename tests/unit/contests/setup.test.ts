@@ -31,6 +31,14 @@ describe("contest set-up against the rules", () => {
     expect(checkSetup(withFlyOff(6)).errors).toEqual([]);
     expect(checkSetup(withFlyOff(7)).errors).toEqual(["A fly-off has at most 6 rounds (F3K.10)."]);
   });
+  it("a planned fly-off says how many pilots fly it: 2 to 30 (RULES.md leaves the number to the organiser)", () => {
+    const flyOff = ["M", "A", "B"].map((letter) => ({ letter, flyOff: true }));
+    const withPilots = (flyOffPilots: number | null) => ({ ...plan("ABDFG"), rounds: [...plan("ABDFG").rounds, ...flyOff], flyOffPilots });
+    expect(checkSetup(withPilots(5)).errors).toEqual([]);
+    for (const bad of [null, 1, 31, 2.5]) expect(checkSetup(withPilots(bad)).errors, String(bad)).toEqual(["Give how many pilots fly the fly-off: 2 to 30."]);
+    // no fly-off rounds: the number is not asked for
+    expect(checkSetup({ ...plan("ABDFG"), flyOffPilots: null }).errors).toEqual([]);
+  });
   it("checks preparation (at least 5 min) and the 60 s no-fly period (F3K.9)", () => {
     expect(checkSetup(plan("ABDFG", { prepMinutes: 3, noFlySeconds: 30 })).errors).toHaveLength(2);
     expect(checkSetup(plan("ABDFG", { prepMinutes: 3, practice: true })).warnings).toEqual(["Preparation time is at least 5 minutes (F3K.9)."]);

@@ -41,6 +41,8 @@ describe("a duty on the phone", () => {
   const duty = { roundNumber: 3, groupNumber: 2, pilots: [{ entryId: "a", name: "Ilse Brook" }, { entryId: "b", name: "Oren Vale" }, { entryId: "c", name: "Pia Thorn" }] };
   it("reads as the Field shows it", () => {
     expect(dutyText(duty)).toBe("round 3, group 2 — pilots Ilse Brook, Oren Vale, Pia Thorn");
+    // a fly-off round is numbered on its own (F3K.10): the phone says which it is
+    expect(dutyText({ ...duty, flyOff: true })).toBe("fly-off round 3, group 2 — pilots Ilse Brook, Oren Vale, Pia Thorn");
   });
   it("gets one named lane per pilot, each tied to the pilot's entry", () => {
     expect(dutyLanes(duty)).toEqual({

@@ -16,6 +16,7 @@ import { ActionButton, EnterForm, PaperEntryForm, EntryDetails } from "./_compon
 import { DrawChanges } from "./_components/draw-changes";
 import { DrawChangeList, DrawLists } from "./_components/draw-lists";
 import { MyFee, OfficerFees } from "./_components/fees";
+import { DrawFlyOff } from "./_components/fly-off";
 
 const HALVES_WORDS = { "half-up": "exact halves of 0.1 point round up", "half-even": "exact halves of 0.1 point round to even", down: "points cut off at 0.1" } as const;
 
@@ -32,7 +33,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}` });
   const [found, zone] = await Promise.all([getContest(db, contestId), contestTimeZone(db, contestId)]);
   if (!found) notFound();
-  const { contest, rounds } = found;
+  const { contest, rounds, flyOffRounds } = found;
   let { entries } = found;
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
   const search = await searchParams;
@@ -48,6 +49,8 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
   const open = entriesOpen(contest, new Date());
   const models = mine ? [] : (await listModels(db, { ownerId: me.id })).filter((m) => m.status !== "retired").map((m) => ({ id: m.id, name: m.name }));
   const slots = contest.drawSeed === null ? [] : await listSlots(db, contestId);
+  const flyOffSlots = flyOffRounds.length === 0 ? [] : await listSlots(db, contestId, true);
+  const flyOffPilots = [...new Set(flyOffSlots.map((s) => s.entryId))];
   const changes = contest.drawSeed === null ? [] : await listDrawChanges(db, contestId);
   const names = new Map(entries.map((e) => [e.id, e.pilotName]));
   const letters = new Map(rounds.map((r) => [r.number, r.task.letter ?? "custom"]));
@@ -111,6 +114,26 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
           <DrawChanges contestId={contestId} slots={slots} names={Object.fromEntries(names)} rounds={rounds.map((r) => r.number)} />
         )}
       </section>
+      {flyOffRounds.length > 0 && (
+        <section aria-labelledby="fly-off" className="space-y-2">
+          <h2 id="fly-off" className="text-lg font-bold">Fly-off</h2>
+          <p className="text-sm">
+            The best {contest.flyOffPilots ?? "?"} pilots of the preliminary rounds (pilots tied at the cut-off too) fly {flyOffRounds.length} more rounds in one group;
+            preliminary points and penalties do not carry over, and once 3 fly-off rounds are complete the fly-off decides the top places (F3K.10).
+          </p>
+          <ol className="list-decimal pl-5" aria-label="Fly-off rounds">
+            {flyOffRounds.map((r) => (
+              <li key={r.id}>Task {r.task.letter}: {r.task.name}
+                {officer && flyOffPilots.length > 0 && <> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/fly-off-${r.number}`}>Timekeepers for fly-off round {r.number}</Link> · <Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/fly-off-${r.number}/cards`}>Paper cards for fly-off round {r.number}</Link></>}
+              </li>
+            ))}
+          </ol>
+          {flyOffPilots.length === 0
+            ? <p className="text-muted">Not drawn yet: the officer draws the fly-off once every preliminary round is scored.</p>
+            : <p><span className="font-semibold">Fly-off pilots ({flyOffPilots.length}):</span> {flyOffPilots.map((id) => names.get(id) ?? "?").sort().join(", ")}</p>}
+          {officer && <DrawFlyOff contestId={contestId} drawn={flyOffPilots.length > 0} />}
+        </section>
+      )}
     </div>
   );
 }

@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { getContest, listSlots } from "@/db/queries/contests";
 import type { TaskDefinition } from "@/lib/tasks";
 import { formatDate } from "@/lib/format";
+import { roundName, type RoundRef } from "@/lib/contests/round-key";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../../_components/guard";
 import { PrintButton } from "../results/_components/results-tools";
@@ -27,12 +28,15 @@ export default async function SheetsPage({ params }: { params: Promise<{ contest
   await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/sheets` });
   const found = await getContest(db, contestId);
   if (!found) notFound();
-  const { contest, rounds, entries } = found;
-  const slots = await listSlots(db, contestId);
+  const { contest, entries } = found;
+  // the preliminary rounds, then the fly-off's (their pilots once it is drawn)
+  const rounds = [...found.rounds.map((r) => ({ ...r, flyOff: false })), ...found.flyOffRounds.map((r) => ({ ...r, flyOff: true }))];
+  const [prelimSlots, flyOffSlots] = await Promise.all([listSlots(db, contestId), found.flyOffRounds.length > 0 ? listSlots(db, contestId, true) : []]);
+  const slots = [...prelimSlots.map((s) => ({ ...s, flyOff: false })), ...flyOffSlots.map((s) => ({ ...s, flyOff: true }))];
   const names = new Map(entries.map((e) => [e.id, e.pilotName]));
   const day = formatDate(new Date(`${contest.startsOn}T12:00:00Z`));
-  const groupsOf = (n: number) => {
-    const inRound = slots.filter((s) => s.roundNumber === n);
+  const groupsOf = (r: RoundRef) => {
+    const inRound = slots.filter((s) => s.roundNumber === r.number && s.flyOff === r.flyOff);
     return [...new Set(inRound.map((s) => s.groupNumber))].map((g) => ({
       group: g, pilots: inRound.filter((s) => s.groupNumber === g).map((s) => names.get(s.entryId) ?? "?").sort((a, b) => a.localeCompare(b)),
     }));
@@ -49,17 +53,17 @@ export default async function SheetsPage({ params }: { params: Promise<{ contest
         <h2 id="group-lists" className="text-lg font-bold">Group lists · {contest.name} · {day}</h2>
         {rounds.map((r) => (
           <div key={r.id}>
-            <h3 className="font-bold">Round {r.number} · task {r.task.letter}: {r.task.name}</h3>
-            <ul>{groupsOf(r.number).map(({ group, pilots }) => <li key={group}><span className="font-semibold">Group {group}:</span> {pilots.join(", ")}</li>)}</ul>
+            <h3 className="font-bold">{roundName(r)} · task {r.task.letter}: {r.task.name}</h3>
+            <ul>{groupsOf(r).map(({ group, pilots }) => <li key={group}><span className="font-semibold">Group {group}:</span> {pilots.join(", ")}</li>)}</ul>
           </div>
         ))}
         <p className="text-xs">Draw seed {contest.drawSeed ?? "—"}</p>
       </section>
-      {rounds.flatMap((r) => groupsOf(r.number).map(({ group, pilots }) => {
+      {rounds.flatMap((r) => groupsOf(r).map(({ group, pilots }) => {
         const boxes = flightBoxes(r.task);
         return (
-          <section key={`${r.id}-${group}`} aria-label={`Scoresheet round ${r.number} group ${group}`} className="print-sheet card space-y-2 rounded-xl border border-line bg-raised p-3 print:rounded-none print:border-0 print:p-0">
-            <h2 className="text-lg font-bold">Scoresheet · round {r.number} · group {group}</h2>
+          <section key={`${r.id}-${group}`} aria-label={`Scoresheet ${roundName(r).toLowerCase()} group ${group}`} className="print-sheet card space-y-2 rounded-xl border border-line bg-raised p-3 print:rounded-none print:border-0 print:p-0">
+            <h2 className="text-lg font-bold">Scoresheet · {roundName(r).toLowerCase()} · group {group}</h2>
             <p className="text-sm">{contest.name} · {day} · task {r.task.letter}: {r.task.name}</p>
             <div className="overflow-x-auto print:overflow-visible" tabIndex={0}>
               <table className="w-full border-collapse text-sm">

@@ -16,7 +16,7 @@ type Context = { params: Promise<{ slug: string }> };
 export const POST = route(async (request: Request, context: Context) => {
   const me = await requireClubRole(clubRef(await context.params), "officer");
   const input = await parseJson(request, createContestSchema);
-  const check = checkSetup(input);
+  const check = checkSetup({ ...input, rounds: [...input.rounds, ...input.flyOffRounds.map((r) => ({ ...r, flyOff: true }))] });
   if (check.errors.length > 0) throw new ValidationError(check.errors.join(" "));
   const contest = await createContest(db, { clubId: me.clubId, userId: me.id, input });
   return Response.json({ contest: { id: contest.id }, warnings: check.warnings }, { status: 201, headers: { "cache-control": "no-store" } });

@@ -10,6 +10,7 @@ import { getContest } from "@/db/queries/contests";
 import { paperCardResult } from "@/lib/contests/paper-card";
 import { MAX_PILOTS_PER_TIMEKEEPER } from "@/lib/contests/timekeepers";
 import type { TaskDefinition } from "@/lib/tasks";
+import { roundKey, roundName } from "@/lib/contests/round-key";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
@@ -23,21 +24,23 @@ export const dynamic = "force-dynamic";
 export default async function RoundPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
-  const { contestId, roundNumber } = parsed.data;
-  await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${roundNumber}` });
-  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber })]);
+  const { contestId, roundNumber, flyOff, roundKey: key } = parsed.data;
+  const name = roundName({ number: roundNumber, flyOff });
+  await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}` });
+  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff })]);
   if (!found || !round) notFound();
   const [slots, candidates, reflights, pending, lanes] = await Promise.all([
     listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
     listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }),
   ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
-  const others = found.rounds.filter((r) => r.number !== roundNumber);
+  const others = [...found.rounds.map((r) => ({ number: r.number, flyOff: false })), ...found.flyOffRounds.map((r) => ({ number: r.number, flyOff: true }))]
+    .filter((r) => r.number !== roundNumber || r.flyOff !== flyOff);
   return (
     <div className="space-y-6">
       <header className="space-y-1">
-        <p><Link className="underline" href={`/contests/${contestId}`}>{found.contest.name}</Link> · <Link className="underline" href={`/contests/${contestId}/rounds/${roundNumber}/cards`}>Paper cards</Link> · <Link className="underline" href={`/contests/${contestId}/results`}>Results</Link></p>
-        <h1 className="text-2xl font-extrabold">Round {roundNumber}: timekeepers</h1>
+        <p><Link className="underline" href={`/contests/${contestId}`}>{found.contest.name}</Link> · <Link className="underline" href={`/contests/${contestId}/rounds/${key}/cards`}>Paper cards</Link> · <Link className="underline" href={`/contests/${contestId}/results`}>Results</Link></p>
+        <h1 className="text-2xl font-extrabold">{name}: timekeepers</h1>
         <p>Task {round.task.letter}: {round.task.name}</p>
         <p className="text-sm text-muted">
           Give each pilot a timekeeper: a club member or an entered pilot who does not fly in that group, at most {MAX_PILOTS_PER_TIMEKEEPER} pilots
@@ -45,12 +48,12 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           becomes the pilots&apos; official result when it syncs back. Timekeepers follow the field&apos;s safety rules and the contest director&apos;s briefing.
         </p>
       </header>
-      {groups.length === 0 && <p className="text-muted">No draw for this round yet.</p>}
+      {groups.length === 0 && <p className="text-muted">{flyOff ? "The fly-off is not drawn yet: draw it on the contest's page once every preliminary round is scored." : "No draw for this round yet."}</p>}
       {groups.map((g) => (
         <GroupTimekeepersForm
           key={g}
           contestId={contestId}
-          roundNumber={roundNumber}
+          roundKey={key}
           groupNumber={g}
           candidates={candidates}
           pilots={slots.filter((s) => s.groupNumber === g).map((s) => ({ ...s, assignedAt: s.assignedAt?.toISOString() ?? null }))}
@@ -59,14 +62,14 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
       {groups.length > 0 && (
         <Records
           contestId={contestId}
-          roundNumber={roundNumber}
+          roundKey={key}
           rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, null, p), others: p.others.map((o) => recordView(round.task, o.id, o)) }))}
         />
       )}
       {groups.length > 0 && (
         <Reflights
           contestId={contestId}
-          roundNumber={roundNumber}
+          roundKey={key}
           task={round.task}
           groups={groups}
           lanes={lanes}
@@ -78,7 +81,7 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
       )}
       {others.length > 0 && (
         <nav aria-label="Other rounds" className="flex flex-wrap gap-3">
-          {others.map((r) => <Link key={r.id} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}`}>Round {r.number}</Link>)}
+          {others.map((r) => <Link key={roundKey(r)} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${roundKey(r)}`}>{roundName(r)}</Link>)}
         </nav>
       )}
     </div>

@@ -13,7 +13,7 @@ export type KeeperPilot = {
  * One group's timekeepers: per pilot a timekeeper from the club's members and the entered pilots
  * (those flying in this group are not offered; the server refuses them too), saved together.
  */
-export function GroupTimekeepersForm(p: { contestId: string; roundNumber: number; groupNumber: number; pilots: KeeperPilot[]; candidates: { id: string; name: string }[] }) {
+export function GroupTimekeepersForm(p: { contestId: string; /** The round's URL segment (lib/contests/round-key.ts). */ roundKey: string; groupNumber: number; pilots: KeeperPilot[]; candidates: { id: string; name: string }[] }) {
   const { send, busy, error: message } = useSend();
   const [chosen, setChosen] = useState<Record<string, string>>(() => Object.fromEntries(p.pilots.map((x) => [x.entryId, x.timekeeperUserId ?? ""])));
   const [saved, setSaved] = useState(false);
@@ -21,7 +21,7 @@ export function GroupTimekeepersForm(p: { contestId: string; roundNumber: number
   const offered = p.candidates.filter((c) => !flying.has(c.id));
   async function save() {
     const timekeepers = p.pilots.map((x) => ({ entryId: x.entryId, timekeeperUserId: chosen[x.entryId] || null }));
-    const reply = await send("PUT", `/api/contests/${p.contestId}/rounds/${p.roundNumber}/timekeepers`, { groupNumber: p.groupNumber, timekeepers });
+    const reply = await send("PUT", `/api/contests/${p.contestId}/rounds/${p.roundKey}/timekeepers`, { groupNumber: p.groupNumber, timekeepers });
     if (reply?.ok) setSaved(true);
   }
   return (

@@ -19,22 +19,22 @@ export type RecordsRow = { entryId: string; name: string; groupNumber: number; c
  * (a phone run that replaced a paper card, a second run, a run a paper card outranks). The officer
  * counts one; the decision is kept with who and when, and the standings read the slot it sets.
  */
-export function Records({ contestId, roundNumber, rows }: { contestId: string; roundNumber: number; rows: RecordsRow[] }) {
+export function Records({ contestId, roundKey, rows }: { contestId: string; roundKey: string; rows: RecordsRow[] }) {
   return (
     <section aria-labelledby="records-title" className="space-y-3 rounded-xl border-2 border-line p-3">
       <h2 id="records-title" className="text-xl font-bold">Two records for one pilot</h2>
       {rows.length === 0 ? <p className="text-muted">No pilot has two records waiting for a decision.</p> : (
-        <ul className="space-y-3">{rows.map((r) => <RecordsItem key={r.entryId} contestId={contestId} roundNumber={roundNumber} row={r} />)}</ul>
+        <ul className="space-y-3">{rows.map((r) => <RecordsItem key={r.entryId} contestId={contestId} roundKey={roundKey} row={r} />)}</ul>
       )}
     </section>
   );
 }
 
-function RecordsItem({ contestId, roundNumber, row }: { contestId: string; roundNumber: number; row: RecordsRow }) {
+function RecordsItem({ contestId, roundKey, row }: { contestId: string; roundKey: string; row: RecordsRow }) {
   const { send, busy, error } = useSend();
   const all = [row.current, ...row.others];
   const agree = all.every((r) => r.resultTenths === row.current.resultTenths);
-  const decide = (recordId: string | null) => send("PUT", `/api/contests/${contestId}/rounds/${roundNumber}/records`, { entryId: row.entryId, recordId });
+  const decide = (recordId: string | null) => send("PUT", `/api/contests/${contestId}/rounds/${roundKey}/records`, { entryId: row.entryId, recordId });
   return (
     <li aria-label={`Records, ${row.name}`} className="space-y-2">
       <p className="font-semibold">{row.name} (group {row.groupNumber}): {agree ? "the records agree" : "the records disagree"}</p>

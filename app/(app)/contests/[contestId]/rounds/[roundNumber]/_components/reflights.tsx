@@ -25,7 +25,7 @@ const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: 
  * Which result stands follows the placement (lib/scoring/reflight.ts), shown beside each.
  */
 export function Reflights(p: {
-  contestId: string; roundNumber: number; task: TaskDefinition; pilots: { entryId: string; name: string; groupNumber: number }[];
+  contestId: string; roundKey: string; task: TaskDefinition; pilots: { entryId: string; name: string; groupNumber: number }[];
   groups: number[]; reflights: ReflightRow[]; lanes: LinkableLane[];
 }) {
   const { send, busy, error } = useSend();
@@ -40,7 +40,7 @@ export function Reflights(p: {
   const own = p.pilots.find((x) => x.entryId === entryId)?.groupNumber ?? null;
   async function grant() {
     const groupNumber = placement === "original-group" ? (own ?? 1) : Number(group);
-    const reply = await send("POST", `/api/contests/${p.contestId}/rounds/${p.roundNumber}/reflights`, { entryId, cause, placement, entitled, groupNumber, reason });
+    const reply = await send("POST", `/api/contests/${p.contestId}/rounds/${p.roundKey}/reflights`, { entryId, cause, placement, entitled, groupNumber, reason });
     if (reply?.ok) { setEntryId(""); setReason(""); setGroup(""); }
   }
   return (
@@ -96,7 +96,7 @@ export function Reflights(p: {
   );
 }
 
-function ReflightItem(p: { contestId: string; roundNumber: number; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow }) {
+function ReflightItem(p: { contestId: string; roundKey: string; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow }) {
   const { r } = p;
   const { send, busy, error } = useSend();
   const [times, setTimes] = useState((r.paperFlights ?? []).map((t) => (t / 10).toFixed(1)).join(" "));
@@ -106,7 +106,7 @@ function ReflightItem(p: { contestId: string; roundNumber: number; task: TaskDef
   async function save() {
     if (bad !== null) return;
     const [runId, lane] = link === "" ? [null, null] : [link.split("#")[0]!, Number(link.split("#")[1])];
-    await send("PUT", `/api/contests/${p.contestId}/rounds/${p.roundNumber}/reflights`, {
+    await send("PUT", `/api/contests/${p.contestId}/rounds/${p.roundKey}/reflights`, {
       entryId: r.entryId, flights: runId === null && flights.length > 0 ? flights : null, runId, lane, signed,
     });
   }

@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { getRound, listLinkableLanes, listRoundSlots } from "@/db/queries/contest-results";
 import { getContest } from "@/db/queries/contests";
 import { paperCardProblem } from "@/lib/contests/paper-card";
+import { roundKey, roundName } from "@/lib/contests/round-key";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../../_components/guard";
 import { GroupCardsForm } from "./_components/group-cards-form";
@@ -16,9 +17,10 @@ export const dynamic = "force-dynamic";
 export default async function PaperCardsPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
-  const { contestId, roundNumber } = parsed.data;
-  await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${roundNumber}/cards` });
-  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber })]);
+  const { contestId, roundNumber, flyOff, roundKey: key } = parsed.data;
+  const name = roundName({ number: roundNumber, flyOff });
+  await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}/cards` });
+  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff })]);
   if (!found || !round) notFound();
   const [slots, lanes] = await Promise.all([
     listRoundSlots(db, round.id),
@@ -26,12 +28,13 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
   ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const problem = paperCardProblem(round.task);
-  const others = found.rounds.filter((r) => r.number !== roundNumber);
+  const others = [...found.rounds.map((r) => ({ number: r.number, flyOff: false })), ...found.flyOffRounds.map((r) => ({ number: r.number, flyOff: true }))]
+    .filter((r) => r.number !== roundNumber || r.flyOff !== flyOff);
   return (
     <div className="space-y-6">
       <header className="space-y-1">
         <p><Link className="underline" href={`/contests/${contestId}`}>{found.contest.name}</Link> · <Link className="underline" href={`/contests/${contestId}/results`}>Results</Link></p>
-        <h1 className="text-2xl font-extrabold">Round {roundNumber}: paper cards</h1>
+        <h1 className="text-2xl font-extrabold">{name}: paper cards</h1>
         <p>Task {round.task.letter}: {round.task.name}</p>
         <p className="text-sm text-muted">
           Type each pilot&apos;s flight times as on the card, in flown order, separated by spaces (seconds like 83.4, or 1:23.4),
@@ -40,12 +43,12 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
         </p>
       </header>
       {problem && <p role="alert" className="font-bold text-danger">{problem}</p>}
-      {groups.length === 0 && <p className="text-muted">No draw for this round yet.</p>}
+      {groups.length === 0 && <p className="text-muted">{flyOff ? "The fly-off is not drawn yet: draw it on the contest's page once every preliminary round is scored." : "No draw for this round yet."}</p>}
       {!problem && groups.map((g) => (
         <GroupCardsForm
           key={g}
           contestId={contestId}
-          roundNumber={roundNumber}
+          roundKey={key}
           groupNumber={g}
           task={round.task}
           lanes={lanes}
@@ -58,7 +61,7 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
       ))}
       {others.length > 0 && (
         <nav aria-label="Other rounds" className="flex flex-wrap gap-3">
-          {others.map((r) => <Link key={r.id} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${r.number}/cards`}>Round {r.number}</Link>)}
+          {others.map((r) => <Link key={roundKey(r)} className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/rounds/${roundKey(r)}/cards`}>{roundName(r)}</Link>)}
         </nav>
       )}
     </div>

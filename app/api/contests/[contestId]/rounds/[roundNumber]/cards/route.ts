@@ -22,7 +22,7 @@ export const PUT = route(async (request: Request, context: Context) => {
   const params = roundParamsSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError();
   await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber });
+  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
   if (!round) throw new NotFoundError("No such round.");
   const problem = body.cards.some((c) => c.flights !== null) ? paperCardProblem(round.task) : null;
   if (problem) throw new ConflictError("paper_task", problem);

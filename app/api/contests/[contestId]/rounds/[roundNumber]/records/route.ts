@@ -19,7 +19,7 @@ export const PUT = route(async (request: Request, context: Context) => {
   const params = roundParamsSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError();
   await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber });
+  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
   if (!round) throw new NotFoundError("No such round.");
   const done = await decideRecords(db, { roundId: round.id, entryId: body.entryId, userId: me.id, recordId: body.recordId });
   if (done === "no_slot") throw new ValidationError("This pilot is not drawn in this round.", []);

@@ -18,7 +18,7 @@ async function officerRound(context: Context) {
   const params = roundParamsSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError();
   await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber });
+  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
   if (!round) throw new NotFoundError("No such round.");
   return { contestId: params.data.contestId, round };
 }

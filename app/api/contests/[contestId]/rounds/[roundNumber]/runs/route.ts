@@ -22,7 +22,7 @@ export const PUT = route(async (request: Request, context: Context) => {
   const params = roundParamsSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError();
   await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber });
+  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
   if (!round) throw new NotFoundError("No such round.");
   const link = body.runId !== null && body.lane !== null ? { runId: body.runId, lane: body.lane } : null;
   const done = await linkRun(db, { contestId: params.data.contestId, roundId: round.id, entryId: body.entryId, userId: me.id, link });

@@ -52,7 +52,7 @@ function Check({ task, row, link }: { task: TaskDefinition; row: Row; link: Card
 }
 
 /** One group's cards: per pilot the flight times, penalty points and the signature; saved together. */
-export function GroupCardsForm(p: { contestId: string; roundNumber: number; groupNumber: number; task: TaskDefinition; pilots: CardPilot[]; lanes: LaneOption[] }) {
+export function GroupCardsForm(p: { contestId: string; /** The round's URL segment (lib/contests/round-key.ts). */ roundKey: string; groupNumber: number; task: TaskDefinition; pilots: CardPilot[]; lanes: LaneOption[] }) {
   const router = useRouter();
   const [rows, setRows] = useState<Record<string, Row>>(() => Object.fromEntries(p.pilots.map((x) => [x.entryId, {
     times: (x.flights ?? []).map(tenthsText).join(" "), penalty: String(x.penaltyPoints), signed: x.signed,
@@ -70,12 +70,12 @@ export function GroupCardsForm(p: { contestId: string; roundNumber: number; grou
       if (!Number.isInteger(penalty) || penalty < 0) return setMessage(`${x.name}: penalties are whole points, 0 or more.`);
       cards.push({ entryId: x.entryId, flights: flights.length === 0 ? null : flights, penaltyPoints: penalty, signed: row.signed });
     }
-    const reply = await sendJson("PUT", `/api/contests/${p.contestId}/rounds/${p.roundNumber}/cards`, { groupNumber: p.groupNumber, cards });
+    const reply = await sendJson("PUT", `/api/contests/${p.contestId}/rounds/${p.roundKey}/cards`, { groupNumber: p.groupNumber, cards });
     if (reply.ok) { setMessage(null); setSaved(true); router.refresh(); } else setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
   }
   async function link(x: CardPilot, value: string) {
     const [runId, lane] = value === "" ? [null, null] : [value.split("#")[0]!, Number(value.split("#")[1])];
-    const reply = await sendJson("PUT", `/api/contests/${p.contestId}/rounds/${p.roundNumber}/runs`, { entryId: x.entryId, runId, lane });
+    const reply = await sendJson("PUT", `/api/contests/${p.contestId}/rounds/${p.roundKey}/runs`, { entryId: x.entryId, runId, lane });
     if (!reply.ok) return setMessage(reply.issues?.map((i) => i.message).join(" ") || reply.message);
     // the run's result replaces the card, and needs its own signature (F3K.1.2)
     set(x.entryId, { times: "", signed: false });

@@ -1,0 +1,1 @@
+ALTER TABLE "contests" ADD COLUMN "fly_off_pilots" smallint;
