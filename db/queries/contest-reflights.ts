@@ -5,7 +5,7 @@ import type { ReflightCause, ReflightPlacement } from "@/lib/events/schema";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { contestEntries, contestReflights, contestRounds, contests, groupSlots, runLanes, users } from "../schema";
-import { listLinkableLanes } from "./contest-results";
+import { listLinkableLanes } from "./contest-lanes";
 
 /**
  * Grants a pilot drawn in the round a re-flight (F3K.9.6, F3K.4.2), with who and when. With the

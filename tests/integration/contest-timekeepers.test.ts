@@ -4,7 +4,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
-import { listLinkableLanes } from "@/db/queries/contest-results";
+import { listLinkableLanes } from "@/db/queries/contest-lanes";
 import { listChanges } from "@/db/queries/sync-pull";
 import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
