@@ -239,7 +239,7 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   const lane = officer.getByRole("list", { name: "Runs of the day" }).locator(`[data-run-id="${runId}"] li`).filter({ hasText: "Ada Fenwick" });
   await expect(lane).toContainText(`, ${clubFlights} flight`);
   await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …e-tobi/ }).check();
-  await form.getByLabel("Note", { exact: true }).fill("Trying the backup phone.");
+  await form.getByRole("textbox", { name: "Note", exact: true }).fill("Trying the backup phone.");
   await form.getByRole("button", { name: "Record the decision" }).click();
   await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …e-tobi stands");
   await expect(lane).toContainText(`, ${clubFlights - 1} flight`);
@@ -248,7 +248,7 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   await expect(club).not.toContainText("· used");
   // then the club phone's record (the one the rules had chosen)
   await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
-  await form.getByLabel("Note", { exact: true }).fill("The backup phone missed the last landing.");
+  await form.getByRole("textbox", { name: "Note", exact: true }).fill("The backup phone missed the last landing.");
   await form.getByRole("button", { name: "Record the decision" }).click();
   await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
   await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
