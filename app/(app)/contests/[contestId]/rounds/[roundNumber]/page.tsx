@@ -7,11 +7,12 @@ import { listRoundReflights } from "@/db/queries/contest-reflights";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
 import { getRound } from "@/db/queries/contest-results";
 import { listRoundTimekeepers, listTimekeeperCandidates } from "@/db/queries/contest-timekeepers";
-import { getContest } from "@/db/queries/contests";
+import { contestTimeZone, getContest } from "@/db/queries/contests";
 import { paperCardResult } from "@/lib/contests/paper-card";
 import { MAX_PILOTS_PER_TIMEKEEPER } from "@/lib/contests/timekeepers";
 import type { TaskDefinition } from "@/lib/tasks";
 import { roundKey, roundName } from "@/lib/contests/round-key";
+import { formatClock } from "@/lib/format";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
@@ -28,7 +29,7 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   const { contestId, roundNumber, flyOff, roundKey: key } = parsed.data;
   const name = roundName({ number: roundNumber, flyOff });
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}` });
-  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff })]);
+  const [found, round, zone] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff }), contestTimeZone(db, contestId)]);
   if (!found || !round) notFound();
   const [slots, candidates, reflights, pending, lanes] = await Promise.all([
     listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
@@ -64,13 +65,14 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
         <Records
           contestId={contestId}
           roundKey={key}
-          rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, null, p), others: p.others.map((o) => recordView(round.task, o.id, o)) }))}
+          rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, zone, null, p), others: p.others.map((o) => recordView(round.task, zone, o.id, o)) }))}
         />
       )}
       {groups.length > 0 && (
         <Reflights
           contestId={contestId}
           roundKey={key}
+          timeZone={zone}
           task={round.task}
           groups={groups}
           lanes={lanes}
@@ -89,10 +91,10 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   );
 }
 
-const stamp = (d: Date | null) => (d ? `${d.toISOString().slice(0, 16).replace("T", " ")} UTC` : "");
+const stamp = (d: Date | null, zone: string) => (d ? formatClock(d, zone, "short") : "");
 
 /** One record as the officer compares it: what it is, its result (a paper card through the task engine, a run's server result), who recorded it, its signature. */
-function recordView(task: TaskDefinition, id: string | null, r: {
+function recordView(task: TaskDefinition, zone: string, id: string | null, r: {
   paperFlights: number[] | null; runId: string | null; lane: number | null; runResultTenths: number | null; recordedAt: Date | null; recordedBy: string | null; signedAt: Date | null; signedFrom: string | null;
 }): RecordView {
   const paper = r.paperFlights !== null;
@@ -100,7 +102,7 @@ function recordView(task: TaskDefinition, id: string | null, r: {
     id,
     what: paper ? `Paper card: ${r.paperFlights!.map((t) => (t / 10).toFixed(1)).join(" ")}` : r.runId ? `Timed run, lane ${(r.lane ?? 0) + 1}` : "Nothing recorded",
     resultTenths: paper ? paperCardResult(task, r.paperFlights!).tenths : r.runResultTenths,
-    recorded: `recorded by ${r.recordedBy ?? "someone"} ${stamp(r.recordedAt)}`.trim(),
-    signed: r.signedAt ? `signed ${stamp(r.signedAt)}${r.signedFrom ? `, ${r.signedFrom}` : ""}` : "not signed",
+    recorded: `recorded by ${r.recordedBy ?? "someone"} ${stamp(r.recordedAt, zone)}`.trim(),
+    signed: r.signedAt ? `signed ${stamp(r.signedAt, zone)}${r.signedFrom ? `, ${r.signedFrom}` : ""}` : "not signed",
   };
 }

@@ -7,6 +7,7 @@ import type { LinkableLane } from "@/lib/contests/linkable";
 import { paperCardResult } from "@/lib/contests/paper-card";
 import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, type ReflightCause, type ReflightPlacement } from "@/lib/events/schema";
 import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
+import { formatClock } from "@/lib/format";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
 import { readTimes } from "../cards/_components/group-cards-form";
 
@@ -17,7 +18,6 @@ export type ReflightRow = {
 };
 
 const field = "mt-1 block min-h-12 w-full rounded-lg border border-line bg-raised p-2";
-const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 /**
  * The round's re-flights (F3K.9.6, F3K.4.2): the officer grants one (why, where it is flown, who
@@ -25,7 +25,7 @@ const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: 
  * Which result stands follows the placement (lib/scoring/reflight.ts), shown beside each.
  */
 export function Reflights(p: {
-  contestId: string; roundKey: string; task: TaskDefinition; pilots: { entryId: string; name: string; groupNumber: number }[];
+  contestId: string; roundKey: string; timeZone: string; task: TaskDefinition; pilots: { entryId: string; name: string; groupNumber: number }[];
   groups: number[]; reflights: ReflightRow[]; lanes: LinkableLane[];
 }) {
   const { send, busy, error } = useSend();
@@ -96,7 +96,7 @@ export function Reflights(p: {
   );
 }
 
-function ReflightItem(p: { contestId: string; roundKey: string; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow }) {
+function ReflightItem(p: { contestId: string; roundKey: string; timeZone: string; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow }) {
   const { r } = p;
   const { send, busy, error } = useSend();
   const [times, setTimes] = useState((r.paperFlights ?? []).map((t) => (t / 10).toFixed(1)).join(" "));
@@ -115,7 +115,7 @@ function ReflightItem(p: { contestId: string; roundKey: string; task: TaskDefini
   return (
     <li aria-label={`Re-flight, ${r.name}`} className="space-y-2 rounded-lg border border-line p-2">
       <p className="font-semibold">{r.name}: {REFLIGHT_CAUSE_WORDS[r.cause]}, {REFLIGHT_PLACEMENT_WORDS[r.placement].label} (group {r.groupNumber}){r.entitled ? "" : ", flies again with the re-flyer"}</p>
-      <p className="text-sm text-muted">Granted by {r.grantedBy ?? "a former officer"} on {when.format(new Date(r.grantedAt))} UTC{r.reason ? ` · ${r.reason}` : ""}. {r.entitled ? REFLIGHT_PLACEMENT_WORDS[r.placement].stands : "the better of the two results stands"}.</p>
+      <p className="text-sm text-muted">Granted by {r.grantedBy ?? "a former officer"} on {formatClock(new Date(r.grantedAt), p.timeZone, "long")}{r.reason ? ` · ${r.reason}` : ""}. {r.entitled ? REFLIGHT_PLACEMENT_WORDS[r.placement].stands : "the better of the two results stands"}.</p>
       <form aria-label={`Re-flight result, ${r.name}`} className="space-y-2" onSubmit={(e) => { e.preventDefault(); void save(); }}>
         <label className="block">Re-flight times of {r.name}
           <input className={`${field} figures`} inputMode="decimal" autoComplete="off" value={times} disabled={link !== ""} onChange={(e) => setTimes(e.target.value)} />
@@ -127,7 +127,7 @@ function ReflightItem(p: { contestId: string; roundKey: string; task: TaskDefini
               {r.runId && !p.lanes.some((l) => `${l.runId}#${l.lane}` === `${r.runId}#${r.lane}`) && <option value={`${r.runId}#${r.lane}`}>The linked run</option>}
               {p.lanes.map((l) => (
                 <option key={`${l.runId}#${l.lane}`} value={`${l.runId}#${l.lane}`}>
-                  {l.startedAt.slice(11, 16)} UTC · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
+                  {formatClock(new Date(l.startedAt), p.timeZone, "time")} · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
                 </option>
               ))}
             </select>

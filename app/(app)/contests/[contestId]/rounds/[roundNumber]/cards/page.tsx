@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
 import { getRound, listRoundSlots } from "@/db/queries/contest-results";
-import { getContest } from "@/db/queries/contests";
+import { contestTimeZone, getContest } from "@/db/queries/contests";
 import { paperCardProblem } from "@/lib/contests/paper-card";
 import { roundKey, roundName } from "@/lib/contests/round-key";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
@@ -21,7 +21,7 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
   const { contestId, roundNumber, flyOff, roundKey: key } = parsed.data;
   const name = roundName({ number: roundNumber, flyOff });
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}/cards` });
-  const [found, round] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff })]);
+  const [found, round, zone] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff }), contestTimeZone(db, contestId)]);
   if (!found || !round) notFound();
   const [slots, lanes] = await Promise.all([
     listRoundSlots(db, round.id),
@@ -53,6 +53,7 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
           groupNumber={g}
           task={round.task}
           lanes={lanes}
+          timeZone={zone}
           pilots={slots.filter((s) => s.groupNumber === g).map((s) => ({
             entryId: s.entryId, name: s.name, flights: s.paperFlights, penaltyPoints: s.penaltyPoints,
             signed: s.signedAt !== null, recordedAt: s.recordedAt?.toISOString() ?? null,

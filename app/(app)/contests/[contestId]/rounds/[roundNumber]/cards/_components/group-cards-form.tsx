@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 import { PAPER_MAX_FLIGHTS, paperCardResult, parseFlightTime } from "@/lib/contests/paper-card";
 import { reasonText, STATUS_MARK } from "@/lib/field/display";
+import { formatClock } from "@/lib/format";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
 import type { LinkableLane } from "@/lib/contests/linkable";
 
@@ -52,7 +53,7 @@ function Check({ task, row, link }: { task: TaskDefinition; row: Row; link: Card
 }
 
 /** One group's cards: per pilot the flight times, penalty points and the signature; saved together. */
-export function GroupCardsForm(p: { contestId: string; /** The round's URL segment (lib/contests/round-key.ts). */ roundKey: string; groupNumber: number; task: TaskDefinition; pilots: CardPilot[]; lanes: LaneOption[] }) {
+export function GroupCardsForm(p: { contestId: string; /** The round's URL segment (lib/contests/round-key.ts). */ roundKey: string; groupNumber: number; task: TaskDefinition; pilots: CardPilot[]; lanes: LaneOption[]; /** The club's IANA zone: times shown on its clock. */ timeZone: string }) {
   const router = useRouter();
   const [rows, setRows] = useState<Record<string, Row>>(() => Object.fromEntries(p.pilots.map((x) => [x.entryId, {
     times: (x.flights ?? []).map(tenthsText).join(" "), penalty: String(x.penaltyPoints), signed: x.signed,
@@ -102,7 +103,7 @@ export function GroupCardsForm(p: { contestId: string; /** The round's URL segme
                   {x.link && !p.lanes.some((l) => l.runId === x.link!.runId && l.lane === x.link!.lane) && <option value={`${x.link.runId}#${x.link.lane}`}>The linked run</option>}
                   {p.lanes.map((l) => (
                     <option key={`${l.runId}#${l.lane}`} value={`${l.runId}#${l.lane}`}>
-                      {l.startedAt.slice(11, 16)} UTC · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
+                      {formatClock(new Date(l.startedAt), p.timeZone, "time")} · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
                     </option>
                   ))}
                 </select>
