@@ -76,7 +76,7 @@ test("the officer plans a fly-off, scores the preliminary rounds, draws the fly-
   await page.goto(`/contests/${contestId}`);
   await section.getByRole("button", { name: "Draw the fly-off" }).click();
   await expect(section.getByRole("status")).toHaveText("Tied at the cut-off, all of them fly: Tamsin Oakhurst, Ulric Fenmore.");
-  await expect(section.getByText(/^Fly-off pilots \(4\):/)).toHaveText("Fly-off pilots (4): Rhea Calloway, Silas Penwright, Tamsin Oakhurst, Ulric Fenmore");
+  await expect(section.locator("p", { hasText: /^Fly-off pilots \(4\):/ })).toHaveText("Fly-off pilots (4): Rhea Calloway, Silas Penwright, Tamsin Oakhurst, Ulric Fenmore");
 
   // Fly-off round 1 (task M, flights against 180, 300, 420 s): its timekeepers' page and its paper cards.
   await page.getByRole("link", { name: "Timekeepers for fly-off round 1" }).click();
