@@ -8,6 +8,7 @@ import { paperCardResult } from "@/lib/contests/paper-card";
 import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, type ReflightCause, type ReflightPlacement } from "@/lib/events/schema";
 import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock } from "@/lib/format";
+import { LinkedRunSelect } from "@/components/contests/linked-run-select";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
 import { readTimes } from "../cards/_components/group-cards-form";
 
@@ -121,17 +122,8 @@ function ReflightItem(p: { contestId: string; roundKey: string; timeZone: string
           <input className={`${field} figures`} inputMode="decimal" autoComplete="off" value={times} disabled={link !== ""} onChange={(e) => setTimes(e.target.value)} />
         </label>
         {(p.lanes.length > 0 || r.runId) && (
-          <label className="block">Timed run of {r.name}&apos;s re-flight
-            <select className={field} value={link} onChange={(e) => setLink(e.target.value)}>
-              <option value="">None (paper card)</option>
-              {r.runId && !p.lanes.some((l) => `${l.runId}#${l.lane}` === `${r.runId}#${r.lane}`) && <option value={`${r.runId}#${r.lane}`}>The linked run</option>}
-              {p.lanes.map((l) => (
-                <option key={`${l.runId}#${l.lane}`} value={`${l.runId}#${l.lane}`}>
-                  {formatClock(new Date(l.startedAt), p.timeZone, "time")} · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
-                </option>
-              ))}
-            </select>
-          </label>
+          <LinkedRunSelect label={`Timed run of ${r.name}'s re-flight`} lanes={p.lanes} linked={r.runId !== null && r.lane !== null ? { runId: r.runId, lane: r.lane } : null}
+            value={link} onChange={setLink} timeZone={p.timeZone} className={field} />
         )}
         {bad !== null ? <p className="text-sm font-bold text-danger">&quot;{bad}&quot; is not a flight time.</p>
           : <p className="text-sm">{result === null ? "Not flown yet: the first result stands meanwhile." : `Re-flight result ${formatTenths(result)}`}</p>}

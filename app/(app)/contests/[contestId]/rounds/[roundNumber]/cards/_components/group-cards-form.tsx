@@ -6,7 +6,7 @@ import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 import { PAPER_MAX_FLIGHTS, paperCardResult, parseFlightTime } from "@/lib/contests/paper-card";
 import { reasonText, STATUS_MARK } from "@/lib/field/display";
-import { formatClock } from "@/lib/format";
+import { LinkedRunSelect, laneValue } from "@/components/contests/linked-run-select";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
 import type { LinkableLane } from "@/lib/contests/linkable";
 
@@ -97,17 +97,8 @@ export function GroupCardsForm(p: { contestId: string; /** The round's URL segme
             </label>
             <Check task={p.task} row={row} link={x.link} />
             {(p.lanes.length > 0 || x.link) && (
-              <label className="block">Timed run of {x.name}
-                <select className={field} value={x.link ? `${x.link.runId}#${x.link.lane}` : ""} onChange={(e) => void link(x, e.target.value)}>
-                  <option value="">None (paper card)</option>
-                  {x.link && !p.lanes.some((l) => l.runId === x.link!.runId && l.lane === x.link!.lane) && <option value={`${x.link.runId}#${x.link.lane}`}>The linked run</option>}
-                  {p.lanes.map((l) => (
-                    <option key={`${l.runId}#${l.lane}`} value={`${l.runId}#${l.lane}`}>
-                      {formatClock(new Date(l.startedAt), p.timeZone, "time")} · lane {l.lane + 1} · {l.pilotName} · {l.resultTenths === null ? "no result" : formatTenths(l.resultTenths)}
-                    </option>
-                  ))}
-                </select>
-              </label>
+              <LinkedRunSelect label={`Timed run of ${x.name}`} lanes={p.lanes} linked={x.link} value={x.link ? laneValue(x.link) : ""}
+                onChange={(v) => void link(x, v)} timeZone={p.timeZone} className={field} />
             )}
             <div className="flex flex-wrap items-end gap-4">
               <label className="block w-32">Penalty points of {x.name}
