@@ -1,12 +1,12 @@
 // PUT /api/contests/[contestId]/rounds/[roundNumber]/cards — an officer enters one group's paper cards for a round
 import { db } from "@/db";
-import { getRound, saveGroupCards } from "@/db/queries/contest-results";
+import { saveGroupCards } from "@/db/queries/contest-results";
 import { paperCardProblem } from "@/lib/contests/paper-card";
 import { parseJson, route } from "@/lib/api";
-import { requireContestRole } from "@/lib/auth/contest-role";
+import { requireOfficerRound } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
-import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
-import { groupCardsSchema, roundParamsSchema } from "@/lib/validations/contest-results";
+import { ConflictError, ValidationError } from "@/lib/errors";
+import { groupCardsSchema } from "@/lib/validations/contest-results";
 
 export const dynamic = "force-dynamic";
 
@@ -19,11 +19,7 @@ type Context = { params: Promise<{ contestId: string; roundNumber: string }> };
 export const PUT = route(async (request: Request, context: Context) => {
   const me = await requireUser();
   const body = await parseJson(request, groupCardsSchema);
-  const params = roundParamsSchema.safeParse(await context.params);
-  if (!params.success) throw new NotFoundError();
-  await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
-  if (!round) throw new NotFoundError("No such round.");
+  const { round } = await requireOfficerRound(context.params);
   const problem = body.cards.some((c) => c.flights !== null) ? paperCardProblem(round.task) : null;
   if (problem) throw new ConflictError("paper_task", problem);
   const saved = await saveGroupCards(db, { roundId: round.id, groupNumber: body.groupNumber, userId: me.id, cards: body.cards });

@@ -2,32 +2,22 @@
 // PUT  /api/contests/[contestId]/rounds/[roundNumber]/reflights — an officer records a re-flight's result (paper card or timed run) and signature
 import { db } from "@/db";
 import { grantReflight, recordReflight } from "@/db/queries/contest-reflights";
-import { getRound } from "@/db/queries/contest-results";
 import { paperCardProblem } from "@/lib/contests/paper-card";
 import { parseJson, route } from "@/lib/api";
-import { requireContestRole } from "@/lib/auth/contest-role";
+import { requireOfficerRound } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
-import { ConflictError, NotFoundError, ValidationError } from "@/lib/errors";
-import { grantReflightSchema, recordReflightSchema, roundParamsSchema } from "@/lib/validations/contest-results";
+import { ConflictError, ValidationError } from "@/lib/errors";
+import { grantReflightSchema, recordReflightSchema } from "@/lib/validations/contest-results";
 
 export const dynamic = "force-dynamic";
 
 type Context = { params: Promise<{ contestId: string; roundNumber: string }> };
 
-async function officerRound(context: Context) {
-  const params = roundParamsSchema.safeParse(await context.params);
-  if (!params.success) throw new NotFoundError();
-  await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
-  if (!round) throw new NotFoundError("No such round.");
-  return { contestId: params.data.contestId, round };
-}
-
 /** 401 signed out, 404 no such contest/round or not a member, 403 not an officer; 422 a pilot not drawn in the round or a later group that is not one; 409 granted already. */
 export const POST = route(async (request: Request, context: Context) => {
   const me = await requireUser();
   const body = await parseJson(request, grantReflightSchema);
-  const { round } = await officerRound(context);
+  const { round } = await requireOfficerRound(context.params);
   const done = await grantReflight(db, { roundId: round.id, userId: me.id, ...body });
   if (done === "no_slot") throw new ValidationError("This pilot is not drawn in this round.", []);
   if (done === "bad_group") throw new ValidationError("A later group is one of this round's groups flying after the pilot's own.", []);
@@ -39,7 +29,7 @@ export const POST = route(async (request: Request, context: Context) => {
 export const PUT = route(async (request: Request, context: Context) => {
   const me = await requireUser();
   const body = await parseJson(request, recordReflightSchema);
-  const { contestId, round } = await officerRound(context);
+  const { contestId, round } = await requireOfficerRound(context.params);
   const problem = body.flights !== null ? paperCardProblem(round.task) : null;
   if (problem) throw new ConflictError("paper_task", problem);
   const link = body.runId !== null && body.lane !== null ? { runId: body.runId, lane: body.lane } : null;

@@ -1,12 +1,11 @@
 // PUT /api/contests/[contestId]/rounds/[roundNumber]/timekeepers — an officer assigns a group's timekeepers
 import { db } from "@/db";
-import { getRound } from "@/db/queries/contest-results";
 import { saveGroupTimekeepers } from "@/db/queries/contest-timekeepers";
 import { parseJson, route } from "@/lib/api";
-import { requireContestRole } from "@/lib/auth/contest-role";
+import { requireOfficerRound } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
-import { NotFoundError, ValidationError } from "@/lib/errors";
-import { groupTimekeepersSchema, roundParamsSchema } from "@/lib/validations/contest-results";
+import { ValidationError } from "@/lib/errors";
+import { groupTimekeepersSchema } from "@/lib/validations/contest-results";
 
 export const dynamic = "force-dynamic";
 
@@ -21,13 +20,9 @@ type Context = { params: Promise<{ contestId: string; roundNumber: string }> };
 export const PUT = route(async (request: Request, context: Context) => {
   const me = await requireUser();
   const body = await parseJson(request, groupTimekeepersSchema);
-  const params = roundParamsSchema.safeParse(await context.params);
-  if (!params.success) throw new NotFoundError();
-  await requireContestRole(params.data.contestId, "officer");
-  const round = await getRound(db, { contestId: params.data.contestId, roundNumber: params.data.roundNumber, flyOff: params.data.flyOff });
-  if (!round) throw new NotFoundError("No such round.");
+  const { contestId, round } = await requireOfficerRound(context.params);
   const done = await saveGroupTimekeepers(db, {
-    contestId: params.data.contestId, roundId: round.id, groupNumber: body.groupNumber, userId: me.id, choices: body.timekeepers,
+    contestId: contestId, roundId: round.id, groupNumber: body.groupNumber, userId: me.id, choices: body.timekeepers,
   });
   if (!done.saved) throw new ValidationError(done.problem, []);
   return Response.json({ saved: true }, { headers: { "cache-control": "no-store" } });
