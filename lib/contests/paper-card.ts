@@ -43,3 +43,15 @@ export function parseFlightTime(text: string): number | null {
   const tenths = (minutes * 60 + seconds) * 10 + Number((m[3] ?? "0")[0]);
   return tenths <= PAPER_MAX_FLIGHT_TENTHS ? tenths : null;
 }
+
+/** Reads the typed times: the flights in tenths, or the first word that is not a time. */
+export function readTimes(text: string): { flights: number[]; bad: string | null } {
+  const words = text.split(/[\s;]+/).filter(Boolean);
+  const flights: number[] = [];
+  for (const w of words) {
+    const t = parseFlightTime(w);
+    if (t === null) return { flights, bad: w };
+    flights.push(t);
+  }
+  return { flights, bad: null };
+}

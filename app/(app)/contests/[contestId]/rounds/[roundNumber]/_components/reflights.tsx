@@ -4,13 +4,12 @@ import { useSend } from "@/components/request/use-send";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
 import type { LinkableLane } from "@/lib/contests/linkable";
-import { paperCardResult } from "@/lib/contests/paper-card";
+import { paperCardResult, readTimes } from "@/lib/contests/paper-card";
 import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, type ReflightCause, type ReflightPlacement } from "@/lib/events/schema";
 import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock } from "@/lib/format";
 import { LinkedRunSelect } from "@/components/contests/linked-run-select";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
-import { readTimes } from "../cards/_components/group-cards-form";
 
 export type ReflightRow = {
   entryId: string; name: string; cause: ReflightCause; placement: ReflightPlacement; entitled: boolean; groupNumber: number; reason: string | null;

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { sendJson } from "@/components/request/json";
 import { Button } from "@/components/ui/button";
 import { FormError } from "@/components/ui/form-footer";
-import { PAPER_MAX_FLIGHTS, paperCardResult, parseFlightTime } from "@/lib/contests/paper-card";
+import { PAPER_MAX_FLIGHTS, paperCardResult, readTimes } from "@/lib/contests/paper-card";
 import { reasonText, STATUS_MARK } from "@/lib/field/display";
 import { LinkedRunSelect, laneValue } from "@/components/contests/linked-run-select";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
@@ -20,17 +20,6 @@ type Row = { times: string; penalty: string; signed: boolean };
 
 const tenthsText = (t: number) => (t / 10).toFixed(1);
 
-/** Reads the typed times: the flights in tenths, or the first word that is not a time. */
-export function readTimes(text: string): { flights: number[]; bad: string | null } {
-  const words = text.split(/[\s;]+/).filter(Boolean);
-  const flights: number[] = [];
-  for (const w of words) {
-    const t = parseFlightTime(w);
-    if (t === null) return { flights, bad: w };
-    flights.push(t);
-  }
-  return { flights, bad: null };
-}
 
 function Check({ task, row, link }: { task: TaskDefinition; row: Row; link: CardPilot["link"] }) {
   const { flights, bad } = readTimes(row.times);
