@@ -9,28 +9,28 @@ import { paperCardResult } from "./paper-card";
 
 export type StandingsRound = { id: string; number: number; isFlyOff: boolean; task: TaskDefinition };
 export type StandingsEntry = { id: string; name: string; team: string | null; withdrawn: boolean; pilotClass?: "senior" | "junior" };
-export type StandingsSlot = {
-  roundId: string;
-  groupNumber: number;
-  entryId: string;
+/** A result as recorded: a paper card's flight times, or the linked run lane's server result, and its signature. */
+export type RecordedResult = {
   /** The server's result of the linked run's lane (run_lanes.result_tenths, derived by lib/results runResult); null when none. */
   runResultTenths: number | null;
   /** A paper card's flight times (tenths); when present they are the result. */
   paperFlights: readonly number[] | null;
   signed: boolean;
+};
+export type StandingsSlot = RecordedResult & {
+  roundId: string;
+  groupNumber: number;
+  entryId: string;
   penaltyPoints: number;
   /** A re-flight granted in this round (F3K.9.6), with its own result and signature; absent = none. */
   reflight?: StandingsReflight | null;
 };
-export type StandingsReflight = {
+export type StandingsReflight = RecordedResult & {
   placement: ReflightPlacement;
   /** False for a group mate flying again with the re-flyer (keeps the better of two, F3K.9.6). */
   entitled: boolean;
   /** The group it is flown in: when the re-flight stands, its result is normalised there. */
   groupNumber: number;
-  runResultTenths: number | null;
-  paperFlights: readonly number[] | null;
-  signed: boolean;
 };
 export type StandingsInput = {
   rounds: readonly StandingsRound[];
