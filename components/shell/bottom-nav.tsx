@@ -4,7 +4,12 @@ import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { NAV_ITEMS } from "./nav-items";
 
-/** Thumb-reach navigation: the main screens, each a 64 px target, the current one marked by a bar and bold text. */
+/**
+ * Thumb-reach navigation: the main screens, each a 64 px target, the current one marked by a bar and bold text.
+ * No prefetch: Next would fetch and decode all six screens while the page loads, on a weak signal, on the
+ * main thread of every signed-in page (issue #10); a tap fetches its screen, and the pages the field needs
+ * offline are precached by the service worker anyway.
+ */
 export function BottomNav() {
   const path = usePathname();
   return (
@@ -16,6 +21,7 @@ export function BottomNav() {
             <li key={item.href}>
               <Link
                 href={item.href}
+                prefetch={false}
                 aria-current={current ? "page" : undefined}
                 className={`flex min-h-touch flex-col items-center justify-center gap-0.5 text-xs ${
                   current ? "font-bold text-ink" : "text-muted"

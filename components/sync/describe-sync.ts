@@ -1,6 +1,9 @@
 import type { SyncStatus } from "@/lib/offline/sync-client";
 
-const timeFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit" });
+// Made on first use, not when the top bar's code loads: a formatter is costly to build, and the
+// hydration of every signed-in page would carry it before there is anything to format (issue #10).
+let timeFormat: Intl.DateTimeFormat | undefined;
+const formatTime = (at: number | Date) => (timeFormat ??= new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit" })).format(at);
 
 /**
  * Short words for the sync state: an icon alone (or a colour) never carries it. `online` is the
@@ -30,7 +33,7 @@ export function describePull(p: NonNullable<SyncStatus["pulling"]>): string {
 /** "synced 14:05 · clock ±12 ms" — the quieter second line. */
 export function describeDetail(s: SyncStatus | null): string {
   if (!s) return "";
-  const parts = [s.lastSyncAt ? `synced ${timeFormat.format(s.lastSyncAt)}` : "not synced yet"];
+  const parts = [s.lastSyncAt ? `synced ${formatTime(s.lastSyncAt)}` : "not synced yet"];
   parts.push(s.offset ? `clock ±${Math.ceil(s.offset.boundMs)} ms` : "clock not measured");
   return parts.join(" · ");
 }

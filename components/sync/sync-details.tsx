@@ -4,7 +4,10 @@ import type { Ref } from "react";
 import type { SyncStatus } from "@/lib/offline/sync-client";
 import { useSync } from "./sync-provider";
 
-const dateTime = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", second: "2-digit" });
+// made on first use (see describe-sync.ts)
+let dateTime: Intl.DateTimeFormat | undefined;
+const formatDateTime = (at: number | Date) =>
+  (dateTime ??= new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", second: "2-digit" })).format(at);
 
 const KIND: Record<SyncStatus["rejected"][number]["kind"], string> = { event: "Tap", run: "Run", session: "Session", discard: "Deleted window" };
 
@@ -31,7 +34,7 @@ export function SyncDetails({ ref, status }: { ref: Ref<HTMLDialogElement>; stat
         <dt className="text-muted">Waiting to send</dt>
         <dd>{status?.unsent ?? 0}</dd>
         <dt className="text-muted">Last sync</dt>
-        <dd>{status?.lastSyncAt ? dateTime.format(status.lastSyncAt) : "never"}</dd>
+        <dd>{status?.lastSyncAt ? formatDateTime(status.lastSyncAt) : "never"}</dd>
         <dt className="text-muted">Device clock</dt>
         <dd>
           {status?.offset
@@ -47,7 +50,7 @@ export function SyncDetails({ ref, status }: { ref: Ref<HTMLDialogElement>; stat
         {status?.nextRetryAt && (
           <>
             <dt className="text-muted">Next try</dt>
-            <dd>{dateTime.format(status.nextRetryAt)}</dd>
+            <dd>{formatDateTime(status.nextRetryAt)}</dd>
           </>
         )}
       </dl>

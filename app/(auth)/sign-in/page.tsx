@@ -6,6 +6,7 @@ import { SignInNotice } from "./_components/sign-in-notice";
 
 export const metadata: Metadata = { title: "Sign in" };
 
+/** The links do not prefetch: that fetched and decoded both pages while this one loads (issue #10). */
 export default function SignInPage() {
   return (
     <>
@@ -15,13 +16,13 @@ export default function SignInPage() {
         <SignInForm />
       </Suspense>
       <p>
-        <Link href="/forgot-password" className="underline">
+        <Link href="/forgot-password" prefetch={false} className="underline">
           Forgot your password?
         </Link>
       </p>
       <p>
         New here?{" "}
-        <Link href="/sign-up" className="font-bold underline">
+        <Link href="/sign-up" prefetch={false} className="font-bold underline">
           Create an account
         </Link>
       </p>

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { parseInSlices } from "@/lib/offline/slices";
+import { parseInSlices, SLICE_BUDGET_MS } from "@/lib/offline/slices";
 
 const schema = z.object({ n: z.number().int() });
 
@@ -23,6 +23,23 @@ describe("parseInSlices (a pulled page is checked a slice at a time)", () => {
     expect(order.indexOf("timer")).toBeGreaterThan(0);
     expect(order.indexOf("timer")).toBeLessThan(order.length - 1);
     expect(order.filter((o) => o !== "timer")).toEqual(["item 1", "item 2", "item 3", "item 4", "item 5"]);
+  });
+
+  it("also ends a slice once it has run SLICE_BUDGET_MS, however few items it checked (a slow phone)", async () => {
+    const order: string[] = [];
+    const slow = z.unknown().transform((v) => {
+      order.push(`item ${String(v)}`);
+      return v;
+    });
+    // a clock that says each item took a whole budget: every item is a slice of its own
+    let t = 0;
+    const clock = () => (t += SLICE_BUDGET_MS);
+    setTimeout(() => order.push("timer"), 0);
+    await parseInSlices([1, 2, 3], slow, 50, clock);
+    // with 50 items a slice and no budget, all three items would run before the timer
+    expect(order.indexOf("timer")).toBeGreaterThan(0);
+    expect(order.indexOf("timer")).toBeLessThan(order.indexOf("item 3"));
+    expect(order.filter((o) => o !== "timer")).toEqual(["item 1", "item 2", "item 3"]);
   });
 
   it("stops at the first bad item and names its position", async () => {
