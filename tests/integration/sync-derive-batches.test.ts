@@ -1,5 +1,5 @@
 import "./support/session";
-import { asc, eq, inArray } from "drizzle-orm";
+import { asc, eq, inArray, sql } from "drizzle-orm";
 import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import { applyPush } from "@/db/queries/sync-push";
@@ -53,6 +53,29 @@ async function fromScratch(runId: string) {
   }).lanes;
 }
 
+/**
+ * Each lane's lane_flights rows and Season arrays as stored beside the same values computed in SQL
+ * straight from the stored JSON (lane_flights_rows_at of migration 0027 over every position; the
+ * expressions of migration 0039 over one expansion of the flights), so whatever keeps them (today a
+ * trigger and generated columns) is checked against the derivation after every push.
+ */
+async function flightsBesideJson(runId: string) {
+  const res = await db.execute<{ lane: number; rows: unknown; rowsFromJson: unknown; arrays: unknown; arraysFromJson: unknown }>(sql`
+    select l.lane,
+      (select coalesce(json_agg(json_build_array(f."position", f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec, f.ground_ms)
+        order by f."position"), '[]') from lane_flights f where f.run_id = l.run_id and f.lane = l.lane) as rows,
+      (select coalesce(json_agg(json_build_array(g."position", g.flight_index, g.launch_ms, g.land_ms, g.status, g.time_tenths, g.credited_tenths, g.target_sec, g.ground_ms)
+        order by g."position"), '[]')
+        from lane_flights_rows_at(l.derived -> 'flights', array(select generate_series(0, jsonb_array_length(l.derived -> 'flights') - 1))) g) as "rowsFromJson",
+      json_build_array(l.season_ground_ms, l.season_landed_tenths, l.season_target_sec) as arrays,
+      (select json_build_array(array_agg(x.ground order by x.p), array_agg(case when x.e ->> 'landMs' is not null then (x.e ->> 'timeTenths')::int end order by x.p),
+          case when count(x.e ->> 'targetSec') > 0 then array_agg((x.e ->> 'targetSec')::int order by x.p) end)
+        from (select t.p, t.e, (t.e ->> 'launchMs')::float8 - lag((t.e ->> 'landMs')::float8) over (order by t.p) as ground
+          from jsonb_array_elements(l.derived -> 'flights') with ordinality as t(e, p)) x) as "arraysFromJson"
+    from run_lanes l where l.run_id = ${runId}::uuid order by l.lane`);
+  return res.rows;
+}
+
 describe("derivation per push equals derivation from scratch (property)", () => {
   it(`over ${RUNS} random event sequences in random batches (seed ${SEED})`, async () => {
     const [ada] = await createSimUsers(db, 1);
@@ -100,6 +123,7 @@ describe("derivation per push equals derivation from scratch (property)", () => 
               expect(stored.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: l.derived, review: l.needsReview, reason: l.reviewReason }))).toEqual(
                 expected.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: JSON.parse(JSON.stringify(l.derived)), review: l.needsReview, reason: l.reviewReason })),
               );
+              for (const l of await flightsBesideJson(r.id)) expect([l.rows, l.arrays], `lane ${l.lane}`).toEqual([l.rowsFromJson, l.arraysFromJson]);
             }
           }
         },
