@@ -4,7 +4,8 @@
  * (5,000 / 30,000) for one new pilot, then prints:
  *  1. the season summary's p95 (every chart in one statement, db/queries/season) against a bare
  *     COUNT(*) of the same lanes — goal ≤ 10×; the runs table's first page beside it;
- *  2. the season endpoint over HTTP (signed in, production build): p95;
+ *  2. the season endpoint over HTTP (signed in, production build): p95 against a bare COUNT(*) measured in turns
+ *     with it — goal ≤ 10× (the issue's number is the endpoint's);
  *  3. /season's first-load JavaScript (gzip) against the empty page.
  */
 import os from "node:os";
@@ -53,8 +54,9 @@ try {
   if (same.totals.runs !== counted.rows[0]!.lanes || same.totals.flights !== counted.rows[0]!.flights) {
     throw new Error(`the summary counts ${same.totals.runs} runs / ${same.totals.flights} flights, the COUNT(*) ${counted.rows[0]!.lanes} / ${counted.rows[0]!.flights}`);
   }
+  const bareCount = () => db.execute(sql`select count(*) from run_lanes l join runs r on r.id = l.run_id where l.pilot_user_id = ${pilotId}`);
   const [count, summary, page] = await timedInTurns([
-    () => db.execute(sql`select count(*) from run_lanes l join runs r on r.id = l.run_id where l.pilot_user_id = ${pilotId}`),
+    bareCount,
     () => getSeasonSummary(db, { pilotId, filters, now: new Date() }),
     () => listSeasonRuns(db, { pilotId, filters, paging: { sort: "result", dir: "desc", page: 1, size: 25 } }),
   ]);
@@ -66,12 +68,17 @@ try {
   const { base, server } = await startServer("/api/health");
   try {
     const cookie = await signIn(base, email, PASSWORD);
-    const [http] = await timedInTurns([async () => {
+    const endpoint = async () => {
       const res = await fetch(`${base}/api/pilots/${pilotId}/season`, { headers: { cookie } });
       if (!res.ok) throw new Error(`season endpoint answered ${res.status}`);
-      await res.arrayBuffer();
-    }], Math.min(ROUNDS, 20));
-    console.log(`        GET /api/pilots/[pilotId]/season over HTTP (signed in): p95 ${ms(http!)} = ${(http! / count!).toFixed(1)}× the COUNT(*)`);
+      return res.text();
+    };
+    const served = JSON.parse(await endpoint()) as { totals: { runs: number; flights: number } };
+    if (served.totals.runs !== same.totals.runs || served.totals.flights !== same.totals.flights) throw new Error("the endpoint counts other totals than the summary");
+    // the endpoint in turns with its own COUNT(*), so both meet the same load (the issue's goal is the endpoint's)
+    const [httpCount, http] = await timedInTurns([bareCount, endpoint]);
+    const httpRatio = http! / httpCount!;
+    console.log(`${httpRatio <= 10 ? "  met " : "MISSED"}  GET /api/pilots/[pilotId]/season over HTTP (signed in): p95 ${ms(http!)} = ${httpRatio.toFixed(1)}× the COUNT(*) measured in turns with it (p95 ${ms(httpCount!)})   [goal ≤ 10×; load ${os.loadavg()[0]!.toFixed(2)}]`);
     const js = await firstLoadJs(base, "/season", cookie);
     console.log(`        /season first-load JS ${(js.page / 1000).toFixed(1)} kB gzip (${(js.page / js.empty).toFixed(2)}× the empty page's ${(js.empty / 1000).toFixed(1)} kB; the charts load after)`);
   } finally {
