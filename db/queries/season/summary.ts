@@ -45,7 +45,8 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
     ), weekly_turnaround as (
       select week, cardinality(turnarounds) as count, round(p[1] / 100)::int as median, round(p[2] / 100)::int as p90
       from (select week, turnarounds, (select percentile_cont(array[0.5, 0.9]) within group (order by x) from unnest(turnarounds) x) as p
-        from flight_groups where by_bin = 0 and turnarounds is not null) w
+        -- OFFSET 0: the percentiles once per week (pulled up, the sub-select ran once for each of p[1] and p[2])
+        from flight_groups where by_bin = 0 and turnarounds is not null offset 0) w
     ), month_starts as (
       select date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC' as this,
         (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
