@@ -4,7 +4,8 @@
  * (5,000 / 30,000) for one new pilot, then prints:
  *  1. the season summary's p95 (every chart in one statement, db/queries/season) against a bare
  *     COUNT(*) of the same lanes — goal ≤ 10×; the runs table's first page beside it;
- *  2. the season endpoint over HTTP (signed in, production build): p95;
+ *  2. the season endpoint over HTTP (signed in, production build): p95 against a bare COUNT(*) measured in turns
+ *     with it — goal ≤ 10× (the issue's number is the endpoint's);
  *  3. /season's first-load JavaScript (gzip) against the empty page.
  */
 import os from "node:os";
@@ -20,9 +21,14 @@ const RUNS = Number(process.env.SEASON_BENCH_RUNS ?? 5000);
 const ROUNDS = Number(process.env.SEASON_BENCH_ROUNDS ?? 40);
 const PASSWORD = "season-bench-thermals";
 
-const p95 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.ceil(xs.length * 0.95) - 1)]!;
+const quantile = (xs: number[], q: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.ceil(xs.length * q) - 1)]!;
+const p95 = (xs: number[]) => quantile(xs, 0.95);
 /** p95 of each function's time, measured in turns (a, b, a, b…) so both meet the same load on a shared machine. */
 async function timedInTurns(fns: (() => Promise<unknown>)[], rounds = ROUNDS): Promise<number[]> {
+  return (await samplesInTurns(fns, rounds)).map(p95);
+}
+/** Each function's times, measured in turns. */
+async function samplesInTurns(fns: (() => Promise<unknown>)[], rounds = ROUNDS): Promise<number[][]> {
   for (let i = 0; i < 3; i++) for (const fn of fns) await fn(); // warm: plans and caches
   const out = fns.map(() => [] as number[]);
   for (let i = 0; i < rounds; i++) {
@@ -32,7 +38,7 @@ async function timedInTurns(fns: (() => Promise<unknown>)[], rounds = ROUNDS): P
       out[k]!.push(performance.now() - t);
     }
   }
-  return out.map(p95);
+  return out;
 }
 const ms = (n: number) => `${n.toFixed(1)} ms`;
 
@@ -53,8 +59,9 @@ try {
   if (same.totals.runs !== counted.rows[0]!.lanes || same.totals.flights !== counted.rows[0]!.flights) {
     throw new Error(`the summary counts ${same.totals.runs} runs / ${same.totals.flights} flights, the COUNT(*) ${counted.rows[0]!.lanes} / ${counted.rows[0]!.flights}`);
   }
+  const bareCount = () => db.execute(sql`select count(*) from run_lanes l join runs r on r.id = l.run_id where l.pilot_user_id = ${pilotId}`);
   const [count, summary, page] = await timedInTurns([
-    () => db.execute(sql`select count(*) from run_lanes l join runs r on r.id = l.run_id where l.pilot_user_id = ${pilotId}`),
+    bareCount,
     () => getSeasonSummary(db, { pilotId, filters, now: new Date() }),
     () => listSeasonRuns(db, { pilotId, filters, paging: { sort: "result", dir: "desc", page: 1, size: 25 } }),
   ]);
@@ -66,12 +73,20 @@ try {
   const { base, server } = await startServer("/api/health");
   try {
     const cookie = await signIn(base, email, PASSWORD);
-    const [http] = await timedInTurns([async () => {
+    const endpoint = async () => {
       const res = await fetch(`${base}/api/pilots/${pilotId}/season`, { headers: { cookie } });
       if (!res.ok) throw new Error(`season endpoint answered ${res.status}`);
-      await res.arrayBuffer();
-    }], Math.min(ROUNDS, 20));
-    console.log(`        GET /api/pilots/[pilotId]/season over HTTP (signed in): p95 ${ms(http!)} = ${(http! / count!).toFixed(1)}× the COUNT(*)`);
+      return res.text();
+    };
+    const served = JSON.parse(await endpoint()) as { totals: { runs: number; flights: number } };
+    if (served.totals.runs !== same.totals.runs || served.totals.flights !== same.totals.flights) throw new Error("the endpoint counts other totals than the summary");
+    // the endpoint in turns with its own COUNT(*), so both meet the same load (the issue's goal is the endpoint's)
+    const [countTimes, httpTimes] = await samplesInTurns([bareCount, endpoint]);
+    const [httpCount, http] = [p95(countTimes!), p95(httpTimes!)];
+    const httpRatio = http / httpCount;
+    console.log(`${httpRatio <= 10 ? "  met " : "MISSED"}  GET /api/pilots/[pilotId]/season over HTTP (signed in): p95 ${ms(http)} = ${httpRatio.toFixed(1)}× the COUNT(*) measured in turns with it (p95 ${ms(httpCount)})   [goal ≤ 10×; load ${os.loadavg()[0]!.toFixed(2)}]`);
+    // under load the COUNT's p95 swings most (its rare slow turns), flattering the p95 ratio: the medians' beside it
+    console.log(`        the same at the median: ${ms(quantile(httpTimes!, 0.5))} = ${(quantile(httpTimes!, 0.5) / quantile(countTimes!, 0.5)).toFixed(1)}× the COUNT(*)'s ${ms(quantile(countTimes!, 0.5))}`);
     const js = await firstLoadJs(base, "/season", cookie);
     console.log(`        /season first-load JS ${(js.page / 1000).toFixed(1)} kB gzip (${(js.page / js.empty).toFixed(2)}× the empty page's ${(js.empty / 1000).toFixed(1)} kB; the charts load after)`);
   } finally {

@@ -6,6 +6,7 @@ import { loadItems, type ChangeRow } from "./sync-pull-items";
 import { visibility } from "./sync-visibility";
 import { notesFor } from "./coach/notes";
 import { plansOfPilot } from "./coach/plans";
+import { coachingFingerprint } from "@/lib/coach/fingerprint";
 import { dutiesOf } from "./contest-timekeepers";
 import type { Database } from "../index";
 import type { Executor } from "./sync-db";
@@ -34,6 +35,8 @@ export const PULL_PAGE_SIZE = PULL_DEFAULT_LIMIT;
  * again from the start — where the first page also names the runs it must forget (sync-forget.ts).
  * Unstarted windows deleted by their recorder (run_deletions, db/queries/run-discard.ts) are rows
  * of the same order: each page names those after the cursor that the user could see in `forget`.
+ * The last page carries the user's hangar and contest duties whole, and the coach notes and plans
+ * they may read whole unless the device's `coaching` fingerprint shows it holds them already.
  */
 export async function listChanges(db: Database, params: PullParams): Promise<PullReply> {
   // one connection and one snapshot for the whole page: a pull waits for the pool once, and its
@@ -41,7 +44,8 @@ export async function listChanges(db: Database, params: PullParams): Promise<Pul
   return db.transaction((tx) => changesPage(tx, params), { isolationLevel: "repeatable read", accessMode: "read only" });
 }
 
-type PullParams = { userId: string; cursor: string | number; limit?: number; total?: boolean };
+/** `coaching`: the fingerprint of the notes and plans the device holds (pullQuerySchema.coaching). */
+type PullParams = { userId: string; cursor: string | number; limit?: number; total?: boolean; coaching?: string };
 
 async function changesPage(db: Executor, params: PullParams): Promise<PullReply> {
   const limit = params.limit ?? PULL_PAGE_SIZE;
@@ -88,8 +92,10 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
   if (forget.size > 0) reply.forget = [...forget].slice(0, FORGET_MAX);
   if (!hasMore) {
     reply.models = await hangarOf(db, userId);
-    reply.notes = await notesFor(db, userId);
-    reply.plans = await plansOfPilot(db, userId);
+    // notes and plans only when the set differs from what the device holds (its fingerprint, echoed back)
+    const [notes, plans] = [await notesFor(db, userId), await plansOfPilot(db, userId)];
+    reply.coaching = coachingFingerprint(notes, plans);
+    if (params.coaching !== reply.coaching) Object.assign(reply, { notes, plans });
     reply.contestDuties = await dutiesOf(db, userId);
   }
   return reply;

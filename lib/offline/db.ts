@@ -59,6 +59,8 @@ export type MetaValues = {
   pullCursor: string | number;
   /** The server's visibility fingerprint at that cursor (see pullReplySchema.scope). */
   pullScope: string;
+  /** The fingerprint of the `notes` and `assignedPlans` below as the last pull sent them (pullReplySchema.coaching), sent back on each pull. */
+  pullCoaching: string;
   /** Id of the last clock measurement burst. */
   clockBurst: number;
   /** The offset estimate of the latest successful burst. */

@@ -45,13 +45,15 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
   const limit = deps.limit ?? PULL_PAGE_LIMIT;
   let cursor = String((await getMeta(db, "pullCursor")) ?? "0");
   const knownScope = (await getMeta(db, "pullScope")) ?? "";
+  const coaching = await heldCoaching(db);
   let stored = 0;
   let pages: number | null = null;
   let restarted = false;
   for (let page = 0; page < MAX_PAGES; page++) {
     const account = deps.account ? `&account=${encodeURIComponent(deps.account)}` : "";
     const total = pages === null ? "&total=1" : "";
-    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}`;
+    const held = coaching ? `&coaching=${coaching}` : "";
+    const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}${held}`;
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pageSchema);
     if (r.kind !== "ok") return r;
     const checked = await parseInSlices(r.value.items, pullItemSchema);
@@ -79,9 +81,11 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
       await setMeta(db, "pullCursor", nextCursor);
       if (scope !== undefined) await setMeta(db, "pullScope", scope);
       if (r.value.models) await setMeta(db, "models", r.value.models);
-      // whole lists: what the user may no longer read (a revoked grant) drops off here
+      // whole lists: what the user may no longer read (a revoked grant) drops off here. Notes and plans
+      // come only when they differ from the set whose fingerprint this phone sent; it keeps the new one
       if (r.value.notes) await setMeta(db, "notes", r.value.notes);
       if (r.value.plans) await setMeta(db, "assignedPlans", r.value.plans);
+      if (r.value.notes && r.value.plans && r.value.coaching) await setMeta(db, "pullCoaching", r.value.coaching);
       if (r.value.contestDuties) await setMeta(db, "contestDuties", r.value.contestDuties);
     });
     stored += items.length;
@@ -90,6 +94,15 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     if (!hasMore) return { kind: "ok", items: stored };
   }
   return { kind: "bad-reply", message: `pull still had more after ${MAX_PAGES} pages` };
+}
+
+/**
+ * The fingerprint of the notes and plans this phone holds (pullReplySchema.coaching), to send back:
+ * only when it holds both lists, so a phone missing either gets them whole.
+ */
+async function heldCoaching(db: WindowcallDb): Promise<string | undefined> {
+  const [fingerprint, notes, plans] = await Promise.all([getMeta(db, "pullCoaching"), getMeta(db, "notes"), getMeta(db, "assignedPlans")]);
+  return fingerprint && notes && plans ? fingerprint : undefined;
 }
 
 function split(items: readonly PullItem[]) {

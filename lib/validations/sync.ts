@@ -100,6 +100,11 @@ export const pullQuerySchema = z.object({
   total: z.enum(["0", "1"]).optional(),
   /** As in a push: the account whose device database asks. */
   account: z.string().uuid().optional(),
+  /**
+   * The `coaching` fingerprint of the notes and plans the device holds (pullReplySchema.coaching):
+   * when it still matches, the last page leaves them out. Absent (an older phone, or none held yet): sent whole.
+   */
+  coaching: z.string().regex(/^[0-9a-f]{64}$/, "a coaching fingerprint is 64 hex digits").optional(),
 });
 export type PullQuery = z.infer<typeof pullQuerySchema>;
 
@@ -198,12 +203,19 @@ export const pullReplySchema = z.object({
    */
   models: z.array(pulledModelSchema).max(10_000).optional(),
   /**
+   * Fingerprint of the coach notes and practice plans the user may read now (lib/coach/fingerprint.ts),
+   * on the last page of every pull. The device keeps it with the lists and sends it back as the
+   * pull's `coaching` parameter: while it matches, `notes` and `plans` are left out.
+   */
+  coaching: z.string().max(64).optional(),
+  /**
    * Coach notes and their answers the user may read now (as the pilot, or as the coach while the
-   * pilot's grant holds), on the last page of every pull: a whole list, so a revoked coach's
-   * phone drops that pilot's notes at its next pull (db/queries/coach/notes.ts).
+   * pilot's grant holds), on the last page of a pull whose `coaching` fingerprint did not match (or
+   * was not sent): a whole list, so a revoked coach's phone drops that pilot's notes at its next
+   * pull (db/queries/coach/notes.ts).
    */
   notes: z.array(pulledNoteSchema).max(5_000).optional(),
-  /** Practice plans assigned to the user, with their progress, on the last page of every pull (the Field shows them offline). */
+  /** Practice plans assigned to the user, with their progress, beside `notes` (same rule; the Field shows them offline). */
   plans: z.array(pulledPlanSchema).max(1_000).optional(),
   /** Contest groups the user keeps time for, with the pilots to time, on the last page of every pull (the Field shows them offline). */
   contestDuties: z.array(pulledDutySchema).max(1_000).optional(),

@@ -204,7 +204,10 @@ describe("GET /api/sync/pull", () => {
     }
     expect(viaRoute).toEqual(seen);
     const again = await pull(cursor);
-    expect(again.body).toEqual({ items: [], nextCursor: cursor, hasMore: false, scope: expect.any(String), models: expect.any(Array), notes: expect.any(Array), plans: expect.any(Array), contestDuties: expect.any(Array) });
+    expect(again.body).toEqual({ items: [], nextCursor: cursor, hasMore: false, scope: expect.any(String), models: expect.any(Array), coaching: expect.any(String), notes: expect.any(Array), plans: expect.any(Array), contestDuties: expect.any(Array) });
+    // with the fingerprint of what it holds, a phone gets no notes nor plans again
+    const held = await pull(`${cursor}&coaching=${again.body.coaching}`);
+    expect(held.body).toEqual({ items: [], nextCursor: cursor, hasMore: false, scope: expect.any(String), models: expect.any(Array), coaching: again.body.coaching, contestDuties: expect.any(Array) });
   });
 
   it("shows a coach the runs of a pilot who granted access, not of one who did not", async () => {

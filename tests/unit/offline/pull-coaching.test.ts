@@ -41,4 +41,31 @@ describe("pull: coach notes and assigned plans", () => {
     expect((await getMeta(db, "notes"))?.map((n) => n.pilotId)).toEqual([ada]);
     expect(await getMeta(db, "assignedPlans")).toEqual([]);
   });
+
+  it("sends back the fingerprint it keeps with both lists, keeps its lists when the reply leaves them out, and takes a new set with its fingerprint", async () => {
+    const db = freshDb();
+    dbs.push(db);
+    const asked: string[] = [];
+    let reply: Record<string, unknown> = { notes: [note(uuidv7(), "Relaunch faster")], plans: [plan()], coaching: "a".repeat(64) };
+    const fetch = async (url: string) => {
+      asked.push(new URL(url, "http://phone").searchParams.get("coaching") ?? "");
+      return new Response(JSON.stringify({ items: [], nextCursor: "0", hasMore: false, scope: "", ...reply }), { status: 200, headers: { "content-type": "application/json" } });
+    };
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect(asked).toEqual([""]); // nothing held yet: no fingerprint
+    expect(await getMeta(db, "pullCoaching")).toBe("a".repeat(64));
+    reply = { coaching: "a".repeat(64) }; // unchanged: the server leaves the lists out
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect(asked.at(-1)).toBe("a".repeat(64));
+    expect((await getMeta(db, "notes"))?.map((n) => n.body)).toEqual(["Relaunch faster"]);
+    expect(await getMeta(db, "assignedPlans")).toHaveLength(1);
+    reply = { notes: [], plans: [], coaching: "b".repeat(64) }; // changed (a revoke): the new, empty set replaces the old
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect(await getMeta(db, "notes")).toEqual([]);
+    expect(await getMeta(db, "pullCoaching")).toBe("b".repeat(64));
+    // a phone missing either list sends no fingerprint, so it gets both whole
+    await db.meta.delete("assignedPlans");
+    expect((await pullAll({ db, fetch })).kind).toBe("ok");
+    expect(asked.at(-1)).toBe("");
+  });
 });

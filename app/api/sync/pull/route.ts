@@ -1,4 +1,4 @@
-// GET /api/sync/pull?cursor=C&limit=N — everything the user may see that changed after cursor C, a page of at most N items
+// GET /api/sync/pull?cursor=C&limit=N[&coaching=F] — everything the user may see that changed after cursor C, a page of at most N items
 import { db } from "@/db";
 import { listChanges } from "@/db/queries/sync-pull";
 import { route, toValidationError } from "@/lib/api";
@@ -13,7 +13,7 @@ export const GET = route(async (request: Request) => {
   const parsed = pullQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!parsed.success) throw toValidationError(parsed.error);
   assertSameAccount(user.id, parsed.data.account);
-  const { cursor, limit, total } = parsed.data;
-  const reply = await listChanges(db, { userId: user.id, cursor, limit, total: total === "1" });
+  const { cursor, limit, total, coaching } = parsed.data;
+  const reply = await listChanges(db, { userId: user.id, cursor, limit, total: total === "1", coaching });
   return Response.json(reply, { headers: { "cache-control": "no-store" } });
 });
