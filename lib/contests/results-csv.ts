@@ -1,5 +1,6 @@
 import Papa from "papaparse";
 import { secondsText } from "@/lib/tasks/time";
+import { UNDER_DISPUTE } from "./disputes";
 import { paperCardResult } from "./paper-card";
 import type { Standings, StandingsInput } from "./standings";
 
@@ -15,7 +16,8 @@ export function resultsCsv(s: Standings): string {
     place.get(p.entryId) ?? p.rank, p.name, p.team ?? "",
     ...p.rounds.map((c) => (c.dropped ? `(${points(c.pointsTenths)})` : points(c.pointsTenths))),
     points(p.penaltyTenths), points(p.totalTenths),
-    [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`)].filter(Boolean).join("; "),
+    [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`),
+      ...p.rounds.filter((c) => c.disputed).map((c) => `round ${c.roundNumber} ${UNDER_DISPUTE}`)].filter(Boolean).join("; "),
   ]);
   return csv(fields, data);
 }

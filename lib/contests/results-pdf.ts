@@ -7,7 +7,7 @@ const latin1 = (s: string) => s.replace(/[^\u0020-\u007e\u00a0-\u00ff]/g, "?");
 
 /**
  * The results as a PDF (jsPDF, A4 landscape): place, pilot, team, every round's points (a
- * dropped one in brackets, an unsigned one marked "u"), penalties, total; then the fly-off and
+ * dropped one in brackets, an unsigned one marked "u", one under an open dispute "d"), penalties, total; then the fly-off and
  * the teams. The same numbers as the standings screen (one `Standings` value).
  */
 export function resultsPdf(s: Standings, title: { name: string; day: string; field: string }): Uint8Array {
@@ -39,7 +39,7 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
       const place = places?.get(p.entryId) ?? p.rank;
       doc.text(`${place}${p.unresolvedTie ? "=" : ""}`, cols[0]!.x, y).text(latin1(p.name).slice(0, 30), cols[1]!.x, y).text(latin1(p.team ?? "").slice(0, 18), cols[2]!.x, y);
       p.rounds.forEach((c, i) => {
-        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}`;
+        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}${c.disputed ? " d" : ""}`;
         doc.text(text, xRound(i) + roundW - 2, y, { align: "right" });
       });
       doc.text(p.penaltyTenths > 0 ? `-${pts(p.penaltyTenths)}` : "0", xPen + 14, y, { align: "right" });
@@ -51,7 +51,7 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
 
   const places = new Map(s.final.map((f) => [f.pilotId, f.rank]));
   table(s.rounds, [...s.pilots].sort((a, b) => (places.get(a.entryId) ?? 0) - (places.get(b.entryId) ?? 0)), places);
-  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
+  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). d: result under dispute. (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
   y += 8;
   doc.setFontSize(9);
   if (s.flyOff) {

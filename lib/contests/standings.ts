@@ -24,6 +24,8 @@ export type StandingsSlot = RecordedResult & {
   penaltyPoints: number;
   /** A re-flight granted in this round (F3K.9.6), with its own result and signature; absent = none. */
   reflight?: StandingsReflight | null;
+  /** An officer recorded a dispute about this result and it is still open (lib/contests/disputes.ts); absent = none. */
+  disputed?: boolean;
 };
 export type StandingsReflight = RecordedResult & {
   placement: ReflightPlacement;
@@ -56,6 +58,8 @@ export type RoundCell = {
   dropped: boolean;
   /** A re-flight with a recorded result: both results (tenths; 0 when unsigned) and which one stands (F3K.9.6). */
   reflight?: { placement: ReflightPlacement; originalTenths: number; reflightTenths: number; stands: "original" | "reflight" } | null;
+  /** A dispute about this result is open: shown as "result under dispute" (no names; public too). */
+  disputed: boolean;
 };
 export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[] };
 export type Standings = {
@@ -119,7 +123,7 @@ function scoreSlots(input: StandingsInput): Scored {
       const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
       inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
-        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints, reflight: x.reflight,
+        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints, reflight: x.reflight, disputed: x.slot.disputed ?? false,
       }));
     }
     byRound.set(round.id, cells);
@@ -134,7 +138,7 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
     const cells = rounds.map((r): RoundCell => {
       const c = scored.get(r.id)?.get(e.id);
       return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
-        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null };
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false };
     });
     return { entry: e, cells };
   });
