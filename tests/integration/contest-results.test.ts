@@ -86,7 +86,7 @@ describe("paper cards and standings", () => {
     const results = await get("csv");
     expect(results.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await results.text()).split("\r\n");
-    expect(lines[0]).toBe("Place,Pilot,Team,Round 1 (A),Penalties,Total,Note");
+    expect(lines[0]).toBe("Place,Pilot,Team,Round 1 (A),Penalties,Total,Note,Re-flights");
     expect(lines).toContain("5,Una,,833.3,100.0,733.3,");
     expect(lines).toContain("6,Wim,,0.0,0.0,0.0,round 1 unsigned");
     const pdf = await get("pdf");
