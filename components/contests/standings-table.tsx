@@ -12,7 +12,7 @@ function RoundCellText({ cell }: { cell: PilotRow["rounds"][number] }) {
     <>
       {cell.dropped ? <span aria-label={`${text}, dropped`}>({text})</span> : text}
       {!cell.signed && <span className="block text-xs font-bold text-danger">unsigned</span>}
-      {cell.penaltyPoints > 0 && <span className="block text-xs">−{cell.penaltyPoints} pen.</span>}
+      {cell.penaltyPoints > 0 && <span className="block text-xs">−{cell.penaltyPoints} pen.{cell.phonePenaltyPoints > 0 ? ` (${cell.phonePenaltyPoints} on the phone)` : ""}</span>}
       {cell.reflight && <span className="block text-xs">{cell.reflight.stands === "reflight" ? "re-flight stands" : "first flight stands"}</span>}
       {cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}
     </>

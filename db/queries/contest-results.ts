@@ -25,7 +25,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.createdAt), asc(contestEntries.id));
   const slots = rounds.length === 0 ? [] : await db.select({
     roundId: groupSlots.roundId, groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId, paperFlights: groupSlots.paperFlights,
-    signedAt: groupSlots.signedAt, penaltyPoints: groupSlots.penaltyPoints, runResultTenths: runLanes.resultTenths, runFlights: sql<unknown>`${runLanes.derived} -> 'flights'`,
+    signedAt: groupSlots.signedAt, penaltyPoints: groupSlots.penaltyPoints, runResultTenths: runLanes.resultTenths, runPenaltyPoints: runLanes.seasonPenaltyPoints, runFlights: sql<unknown>`${runLanes.derived} -> 'flights'`,
   }).from(groupSlots)
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
@@ -40,7 +40,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
       entries: entries.map((e) => ({ id: e.id, name: e.name, team: e.team, pilotClass: e.pilotClass, withdrawn: e.withdrawnAt !== null })),
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
-        paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints,
+        paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints, runPenaltyPoints: s.runPenaltyPoints ?? 0,
         reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null, disputed: disputed.has(`${s.roundId}/${s.entryId}`),
       })),
     },
