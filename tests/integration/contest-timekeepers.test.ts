@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
+import { listContestPenalties } from "@/db/queries/contest-penalties";
 import { listChanges } from "@/db/queries/sync-pull";
 import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
@@ -229,5 +230,13 @@ describe("the timekeeper's run becomes the round's result", () => {
     // one round so far, nothing dropped: the total is the round's points less the 300 (F3K.10)
     expect(ada.penaltyTenths).toBe(3000);
     expect(ada.totalTenths).toBe(ada.rounds[0]!.pointsTenths - 3000);
+    // each penalty with its cause, size, verdict, who gave it and when (the results page's list)
+    const listed = (await listContestPenalties(db, contestId)).filter((p) => p.name === "Ada Fenn");
+    expect(listed).toEqual([
+      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 100, cause: "object-in-safety-area", reason: "Model touched the safety fence",
+        applied: false, dropped: "higher-in-same-attempt", givenBy: keeper.name, givenAtMs: T0 + 450_000 },
+      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 300, cause: "person-in-safety-area", reason: "Model touched a spectator in the safety area",
+        applied: true, dropped: null, givenBy: keeper.name, givenAtMs: T0 + 451_000 },
+    ]);
   });
 });
