@@ -121,6 +121,9 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await expect(juniors.filter({ hasText: "Finn Brackley" })).toContainText("overall");
   await expect(juniors.filter({ hasText: "Gus Wendle" })).toContainText(/^[12]\. Gus Wendle/);
   await expect(page.getByRole("button", { name: "Make a public link" })).toHaveCount(0);
+  // the seeded paper card's 100-point penalty in round 2, with who entered it and when
+  await page.getByText(/^Penalties \(1\)/).click();
+  await expect(page.getByRole("list", { name: "Penalties" })).toContainText(/^Round 2, .+: −100; on the paper card, entered by Ines Varga \d/);
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);
   const csvText = await csv.text();
