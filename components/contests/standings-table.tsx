@@ -1,16 +1,20 @@
+import { UNDER_DISPUTE } from "@/lib/contests/disputes";
 import type { PilotRow, Standings } from "@/lib/contests/standings";
 
 const pts = (tenths: number | null) => (tenths === null ? "—" : (tenths / 10).toFixed(1));
 
 function RoundCellText({ cell }: { cell: PilotRow["rounds"][number] }) {
-  if (cell.pointsTenths === null) return <span className="text-muted" aria-label="not recorded yet">—</span>;
+  if (cell.pointsTenths === null) {
+    return <><span className="text-muted" aria-label="not recorded yet">—</span>{cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}</>;
+  }
   const text = pts(cell.pointsTenths);
   return (
     <>
       {cell.dropped ? <span aria-label={`${text}, dropped`}>({text})</span> : text}
       {!cell.signed && <span className="block text-xs font-bold text-danger">unsigned</span>}
-      {cell.penaltyPoints > 0 && <span className="block text-xs">−{cell.penaltyPoints} pen.</span>}
+      {cell.penaltyPoints > 0 && <span className="block text-xs">−{cell.penaltyPoints} pen.{cell.phonePenaltyPoints > 0 ? ` (${cell.phonePenaltyPoints} on the phone)` : ""}</span>}
       {cell.reflight && <span className="block text-xs">{cell.reflight.stands === "reflight" ? "re-flight stands" : "first flight stands"}</span>}
+      {cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}
     </>
   );
 }

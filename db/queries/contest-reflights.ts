@@ -77,13 +77,13 @@ export async function reflightsOfRounds(db: Database, roundIds: readonly string[
   if (roundIds.length === 0) return new Map();
   const rows = await db.select({
     roundId: contestReflights.roundId, entryId: contestReflights.entryId, placement: contestReflights.placement, entitled: contestReflights.entitled,
-    groupNumber: contestReflights.groupNumber, paperFlights: contestReflights.paperFlights, runResultTenths: runLanes.resultTenths, signedAt: contestReflights.signedAt,
+    groupNumber: contestReflights.groupNumber, paperFlights: contestReflights.paperFlights, runResultTenths: runLanes.resultTenths, runPenaltyPoints: runLanes.seasonPenaltyPoints, signedAt: contestReflights.signedAt,
   }).from(contestReflights)
     .leftJoin(runLanes, and(eq(runLanes.runId, contestReflights.runId), eq(runLanes.lane, contestReflights.lane)))
     .where(inArray(contestReflights.roundId, [...roundIds]));
   return new Map(rows.map((r) => [`${r.roundId}/${r.entryId}`, {
     placement: r.placement, entitled: r.entitled, groupNumber: r.groupNumber, paperFlights: r.paperFlights,
-    runResultTenths: r.runResultTenths ?? null, signed: r.signedAt !== null,
+    runResultTenths: r.runResultTenths ?? null, runPenaltyPoints: r.runPenaltyPoints ?? 0, signed: r.signedAt !== null,
   }]));
 }
 

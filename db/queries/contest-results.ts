@@ -5,6 +5,7 @@ import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { contestEntries, contestRounds, contests, groupSlots, runLanes } from "../schema";
 import { listLinkableLanes } from "./contest-lanes";
+import { openDisputesOfRounds } from "./contest-disputes";
 import { reflightsOfRounds } from "./contest-reflights";
 
 export type ResultsData = {
@@ -24,12 +25,12 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.createdAt), asc(contestEntries.id));
   const slots = rounds.length === 0 ? [] : await db.select({
     roundId: groupSlots.roundId, groupNumber: groupSlots.groupNumber, entryId: groupSlots.entryId, paperFlights: groupSlots.paperFlights,
-    signedAt: groupSlots.signedAt, penaltyPoints: groupSlots.penaltyPoints, runResultTenths: runLanes.resultTenths, runFlights: sql<unknown>`${runLanes.derived} -> 'flights'`,
+    signedAt: groupSlots.signedAt, penaltyPoints: groupSlots.penaltyPoints, runResultTenths: runLanes.resultTenths, runPenaltyPoints: runLanes.seasonPenaltyPoints, runFlights: sql<unknown>`${runLanes.derived} -> 'flights'`,
   }).from(groupSlots)
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
     .orderBy(asc(groupSlots.groupNumber));
-  const reflights = await reflightsOfRounds(db, rounds.map((r) => r.id));
+  const [reflights, disputed] = await Promise.all([reflightsOfRounds(db, rounds.map((r) => r.id)), openDisputesOfRounds(db, rounds.map((r) => r.id))]);
   return {
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken, flyOffPilots: c.flyOffPilots },
     input: {
@@ -39,8 +40,8 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
       entries: entries.map((e) => ({ id: e.id, name: e.name, team: e.team, pilotClass: e.pilotClass, withdrawn: e.withdrawnAt !== null })),
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
-        paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints,
-        reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null,
+        paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints, runPenaltyPoints: s.runPenaltyPoints ?? 0,
+        reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null, disputed: disputed.has(`${s.roundId}/${s.entryId}`),
       })),
     },
     flights: slots.map((s) => ({ roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runFlights: (s.runFlights as ResultsData["flights"][number]["runFlights"]) ?? null })),

@@ -17,3 +17,4 @@ export * from "./club-days";
 export * from "./run-folds";
 export * from "./contest-draw-changes";
 export * from "./contest-reflights";
+export * from "./contest-disputes";

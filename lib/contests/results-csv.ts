@@ -1,21 +1,29 @@
 import Papa from "papaparse";
 import { secondsText } from "@/lib/tasks/time";
+import { UNDER_DISPUTE } from "./disputes";
 import { paperCardResult } from "./paper-card";
+import { reflightNote } from "./reflight-note";
 import type { Standings, StandingsInput } from "./standings";
 
 const points = (tenths: number | null) => (tenths === null ? "" : (tenths / 10).toFixed(1));
 /** CSV with a header row; cells that a spreadsheet would run as a formula are escaped (papaparse escapeFormulae). */
 const csv = (fields: string[], data: (string | number)[][]) => Papa.unparse({ fields, data }, { escapeFormulae: true, newline: "\r\n" });
 
-/** The standings as CSV: place, pilot, team, each round's points (a dropped one in brackets), penalties, total. */
+/**
+ * The standings as CSV: place, pilot, team, each round's points (a dropped one in brackets), penalties,
+ * total, a note (ties, unsigned and disputed results), and the re-flights: per re-flown round both
+ * results and which one counted (F3K.9.6).
+ */
 export function resultsCsv(s: Standings): string {
   const place = new Map(s.final.map((f) => [f.pilotId, f.rank]));
-  const fields = ["Place", "Pilot", "Team", ...s.rounds.map((r) => `Round ${r.number}${r.letter ? ` (${r.letter})` : ""}`), "Penalties", "Total", "Note"];
+  const fields = ["Place", "Pilot", "Team", ...s.rounds.map((r) => `Round ${r.number}${r.letter ? ` (${r.letter})` : ""}`), "Penalties", "Total", "Note", "Re-flights"];
   const data = [...s.pilots].sort((a, b) => (place.get(a.entryId) ?? 0) - (place.get(b.entryId) ?? 0)).map((p) => [
     place.get(p.entryId) ?? p.rank, p.name, p.team ?? "",
     ...p.rounds.map((c) => (c.dropped ? `(${points(c.pointsTenths)})` : points(c.pointsTenths))),
     points(p.penaltyTenths), points(p.totalTenths),
-    [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`)].filter(Boolean).join("; "),
+    [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`),
+      ...p.rounds.filter((c) => c.disputed).map((c) => `round ${c.roundNumber} ${UNDER_DISPUTE}`)].filter(Boolean).join("; "),
+    p.rounds.filter((c) => c.reflight).map((c) => `round ${c.roundNumber}: ${reflightNote(c)}`).join("; "),
   ]);
   return csv(fields, data);
 }

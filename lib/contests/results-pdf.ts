@@ -1,4 +1,5 @@
 import { jsPDF } from "jspdf";
+import { reflightNote } from "./reflight-note";
 import type { Standings } from "./standings";
 
 const pts = (tenths: number | null) => (tenths === null ? "-" : (tenths / 10).toFixed(1));
@@ -7,7 +8,8 @@ const latin1 = (s: string) => s.replace(/[^\u0020-\u007e\u00a0-\u00ff]/g, "?");
 
 /**
  * The results as a PDF (jsPDF, A4 landscape): place, pilot, team, every round's points (a
- * dropped one in brackets, an unsigned one marked "u"), penalties, total; then the fly-off and
+ * dropped one in brackets, an unsigned one marked "u", one under an open dispute "d", a re-flown one "r"
+ * with both results and which counted listed below, F3K.9.6), penalties, total; then the fly-off and
  * the teams. The same numbers as the standings screen (one `Standings` value).
  */
 export function resultsPdf(s: Standings, title: { name: string; day: string; field: string }): Uint8Array {
@@ -39,7 +41,7 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
       const place = places?.get(p.entryId) ?? p.rank;
       doc.text(`${place}${p.unresolvedTie ? "=" : ""}`, cols[0]!.x, y).text(latin1(p.name).slice(0, 30), cols[1]!.x, y).text(latin1(p.team ?? "").slice(0, 18), cols[2]!.x, y);
       p.rounds.forEach((c, i) => {
-        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}`;
+        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}${c.disputed ? " d" : ""}${c.reflight ? " r" : ""}`;
         doc.text(text, xRound(i) + roundW - 2, y, { align: "right" });
       });
       doc.text(p.penaltyTenths > 0 ? `-${pts(p.penaltyTenths)}` : "0", xPen + 14, y, { align: "right" });
@@ -51,9 +53,21 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
 
   const places = new Map(s.final.map((f) => [f.pilotId, f.rank]));
   table(s.rounds, [...s.pilots].sort((a, b) => (places.get(a.entryId) ?? 0) - (places.get(b.entryId) ?? 0)), places);
-  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
+  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). d: result under dispute. r: re-flown (below). (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
   y += 8;
   doc.setFontSize(9);
+  const reflown = s.pilots.flatMap((p) => p.rounds.filter((c) => c.reflight).map((c) => `${p.name}, round ${c.roundNumber}: ${reflightNote(c)}`));
+  if (reflown.length > 0) {
+    if (y > bottom - 20) { doc.addPage(); y = 16; }
+    doc.setFont("helvetica", "bold").text("Re-flights (F3K.9.6): which result counted", left, y).setFont("helvetica", "normal");
+    y += 6;
+    for (const line of reflown) {
+      if (y > bottom) { doc.addPage(); y = 16; }
+      doc.text(latin1(line), left, y);
+      y += 5.5;
+    }
+    y += 4;
+  }
   if (s.flyOff) {
     if (y > bottom - 20) { doc.addPage(); y = 16; }
     doc.setFont("helvetica", "bold").text(s.flyOff.counted ? "Fly-off" : "Fly-off (fewer than 3 complete rounds: not counted yet)", left, y).setFont("helvetica", "normal");

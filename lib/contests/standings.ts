@@ -16,6 +16,12 @@ export type RecordedResult = {
   /** A paper card's flight times (tenths); when present they are the result. */
   paperFlights: readonly number[] | null;
   signed: boolean;
+  /**
+   * Penalty points that count on the linked run's lane, given on the timekeeper's phone (`penalty`
+   * events; run_lanes.derived by lib/results runResult, which applies F3K.4.3's highest-per-attempt and
+   * F3K.4.1). They count only while that run is the record (a paper card with flights outranks it).
+   */
+  runPenaltyPoints?: number;
 };
 export type StandingsSlot = RecordedResult & {
   roundId: string;
@@ -24,6 +30,8 @@ export type StandingsSlot = RecordedResult & {
   penaltyPoints: number;
   /** A re-flight granted in this round (F3K.9.6), with its own result and signature; absent = none. */
   reflight?: StandingsReflight | null;
+  /** An officer recorded a dispute about this result and it is still open (lib/contests/disputes.ts); absent = none. */
+  disputed?: boolean;
 };
 export type StandingsReflight = RecordedResult & {
   placement: ReflightPlacement;
@@ -52,10 +60,15 @@ export type RoundCell = {
   pointsTenths: number | null;
   signed: boolean;
   source: "paper" | "run" | null;
+  /** Every penalty point of the round: the paper card's or officer's plus the phone's (F3K.10: subtracted from the total, dropped round or not). */
   penaltyPoints: number;
+  /** Of those, the points given on the timekeeper's phone (the linked run's and the re-flight's run's). */
+  phonePenaltyPoints: number;
   dropped: boolean;
   /** A re-flight with a recorded result: both results (tenths; 0 when unsigned) and which one stands (F3K.9.6). */
   reflight?: { placement: ReflightPlacement; originalTenths: number; reflightTenths: number; stands: "original" | "reflight" } | null;
+  /** A dispute about this result is open: shown as "result under dispute" (no names; public too). */
+  disputed: boolean;
 };
 export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[] };
 export type Standings = {
@@ -91,17 +104,20 @@ function recorded(task: TaskDefinition, r: { paperFlights: readonly number[] | n
  */
 function standing(task: TaskDefinition, s: StandingsSlot) {
   const first = recorded(task, s);
-  const base = { group: s.groupNumber, ...first, signed: s.signed, reflight: null as RoundCell["reflight"] };
+  // the phone's penalties count while its run is the record; a re-flight's run's too (our reading: a penalty given in either flight stays, as in a dropped round, F3K.10)
+  const phone = (first.source === "run" ? s.runPenaltyPoints ?? 0 : 0);
+  const base = { group: s.groupNumber, ...first, signed: s.signed, reflight: null as RoundCell["reflight"], phonePenalty: phone };
   if (!s.reflight) return base;
   const again = recorded(task, s.reflight);
   if (again.resultTenths === null) return base;
+  const phonePenalty = phone + (again.source === "run" ? s.reflight.runPenaltyPoints ?? 0 : 0);
   const originalTenths = first.resultTenths !== null && s.signed ? first.resultTenths : 0;
   const reflightTenths = s.reflight.signed ? again.resultTenths : 0;
   const pick = standingResult({ original: originalTenths, reflight: reflightTenths, placement: s.reflight.placement, entitled: s.reflight.entitled });
   const reflight = { placement: s.reflight.placement, originalTenths, reflightTenths, stands: pick.stands };
   return pick.stands === "reflight"
-    ? { group: s.reflight.groupNumber, ...again, signed: s.reflight.signed, reflight }
-    : { ...base, reflight };
+    ? { group: s.reflight.groupNumber, ...again, signed: s.reflight.signed, reflight, phonePenalty }
+    : { ...base, reflight, phonePenalty };
 }
 
 /**
@@ -119,7 +135,7 @@ function scoreSlots(input: StandingsInput): Scored {
       const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
       inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
-        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints, reflight: x.reflight,
+        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints + x.phonePenalty, phonePenaltyPoints: x.phonePenalty, reflight: x.reflight, disputed: x.slot.disputed ?? false,
       }));
     }
     byRound.set(round.id, cells);
@@ -134,7 +150,7 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
     const cells = rounds.map((r): RoundCell => {
       const c = scored.get(r.id)?.get(e.id);
       return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
-        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null };
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, phonePenaltyPoints: c?.phonePenaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false };
     });
     return { entry: e, cells };
   });

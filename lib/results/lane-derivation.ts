@@ -84,6 +84,7 @@ export function assembleLane(p: LaneParts): LaneDerivation {
       review,
       clock,
       notes,
+      penalties: chosen ? laneScore.penalties.map((v) => ({ eventId: v.id, points: v.points, cause: v.cause ?? null, reason: v.reason, applied: v.applied, dropped: v.dropped })) : [],
       ended: p.ended,
     },
   };

@@ -1,4 +1,4 @@
-import type { ReflightCause, ReflightPlacement } from "@/lib/events/schema";
+import type { PenaltyCause, ReflightCause, ReflightPlacement } from "@/lib/events/schema";
 import type { ClockEstimate } from "@/lib/clock";
 import type { PointsLost, TaskDefinition } from "@/lib/tasks";
 import type { PlacedEvent, RecordedEvent } from "./place";
@@ -108,6 +108,11 @@ export type ReviewItem = { eventId: string; boundary: string; atMs: number; boun
  */
 export type ClockFlag = { deviceId: string; flightIndex: number | null; monoTenths: number; wallTenths: number };
 
+/** One penalty of a lane as derived: its event, size, cause and reason, and whether it counts (and why not). */
+export type DerivedPenalty = {
+  eventId: string; points: number; cause: PenaltyCause | null; reason: string; applied: boolean; dropped: "mid-air-collision" | "higher-in-same-attempt" | null;
+};
+
 /** What run_lanes.derived holds (JSON: no Infinity, unbounded is null). */
 export type LaneDerived = {
   signal: { deviceId: string; official: boolean; atMs: number[]; uncertaintyMs: number | null } | null;
@@ -120,6 +125,12 @@ export type LaneDerived = {
   clock?: ClockFlag[];
   /** Rulings recorded for the lane that do not count (absent in results derived before notes existed). */
   notes?: RulingNote[];
+  /**
+   * The counting record's penalties (`penalty` events, voids applied) with the verdict of the penalty
+   * rules (lib/tasks/penalty-rules.ts: F3K.4.3 highest per attempt, none for a mid-air collision);
+   * `eventId` names the event (who gave it and when). Absent in results derived before this existed.
+   */
+  penalties?: DerivedPenalty[];
   ended: boolean;
 };
 

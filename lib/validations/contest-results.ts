@@ -2,6 +2,8 @@ import { z } from "zod";
 import { parseRoundKey, roundKey } from "@/lib/contests/round-key";
 import { PAPER_MAX_FLIGHT_TENTHS, PAPER_MAX_FLIGHTS } from "@/lib/contests/paper-card";
 import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
+import { DISPUTE_ACTIONS } from "@/lib/contests/disputes";
+import { text } from "./bounds";
 
 /** A round's URL: `[roundNumber]` is "3" (round 3) or "fly-off-2" (fly-off round 2), lib/contests/round-key.ts. */
 export const roundParamsSchema = z.object({
@@ -74,3 +76,21 @@ export const decideRecordsSchema = z.object({
   entryId: z.uuid("Not an entry."),
   recordId: z.uuid("Not a record.").nullable(),
 });
+
+/** An officer records a dispute about a pilot's result in the round: what is disputed and who lodged it (the pilot or a team manager). */
+export const lodgeDisputeSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  subject: text(300).trim().min(1, "Say what is disputed."),
+  lodgedBy: text(100).trim().min(1, "Say who lodged it."),
+});
+
+/**
+ * An officer resolves an open dispute: upheld or rejected, the outcome in words; an upheld one names
+ * the existing action that carries it out (lib/contests/disputes.ts), a rejected one none.
+ */
+export const resolveDisputeSchema = z.object({
+  disputeId: z.uuid("Not a dispute."),
+  status: z.enum(["upheld", "rejected"], "Choose upheld or rejected."),
+  outcome: text(500).trim().min(1, "Write the outcome."),
+  action: z.enum(DISPUTE_ACTIONS, "Choose how the upheld dispute is carried out.").nullable().default(null),
+}).refine((b) => (b.status === "upheld") === (b.action !== null), { message: "An upheld dispute names how it is carried out; a rejected one none.", path: ["action"] });

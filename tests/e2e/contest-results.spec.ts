@@ -1,5 +1,6 @@
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
+import Papa from "papaparse";
 import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
 
@@ -120,12 +121,24 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await expect(juniors.filter({ hasText: "Finn Brackley" })).toContainText("overall");
   await expect(juniors.filter({ hasText: "Gus Wendle" })).toContainText(/^[12]\. Gus Wendle/);
   await expect(page.getByRole("button", { name: "Make a public link" })).toHaveCount(0);
+  // the seeded paper card's 100-point penalty in round 2, with who entered it and when
+  await page.getByText(/^Penalties \(1\)/).click();
+  await expect(page.getByRole("list", { name: "Penalties" })).toContainText(/^Round 2, .+: −100; on the paper card, entered by Ines Varga \d/);
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);
-  expect((await csv.text()).split("\r\n")[0]).toBe("Place,Pilot,Team,Round 1 (A),Round 2 (B),Round 3 (D),Penalties,Total,Note");
+  const csvText = await csv.text();
+  expect(csvText.split("\r\n")[0]).toBe("Place,Pilot,Team,Round 1 (A),Round 2 (B),Round 3 (D),Penalties,Total,Note,Re-flights");
+  // the seeded re-flight of round 2 (F3K.9.6): both results and which counted; the seeded open dispute of round 3 in the note
+  const rows = Papa.parse<Record<string, string>>(csvText, { header: true, skipEmptyLines: true }).data;
+  const bea = rows.find((r) => r.Pilot === "Bea Quillfeather")!;
+  expect(bea["Re-flights"]).toMatch(/^round 2: original \d+\.\d s, re-flight \d+\.\d s: (re-flight|original) counted$/);
+  expect(rows.find((r) => r.Pilot === "Cass Merriden")!.Note).toContain("round 3 result under dispute");
   const pdf = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=pdf`);
   expect(pdf.headers()["content-type"]).toBe("application/pdf");
-  expect((await pdf.body()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
+  const pdfText = (await pdf.body()).toString("latin1");
+  expect(pdfText.startsWith("%PDF-")).toBe(true);
+  // jsPDF writes text uncompressed: the same line as the CSV's, in the re-flights list under the table
+  expect(pdfText).toContain(`(Bea Quillfeather, ${bea["Re-flights"]})`);
 
   await page.getByRole("link", { name: "Group lists and scoresheets" }).click();
   await expect(page.getByRole("region", { name: "Scoresheet round 1 group 1" }).getByRole("columnheader", { name: "Timekeeper's signature" })).toBeVisible();

@@ -322,6 +322,12 @@ const ROWS: Record<string, Row> = {
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/reflights": {
     params: contest.reflightContestOfOwnersClub, body: contest.recordReflightBody, check: contest.reflightRecorded, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },
+  "POST /api/contests/[contestId]/rounds/[roundNumber]/disputes": {
+    params: async (cast) => ({ ...(await contest.contestOfOwnersClub(cast, true)), roundNumber: "1" }), body: contest.lodgeDisputeBody, check: contest.disputeLodged, cast: "fresh", expect: club.OFFICERS_ONLY(201),
+  },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/disputes": {
+    params: contest.disputeContestOfOwnersClub, body: contest.resolveDisputeBody, check: contest.disputeResolved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/records": {
     params: contest.recordsContestOfOwnersClub, body: contest.keepRecordBody, check: contest.recordDecided, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },

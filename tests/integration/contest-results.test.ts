@@ -86,9 +86,9 @@ describe("paper cards and standings", () => {
     const results = await get("csv");
     expect(results.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await results.text()).split("\r\n");
-    expect(lines[0]).toBe("Place,Pilot,Team,Round 1 (A),Penalties,Total,Note");
-    expect(lines).toContain("5,Una,,833.3,100.0,733.3,");
-    expect(lines).toContain("6,Wim,,0.0,0.0,0.0,round 1 unsigned");
+    expect(lines[0]).toBe("Place,Pilot,Team,Round 1 (A),Penalties,Total,Note,Re-flights");
+    expect(lines).toContain("5,Una,,833.3,100.0,733.3,,");
+    expect(lines).toContain("6,Wim,,0.0,0.0,0.0,round 1 unsigned,");
     const pdf = await get("pdf");
     expect(pdf.headers.get("content-type")).toBe("application/pdf");
     expect(new TextDecoder("latin1").decode(await pdf.arrayBuffer())).toContain("(733.3)");

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
+import { listContestPenalties } from "@/db/queries/contest-penalties";
 import { listChanges } from "@/db/queries/sync-pull";
 import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
@@ -206,5 +207,36 @@ describe("the timekeeper's run becomes the round's result", () => {
     expect(await slot("Ada Fenn")).toMatchObject({ signedAt: null, signedFrom: null });
     await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(runId, T0 + 440_000, { kind: "signed", lane: 0 })] });
     expect((await slot("Ada Fenn")).signedAt?.getTime()).toBe(T0 + 440_000);
+  });
+
+  it("penalties given on the phone reach the round's result, as runResult applies them (F3K.4.3: the highest of one attempt; F3K.10: off the total)", async () => {
+    const [a] = await db.select({ runId: groupSlots.runId }).from(groupSlots).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids["Ada Fenn"]!)));
+    const runId = a!.runId!;
+    const phone = keeperPhone!;
+    actAs(keeper);
+    const [launch] = (await getPool().query<{ id: string }>(`select id from events where run_id = $1 and body ->> 'kind' = 'launch' and body ->> 'lane' = '0' order by id limit 1`, [runId])).rows;
+    // two penalties in one attempt (Ada's launch): 100 (object in a safety area) and 300 (a person in a safety area) → only the 300 counts (F3K.4.3)
+    const res = await push({ deviceId: phone.id, sessions: [], runs: [], events: [
+      phone.at(runId, T0 + 450_000, { kind: "penalty", lane: 0, points: 100, reason: "Model touched the safety fence", cause: "object-in-safety-area", launchId: launch!.id }),
+      phone.at(runId, T0 + 451_000, { kind: "penalty", lane: 0, points: 300, reason: "Model touched a spectator in the safety area", cause: "person-in-safety-area", launchId: launch!.id }),
+    ] });
+    expect(res.body.acks.every((x) => x.status === "applied")).toBe(true);
+    actAs(member);
+    const body = (await (await resultsRoute(new Request("http://test/api?format=json"), { params: Promise.resolve({ contestId }) })).json()) as {
+      standings: { pilots: { name: string; totalTenths: number; penaltyTenths: number; rounds: { pointsTenths: number; penaltyPoints: number; phonePenaltyPoints: number }[] }[] };
+    };
+    const ada = body.standings.pilots.find((p) => p.name === "Ada Fenn")!;
+    expect(ada.rounds[0]).toMatchObject({ penaltyPoints: 300, phonePenaltyPoints: 300 });
+    // one round so far, nothing dropped: the total is the round's points less the 300 (F3K.10)
+    expect(ada.penaltyTenths).toBe(3000);
+    expect(ada.totalTenths).toBe(ada.rounds[0]!.pointsTenths - 3000);
+    // each penalty with its cause, size, verdict, who gave it and when (the results page's list)
+    const listed = (await listContestPenalties(db, contestId)).filter((p) => p.name === "Ada Fenn");
+    expect(listed).toEqual([
+      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 100, cause: "object-in-safety-area", reason: "Model touched the safety fence",
+        applied: false, dropped: "higher-in-same-attempt", givenBy: keeper.name, givenAtMs: T0 + 450_000 },
+      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 300, cause: "person-in-safety-area", reason: "Model touched a spectator in the safety area",
+        applied: true, dropped: null, givenBy: keeper.name, givenAtMs: T0 + 451_000 },
+    ]);
   });
 });

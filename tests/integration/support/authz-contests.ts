@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
+import { contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -162,6 +162,39 @@ export async function reflightRecorded(ctx: { user: { id: string } }): Promise<v
   const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
   expect(row).toMatchObject({ paperFlights: [1200], recordedBy: ctx.user.id, signedFrom: "marked by an officer" });
   await db.update(contestReflights).set({ paperFlights: null, recordedBy: null, recordedAt: null, signedAt: null, signedFrom: null }).where(eq(contestReflights.entryId, entryId));
+}
+
+/** A dispute about Matrix One's round 1, lodged by the pilot. */
+export const lodgeDisputeBody = () => ({ entryId, subject: "The third flight was not counted", lodgedBy: "Matrix One (pilot)" });
+
+/** After a 2xx: the dispute is stored open with the officer who recorded it; removed for the next actor. */
+export async function disputeLodged(ctx: { user: { id: string } }): Promise<void> {
+  const rows = await db.select().from(contestDisputes).where(eq(contestDisputes.entryId, entryId));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ status: "open", recordedBy: ctx.user.id, lodgedBy: "Matrix One (pilot)" });
+  await db.delete(contestDisputes).where(eq(contestDisputes.entryId, entryId));
+}
+
+let disputeId = "";
+
+/** A drawn contest (as contestOfOwnersClub) with an open dispute about Matrix One's round 1. */
+export async function disputeContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [round] = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!)).orderBy(contestRounds.number).limit(1);
+  const [d] = await db.insert(contestDisputes).values({ roundId: round!.id, entryId, subject: "Landing not counted", lodgedBy: "Matrix One (pilot)" }).returning();
+  disputeId = d!.id;
+  return { ...params, roundNumber: "1" };
+}
+
+/** The dispute rejected with an outcome (no action). */
+export const resolveDisputeBody = () => ({ disputeId, status: "rejected", outcome: "The timekeeper's card shows the landing after the end of working time" });
+
+/** After a 2xx: the dispute is rejected by the caller with when; open again for the next actor. */
+export async function disputeResolved(ctx: { user: { id: string } }): Promise<void> {
+  const [row] = await db.select().from(contestDisputes).where(eq(contestDisputes.id, disputeId));
+  expect(row).toMatchObject({ status: "rejected", resolvedBy: ctx.user.id, action: null });
+  expect(row!.resolvedAt).toBeInstanceOf(Date);
+  await db.update(contestDisputes).set({ status: "open", outcome: null, resolvedBy: null, resolvedAt: null }).where(eq(contestDisputes.id, disputeId));
 }
 
 /** A drawn contest (as contestOfOwnersClub) where Matrix One's round 1 has a second record waiting: an earlier paper card of 90.0 s. */

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
+import { listContestDisputes } from "@/db/queries/contest-disputes";
 import { listDrawChanges } from "@/db/queries/contest-draw-changes";
 import { applyPaymentChange } from "@/db/queries/contest-payments";
 import { contestTimeZone, getContest, listSlots } from "@/db/queries/contests";
@@ -16,6 +17,7 @@ import { ActionButton, EnterForm, PaperEntryForm, EntryDetails } from "./_compon
 import { DrawChanges } from "./_components/draw-changes";
 import { DrawChangeList, DrawLists } from "./_components/draw-lists";
 import { MyFee, OfficerFees } from "./_components/fees";
+import { ContestDisputes } from "./_components/disputes-list";
 import { DrawFlyOff } from "./_components/fly-off";
 
 const HALVES_WORDS = { "half-up": "exact halves of 0.1 point round up", "half-even": "exact halves of 0.1 point round to even", down: "points cut off at 0.1" } as const;
@@ -25,7 +27,7 @@ type Search = Promise<{ payment?: string | string[]; session_id?: string | strin
 export const metadata: Metadata = { title: "Contest" };
 export const dynamic = "force-dynamic";
 
-/** A contest: its set-up, entries (the officer adds paper entries and withdraws), the draw per round. */
+/** A contest: its set-up, entries (the officer adds paper entries and withdraws), the draw per round; the officers' list of disputes. */
 export default async function ContestPage({ params, searchParams }: { params: Promise<{ contestId: string }>; searchParams: Search }) {
   const parsed = contestIdSchema.safeParse(await params);
   if (!parsed.success) notFound();
@@ -52,6 +54,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
   const flyOffSlots = flyOffRounds.length === 0 ? [] : await listSlots(db, contestId, true);
   const flyOffPilots = [...new Set(flyOffSlots.map((s) => s.entryId))];
   const changes = contest.drawSeed === null ? [] : await listDrawChanges(db, contestId);
+  const disputes = officer && contest.drawSeed !== null ? await listContestDisputes(db, contestId) : [];
   const names = new Map(entries.map((e) => [e.id, e.pilotName]));
   const letters = new Map(rounds.map((r) => [r.number, r.task.letter ?? "custom"]));
   return (
@@ -134,6 +137,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
           {officer && <DrawFlyOff contestId={contestId} drawn={flyOffPilots.length > 0} />}
         </section>
       )}
+      {officer && contest.drawSeed !== null && <ContestDisputes contestId={contestId} zone={zone} disputes={disputes} />}
     </div>
   );
 }

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
+import { listContestPenalties } from "@/db/queries/contest-penalties";
 import { listContestReflights } from "@/db/queries/contest-reflights";
 import { getResultsData } from "@/db/queries/contest-results";
 import { contestTimeZone } from "@/db/queries/contests";
@@ -9,7 +10,7 @@ import { listSignatures } from "@/db/queries/contest-timekeepers";
 import { LiveStandings } from "@/components/contests/live-standings";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { contestStandings } from "@/lib/contests/standings";
-import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
+import { PENALTY_CAUSE_WORDS, REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock, formatDate } from "@/lib/format";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../../_components/guard";
@@ -24,8 +25,8 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
   if (!parsed.success) notFound();
   const { contestId } = parsed.data;
   const me = await contestPageAccess({ contestId, role: "member", back: `/contests/${contestId}/results` });
-  const [data, signatures, reflights, zone] = await Promise.all([
-    getResultsData(db, contestId), listSignatures(db, contestId), listContestReflights(db, contestId), contestTimeZone(db, contestId),
+  const [data, signatures, reflights, penalties, zone] = await Promise.all([
+    getResultsData(db, contestId), listSignatures(db, contestId), listContestReflights(db, contestId), listContestPenalties(db, contestId), contestTimeZone(db, contestId),
   ]);
   if (!data) notFound();
   const officer = me.role === "admin" || hasClubRole(me.clubRole, "officer");
@@ -58,6 +59,22 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
               <li key={`${r.isFlyOff}:${r.roundNumber}:${r.name}`}>
                 {r.isFlyOff ? "Fly-off round" : "Round"} {r.roundNumber}, {r.name}: {REFLIGHT_CAUSE_WORDS[r.cause]}, {REFLIGHT_PLACEMENT_WORDS[r.placement].label} (group {r.groupNumber}){r.entitled ? "" : ", flying again with the re-flyer"};
                 granted by {r.grantedBy ?? "a former officer"} {formatClock(r.grantedAt, zone, "short")}{r.reason ? ` (${r.reason})` : ""}
+              </li>
+            ))}
+          </ul>
+        )}
+      </details>
+      <details className="rounded-xl border-2 border-line p-3 print:hidden">
+        <summary className="min-h-12 cursor-pointer py-3 font-bold">Penalties ({penalties.length})</summary>
+        {penalties.length === 0 ? <p className="text-muted">No penalty given.</p> : (
+          <ul aria-label="Penalties" className="space-y-1">
+            {penalties.map((p, i) => (
+              <li key={i}>
+                {p.isFlyOff ? "Fly-off round" : "Round"} {p.roundNumber}, {p.name}: −{p.points}
+                {p.cause ? `, ${PENALTY_CAUSE_WORDS[p.cause].label} (${PENALTY_CAUSE_WORDS[p.cause].rule})` : ""}{p.reason ? ` "${p.reason}"` : ""};
+                {" "}{p.source === "card" ? "on the paper card, entered" : p.source === "phone" ? "given on the timekeeper's phone" : "given on the phone in the re-flight"}
+                {" "}by {p.givenBy ?? "someone"}{p.givenAtMs !== null ? ` ${formatClock(new Date(p.givenAtMs), zone, "short")}` : ""}
+                {!p.applied && <span className="font-bold"> — not counted ({p.dropped === "mid-air-collision" ? "mid-air collision" : "a higher penalty in the same attempt"}, F3K.4.3)</span>}
               </li>
             ))}
           </ul>

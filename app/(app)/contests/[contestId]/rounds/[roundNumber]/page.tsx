@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
+import { listRoundDisputes } from "@/db/queries/contest-disputes";
 import { listPendingRecords } from "@/db/queries/contest-records";
 import { listRoundReflights } from "@/db/queries/contest-reflights";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
@@ -16,13 +17,14 @@ import { formatClock } from "@/lib/format";
 import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
+import { Disputes } from "./_components/disputes";
 import { Records, type RecordView } from "./_components/records";
 import { Reflights } from "./_components/reflights";
 
 export const metadata: Metadata = { title: "Round" };
 export const dynamic = "force-dynamic";
 
-/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights. */
+/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights and disputes. */
 export default async function RoundPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
@@ -31,9 +33,9 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}` });
   const [found, round, zone] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff }), contestTimeZone(db, contestId)]);
   if (!found || !round) notFound();
-  const [slots, candidates, reflights, pending, lanes] = await Promise.all([
+  const [slots, candidates, reflights, pending, lanes, disputes] = await Promise.all([
     listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
-    listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }),
+    listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }), listRoundDisputes(db, round.id),
   ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const others = [...found.rounds.map((r) => ({ number: r.number, flyOff: false })), ...found.flyOffRounds.map((r) => ({ number: r.number, flyOff: true }))]
@@ -80,6 +82,15 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           reflights={reflights.map((r) => ({
             ...r, grantedAt: r.grantedAt.toISOString(), recordedAt: r.recordedAt?.toISOString() ?? null, signed: r.signedAt !== null, runResultTenths: r.runResultTenths ?? null,
           }))}
+        />
+      )}
+      {groups.length > 0 && (
+        <Disputes
+          contestId={contestId}
+          roundKey={key}
+          timeZone={zone}
+          pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          disputes={disputes.map((d) => ({ ...d, lodgedAt: d.lodgedAt.toISOString(), resolvedAt: d.resolvedAt?.toISOString() ?? null }))}
         />
       )}
       {others.length > 0 && (

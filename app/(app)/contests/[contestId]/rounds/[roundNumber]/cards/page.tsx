@@ -41,6 +41,7 @@ export default async function PaperCardsPage({ params }: { params: Promise<{ con
           Type each pilot&apos;s flight times as on the card, in flown order, separated by spaces (seconds like 83.4, or 1:23.4),
           or choose the run a timekeeper&apos;s phone timed and synced for the pilot (runs of the club&apos;s sessions on the contest day with this task).
           The task&apos;s rules are checked as you type. Tick &quot;Signed&quot; only when pilot and timekeeper signed the card: an unsigned result scores zero (F3K.1.2).
+          Penalty points here are the card&apos;s; penalties given on a timekeeper&apos;s phone count on their own through the linked run (do not type them again).
         </p>
       </header>
       {problem && <p role="alert" className="font-bold text-danger">{problem}</p>}
