@@ -56,4 +56,4 @@ export async function clearFlyOffDraw(tx: Tx, contestId: string): Promise<FlyOff
 
 /** The refusal's words, the same for a full draw and a re-draw of the remaining rounds. */
 export const FLY_OFF_RESULTS_MESSAGE =
-  "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again.";
+  "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again (to draw anyway, draw the fly-off again deleting its results first).";

@@ -112,7 +112,7 @@ describe("(a) drawing the preliminary rounds again after the fly-off is drawn", 
     expect(res.status).toBe(409);
     expect((await res.json()).error).toMatchObject({
       code: "fly_off_results",
-      message: "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again.",
+      message: "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again (to draw anyway, draw the fly-off again deleting its results first).",
     });
     expect(await slotsOf(contestId, false)).toEqual(before.prelim);
     expect(await slotsOf(contestId, true)).toEqual(before.flyOff);
