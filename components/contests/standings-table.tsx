@@ -38,7 +38,7 @@ function PilotTable({ caption, rounds, pilots, places }: { caption: string; roun
           {rows.map((p) => (
             <tr key={p.entryId} className="border-b border-line align-top">
               <td className="p-1">{places?.get(p.entryId) ?? p.rank}{p.unresolvedTie && <span className="block text-xs font-bold">tie</span>}</td>
-              <th scope="row" className="p-1 text-left font-semibold">{p.name}{p.team && <span className="block text-xs font-normal text-muted">{p.team}</span>}</th>
+              <th scope="row" className="p-1 text-left font-semibold">{p.name}{p.team && <span className="block text-xs font-normal text-muted">{p.team}</span>}{p.withdrawn && <span className="block text-xs font-normal">withdrawn</span>}</th>
               {p.rounds.map((c) => <td key={c.roundNumber} className="p-1 text-right"><RoundCellText cell={c} /></td>)}
               <td className="p-1 text-right">{p.penaltyTenths > 0 ? `−${pts(p.penaltyTenths)}` : "0"}</td>
               <td className="p-1 text-right font-bold">{pts(p.totalTenths)}</td>

@@ -2,11 +2,12 @@ import "server-only";
 import { and, asc, desc, eq, gte, inArray, isNull, sql } from "drizzle-orm";
 import { redrawRemaining, swapPilots, type RoundGroups } from "@/lib/contests/entries-draw";
 import type { Database } from "../index";
+import { clearFlyOffDraw, FLY_OFF_RESULTS_MESSAGE } from "./contest-fly-off";
 import type { Tx } from "./sync-db";
 import { contestDrawChanges, contestEntries, contestRounds, contests, groupSlots, users } from "../schema";
 
 
-export type DrawChangeRefusal = { ok: false; code: "no_draw" | "no_round" | "flown" | "refused" | "too_few"; message: string };
+export type DrawChangeRefusal = { ok: false; code: "no_draw" | "no_round" | "flown" | "refused" | "too_few" | "fly_off_results"; message: string };
 
 /** The contest's row locked for this change (one change of the draw at a time); false when nothing is drawn. */
 async function lockDrawnContest(tx: Tx, contestId: string): Promise<boolean> {
@@ -58,7 +59,8 @@ export async function swapInRound(db: Database, p: { contestId: string; roundNum
 /**
  * The rounds from `fromRound` on drawn again for today's live entries, the earlier rounds kept and
  * their meetings counted (lib/contests/entries-draw.ts redrawRemaining). Refused when one of those
- * rounds has a result. Recorded with its seed, who and when.
+ * rounds has a result, or the fly-off has one; a fly-off drawn without results is cleared (its
+ * pilots came from the old order: contest-fly-off.ts clearFlyOffDraw). Recorded with its seed, who and when.
  */
 export async function redrawFrom(db: Database, p: { contestId: string; fromRound: number; seed: number; byUserId: string }):
   Promise<{ ok: true; summary: string; maxMeetings: number; apartBroken: number } | DrawChangeRefusal> {
@@ -69,6 +71,8 @@ export async function redrawFrom(db: Database, p: { contestId: string; fromRound
     if (remaining.length === 0) return { ok: false, code: "no_round", message: `The contest has no round ${p.fromRound}.` };
     const flownLater = remaining.find((r) => r.slots.some((s) => s.result));
     if (flownLater) return flownRefusal(flownLater.number, "re-draw from a later round.");
+    const flyOff = await clearFlyOffDraw(tx, p.contestId);
+    if (flyOff === "has_results") return { ok: false, code: "fly_off_results", message: FLY_OFF_RESULTS_MESSAGE };
     const [{ maxGroupSize }] = await tx.select({ maxGroupSize: contests.maxGroupSize }).from(contests).where(eq(contests.id, p.contestId)) as [{ maxGroupSize: number }];
     const live = await tx.select({ id: contestEntries.id, keepApart: contestEntries.keepApart }).from(contestEntries)
       .where(and(eq(contestEntries.contestId, p.contestId), isNull(contestEntries.withdrawnAt)));
@@ -86,7 +90,7 @@ export async function redrawFrom(db: Database, p: { contestId: string; fromRound
     if (values.length > 0) await tx.insert(groupSlots).values(values);
     const last = remaining[remaining.length - 1]!.number;
     const span = p.fromRound === last ? `Round ${last}` : `Rounds ${p.fromRound}–${last}`;
-    const summary = `${span} drawn again for ${live.length} pilots (seed ${p.seed}).`;
+    const summary = `${span} drawn again for ${live.length} pilots (seed ${p.seed})${flyOff === "cleared" ? "; the fly-off draw was cleared" : ""}.`;
     await tx.insert(contestDrawChanges).values({ contestId: p.contestId, kind: "redraw", roundNumber: p.fromRound, summary, seed: p.seed, byUserId: p.byUserId });
     return { ok: true, summary, maxMeetings: drawn.result.stats.max, apartBroken: drawn.result.apartBroken };
   });

@@ -1,19 +1,25 @@
 import "server-only";
 import { and, eq, inArray, isNull } from "drizzle-orm";
 import type { Database } from "../index";
+import { clearFlyOffDraw } from "./contest-fly-off";
 import { contestRounds, contests, groupSlots } from "../schema";
 
 export type DrawSlots = { roundNumber: number; groups: string[][] }[];
 
 /**
  * Replaces the contest's draw with these group lists and records its seed, unless the draw is
- * locked ("locked": nothing changes). Rows for rounds not in the list are removed too.
+ * locked ("locked": nothing changes). Rows for rounds not in the list are removed too. A fly-off
+ * drawn from the old preliminary order goes with it (`flyOffCleared`), and while the fly-off has
+ * results nothing changes ("fly_off_results"): db/queries/contest-fly-off.ts clearFlyOffDraw.
  */
-export async function saveDraw(db: Database, p: { contestId: string; seed: number; rounds: DrawSlots }): Promise<"saved" | "locked"> {
+export async function saveDraw(db: Database, p: { contestId: string; seed: number; rounds: DrawSlots }):
+  Promise<{ saved: true; flyOffCleared: boolean } | "locked" | "fly_off_results"> {
   return db.transaction(async (tx) => {
-    const [c] = await tx.update(contests).set({ drawSeed: p.seed })
-      .where(and(eq(contests.id, p.contestId), isNull(contests.drawLockedAt))).returning({ id: contests.id });
-    if (!c) return "locked";
+    const [row] = await tx.select({ lockedAt: contests.drawLockedAt }).from(contests).where(eq(contests.id, p.contestId)).for("update");
+    if (!row || row.lockedAt) return "locked";
+    const flyOff = await clearFlyOffDraw(tx, p.contestId);
+    if (flyOff === "has_results") return "fly_off_results";
+    await tx.update(contests).set({ drawSeed: p.seed }).where(eq(contests.id, p.contestId));
     const rounds = await tx.select({ id: contestRounds.id, number: contestRounds.number }).from(contestRounds)
       .where(and(eq(contestRounds.contestId, p.contestId), eq(contestRounds.isFlyOff, false)));
     if (rounds.length > 0) await tx.delete(groupSlots).where(inArray(groupSlots.roundId, rounds.map((r) => r.id)));
@@ -22,7 +28,7 @@ export async function saveDraw(db: Database, p: { contestId: string; seed: numbe
       return r.groups.flatMap((g, gi) => g.map((entryId) => ({ roundId: round.id, groupNumber: gi + 1, entryId })));
     });
     if (values.length > 0) await tx.insert(groupSlots).values(values);
-    return "saved";
+    return { saved: true, flyOffCleared: flyOff === "cleared" };
   });
 }
 

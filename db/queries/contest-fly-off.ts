@@ -1,7 +1,8 @@
 import "server-only";
 import { and, eq, inArray, isNotNull, or } from "drizzle-orm";
 import type { Database } from "../index";
-import { contestRounds, contests, groupSlots } from "../schema";
+import { contestReflights, contestRounds, contests, groupSlots } from "../schema";
+import type { Tx } from "./sync-db";
 
 export type FlyOffSave = "saved" | "no_fly_off" | "has_results";
 
@@ -28,3 +29,31 @@ export async function saveFlyOffDraw(db: Database, p: { contestId: string; entry
     return "saved";
   });
 }
+
+export type FlyOffClear = "none" | "cleared" | "has_results";
+
+/**
+ * A new draw of the preliminary rounds makes the fly-off's pilots (the top of the old preliminary
+ * order) stale, so it goes with it: its slots and its re-flight grants are deleted ("cleared"), in
+ * the caller's transaction with the contest's row locked. Nothing changes while a fly-off slot or
+ * re-flight holds a result (a card, a linked run or a signature): "has_results", and the caller
+ * refuses the whole re-draw — results flown on the day are never deleted by a draw of other rounds.
+ */
+export async function clearFlyOffDraw(tx: Tx, contestId: string): Promise<FlyOffClear> {
+  const rounds = await tx.select({ id: contestRounds.id }).from(contestRounds)
+    .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true)));
+  if (rounds.length === 0) return "none";
+  const ids = rounds.map((r) => r.id);
+  const [slot] = await tx.select({ id: groupSlots.id }).from(groupSlots)
+    .where(and(inArray(groupSlots.roundId, ids), or(isNotNull(groupSlots.paperFlights), isNotNull(groupSlots.runId), isNotNull(groupSlots.signedAt)))).limit(1);
+  const [reflight] = await tx.select({ id: contestReflights.id }).from(contestReflights)
+    .where(and(inArray(contestReflights.roundId, ids), or(isNotNull(contestReflights.paperFlights), isNotNull(contestReflights.runId), isNotNull(contestReflights.signedAt)))).limit(1);
+  if (slot || reflight) return "has_results";
+  const gone = await tx.delete(groupSlots).where(inArray(groupSlots.roundId, ids)).returning({ id: groupSlots.id });
+  await tx.delete(contestReflights).where(inArray(contestReflights.roundId, ids));
+  return gone.length > 0 ? "cleared" : "none";
+}
+
+/** The refusal's words, the same for a full draw and a re-draw of the remaining rounds. */
+export const FLY_OFF_RESULTS_MESSAGE =
+  "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again (to draw anyway, draw the fly-off again deleting its results first).";

@@ -70,7 +70,7 @@ export type RoundCell = {
   /** A dispute about this result is open: shown as "result under dispute" (no names; public too). */
   disputed: boolean;
 };
-export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[] };
+export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[]; withdrawn: boolean };
 export type Standings = {
   /** Rounds with at least one recorded result, in order (the ones that count so far). */
   rounds: { number: number; letter: string | null; name: string }[];
@@ -164,7 +164,7 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
   return listed.map(({ pilotId, ...standing }) => {
     const { entry, cells } = rowsIn.find((r) => r.entry.id === pilotId)!;
     const marked = cells.map((c, i) => ({ ...c, dropped: standing.dropped?.index === i }));
-    return { ...standing, entryId: entry.id, name: entry.name, team: entry.team, rounds: marked };
+    return { ...standing, entryId: entry.id, name: entry.name, team: entry.team, rounds: marked, withdrawn: entry.withdrawn };
   });
 }
 
@@ -193,8 +193,10 @@ export function contestStandings(input: StandingsInput): Standings {
   // A fly-off planned but not drawn yet (no pilot in its rounds) has no table: the preliminary order stands.
   const flyers = entries.filter((e) => input.slots.some((s) => s.entryId === e.id && flyOffAll.some((r) => r.id === s.roundId)));
   if (flyers.length > 0) {
-    // A fly-off round counts once every fly-off pilot has a result in it (lib/scoring finalResults).
-    const complete = flyOffAll.filter((r) => flyers.every((e) => scored.get(r.id)?.get(e.id)?.resultTenths != null));
+    // A fly-off round counts once every fly-off pilot still flying has a result in it (lib/scoring finalResults).
+    // A pilot who withdrew keeps the rounds flown and scores 0 in the others (common practice; RULES.md
+    // is silent): a withdrawal must not keep the remaining rounds from ever being complete.
+    const complete = flyOffAll.filter((r) => hasResult(r) && flyers.every((e) => e.withdrawn || scored.get(r.id)?.get(e.id)?.resultTenths != null));
     const flyRows = pilotRows(complete, scored, flyers, Number.POSITIVE_INFINITY, true);
     const result = finalResults(
       pilots.map((p) => ({ ...p, pilotId: p.entryId })),

@@ -2,6 +2,7 @@
 import { randomInt } from "node:crypto";
 import { db } from "@/db";
 import { saveDraw } from "@/db/queries/contest-draw";
+import { FLY_OFF_RESULTS_MESSAGE } from "@/db/queries/contest-fly-off";
 import { getContest } from "@/db/queries/contests";
 import { parseJson, route } from "@/lib/api";
 import { requireContestRole } from "@/lib/auth/contest-role";
@@ -14,7 +15,10 @@ export const dynamic = "force-dynamic";
 
 type Context = { params: Promise<{ contestId: string }> };
 
-/** 401, 404, 403 as every officer route; 409 when the draw is locked or fewer than 2 pilots are entered. */
+/**
+ * 401, 404, 403 as every officer route; 409 when the draw is locked, fewer than 2 pilots are entered, or the fly-off
+ * has results (`fly_off_results`). A fly-off drawn without results is cleared with the old draw (`flyOffCleared`).
+ */
 export const POST = route(async (request: Request, context: Context) => {
   await requireUser();
   const body = await parseJson(request, drawSchema);
@@ -27,9 +31,9 @@ export const POST = route(async (request: Request, context: Context) => {
   if (live.length < 2) throw new ConflictError("too_few", "Enter at least 2 pilots before the draw.");
   const seed = body.seed ?? randomInt(0, 2_147_483_647);
   const drawn = drawEntries({ entries: live, rounds: found.rounds.map((r) => r.number), maxGroupSize: found.contest.maxGroupSize, seed });
-  if ((await saveDraw(db, { contestId: params.data.contestId, seed, rounds: drawn.rounds })) === "locked") {
-    throw new ConflictError("locked", "The draw is locked.");
-  }
+  const saved = await saveDraw(db, { contestId: params.data.contestId, seed, rounds: drawn.rounds });
+  if (saved === "locked") throw new ConflictError("locked", "The draw is locked.");
+  if (saved === "fly_off_results") throw new ConflictError("fly_off_results", FLY_OFF_RESULTS_MESSAGE);
   const { max, stdDev } = drawn.result.stats;
-  return Response.json({ seed, maxMeetings: max, spread: stdDev, apartBroken: drawn.result.apartBroken }, { status: 201, headers: { "cache-control": "no-store" } });
+  return Response.json({ seed, maxMeetings: max, spread: stdDev, apartBroken: drawn.result.apartBroken, flyOffCleared: saved.flyOffCleared }, { status: 201, headers: { "cache-control": "no-store" } });
 });

@@ -15,7 +15,8 @@ type Context = { params: Promise<{ contestId: string }> };
 /**
  * 401, 404, 403 as every officer route; allowed after the draw is locked (a withdrawal or a late
  * entry on the day). 409 with the reason when nothing is drawn, there is no such round, one of the
- * rounds to re-draw has a result, or fewer than 2 pilots are entered.
+ * rounds to re-draw has a result, the fly-off has one (`fly_off_results`), or fewer than 2 pilots are entered.
+ * A fly-off drawn without results is cleared (the summary says so).
  */
 export const POST = route(async (request: Request, context: Context) => {
   const user = await requireUser();
