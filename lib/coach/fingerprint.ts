@@ -1,5 +1,4 @@
 import { createHash } from "node:crypto";
-import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
 
 /**
  * The pull's `coaching` fingerprint (pullReplySchema.coaching): SHA-256 (hex) of the notes and plans
@@ -9,7 +8,8 @@ import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
  * on every push of the pilot and which only the Coach desk shows (it reads it fresh from its route,
  * not from the pull): counting it would resend the plans after every push.
  */
-export function coachingFingerprint(notes: readonly PulledNote[], plans: readonly PulledPlan[]): string {
+// Typed by shape (the pulled notes and plans of lib/validations/coaching-sync), so lib/coach need not import lib/validations, which imports it.
+export function coachingFingerprint(notes: readonly object[], plans: readonly object[]): string {
   const stable = plans.map((p) => ({ ...p, pilotSyncedAtMs: null }));
   return createHash("sha256").update(JSON.stringify({ notes, plans: stable })).digest("hex");
 }
