@@ -1,5 +1,6 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
+import type { Tx } from "./sync-db";
 
 /** A field's name as the day matching compares it (lib/days/matching.ts fieldKey: case and spacing ignored), in SQL. */
 export const fieldKeySql = (name: SQL): SQL => sql`lower(regexp_replace(btrim(${name}), '\\s+', ' ', 'g'))`;
@@ -28,4 +29,18 @@ export function holdOpenDays(runIds: SQL): SQL {
       and d.day between (r.created_at - interval '3 days')::date and (r.created_at + interval '3 days')::date
     order by d.id
     for share of d`;
+}
+
+/**
+ * Takes the day locks of holdOpenDays for these runs now, in their own statement: a push calls it
+ * before it locks or deletes any run (lockRuns, applyDiscards), so it takes the days before the runs,
+ * the order of the close (days FOR UPDATE, then the runs' keys as it keeps them). Taken only when the
+ * results are stored, a push that had deleted a window (its row locked) could wait for a close's day
+ * while that close waited for the deleted run's key: a deadlock
+ * (tests/integration/club-day-close-deadlock.test.ts). storeDerivations takes them again (held already).
+ */
+export async function holdDaysOfRuns(tx: Tx, runIds: readonly string[]): Promise<void> {
+  const ids = [...new Set(runIds)];
+  if (ids.length === 0) return;
+  await tx.execute(sql`${holdOpenDays(sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `))}`);
 }
