@@ -20,6 +20,7 @@ const DAY = "2026-08-08";
 const FIELD = { latitude: 46.9, longitude: 7.1 };
 const north = (m: number) => ({ latitude: FIELD.latitude + m / 111_195.08, longitude: FIELD.longitude });
 let clubId = "";
+let dayId = "";
 let pilot: MockSessionUser;
 const ids: Record<string, string> = {};
 
@@ -29,7 +30,9 @@ beforeAll(async () => {
   clubId = club!.id;
   await db.insert(memberships).values({ clubId, userId: pilot.id, role: "officer" });
   const [field] = await db.insert(clubFields).values({ clubId, name: "Hill Pasture", ...FIELD }).returning();
-  await openClubDay(db, { clubId, fieldId: field!.id, day: DAY, userId: pilot.id });
+  const opened = await openClubDay(db, { clubId, fieldId: field!.id, day: DAY, userId: pilot.id });
+  if (!opened || opened === "closed") throw new Error("the day did not open");
+  dayId = opened.day.id;
   const phone = await addPhone(pilot.id, 0, 30, "pos");
   await measure(phone, Date.parse(`${DAY}T09:00:00Z`));
   const flown = (field: string, at: string, position?: { latitude: number; longitude: number }) =>
@@ -55,6 +58,7 @@ describe("a field day's runs by place, then by name", () => {
 
   it("a push of a run at the place holds the day against a close, whatever its name (club-day-locks.ts)", async () => {
     const held = await db.transaction((tx) => tx.execute<{ id: string }>(sql`${holdOpenDays(sql`${ids.renamed}::uuid`)}`));
-    expect(held.rows).toHaveLength(1);
+    // this club's day (other clubs' days at a field there, from earlier runs of this file, are held too: right)
+    expect(held.rows.map((r) => r.id)).toContain(dayId);
   });
 });
