@@ -235,7 +235,7 @@ test("Ada's run page says the evening's Day board counts another record for her 
   await expect(ada.getByTestId("lane-result-0")).toHaveText(`${runResult} s`); // the run's own result stays beside it
   const board = (await note.textContent())!.match(/\(…e-tobi\): (\d+\.\d) s there/)![1]!;
   expect(Number(board)).toBeLessThan(Number(runResult)); // the backup missed her last flight
-  await expect(note).toContainText(/Decided by Ines \S+ on \w{3} 2[12] Nov 2026, \d{2}:\d{2} \S+\. Note: Ada called her last launch a test throw before the horn\./);
+  await expect(note).toContainText(/Decided by Ines \S+ on \w{3},? 2[12] Nov 2026, \d{2}:\d{2} \S+\. Note: Ada called her last launch a test throw before the horn\./);
   expect(await seriousViolations(ada)).toEqual([]);
   await note.getByRole("link", { name: "Open the Day board" }).click();
   await expect(ada).toHaveURL(/\/clubs\/heronmoor\/days\/2026-11-21$/);
@@ -277,7 +277,7 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   expect(await seriousViolations(officer)).toEqual([]);
 
   const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
-  // the backup's record chosen: it is the day's result for the lane (one flight fewer), marked, and "used"
+  // the seeded choice of the backup's record: it is the day's result for the lane (one flight fewer), marked, and "used"
   const runId = await pair.getAttribute("data-run-id");
   const lane = officer.getByRole("list", { name: "Runs of the day" }).locator(`[data-run-id="${runId}"] li`).filter({ hasText: "Ada Fenwick" });
   await expect(lane).toContainText(`, ${clubFlights - 1} flight`);
