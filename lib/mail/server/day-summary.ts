@@ -39,12 +39,12 @@ export async function sendLateDecisionSummary(
   const recordedBy = change.after.disagreements
     .find((d) => d.runId === change.runId && d.lane === change.lane)
     ?.versions.find((v) => v.deviceId === change.deviceId)?.recordedBy;
+  const beforeTenths = laneOf(change.before)?.resultTenths ?? null;
   const line = decisionChangeLine({
     pilot: name(lane.pilotId), taskCode: run.taskCode, startText: formatClock(new Date(run.startMs), change.after.timeZone, "time"),
-    recorder: change.deviceId === null ? null : name(recordedBy), beforeTenths: laneOf(change.before)?.resultTenths ?? null, afterTenths: lane.resultTenths,
+    recorder: change.deviceId === null ? null : name(recordedBy), beforeTenths, afterTenths: lane.resultTenths,
   });
   const lines = boardSummaryLines(change.after);
-  const beforeTenths = laneOf(change.before)?.resultTenths ?? null;
   // the record chosen gives what the board had already (the rules' own pick): nothing to tell
   if (beforeTenths === lane.resultTenths && JSON.stringify(lines) === JSON.stringify(boardSummaryLines(change.before))) return;
   const mail = daySummaryUpdateMail({ clubName: club.name, dayText: dayLabel(day), change: line, lines, ...links(club, day) });
