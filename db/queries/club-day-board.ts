@@ -2,10 +2,10 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import { buildDayBoard, type BoardLaneInput, type DayBoardView } from "@/lib/days/board";
-import { dayBounds, DAY_MS, fieldKey, matchDayRuns } from "@/lib/days/matching";
+import { dayBounds, DAY_MS, matchDayRuns } from "@/lib/days/matching";
 import type { Database } from "../index";
 import { withDecisions } from "./club-day-decided";
-import { fieldKeySql } from "./club-day-locks";
+import { maybeAtFieldSql } from "./club-day-locks";
 import { isTurnaround } from "./season/turnaround";
 import type { Tx } from "./sync-db";
 
@@ -14,14 +14,15 @@ type Db = Database | Tx;
 export type { DayBoardView };
 
 type LaneRow = {
-  run_id: string; session_field: string; created_at: Date | string; created_by: string; task_code: string; chosen: boolean;
+  run_id: string; session_field: string; session_lat: number | null; session_lon: number | null; created_at: Date | string; created_by: string; task_code: string; chosen: boolean;
   lane: number; pilot_user_id: string; result_tenths: number | null; needs_review: boolean; derived: unknown;
   status: "accepted" | "pending" | null; ground: (number | null)[] | null;
 };
 
 /**
- * The lanes of every run that may belong to the club's day: runs whose session names one of the
- * day's fields and whose phone put them within a day of it (matchDayRuns then keeps those whose
+ * The lanes of every run that may belong to the club's day: runs whose session may have been at one
+ * of the day's fields (its name, or its position near the field's: maybeAtFieldSql) and whose phone
+ * put them within a day of it (matchDayRuns then keeps those whose
  * corrected start falls on the day), and runs a pilot chose for the day. Once the day is closed
  * (`frozen`), the runs the close kept (club_day_closed_runs) and no others, each as if chosen.
  * Only runs set up by a member, only lanes flown by a member whose account is enabled, and never a
@@ -33,7 +34,7 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
   const to = new Date(endMs + DAY_MS).toISOString();
   const res = await db.execute<LaneRow>(sql`
     with d as (select id, field_id from club_days where club_id = ${params.clubId} and day = ${params.day}::date),
-    names as (select ${fieldKeySql(sql`f.name`)} as k from club_fields f join d on d.field_id = f.id),
+    dayf as (select f.name, f.latitude, f.longitude from club_fields f join d on d.field_id = f.id),
     chosen as (
       select distinct cr.run_id from club_day_runs cr join d on d.id = cr.day_id where not ${params.frozen}
       union select k.run_id from club_day_closed_runs k join d on d.id = k.day_id where ${params.frozen}
@@ -41,10 +42,10 @@ async function candidateLanes(db: Db, params: { clubId: string; day: string; tim
     cand as (
       select r.id from runs r join field_sessions s on s.id = r.session_id
       where not ${params.frozen} and r.created_at >= ${from}::timestamptz and r.created_at < ${to}::timestamptz
-        and ${fieldKeySql(sql`s.field_name`)} in (select k from names)
+        and exists (select 1 from dayf f where ${maybeAtFieldSql("s", "f")})
       union select run_id from chosen
     )
-    select r.id as run_id, s.field_name as session_field, r.created_at, r.created_by, r.task_code,
+    select r.id as run_id, s.field_name as session_field, s.latitude as session_lat, s.longitude as session_lon, r.created_at, r.created_by, r.task_code,
       (ch.run_id is not null) as chosen, l.lane, l.pilot_user_id, l.result_tenths, l.needs_review, l.derived,
       case when r.created_by = l.pilot_user_id then null else coalesce(c.status::text, 'pending') end as status,
       (select array_agg(case when ${isTurnaround(sql`lf.ground_ms`, sql`r.flights_on_signal`)} then lf.ground_ms end order by lf.position)
@@ -83,12 +84,12 @@ async function dayDevices(db: Db, params: { clubId: string; deviceIds: string[];
   return res.rows;
 }
 
-type DayRow = { id: string; field_id: string; name: string; closed_at: Date | string | null; closed_by: string | null; frozen: boolean };
+type DayRow = { id: string; field_id: string; name: string; latitude: number | null; longitude: number | null; closed_at: Date | string | null; closed_by: string | null; frozen: boolean };
 
 /** The club's day rows of a date (each at one field), with whether the close kept its runs. */
 async function dayRows(db: Db, params: { clubId: string; day: string }): Promise<DayRow[]> {
   const res = await db.execute<DayRow>(sql`
-    select d.id, d.field_id, f.name, d.closed_at, d.closed_by,
+    select d.id, d.field_id, f.name, f.latitude, f.longitude, d.closed_at, d.closed_by,
       (d.closed_at is not null and d.runs_frozen_at is not null) as frozen
     from club_days d join club_fields f on f.id = d.field_id
     where d.club_id = ${params.clubId} and d.day = ${params.day}::date order by f.name`);
@@ -103,23 +104,24 @@ async function clubTimeZone(db: Db, clubId: string): Promise<string> {
 /** The lanes that belong to the day, each with its run's corrected start (matchDayRuns on the club's clock). */
 async function dayLanes(db: Db, params: { clubId: string; day: string; timeZone: string; days: DayRow[] }): Promise<BoardLaneInput[]> {
   const frozen = params.days.some((d) => d.frozen);
-  const fields = params.days.map((d) => d.name);
+  const fields = params.days.map((d) => ({ name: d.name, position: d.latitude === null || d.longitude === null ? null : { latitude: d.latitude, longitude: d.longitude } }));
   const rows = await candidateLanes(db, { ...params, frozen });
   const byRun = new Map<string, LaneRow[]>();
   for (const r of rows) byRun.set(r.run_id, [...(byRun.get(r.run_id) ?? []), r]);
   const matched = matchDayRuns(
     [...byRun.entries()].map(([runId, lanes]) => ({
-      runId, sessionField: lanes[0]!.session_field, createdAtMs: new Date(lanes[0]!.created_at).getTime(), chosen: frozen || lanes[0]!.chosen,
+      runId, sessionField: lanes[0]!.session_field,
+      sessionPosition: lanes[0]!.session_lat === null || lanes[0]!.session_lon === null ? null : { latitude: lanes[0]!.session_lat, longitude: lanes[0]!.session_lon },
+      createdAtMs: new Date(lanes[0]!.created_at).getTime(), chosen: frozen || lanes[0]!.chosen,
       laneDerived: lanes.map((l) => l.derived), lanes,
     })),
     params.day,
     fields,
     params.timeZone,
   );
-  const fieldByKey = new Map(fields.map((f) => [fieldKey(f), f]));
   return matched.flatMap((m) =>
     m.lanes.map((l) => ({
-      runId: m.runId, startMs: m.startMs, fieldName: fieldByKey.get(fieldKey(l.session_field)) ?? l.session_field,
+      runId: m.runId, startMs: m.startMs, fieldName: m.field ?? l.session_field,
       taskCode: l.task_code, createdBy: l.created_by, lane: l.lane, pilotId: l.pilot_user_id,
       consent: l.status ?? "own", resultTenths: l.result_tenths, needsReview: l.needs_review, derived: l.derived, groundMs: l.ground ?? [],
     })),

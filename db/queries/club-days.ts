@@ -79,12 +79,28 @@ export async function closeClubDay(
     if (closed.rows.some((r) => r.unfrozen)) await freezeDayRuns(tx, params);
     const closedAt = new Date(closed.rows[0]!.closed_at);
     if (!closed.rows.some((r) => r.claimed)) return { closedAt, summaryRecipients: [] };
-    const to = await tx.execute<{ email: string; name: string }>(sql`
-      select u.email, u.name from memberships m join users u on u.id = m.user_id
-      where m.club_id = ${params.clubId} and m.day_summaries and u.disabled_at is null and u.deleted_at is null
-      order by u.email`);
-    return { closedAt, summaryRecipients: to.rows };
+    return { closedAt, summaryRecipients: await summaryRecipients(tx, params.clubId) };
   });
+}
+
+/** The members who asked for the club's day summaries (memberships.day_summaries), enabled accounts only. */
+async function summaryRecipients(db: Pick<Database, "execute">, clubId: string): Promise<{ email: string; name: string }[]> {
+  const to = await db.execute<{ email: string; name: string }>(sql`
+    select u.email, u.name from memberships m join users u on u.id = m.user_id
+    where m.club_id = ${clubId} and m.day_summaries and u.disabled_at is null and u.deleted_at is null
+    order by u.email`);
+  return to.rows;
+}
+
+/**
+ * Who gets the updated summary of a decision made after the day's summary went (the day closed, its
+ * summary claimed): the members who ask for summaries now. Empty while the day is open (its summary
+ * is still to come, at the close).
+ */
+export async function lateSummaryRecipients(db: Database, params: { clubId: string; day: string }): Promise<{ email: string; name: string }[]> {
+  const sent = await db.execute(sql`
+    select 1 from club_days where club_id = ${params.clubId} and day = ${params.day}::date and closed_at is not null and summary_sent_at is not null limit 1`);
+  return sent.rows.length === 0 ? [] : summaryRecipients(db, params.clubId);
 }
 
 /** The member's own day-summary setting for the club; false when they are not a member (nothing changes). */

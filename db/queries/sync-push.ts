@@ -5,6 +5,7 @@ import { ForbiddenError } from "@/lib/errors";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
+import { holdDaysOfRuns } from "./club-day-locks";
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { storeDerivations, type DeriveStats } from "./runs";
@@ -33,13 +34,15 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * sessions, runs and events — each checked, each stored once — then derive every affected run
  * once. No lock is shared by all pushes: the rows carry this transaction's id (pulls serve only
  * finished transactions, db/queries/sync-pull.ts), and only the runs this push writes to are
- * locked, all at once and in id order (lockRuns), before anything about them is read. Refusals —
+ * locked, all at once and in id order (lockRuns), before anything about them is read — after the
+ * open club days those runs and the deleted ones may belong to are held FOR SHARE (holdDaysOfRuns),
+ * the order in which a day's close takes them. Refusals —
  * `refused`, the items that failed their schema, and those refused here — are acknowledged with
  * their reason and recorded in sync_rejections once per device and item. Returns one ack per
  * item and the last server sequence number.
  *
  * Round trips of a push that only carries events (bench/sync-profile.ts counts them): begin,
- * claim, the device's estimates, lock the runs, one load (runs, their events, clashes, estimates:
+ * claim, the device's estimates, hold the runs' open club days, lock the runs, one load (runs, their events, clashes, estimates:
  * sync-push-load.ts), one multi-row insert per 500 events, one statement that stores every
  * derived lane and re-stamps the runs, commit.
  */
@@ -56,6 +59,9 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     await applySessions(ctx, req.sessions);
     const newRuns = await applyRuns(ctx, req.runs);
     const eventRuns = req.events.map((e) => e.runId).filter(isUuid);
+    const discardIds = (req.discards ?? []).map((d) => d.id).filter(isUuid);
+    // the open club days of every run this push writes or deletes, before any run is locked: the close's order (club-day-locks.ts)
+    await holdDaysOfRuns(tx, [...eventRuns, ...clock.movedRuns, ...newRuns, ...discardIds]);
     await lockRuns(tx, [...eventRuns, ...clock.movedRuns]);
     const targetIds = req.events.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
     const load = await loadForPush(tx, {

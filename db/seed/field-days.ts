@@ -6,7 +6,10 @@ import { DEMO_CLUB } from "./demo-people";
  * Two field days of the demo club at its home field, opened by its officer (idempotent): the latest
  * date of the demo season on which the most members flew there, and the club evening on which Tobi
  * timed Ada (recorded-for.ts). Their phones' clock estimates are the offsets their events carried,
- * as a push stores them, so the Day board shows each phone's offset and uncertainty.
+ * as a push stores them, so the Day board shows each phone's offset and uncertainty. On the evening,
+ * the officer decided the lane the two phones recorded differently (recorded-for.ts) for Tobi's own
+ * phone, the backup, whose record the conflict rules do not use: the Day board counts it and Ada's run
+ * page says so beside the run's own result (issue #14).
  */
 export async function seedFieldDays(db: Database): Promise<void> {
   await db.execute(sql`
@@ -35,4 +38,14 @@ export async function seedFieldDays(db: Database): Promise<void> {
     join devices v on v.id = e.device_id
     where e.offset_measured_at_ms is not null and e.offset_delta_ms is not null and e.offset_theta_ms is not null
     on conflict (device_id, measured_at_wall_ms) do nothing`);
+  await db.execute(sql`
+    insert into club_day_decisions (club_id, day, run_id, lane, device_id, note, decided_by, decided_at)
+    select d.club_id, d.day, r.id, l.lane, 'demo-phone-tobi', 'Ada called her last launch a test throw before the horn.', d.opened_by,
+      (d.day + interval '1 day 9 hours')::timestamp at time zone 'UTC'
+    from club_days d join clubs c on c.id = d.club_id and c.slug = ${DEMO_CLUB.slug}
+    join field_sessions s on s.club_id = c.id and (s.started_at at time zone 'UTC')::date = d.day
+    join runs r on r.session_id = s.id join run_lanes l on l.run_id = r.id and l.pilot_user_id <> r.created_by
+    where exists (select 1 from events e where e.run_id = r.id and e.device_id = 'demo-phone-tobi')
+      and exists (select 1 from events e where e.run_id = r.id and e.device_id = 'demo-phone-tobi-club')
+    on conflict (club_id, day, run_id, lane) do nothing`);
 }

@@ -1,6 +1,8 @@
 // Which runs belong to a club's field day. A run belongs when the pilot chose the day for it, or
-// when it was recorded at one of the day's fields (its session names the field) and its corrected
-// start falls on the day on the club's clock (its time zone, ./time-zone.ts). The start is read on the
+// when it was recorded at one of the day's fields and its corrected start falls on the day on the
+// club's clock (its time zone, ./time-zone.ts). "At the field": where the field and the session both
+// carry a position, within FIELD_RADIUS_M of it, whatever the names (the place wins over the name);
+// else the session names the field. The start is read on the
 // corrected clock (the working-time signal, else the first launch), so a phone whose clock is
 // wrong does not move its run to another day; a run nothing was recorded in yet falls back to the
 // time the phone set it up. Pure: no framework, no I/O.
@@ -16,6 +18,51 @@ export function fieldKey(name: string): string {
   return name.trim().replace(/\s+/g, " ").toLowerCase();
 }
 
+
+/** A position in decimal degrees (WGS 84), as the phone's location and the club's field store it. */
+export type Position = { latitude: number; longitude: number };
+
+/**
+ * How near a session must be to a field's position to count as at that field: 1 km (our choice: a
+ * flying field and its car park fit well within it, and two fields a club flies are rarely closer).
+ */
+export const FIELD_RADIUS_M = 1000;
+
+const EARTH_RADIUS_M = 6_371_008.8; // the mean Earth radius (IUGG), enough for a 1 km test
+
+/** The great-circle distance between two positions in metres (haversine formula on a sphere). */
+export function distanceM(a: Position, b: Position): number {
+  const rad = Math.PI / 180;
+  const dLat = (b.latitude - a.latitude) * rad;
+  const dLon = (b.longitude - a.longitude) * rad;
+  const h = Math.sin(dLat / 2) ** 2 + Math.cos(a.latitude * rad) * Math.cos(b.latitude * rad) * Math.sin(dLon / 2) ** 2;
+  return 2 * EARTH_RADIUS_M * Math.asin(Math.min(1, Math.sqrt(h)));
+}
+
+/** A field of the day: its name, and its position when the club gave one. */
+export type DayField = { name: string; position?: Position | null };
+
+const positioned = (p: Position | null | undefined): p is Position =>
+  p != null && Number.isFinite(p.latitude) && Number.isFinite(p.longitude);
+
+/**
+ * The day's field a session was at, or null: by position when both the field and the session have one
+ * (within FIELD_RADIUS_M, the nearest first), else by name (fieldKey). A field with a position never
+ * takes a positioned session by its name alone: the same name at another place is another field.
+ */
+export function fieldOfSession(session: { fieldName: string; position?: Position | null }, fields: readonly DayField[]): DayField | null {
+  const here = session.position;
+  let best: { field: DayField; m: number } | null = null;
+  for (const f of fields) {
+    if (positioned(here) && positioned(f.position)) {
+      const m = distanceM(here, f.position);
+      if (m <= FIELD_RADIUS_M && (best === null || m < best.m)) best = { field: f, m };
+    }
+  }
+  if (best) return best.field;
+  const key = fieldKey(session.fieldName);
+  return fields.find((f) => !(positioned(here) && positioned(f.position)) && fieldKey(f.name) === key) ?? null;
+}
 
 type StoredDerived = { signal?: { atMs?: unknown } | null } | null | undefined;
 
@@ -39,25 +86,32 @@ export type CandidateRun = {
   runId: string;
   /** The field its session names. */
   sessionField: string;
+  /** Where the session was (the phone's position), when it knows. */
+  sessionPosition?: Position | null;
   createdAtMs: number;
   laneDerived: readonly unknown[];
   /** The pilot chose this day for the run (from the run page): it belongs whatever its field and time. */
   chosen: boolean;
 };
 
-/** The runs of `candidates` that belong to the day (a date on the club's clock), each with its start; the day's fields by name. */
+/**
+ * The runs of `candidates` that belong to the day (a date on the club's clock), each with its start and
+ * the day's field it was at (null: a run chosen for the day that was at none of them). `fields`: the
+ * day's fields, by name or with their positions.
+ */
 export function matchDayRuns<R extends CandidateRun>(
   candidates: readonly R[],
   day: string,
-  fieldNames: readonly string[],
+  fields: readonly (string | DayField)[],
   timeZone = "UTC",
-): (R & { startMs: number })[] {
+): (R & { startMs: number; field: string | null })[] {
   const { startMs, endMs } = dayBounds(day, timeZone);
-  const fields = new Set(fieldNames.map(fieldKey));
-  const out: (R & { startMs: number })[] = [];
+  const dayFields = fields.map((f) => (typeof f === "string" ? { name: f } : f));
+  const out: (R & { startMs: number; field: string | null })[] = [];
   for (const c of candidates) {
     const start = runStartMs(c.laneDerived, c.createdAtMs);
-    if (c.chosen || (fields.has(fieldKey(c.sessionField)) && start >= startMs && start < endMs)) out.push({ ...c, startMs: start });
+    const field = fieldOfSession({ fieldName: c.sessionField, position: c.sessionPosition }, dayFields)?.name ?? null;
+    if (c.chosen || (field !== null && start >= startMs && start < endMs)) out.push({ ...c, startMs: start, field });
   }
   return out.sort((a, b) => a.startMs - b.startMs || (a.runId < b.runId ? -1 : 1));
 }

@@ -1,6 +1,6 @@
 // The lines of a field day's summary e-mail, from the Day board's aggregates (the same numbers the
 // board shows). Pure: the caller passes names and how to print a time of day.
-import type { DayBoard } from "./board";
+import type { DayBoard, DayBoardView } from "./board";
 import { bestQuarter } from "./lift-timeline";
 
 const seconds = (tenths: number) => `${(tenths / 10).toFixed(1)} s`;
@@ -27,6 +27,25 @@ export function daySummaryLines(
   const air = bestQuarter(board.lift);
   if (air) lines.push(`Best air: the quarter hour from ${formatTime(air.startMs)} (${timeZone}).`);
   return lines;
+}
+
+/** The summary lines of a board as the server built it, times on the club's clock (its names: `people`). */
+export function boardSummaryLines(board: DayBoardView): string[] {
+  const timeOfDay = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", timeZone: board.timeZone });
+  return daySummaryLines(board, (id) => board.people[id] ?? "a member", (ms) => timeOfDay.format(ms), board.timeZone);
+}
+
+/**
+ * The first line of an updated summary: which lane an officer decided after the close, whose record
+ * counts now and the lane's result on the board before and after. `recorder` null: no record is chosen
+ * by hand any more (the decision became a note), so the conflict rules' pick counts again.
+ */
+export function decisionChangeLine(input: {
+  pilot: string; taskCode: string; /** The window's start on the club's clock, with the zone's name. */ startText: string; recorder: string | null; beforeTenths: number | null; afterTenths: number | null;
+}): string {
+  const result = (t: number | null) => (t === null ? "no result" : seconds(t));
+  const counts = input.recorder === null ? "the record the rules pick counts again" : `the record of ${input.recorder}'s phone counts now`;
+  return `${input.pilot}'s window at ${input.startText} (${taskName(input.taskCode)}): ${counts}, ${result(input.afterTenths)} (was ${result(input.beforeTenths)}).`;
 }
 
 const WEEKDAYS = ["Sun", "Mon", "Tue", "Wed", "Thu", "Fri", "Sat"];

@@ -76,3 +76,23 @@ export function daySummaryMail(input: { clubName: string; dayText: string; lines
     { unsubscribe: input.unsubscribe },
   );
 }
+
+/**
+ * The day's summary again, after an officer decided a lane once the day was closed (its first summary
+ * went at the close): what changed first, then the summary as it is now. To the same members, with the
+ * same unsubscribe line.
+ */
+export function daySummaryUpdateMail(input: { clubName: string; dayText: string; change: string; lines: string[]; boardLink: string; unsubscribe: string }): Mail {
+  return compose(
+    "day-summary-update",
+    `${input.clubName}: the field day of ${input.dayText}, updated`,
+    [
+      `An officer changed a result of the field day of ${input.dayText} at ${input.clubName} after it was closed.`,
+      input.change,
+      "The day's summary as it is now:",
+      ...input.lines,
+      { link: input.boardLink, label: "Open the Day board" },
+    ],
+    { unsubscribe: input.unsubscribe },
+  );
+}

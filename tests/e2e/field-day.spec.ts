@@ -211,6 +211,50 @@ test("a member asks for day summaries on the club page; the officer closes a see
   await officer.context().close();
 });
 
+test("Ada's run page says the evening's Day board counts another record for her lane: whose, both results, who decided and when, the board", async ({ browser }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  let runId = "";
+  let runResult = "";
+  try {
+    // the seeded decision (db/seed/field-days.ts): the backup phone's record counts on the evening's board
+    const { rows } = await db.query<{ run_id: string; result: string }>(`
+      select x.run_id, to_char(l.result_tenths / 10.0, 'FM999990.0') as result from club_day_decisions x
+      join run_lanes l on l.run_id = x.run_id and l.lane = x.lane where x.device_id = 'demo-phone-tobi' and x.day = '2026-11-21'`);
+    runId = rows[0]!.run_id;
+    runResult = rows[0]!.result;
+  } finally {
+    await db.end();
+  }
+  const ada = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
+  await signInAs(ada, "ada@example.com");
+  await ada.goto(`/logbook/run?id=${runId}`);
+  const note = ada.getByTestId("day-decision");
+  await expect(note).toContainText("Heronmoor Hand-Launch Club, field day of Sat 21 Nov 2026: the Day board counts Tobi Okafor’s phone’s record (…e-tobi):", { timeout: 30_000 });
+  await expect(note).toContainText(`there; this run’s result is ${runResult} s.`);
+  await expect(ada.getByTestId("lane-result-0")).toHaveText(`${runResult} s`); // the run's own result stays beside it
+  const board = (await note.textContent())!.match(/\(…e-tobi\): (\d+\.\d) s there/)![1]!;
+  expect(Number(board)).toBeLessThan(Number(runResult)); // the backup missed her last flight
+  await expect(note).toContainText(/Decided by Ines \S+ on \w{3},? 2[12] Nov 2026, \d{2}:\d{2} \S+\. Note: Ada called her last launch a test throw before the horn\./);
+  // axe on the decision only: the run page's flights table (components/run/flights-table.tsx, not of this change)
+  // has a scrollable region axe flags (scrollable-region-focusable)
+  const axe = await new AxeBuilder({ page: ada }).include('[data-testid="day-decision"]').analyze();
+  expect(axe.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => v.id)).toEqual([]);
+  await note.getByRole("link", { name: "Open the Day board" }).click();
+  await expect(ada).toHaveURL(/\/clubs\/heronmoor\/days\/2026-11-21$/);
+  const lane = ada.getByRole("list", { name: "Runs of the day" }).locator(`[data-run-id="${runId}"] li`).filter({ hasText: "Ada Fenwick" });
+  await expect(lane).toContainText(`Ada Fenwick: ${board} s, `);
+  await expect(lane).toContainText("the record an officer chose for this day");
+  await ada.context().close();
+
+  // an officer of another club who asks learns nothing of it
+  const stranger = await (await browser.newContext()).newPage();
+  await signInAs(stranger, "oren@example.com");
+  const answer = await stranger.evaluate(async (id) => (await fetch(`/api/runs/${id}/day-decisions`)).json(), runId);
+  expect(answer).toEqual({ decisions: [] });
+  await stranger.context().close();
+});
+
 test("an officer sees the seeded evening's lane two phones recorded differently, side by side, and decides which record stands", async ({ browser }) => {
   const officer = await (await browser.newContext({ viewport: { width: 360, height: 800 } })).newPage();
   await signInAs(officer, "ines@example.com");
@@ -224,9 +268,11 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   const backup = pair.locator('[data-device-id="demo-phone-tobi"]');
   await expect(club).toContainText("Tobi Okafor’s phone …i-club");
   await expect(backup).toContainText("Tobi Okafor’s phone …e-tobi");
-  await expect(club).toContainText(/Result \d+\.\d s, \d+ flights? · used/);
-  await expect(backup).toContainText(/Result \d+\.\d s, \d+ flights?/);
-  await expect(backup).not.toContainText("· used");
+  // the seed's decision: the backup's record stands for the day (db/seed/field-days.ts)
+  await expect(backup).toContainText(/Result \d+\.\d s, \d+ flights? · used/);
+  await expect(club).toContainText(/Result \d+\.\d s, \d+ flights?/);
+  await expect(club).not.toContainText("· used");
+  await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …e-tobi stands");
   const clubFlights = await club.getByRole("list").locator("li").count();
   expect(await backup.getByRole("list").locator("li").count()).toBe(clubFlights - 1);
   await expect(club.getByRole("list").locator("li").first()).toContainText(/^\d{2}:\d{2}:\d{2}\.\d → \d{2}:\d{2}:\d{2}\.\d$/);
@@ -234,18 +280,11 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   expect(await seriousViolations(officer)).toEqual([]);
 
   const form = pair.getByRole("form", { name: /^Decision, Ada Fenwick, / });
-  // the backup's record chosen: it is the day's result for the lane (one flight fewer), marked, and "used"
+  // the seeded choice of the backup's record: it is the day's result for the lane (one flight fewer), marked, and "used"
   const runId = await pair.getAttribute("data-run-id");
   const lane = officer.getByRole("list", { name: "Runs of the day" }).locator(`[data-run-id="${runId}"] li`).filter({ hasText: "Ada Fenwick" });
-  await expect(lane).toContainText(`, ${clubFlights} flight`);
-  await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …e-tobi/ }).check();
-  await form.getByRole("textbox", { name: "Note", exact: true }).fill("Trying the backup phone.");
-  await form.getByRole("button", { name: "Record the decision" }).click();
-  await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …e-tobi stands");
   await expect(lane).toContainText(`, ${clubFlights - 1} flight`);
   await expect(lane).toContainText("the record an officer chose for this day");
-  await expect(backup).toContainText("· used");
-  await expect(club).not.toContainText("· used");
   // then the club phone's record (the one the rules had chosen)
   await form.getByRole("radio", { name: /^The record on Tobi Okafor’s phone …i-club/ }).check();
   await form.getByRole("textbox", { name: "Note", exact: true }).fill("The backup phone missed the last landing.");
@@ -253,6 +292,8 @@ test("an officer sees the seeded evening's lane two phones recorded differently,
   await expect(pair.getByTestId("decision")).toContainText(/^Decided by Ines [^:]+ on \d{1,2} \w{3} \d{4}, \d{2}:\d{2}: /);
   await expect(pair.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands. Note: The backup phone missed the last landing.");
   await expect(lane).toContainText(`, ${clubFlights} flight`);
+  await expect(club).toContainText("· used");
+  await expect(backup).not.toContainText("· used");
   await officer.reload();
   await expect(officer.getByTestId("decision")).toContainText("the record on Tobi Okafor’s phone …i-club stands");
 

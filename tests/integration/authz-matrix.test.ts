@@ -279,6 +279,11 @@ const ROWS: Record<string, Row> = {
     ...signedIn({ params: (cast) => club.runAndDayOfOwner(cast, () => insertOwnRun(cast.owner.id)), check: (ctx, res) => club.offersDayToOwnerOnly(ctx.actor, res) }),
     cast: "fresh",
   },
+  // club days' decisions on a run's lanes: any signed-in account may ask; the list holds only what it may see
+  // (tests/integration/run-day-decisions.test.ts); here no decision exists, so every answer is empty
+  "GET /api/runs/[runId]/day-decisions": {
+    ...signedIn({ params: async (cast) => ({ runId: await insertOwnRun(cast.owner.id) }), check: club.noDayDecisions }), cast: "fresh",
+  },
   "PUT /api/runs/[runId]/club-days": {
     ...ownerOnly({ params: (cast) => club.runAndDayOfOwner(cast, () => insertOwnRun(cast.owner.id)), body: club.choiceBody }), cast: "fresh",
   },

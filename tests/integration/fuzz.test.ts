@@ -60,6 +60,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/clubs/[slug]/time-zone": { PUT: "json" },
   "/api/clubs/[slug]/day-summaries": { PUT: "json" },
   "/api/runs/[runId]/club-days": { GET: "none", PUT: "json" },
+  "/api/runs/[runId]/day-decisions": { GET: "none" },
   "/api/clubs/[slug]/fields/[fieldId]": { DELETE: "none" },
   "/api/clubs/[slug]/contests": { POST: "json" },
   "/api/contests/[contestId]/entries": { POST: "json" },

@@ -148,6 +148,11 @@ export async function offersDayToOwnerOnly(actor: string, res: Response): Promis
   expect({ actor, offered: days.map((d) => d.dayId) }).toEqual({ actor, offered: actor === "owner" ? [choiceDay] : [] });
 }
 
+/** GET /api/runs/[runId]/day-decisions for a run no club decided: an empty list for every signed-in actor. */
+export async function noDayDecisions(ctx: { actor: string }, res: Response): Promise<void> {
+  expect({ actor: ctx.actor, body: await res.json() }).toEqual({ actor: ctx.actor, body: { decisions: [] } });
+}
+
 /**
  * An unused invitation of the owner's club, made again before each actor (a withdrawal deletes it):
  * the params function runs once, so the row is put back by id after every 2xx (`invitationReturns`).

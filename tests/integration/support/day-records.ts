@@ -35,6 +35,8 @@ let seqs = 0;
 export async function dayRun(input: {
   creatorId: string; field: string; at: string; pilots: string[]; records: PhoneRecord[];
   task?: TaskDefinition; consent?: { lane: number; status: "accepted" | "disputed" | "hidden" }[];
+  /** Where the phone was (the session's position), when it knew. */
+  position?: { latitude: number; longitude: number };
 }): Promise<string> {
   const task = input.task ?? BEST_THREE;
   const startMs = Date.parse(input.at);
@@ -42,7 +44,7 @@ export async function dayRun(input: {
   const creatorWall = startMs - (creatorPhone?.thetaMs ?? 0);
   const sessionId = uuidv7();
   const runId = uuidv7();
-  await db.insert(fieldSessions).values({ id: sessionId, ownerId: input.creatorId, fieldName: input.field, startedAt: new Date(creatorWall) });
+  await db.insert(fieldSessions).values({ id: sessionId, ownerId: input.creatorId, fieldName: input.field, startedAt: new Date(creatorWall), ...input.position });
   await db.insert(runs).values({ id: runId, sessionId, createdBy: input.creatorId, task, taskCode: task.letter ?? "custom", edition: task.edition, createdAt: new Date(creatorWall - 30_000) });
   await db.insert(runLanes).values(input.pilots.map((pilotUserId, lane) => ({ runId, lane, pilotUserId, pilotName: `Day pilot ${lane + 1}` })));
   const rows: (typeof events.$inferInsert)[] = [];

@@ -5,6 +5,7 @@ import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulin
 import { DiscardButton } from "@/components/field/discard-button";
 import { RunNotes } from "@/components/notes/run-notes";
 import { ClubDayChoice } from "@/components/run/club-day-choice";
+import { LaneDayDecisions, useRunDayDecisions } from "@/components/run/day-decisions";
 import { describeRuleSettings, describeTask } from "@/lib/field/describe-task";
 import { secondsText } from "@/lib/field/display";
 import { formatDate } from "@/lib/format";
@@ -22,6 +23,7 @@ export function RunReview() {
   const id = useSearchParams().get("id");
   const data = useLogbookRun(id);
   const altimeter = useLaunchHeights(id);
+  const dayDecisions = useRunDayDecisions(id);
   if (!data) return <p aria-busy="true">Reading the run…</p>;
   const { run, session, events } = data;
   if (!run) {
@@ -72,6 +74,7 @@ export function RunReview() {
               <span className="text-xl font-bold">{l.pilotName}</span>
               <span className="figures text-3xl font-extrabold" data-testid={`lane-result-${l.lane}`}>{laneResult === null ? "—" : `${secondsText(laneResult)} s`}</span>
             </h2>
+            <LaneDayDecisions decisions={dayDecisions.filter((d) => d.lane === l.lane)} />
             {lane.sumCapTenths !== null && lane.rawTenths > lane.sumCapTenths ? (
               <p className="text-sm text-muted">Flights add up to {secondsText(lane.rawTenths)} s; the working time allows {secondsText(lane.sumCapTenths)} s (F3K.7).</p>
             ) : null}
