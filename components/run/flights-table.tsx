@@ -1,5 +1,6 @@
 import { creditedTargetText, reasonText, secondsText, STATUS_MARK } from "@/lib/field/display";
 import { formatTenths, type LiveFlight } from "@/lib/tasks";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 
 /**
  * A lane's flights in launch order: launch and landing (m:ss.t from the working-time start;
@@ -9,7 +10,7 @@ import { formatTenths, type LiveFlight } from "@/lib/tasks";
 export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[]; label: string }) {
   if (flights.length === 0) return <p className="text-muted">No flights.</p>;
   return (
-    <div className="overflow-x-auto rounded-xl border-2 border-line">
+    <ScrollRegion label={`Flights, ${label}`} className="rounded-xl border-2 border-line">
       <table className="figures w-full text-sm [&_td]:whitespace-nowrap [&_td:last-child]:whitespace-normal" aria-label={`Flights, ${label}`}>
         <thead className="bg-surface text-left">
           <tr>
@@ -45,6 +46,6 @@ export function FlightsTable({ flights, label }: { flights: readonly LiveFlight[
           })}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

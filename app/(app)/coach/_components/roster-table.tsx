@@ -2,6 +2,7 @@ import Link from "next/link";
 import type { RosterPilot } from "./coach-api";
 import type { PulledPlan } from "@/lib/validations/coaching-sync";
 import { dayText, secondsText, shareText } from "@/app/(app)/season/_components/season-format";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 
 // the Season's own formats, so a pilot's share and turnaround read the same on both screens
 const secs = (v: number | null) => secondsText(v === null ? null : Math.round(v * 10));
@@ -21,7 +22,7 @@ const when = (iso: string | null) => (iso ? dayText(iso) : "never");
 /** The roster as a table: a pilot's name opens their Season. */
 export function RosterTable({ pilots, plans }: { pilots: RosterPilot[]; plans: PulledPlan[] }) {
   return (
-    <div className="overflow-x-auto">
+    <ScrollRegion label="Pilots who let you see their season">
       <table className="w-full text-left text-sm">
         <caption className="sr-only">Pilots who let you see their season</caption>
         <thead>
@@ -54,6 +55,6 @@ export function RosterTable({ pilots, plans }: { pilots: RosterPilot[]; plans: P
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }

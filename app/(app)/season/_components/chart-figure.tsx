@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 
 export type TableView = { columns: string[]; rows: (string | number)[][] };
 
@@ -18,7 +19,7 @@ export function ChartFigure({ id, title, sentence, table, children }: { id: stri
       <figcaption>{sentence}</figcaption>
       <details>
         <summary className="min-h-12 cursor-pointer py-2 font-semibold">Table view: {title.toLowerCase()}</summary>
-        <div className="overflow-x-auto">
+        <ScrollRegion label={`Table view: ${title.toLowerCase()}`}>
           <table className="figures w-full text-left text-sm">
             <caption className="sr-only">{title}</caption>
             <thead>
@@ -30,7 +31,7 @@ export function ChartFigure({ id, title, sentence, table, children }: { id: stri
               ))}
             </tbody>
           </table>
-        </div>
+        </ScrollRegion>
       </details>
     </figure>
   );

@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import type { SeasonPage } from "@/lib/season/types";
 import { PAGE_SIZES } from "@/lib/validations/season";
 import { DataAge } from "./data-age";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 
 export const seasonTableFeatures = tableFeatures({ rowSortingFeature, rowPaginationFeature });
 export type SeasonColumns<Row extends RowData> = ColumnDef<typeof seasonTableFeatures, Row>[];
@@ -50,7 +51,7 @@ export function SeasonTable<Row extends RowData & { runId: string }>(props: Prop
     <section aria-labelledby={`${id}-title`} className="space-y-2">
       <h2 id={`${id}-title`} className="text-lg font-bold">{title}</h2>
       <DataAge query={query} what={noun} />
-      <div className="overflow-x-auto">
+      <ScrollRegion label={title}>
         <table id={id} className="figures w-full text-left text-sm" aria-busy={query.isFetching}>
           <thead>
             {table.getHeaderGroups().map((group) => (
@@ -81,7 +82,7 @@ export function SeasonTable<Row extends RowData & { runId: string }>(props: Prop
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollRegion>
       {query.data && total === 0 ? <p className="text-muted">No {noun} within these filters.</p> : null}
       <div className="flex flex-wrap items-center gap-2">
         <button type="button" className={button} onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</button>

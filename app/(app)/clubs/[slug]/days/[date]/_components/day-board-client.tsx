@@ -11,6 +11,7 @@ import { dayTitle, momentText, offsetText, timeText, uncertaintyText } from "./d
 import { dayBoardKey, dayBoardQuery } from "./day-board-query";
 import { Differences } from "./differences";
 import { LiftStrip } from "./lift-strip";
+import { ScrollRegion } from "@/components/ui/scroll-region";
 
 type Props = { slug: string; clubName: string; day: string; canClose: boolean };
 
@@ -125,9 +126,8 @@ function Timeline({ board, name }: Part) {
 }
 
 function Table({ caption, head, rows }: { caption: string; head: string[]; rows: (string | number)[][] }) {
-  // a region that can scroll sideways on a narrow phone, so it takes the keyboard's focus
   return (
-    <div className="overflow-x-auto" role="region" aria-label={caption} tabIndex={0}>
+    <ScrollRegion label={caption}>
       <table className="w-full text-left text-sm">
         <caption className="text-left font-semibold">{caption}</caption>
         <thead>
@@ -157,7 +157,7 @@ function Table({ caption, head, rows }: { caption: string; head: string[]; rows:
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollRegion>
   );
 }
 
