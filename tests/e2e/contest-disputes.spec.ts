@@ -1,7 +1,8 @@
-import { randomBytes, randomUUID } from "node:crypto";
+import { randomBytes } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
+import { insertTrialContest } from "./support/contest-db";
 
 /**
  * Issue #15, disputes recorded by officers: Ines (the demo club's officer) sees the demo contest's
@@ -13,28 +14,16 @@ import { signInAs } from "./support/auth";
 test.describe.configure({ timeout: 180_000 });
 
 async function makeContest(db: pg.Client, token: string): Promise<string> {
-  const { rows: [club] } = await db.query<{ id: string }>("select id from clubs where slug = 'heronmoor'");
-  const { rows: [c] } = await db.query<{ id: string }>(
-    "insert into contests (club_id, name, starts_on, field_name, draw_seed, public_token) values ($1, $2, '2027-02-27', 'Five Acre Meadow', 5, $3) returning id",
-    [club!.id, `Protest Trial ${randomUUID().slice(0, 6)}`, token],
-  );
-  let round1 = "";
-  for (const [i, letter] of ["A", "B", "D", "F", "H"].entries()) {
-    const { rows: [r] } = await db.query<{ id: string }>(
-      "insert into contest_rounds (contest_id, number, task) select $1, $2, task from contest_rounds where task ->> 'letter' = $3 limit 1 returning id",
-      [c!.id, i + 1, letter],
-    );
-    if (i === 0) round1 = r!.id;
-  }
+  const { contestId, round1 } = await insertTrialContest(db, { name: "Protest Trial", startsOn: "2027-02-27", drawSeed: 5, publicToken: token });
   // invented pilots; signed paper cards of task A, tenths
   for (const [name, tenths] of [["Rue Castell", 1800], ["Sol Penhallow", 2000]] as const) {
-    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [c!.id, name]);
+    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [contestId, name]);
     await db.query(
       "insert into group_slots (round_id, group_number, entry_id, paper_flights, signed_at, signed_from, recorded_at) values ($1, 1, $2, $3, now(), 'paper card', now())",
       [round1, e!.id, JSON.stringify([tenths])],
     );
   }
-  return c!.id;
+  return contestId;
 }
 
 test("an officer records a dispute, the results mark it (public link too, no names), and she resolves it", async ({ page, browser }) => {

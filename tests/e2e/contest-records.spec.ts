@@ -1,7 +1,7 @@
-import { randomUUID } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
+import { insertTrialContest } from "./support/contest-db";
 
 /**
  * Issue #15, two records for one pilot and round that disagree: Ines (the demo club's officer)
@@ -12,22 +12,10 @@ test.describe.configure({ timeout: 180_000 });
 
 /** A contest of the demo club: Pax's round 1 counts a card of 120.0 s; an earlier card of 180.0 s waits beside it (task A: last flight). */
 async function makeContest(db: pg.Client): Promise<string> {
-  const { rows: [club] } = await db.query<{ id: string }>("select id from clubs where slug = 'heronmoor'");
-  const { rows: [c] } = await db.query<{ id: string }>(
-    "insert into contests (club_id, name, starts_on, field_name, draw_seed) values ($1, $2, '2027-02-27', 'Five Acre Meadow', 13) returning id",
-    [club!.id, `Records Trial ${randomUUID().slice(0, 6)}`],
-  );
-  let round1 = "";
-  for (const [i, letter] of ["A", "B", "D", "F", "H"].entries()) {
-    const { rows: [r] } = await db.query<{ id: string }>(
-      "insert into contest_rounds (contest_id, number, task) select $1, $2, task from contest_rounds where task ->> 'letter' = $3 limit 1 returning id",
-      [c!.id, i + 1, letter],
-    );
-    if (i === 0) round1 = r!.id;
-  }
+  const { contestId, round1 } = await insertTrialContest(db, { name: "Records Trial", startsOn: "2027-02-27", drawSeed: 13 });
   const ids: string[] = [];
   for (const [name, tenths] of [["Pax Morrow", 1200], ["Wren Alder", 2400]] as const) {
-    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [c!.id, name]);
+    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [contestId, name]);
     const { rows: [s] } = await db.query<{ id: string }>(
       "insert into group_slots (round_id, group_number, entry_id, paper_flights, signed_at, signed_from, recorded_at) values ($1, 1, $2, $3, now(), 'paper card', now()) returning id",
       [round1, e!.id, JSON.stringify([tenths])],
@@ -35,7 +23,7 @@ async function makeContest(db: pg.Client): Promise<string> {
     ids.push(s!.id);
   }
   await db.query("insert into slot_records (slot_id, paper_flights, recorded_at, signed_at, signed_from) values ($1, '[1800]', now(), now(), 'paper card')", [ids[0]]);
-  return c!.id;
+  return contestId;
 }
 
 test("an officer compares two records of a pilot side by side and counts one", async ({ page }) => {

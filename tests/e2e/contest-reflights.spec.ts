@@ -1,7 +1,7 @@
-import { randomUUID } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
+import { insertTrialContest } from "./support/contest-db";
 
 /**
  * Issue #15, re-flights recorded by officers (F3K.9.6): Ines (the demo club's officer) sees the
@@ -14,27 +14,15 @@ test.describe.configure({ timeout: 180_000 });
 const PILOTS: [string, number][] = [["Pax Morrow", 1500], ["Wren Alder", 2000]]; // invented; signed paper cards of task A, tenths
 
 async function makeContest(db: pg.Client): Promise<string> {
-  const { rows: [club] } = await db.query<{ id: string }>("select id from clubs where slug = 'heronmoor'");
-  const { rows: [c] } = await db.query<{ id: string }>(
-    "insert into contests (club_id, name, starts_on, field_name, draw_seed) values ($1, $2, '2027-02-20', 'Five Acre Meadow', 12) returning id",
-    [club!.id, `Re-flight Trial ${randomUUID().slice(0, 6)}`],
-  );
-  let round1 = "";
-  for (const [i, letter] of ["A", "B", "D", "F", "H"].entries()) {
-    const { rows: [r] } = await db.query<{ id: string }>(
-      "insert into contest_rounds (contest_id, number, task) select $1, $2, task from contest_rounds where task ->> 'letter' = $3 limit 1 returning id",
-      [c!.id, i + 1, letter],
-    );
-    if (i === 0) round1 = r!.id;
-  }
+  const { contestId, round1 } = await insertTrialContest(db, { name: "Re-flight Trial", startsOn: "2027-02-20", drawSeed: 12 });
   for (const [name, tenths] of PILOTS) {
-    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [c!.id, name]);
+    const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [contestId, name]);
     await db.query(
       "insert into group_slots (round_id, group_number, entry_id, paper_flights, signed_at, signed_from, recorded_at) values ($1, 1, $2, $3, now(), 'paper card', now())",
       [round1, e!.id, JSON.stringify([tenths])],
     );
   }
-  return c!.id;
+  return contestId;
 }
 
 test("an officer grants a re-flight, enters its card, and the results follow F3K.9.6", async ({ page }) => {
