@@ -57,7 +57,7 @@ export const grantReflightSchema = z.object({
   placement: z.enum(REFLIGHT_PLACEMENTS, "Choose where the re-flight is flown."),
   entitled: z.boolean().default(true),
   groupNumber: z.number().int().min(1, "Not a group.").max(99, "Not a group."),
-  reason: z.string().trim().max(200, "At most 200 characters.").transform((s) => s || null).nullable().default(null),
+  reason: text(200).trim().max(200, "At most 200 characters.").transform((s) => s || null).nullable().default(null),
 });
 
 /** A re-flight's result: a paper card's flight times (tenths), or a timed run's lane, or neither; and its signature. */

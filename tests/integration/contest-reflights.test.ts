@@ -64,6 +64,11 @@ describe("re-flights", () => {
     }
     // a cause the rules do not give (F3K.9.6 lists organiser, launch collision, outsider, rain)
     expect((await call(grantRoute, "POST", { entryId: ids["Ada Fenn"], cause: "bad-luck", placement: "later-group", groupNumber: 2 })).status).toBe(422);
+    // a reason PostgreSQL text cannot hold (NUL, a lone surrogate) is a 422 with a sentence, not a 500
+    for (const reason of ["a\u0000b", "\ud800"]) {
+      const res = await call(grantRoute, "POST", { entryId: ids["Ada Fenn"], cause: "outsider-moved-model", placement: "later-group", groupNumber: 2, reason });
+      expect(res.status).toBe(422);
+    }
     expect(await reflight("Ada Fenn")).toBeUndefined();
   });
 
