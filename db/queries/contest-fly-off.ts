@@ -8,9 +8,9 @@ export type FlyOffSave = "saved" | "no_fly_off" | "has_results";
 
 /**
  * Draws the fly-off: every qualifier in one group (group 1) of each fly-off round, replacing an
- * earlier fly-off draw (its timekeepers too). When a fly-off slot already holds a result (a paper
- * card or a linked run), nothing changes unless `replaceResults` is set: then those results go with
- * the old draw. The contest's row is locked, so two officers drawing at once take turns.
+ * earlier fly-off draw (its timekeepers and re-flight grants too). When a fly-off slot or re-flight
+ * already holds a result (a paper card, a linked run or a signature), nothing changes unless
+ * `replaceResults` is set: then those results go with the old draw. The contest's row is locked, so two officers drawing at once take turns.
  */
 export async function saveFlyOffDraw(db: Database, p: { contestId: string; entryIds: string[]; replaceResults: boolean }): Promise<FlyOffSave> {
   return db.transaction(async (tx) => {
@@ -19,11 +19,9 @@ export async function saveFlyOffDraw(db: Database, p: { contestId: string; entry
       .where(and(eq(contestRounds.contestId, p.contestId), eq(contestRounds.isFlyOff, true)));
     if (rounds.length === 0) return "no_fly_off";
     const ids = rounds.map((r) => r.id);
-    if (!p.replaceResults) {
-      const [recorded] = await tx.select({ id: groupSlots.id }).from(groupSlots)
-        .where(and(inArray(groupSlots.roundId, ids), or(isNotNull(groupSlots.paperFlights), isNotNull(groupSlots.runId)))).limit(1);
-      if (recorded) return "has_results";
-    }
+    if (!p.replaceResults && (await flyOffHasResults(tx, ids))) return "has_results";
+    // the old draw's re-flight grants go with it: a grant belongs to the draw it was given in
+    await tx.delete(contestReflights).where(inArray(contestReflights.roundId, ids));
     await tx.delete(groupSlots).where(inArray(groupSlots.roundId, ids));
     await tx.insert(groupSlots).values(ids.flatMap((roundId) => p.entryIds.map((entryId) => ({ roundId, groupNumber: 1, entryId }))));
     return "saved";
@@ -44,11 +42,7 @@ export async function clearFlyOffDraw(tx: Tx, contestId: string): Promise<FlyOff
     .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true)));
   if (rounds.length === 0) return "none";
   const ids = rounds.map((r) => r.id);
-  const [slot] = await tx.select({ id: groupSlots.id }).from(groupSlots)
-    .where(and(inArray(groupSlots.roundId, ids), or(isNotNull(groupSlots.paperFlights), isNotNull(groupSlots.runId), isNotNull(groupSlots.signedAt)))).limit(1);
-  const [reflight] = await tx.select({ id: contestReflights.id }).from(contestReflights)
-    .where(and(inArray(contestReflights.roundId, ids), or(isNotNull(contestReflights.paperFlights), isNotNull(contestReflights.runId), isNotNull(contestReflights.signedAt)))).limit(1);
-  if (slot || reflight) return "has_results";
+  if (await flyOffHasResults(tx, ids)) return "has_results";
   const gone = await tx.delete(groupSlots).where(inArray(groupSlots.roundId, ids)).returning({ id: groupSlots.id });
   await tx.delete(contestReflights).where(inArray(contestReflights.roundId, ids));
   return gone.length > 0 ? "cleared" : "none";
@@ -57,3 +51,13 @@ export async function clearFlyOffDraw(tx: Tx, contestId: string): Promise<FlyOff
 /** The refusal's words, the same for a full draw and a re-draw of the remaining rounds. */
 export const FLY_OFF_RESULTS_MESSAGE =
   "The fly-off has results already: a new draw of the preliminary rounds would change who qualifies for it. Nothing was drawn again (to draw anyway, draw the fly-off again deleting its results first).";
+
+/** Whether a fly-off slot or re-flight of these rounds holds a result: a card, a linked run or a signature. */
+async function flyOffHasResults(tx: Tx, roundIds: string[]): Promise<boolean> {
+  const [slot] = await tx.select({ id: groupSlots.id }).from(groupSlots)
+    .where(and(inArray(groupSlots.roundId, roundIds), or(isNotNull(groupSlots.paperFlights), isNotNull(groupSlots.runId), isNotNull(groupSlots.signedAt)))).limit(1);
+  if (slot) return true;
+  const [reflight] = await tx.select({ id: contestReflights.id }).from(contestReflights)
+    .where(and(inArray(contestReflights.roundId, roundIds), or(isNotNull(contestReflights.paperFlights), isNotNull(contestReflights.runId), isNotNull(contestReflights.signedAt)))).limit(1);
+  return reflight !== undefined;
+}

@@ -7,7 +7,7 @@ import { POST as flyOffRoute } from "@/app/api/contests/[contestId]/draw/fly-off
 import { PUT as cardsRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/cards/route";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { dutiesOf } from "@/db/queries/contest-timekeepers";
-import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships } from "@/db/schema";
+import { clubs, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships } from "@/db/schema";
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 
@@ -134,6 +134,19 @@ describe("drawing and flying the fly-off", () => {
     expect(slots.filter((s) => s.paperFlights !== null || s.timekeeperUserId !== null)).toEqual([]);
   });
 
+  it("a fly-off re-flight's result counts as a fly-off result; drawing again, confirmed, takes the re-flight grants with the old draw", async () => {
+    actAs(officer);
+    const [round1] = await db.select({ id: contestRounds.id }).from(contestRounds)
+      .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true), eq(contestRounds.number, 1)));
+    await db.insert(contestReflights).values({ roundId: round1!.id, entryId: ids.Ash!, cause: "launch-collision", placement: "original-group", groupNumber: 1, grantedBy: officer.id, paperFlights: [1500] });
+    const refused = await drawFlyOff(contestId);
+    expect(refused.status).toBe(409);
+    expect((await refused.json()).error.code).toBe("has_results");
+    expect(await flyOffReflights()).toHaveLength(1);
+    expect((await drawFlyOff(contestId, { replaceResults: true })).status).toBe(201);
+    expect(await flyOffReflights()).toEqual([]); // a grant of the old draw would otherwise stand beside the new one
+  });
+
   it("a contest with no fly-off planned: 409; a body the schema refuses: 422", async () => {
     actAs(officer);
     const res = await create(setup({ name: "Fen Cup none" }));
@@ -141,6 +154,11 @@ describe("drawing and flying the fly-off", () => {
     expect((await drawFlyOff(plain)).status).toBe(409);
     expect((await drawFlyOff(contestId, { replaceResults: "yes" })).status).toBe(422);
   });
+
+  async function flyOffReflights() {
+    return db.select({ id: contestReflights.id }).from(contestReflights).innerJoin(contestRounds, eq(contestRounds.id, contestReflights.roundId))
+      .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, true)));
+  }
 
   async function flyOffSlots() {
     return db.select({ entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber, paperFlights: groupSlots.paperFlights, timekeeperUserId: groupSlots.timekeeperUserId })
