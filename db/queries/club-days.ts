@@ -3,6 +3,7 @@ import { and, asc, eq, sql } from "drizzle-orm";
 import type { Database } from "../index";
 import { clubDays, clubFields } from "../schema";
 import { freezeDayRuns } from "./club-day-board";
+import { runIsUsers } from "./run-own";
 
 export type ClubDayRow = { id: string; fieldId: string; fieldName: string; day: string; openedBy: string | null; createdAt: Date };
 
@@ -128,9 +129,7 @@ export async function listRunDayChoices(db: Database, params: { userId: string; 
   const res = await db.execute<{ day_id: string; slug: string; club_name: string; field_name: string; day: string; chosen: boolean; closed: boolean }>(sql`
     with r as (
       select r.id, r.created_at from runs r
-      where r.id = ${params.runId} and (r.created_by = ${params.userId} or exists (
-        select 1 from run_lanes l left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
-        where l.run_id = r.id and l.pilot_user_id = ${params.userId} and (c.status is null or c.status = 'accepted')))
+      where r.id = ${params.runId} and ${runIsUsers(sql`r`, params.userId)}
     )
     select d.id as day_id, c.slug, c.name as club_name, f.name as field_name, d.day::text as day,
       exists (select 1 from club_day_runs x where x.day_id = d.id and x.run_id = r.id) as chosen, (d.closed_at is not null) as closed

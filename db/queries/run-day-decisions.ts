@@ -2,6 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { Database } from "../index";
 import { getDayBoard } from "./club-day-board";
+import { runIsUsers } from "./run-own";
 
 /** A club day's decision that counts another record for a lane of a run than the run's own result does. */
 export type RunDayDecision = {
@@ -49,9 +50,7 @@ export async function listRunDayDecisions(db: Database, params: { userId: string
     left join users u on u.id = x.decided_by
     where x.run_id = ${params.runId} and x.device_id is not null
       and (l.pilot_user_id = ${params.userId}
-        or (m.user_id is not null and (r.created_by = ${params.userId} or exists (
-          select 1 from run_lanes o left join lane_consents k on k.run_id = o.run_id and k.lane = o.lane
-          where o.run_id = r.id and o.pilot_user_id = ${params.userId} and (k.status is null or k.status = 'accepted')))))
+        or (m.user_id is not null and ${runIsUsers(sql`r`, params.userId)}))
     order by x.day, c.name, x.lane`);
   const out: RunDayDecision[] = [];
   const boards = new Map<string, Awaited<ReturnType<typeof getDayBoard>>>();
