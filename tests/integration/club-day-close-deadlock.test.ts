@@ -6,6 +6,7 @@ import type { Database } from "@/db";
 import { clubFields, clubs, memberships } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks";
 import { db, freshUser, getPool } from "./support/db";
+import { settledOrWaiting } from "./support/day-locks";
 import { deviceId, recorder, run, session } from "./sync-fixtures";
 
 afterAll(async () => {
@@ -54,21 +55,6 @@ function pauseAfterFirstStatement(): { db: Database; locked: Promise<void>; rele
     },
   });
   return { db: held, locked: first, release };
-}
-
-/** Resolves when `p` has settled or another backend waits for a lock on a club day (at most 10 s). */
-async function settledOrWaiting(p: Promise<unknown>): Promise<"settled" | "waiting"> {
-  let settled = false;
-  void p.then(() => (settled = true), () => (settled = true));
-  for (let i = 0; i < 200; i++) {
-    if (settled) return "settled";
-    const waiting = await db.execute<{ n: number }>(sql`
-      select count(*)::int as n from pg_stat_activity
-      where datname = current_database() and wait_event_type = 'Lock' and pid <> pg_backend_pid() and query ilike '%club_days%'`);
-    if (waiting.rows[0]!.n > 0) return "waiting";
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error("neither settled nor waiting after 10 s");
 }
 
 describe("closing a day while a phone deletes a window and stores a run there (two connections)", () => {
