@@ -5,7 +5,7 @@ import { join, relative, sep } from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { clubs, memberships, users } from "@/db/schema";
+import { clubs, contestDisputes, contestEntries, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
 import { BODY_LIMIT } from "@/lib/api";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
@@ -158,8 +158,16 @@ const evilValue = fc.oneof(
   { weight: 1, arbitrary: fc.string({ unit: "binary", maxLength: 40 }) },
 );
 
-/** A valid body for each JSON route, fresh ids each time, for `userId`. */
-function template(path: string, userId: string): Record<string, unknown> {
+/**
+ * Real rows of the fuzz user's own (its club's contest, its model): with them a valid body gets past the
+ * "no such contest / entry / model" 404 and reaches the writes, so a NUL or an oversized value in a string
+ * meets the database (a NUL in a re-flight's reason once answered 500 there).
+ */
+type Real = { contestId: string; entries: string[]; disputeId: string; modelId: string };
+
+/** A valid body for each JSON route, for `userId`: fresh ids nobody has, or with `real` the fuzz user's own rows. */
+function template(path: string, userId: string, real: Real | null = null): Record<string, unknown> {
+  const entry = (i: number) => real?.entries[i] ?? uuidv7();
   if (path === "/api/time") return { t1: Date.now() };
   if (path === "/api/clubs/[slug]/contests") {
     return { name: "Fuzz Cup", startsOn: "2027-02-06", fieldName: "Fuzz Meadow", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })), maxGroupSize: 10, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false, entryFeeCents: 1500, currency: "eur", entriesCloseAt: "2027-02-04T18:00:00Z" };
@@ -172,15 +180,18 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
   if (path.endsWith("/entries")) return { modelIds: [] };
   if (path.endsWith("/draw")) return { seed: 3 };
-  if (path.endsWith("/draw/swap")) return { round: 1, a: uuidv7(), b: uuidv7() };
+  if (path.endsWith("/draw/swap")) return { round: 1, a: entry(0), b: entry(1) };
   if (path.endsWith("/draw/redraw")) return { fromRound: 2, seed: 3 };
-  if (path.endsWith("/runs")) return { entryId: uuidv7(), runId: uuidv7(), lane: 0 };
-  if (path.endsWith("/records")) return { entryId: uuidv7(), recordId: uuidv7() };
+  if (path.endsWith("/runs")) return { entryId: entry(0), runId: uuidv7(), lane: 0 };
+  if (path.endsWith("/records")) return { entryId: entry(0), recordId: uuidv7() };
   // one body for both methods (each schema reads its own fields): grant a re-flight, or record its card
-  if (path.endsWith("/reflights")) return { entryId: uuidv7(), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
+  if (path.endsWith("/reflights")) return { entryId: entry(2), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)
-  if (path.endsWith("/disputes")) return { entryId: uuidv7(), subject: "Flight not counted", lodgedBy: "Team manager", disputeId: uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
-  if (path.endsWith("/cards")) return { groupNumber: 1, cards: [{ entryId: uuidv7(), flights: [834, 1200], penaltyPoints: 100, signed: true }] };
+  if (path.endsWith("/disputes")) return { entryId: entry(1), subject: "Flight not counted", lodgedBy: "Team manager", disputeId: real?.disputeId ?? uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
+  if (path.endsWith("/timekeepers")) return { groupNumber: 1, timekeepers: [{ entryId: entry(0), timekeeperUserId: userId }] };
+  if (path.endsWith("/entries/[entryId]")) return { team: "Fuzz Team", pilotClass: "junior" };
+  if (path.endsWith("/draw/fly-off")) return { replaceResults: false };
+  if (path.endsWith("/cards")) return { groupNumber: 1, cards: [{ entryId: entry(3), flights: [834, 1200], penaltyPoints: 100, signed: true }] };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
   if (path.endsWith("/repairs")) return { repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 };
@@ -314,6 +325,7 @@ describe("fuzz: every route under app/api", () => {
   let admin: FuzzUser;
   let target: string;
   let clubSlug = "";
+  let real: Real;
   const account = async (role: "member" | "admin", name: string): Promise<FuzzUser> => {
     const email = `fuzz-${uuidv7()}@example.com`;
     const [row] = await db.insert(users).values({ email, name, role }).returning();
@@ -327,6 +339,14 @@ describe("fuzz: every route under app/api", () => {
     clubSlug = `fuzz-${uuidv7()}`;
     const [club] = await db.insert(clubs).values({ name: "Fuzz Club", slug: clubSlug }).returning();
     await db.insert(memberships).values({ clubId: club!.id, userId: user.id, role: "officer" });
+    // its contest: five rounds, six paper entries drawn into group 1 of round 1, an open dispute; and a model of its own
+    const [contest] = await db.insert(contests).values({ clubId: club!.id, name: "Fuzz Cup", startsOn: "2027-02-06", fieldName: "Fuzz Meadow", drawSeed: 1 }).returning();
+    const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId: contest!.id, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
+    const entries = await db.insert(contestEntries).values([1, 2, 3, 4, 5, 6].map((n) => ({ contestId: contest!.id, pilotName: `Fuzz Entrant ${n}`, paper: true }))).returning();
+    await db.insert(groupSlots).values(entries.map((e) => ({ roundId: rounds[0]!.id, groupNumber: 1, entryId: e.id })));
+    const [dispute] = await db.insert(contestDisputes).values({ roundId: rounds[0]!.id, entryId: entries[1]!.id, subject: "Landing not counted", lodgedBy: "Fuzz Entrant 2" }).returning();
+    const [model] = await db.insert(models).values({ ownerId: user.id, name: "Fuzz glider", spanMm: 1490, massG: 250 }).returning();
+    real = { contestId: contest!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, modelId: model!.id };
   });
 
   it("knows how to drive every route handler and method", async () => {
@@ -347,9 +367,11 @@ describe("fuzz: every route under app/api", () => {
         const input = ROUTES[path]?.[method];
         if (!input || typeof input === "object") continue;
         const signedInArb = fc.integer({ min: 0, max: 4 }).map((n) => n > 0);
-        const arb = input === "json" ? fc.tuple(bodyArb, contentTypeArb, signedInArb) : fc.tuple(queryArb, fc.constant(null), signedInArb);
+        // a route on a contest or a model gets, half the time, the fuzz user's own one (see Real)
+        const realArb = /\[(contestId|modelId)\]/.test(path) ? fc.boolean() : fc.constant(false);
+        const arb = input === "json" ? fc.tuple(bodyArb, contentTypeArb, signedInArb, realArb) : fc.tuple(queryArb, fc.constant(null), signedInArb, realArb);
         await fc.assert(
-          fc.asyncProperty(arb, async ([shape, contentType, signedIn]) => {
+          fc.asyncProperty(arb, async ([shape, contentType, signedIn, ownRows]) => {
             // the session follows the account's generation: "sign out everywhere" must not sign the fuzz out of later routes
             const caller = path.startsWith("/api/admin/") ? admin : user;
             const [row] = signedIn ? await db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, caller.id)) : [];
@@ -357,7 +379,7 @@ describe("fuzz: every route under app/api", () => {
             let request: Request;
             let bytes = 0;
             if (input === "json") {
-              const body = bodyText(shape as Body, template(path, user.id));
+              const body = bodyText(shape as Body, template(path, user.id, ownRows ? real : null));
               bytes = new TextEncoder().encode(body).length;
               const headers: Record<string, string> = contentType ? { "content-type": contentType } : {};
               // the payments webhook has no session: its credential is the signature, given on the runs that are "signed in"
@@ -376,6 +398,7 @@ describe("fuzz: every route under app/api", () => {
               : path.includes("[pilotId]")
                 ? { pilotId: user.id }
                 : path.includes("[") ? { contestId: uuidv7(), entryId: uuidv7(), roundNumber: "1", token: uuidv7().replace(/-/g, "").repeat(2).slice(0, 43), runId: uuidv7(), lane: "0", modelId: uuidv7(), logId: uuidv7(), mailId: uuidv7(), grantId: uuidv7(), offerId: uuidv7(), noteId: uuidv7(), planId: uuidv7(), userId: target } : {};
+            if (ownRows) Object.assign(params, { contestId: real.contestId, entryId: real.entries[4], modelId: real.modelId });
             const res = await handler(request, { params: Promise.resolve(params) });
             expect(res.status, `${method} ${path} answered ${res.status}`).toBeLessThan(500);
             if (signedIn && bytes > (path === "/api/sync/push" ? BODY_LIMIT.push : BODY_LIMIT.default)) expect(res.status).toBe(413);
