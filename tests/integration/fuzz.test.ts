@@ -2,7 +2,7 @@ import "./support/session";
 import fc from "fast-check";
 import { readdirSync } from "node:fs";
 import { join, relative, sep } from "node:path";
-import { eq, sql } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { clubs, contestDisputes, contestEntries, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
@@ -11,6 +11,7 @@ import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
 import { webhookRequest } from "./support/payments";
 import { db, getPool } from "./support/db";
+import { rowCounter } from "./support/row-counts";
 
 /**
  * Issue #9: arbitrary and oversized input to EVERY route handler under app/api — random JSON,
@@ -131,20 +132,10 @@ async function discoverRoutes(): Promise<{ path: string; handlers: Partial<Recor
   return out.sort((a, b) => a.path.localeCompare(b.path));
 }
 
-/**
- * Exact row counts of every table and the sync sequence: any insert or delete changes it. One table
- * is left out on purpose: `rate_limits` holds the attempt counters, and counting a refused password
- * guess (a 403 from DELETE /api/account, say) is that request's intended effect (lib/auth/attempts.ts).
- */
+/** Row counts of every table (support/row-counts.ts): a 4xx must leave them as they were. */
 let countAll: () => Promise<string>;
 beforeAll(async () => {
-  const tables = await db.execute<{ t: string }>(
-    sql`select tablename as t from pg_tables where schemaname = 'public' and tablename not like '%drizzle%' and tablename <> 'rate_limits' order by 1`,
-  );
-  const parts = tables.rows.map((r) => sql`select ${r.t} as t, count(*)::int as n from ${sql.identifier(r.t)}`);
-  const query = sql`${sql.join(parts, sql` union all `)} union all select 'sync_seq', last_value::int from sync_seq`;
-  // sorted here: a union all may return its parts in any order (a parallel append does)
-  countAll = async () => JSON.stringify((await db.execute<{ t: string; n: number }>(query)).rows.sort((a, b) => (a.t < b.t ? -1 : a.t > b.t ? 1 : 0)));
+  countAll = await rowCounter();
 });
 
 const EVIL: unknown[] = [
@@ -362,7 +353,9 @@ describe("fuzz: every route under app/api", () => {
   it("never answers 5xx, and a 4xx changes nothing", { timeout: 600_000 }, async () => {
     const found = await discoverRoutes();
     const runs = Number(process.env.FUZZ_RUNS ?? 60);
+    const only = process.env.FUZZ_ROUTE; // e.g. FUZZ_ROUTE=/reflights: only the routes whose path contains it
     for (const { path, handlers } of found) {
+      if (only && !path.includes(only)) continue;
       for (const [method, handler] of Object.entries(handlers) as [Method, Handler][]) {
         const input = ROUTES[path]?.[method];
         if (!input || typeof input === "object") continue;
