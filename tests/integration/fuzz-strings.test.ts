@@ -2,10 +2,11 @@ import "./support/session";
 import { join } from "node:path";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { clubs, contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
+import { clubs, coachGrants, coachNotes, contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
+import { insertSession } from "./support/records";
 import { rowCounter } from "./support/row-counts";
 
 /**
@@ -25,8 +26,12 @@ afterAll(async () => {
 type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 type Method = "POST" | "PUT" | "PATCH";
 
-/** What one case writes on: a club the caller is the only officer of, its drawn contest, the caller's model. */
-type Fixture = { slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; modelId: string; buyerEmail: string };
+/** What one case writes on: a pilot the caller coaches; a club the caller is the only officer of, its drawn contest, the caller's model. */
+type Fixture = {
+  slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; modelId: string; buyerEmail: string;
+  /** a pilot who lets the caller coach them, a session of theirs and the caller's note on it */
+  pilotId: string; sessionId: string; noteId: string;
+};
 
 type Case = { method: Method; route: string; params: (f: Fixture) => Record<string, string>; body: (f: Fixture) => unknown; ok: number };
 
@@ -55,6 +60,16 @@ const CASES: Case[] = [
   { method: "POST", route: "/api/models/[modelId]/repairs", params: (f) => ({ modelId: f.modelId }), ok: 201, body: () => ({ repairedOn: "2026-06-14", work: "new skin", massAfterG: 255 }) },
   { method: "POST", route: "/api/models/[modelId]/transfer", params: (f) => ({ modelId: f.modelId }), ok: 202, body: (f) => ({ email: f.buyerEmail, withHistory: true }) },
 ];
+
+CASES.push(
+  { method: "POST", route: "/api/account/sign-up", params: () => ({}), ok: 201, body: () => ({ name: "Sweep Pilot", email: `sweep-${uuidv7()}@example.com`, password: "thermal-hunter-42" }) },
+  { method: "PUT", route: "/api/clubs/[slug]/time-zone", params: (f) => ({ slug: f.slug }), ok: 200, body: () => ({ timeZone: "Europe/Berlin" }) },
+  { method: "POST", route: "/api/coach-grants", params: () => ({}), ok: 201, body: () => ({ kind: "email", email: `sweep-coach-${uuidv7()}@example.com` }) },
+  { method: "POST", route: "/api/notes", params: () => ({}), ok: 201, body: (f) => ({ pilotId: f.pilotId, sessionId: f.sessionId, body: "Keep the second launch lower." }) },
+  { method: "POST", route: "/api/notes/[noteId]/replies", params: (f) => ({ noteId: f.noteId }), ok: 201, body: () => ({ body: "And watch the turnaround." }) },
+  { method: "POST", route: "/api/coach/plans", params: () => ({}), ok: 201,
+    body: (f) => ({ pilotId: f.pilotId, title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }] }) },
+);
 
 const BAD_STRINGS: [string, string][] = [["a NUL", "a\u0000b"], ["a lone surrogate", "\ud800x"], ["5,000 characters", "x".repeat(5000)]];
 
@@ -98,7 +113,14 @@ describe("fuzz: bad strings reach the writes", () => {
     const [model] = await db.insert(models).values({ ownerId: me.id, name: "Sweep glider", spanMm: 1490, massG: 250 }).returning();
     const buyerEmail = `sweep-buyer-${uuidv7()}@example.com`;
     await db.insert(users).values({ email: buyerEmail, name: "Sweep Buyer" });
-    return { slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, modelId: model!.id, buyerEmail };
+    const [pilot] = await db.insert(users).values({ email: `sweep-pilot-${uuidv7()}@example.com`, name: "Sweep Pilot" }).returning();
+    await db.insert(coachGrants).values({ pilotId: pilot!.id, coachId: me.id });
+    const sessionId = await insertSession(pilot!.id);
+    const [note] = await db.insert(coachNotes).values({ sessionId, pilotId: pilot!.id, coachId: me.id, authorId: me.id, body: "First note" }).returning();
+    return {
+      slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, modelId: model!.id, buyerEmail,
+      pilotId: pilot!.id, sessionId, noteId: note!.id,
+    };
   }
 
   async function send(c: Case, f: Fixture, body: unknown): Promise<Response> {
