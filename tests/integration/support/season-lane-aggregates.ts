@@ -1,11 +1,12 @@
 import { sql, type SQL } from "drizzle-orm";
 import { DURATION_BIN_SEC, LAST_DURATION_BIN } from "@/db/queries/season/scope";
+import { isTurnaround } from "@/db/queries/season/turnaround";
 
 /**
  * The per-lane aggregates run_lanes keeps for the Season's summary (season_turnaround_ms,
  * season_duration_bins; migration "season-lane-bins") beside the same values computed in SQL from the
  * lane's lane_flights rows (`lane` is an alias of run_lanes): the ground times isTurnaround counts
- * (known, not negative; db/queries/season/turnaround.ts) in flight order, and the landed flights per
+ * (db/queries/season/turnaround.ts, on a task not launched on signals) in flight order, and the landed flights per
  * duration bin with the summary's own bin width and last bin (db/queries/season/scope.ts), so the
  * migration's constants and the code's cannot drift apart unnoticed.
  */
@@ -21,5 +22,5 @@ export function laneAggregatesBeside(lane: SQL) {
   };
 }
 
-/** isTurnaround's condition on the ground time alone (the task's part is the query's, per lane). */
-const isTurnaroundGround = sql`f.ground_ms is not null and f.ground_ms >= 0`;
+/** THE turnaround condition on a task not launched on signals (the task's part is the summary's, per lane). */
+const isTurnaroundGround = isTurnaround(sql`f.ground_ms`, sql`false`);
