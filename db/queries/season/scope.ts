@@ -59,7 +59,9 @@ function filterWhere(f: SeasonFilters): SQL {
  * that PostgreSQL fills from the derivation when it is stored, not read out of its JSON here.
  * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
  * the one definition), else null; `ground_ms` stays the stored ground time.
- * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target.
+ * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target;
+ * `season_turnarounds` (week, turnaround_ms) each counted turnaround; `season_durations` (bin, flights) the landed
+ * flights per duration bin (DURATION_BIN_SEC), from run_lanes' stored per-lane aggregates when `lean`.
  * `lean` (the summary, db/queries/season/summary.ts): without a model filter, the flights come from the arrays
  * PostgreSQL generates on each lane (run_lanes.season_ground_ms, season_landed_tenths, season_target_sec), unnested
  * inside each aggregate that reads them, and `time_tenths` is null for a flight that did not land; the lanes hold
@@ -103,7 +105,8 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
       cross join lateral (select sl.created_at, sl.week, lf.time_tenths, lf.land_ms from lane_flights lf
         where lf.run_id = h.run_id and lf.lane = h.lane and lf.flight_index = h.flight_index) f`}
     )`;
-  // every flight that landed counts in its duration bin (the model filter's flights, or the lanes' stored counts above)
+  // the weekly turnaround's and the histogram's inputs from per-flight rows (with a model filter, or outside the summary);
+  // the summary without one reads the lanes' stored turnarounds and bin counts instead (below)
   const targetFlights = sql`season_target_flights as (select * from season_flights where target_sec is not null
     ), season_turnarounds as (select week, turnaround_ms from season_flights where turnaround_ms is not null
     ), season_durations as (select least(time_tenths / ${sql.raw(String(DURATION_BIN_SEC * 10))}, ${sql.raw(String(LAST_DURATION_BIN))}) as bin, count(*)::int as flights
