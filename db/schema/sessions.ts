@@ -105,6 +105,15 @@ export const runLanes = pgTable(
     seasonGroundMs: doublePrecision("season_ground_ms").array().generatedAlwaysAs(sql`season_flight_ground_ms(derived)`),
     seasonLandedTenths: integer("season_landed_tenths").array().generatedAlwaysAs(sql`season_flight_landed_tenths(derived)`),
     seasonTargetSec: integer("season_target_sec").array().generatedAlwaysAs(sql`season_flight_target_sec(derived)`),
+    /**
+     * Per-lane aggregates the summary sums instead of unnesting every flight (migration "season-lane-bins"):
+     * the ground times that count as turnaround on any task not launched on signals (`season_ground_ms`'s
+     * elements that are known and not negative, in flight order; null when none: db/queries/season/turnaround.ts
+     * isTurnaround, the lane's task applied by the query), and the landed flights counted in the duration
+     * histogram's 11 bins (30 s each, the last open: DURATION_BIN_SEC, LAST_DURATION_BIN in db/queries/season/scope.ts).
+     */
+    seasonTurnaroundMs: doublePrecision("season_turnaround_ms").array().generatedAlwaysAs(sql`season_flight_turnaround_ms(derived)`),
+    seasonDurationBins: integer("season_duration_bins").array().generatedAlwaysAs(sql`season_flight_duration_bins(derived)`),
     needsReview: boolean("needs_review").notNull().default(false),
     reviewReason: text("review_reason"),
   },

@@ -7,6 +7,7 @@ import { hasClubRole, type ClubRole } from "@/lib/clubs/roles";
 import { ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
 import { isAccountId, sessionVerdict } from "./account-state";
 import { authOptions } from "./options";
+import { readSessionToken } from "./session-token";
 
 export type SessionUser = { id: string; email: string; name: string; role: "member" | "admin" };
 export type { ClubRole };
@@ -19,11 +20,31 @@ export type { ClubRole };
  */
 export async function getSessionUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
-  const u = session?.user;
-  if (!isAccountId(u?.id)) return null;
-  const account = await getSessionAccount(db, u.id);
-  if (sessionVerdict(account, u.sessionVersion) !== "current" || !account) return null;
+  return currentUser(session?.user?.id, session?.user?.sessionVersion);
+}
+
+/** The account `id` names, when it exists, is enabled and is still on the token's session generation. */
+async function currentUser(id: unknown, sessionVersion: number | undefined): Promise<SessionUser | null> {
+  if (!isAccountId(id)) return null;
+  const account = await getSessionAccount(db, id);
+  if (sessionVerdict(account, sessionVersion) !== "current" || !account) return null;
   return { id: account.id, email: account.email, name: account.name, role: account.role };
+}
+
+/**
+ * requireUser for the read-only routes a screen calls on every filter change (the Season's): the session
+ * cookie decoded once (lib/auth/session-token.ts, next-auth's own decoding and expiry check) and the
+ * account read once with the same verdict as getSessionUser (gone, disabled or an older session
+ * generation: 401). getServerSession reads the account twice per request (its jwt callback, then
+ * getSessionUser) and encrypts a new cookie; this skips both, so these routes do not extend the
+ * session's expiry (every page load and /api/auth/session still do). Measured in
+ * bench/season.bench.ts (DEVELOPERS.md, "The season endpoint").
+ */
+export async function requireUserFromToken(): Promise<SessionUser> {
+  const token = await readSessionToken();
+  const user = await currentUser(token?.uid, token?.sv);
+  if (!user) throw new UnauthorizedError();
+  return user;
 }
 
 /** The signed-in user; throws 401 when signed out. Every route handler calls this (or requireRole). */

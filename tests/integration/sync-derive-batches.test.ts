@@ -10,6 +10,7 @@ import type { EventBody, RunEvent } from "@/lib/events/schema";
 import { runResult } from "@/lib/results";
 import { getCatalogueTask, parseTaskDefinition, type TaskLetter } from "@/lib/tasks";
 import { db, getPool } from "./support/db";
+import { laneAggregatesBeside } from "./support/season-lane-aggregates";
 import { createSimUsers } from "./sync-sim";
 import { deviceId, recorder, run, session, T0 } from "./sync-fixtures";
 
@@ -56,11 +57,13 @@ async function fromScratch(runId: string) {
 /**
  * Each lane's lane_flights rows and Season arrays as stored beside the same values computed in SQL
  * straight from the stored JSON (lane_flights_rows_at of migration 0027 over every position; the
- * expressions of migration 0039 over one expansion of the flights), so whatever keeps them (today a
+ * expressions of migration 0039 over one expansion of the flights; the per-lane aggregates of migration
+ * "season-lane-bins" against the lane_flights rows), so whatever keeps them (today a
  * trigger and generated columns) is checked against the derivation after every push.
  */
 async function flightsBesideJson(runId: string) {
-  const res = await db.execute<{ lane: number; rows: unknown; rowsFromJson: unknown; arrays: unknown; arraysFromJson: unknown }>(sql`
+  const aggregates = laneAggregatesBeside(sql`l`);
+  const res = await db.execute<{ lane: number; rows: unknown; rowsFromJson: unknown; arrays: unknown; arraysFromJson: unknown; aggregates: unknown; aggregatesFromRows: unknown }>(sql`
     select l.lane,
       (select coalesce(json_agg(json_build_array(f."position", f.flight_index, f.launch_ms, f.land_ms, f.status, f.time_tenths, f.credited_tenths, f.target_sec, f.ground_ms)
         order by f."position"), '[]') from lane_flights f where f.run_id = l.run_id and f.lane = l.lane) as rows,
@@ -71,7 +74,8 @@ async function flightsBesideJson(runId: string) {
       (select json_build_array(array_agg(x.ground order by x.p), array_agg(case when x.e ->> 'landMs' is not null then (x.e ->> 'timeTenths')::int end order by x.p),
           case when count(x.e ->> 'targetSec') > 0 then array_agg((x.e ->> 'targetSec')::int order by x.p) end)
         from (select t.p, t.e, (t.e ->> 'launchMs')::float8 - lag((t.e ->> 'landMs')::float8) over (order by t.p) as ground
-          from jsonb_array_elements(l.derived -> 'flights') with ordinality as t(e, p)) x) as "arraysFromJson"
+          from jsonb_array_elements(l.derived -> 'flights') with ordinality as t(e, p)) x) as "arraysFromJson",
+      ${aggregates.stored} as aggregates, ${aggregates.fromFlights} as "aggregatesFromRows"
     from run_lanes l where l.run_id = ${runId}::uuid order by l.lane`);
   return res.rows;
 }
@@ -123,7 +127,9 @@ describe("derivation per push equals derivation from scratch (property)", () => 
               expect(stored.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: l.derived, review: l.needsReview, reason: l.reviewReason }))).toEqual(
                 expected.map((l) => ({ lane: l.lane, result: l.resultTenths, derived: JSON.parse(JSON.stringify(l.derived)), review: l.needsReview, reason: l.reviewReason })),
               );
-              for (const l of await flightsBesideJson(r.id)) expect([l.rows, l.arrays], `lane ${l.lane}`).toEqual([l.rowsFromJson, l.arraysFromJson]);
+              for (const l of await flightsBesideJson(r.id)) {
+                expect([l.rows, l.arrays, l.aggregates], `lane ${l.lane}`).toEqual([l.rowsFromJson, l.arraysFromJson, l.aggregatesFromRows]);
+              }
             }
           }
         },

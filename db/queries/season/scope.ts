@@ -5,6 +5,13 @@ import { launchAtMs, lanesNamingModel, modelAtSql } from "../flight-model";
 import { flightsOnSignal, isTurnaround } from "./turnaround";
 
 const DAY_MS = 24 * 3600 * 1000;
+/**
+ * Flight-duration histogram: 30-second bins of the landed flights' time, the last one open (300 s and longer).
+ * run_lanes.season_duration_bins counts each lane's flights in the same bins (migration "season-lane-bins": keep both
+ * in step; tests/integration/season-lane-arrays.test.ts compares them).
+ */
+export const DURATION_BIN_SEC = 30;
+export const LAST_DURATION_BIN = 10;
 
 /** The points-lost causes of the stored breakdown (lib/tasks/breakdown.ts), each a column of `season_lanes` (tenths). */
 export const LOST_PARTS = ["groundTime", "overCap", "shortOfTarget", "invalid", "notCounted", "roundZero"] as const;
@@ -52,7 +59,9 @@ function filterWhere(f: SeasonFilters): SQL {
  * that PostgreSQL fills from the derivation when it is stored, not read out of its JSON here.
  * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
  * the one definition), else null; `ground_ms` stays the stored ground time.
- * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target.
+ * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target;
+ * `season_turnarounds` (week, turnaround_ms) each counted turnaround; `season_durations` (bin, flights) the landed
+ * flights per duration bin (DURATION_BIN_SEC), from run_lanes' stored per-lane aggregates when `lean`.
  * `lean` (the summary, db/queries/season/summary.ts): without a model filter, the flights come from the arrays
  * PostgreSQL generates on each lane (run_lanes.season_ground_ms, season_landed_tenths, season_target_sec), unnested
  * inside each aggregate that reads them, and `time_tenths` is null for a flight that did not land; the lanes hold
@@ -96,7 +105,12 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
       cross join lateral (select sl.created_at, sl.week, lf.time_tenths, lf.land_ms from lane_flights lf
         where lf.run_id = h.run_id and lf.lane = h.lane and lf.flight_index = h.flight_index) f`}
     )`;
-  const targetFlights = sql`season_target_flights as (select * from season_flights where target_sec is not null)`;
+  // the weekly turnaround's and the histogram's inputs from per-flight rows (with a model filter, or outside the summary);
+  // the summary without one reads the lanes' stored turnarounds and bin counts instead (below)
+  const targetFlights = sql`season_target_flights as (select * from season_flights where target_sec is not null
+    ), season_turnarounds as (select week, turnaround_ms from season_flights where turnaround_ms is not null
+    ), season_durations as (select least(time_tenths / ${sql.raw(String(DURATION_BIN_SEC * 10))}, ${sql.raw(String(LAST_DURATION_BIN))}) as bin, count(*)::int as flights
+      from season_flights where landed group by 1)`;
   if (summaryOnly) {
     // the lanes' flight arrays (run_lanes.season_ground_ms, season_landed_tenths, season_target_sec), unnested
     // where each aggregate reads them: no per-flight rows are fetched, stored or scanned twice, and a filter
@@ -112,9 +126,18 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
       ) f
       where ${where}`;
     return sql`
-    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec`)}
+    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec, l.season_turnaround_ms, l.season_duration_bins`)}
     ), season_flights as not materialized (${unnested(sql`true`, sql`true`)}
     ), season_target_flights as not materialized (${unnested(sql`sl.season_target_sec is not null`, sql`f.target_sec is not null`)}
+    ), season_turnarounds as not materialized (
+      -- each lane's turnarounds as PostgreSQL keeps them (run_lanes.season_turnaround_ms: the ground times that are
+      -- known and not negative), none in a task launched on signals: isTurnaround, applied per lane instead of per flight
+      select sl.week, unnest(sl.season_turnaround_ms) as turnaround_ms from season_lanes sl where not sl.flights_on_signal
+    ), season_durations as not materialized (
+      -- the histogram from each lane's bin counts (run_lanes.season_duration_bins), summed bin by bin in one pass over the lanes
+      select unnest(array[${sql.join(Array.from({ length: LAST_DURATION_BIN + 1 }, (_, i) => sql`sum(sl.season_duration_bins[${sql.raw(String(i + 1))}])`), sql`, `)}])::int as flights,
+        generate_series(0, ${sql.raw(String(LAST_DURATION_BIN))}) as bin
+      from season_lanes sl
     ), ${heights("lane_flights")}`;
   }
   if (!f.model) {

@@ -3,13 +3,10 @@ import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { LOST_PARTS, seasonScope, shareOf } from "./scope";
+import { DURATION_BIN_SEC as BIN_SEC, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
 
 /** A day as the summary prints it (weeks, months, bests). */
 const day = (column: SQL) => sql`to_char(${column}, 'YYYY-MM-DD')`;
-/** Flight-duration histogram: 30-second bins, the last one open (300 s and longer). */
-const BIN_SEC = 30;
-const LAST_BIN = 10;
 /** Launch-height bins for "height against flight time": 10 m each, the last one open (100 m and higher). */
 const HEIGHT_BIN_M = 10;
 const LAST_HEIGHT_BIN = 10;
@@ -35,18 +32,13 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
   const [lastStart, nextStart] = [-1, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
   const res = await db.execute<{ summary: string }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
-    flight_groups as materialized (
-      -- one hashed pass over the flights serves two charts: each week's turnarounds (an array, its percentiles
-      -- taken below from 53 small arrays instead of sorting every flight by week) and the duration histogram's bins
-      select grouping(f.week) as by_bin, f.week, f.bin, array_agg(f.turnaround_ms) filter (where f.turnaround_ms is not null) as turnarounds,
-        count(f.bin)::int as landed
-      from (select week, turnaround_ms, case when landed then least(time_tenths / ${BIN_SEC * 10}, ${LAST_BIN}) end as bin from season_flights) f
-      group by grouping sets ((f.week), (f.bin))
-    ), weekly_turnaround as (
+    weekly_turnaround as (
       select week, cardinality(turnarounds) as count, round(p[1] / 100)::int as median, round(p[2] / 100)::int as p90
       from (select week, turnarounds, (select percentile_cont(array[0.5, 0.9]) within group (order by x) from unnest(turnarounds) x) as p
-        -- OFFSET 0: the percentiles once per week (pulled up, the sub-select ran once for each of p[1] and p[2])
-        from flight_groups where by_bin = 0 and turnarounds is not null offset 0) w
+        -- each week's turnarounds gathered in one hashed pass (an array, its percentiles taken from 53 small arrays
+        -- instead of sorting every flight by week); OFFSET 0: the percentiles once per week (pulled up, the
+        -- sub-select ran once for each of p[1] and p[2])
+        from (select week, array_agg(turnaround_ms) as turnarounds from season_turnarounds group by week) t offset 0) w
     ), month_starts as (
       select date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC' as this,
         (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
@@ -78,9 +70,13 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
           'runs', l.${sql.identifier(`${m}_runs`)}, 'flights', l.${sql.identifier(`${m}_flights`)}, 'share', l.${sql.identifier(`${m}_share`)},
           'turnaroundTenths', f.${sql.identifier(`${m}_turnaround`)})`), sql`, `)}) from month_starts ms, month_lanes l, month_flights f),
       'bests', coalesce((select json_agg(b order by b.task) from (
+          -- each task's best result found by hashing (one pass), then only the lanes that reached it sorted
+          -- for the earliest: not a sort of every lane of the season
           select distinct on (sl.task_code) sl.task_code as task, sl.result_tenths as "resultTenths", sl.max_tenths as "maxTenths",
             sl.run_id as "runId", to_char(sl.created_at at time zone 'UTC', 'YYYY-MM-DD') as day
-          from season_lanes sl order by sl.task_code, sl.result_tenths desc, sl.created_at) b), '[]'),
+          from season_lanes sl join (select task_code, max(result_tenths) as best from season_lanes group by 1) m
+            on m.task_code = sl.task_code and m.best = sl.result_tenths
+          order by sl.task_code, sl.result_tenths desc, sl.created_at) b), '[]'),
       'shareByWeek', coalesce((select json_agg(x order by x.week, x.task) from (
           select ${day(sql`x.week`)} as week, x.task, x.share, x.runs from (
             select sl.week, sl.task_code as task, avg(${shareOf}) as share, count(*)::int as runs
@@ -94,8 +90,8 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
             coalesce(round(avg(time_tenths - target_sec * 10) filter (where time_tenths > target_sec * 10)), 0)::int as "meanOverTenths",
             coalesce(round(avg(target_sec * 10 - time_tenths) filter (where time_tenths < target_sec * 10)), 0)::int as "meanUnderTenths"
           from season_target_flights where landed group by 1) t), '[]'),
-      'durations', coalesce((select json_agg(json_build_object('fromSec', bin * ${BIN_SEC}, 'toSec', case when bin < ${LAST_BIN} then (bin + 1) * ${BIN_SEC} end, 'flights', landed) order by bin)
-          from flight_groups where by_bin = 1 and bin is not null), '[]'),
+      'durations', coalesce((select json_agg(json_build_object('fromSec', bin * ${BIN_SEC}, 'toSec', case when bin < ${LAST_BIN} then (bin + 1) * ${BIN_SEC} end, 'flights', flights) order by bin)
+          from season_durations where flights > 0), '[]'),
       'launchesByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)}, 'windows', w.windows, 'launches', w.launches) order by w.week)
           from weekly_lanes w), '[]'),
       'lostByWeek', coalesce((select json_agg(json_build_object('week', ${day(sql`w.week`)},

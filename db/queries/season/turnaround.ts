@@ -11,7 +11,10 @@ import { sql, type SQL } from "drizzle-orm";
  * for the next signal, not a turnaround a pilot practises to cut (common practice).
  * The Season's charts and flights table (scope.ts), the coach's roster (coach/roster.ts), practice-plan
  * goals (coach/plans.ts → lib/coach/plan-goals.ts), the model page (model-record.ts) and the Day board's
- * turnaround leaders (club-day-board.ts) all read it through this condition.
+ * turnaround leaders (club-day-board.ts) all read it through this condition. The Season's summary without a
+ * model filter reads its ground-time part as stored per lane (run_lanes.season_turnaround_ms, migration
+ * "season-lane-bins": known and not negative) and applies the task's part per lane (scope.ts); the integration
+ * tests season-lane-arrays and sync-derive-batches compare that array with this condition over lane_flights.
  */
 export function isTurnaround(groundMs: SQL, flightsOnSignal: SQL): SQL {
   return sql`(${groundMs} is not null and ${groundMs} >= 0 and not ${flightsOnSignal})`;

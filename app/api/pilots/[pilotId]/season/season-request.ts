@@ -2,7 +2,7 @@ import type { z } from "zod";
 import { db } from "@/db";
 import { canReadSeason } from "@/db/queries/season/access";
 import { toValidationError } from "@/lib/api";
-import { requireUser } from "@/lib/auth/session";
+import { requireUserFromToken } from "@/lib/auth/session";
 import { NotFoundError } from "@/lib/errors";
 import { seasonParamsSchema } from "@/lib/validations/season";
 
@@ -11,12 +11,13 @@ export type SeasonContext = { params: Promise<{ pilotId: string }> };
 const NO_SEASON = "No season to show for that pilot.";
 
 /**
- * The start of every season route: the signed-in user (401), the query parsed by `schema` (422),
+ * The start of every season route: the signed-in user (401; the cookie decoded and the account read
+ * once, requireUserFromToken), the query parsed by `schema` (422),
  * then the pilot from the path, readable only if canReadSeason says so (else 404, as for a pilot
  * that does not exist: nobody learns whose seasons exist).
  */
 export async function readSeasonRequest<T extends z.ZodType>(request: Request, context: SeasonContext, schema: T) {
-  const user = await requireUser();
+  const user = await requireUserFromToken();
   const query = schema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!query.success) throw toValidationError(query.error);
   const params = seasonParamsSchema.safeParse(await context.params);
