@@ -1,14 +1,13 @@
 import "server-only";
-import { ownPlanItems } from "./coach/plans";
 import { linkTimedLanes } from "./contest-timekeepers";
-import { and, eq, gte, inArray, lte, sql } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { Ack } from "@/lib/validations/sync";
 import { EPOCH_MS_MAX } from "@/lib/validations/bounds";
 import { MAX_RUNS_PER_DAY } from "@/lib/validations/sync-push";
-import { fieldSessions, memberships, runLanes, runs, users } from "../schema";
+import { fieldSessions, runLanes, runs } from "../schema";
 import { isDateMs, isUuid, lockAccountRuns, type Tx } from "./sync-db";
 
 /** What every part of one push shares: the transaction, who pushes, and the acks so far. */
@@ -54,17 +53,8 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   if (items.length === 0) return [];
   const { tx } = ctx;
   await lockAccountRuns(tx, ctx.userId); // the runs-per-day count below holds until this push commits
-  const sessionIds = [...new Set(items.map((r) => r.sessionId))];
-  const existing = await tx.select({ id: runs.id, createdBy: runs.createdBy }).from(runs).where(inArray(runs.id, items.map((r) => r.id)));
-  const sessionRows = await tx
-    .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId })
-    .from(fieldSessions)
-    .where(inArray(fieldSessions.id, sessionIds));
-  const creators = new Map(existing.map((r) => [r.id, r.createdBy]));
-  const sessionsById = new Map(sessionRows.map((s) => [s.id, s]));
-  const pilots = await pilotFacts(ctx, items);
-  const perDay = await runsPerDay(ctx, items);
-  const planItems = await ownPlanItems(tx, ctx.userId, [...new Set(items.flatMap((r) => (r.plan ? [r.plan.id] : [])))]);
+  const facts = await runFacts(ctx, items);
+  const { creators, sessionsById, pilots, perDay, planItems } = facts;
   const freshRuns: (typeof runs.$inferInsert)[] = [];
   const freshLanes: (typeof runLanes.$inferInsert)[] = [];
   const seen = new Set<string>();
@@ -118,30 +108,39 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
 const DAY_MS = 86_400_000;
 const utcDay = (ms: number) => Math.floor(ms / DAY_MS);
 
-/** How many runs the pushing user already has on each UTC day the pushed runs fall on. */
-async function runsPerDay(ctx: PushContext, items: readonly RunEntity[]): Promise<Map<number, number>> {
+/**
+ * What the checks of pushed runs read, in ONE statement (one round trip; after lockAccountRuns, so
+ * the runs-per-day counts see every run a concurrent push of this account committed): the pushed ids
+ * already stored and by whom, their sessions' owners, which named pilots exist and which share a club
+ * with the pushing user, how many runs the user already has on each UTC day the runs fall on, and the
+ * number of items of each named practice plan that is the user's own.
+ */
+async function runFacts(ctx: PushContext, items: readonly RunEntity[]) {
+  const uuids = (list: Iterable<string>) => sql`${sql.param([...new Set(list)])}::uuid[]`;
+  const pilotIds = [...new Set(items.flatMap((r) => r.lanes.flatMap((l) => (l.pilotUserId && isUuid(l.pilotUserId) ? [l.pilotUserId] : []))))];
+  const planIds = items.flatMap((r) => (r.plan ? [r.plan.id] : []));
   const days = items.map((r) => utcDay(r.createdAtWallMs));
   // the last day may end past what the schema lets a date be (EPOCH_MS_MAX): clamp
   const [from, to] = [Math.min(...days) * DAY_MS, Math.min((Math.max(...days) + 1) * DAY_MS, EPOCH_MS_MAX)];
-  const rows = await ctx.tx
-    .select({ day: sql<number>`floor(extract(epoch from ${runs.createdAt}) / 86400)::int`, n: sql<number>`count(*)::int` })
-    .from(runs)
-    .where(and(eq(runs.createdBy, ctx.userId), gte(runs.createdAt, new Date(from)), lte(runs.createdAt, new Date(to))))
-    .groupBy(sql`1`);
-  return new Map(rows.map((r) => [Number(r.day), Number(r.n)]));
-}
-
-/** Which named pilots exist, and which share a club with the pushing user. */
-async function pilotFacts(ctx: PushContext, items: readonly RunEntity[]) {
-  const ids = [...new Set(items.flatMap((r) => r.lanes.flatMap((l) => (l.pilotUserId && isUuid(l.pilotUserId) ? [l.pilotUserId] : []))))];
-  if (ids.length === 0) return { exists: new Set<string>(), sharesClub: new Set<string>() };
-  const found = await ctx.tx.select({ id: users.id }).from(users).where(inArray(users.id, ids));
-  const mates =
-    ctx.clubIds.size === 0
-      ? []
-      : await ctx.tx
-          .select({ id: memberships.userId })
-          .from(memberships)
-          .where(and(inArray(memberships.userId, ids), inArray(memberships.clubId, [...ctx.clubIds])));
-  return { exists: new Set(found.map((r) => r.id)), sharesClub: new Set(mates.map((r) => r.id)) };
+  const res = await ctx.tx.execute<{
+    runs: [string, string][]; sessions: [string, string][]; pilots: string[]; mates: string[]; days: [number, number][]; plans: [string, number][];
+  }>(sql`select
+    (select coalesce(json_agg(json_build_array(id, created_by)), '[]') from runs where id = any(${uuids(items.map((r) => r.id))})) as runs,
+    (select coalesce(json_agg(json_build_array(id, owner_id)), '[]') from field_sessions where id = any(${uuids(items.map((r) => r.sessionId))})) as sessions,
+    (select coalesce(json_agg(id), '[]') from users where id = any(${uuids(pilotIds)})) as pilots,
+    (select coalesce(json_agg(distinct user_id), '[]') from memberships where user_id = any(${uuids(pilotIds)}) and club_id = any(${uuids(ctx.clubIds)})) as mates,
+    (select coalesce(json_agg(json_build_array(day, n)), '[]') from (
+      select floor(extract(epoch from created_at) / 86400)::int as day, count(*)::int as n from runs
+      where created_by = ${ctx.userId} and created_at >= ${new Date(from).toISOString()}::timestamptz and created_at <= ${new Date(to).toISOString()}::timestamptz
+      group by 1) d) as days,
+    (select coalesce(json_agg(json_build_array(id, jsonb_array_length(items))), '[]') from practice_plans
+      where pilot_id = ${ctx.userId} and id = any(${uuids(planIds)})) as plans`);
+  const row = res.rows[0]!;
+  return {
+    creators: new Map(row.runs),
+    sessionsById: new Map(row.sessions.map(([id, ownerId]) => [id, { id, ownerId }])),
+    pilots: { exists: new Set(row.pilots), sharesClub: new Set(row.mates) },
+    perDay: new Map(row.days),
+    planItems: new Map(row.plans),
+  };
 }

@@ -97,11 +97,3 @@ function readItems(raw: unknown): PlanItem[] {
     return parsed.success ? [parsed.data] : [];
   });
 }
-
-/** Which of the given plans are the pilot's own, and how many items each has (a pushed run's plan link is kept only then). */
-export async function ownPlanItems(db: Executor, pilotId: string, planIds: string[]): Promise<Map<string, number>> {
-  if (planIds.length === 0) return new Map();
-  const res = await db.execute<{ id: string; n: number }>(sql`select id::text, jsonb_array_length(items) as n from practice_plans
-    where pilot_id = ${pilotId} and id in (${sql.join(planIds.map((id) => sql`${id}::uuid`), sql`, `)})`);
-  return new Map(res.rows.map((r) => [r.id, Number(r.n)]));
-}
