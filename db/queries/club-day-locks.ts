@@ -49,7 +49,7 @@ export function holdOpenDays(runIds: SQL): SQL {
 }
 
 /**
- * Takes the day locks of holdOpenDays for these runs now, in their own statement: a push calls it
+ * Takes the day locks of holdOpenDays for these runs now, before anything else it locks: a push calls it
  * before it locks or deletes any run (lockRuns, applyDiscards), so it takes the days before the runs,
  * the order of the close (days FOR UPDATE, then the runs' keys as it keeps them). Taken only when the
  * results are stored, a push that had deleted a window (its row locked) could wait for a close's day
