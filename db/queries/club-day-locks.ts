@@ -1,7 +1,7 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { FIELD_RADIUS_M } from "@/lib/days/matching";
-import { lockRuns, type Tx } from "./sync-db";
+import type { Tx } from "./sync-db";
 
 /**
  * Whether a session may be at a club field by the day matching's rule (lib/days/matching.ts
@@ -49,26 +49,15 @@ export function holdOpenDays(runIds: SQL): SQL {
 }
 
 /**
- * Takes the day locks of holdOpenDays for these runs now, before anything else it locks: a push calls it
+ * Takes the day locks of holdOpenDays for these runs now, in their own statement: a push calls it
  * before it locks or deletes any run (lockRuns, applyDiscards), so it takes the days before the runs,
  * the order of the close (days FOR UPDATE, then the runs' keys as it keeps them). Taken only when the
  * results are stored, a push that had deleted a window (its row locked) could wait for a close's day
  * while that close waited for the deleted run's key: a deadlock
  * (tests/integration/club-day-close-deadlock.test.ts). storeDerivations takes them again (held already).
- * `thenLock`: runs to lock next (lockRuns' FOR NO KEY UPDATE, in id order), in the same round trip,
- * after the days.
  */
-export async function holdDaysOfRuns(tx: Tx, runIds: readonly string[], thenLock: readonly string[] = []): Promise<void> {
+export async function holdDaysOfRuns(tx: Tx, runIds: readonly string[]): Promise<void> {
   const ids = [...new Set(runIds)];
-  const lock = [...new Set(thenLock)].sort();
-  const list = (l: string[]) => sql.join(l.map((id) => sql`${id}::uuid`), sql`, `);
-  if (ids.length === 0) return lockRuns(tx, lock);
-  if (lock.length === 0) {
-    await tx.execute(sql`${holdOpenDays(list(ids))}`);
-    return;
-  }
-  // both in one round trip: the select list is evaluated in order, so the days' sub-select takes
-  // its share locks before the runs' sub-select locks any run (lockRuns' lock, in id order)
-  await tx.execute(sql`select (select count(*) from (${holdOpenDays(list(ids))}) d) as days,
-    (select count(*) from (select id from runs where id in (${list(lock)}) order by id for no key update) r) as runs`);
+  if (ids.length === 0) return;
+  await tx.execute(sql`${holdOpenDays(sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `))}`);
 }

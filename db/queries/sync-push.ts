@@ -9,7 +9,7 @@ import { holdDaysOfRuns } from "./club-day-locks";
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { storeDerivations, type DeriveStats } from "./runs";
-import { currentServerSeq, isUuid, type Tx } from "./sync-db";
+import { currentServerSeq, isUuid, lockRuns, type Tx } from "./sync-db";
 import { storeClockEstimates } from "./sync-estimates";
 import { applyRuns, applySessions, type PushContext } from "./sync-push-entities";
 import { applyEvents } from "./sync-push-events";
@@ -42,7 +42,7 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * item and the last server sequence number.
  *
  * Round trips of a push that only carries events (bench/sync-profile.ts counts them): begin,
- * claim, the device's estimates, hold the runs' open club days and lock the runs (one statement), one load (runs, their events, clashes, estimates:
+ * claim, the device's estimates, hold the runs' open club days, lock the runs, one load (runs, their events, clashes, estimates:
  * sync-push-load.ts), one multi-row insert per 500 events, one statement that stores every
  * derived lane and re-stamps the runs, commit.
  */
@@ -61,8 +61,8 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     const eventRuns = req.events.map((e) => e.runId).filter(isUuid);
     const discardIds = (req.discards ?? []).map((d) => d.id).filter(isUuid);
     // the open club days of every run this push writes or deletes, before any run is locked: the close's order (club-day-locks.ts)
-    // and then the runs it writes to (one round trip for both)
-    await holdDaysOfRuns(tx, [...eventRuns, ...clock.movedRuns, ...newRuns, ...discardIds], [...eventRuns, ...clock.movedRuns]);
+    await holdDaysOfRuns(tx, [...eventRuns, ...clock.movedRuns, ...newRuns, ...discardIds]);
+    await lockRuns(tx, [...eventRuns, ...clock.movedRuns]);
     const targetIds = req.events.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
     const load = await loadForPush(tx, {
       runIds: [...new Set([...eventRuns, ...clock.movedRuns, ...newRuns])],
