@@ -67,7 +67,7 @@ async function seedContest(db: Database): Promise<string | null> {
   ]).returning();
   const seed = 20261212;
   const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
-  await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds });
+  await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds, replaceResults: false });
   const round5 = drawn.rounds.find((r) => r.roundNumber === 5)!.groups;
   const gus = entries.find((e) => e.pilotName === "Gus Wendle")!;
   const other = round5.find((g) => !g.includes(gus.id))!.map((id) => entries.find((e) => e.id === id)!).find((e) => e.keepApart === null)!;

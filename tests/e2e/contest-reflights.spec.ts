@@ -72,3 +72,26 @@ test("an officer grants a re-flight, enters its card, and the results follow F3K
     await db.end();
   }
 });
+
+test("drawing again asks first when results would be deleted, and keeps them on no", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const contestId = await makeContest(db); // two signed paper cards in round 1, the draw not locked
+    const held = async () => Number((await db.query("select count(*) from group_slots s join contest_rounds r on r.id = s.round_id where r.contest_id = $1 and s.paper_flights is not null", [contestId])).rows[0].count);
+    await signInAs(page, "ines@example.com");
+    await page.goto(`/contests/${contestId}`);
+    const asked: string[] = [];
+    page.once("dialog", (d) => { asked.push(d.message()); void d.dismiss(); });
+    await page.getByRole("button", { name: "Draw again" }).click();
+    await expect(page.getByRole("alert")).toHaveText("Nothing was drawn: the results entered so far are kept.");
+    expect(asked).toEqual(["2 results are already entered in the preliminary rounds (paper cards, timed runs or signatures). A new draw deletes them: nothing was drawn. Confirm to draw again anyway."]);
+    expect(await held()).toBe(2);
+    page.once("dialog", (d) => void d.accept());
+    await page.getByRole("button", { name: "Draw again" }).click();
+    await expect.poll(held).toBe(0);
+    await expect(page.getByText(/^Seed \d+$/)).not.toHaveText("Seed 12");
+  } finally {
+    await db.end();
+  }
+});
