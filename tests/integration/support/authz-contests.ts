@@ -164,6 +164,17 @@ export async function reflightRecorded(ctx: { user: { id: string } }): Promise<v
   await db.update(contestReflights).set({ paperFlights: null, recordedBy: null, recordedAt: null, signedAt: null, signedFrom: null }).where(eq(contestReflights.entryId, entryId));
 }
 
+/** The owner times Matrix One's re-flight (reflightContestOfOwnersClub grants it). */
+export const reflightTimekeeperBody = (ctx: { cast: Cast } | null) => ({ entryId, timekeeperUserId: ctx?.cast.owner.id ?? null });
+
+/** After a 2xx: the owner is the re-flight's timekeeper, named by the caller; cleared for the next actor. */
+export async function reflightTimekeeperSaved(ctx: { user: { id: string }; cast: Cast }): Promise<void> {
+  const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  expect(row).toMatchObject({ timekeeperUserId: ctx.cast.owner.id, timekeeperAssignedBy: ctx.user.id });
+  expect(row?.timekeeperAssignedAt).toBeInstanceOf(Date);
+  await db.update(contestReflights).set({ timekeeperUserId: null, timekeeperAssignedBy: null, timekeeperAssignedAt: null }).where(eq(contestReflights.entryId, entryId));
+}
+
 /** A dispute about Matrix One's round 1, lodged by the pilot. */
 export const lodgeDisputeBody = () => ({ entryId, subject: "The third flight was not counted", lodgedBy: "Matrix One (pilot)" });
 

@@ -79,8 +79,11 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           groups={groups}
           lanes={lanes}
           pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          candidates={candidates}
+          flyingByGroup={flyingByGroup(slots, reflights)}
           reflights={reflights.map((r) => ({
             ...r, grantedAt: r.grantedAt.toISOString(), recordedAt: r.recordedAt?.toISOString() ?? null, signed: r.signedAt !== null, runResultTenths: r.runResultTenths ?? null,
+            timekeeperAssignedAt: r.timekeeperAssignedAt?.toISOString() ?? null,
           }))}
         />
       )}
@@ -100,6 +103,17 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
       )}
     </div>
   );
+}
+
+/** Each group's flying accounts: its drawn pilots and the pilots re-flying in it (a re-flight's timekeeper is none of them). */
+function flyingByGroup(slots: { entryId: string; groupNumber: number; pilotUserId: string | null }[], reflights: { entryId: string; groupNumber: number }[]): Record<number, string[]> {
+  const user = new Map(slots.map((s) => [s.entryId, s.pilotUserId]));
+  const out: Record<number, string[]> = {};
+  for (const x of [...slots, ...reflights]) {
+    const id = user.get(x.entryId);
+    if (id) (out[x.groupNumber] ??= []).push(id);
+  }
+  return out;
 }
 
 const stamp = (d: Date | null, zone: string) => (d ? formatClock(d, zone, "short") : "");
