@@ -10,7 +10,7 @@ import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
 import { seedDemoDisputes } from "./demo-disputes";
 import { seedDemoRecords } from "./demo-records";
-import { seedDemoReflights } from "./demo-reflights";
+import { seedDemoReflightRequest, seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
 
 const NAME = "Heronmoor Winter Cup";
@@ -32,6 +32,7 @@ export async function seedDemoContest(db: Database): Promise<void> {
   await seedDemoFees(db, NAME);
   if (contestId) await seedDemoTimekeepers(db, contestId);
   if (contestId) await seedDemoReflights(db, contestId);
+  if (contestId) await seedDemoReflightRequest(db, contestId);
   if (contestId) await seedDemoRecords(db, contestId);
   if (contestId) await seedDemoDisputes(db, contestId);
   if (contestId) await seedDemoFlyOff(db, contestId);

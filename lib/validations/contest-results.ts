@@ -77,6 +77,19 @@ export const reflightTimekeeperSchema = z.object({
   timekeeperUserId: z.uuid("Choose a timekeeper.").nullable(),
 });
 
+/**
+ * The officer's decision on a re-flight request from a phone: dismiss it, or grant it (the request's cause;
+ * where it is flown, the group and the note as on a grant, prefilled on the page from the request).
+ */
+export const decideReflightRequestSchema = z.discriminatedUnion("decision", [
+  z.object({ requestId: z.uuid("Not a request."), decision: z.literal("dismiss") }),
+  z.object({
+    requestId: z.uuid("Not a request."), decision: z.literal("grant"),
+    placement: grantReflightSchema.shape.placement, groupNumber: grantReflightSchema.shape.groupNumber,
+    entitled: grantReflightSchema.shape.entitled, reason: grantReflightSchema.shape.reason,
+  }),
+], "Grant or dismiss the request.");
+
 /** The officer's decision on a pilot's two records in a round: the waiting record to count, or null to keep the counting one. */
 export const decideRecordsSchema = z.object({
   entryId: z.uuid("Not an entry."),

@@ -170,3 +170,23 @@ test("an officer names a re-flight's timekeeper; her phone times it offline, pil
     await db.end();
   }
 });
+
+test("the officer sees a re-flight asked on a timekeeper's phone and grants it (F3K.9.6: the grant is hers)", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const { rows: [demo] } = await db.query<{ id: string }>("select id from contests where name = 'Heronmoor Winter Cup'");
+    await signInAs(page, "ines@example.com");
+    await page.goto(`/contests/${demo!.id}/rounds/1`);
+    // the seeded request: Mara's phone ruled a launch collision for Cass Merriden
+    const request = page.getByRole("listitem", { name: "Re-flight request, Cass Merriden" });
+    await expect(request).toContainText(/asked on the phone by Mara Lindqvist at .+, cause /);
+    await request.getByRole("button", { name: "Grant Cass Merriden's re-flight" }).click();
+    await expect(request).toContainText("Granted by Ines Varga");
+    await expect(page.getByRole("listitem", { name: "Re-flight, Cass Merriden" })).toContainText("Granted by Ines Varga");
+    const { rows: [row] } = await db.query("select q.status, g.cause from contest_reflight_requests q join contest_reflights g on g.id = q.reflight_id join contest_rounds r on r.id = q.round_id where r.contest_id = $1", [demo!.id]);
+    expect(row).toMatchObject({ status: "granted", cause: "launch-collision" });
+  } finally {
+    await db.end();
+  }
+});

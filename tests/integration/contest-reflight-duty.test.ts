@@ -2,6 +2,7 @@ import "./support/session";
 import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { PUT as decideRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests/route";
 import { PUT as keeperRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
 import { listChanges } from "@/db/queries/sync-pull";
@@ -175,5 +176,75 @@ describe("the phone's re-flight run", () => {
     expect((await put({ entryId: ids["Bo Marsh"], timekeeperUserId: null })).status).toBe(200);
     expect(await grant()).toMatchObject({ timekeeperUserId: null, timekeeperAssignedBy: null });
     expect((await lastPage(keeper.id)).contestDuties).toEqual([]);
+  });
+});
+
+describe("a `reflight` ruling on the phone becomes a request the officer decides (F3K.9.6: granting is the contest director's)", () => {
+  const decide = (body: unknown) => decideRoute(
+    new Request("http://test/api", { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }),
+    { params: Promise.resolve({ contestId, roundNumber: "1" }) },
+  );
+  const requests = async () => (await getPool().query<{ id: string; entry_id: string; cause: string; placement: string; asked_by: string; asked_at: Date; status: string; decided_by: string | null; reflight_id: string | null }>(
+    "select * from contest_reflight_requests where round_id = $1 order by asked_at", [round1])).rows;
+  let cyRun = "";
+  const phone = recorder(deviceId());
+
+  it("the keeper's duty run for Cy with a `reflight` ruling: one request with who and when; a push sent again adds none; someone else's ruling none", async () => {
+    await db.update(groupSlots).set({ timekeeperUserId: keeper.id }).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids["Cy Rook"]!)));
+    actAs(keeper);
+    const s = session(keeper.id);
+    const r = { ...run(s.id, [{ lane: 0, pilotName: "Cy Rook" }], getCatalogueTask("A")), contest: { roundId: round1, slots: [{ lane: 0, entryId: ids["Cy Rook"]! }] } };
+    cyRun = r.id;
+    const ruling = phone.at(r.id, T0 + 5_000, { kind: "reflight", lane: 0, cause: "launch-collision", placement: "later-group", reason: "Hit on launch" });
+    const body = { deviceId: phone.id, sessions: [s], runs: [r], events: [phone.at(r.id, T0, { kind: "window-start" }), ruling] };
+    expect((await push(body)).status).toBe(200);
+    expect(await requests()).toEqual([expect.objectContaining({ entry_id: ids["Cy Rook"], cause: "launch-collision", placement: "later-group", asked_by: keeper.id, status: "open" })]);
+    expect((await requests())[0]!.asked_at.getTime()).toBe(T0 + 5_000);
+    await push(body);
+    expect(await requests()).toHaveLength(1);
+    // a member who is not Cy's timekeeper rules on their own run of Cy: no request
+    actAs(member);
+    const other = recorder(deviceId());
+    const s2 = session(member.id);
+    const r2 = { ...run(s2.id, [{ lane: 0, pilotName: "Cy Rook" }], getCatalogueTask("A")), contest: { roundId: round1, slots: [{ lane: 0, entryId: ids["Cy Rook"]! }] } };
+    await push({ deviceId: other.id, sessions: [s2], runs: [r2], events: [other.at(r2.id, T0 + 6_000, { kind: "reflight", lane: 0, cause: "rain", placement: "original-group" })] });
+    expect(await requests()).toHaveLength(1);
+  });
+
+  it("the decide route: 401, 404 not a member, 403 a member, 404 an unknown request, 422 a malformed body; nothing changes", async () => {
+    const [req] = await requests();
+    actAs(null);
+    expect((await decide({ requestId: req!.id, decision: "dismiss" })).status).toBe(401);
+    actAs(stranger);
+    expect((await decide({ requestId: req!.id, decision: "dismiss" })).status).toBe(404);
+    actAs(member);
+    expect((await decide({ requestId: req!.id, decision: "dismiss" })).status).toBe(403);
+    actAs(officer);
+    expect((await decide({ requestId: randomUUID(), decision: "dismiss" })).status).toBe(404);
+    expect((await decide({ requestId: req!.id, decision: "maybe" })).status).toBe(422);
+    expect((await decide({ requestId: req!.id, decision: "grant", placement: "later-group", groupNumber: 1, entitled: true, reason: null })).status).toBe(422); // group 1 flies before Cy's
+    expect((await requests())[0]).toMatchObject({ status: "open", decided_by: null });
+  });
+
+  it("granting makes the re-flight grant with the phone's cause, who and when; a second decision is 409", async () => {
+    const [req] = await requests();
+    actAs(officer);
+    // Cy flies in group 2, the last: a later group cannot be; the officer grants it with the original group
+    const res = await decide({ requestId: req!.id, decision: "grant", placement: "original-group", groupNumber: 2, entitled: true, reason: null });
+    expect(res.status).toBe(200);
+    const after = (await requests())[0]!;
+    expect(after).toMatchObject({ status: "granted", decided_by: officer.id });
+    const [g] = await db.select().from(contestReflights).where(eq(contestReflights.id, after.reflight_id!));
+    expect(g).toMatchObject({ entryId: ids["Cy Rook"], cause: "launch-collision", placement: "original-group", groupNumber: 2, grantedBy: officer.id, reason: "Hit on launch" });
+    expect((await decide({ requestId: req!.id, decision: "dismiss" })).status).toBe(409);
+  });
+
+  it("dismissing keeps who and when and grants nothing", async () => {
+    actAs(keeper);
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(cyRun, T0 + 9_000, { kind: "reflight", lane: 0, cause: "rain", placement: "original-group" })] });
+    const open = (await requests()).find((r) => r.status === "open")!;
+    actAs(officer);
+    expect((await decide({ requestId: open.id, decision: "dismiss" })).status).toBe(200);
+    expect((await requests()).find((r) => r.id === open.id)).toMatchObject({ status: "dismissed", decided_by: officer.id, reflight_id: null });
   });
 });

@@ -80,6 +80,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/timekeepers": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
@@ -178,6 +179,7 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/runs")) return { entryId: uuidv7(), runId: uuidv7(), lane: 0 };
   if (path.endsWith("/records")) return { entryId: uuidv7(), recordId: uuidv7() };
   // one body for both methods (each schema reads its own fields): grant a re-flight, or record its card
+  if (path.endsWith("/reflight-requests")) return { requestId: uuidv7(), decision: "grant", placement: "later-group", groupNumber: 2, entitled: true, reason: "Rain" };
   if (path.endsWith("/reflights/timekeeper")) return { entryId: uuidv7(), timekeeperUserId: uuidv7() };
   if (path.endsWith("/reflights")) return { entryId: uuidv7(), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)
