@@ -177,13 +177,16 @@ test("the officer sees a re-flight asked on a timekeeper's phone and grants it (
   try {
     const { rows: [demo] } = await db.query<{ id: string }>("select id from contests where name = 'Heronmoor Winter Cup'");
     await signInAs(page, "ines@example.com");
+    // the seeded request: Mara's phone ruled a launch collision for round 1's first pilot (who that is follows the draw)
+    const { rows: [asked] } = await db.query<{ name: string }>(`select e.pilot_name as name from contest_reflight_requests q join contest_entries e on e.id = q.entry_id
+      join contest_rounds r on r.id = q.round_id where r.contest_id = $1 and r.number = 1`, [demo!.id]);
+    const pilot = asked!.name;
     await page.goto(`/contests/${demo!.id}/rounds/1`);
-    // the seeded request: Mara's phone ruled a launch collision for Cass Merriden
-    const request = page.getByRole("listitem", { name: "Re-flight request, Cass Merriden" });
-    await expect(request).toContainText(/asked on the phone by Mara Lindqvist at .+, cause /);
-    await request.getByRole("button", { name: "Grant Cass Merriden's re-flight" }).click();
+    const request = page.getByRole("listitem", { name: `Re-flight request, ${pilot}` });
+    await expect(request).toContainText(/asked on the phone by Mara Lindqvist at .+, cause a collision during the launch/);
+    await request.getByRole("button", { name: `Grant ${pilot}'s re-flight` }).click();
     await expect(request).toContainText("Granted by Ines Varga");
-    await expect(page.getByRole("listitem", { name: "Re-flight, Cass Merriden" })).toContainText("Granted by Ines Varga");
+    await expect(page.getByRole("listitem", { name: `Re-flight, ${pilot}` })).toContainText("Granted by Ines Varga");
     const { rows: [row] } = await db.query("select q.status, g.cause from contest_reflight_requests q join contest_reflights g on g.id = q.reflight_id join contest_rounds r on r.id = q.round_id where r.contest_id = $1", [demo!.id]);
     expect(row).toMatchObject({ status: "granted", cause: "launch-collision" });
   } finally {
