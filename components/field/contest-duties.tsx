@@ -2,7 +2,7 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
-import { dutyLanes, dutyRound, dutyText } from "@/lib/contests/timekeepers";
+import { dutyContest, dutyLanes, dutyRound, dutyText } from "@/lib/contests/timekeepers";
 import { getMeta, getWindowcallDb } from "@/lib/offline/db";
 import { taskDefinitionSchema } from "@/lib/tasks";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
@@ -14,7 +14,8 @@ import { useNotifyWrite } from "./use-notify-write";
  * Contest groups this phone's user keeps time for, as the last pull brought them (so they show
  * offline): "Contest: round N, group G — pilots A, B, C" and one tap that sets up the round's task
  * with one named lane per pilot, tied to the pilots' contest slots: when the run syncs, its results
- * are the pilots' official results for the round.
+ * are the pilots' official results for the round. A re-flight's duty ("re-flight, round N, group G —
+ * pilot X") sets up one lane tied to the grant (`RunEntity.contest.reflightId`): its result is the re-flight's.
  */
 export function ContestDuties() {
   const duties = useLiveQuery(async () => (await getMeta(getWindowcallDb(), "contestDuties")) ?? [], []);
@@ -22,7 +23,7 @@ export function ContestDuties() {
   return (
     <section aria-labelledby="duties-h" className="space-y-3">
       <h2 id="duties-h" className="text-lg font-bold">Timekeeping at a contest</h2>
-      {duties.map((d) => <DutyCard key={`${d.roundId}:${d.groupNumber}`} duty={d} />)}
+      {duties.map((d) => <DutyCard key={d.reflightId ?? `${d.roundId}:${d.groupNumber}`} duty={d} />)}
       <p className="text-sm text-muted">As of the last sync. Stand where the contest director puts timekeepers, and follow the field&apos;s safety rules.</p>
     </section>
   );
@@ -40,10 +41,10 @@ function DutyCard({ duty }: { duty: PulledDuty }) {
     if (!task.success || !profile) return setError(!profile ? "Sign in once online on this phone first." : "This round's task cannot be timed on this phone.");
     setBusy(true);
     const now = Date.now();
-    const { lanes, slots } = dutyLanes(duty);
+    const { lanes } = dutyLanes(duty);
     const problem = await openNewRun(
       { ownerId: profile.id, fieldName: duty.fieldName.slice(0, 120) || duty.contestName.slice(0, 120), conditions: {}, startedAtWallMs: now, ...(duty.clubId ? { clubId: duty.clubId } : {}) },
-      { task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now, contest: { roundId: duty.roundId, slots } },
+      { task: task.data as unknown as Record<string, unknown>, lanes, createdAtWallMs: now, contest: dutyContest(duty) },
       { notify },
     );
     // on success the page is already leaving: busy stays, so a second tap cannot set up a second run
@@ -56,7 +57,7 @@ function DutyCard({ duty }: { duty: PulledDuty }) {
       <p className="text-sm text-muted">{duty.contestName} · {duty.startsOn} · task {String(duty.task.letter ?? "")}: {String(duty.task.name ?? "")}</p>
       <button type="button" onClick={() => void start()} disabled={busy}
         className="flex min-h-touch w-full items-center justify-between gap-2 rounded-lg bg-accent px-3 text-left font-bold text-accent-ink">
-        <span>Set up {dutyRound(duty)}, group {duty.groupNumber}: {duty.pilots.length === 1 ? "one lane" : `${Math.min(duty.pilots.length, 4)} lanes`}</span>
+        <span>Set up {duty.reflightId ? "the re-flight, " : ""}{dutyRound(duty)}, group {duty.groupNumber}: {duty.pilots.length === 1 ? "one lane" : `${Math.min(duty.pilots.length, 4)} lanes`}</span>
         <span aria-hidden>▶</span>
       </button>
       {error ? <p role="alert" className="text-sm font-semibold text-warn">{error}</p> : null}

@@ -4,7 +4,7 @@ import { redrawRemaining, swapPilots, type RoundGroups } from "@/lib/contests/en
 import type { Database } from "../index";
 import { clearFlyOffDraw, FLY_OFF_RESULTS_MESSAGE } from "./contest-fly-off";
 import type { Tx } from "./sync-db";
-import { contestDrawChanges, contestEntries, contestRounds, contests, groupSlots, users } from "../schema";
+import { contestDrawChanges, contestEntries, contestReflights, contestRounds, contests, groupSlots, users } from "../schema";
 
 
 export type DrawChangeRefusal = { ok: false; code: "no_draw" | "no_round" | "flown" | "refused" | "too_few" | "fly_off_results"; message: string };
@@ -15,7 +15,10 @@ async function lockDrawnContest(tx: Tx, contestId: string): Promise<boolean> {
   return r.rows[0]?.draw_seed != null;
 }
 
-/** Rounds (not fly-off) of the contest from `from` on, with their slots; `result`: a linked run, a paper card or a signature. */
+/**
+ * Rounds (not fly-off) of the contest from `from` on, with their slots; `result`: a linked run, a paper card or a
+ * signature; `reflightResult`: a re-flight of the round holds one.
+ */
 async function roundsWithSlots(tx: Tx, contestId: string, from = 1) {
   const rounds = await tx.select({ id: contestRounds.id, number: contestRounds.number }).from(contestRounds)
     .where(and(eq(contestRounds.contestId, contestId), eq(contestRounds.isFlyOff, false), gte(contestRounds.number, from)))
@@ -24,7 +27,10 @@ async function roundsWithSlots(tx: Tx, contestId: string, from = 1) {
     roundId: groupSlots.roundId, entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber,
     result: sql<boolean>`(${groupSlots.runId} is not null or ${groupSlots.paperFlights} is not null or ${groupSlots.signedAt} is not null)`,
   }).from(groupSlots).where(inArray(groupSlots.roundId, rounds.map((r) => r.id)));
-  return rounds.map((r) => ({ ...r, slots: slots.filter((s) => s.roundId === r.id) }));
+  const reflown = rounds.length === 0 ? [] : await tx.selectDistinct({ roundId: contestReflights.roundId }).from(contestReflights)
+    .where(and(inArray(contestReflights.roundId, rounds.map((r) => r.id)),
+      sql`(${contestReflights.runId} is not null or ${contestReflights.paperFlights} is not null or ${contestReflights.signedAt} is not null)`));
+  return rounds.map((r) => ({ ...r, slots: slots.filter((s) => s.roundId === r.id), reflightResult: reflown.some((x) => x.roundId === r.id) }));
 }
 
 const flownRefusal = (n: number, what: string): DrawChangeRefusal =>
@@ -40,7 +46,7 @@ export async function swapInRound(db: Database, p: { contestId: string; roundNum
     if (!(await lockDrawnContest(tx, p.contestId))) return { ok: false, code: "no_draw", message: "Make the draw first." };
     const round = (await roundsWithSlots(tx, p.contestId, p.roundNumber)).find((r) => r.number === p.roundNumber);
     if (!round) return { ok: false, code: "no_round", message: `The contest has no round ${p.roundNumber}.` };
-    if (round.slots.some((s) => s.result)) return flownRefusal(p.roundNumber, "its groups can no longer change.");
+    if (round.slots.some((s) => s.result) || round.reflightResult) return flownRefusal(p.roundNumber, "its groups can no longer change.");
     const entries = await tx.select({ id: contestEntries.id, keepApart: contestEntries.keepApart, name: contestEntries.pilotName })
       .from(contestEntries).where(eq(contestEntries.contestId, p.contestId));
     const names = new Map(entries.map((e) => [e.id, e.name]));
@@ -59,7 +65,7 @@ export async function swapInRound(db: Database, p: { contestId: string; roundNum
 /**
  * The rounds from `fromRound` on drawn again for today's live entries, the earlier rounds kept and
  * their meetings counted (lib/contests/entries-draw.ts redrawRemaining). Refused when one of those
- * rounds has a result, or the fly-off has one; a fly-off drawn without results is cleared (its
+ * rounds has a result (a slot's or a re-flight's), or the fly-off has one; those rounds' re-flight grants go with them; a fly-off drawn without results is cleared (its
  * pilots came from the old order: contest-fly-off.ts clearFlyOffDraw). Recorded with its seed, who and when.
  */
 export async function redrawFrom(db: Database, p: { contestId: string; fromRound: number; seed: number; byUserId: string }):
@@ -69,7 +75,7 @@ export async function redrawFrom(db: Database, p: { contestId: string; fromRound
     const all = await roundsWithSlots(tx, p.contestId);
     const remaining = all.filter((r) => r.number >= p.fromRound);
     if (remaining.length === 0) return { ok: false, code: "no_round", message: `The contest has no round ${p.fromRound}.` };
-    const flownLater = remaining.find((r) => r.slots.some((s) => s.result));
+    const flownLater = remaining.find((r) => r.slots.some((s) => s.result) || r.reflightResult);
     if (flownLater) return flownRefusal(flownLater.number, "re-draw from a later round.");
     const flyOff = await clearFlyOffDraw(tx, p.contestId);
     if (flyOff === "has_results") return { ok: false, code: "fly_off_results", message: FLY_OFF_RESULTS_MESSAGE };
@@ -82,6 +88,8 @@ export async function redrawFrom(db: Database, p: { contestId: string; fromRound
       return { roundNumber: r.number, groups: groups.map((g) => r.slots.filter((s) => s.groupNumber === g).map((s) => s.entryId)) };
     });
     const drawn = redrawRemaining({ entries: live, flown, remaining: remaining.map((r) => r.number), maxGroupSize, seed: p.seed });
+    // the re-drawn rounds' grants (none with a result, checked above) belong to the old groups
+    await tx.delete(contestReflights).where(inArray(contestReflights.roundId, remaining.map((r) => r.id)));
     await tx.delete(groupSlots).where(inArray(groupSlots.roundId, remaining.map((r) => r.id)));
     const values = drawn.rounds.flatMap((r) => {
       const roundId = remaining.find((x) => x.number === r.roundNumber)!.id;

@@ -6,6 +6,9 @@ import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { contestEntries, contestReflights, contestRounds, contests, groupSlots, runLanes, users } from "../schema";
 import { listLinkableLanes } from "./contest-lanes";
+import { listTimekeeperCandidates } from "./contest-timekeepers";
+import { reflightTimekeeperProblem } from "@/lib/contests/timekeepers";
+import { alias } from "drizzle-orm/pg-core";
 
 /**
  * Grants a pilot drawn in the round a re-flight (F3K.9.6, F3K.4.2), with who and when. With the
@@ -57,9 +60,44 @@ export async function recordReflight(db: Database, p: {
   });
 }
 
-/** The round's re-flights with the pilot, who granted it and when, and what is recorded (the round page lists them). */
+/**
+ * Names (or with null removes) the timekeeper whose phone times a granted re-flight, with who and when:
+ * eligible and not flying in the group the re-flight is flown in (lib/contests/timekeepers.ts
+ * reflightTimekeeperProblem). "not_granted" when the pilot has no re-flight in the round. The grant's
+ * row is locked, so two officers saving at once take turns. The timekeeper's next pull carries the duty.
+ */
+export async function setReflightTimekeeper(db: Database, p: { contestId: string; roundId: string; entryId: string; userId: string; timekeeperUserId: string | null }):
+  Promise<{ saved: true } | { saved: false; problem: string } | "not_granted"> {
+  return db.transaction(async (tx) => {
+    const [grant] = await tx.select({ id: contestReflights.id, groupNumber: contestReflights.groupNumber, timekeeperUserId: contestReflights.timekeeperUserId })
+      .from(contestReflights).where(and(eq(contestReflights.roundId, p.roundId), eq(contestReflights.entryId, p.entryId))).for("update");
+    if (!grant) return "not_granted";
+    if (p.timekeeperUserId !== null) {
+      const inGroup = await tx.select({ pilotUserId: contestEntries.pilotUserId }).from(groupSlots).innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
+        .where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.groupNumber, grant.groupNumber)));
+      const reflying = await tx.select({ pilotUserId: contestEntries.pilotUserId }).from(contestReflights).innerJoin(contestEntries, eq(contestEntries.id, contestReflights.entryId))
+        .where(and(eq(contestReflights.roundId, p.roundId), eq(contestReflights.groupNumber, grant.groupNumber)));
+      const flying = new Set([...inGroup, ...reflying].flatMap((r) => (r.pilotUserId ? [r.pilotUserId] : [])));
+      const eligible = new Set((await listTimekeeperCandidates(tx, p.contestId)).map((c) => c.id));
+      const problem = reflightTimekeeperProblem(p.timekeeperUserId, eligible, flying);
+      if (problem) return { saved: false, problem };
+    }
+    if (grant.timekeeperUserId !== p.timekeeperUserId) {
+      await tx.update(contestReflights).set({
+        timekeeperUserId: p.timekeeperUserId, timekeeperAssignedBy: p.timekeeperUserId === null ? null : p.userId, timekeeperAssignedAt: p.timekeeperUserId === null ? null : new Date(),
+      }).where(eq(contestReflights.id, grant.id));
+    }
+    return { saved: true };
+  });
+}
+
+const keeper = alias(users, "reflight_keeper");
+
+/** The round's re-flights with the pilot, who granted it and when, its timekeeper, and what is recorded (the round page lists them). */
 export async function listRoundReflights(db: Database, roundId: string) {
   return db.select({
+    id: contestReflights.id, timekeeperUserId: contestReflights.timekeeperUserId, timekeeperName: keeper.name, timekeeperAssignedAt: contestReflights.timekeeperAssignedAt,
+    signedFrom: contestReflights.signedFrom,
     entryId: contestReflights.entryId, name: contestEntries.pilotName, cause: contestReflights.cause, placement: contestReflights.placement,
     entitled: contestReflights.entitled, groupNumber: contestReflights.groupNumber, reason: contestReflights.reason,
     grantedBy: users.name, grantedAt: contestReflights.grantedAt, paperFlights: contestReflights.paperFlights,
@@ -68,6 +106,7 @@ export async function listRoundReflights(db: Database, roundId: string) {
   }).from(contestReflights)
     .innerJoin(contestEntries, eq(contestEntries.id, contestReflights.entryId))
     .leftJoin(users, eq(users.id, contestReflights.grantedBy))
+    .leftJoin(keeper, eq(keeper.id, contestReflights.timekeeperUserId))
     .leftJoin(runLanes, and(eq(runLanes.runId, contestReflights.runId), eq(runLanes.lane, contestReflights.lane)))
     .where(eq(contestReflights.roundId, roundId)).orderBy(asc(contestReflights.grantedAt), asc(contestEntries.pilotName));
 }

@@ -5,7 +5,7 @@ import type { RunEntity } from "@/lib/events/entities";
 import type { RunEvent } from "@/lib/events/schema";
 import type { PulledDuty } from "@/lib/validations/contest-sync";
 import type { Database } from "../index";
-import { contestEntries, contestRounds, contests, groupSlots, memberships } from "../schema";
+import { contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships } from "../schema";
 import type { Executor } from "./sync-db";
 
 /** Who may keep time at a contest: the club's members and the contest's entered pilots with an account, by name. */
@@ -96,7 +96,32 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
     d.pilots.push({ entryId: r.entryId, name: r.name });
     duties.set(key, d);
   }
-  return [...duties.values()].slice(0, 1_000);
+  return [...duties.values(), ...(await reflightDutiesOf(db, userId))].slice(0, 1_000);
+}
+
+/** The re-flights a user times (contest_reflights.timekeeper_user_id), one duty each with its one pilot, for the same days as the groups' duties. */
+async function reflightDutiesOf(db: Executor, userId: string): Promise<PulledDuty[]> {
+  const rows = await db.select({
+    reflightId: contestReflights.id, contestId: contests.id, clubId: memberships.clubId, contestName: contests.name, fieldName: contests.fieldName, startsOn: contests.startsOn,
+    roundId: contestRounds.id, roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, task: contestRounds.task,
+    groupNumber: contestReflights.groupNumber, entryId: contestReflights.entryId, name: contestEntries.pilotName,
+  }).from(contestReflights)
+    .innerJoin(contestRounds, eq(contestRounds.id, contestReflights.roundId))
+    .innerJoin(contests, eq(contests.id, contestRounds.contestId))
+    .innerJoin(contestEntries, eq(contestEntries.id, contestReflights.entryId))
+    .leftJoin(memberships, and(eq(memberships.clubId, contests.clubId), eq(memberships.userId, userId)))
+    .where(and(
+      eq(contestReflights.timekeeperUserId, userId),
+      sql`${contests.startsOn} >= current_date - ${DUTY_DAYS_AFTER}::int`,
+      sql`${contestEntries.withdrawnAt} is null`,
+    ))
+    .orderBy(asc(contests.startsOn), asc(contests.id), asc(contestRounds.isFlyOff), asc(contestRounds.number), asc(contestReflights.groupNumber), asc(contestEntries.pilotName))
+    .limit(1_000);
+  return rows.map((r) => ({
+    contestId: r.contestId, ...(r.clubId ? { clubId: r.clubId } : {}), contestName: r.contestName, fieldName: r.fieldName, startsOn: r.startsOn,
+    roundId: r.roundId, roundNumber: r.roundNumber, flyOff: r.isFlyOff, groupNumber: r.groupNumber, reflightId: r.reflightId,
+    task: r.task as Record<string, unknown>, pilots: [{ entryId: r.entryId, name: r.name }],
+  }));
 }
 
 /**
@@ -105,7 +130,8 @@ export async function dutiesOf(db: Executor, userId: string): Promise<PulledDuty
  * when the run's task is the round's. The run's result (run_lanes.result_tenths, derived by
  * lib/results runResult) becomes the slot's official result: a paper card is cleared, and so is an
  * earlier signature (a new result needs its own, F3K.1.2); the record it replaces (a paper card or
- * another run) is kept in slot_records for the officer's decision. Called by the push (sync-push-entities.ts).
+ * another run) is kept in slot_records for the officer's decision. A re-flight duty's run goes to its
+ * grant instead (linkReflightLane). Called by the push (sync-push-entities.ts).
  */
 export async function linkTimedLanes(tx: Executor, userId: string, pushed: readonly RunEntity[]): Promise<number> {
   let linked = 0;
@@ -116,9 +142,13 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
   const letterOf = new Map(rounds.map((r) => [r.id, (r.task as { letter?: string | null }).letter ?? null]));
   const now = new Date();
   for (const run of withContest) {
-    const { roundId, slots } = run.contest!;
+    const { roundId, slots, reflightId } = run.contest!;
     if (!letterOf.has(roundId) || letterOf.get(roundId) !== ((run.task as { letter?: string | null }).letter ?? null)) continue;
     const lanes = new Set(run.lanes.map((l) => l.lane));
+    if (reflightId) {
+      linked += await linkReflightLane(tx, userId, { runId: run.id, roundId, reflightId, slots: slots.filter((s) => lanes.has(s.lane)) }, now);
+      continue;
+    }
     for (const s of slots) {
       if (!lanes.has(s.lane)) continue;
       // the record this run replaces (a paper card, or another run) is kept for the officer's decision
@@ -137,13 +167,36 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
 }
 
 /**
+ * A re-flight duty's run (RunEntity.contest.reflightId): its lane becomes the re-flight grant's result
+ * (not the slot's), only when the pushing account is the grant's timekeeper and the lane's entry is the
+ * grant's pilot in that round. A paper card and an earlier signature on the grant are cleared (a new
+ * result needs its own signature, F3K.1.2); which result stands is lib/scoring/reflight.ts, as for any
+ * re-flight result.
+ */
+async function linkReflightLane(tx: Executor, userId: string, p: { runId: string; roundId: string; reflightId: string; slots: { lane: number; entryId: string }[] }, now: Date): Promise<number> {
+  const slot = p.slots[0];
+  if (!slot) return 0;
+  const done = await tx.update(contestReflights).set({
+    runId: p.runId, lane: slot.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
+  }).where(and(
+    eq(contestReflights.id, p.reflightId), eq(contestReflights.roundId, p.roundId), eq(contestReflights.entryId, slot.entryId),
+    eq(contestReflights.timekeeperUserId, userId),
+    // the same lane pushed again keeps its signature
+    sql`(${contestReflights.runId}, ${contestReflights.lane}) is distinct from (${p.runId}::uuid, ${slot.lane}::smallint)`,
+  )).returning({ id: contestReflights.id });
+  return done.length;
+}
+
+/**
  * Pilot and timekeeper signed lanes on the timekeeper's phone ("signed" events just pushed): each
  * lane linked to a contest slot whose timekeeper is the pushing account gets its signature (F3K.1.2),
  * at the phone's time of signing (its clock corrected by the event's offset estimate, when it has one),
  * with who signed: "on the phone: pilot <lane's pilot>, timekeeper <account's name>". A slot signed
  * already keeps its first signature. An undo on the phone ("void" naming a "signed" event) takes the
  * phone's signature off the slot again (a paper card's signature is the officer's, not the phone's).
- * Events are applied in the order pushed (sign, undo, sign again ends signed). Called by the push (sync-push.ts).
+ * Events are applied in the order pushed (sign, undo, sign again ends signed). A re-flight the phone timed
+ * (contest_reflights with the run's lane, the pushing account its timekeeper) is signed and unsigned the
+ * same way. Called by the push (sync-push.ts).
  */
 export async function signLanes(tx: Executor, userId: string, events: readonly RunEvent[]): Promise<number> {
   let changed = 0;
@@ -159,7 +212,15 @@ export async function signLanes(tx: Executor, userId: string, events: readonly R
         from run_lanes l, users u
         where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
           and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
-      changed += res.rowCount ?? 0;
+      // a re-flight the phone timed (its lane is the grant's result): signed the same way
+      const reflown = await tx.execute(sql`
+        update contest_reflights g set
+          signed_at = coalesce(g.signed_at, ${at.toISOString()}::timestamptz),
+          signed_from = coalesce(g.signed_from, 'on the phone: pilot ' || l.pilot_name || ', timekeeper ' || u.name)
+        from run_lanes l, users u
+        where g.run_id = ${e.runId} and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}
+          and l.run_id = g.run_id and l.lane = g.lane and u.id = ${userId}`);
+      changed += (res.rowCount ?? 0) + (reflown.rowCount ?? 0);
     } else if (e.body.kind === "void") {
       changed += await unsign(tx, userId, [e.body.targetId]);
     }
@@ -176,7 +237,13 @@ async function unsign(tx: Executor, userId: string, targetIds: readonly string[]
     where t.id in (${sql.join(targetIds.map((id) => sql`${id}::uuid`), sql`, `)}) and t.body ->> 'kind' = 'signed'
       and g.run_id = t.run_id and g.lane = (t.body ->> 'lane')::int and g.timekeeper_user_id = ${userId}
       and g.signed_from like 'on the phone:%'`);
-  return res.rowCount ?? 0;
+  const reflown = await tx.execute(sql`
+    update contest_reflights g set signed_at = null, signed_from = null
+    from events t
+    where t.id in (${sql.join(targetIds.map((id) => sql`${id}::uuid`), sql`, `)}) and t.body ->> 'kind' = 'signed'
+      and g.run_id = t.run_id and g.lane = (t.body ->> 'lane')::int and g.timekeeper_user_id = ${userId}
+      and g.signed_from like 'on the phone:%'`);
+  return (res.rowCount ?? 0) + (reflown.rowCount ?? 0);
 }
 
 /** Every signed result of the contest: round, group, pilot, when and how it was signed (the results page lists them). */

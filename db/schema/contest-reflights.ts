@@ -1,4 +1,4 @@
-import { boolean, jsonb, pgTable, smallint, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, index, jsonb, pgTable, smallint, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import type { ReflightCause, ReflightPlacement } from "@/lib/events/schema";
 import { contestEntries, contestRounds } from "./contests";
 import { users } from "./users";
@@ -31,6 +31,10 @@ export const contestReflights = pgTable(
     recordedAt: timestamp("recorded_at", { withTimezone: true }),
     signedAt: timestamp("signed_at", { withTimezone: true }),
     signedFrom: text("signed_from"),
+    /** The timekeeper whose phone times the re-flight (a duty in the pull; its pushed lane becomes the re-flight's result), who named them and when. */
+    timekeeperUserId: uuid("timekeeper_user_id").references(() => users.id, { onDelete: "set null" }),
+    timekeeperAssignedBy: uuid("timekeeper_assigned_by").references(() => users.id, { onDelete: "set null" }),
+    timekeeperAssignedAt: timestamp("timekeeper_assigned_at", { withTimezone: true }),
   },
-  (t) => [unique("contest_reflights_round_entry_uq").on(t.roundId, t.entryId)],
+  (t) => [unique("contest_reflights_round_entry_uq").on(t.roundId, t.entryId), index("contest_reflights_timekeeper_idx").on(t.timekeeperUserId)],
 );

@@ -10,7 +10,7 @@ import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
 import { seedDemoDisputes } from "./demo-disputes";
 import { seedDemoRecords } from "./demo-records";
-import { seedDemoReflights } from "./demo-reflights";
+import { seedDemoReflightRequest, seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
 
 const NAME = "Heronmoor Winter Cup";
@@ -32,6 +32,7 @@ export async function seedDemoContest(db: Database): Promise<void> {
   await seedDemoFees(db, NAME);
   if (contestId) await seedDemoTimekeepers(db, contestId);
   if (contestId) await seedDemoReflights(db, contestId);
+  if (contestId) await seedDemoReflightRequest(db, contestId);
   if (contestId) await seedDemoRecords(db, contestId);
   if (contestId) await seedDemoDisputes(db, contestId);
   if (contestId) await seedDemoFlyOff(db, contestId);
@@ -67,7 +68,7 @@ async function seedContest(db: Database): Promise<string | null> {
   ]).returning();
   const seed = 20261212;
   const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
-  await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds });
+  await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds, replaceResults: false });
   const round5 = drawn.rounds.find((r) => r.roundNumber === 5)!.groups;
   const gus = entries.find((e) => e.pilotName === "Gus Wendle")!;
   const other = round5.find((g) => !g.includes(gus.id))!.map((id) => entries.find((e) => e.id === id)!).find((e) => e.keepApart === null)!;

@@ -39,19 +39,43 @@ export function timekeeperProblem(
   return null;
 }
 
-/** A timekeeper's duty as the phone keeps it: one round's group and the pilots to time there. */
+/**
+ * Why this account cannot time a re-flight, or null: the same rules as a group's timekeeper
+ * ({@link timekeeperProblem}): eligible (a club member or an entered pilot with an account) and not
+ * flying in the group the re-flight is flown in. `flying` holds the accounts of every pilot flying in
+ * that group: the group's drawn pilots and the pilots re-flying in it, the re-flyer included.
+ * A re-flight is one pilot, so the four-lane limit cannot be reached.
+ */
+export function reflightTimekeeperProblem(timekeeperUserId: string, eligible: ReadonlySet<string>, flying: ReadonlySet<string>): string | null {
+  if (!eligible.has(timekeeperUserId)) return "A timekeeper must be a member of the club or a pilot entered in the contest.";
+  if (flying.has(timekeeperUserId)) return "This timekeeper flies in the group the re-flight is flown in: choose someone who does not.";
+  return null;
+}
+
+/** A timekeeper's duty as the phone keeps it: one round's group and the pilots to time there, or one pilot's re-flight. */
 export type ContestDuty = {
   contestId: string; contestName: string; fieldName: string; startsOn: string;
   roundId: string; roundNumber: number; groupNumber: number;
+  /** A re-flight grant (contest_reflights.id) this duty times: one pilot, flown in `groupNumber`; absent on a group's duty and from older servers. */
+  reflightId?: string;
   /** A fly-off round (numbered apart from the preliminary ones); absent from phones synced before fly-offs: false. */
   flyOff?: boolean;
   task: Record<string, unknown>;
   pilots: { entryId: string; name: string }[];
 };
 
-/** "Contest: round N, group G — pilots A, B, C" ("fly-off round N, …"): the duty as the Field shows it. */
-export function dutyText(d: Pick<ContestDuty, "roundNumber" | "groupNumber" | "pilots" | "flyOff">): string {
+/**
+ * "round N, group G — pilots A, B, C" ("fly-off round N, …"), or for a re-flight "re-flight, round N,
+ * group G — pilot X": the duty as the Field shows it (after "Contest: ").
+ */
+export function dutyText(d: Pick<ContestDuty, "roundNumber" | "groupNumber" | "pilots" | "flyOff" | "reflightId">): string {
+  if (d.reflightId) return `re-flight, ${dutyRound(d)}, group ${d.groupNumber} — pilot ${d.pilots[0]?.name ?? ""}`;
   return `${dutyRound(d)}, group ${d.groupNumber} — pilots ${d.pilots.map((p) => p.name).join(", ")}`;
+}
+
+/** Where a duty's run links on push: the round, each lane's entry, and the re-flight grant when the duty is one (RunEntity.contest). */
+export function dutyContest(d: Pick<ContestDuty, "roundId" | "pilots" | "reflightId">): { roundId: string; slots: { lane: number; entryId: string }[]; reflightId?: string } {
+  return { roundId: d.roundId, slots: dutyLanes(d).slots, ...(d.reflightId ? { reflightId: d.reflightId } : {}) };
 }
 
 /** "round N" or "fly-off round N". */

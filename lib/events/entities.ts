@@ -65,11 +65,14 @@ export const runEntitySchema = z.object({
   /**
    * A contest round this window times, set up from a timekeeper's duty (lib/contests/timekeepers.ts
    * dutyLanes): which lane times which entry. The server links each lane to the pilot's slot when the
-   * pushing account is that slot's assigned timekeeper, and ignores it otherwise.
+   * pushing account is that slot's assigned timekeeper, and ignores it otherwise. With `reflightId` (a
+   * re-flight's duty) the lane goes to that re-flight grant instead, when the pushing account is its
+   * timekeeper; phones from before re-flight duties send no `reflightId`.
    */
   contest: z.object({
     roundId: z.uuid(),
     slots: z.array(z.object({ lane: z.number().int().min(0).max(3), entryId: z.uuid() })).min(1).max(4),
+    reflightId: z.uuid().optional(),
   }).optional(),
 });
 export type RunEntity = z.infer<typeof runEntitySchema>;

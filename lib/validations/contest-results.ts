@@ -71,6 +71,25 @@ export const recordReflightSchema = z.object({
 }).refine((b) => (b.runId === null) === (b.lane === null), { message: "Give a run and its lane, or neither.", path: ["lane"] })
   .refine((b) => b.flights === null || b.runId === null, { message: "A paper card or a timed run, not both.", path: ["flights"] });
 
+/** The timekeeper whose phone times a pilot's granted re-flight in the round, or null for none. */
+export const reflightTimekeeperSchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  timekeeperUserId: z.uuid("Choose a timekeeper.").nullable(),
+});
+
+/**
+ * The officer's decision on a re-flight request from a phone: dismiss it, or grant it (the request's cause;
+ * where it is flown, the group and the note as on a grant, prefilled on the page from the request).
+ */
+export const decideReflightRequestSchema = z.discriminatedUnion("decision", [
+  z.object({ requestId: z.uuid("Not a request."), decision: z.literal("dismiss") }),
+  z.object({
+    requestId: z.uuid("Not a request."), decision: z.literal("grant"),
+    placement: grantReflightSchema.shape.placement, groupNumber: grantReflightSchema.shape.groupNumber,
+    entitled: grantReflightSchema.shape.entitled, reason: grantReflightSchema.shape.reason,
+  }),
+], "Grant or dismiss the request.");
+
 /** The officer's decision on a pilot's two records in a round: the waiting record to count, or null to keep the counting one. */
 export const decideRecordsSchema = z.object({
   entryId: z.uuid("Not an entry."),

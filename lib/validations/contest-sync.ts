@@ -17,6 +17,8 @@ export const pulledDutySchema = z.object({
   /** A fly-off round (its own numbering); absent in pulls from servers before fly-offs. */
   flyOff: z.boolean().optional(),
   groupNumber: z.number().int(),
+  /** A re-flight's duty: the grant (contest_reflights.id) and its one pilot; absent on a group's duty and in pulls from older servers. */
+  reflightId: z.uuid().optional(),
   task: z.record(z.string(), z.unknown()),
   pilots: z.array(z.object({ entryId: z.uuid(), name: z.string().max(500) })).min(1).max(30),
 });

@@ -66,7 +66,11 @@ export const paperEntrySchema = z.object({
   pilotClass: pilotClass.default("senior"),
 });
 
-export const drawSchema = z.object({ seed: z.number().int().min(0).max(2_147_483_647).optional() });
+export const drawSchema = z.object({
+  seed: z.number().int().min(0).max(2_147_483_647).optional(),
+  /** Confirms that results already entered in the preliminary rounds are deleted with the old draw. */
+  replaceResults: z.boolean("Say whether results may be replaced.").default(false),
+});
 
 const roundNumber = z.number({ error: "Choose a round." }).int("Choose a round.").min(1, "Choose a round.").max(20, "Contests have at most 20 rounds.");
 
@@ -78,7 +82,7 @@ export const swapSchema = z.object({
 });
 
 /** The rounds from `fromRound` on are drawn again; the seed is chosen when not given. */
-export const redrawSchema = z.object({ fromRound: roundNumber, seed: drawSchema.shape.seed });
+export const redrawSchema = z.object({ fromRound: roundNumber, seed: z.number().int().min(0).max(2_147_483_647).optional() });
 
 /** Draws the fly-off from the preliminary order; `replaceResults` confirms that fly-off results already entered are deleted. */
 export const flyOffDrawSchema = z.object({ replaceResults: z.boolean("Say whether fly-off results may be replaced.").default(false) });

@@ -1,7 +1,8 @@
-import { expect, test } from "@playwright/test";
+import { expect, test, type BrowserContext } from "@playwright/test";
 import pg from "pg";
 import { signInAs } from "./support/auth";
 import { insertTrialContest } from "./support/contest-db";
+import { workerReady } from "./support/field";
 
 /**
  * Issue #15, re-flights recorded by officers (F3K.9.6): Ines (the demo club's officer) sees the
@@ -68,6 +69,126 @@ test("an officer grants a re-flight, enters its card, and the results follow F3K
     await expect(pax.getByRole("cell").nth(1)).toContainText("re-flight stands");
     await page.getByText(/^Re-flights \(1\)/).click();
     await expect(page.getByRole("list", { name: "Re-flights" })).toContainText("Round 1, Pax Morrow: rain, with the original group at the end of the round (group 1); granted by Ines Varga");
+  } finally {
+    await db.end();
+  }
+});
+
+test("drawing again asks first when results would be deleted, and keeps them on no", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const contestId = await makeContest(db); // two signed paper cards in round 1, the draw not locked
+    const held = async () => Number((await db.query("select count(*) from group_slots s join contest_rounds r on r.id = s.round_id where r.contest_id = $1 and s.paper_flights is not null", [contestId])).rows[0].count);
+    await signInAs(page, "ines@example.com");
+    await page.goto(`/contests/${contestId}`);
+    const asked: string[] = [];
+    page.once("dialog", (d) => { asked.push(d.message()); void d.dismiss(); });
+    await page.getByRole("button", { name: "Draw again" }).click();
+    await expect(page.getByRole("alert").filter({ hasText: /^Nothing was drawn/ })).toHaveText("Nothing was drawn: the results entered so far are kept.");
+    expect(asked).toEqual(["2 results are already entered in the preliminary rounds (paper cards, timed runs or signatures). A new draw deletes them: nothing was drawn. Confirm to draw again anyway."]);
+    expect(await held()).toBe(2);
+    page.once("dialog", (d) => void d.accept());
+    await page.getByRole("button", { name: "Draw again" }).click();
+    await expect.poll(held).toBe(0);
+    await expect(page.getByText(/^Seed \d+$/)).not.toHaveText("Seed 12");
+  } finally {
+    await db.end();
+  }
+});
+
+test("an officer names a re-flight's timekeeper; her phone times it offline, pilot and timekeeper sign, and the re-flight stands", async ({ browser }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  const contexts: BrowserContext[] = [];
+  const context = async () => {
+    const c = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    contexts.push(c);
+    return c;
+  };
+  try {
+    const contestId = await makeContest(db);
+    const { rows: [contest] } = await db.query<{ name: string }>("select name from contests where id = $1", [contestId]);
+    // Pax's round 1 (a signed 150.0 s on paper) was rained on: he re-flies with his group at the end of the round
+    await db.query(`insert into contest_reflights (round_id, entry_id, cause, placement, group_number, granted_by)
+      select r.id, e.id, 'rain', 'original-group', 1, (select id from users where email = 'ines@example.com')
+      from contest_rounds r, contest_entries e where r.contest_id = $1 and r.number = 1 and e.contest_id = $1 and e.pilot_name = 'Pax Morrow'`, [contestId]);
+
+    const officer = await (await context()).newPage();
+    await signInAs(officer, "ines@example.com");
+    await officer.goto(`/contests/${contestId}/rounds/1`);
+    const item = officer.getByRole("listitem", { name: "Re-flight, Pax Morrow" });
+    const keeper = item.getByRole("form", { name: "Re-flight timekeeper, Pax Morrow" });
+    await keeper.getByLabel("Timekeeper of Pax Morrow's re-flight").selectOption({ label: "Mara Lindqvist" });
+    await keeper.getByRole("button", { name: "Save the timekeeper" }).click();
+    await expect(keeper).toContainText("Timed on Mara Lindqvist's phone");
+
+    // Mara's phone syncs: the re-flight duty arrives; offline, one tap sets up Pax's lane.
+    const maraContext = await context();
+    const mara = await maraContext.newPage();
+    await signInAs(mara, "mara@example.com");
+    await mara.goto("/field");
+    await workerReady(mara);
+    const duty = mara.getByRole("article", { name: "Contest: re-flight, round 1, group 1 — pilot Pax Morrow" }).filter({ hasText: contest!.name });
+    await expect(duty).toBeVisible({ timeout: 30_000 });
+    await maraContext.setOffline(true);
+    await duty.getByRole("button", { name: /^Set up the re-flight, round 1, group 1: one lane/ }).click();
+    await expect(mara).toHaveURL(/\/field\/run\?id=/);
+    const runId = new URL(mara.url()).searchParams.get("id")!;
+    await mara.getByRole("button", { name: "Start working time" }).click();
+    await mara.getByRole("button", { name: /^Launch, .*Pax Morrow/ }).first().click();
+    await mara.waitForTimeout(2000);
+    await mara.getByRole("button", { name: /^Landed, .*Pax Morrow/ }).first().click();
+    await expect(mara.getByRole("button", { name: /^Launch, .*Pax Morrow/ }).first()).toBeVisible();
+    await mara.getByText("End this window early").click();
+    await mara.getByRole("button", { name: "Close the window now" }).click();
+    await expect(mara.getByRole("heading", { name: "Contest: sign the results" })).toBeVisible();
+    const lane = mara.getByRole("listitem", { name: "Signature, Pax Morrow" });
+    await lane.getByLabel("Pax Morrow: I agree with this result").check();
+    await lane.getByLabel("Mara Lindqvist: I timed it").check();
+    await lane.getByRole("button", { name: "Sign Pax Morrow's result" }).click();
+    await expect(lane.getByRole("status")).toContainText("Signed by Pax Morrow and Mara Lindqvist at");
+
+    // Signal again: the lane is the re-flight's result (not the slot's), signed on the phone.
+    await maraContext.setOffline(false);
+    await expect.poll(async () => (await db.query(
+      "select g.signed_from from contest_reflights g join contest_rounds r on r.id = g.round_id where r.contest_id = $1 and g.run_id = $2", [contestId, runId],
+    )).rows[0]?.signed_from ?? null, { timeout: 60_000 }).toBe("on the phone: pilot Pax Morrow, timekeeper Mara Lindqvist");
+    const { rows: [slot] } = await db.query("select s.run_id, s.paper_flights from group_slots s join contest_entries e on e.id = s.entry_id where e.contest_id = $1 and e.pilot_name = 'Pax Morrow'", [contestId]);
+    expect(slot).toMatchObject({ run_id: null, paper_flights: [1500] });
+    const { rows: [timed] } = await db.query<{ result_tenths: number }>("select result_tenths from run_lanes where run_id = $1 and lane = 0", [runId]);
+    expect(timed!.result_tenths).toBeGreaterThan(0);
+
+    // Results: with the original group the re-flight stands even if worse (F3K.9.6); Wren's 200.0 s is the group's best,
+    // so Pax scores his re-flight ÷ 200.0 × 1000 (F3K.9.1), computed here.
+    await officer.goto(`/contests/${contestId}/results`);
+    const pax = officer.getByRole("row").filter({ has: officer.getByRole("rowheader", { name: "Pax Morrow" }) }).first();
+    await expect(pax.getByRole("cell").nth(1)).toContainText((Math.round((timed!.result_tenths * 10000) / 2000) / 10).toFixed(1));
+    await expect(pax.getByRole("cell").nth(1)).toContainText("re-flight stands");
+  } finally {
+    for (const c of contexts) await c.close();
+    await db.end();
+  }
+});
+
+test("the officer sees a re-flight asked on a timekeeper's phone and grants it (F3K.9.6: the grant is hers)", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const { rows: [demo] } = await db.query<{ id: string }>("select id from contests where name = 'Heronmoor Winter Cup'");
+    await signInAs(page, "ines@example.com");
+    // the seeded request: Mara's phone ruled a launch collision for round 1's first pilot (who that is follows the draw)
+    const { rows: [asked] } = await db.query<{ name: string }>(`select e.pilot_name as name from contest_reflight_requests q join contest_entries e on e.id = q.entry_id
+      join contest_rounds r on r.id = q.round_id where r.contest_id = $1 and r.number = 1`, [demo!.id]);
+    const pilot = asked!.name;
+    await page.goto(`/contests/${demo!.id}/rounds/1`);
+    const request = page.getByRole("listitem", { name: `Re-flight request, ${pilot}` });
+    await expect(request).toContainText(/asked on the phone by Mara Lindqvist at .+, cause a collision during the launch/);
+    await request.getByRole("button", { name: `Grant ${pilot}'s re-flight` }).click();
+    await expect(request).toContainText("Granted by Ines Varga");
+    await expect(page.getByRole("listitem", { name: `Re-flight, ${pilot}` })).toContainText("Granted by Ines Varga");
+    const { rows: [row] } = await db.query("select q.status, g.cause from contest_reflight_requests q join contest_reflights g on g.id = q.reflight_id join contest_rounds r on r.id = q.round_id where r.contest_id = $1", [demo!.id]);
+    expect(row).toMatchObject({ status: "granted", cause: "launch-collision" });
   } finally {
     await db.end();
   }

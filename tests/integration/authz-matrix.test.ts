@@ -327,6 +327,12 @@ const ROWS: Record<string, Row> = {
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/reflights": {
     params: contest.reflightContestOfOwnersClub, body: contest.recordReflightBody, check: contest.reflightRecorded, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper": {
+    params: contest.reflightContestOfOwnersClub, body: contest.reflightTimekeeperBody, check: contest.reflightTimekeeperSaved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/reflight-requests": {
+    params: contest.reflightRequestOfOwnersClub, body: contest.dismissRequestBody, check: contest.requestDismissed, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   "POST /api/contests/[contestId]/rounds/[roundNumber]/disputes": {
     params: async (cast) => ({ ...(await contest.contestOfOwnersClub(cast, true)), roundNumber: "1" }), body: contest.lodgeDisputeBody, check: contest.disputeLodged, cast: "fresh", expect: club.OFFICERS_ONLY(201),
   },

@@ -92,7 +92,8 @@ describe("(a) drawing the preliminary rounds again after the fly-off is drawn", 
     await scoreAndDrawFlyOff(contestId, ids);
     expect(await slotsOf(contestId, true)).toHaveLength(9);
     actAs(officer);
-    const res = await drawRoute(json("POST", { seed: 8 }), params({ contestId }));
+    // the preliminary rounds hold cards: the draw replaces them only when told to (contest-draw-results.test.ts)
+    const res = await drawRoute(json("POST", { seed: 8, replaceResults: true }), params({ contestId }));
     expect(res.status).toBe(201);
     expect(await res.json()).toMatchObject({ seed: 8, flyOffCleared: true });
     expect(await slotsOf(contestId, true)).toEqual([]);

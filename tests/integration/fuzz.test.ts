@@ -80,6 +80,8 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/runs": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/timekeepers": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights": { POST: "json", PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
@@ -170,12 +172,14 @@ function template(path: string, userId: string, real: Real | null = null): Recor
   }
   if (path.endsWith("/paper-entries")) return { pilotName: "Fuzz Paper", models: ["Fuzz glider"], keepApart: "family" };
   if (path.endsWith("/entries")) return { modelIds: [] };
-  if (path.endsWith("/draw")) return { seed: 3 };
+  if (path.endsWith("/draw")) return { seed: 3, replaceResults: false };
   if (path.endsWith("/draw/swap")) return { round: 1, a: entry(0), b: entry(1) };
   if (path.endsWith("/draw/redraw")) return { fromRound: 2, seed: 3 };
   if (path.endsWith("/runs")) return { entryId: entry(0), runId: uuidv7(), lane: 0 };
   if (path.endsWith("/records")) return { entryId: entry(0), recordId: uuidv7() };
   // one body for both methods (each schema reads its own fields): grant a re-flight, or record its card
+  if (path.endsWith("/reflight-requests")) return { requestId: uuidv7(), decision: "grant", placement: "later-group", groupNumber: 2, entitled: true, reason: "Rain" };
+  if (path.endsWith("/reflights/timekeeper")) return { entryId: entry(2), timekeeperUserId: userId };
   if (path.endsWith("/reflights")) return { entryId: entry(2), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)
   if (path.endsWith("/disputes")) return { entryId: entry(1), subject: "Flight not counted", lodgedBy: "Team manager", disputeId: real?.disputeId ?? uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };

@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
+import { contestDisputes, contestEntries, contestReflightRequests, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -162,6 +162,40 @@ export async function reflightRecorded(ctx: { user: { id: string } }): Promise<v
   const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
   expect(row).toMatchObject({ paperFlights: [1200], recordedBy: ctx.user.id, signedFrom: "marked by an officer" });
   await db.update(contestReflights).set({ paperFlights: null, recordedBy: null, recordedAt: null, signedAt: null, signedFrom: null }).where(eq(contestReflights.entryId, entryId));
+}
+
+/** The owner times Matrix One's re-flight (reflightContestOfOwnersClub grants it). */
+export const reflightTimekeeperBody = (ctx: { cast: Cast } | null) => ({ entryId, timekeeperUserId: ctx?.cast.owner.id ?? null });
+
+/** After a 2xx: the owner is the re-flight's timekeeper, named by the caller; cleared for the next actor. */
+export async function reflightTimekeeperSaved(ctx: { user: { id: string }; cast: Cast }): Promise<void> {
+  const [row] = await db.select().from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  expect(row).toMatchObject({ timekeeperUserId: ctx.cast.owner.id, timekeeperAssignedBy: ctx.user.id });
+  expect(row?.timekeeperAssignedAt).toBeInstanceOf(Date);
+  await db.update(contestReflights).set({ timekeeperUserId: null, timekeeperAssignedBy: null, timekeeperAssignedAt: null }).where(eq(contestReflights.entryId, entryId));
+}
+
+let requestId = "";
+
+/** A drawn contest with a re-flight request for Matrix One's round 1, as a timekeeper's phone asked it (rain, original group). */
+export async function reflightRequestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [round] = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!)).orderBy(contestRounds.number).limit(1);
+  const [r] = await db.insert(contestReflightRequests).values({
+    roundId: round!.id, entryId, eventId: crypto.randomUUID(), runId: crypto.randomUUID(), lane: 0, cause: "rain", placement: "original-group", askedAt: new Date(),
+  }).returning();
+  requestId = r!.id;
+  return { ...params, roundNumber: "1" };
+}
+
+/** The officer dismisses the request. */
+export const dismissRequestBody = () => ({ requestId, decision: "dismiss" });
+
+/** After a 2xx: the request is dismissed by the caller; opened again for the next actor. */
+export async function requestDismissed(ctx: { user: { id: string } }): Promise<void> {
+  const [row] = await db.select().from(contestReflightRequests).where(eq(contestReflightRequests.id, requestId));
+  expect(row).toMatchObject({ status: "dismissed", decidedBy: ctx.user.id });
+  await db.update(contestReflightRequests).set({ status: "open", decidedBy: null, decidedAt: null }).where(eq(contestReflightRequests.id, requestId));
 }
 
 /** A dispute about Matrix One's round 1, lodged by the pilot. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { dutyLanes, dutyText, MAX_PILOTS_PER_TIMEKEEPER, timekeeperProblem } from "@/lib/contests/timekeepers";
+import { dutyContest, dutyLanes, dutyText, MAX_PILOTS_PER_TIMEKEEPER, reflightTimekeeperProblem, timekeeperProblem } from "@/lib/contests/timekeepers";
 import { foldRun, getCatalogueTask } from "@/lib/tasks";
 import { eventLog } from "../tasks/helpers";
 
@@ -67,5 +67,23 @@ describe("a signature on the phone", () => {
     expect(before.resultTenths).toBe(1200);
     expect(after.resultTenths).toBe(1200);
     expect(after.flights).toEqual(before.flights);
+  });
+});
+
+describe("a re-flight's timekeeper and duty (issue 15)", () => {
+  const eligible = new Set(["keeper", "flyer"]);
+  it("the same rules as a group's: eligible, and not flying in the group the re-flight is flown in (common practice, F3K.9.1: a group flies together)", () => {
+    expect(reflightTimekeeperProblem("keeper", eligible, new Set(["flyer"]))).toBeNull();
+    expect(reflightTimekeeperProblem("flyer", eligible, new Set(["flyer"]))).toMatch(/flies in the group the re-flight is flown in/);
+    expect(reflightTimekeeperProblem("outsider", eligible, new Set())).toMatch(/member of the club or a pilot entered/);
+  });
+
+  it("a re-flight duty reads \"re-flight, round N, group G — pilot X\" and its run carries the grant; a group's duty carries none", () => {
+    const base = { roundId: "r1", roundNumber: 3, groupNumber: 2, pilots: [{ entryId: "e1", name: "Bo Marsh" }] };
+    expect(dutyText({ ...base, reflightId: "g1" })).toBe("re-flight, round 3, group 2 — pilot Bo Marsh");
+    expect(dutyText({ ...base, flyOff: true, reflightId: "g1" })).toBe("re-flight, fly-off round 3, group 2 — pilot Bo Marsh");
+    expect(dutyText(base)).toBe("round 3, group 2 — pilots Bo Marsh");
+    expect(dutyContest({ ...base, reflightId: "g1" })).toEqual({ roundId: "r1", slots: [{ lane: 0, entryId: "e1" }], reflightId: "g1" });
+    expect(dutyContest(base)).toEqual({ roundId: "r1", slots: [{ lane: 0, entryId: "e1" }] });
   });
 });

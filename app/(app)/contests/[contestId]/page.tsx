@@ -14,6 +14,7 @@ import { sessionChange } from "@/lib/payments/server/checkout";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../_components/guard";
 import { ActionButton, EnterForm, PaperEntryForm, EntryDetails } from "./_components/actions";
+import { DrawButton } from "./_components/draw-button";
 import { DrawChanges } from "./_components/draw-changes";
 import { DrawChangeList, DrawLists } from "./_components/draw-lists";
 import { MyFee, OfficerFees } from "./_components/fees";
@@ -107,7 +108,7 @@ export default async function ContestPage({ params, searchParams }: { params: Pr
         {contest.drawSeed === null ? <p className="text-muted">Not drawn yet.</p> : <p>Seed {contest.drawSeed}{contest.drawLockedAt ? " · locked" : ""}</p>}
         {officer && contest.drawLockedAt === null && (
           <p className="space-x-4">
-            <ActionButton label={contest.drawSeed === null ? "Make the draw" : "Draw again"} method="POST" url={`/api/contests/${contestId}/draw`} body={{}} />
+            <DrawButton contestId={contestId} label={contest.drawSeed === null ? "Make the draw" : "Draw again"} />
             {contest.drawSeed !== null && <ActionButton label="Lock the draw" method="POST" url={`/api/contests/${contestId}/draw/lock`} />}
           </p>
         )}

@@ -1,7 +1,7 @@
 // POST /api/contests/[contestId]/draw — an officer makes (or re-makes, until locked) the seeded draw of every round
 import { randomInt } from "node:crypto";
 import { db } from "@/db";
-import { saveDraw } from "@/db/queries/contest-draw";
+import { hasResultsMessage, saveDraw } from "@/db/queries/contest-draw";
 import { FLY_OFF_RESULTS_MESSAGE } from "@/db/queries/contest-fly-off";
 import { getContest } from "@/db/queries/contests";
 import { parseJson, route } from "@/lib/api";
@@ -17,7 +17,9 @@ type Context = { params: Promise<{ contestId: string }> };
 
 /**
  * 401, 404, 403 as every officer route; 409 when the draw is locked, fewer than 2 pilots are entered, or the fly-off
- * has results (`fly_off_results`). A fly-off drawn without results is cleared with the old draw (`flyOffCleared`).
+ * has results (`fly_off_results`), and (`has_results`, nothing changed) while a preliminary slot or re-flight holds a
+ * result unless the body says `replaceResults: true`. A fly-off drawn without results is cleared with the old draw
+ * (`flyOffCleared`).
  */
 export const POST = route(async (request: Request, context: Context) => {
   await requireUser();
@@ -31,9 +33,10 @@ export const POST = route(async (request: Request, context: Context) => {
   if (live.length < 2) throw new ConflictError("too_few", "Enter at least 2 pilots before the draw.");
   const seed = body.seed ?? randomInt(0, 2_147_483_647);
   const drawn = drawEntries({ entries: live, rounds: found.rounds.map((r) => r.number), maxGroupSize: found.contest.maxGroupSize, seed });
-  const saved = await saveDraw(db, { contestId: params.data.contestId, seed, rounds: drawn.rounds });
+  const saved = await saveDraw(db, { contestId: params.data.contestId, seed, rounds: drawn.rounds, replaceResults: body.replaceResults });
   if (saved === "locked") throw new ConflictError("locked", "The draw is locked.");
   if (saved === "fly_off_results") throw new ConflictError("fly_off_results", FLY_OFF_RESULTS_MESSAGE);
+  if ("hasResults" in saved) throw new ConflictError("has_results", hasResultsMessage(saved.hasResults));
   const { max, stdDev } = drawn.result.stats;
   return Response.json({ seed, maxMeetings: max, spread: stdDev, apartBroken: drawn.result.apartBroken, flyOffCleared: saved.flyOffCleared }, { status: 201, headers: { "cache-control": "no-store" } });
 });

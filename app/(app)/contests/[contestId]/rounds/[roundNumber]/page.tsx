@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { listRoundDisputes } from "@/db/queries/contest-disputes";
 import { listPendingRecords } from "@/db/queries/contest-records";
 import { listRoundReflights } from "@/db/queries/contest-reflights";
+import { listRoundReflightRequests } from "@/db/queries/contest-reflight-requests";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
 import { getRound } from "@/db/queries/contest-results";
 import { listRoundTimekeepers, listTimekeeperCandidates } from "@/db/queries/contest-timekeepers";
@@ -20,6 +21,7 @@ import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
 import { Disputes } from "./_components/disputes";
 import { Records, type RecordView } from "./_components/records";
 import { Reflights } from "./_components/reflights";
+import { ReflightRequests } from "./_components/reflight-requests";
 
 export const metadata: Metadata = { title: "Round" };
 export const dynamic = "force-dynamic";
@@ -33,9 +35,10 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}` });
   const [found, round, zone] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff }), contestTimeZone(db, contestId)]);
   if (!found || !round) notFound();
-  const [slots, candidates, reflights, pending, lanes, disputes] = await Promise.all([
+  const [slots, candidates, reflights, pending, lanes, disputes, requests] = await Promise.all([
     listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
     listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }), listRoundDisputes(db, round.id),
+    listRoundReflightRequests(db, round.id),
   ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const others = [...found.rounds.map((r) => ({ number: r.number, flyOff: false })), ...found.flyOffRounds.map((r) => ({ number: r.number, flyOff: true }))]
@@ -70,6 +73,13 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, zone, null, p), others: p.others.map((o) => recordView(round.task, zone, o.id, o)) }))}
         />
       )}
+      <ReflightRequests
+        contestId={contestId}
+        roundKey={key}
+        timeZone={zone}
+        groupOf={Object.fromEntries(slots.map((s) => [s.entryId, s.groupNumber]))}
+        requests={requests.map((r) => ({ ...r, askedAt: r.askedAt.toISOString(), decidedAt: r.decidedAt?.toISOString() ?? null }))}
+      />
       {groups.length > 0 && (
         <Reflights
           contestId={contestId}
@@ -79,8 +89,11 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
           groups={groups}
           lanes={lanes}
           pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          candidates={candidates}
+          flyingByGroup={flyingByGroup(slots, reflights)}
           reflights={reflights.map((r) => ({
             ...r, grantedAt: r.grantedAt.toISOString(), recordedAt: r.recordedAt?.toISOString() ?? null, signed: r.signedAt !== null, runResultTenths: r.runResultTenths ?? null,
+            timekeeperAssignedAt: r.timekeeperAssignedAt?.toISOString() ?? null,
           }))}
         />
       )}
@@ -100,6 +113,17 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
       )}
     </div>
   );
+}
+
+/** Each group's flying accounts: its drawn pilots and the pilots re-flying in it (a re-flight's timekeeper is none of them). */
+function flyingByGroup(slots: { entryId: string; groupNumber: number; pilotUserId: string | null }[], reflights: { entryId: string; groupNumber: number }[]): Record<number, string[]> {
+  const user = new Map(slots.map((s) => [s.entryId, s.pilotUserId]));
+  const out: Record<number, string[]> = {};
+  for (const x of [...slots, ...reflights]) {
+    const id = user.get(x.entryId);
+    if (id) (out[x.groupNumber] ??= []).push(id);
+  }
+  return out;
 }
 
 const stamp = (d: Date | null, zone: string) => (d ? formatClock(d, zone, "short") : "");

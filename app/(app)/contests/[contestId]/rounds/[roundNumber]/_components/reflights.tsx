@@ -10,11 +10,13 @@ import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruli
 import { formatClock } from "@/lib/format";
 import { LinkedRunSelect } from "@/components/contests/linked-run-select";
 import { formatTenths, type TaskDefinition } from "@/lib/tasks";
+import { ReflightTimekeeper } from "./reflight-timekeeper";
 
 export type ReflightRow = {
   entryId: string; name: string; cause: ReflightCause; placement: ReflightPlacement; entitled: boolean; groupNumber: number; reason: string | null;
   grantedBy: string | null; grantedAt: string; paperFlights: number[] | null; runId: string | null; lane: number | null;
-  runResultTenths: number | null; recordedAt: string | null; signed: boolean;
+  runResultTenths: number | null; recordedAt: string | null; signed: boolean; signedFrom: string | null;
+  timekeeperUserId: string | null; timekeeperName: string | null; timekeeperAssignedAt: string | null;
 };
 
 const field = "mt-1 block min-h-12 w-full rounded-lg border border-line bg-raised p-2";
@@ -27,6 +29,8 @@ const field = "mt-1 block min-h-12 w-full rounded-lg border border-line bg-raise
 export function Reflights(p: {
   contestId: string; roundKey: string; timeZone: string; task: TaskDefinition; pilots: { entryId: string; name: string; groupNumber: number }[];
   groups: number[]; reflights: ReflightRow[]; lanes: LinkableLane[];
+  /** Who may keep time, and each group's flying accounts (a re-flight's timekeeper must not fly in its group). */
+  candidates: { id: string; name: string }[]; flyingByGroup: Record<number, string[]>;
 }) {
   const { send, busy, error } = useSend();
   const granted = new Set(p.reflights.map((r) => r.entryId));
@@ -96,7 +100,10 @@ export function Reflights(p: {
   );
 }
 
-function ReflightItem(p: { contestId: string; roundKey: string; timeZone: string; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow }) {
+function ReflightItem(p: {
+  contestId: string; roundKey: string; timeZone: string; task: TaskDefinition; lanes: LinkableLane[]; r: ReflightRow;
+  candidates: { id: string; name: string }[]; flyingByGroup: Record<number, string[]>;
+}) {
   const { r } = p;
   const { send, busy, error } = useSend();
   const [times, setTimes] = useState((r.paperFlights ?? []).map((t) => (t / 10).toFixed(1)).join(" "));
@@ -116,6 +123,9 @@ function ReflightItem(p: { contestId: string; roundKey: string; timeZone: string
     <li aria-label={`Re-flight, ${r.name}`} className="space-y-2 rounded-lg border border-line p-2">
       <p className="font-semibold">{r.name}: {REFLIGHT_CAUSE_WORDS[r.cause]}, {REFLIGHT_PLACEMENT_WORDS[r.placement].label} (group {r.groupNumber}){r.entitled ? "" : ", flies again with the re-flyer"}</p>
       <p className="text-sm text-muted">Granted by {r.grantedBy ?? "a former officer"} on {formatClock(new Date(r.grantedAt), p.timeZone, "long")}{r.reason ? ` · ${r.reason}` : ""}. {r.entitled ? REFLIGHT_PLACEMENT_WORDS[r.placement].stands : "the better of the two results stands"}.</p>
+      <ReflightTimekeeper contestId={p.contestId} roundKey={p.roundKey} timeZone={p.timeZone} entryId={r.entryId} name={r.name} candidates={p.candidates}
+        flying={p.flyingByGroup[r.groupNumber] ?? []} timekeeperUserId={r.timekeeperUserId} timekeeperName={r.timekeeperName} assignedAt={r.timekeeperAssignedAt} />
+      {r.signedFrom && <p className="text-sm">Signed {r.signedFrom}.</p>}
       <form aria-label={`Re-flight result, ${r.name}`} className="space-y-2" onSubmit={(e) => { e.preventDefault(); void save(); }}>
         <label className="block">Re-flight times of {r.name}
           <input className={`${field} figures`} inputMode="decimal" autoComplete="off" value={times} disabled={link !== ""} onChange={(e) => setTimes(e.target.value)} />

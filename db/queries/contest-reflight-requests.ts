@@ -1,0 +1,83 @@
+import "server-only";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import type { RunEvent } from "@/lib/events/schema";
+import type { Database } from "../index";
+import { contestEntries, contestReflightRequests, users } from "../schema";
+import { grantReflight } from "./contest-reflights";
+import type { Executor } from "./sync-db";
+
+/**
+ * The phone's `reflight` ruling events just pushed (lib/events/schema.ts; scoring keeps them as rulings,
+ * lib/results/sources.ts) on a lane of a contest duty's run become re-flight requests for the officer:
+ * only a lane linked to a slot or a re-flight grant whose timekeeper is the pushing account. Asked at the
+ * phone's corrected time; one request per event (a push sent again adds nothing). Called by the push (sync-push.ts).
+ */
+export async function recordReflightRequests(tx: Executor, userId: string, events: readonly RunEvent[]): Promise<number> {
+  let added = 0;
+  for (const e of events) {
+    if (e.body.kind !== "reflight") continue;
+    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+    const res = await tx.execute(sql`
+      insert into contest_reflight_requests (round_id, entry_id, event_id, run_id, lane, cause, placement, reason, asked_by, asked_at)
+      select x.round_id, x.entry_id, ${e.id}::uuid, ${e.runId}::uuid, ${e.body.lane}::smallint, ${e.body.cause}, ${e.body.placement}, ${e.body.reason ?? null}, ${userId}::uuid, ${at.toISOString()}::timestamptz
+      from (
+        select g.round_id, g.entry_id from group_slots g where g.run_id = ${e.runId}::uuid and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}::uuid
+        union
+        select r.round_id, r.entry_id from contest_reflights r where r.run_id = ${e.runId}::uuid and r.lane = ${e.body.lane} and r.timekeeper_user_id = ${userId}::uuid
+      ) x limit 1
+      on conflict (event_id) do nothing`);
+    added += res.rowCount ?? 0;
+  }
+  return added;
+}
+
+const asker = alias(users, "request_asker");
+const decider = alias(users, "request_decider");
+
+/** The round's re-flight requests from the phones, open first, with the pilot, who asked and when, and who decided. */
+export async function listRoundReflightRequests(db: Database, roundId: string) {
+  return db.select({
+    id: contestReflightRequests.id, entryId: contestReflightRequests.entryId, name: contestEntries.pilotName, cause: contestReflightRequests.cause,
+    placement: contestReflightRequests.placement, reason: contestReflightRequests.reason, askedBy: asker.name, askedAt: contestReflightRequests.askedAt,
+    status: contestReflightRequests.status, decidedBy: decider.name, decidedAt: contestReflightRequests.decidedAt,
+  }).from(contestReflightRequests)
+    .innerJoin(contestEntries, eq(contestEntries.id, contestReflightRequests.entryId))
+    .leftJoin(asker, eq(asker.id, contestReflightRequests.askedBy))
+    .leftJoin(decider, eq(decider.id, contestReflightRequests.decidedBy))
+    .where(eq(contestReflightRequests.roundId, roundId))
+    .orderBy(sql`${contestReflightRequests.status} <> 'open'`, asc(contestReflightRequests.askedAt));
+}
+
+export type RequestDecision =
+  | { decision: "dismiss" }
+  | { decision: "grant"; placement: "later-group" | "new-group" | "original-group"; groupNumber: number; entitled: boolean; reason: string | null };
+
+/**
+ * The officer's decision on a request (F3K.9.6: granting a re-flight is the contest director's): "grant"
+ * makes the re-flight grant (grantReflight's rules, the request's cause; its answer is returned when it
+ * refuses) and links it to the request; "dismiss" grants nothing. Either way who and when are kept. One
+ * decision per request ("decided_already"); "no_request" when it is not this round's.
+ */
+export async function decideReflightRequest(db: Database, p: { roundId: string; requestId: string; userId: string } & RequestDecision):
+  Promise<"granted" | "dismissed" | "no_request" | "decided_already" | "no_slot" | "bad_group" | "granted_already"> {
+  return db.transaction(async (tx) => {
+    const [req] = await tx.select().from(contestReflightRequests)
+      .where(and(eq(contestReflightRequests.id, p.requestId), eq(contestReflightRequests.roundId, p.roundId))).for("update");
+    if (!req) return "no_request";
+    if (req.status !== "open") return "decided_already";
+    const now = new Date();
+    if (p.decision === "dismiss") {
+      await tx.update(contestReflightRequests).set({ status: "dismissed", decidedBy: p.userId, decidedAt: now }).where(eq(contestReflightRequests.id, req.id));
+      return "dismissed";
+    }
+    const granted = await grantReflight(tx as unknown as Database, {
+      roundId: p.roundId, entryId: req.entryId, userId: p.userId, cause: req.cause, placement: p.placement, entitled: p.entitled, groupNumber: p.groupNumber,
+      reason: p.reason ?? req.reason,
+    });
+    if (granted !== "granted") return granted;
+    const [grant] = await tx.execute<{ id: string }>(sql`select id::text from contest_reflights where round_id = ${p.roundId} and entry_id = ${req.entryId}`).then((r) => r.rows);
+    await tx.update(contestReflightRequests).set({ status: "granted", decidedBy: p.userId, decidedAt: now, reflightId: grant?.id ?? null }).where(eq(contestReflightRequests.id, req.id));
+    return "granted";
+  });
+}
