@@ -18,3 +18,4 @@ export * from "./run-folds";
 export * from "./contest-draw-changes";
 export * from "./contest-reflights";
 export * from "./contest-disputes";
+export * from "./contest-penalties";
