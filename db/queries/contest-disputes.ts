@@ -8,7 +8,7 @@ import { contestDisputes, contestEntries, contestReflights, contestRounds, conte
 /**
  * Records a dispute about a pilot's result in the round, lodged by `lodgedBy` (as named) at `lodgedAt`
  * (absent: now), with the officer who recorded it and when (`recorded_at`). "no_slot" when the pilot
- * is not drawn in the round; `{ problem }` when the lodged time is in the future or too early
+ * is not drawn in the round; `{ problem }` when the lodged time given is in the future or too early
  * (lib/contests/disputes.ts lodgedAtProblem).
  */
 export async function lodgeDispute(db: Database, p: {
@@ -20,7 +20,8 @@ export async function lodgeDispute(db: Database, p: {
   if (!slot) return "no_slot";
   const now = new Date();
   const lodgedAt = p.lodgedAt === undefined ? now : new Date(p.lodgedAt);
-  const problem = lodgedAtProblem(lodgedAt, now, slot.startsOn);
+  // a time the officer gives is checked; none given is the moment it is recorded, whatever the contest's date
+  const problem = p.lodgedAt === undefined ? null : lodgedAtProblem(lodgedAt, now, slot.startsOn);
   if (problem) return { problem };
   const [row] = await db.insert(contestDisputes).values({
     roundId: p.roundId, entryId: p.entryId, subject: p.subject, lodgedBy: p.lodgedBy, lodgedAt, recordedAt: now, recordedBy: p.userId,

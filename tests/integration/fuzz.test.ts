@@ -81,6 +81,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/penalties": { POST: "json", DELETE: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
   "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },
@@ -178,8 +179,10 @@ function template(path: string, userId: string): Record<string, unknown> {
   if (path.endsWith("/records")) return { entryId: uuidv7(), recordId: uuidv7() };
   // one body for both methods (each schema reads its own fields): grant a re-flight, or record its card
   if (path.endsWith("/reflights")) return { entryId: uuidv7(), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
+  // one body for both methods: give a penalty, or remove one
+  if (path.endsWith("/penalties")) return { entryId: uuidv7(), cause: "outside-time", points: 100, note: "Launched early", penaltyId: uuidv7(), reason: "Wrong pilot" };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)
-  if (path.endsWith("/disputes")) return { entryId: uuidv7(), subject: "Flight not counted", lodgedBy: "Team manager", disputeId: uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
+  if (path.endsWith("/disputes")) return { entryId: uuidv7(), subject: "Flight not counted", lodgedBy: "Team manager", lodgedAt: new Date().toISOString(), disputeId: uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
   if (path.endsWith("/cards")) return { groupNumber: 1, cards: [{ entryId: uuidv7(), flights: [834, 1200], penaltyPoints: 100, signed: true }] };
   const logMapping = { hasHeader: true, timeColumn: 1, timeKind: "seconds", utcOffsetMin: 0, valueColumn: 2, valueKind: "m" };
   if (path === "/api/models" || path === "/api/models/[modelId]") return { name: "Fuzz glider", spanMm: 1490, massG: 250, marking: "red", notes: "", status: "flying" };
