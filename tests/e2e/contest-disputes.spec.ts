@@ -153,7 +153,11 @@ test("penalties one by one: the phone's on the results with its cause; an office
     const section = page.getByRole("region", { name: "Penalties" });
     await expect(section.getByRole("listitem", { name: "Penalty, Tam Ossory" })).toContainText("given on the timekeeper's phone by Ines Varga");
     const form = page.getByRole("form", { name: "Give a penalty" });
-    await form.getByLabel("Pilot", { exact: true }).selectOption({ label: "Wren Albery (group 1)" });
+    // the choice of pilot shows the phone's penalties for that pilot once the page is interactive (a choice made before hydration is lost)
+    await expect(async () => {
+      await form.getByLabel("Pilot", { exact: true }).selectOption({ label: "Wren Albery (group 1)" });
+      await expect(form.getByLabel("The phone's penalties for this pilot")).toContainText("No penalty from a timekeeper's phone", { timeout: 1000 });
+    }).toPass();
     await form.getByLabel("For", { exact: true }).selectOption({ label: "Model touched a person in a safety area (−300)" });
     await form.getByLabel("Note (optional)").fill("Touched the helper in the launch area");
     await form.getByRole("button", { name: "Give the penalty" }).click();
