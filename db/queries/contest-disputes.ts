@@ -1,18 +1,31 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import type { DisputeAction } from "@/lib/contests/disputes";
+import { lodgedAtProblem, type DisputeAction } from "@/lib/contests/disputes";
 import type { Database } from "../index";
-import { contestDisputes, contestEntries, contestReflights, contestRounds, groupSlots, slotRecords, users } from "../schema";
+import { contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, slotRecords, users } from "../schema";
 
 /**
- * Records a dispute about a pilot's result in the round, lodged now by `lodgedBy` (as named), with
- * the officer who recorded it. "no_slot" when the pilot is not drawn in the round.
+ * Records a dispute about a pilot's result in the round, lodged by `lodgedBy` (as named) at `lodgedAt`
+ * (absent: now), with the officer who recorded it and when (`recorded_at`). "no_slot" when the pilot
+ * is not drawn in the round; `{ problem }` when the lodged time given is in the future or too early
+ * (lib/contests/disputes.ts lodgedAtProblem).
  */
-export async function lodgeDispute(db: Database, p: { roundId: string; entryId: string; userId: string; subject: string; lodgedBy: string }): Promise<{ id: string } | "no_slot"> {
-  const [slot] = await db.select({ id: groupSlots.id }).from(groupSlots).where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.entryId, p.entryId)));
+export async function lodgeDispute(db: Database, p: {
+  roundId: string; entryId: string; userId: string; subject: string; lodgedBy: string; lodgedAt?: string;
+}): Promise<{ id: string } | "no_slot" | { problem: string }> {
+  const [slot] = await db.select({ id: groupSlots.id, startsOn: contests.startsOn }).from(groupSlots)
+    .innerJoin(contestRounds, eq(contestRounds.id, groupSlots.roundId)).innerJoin(contests, eq(contests.id, contestRounds.contestId))
+    .where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.entryId, p.entryId)));
   if (!slot) return "no_slot";
-  const [row] = await db.insert(contestDisputes).values({ roundId: p.roundId, entryId: p.entryId, subject: p.subject, lodgedBy: p.lodgedBy, recordedBy: p.userId }).returning({ id: contestDisputes.id });
+  const now = new Date();
+  const lodgedAt = p.lodgedAt === undefined ? now : new Date(p.lodgedAt);
+  // a time the officer gives is checked; none given is the moment it is recorded, whatever the contest's date
+  const problem = p.lodgedAt === undefined ? null : lodgedAtProblem(lodgedAt, now, slot.startsOn);
+  if (problem) return { problem };
+  const [row] = await db.insert(contestDisputes).values({
+    roundId: p.roundId, entryId: p.entryId, subject: p.subject, lodgedBy: p.lodgedBy, lodgedAt, recordedAt: now, recordedBy: p.userId,
+  }).returning({ id: contestDisputes.id });
   return { id: row!.id };
 }
 
@@ -53,7 +66,7 @@ const resolver = alias(users, "dispute_resolver");
 function disputeRows(db: Database) {
   return db.select({
     id: contestDisputes.id, roundNumber: contestRounds.number, isFlyOff: contestRounds.isFlyOff, entryId: contestDisputes.entryId, name: contestEntries.pilotName,
-    subject: contestDisputes.subject, lodgedBy: contestDisputes.lodgedBy, lodgedAt: contestDisputes.lodgedAt, recordedBy: lodger.name,
+    subject: contestDisputes.subject, lodgedBy: contestDisputes.lodgedBy, lodgedAt: contestDisputes.lodgedAt, recordedAt: contestDisputes.recordedAt, recordedBy: lodger.name,
     status: contestDisputes.status, outcome: contestDisputes.outcome, action: contestDisputes.action, resolvedBy: resolver.name, resolvedAt: contestDisputes.resolvedAt,
   }).from(contestDisputes)
     .innerJoin(contestRounds, eq(contestRounds.id, contestDisputes.roundId))

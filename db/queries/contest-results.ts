@@ -6,6 +6,7 @@ import type { Database } from "../index";
 import { contestEntries, contestRounds, contests, groupSlots, runLanes } from "../schema";
 import { listLinkableLanes } from "./contest-lanes";
 import { openDisputesOfRounds } from "./contest-disputes";
+import { officerPenaltiesOfRounds } from "./contest-penalties";
 import { reflightsOfRounds } from "./contest-reflights";
 
 export type ResultsData = {
@@ -30,7 +31,8 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
     .orderBy(asc(groupSlots.groupNumber));
-  const [reflights, disputed] = await Promise.all([reflightsOfRounds(db, rounds.map((r) => r.id)), openDisputesOfRounds(db, rounds.map((r) => r.id))]);
+  const roundIds = rounds.map((r) => r.id);
+  const [reflights, disputed, officerPenalties] = await Promise.all([reflightsOfRounds(db, roundIds), openDisputesOfRounds(db, roundIds), officerPenaltiesOfRounds(db, roundIds)]);
   return {
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken, flyOffPilots: c.flyOffPilots },
     input: {
@@ -41,6 +43,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
       slots: slots.map((s): StandingsSlot => ({
         roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runResultTenths: s.runResultTenths ?? null,
         paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints, runPenaltyPoints: s.runPenaltyPoints ?? 0,
+        officerPenalties: officerPenalties.get(`${s.roundId}/${s.entryId}`) ?? [],
         reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null, disputed: disputed.has(`${s.roundId}/${s.entryId}`),
       })),
     },

@@ -19,7 +19,10 @@ export const contestDisputes = pgTable(
     subject: text("subject").notNull(),
     /** Who lodged it, as the officer wrote it down (e.g. "the pilot", "team manager of Updraft"). Never public. */
     lodgedBy: text("lodged_by").notNull(),
+    /** When it was lodged, as the officer entered it (default: when recorded); not in the future, at most 2 days before the contest's day. */
     lodgedAt: timestamp("lodged_at", { withTimezone: true }).notNull().defaultNow(),
+    /** When the officer recorded it (the server's clock). */
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
     recordedBy: uuid("recorded_by").references(() => users.id, { onDelete: "set null" }),
     status: text("status").$type<DisputeStatus>().notNull().default("open"),
     outcome: text("outcome"),

@@ -19,3 +19,4 @@ export * from "./contest-draw-changes";
 export * from "./contest-reflights";
 export * from "./contest-disputes";
 export * from "./contest-reflight-requests";
+export * from "./contest-penalties";

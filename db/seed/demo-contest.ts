@@ -9,6 +9,7 @@ import { DEMO_CLUB } from "./demo-people";
 import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
 import { seedDemoDisputes } from "./demo-disputes";
+import { seedDemoPenalties } from "./demo-penalties";
 import { seedDemoRecords } from "./demo-records";
 import { seedDemoReflightRequest, seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
@@ -24,6 +25,7 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
  * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts); a
  * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 (./demo-records.ts);
  * two disputes (./demo-disputes.ts: one upheld by that re-flight, one open in round 3);
+ * two officer's penalties in round 3 (./demo-penalties.ts: one counting, one removed);
  * a fly-off planned for the best 5 in 3 rounds (tasks M, A, B), not drawn yet: rounds 4 and 5 are
  * still to be scored, so the contest page shows why the officer cannot draw it yet.
  */
@@ -35,6 +37,7 @@ export async function seedDemoContest(db: Database): Promise<void> {
   if (contestId) await seedDemoReflightRequest(db, contestId);
   if (contestId) await seedDemoRecords(db, contestId);
   if (contestId) await seedDemoDisputes(db, contestId);
+  if (contestId) await seedDemoPenalties(db, contestId);
   if (contestId) await seedDemoFlyOff(db, contestId);
 }
 

@@ -27,9 +27,27 @@ export function disputeActionHref(contestId: string, roundKey: string, action: D
   const round = `/contests/${contestId}/rounds/${roundKey}`;
   if (action === "reflight") return `${round}#reflights-title`;
   if (action === "record-decision") return `${round}#records-title`;
-  if (action === "paper-card" || action === "penalty") return `${round}/cards`;
+  if (action === "penalty") return `${round}#penalties-title`;
+  if (action === "paper-card") return `${round}/cards`;
   return null;
 }
 
 /** What the public link and the standings say about a slot with an open dispute (no names, no subject). */
 export const UNDER_DISPUTE = "result under dispute";
+
+/** How far before the contest's day a dispute may have been lodged (our choice: protests about entries or the draw made the day before, with a day's margin for the clubs' zones). */
+export const LODGED_DAYS_BEFORE = 2;
+/** A minute's allowance for the officer's device clock running ahead of the server's. */
+const CLOCK_ALLOWANCE_MS = 60_000;
+
+/**
+ * Why the time an officer says a dispute was lodged cannot be right, or null: not in the future (the
+ * server's clock, a minute's allowance), not more than LODGED_DAYS_BEFORE days before the contest's
+ * day (00:00 UTC of `startsOn`, a calendar date).
+ */
+export function lodgedAtProblem(lodgedAt: Date, now: Date, startsOn: string): string | null {
+  if (lodgedAt.getTime() > now.getTime() + CLOCK_ALLOWANCE_MS) return "A dispute cannot be lodged in the future.";
+  const earliest = Date.parse(`${startsOn}T00:00:00Z`) - LODGED_DAYS_BEFORE * 86_400_000;
+  if (lodgedAt.getTime() < earliest) return `A dispute is lodged at most ${LODGED_DAYS_BEFORE} days before the contest's day.`;
+  return null;
+}

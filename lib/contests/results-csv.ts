@@ -2,6 +2,7 @@ import Papa from "papaparse";
 import { secondsText } from "@/lib/tasks/time";
 import { UNDER_DISPUTE } from "./disputes";
 import { paperCardResult } from "./paper-card";
+import { clockText, penaltyCauseText, penaltyNotCounted, penaltySourceWords, type ContestPenalty } from "./penalties";
 import { reflightNote } from "./reflight-note";
 import type { Standings, StandingsInput } from "./standings";
 
@@ -52,4 +53,19 @@ export function flightsCsv(input: StandingsInput, slotFlights: readonly SlotFlig
     }
   }
   return csv(["Round", "Task", "Group", "Pilot", "Recorded by", "Flight", "Time (s)", "Counted (s)", "Status", "Reason", "Signed"], rows);
+}
+
+/**
+ * Every penalty of the contest as CSV, one a row (db/queries/contest-penalties.ts listContestPenalties):
+ * round, pilot, points, cause with its rule, the note or the phone's reason, where it was given, who and
+ * when (the club's clock, `zone`), whether it counts (and why not: removed, F3K.4.3), and a removal's
+ * who, when and why.
+ */
+export function penaltiesCsv(list: readonly ContestPenalty[], zone: string): string {
+  const rows = list.map((p) => [
+    `${p.isFlyOff ? "Fly-off " : ""}${p.roundNumber}`, p.name, p.points, penaltyCauseText(p.cause), p.reason ?? "", penaltySourceWords(p.source),
+    p.givenBy ?? "", clockText(p.givenAtMs, zone), penaltyNotCounted(p) === null ? "yes" : `no: ${penaltyNotCounted(p)}`,
+    p.removedBy ?? "", clockText(p.removedAtMs, zone), p.removedReason ?? "",
+  ]);
+  return csv(["Round", "Pilot", "Points", "Cause", "Note", "Given", "Given by", "Given at", "Counts", "Removed by", "Removed at", "Why removed"], rows);
 }

@@ -1,4 +1,5 @@
 import { jsPDF } from "jspdf";
+import { penaltyCauseText, penaltyNotCounted, penaltyWhoWhen, type ContestPenalty } from "./penalties";
 import { reflightNote } from "./reflight-note";
 import type { Standings } from "./standings";
 
@@ -10,9 +11,10 @@ const latin1 = (s: string) => s.replace(/[^\u0020-\u007e\u00a0-\u00ff]/g, "?");
  * The results as a PDF (jsPDF, A4 landscape): place, pilot, team, every round's points (a
  * dropped one in brackets, an unsigned one marked "u", one under an open dispute "d", a re-flown one "r"
  * with both results and which counted listed below, F3K.9.6), penalties, total; then the fly-off and
- * the teams. The same numbers as the standings screen (one `Standings` value).
+ * the teams; every penalty is listed under the table with its cause and, with `withWho`, who gave it
+ * and when (the club's clock). The same numbers as the standings screen (one `Standings` value).
  */
-export function resultsPdf(s: Standings, title: { name: string; day: string; field: string }): Uint8Array {
+export function resultsPdf(s: Standings, title: { name: string; day: string; field: string }, penalties: { list: readonly ContestPenalty[]; zone: string; withWho: boolean } = { list: [], zone: "UTC", withWho: false }): Uint8Array {
   const doc = new jsPDF({ orientation: "landscape", unit: "mm", format: "a4" });
   const left = 12;
   const bottom = 195;
@@ -65,6 +67,24 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
       if (y > bottom) { doc.addPage(); y = 16; }
       doc.text(latin1(line), left, y);
       y += 5.5;
+    }
+    y += 4;
+  }
+  const penaltyLines = penalties.list.map((p) => {
+    const what = `${p.isFlyOff ? "Fly-off round" : "Round"} ${p.roundNumber}, ${p.name}: -${p.points}${p.cause ? `, ${penaltyCauseText(p.cause)}` : ""}${p.reason ? ` "${p.reason}"` : ""}`;
+    const notCounted = penaltyNotCounted(p);
+    return `${what}${penalties.withWho ? `; ${penaltyWhoWhen(p, penalties.zone)}` : ""}${notCounted ? ` - not counted (${notCounted})` : ""}`;
+  });
+  if (penaltyLines.length > 0) {
+    if (y > bottom - 20) { doc.addPage(); y = 16; }
+    doc.setFont("helvetica", "bold").text("Penalties (F3K.4.3, F3K.9.5, F3K.4.1): each one", left, y).setFont("helvetica", "normal");
+    y += 6;
+    for (const line of penaltyLines) {
+      for (const part of doc.splitTextToSize(latin1(line), 270) as string[]) {
+        if (y > bottom) { doc.addPage(); y = 16; }
+        doc.text(part, left, y);
+        y += 5;
+      }
     }
     y += 4;
   }

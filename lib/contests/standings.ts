@@ -6,6 +6,7 @@ import {
 import type { ReflightPlacement } from "@/lib/events/schema";
 import { standingResult } from "@/lib/scoring/reflight";
 import { paperCardResult } from "./paper-card";
+import { roundPenalty, type OfficerPenalty } from "./penalties";
 
 export type StandingsRound = { id: string; number: number; isFlyOff: boolean; task: TaskDefinition };
 export type StandingsEntry = { id: string; name: string; team: string | null; withdrawn: boolean; pilotClass?: "senior" | "junior" };
@@ -27,7 +28,10 @@ export type StandingsSlot = RecordedResult & {
   roundId: string;
   groupNumber: number;
   entryId: string;
+  /** The paper card's penalty points (one number per card). */
   penaltyPoints: number;
+  /** Officers' penalties one by one (contest_penalties, removed ones left out); summed by lib/contests/penalties.ts roundPenalty. */
+  officerPenalties?: readonly OfficerPenalty[];
   /** A re-flight granted in this round (F3K.9.6), with its own result and signature; absent = none. */
   reflight?: StandingsReflight | null;
   /** An officer recorded a dispute about this result and it is still open (lib/contests/disputes.ts); absent = none. */
@@ -64,6 +68,8 @@ export type RoundCell = {
   penaltyPoints: number;
   /** Of those, the points given on the timekeeper's phone (the linked run's and the re-flight's run's). */
   phonePenaltyPoints: number;
+  /** An officer's penalty for contact with a person at launch: the round scores 0 (F3K.4.1), plus the penalty. */
+  zeroedByPenalty: boolean;
   dropped: boolean;
   /** A re-flight with a recorded result: both results (tenths; 0 when unsigned) and which one stands (F3K.9.6). */
   reflight?: { placement: ReflightPlacement; originalTenths: number; reflightTenths: number; stands: "original" | "reflight" } | null;
@@ -130,12 +136,16 @@ function scoreSlots(input: StandingsInput): Scored {
     const cells = new Map<string, Omit<RoundCell, "roundNumber" | "dropped">>();
     const slots = input.slots.filter((s) => s.roundId === round.id).map((slot) => ({ slot, ...standing(round.task, slot) }));
     for (const group of new Set(slots.map((s) => s.group))) {
-      const inGroup = slots.filter((s) => s.group === group);
-      // F3K.1.2: a result not signed by pilot and timekeeper scores zero (so it is nobody's best either).
-      const points = normaliseUnits(inGroup.map((x) => (x.resultTenths !== null && x.signed ? x.resultTenths : 0)), round.task.halves ?? input.halves);
+      const inGroup = slots.filter((s) => s.group === group).map((x) => ({
+        ...x, penalty: roundPenalty({ cardPoints: x.slot.penaltyPoints, officer: x.slot.officerPenalties ?? [], phonePoints: x.phonePenalty }),
+      }));
+      // F3K.1.2: a result not signed by pilot and timekeeper scores zero (so it is nobody's best either); F3K.4.1: so does a round an officer's launch-contact penalty zeroes.
+      const counts = (x: (typeof inGroup)[number]) => x.resultTenths !== null && x.signed && !x.penalty.zeroesRound;
+      const points = normaliseUnits(inGroup.map((x) => (counts(x) ? x.resultTenths! : 0)), round.task.halves ?? input.halves);
       inGroup.forEach((x, i) => cells.set(x.slot.entryId, {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
-        signed: x.signed, source: x.source, penaltyPoints: x.slot.penaltyPoints + x.phonePenalty, phonePenaltyPoints: x.phonePenalty, reflight: x.reflight, disputed: x.slot.disputed ?? false,
+        signed: x.signed, source: x.source, penaltyPoints: x.penalty.points, phonePenaltyPoints: x.penalty.phonePoints, zeroedByPenalty: x.penalty.zeroesRound,
+        reflight: x.reflight, disputed: x.slot.disputed ?? false,
       }));
     }
     byRound.set(round.id, cells);
@@ -150,7 +160,7 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
     const cells = rounds.map((r): RoundCell => {
       const c = scored.get(r.id)?.get(e.id);
       return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
-        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, phonePenaltyPoints: c?.phonePenaltyPoints ?? 0, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false };
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, phonePenaltyPoints: c?.phonePenaltyPoints ?? 0, zeroedByPenalty: c?.zeroedByPenalty ?? false, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false };
     });
     return { entry: e, cells };
   });

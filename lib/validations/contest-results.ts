@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { parseRoundKey, roundKey } from "@/lib/contests/round-key";
 import { PAPER_MAX_FLIGHT_TENTHS, PAPER_MAX_FLIGHTS } from "@/lib/contests/paper-card";
-import { REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
+import { PENALTY_CAUSES, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS } from "@/lib/events/schema";
+import { fixedPenaltyPoints } from "@/lib/contests/penalties";
 import { DISPUTE_ACTIONS } from "@/lib/contests/disputes";
 import { text } from "./bounds";
 
@@ -28,7 +29,9 @@ export const groupCardsSchema = z.object({
 });
 export type GroupCardsInput = z.infer<typeof groupCardsSchema>;
 
-export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv", "pdf"]).default("json") });
+export const resultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv", "penalties-csv", "pdf"]).default("json") });
+/** The public link: the same without the penalties CSV (it names the officers and timekeepers who gave them). */
+export const publicResultsQuerySchema = z.object({ format: z.enum(["json", "csv", "flights-csv", "pdf"]).default("json") });
 
 /** A public results link's secret: 32 random bytes, base64url. */
 export const publicTokenSchema = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "Not a results link.") });
@@ -101,6 +104,35 @@ export const lodgeDisputeSchema = z.object({
   entryId: z.uuid("Not an entry."),
   subject: text(300).trim().min(1, "Say what is disputed."),
   lodgedBy: text(100).trim().min(1, "Say who lodged it."),
+  /** When it was lodged (ISO 8601 with an offset); absent = now. The route refuses a time in the future or more than 2 days before the contest's day. */
+  lodgedAt: z.iso.datetime({ offset: true, message: "Give the time it was lodged as a date and time." }).optional(),
+});
+
+/** The most penalty points one officer's penalty can carry (the rules' largest is 300, RULES.md "Penalties"). */
+export const MAX_OFFICER_PENALTY = 1000;
+
+/**
+ * An officer gives a pilot drawn in the round a penalty: the cause (RULES.md "Penalties"), its points
+ * (the rules' size for a cause that has one: F3K.4.3 100/300, F3K.9.5 100, F3K.2.4 100; the officer's
+ * for a launch contact, F3K.4.1, or "other"), a note; `separate` says it is not the phone's penalty of
+ * the same cause typed again (lib/contests/penalties.ts, no double count).
+ */
+export const givePenaltySchema = z.object({
+  entryId: z.uuid("Not an entry."),
+  cause: z.enum(PENALTY_CAUSES, "Choose what the penalty is for."),
+  points: z.number("Give the penalty points.").int("Penalties are whole points.").min(0, "Penalties are given as positive points.").max(MAX_OFFICER_PENALTY, `At most ${MAX_OFFICER_PENALTY} points.`),
+  note: text(200).trim().max(200, "At most 200 characters.").transform((s) => s || null).nullable().default(null),
+  separate: z.boolean().default(false),
+}).superRefine((b, ctx) => {
+  const fixed = fixedPenaltyPoints(b.cause);
+  if (fixed !== null && b.points !== fixed) ctx.addIssue({ code: "custom", path: ["points"], message: `This penalty is ${fixed} points by the rules.` });
+  if (b.cause === "other" && b.points === 0) ctx.addIssue({ code: "custom", path: ["points"], message: "Give the penalty points." });
+});
+
+/** An officer removes an officer's penalty of the round, saying why (the removal is recorded, the penalty stays listed). */
+export const removePenaltySchema = z.object({
+  penaltyId: z.uuid("Not a penalty."),
+  reason: text(200).trim().min(1, "Say why it is removed."),
 });
 
 /**

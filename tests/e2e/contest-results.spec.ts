@@ -121,9 +121,11 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await expect(juniors.filter({ hasText: "Finn Brackley" })).toContainText("overall");
   await expect(juniors.filter({ hasText: "Gus Wendle" })).toContainText(/^[12]\. Gus Wendle/);
   await expect(page.getByRole("button", { name: "Make a public link" })).toHaveCount(0);
-  // the seeded paper card's 100-point penalty in round 2, with who entered it and when
-  await page.getByText(/^Penalties \(1\)/).click();
+  // the seeded paper card's 100-point penalty in round 2, with who entered it and when; round 3's two officer's penalties, one removed
+  await page.getByText(/^Penalties \(3\)/).click();
   await expect(page.getByRole("list", { name: "Penalties" })).toContainText(/^Round 2, .+: −100; on the paper card, entered by Ines Varga \d/);
+  await expect(page.getByRole("list", { name: "Penalties" })).toContainText("Round 3, Dov Ashgrove: −100, Launched or flew outside the group's times (F3K.9.5) \"Launched before the working-time signal\"; given on the round page by Ines Varga");
+  await expect(page.getByRole("list", { name: "Penalties" })).toContainText("removed by Ines Varga");
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);
   const csvText = await csv.text();
@@ -133,6 +135,12 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   const bea = rows.find((r) => r.Pilot === "Bea Quillfeather")!;
   expect(bea["Re-flights"]).toMatch(/^round 2: original \d+\.\d s, re-flight \d+\.\d s: (re-flight|original) counted$/);
   expect(rows.find((r) => r.Pilot === "Cass Merriden")!.Note).toContain("round 3 result under dispute");
+  // every penalty, one a row, with cause, who and when (the club's clock) and a removal's who and why
+  const pens = Papa.parse<Record<string, string>>(await (await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=penalties-csv`)).text(), { header: true, skipEmptyLines: true }).data;
+  expect(pens).toHaveLength(3);
+  expect(pens.find((r) => r.Pilot === "Dov Ashgrove")).toMatchObject({ Round: "3", Points: "100", Cause: "Launched or flew outside the group's times (F3K.9.5)", "Given by": "Ines Varga", Counts: "yes" });
+  expect(pens.find((r) => r.Pilot === "Elin Tarrow")).toMatchObject({ Points: "300", Counts: "no: removed", "Removed by": "Ines Varga", "Why removed": "The person was Elin's own helper, not a bystander" });
+  expect(pens.find((r) => r.Pilot === "Dov Ashgrove")!["Given at"]).toMatch(/\d{2}:\d{2}/);
   const pdf = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=pdf`);
   expect(pdf.headers()["content-type"]).toBe("application/pdf");
   const pdfText = (await pdf.body()).toString("latin1");

@@ -339,6 +339,12 @@ const ROWS: Record<string, Row> = {
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/disputes": {
     params: contest.disputeContestOfOwnersClub, body: contest.resolveDisputeBody, check: contest.disputeResolved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },
+  "POST /api/contests/[contestId]/rounds/[roundNumber]/penalties": {
+    params: async (cast) => ({ ...(await contest.contestOfOwnersClub(cast, true)), roundNumber: "1" }), body: contest.givePenaltyBody, check: contest.penaltyGiven, cast: "fresh", expect: club.OFFICERS_ONLY(201),
+  },
+  "DELETE /api/contests/[contestId]/rounds/[roundNumber]/penalties": {
+    params: contest.penaltyContestOfOwnersClub, body: contest.removePenaltyBody, check: contest.penaltyRemoved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/records": {
     params: contest.recordsContestOfOwnersClub, body: contest.keepRecordBody, check: contest.recordDecided, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },

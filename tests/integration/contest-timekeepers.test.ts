@@ -233,9 +233,9 @@ describe("the timekeeper's run becomes the round's result", () => {
     // each penalty with its cause, size, verdict, who gave it and when (the results page's list)
     const listed = (await listContestPenalties(db, contestId)).filter((p) => p.name === "Ada Fenn");
     expect(listed).toEqual([
-      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 100, cause: "object-in-safety-area", reason: "Model touched the safety fence",
+      { id: null, entryId: ids["Ada Fenn"], removedBy: null, removedAtMs: null, removedReason: null, roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 100, cause: "object-in-safety-area", reason: "Model touched the safety fence",
         applied: false, dropped: "higher-in-same-attempt", givenBy: keeper.name, givenAtMs: T0 + 450_000 },
-      { roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 300, cause: "person-in-safety-area", reason: "Model touched a spectator in the safety area",
+      { id: null, entryId: ids["Ada Fenn"], removedBy: null, removedAtMs: null, removedReason: null, roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 300, cause: "person-in-safety-area", reason: "Model touched a spectator in the safety area",
         applied: true, dropped: null, givenBy: keeper.name, givenAtMs: T0 + 451_000 },
     ]);
   });

@@ -84,6 +84,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/penalties": { POST: "json", DELETE: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
   "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },
@@ -181,8 +182,10 @@ function template(path: string, userId: string, real: Real | null = null): Recor
   if (path.endsWith("/reflight-requests")) return { requestId: uuidv7(), decision: "grant", placement: "later-group", groupNumber: 2, entitled: true, reason: "Rain" };
   if (path.endsWith("/reflights/timekeeper")) return { entryId: entry(2), timekeeperUserId: userId };
   if (path.endsWith("/reflights")) return { entryId: entry(2), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
+  // one body for both methods: give a penalty, or remove one
+  if (path.endsWith("/penalties")) return { entryId: entry(3), cause: "outside-time", points: 100, note: "Launched early", penaltyId: uuidv7(), reason: "Wrong pilot" };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)
-  if (path.endsWith("/disputes")) return { entryId: entry(1), subject: "Flight not counted", lodgedBy: "Team manager", disputeId: real?.disputeId ?? uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
+  if (path.endsWith("/disputes")) return { entryId: entry(1), subject: "Flight not counted", lodgedBy: "Team manager", lodgedAt: new Date().toISOString(), disputeId: real?.disputeId ?? uuidv7(), status: "upheld", outcome: "Re-flight granted", action: "reflight" };
   if (path.endsWith("/timekeepers")) return { groupNumber: 1, timekeepers: [{ entryId: entry(0), timekeeperUserId: userId }] };
   if (path.endsWith("/entries/[entryId]")) return { team: "Fuzz Team", pilotClass: "junior" };
   if (path.endsWith("/draw/fly-off")) return { replaceResults: false };

@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { expect } from "vitest";
-import { contestDisputes, contestEntries, contestReflightRequests, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
+import { contestDisputes, contestEntries, contestPenalties, contestReflightRequests, contestReflights, contestRounds, contests, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Actor, Cast } from "./authz-actors";
 import { ownersClub } from "./authz-clubs";
@@ -229,6 +229,39 @@ export async function disputeResolved(ctx: { user: { id: string } }): Promise<vo
   expect(row).toMatchObject({ status: "rejected", resolvedBy: ctx.user.id, action: null });
   expect(row!.resolvedAt).toBeInstanceOf(Date);
   await db.update(contestDisputes).set({ status: "open", outcome: null, resolvedBy: null, resolvedAt: null }).where(eq(contestDisputes.id, disputeId));
+}
+
+/** An officer's penalty for Matrix One in round 1: 300 points, a person touched in a safety area (F3K.4.3). */
+export const givePenaltyBody = () => ({ entryId, cause: "person-in-safety-area", points: 300, note: "Touched a helper" });
+
+/** After a 2xx: the penalty is stored with who gave it; removed for the next actor. */
+export async function penaltyGiven(ctx: { user: { id: string } }): Promise<void> {
+  const rows = await db.select().from(contestPenalties).where(eq(contestPenalties.entryId, entryId));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ cause: "person-in-safety-area", points: 300, givenBy: ctx.user.id, removedAt: null });
+  await db.delete(contestPenalties).where(eq(contestPenalties.entryId, entryId));
+}
+
+let penaltyId = "";
+
+/** A drawn contest (as contestOfOwnersClub) with an officer's penalty for Matrix One in round 1. */
+export async function penaltyContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await contestOfOwnersClub(cast, true);
+  const [round] = await db.select({ id: contestRounds.id }).from(contestRounds).where(eq(contestRounds.contestId, params.contestId!)).orderBy(contestRounds.number).limit(1);
+  const [p] = await db.insert(contestPenalties).values({ roundId: round!.id, entryId, cause: "outside-time", points: 100 }).returning();
+  penaltyId = p!.id;
+  return { ...params, roundNumber: "1" };
+}
+
+/** The penalty removed, with why. */
+export const removePenaltyBody = () => ({ penaltyId, reason: "Given to the wrong pilot" });
+
+/** After a 2xx: the penalty is kept, marked removed by the caller with when and why; counting again for the next actor. */
+export async function penaltyRemoved(ctx: { user: { id: string } }): Promise<void> {
+  const [row] = await db.select().from(contestPenalties).where(eq(contestPenalties.id, penaltyId));
+  expect(row).toMatchObject({ removedBy: ctx.user.id, removedReason: "Given to the wrong pilot", points: 100 });
+  expect(row!.removedAt).toBeInstanceOf(Date);
+  await db.update(contestPenalties).set({ removedBy: null, removedAt: null, removedReason: null }).where(eq(contestPenalties.id, penaltyId));
 }
 
 /** A drawn contest (as contestOfOwnersClub) where Matrix One's round 1 has a second record waiting: an earlier paper card of 90.0 s. */

@@ -10,7 +10,8 @@ import { listSignatures } from "@/db/queries/contest-timekeepers";
 import { LiveStandings } from "@/components/contests/live-standings";
 import { hasClubRole } from "@/lib/clubs/roles";
 import { contestStandings } from "@/lib/contests/standings";
-import { PENALTY_CAUSE_WORDS, REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
+import { penaltyCauseText, penaltyNotCounted, penaltyWhoWhen } from "@/lib/contests/penalties";
+import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock, formatDate } from "@/lib/format";
 import { contestIdSchema } from "@/lib/validations/contests";
 import { contestPageAccess } from "../../_components/guard";
@@ -69,12 +70,12 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
         {penalties.length === 0 ? <p className="text-muted">No penalty given.</p> : (
           <ul aria-label="Penalties" className="space-y-1">
             {penalties.map((p, i) => (
-              <li key={i}>
-                {p.isFlyOff ? "Fly-off round" : "Round"} {p.roundNumber}, {p.name}: −{p.points}
-                {p.cause ? `, ${PENALTY_CAUSE_WORDS[p.cause].label} (${PENALTY_CAUSE_WORDS[p.cause].rule})` : ""}{p.reason ? ` "${p.reason}"` : ""};
-                {" "}{p.source === "card" ? "on the paper card, entered" : p.source === "phone" ? "given on the timekeeper's phone" : "given on the phone in the re-flight"}
-                {" "}by {p.givenBy ?? "someone"}{p.givenAtMs !== null ? ` ${formatClock(new Date(p.givenAtMs), zone, "short")}` : ""}
-                {!p.applied && <span className="font-bold"> — not counted ({p.dropped === "mid-air-collision" ? "mid-air collision" : "a higher penalty in the same attempt"}, F3K.4.3)</span>}
+              <li key={i} className={p.removedAtMs !== null ? "text-muted" : undefined}>
+                <span className={p.removedAtMs !== null ? "line-through" : undefined}>
+                  {p.isFlyOff ? "Fly-off round" : "Round"} {p.roundNumber}, {p.name}: −{p.points}{p.cause ? `, ${penaltyCauseText(p.cause)}` : ""}{p.reason ? ` "${p.reason}"` : ""}
+                </span>
+                ; {penaltyWhoWhen(p, zone)}
+                {penaltyNotCounted(p) && <span className="font-bold"> — not counted ({penaltyNotCounted(p)})</span>}
               </li>
             ))}
           </ul>
@@ -86,6 +87,7 @@ export default async function ResultsPage({ params }: { params: Promise<{ contes
           <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=pdf`} download>Results (PDF)</a></li>
           <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=csv`} download>Results (CSV)</a></li>
           <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=flights-csv`} download>Every flight (CSV)</a></li>
+          <li><a className="inline-flex min-h-12 items-center underline" href={`${api}?format=penalties-csv`} download>Every penalty (CSV)</a></li>
           <li><Link className="inline-flex min-h-12 items-center underline" href={`/contests/${contestId}/sheets`}>Group lists and scoresheets</Link></li>
         </ul>
         <PrintButton />

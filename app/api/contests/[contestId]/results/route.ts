@@ -1,4 +1,4 @@
-// GET /api/contests/[contestId]/results?format=json|csv|flights-csv — the live standings, for the club's members
+// GET /api/contests/[contestId]/results?format=json|csv|flights-csv|penalties-csv|pdf — the live standings, for the club's members
 import { route, toValidationError } from "@/lib/api";
 import { requireContestRole } from "@/lib/auth/contest-role";
 import { requireUser } from "@/lib/auth/session";
@@ -19,6 +19,6 @@ export const GET = route(async (request: Request, context: Context) => {
   const params = contestIdSchema.safeParse(await context.params);
   if (!params.success) throw new NotFoundError();
   await requireContestRole(params.data.contestId, "member");
-  return resultsReply(params.data.contestId, query.data.format);
+  return resultsReply(params.data.contestId, query.data.format, { members: true });
 });
 

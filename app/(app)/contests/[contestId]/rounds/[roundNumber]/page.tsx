@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listRoundDisputes } from "@/db/queries/contest-disputes";
+import { listContestPenalties } from "@/db/queries/contest-penalties";
 import { listPendingRecords } from "@/db/queries/contest-records";
 import { listRoundReflights } from "@/db/queries/contest-reflights";
 import { listRoundReflightRequests } from "@/db/queries/contest-reflight-requests";
@@ -19,6 +20,7 @@ import { roundParamsSchema } from "@/lib/validations/contest-results";
 import { contestPageAccess } from "../../../_components/guard";
 import { GroupTimekeepersForm } from "./_components/group-timekeepers-form";
 import { Disputes } from "./_components/disputes";
+import { Penalties } from "./_components/penalties";
 import { Records, type RecordView } from "./_components/records";
 import { Reflights } from "./_components/reflights";
 import { ReflightRequests } from "./_components/reflight-requests";
@@ -26,7 +28,7 @@ import { ReflightRequests } from "./_components/reflight-requests";
 export const metadata: Metadata = { title: "Round" };
 export const dynamic = "force-dynamic";
 
-/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights and disputes. */
+/** The officer's page of a round: its groups and each pilot's timekeeper, whose phone then times the pilot's lane; the round's re-flights, penalties and disputes. */
 export default async function RoundPage({ params }: { params: Promise<{ contestId: string; roundNumber: string }> }) {
   const parsed = roundParamsSchema.safeParse(await params);
   if (!parsed.success) notFound();
@@ -35,10 +37,10 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
   await contestPageAccess({ contestId, role: "officer", back: `/contests/${contestId}/rounds/${key}` });
   const [found, round, zone] = await Promise.all([getContest(db, contestId), getRound(db, { contestId, roundNumber, flyOff }), contestTimeZone(db, contestId)]);
   if (!found || !round) notFound();
-  const [slots, candidates, reflights, pending, lanes, disputes, requests] = await Promise.all([
+  const [slots, candidates, reflights, pending, lanes, disputes, requests, penalties] = await Promise.all([
     listRoundTimekeepers(db, round.id), listTimekeeperCandidates(db, contestId), listRoundReflights(db, round.id), listPendingRecords(db, round.id),
     listLinkableLanes(db, { clubId: found.contest.clubId, day: found.contest.startsOn, letter: round.task.letter }), listRoundDisputes(db, round.id),
-    listRoundReflightRequests(db, round.id),
+    listRoundReflightRequests(db, round.id), listContestPenalties(db, contestId, round.id),
   ]);
   const groups = [...new Set(slots.map((s) => s.groupNumber))];
   const others = [...found.rounds.map((r) => ({ number: r.number, flyOff: false })), ...found.flyOffRounds.map((r) => ({ number: r.number, flyOff: true }))]
@@ -98,12 +100,21 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
         />
       )}
       {groups.length > 0 && (
+        <Penalties
+          contestId={contestId}
+          roundKey={key}
+          timeZone={zone}
+          pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
+          penalties={penalties}
+        />
+      )}
+      {groups.length > 0 && (
         <Disputes
           contestId={contestId}
           roundKey={key}
           timeZone={zone}
           pilots={slots.map((s) => ({ entryId: s.entryId, name: s.name, groupNumber: s.groupNumber }))}
-          disputes={disputes.map((d) => ({ ...d, lodgedAt: d.lodgedAt.toISOString(), resolvedAt: d.resolvedAt?.toISOString() ?? null }))}
+          disputes={disputes.map((d) => ({ ...d, lodgedAt: d.lodgedAt.toISOString(), recordedAt: d.recordedAt.toISOString(), resolvedAt: d.resolvedAt?.toISOString() ?? null }))}
         />
       )}
       {others.length > 0 && (

@@ -8,7 +8,7 @@ import { DISPUTE_ACTION_WORDS, DISPUTE_ACTIONS, disputeActionHref, type DisputeA
 import { formatClock } from "@/lib/format";
 
 export type DisputeRow = {
-  id: string; entryId: string; name: string; subject: string; lodgedBy: string; lodgedAt: string; recordedBy: string | null;
+  id: string; entryId: string; name: string; subject: string; lodgedBy: string; lodgedAt: string; recordedAt: string; recordedBy: string | null;
   status: DisputeStatus; outcome: string | null; action: DisputeAction | null; resolvedBy: string | null; resolvedAt: string | null;
 };
 
@@ -26,9 +26,12 @@ export function Disputes(p: { contestId: string; roundKey: string; timeZone: str
   const [entryId, setEntryId] = useState("");
   const [subject, setSubject] = useState("");
   const [lodgedBy, setLodgedBy] = useState("");
+  const [lodgedAt, setLodgedAt] = useState("");
   async function lodge() {
-    const reply = await send("POST", `/api/contests/${p.contestId}/rounds/${p.roundKey}/disputes`, { entryId, subject, lodgedBy });
-    if (reply?.ok) { setEntryId(""); setSubject(""); setLodgedBy(""); }
+    // datetime-local is the device's clock (the officer's, at the field); empty = now
+    const when = lodgedAt === "" ? {} : { lodgedAt: new Date(lodgedAt).toISOString() };
+    const reply = await send("POST", `/api/contests/${p.contestId}/rounds/${p.roundKey}/disputes`, { entryId, subject, lodgedBy, ...when });
+    if (reply?.ok) { setEntryId(""); setSubject(""); setLodgedBy(""); setLodgedAt(""); }
   }
   return (
     <section aria-labelledby="disputes-title" className="space-y-4 rounded-xl border-2 border-line p-3">
@@ -56,6 +59,9 @@ export function Disputes(p: { contestId: string; roundKey: string; timeZone: str
         <label className="block">Lodged by (name; pilot or team manager)
           <input className={field} value={lodgedBy} maxLength={100} required onChange={(e) => setLodgedBy(e.target.value)} />
         </label>
+        <label className="block">Lodged at (leave empty for now; not in the future, at most 2 days before the contest)
+          <input type="datetime-local" className={field} value={lodgedAt} onChange={(e) => setLodgedAt(e.target.value)} />
+        </label>
         <FormError message={error} />
         <Button type="submit" disabled={busy || entryId === "" || subject.trim() === "" || lodgedBy.trim() === ""}>Record the dispute</Button>
       </form>
@@ -77,7 +83,7 @@ function DisputeItem(p: { contestId: string; roundKey: string; timeZone: string;
   return (
     <li aria-label={`Dispute, ${d.name}`} className="space-y-2 rounded-lg border border-line p-2">
       <p className="font-semibold">{d.name}: {d.subject} <span className="font-bold">({d.status})</span></p>
-      <p className="text-sm text-muted">Lodged by {d.lodgedBy} on {when(d.lodgedAt)}, recorded by {d.recordedBy ?? "a former officer"}.</p>
+      <p className="text-sm text-muted">Lodged by {d.lodgedBy} on {when(d.lodgedAt)}, recorded by {d.recordedBy ?? "a former officer"} on {when(d.recordedAt)}.</p>
       {d.status !== "open" ? (
         <p className="text-sm">
           {d.status === "upheld" ? "Upheld" : "Rejected"} by {d.resolvedBy ?? "a former officer"} on {d.resolvedAt ? when(d.resolvedAt) : "?"}: {d.outcome}

@@ -13,13 +13,14 @@ export const dynamic = "force-dynamic";
 
 type Context = { params: Promise<{ contestId: string; roundNumber: string }> };
 
-/** 401 signed out, 404 no such contest/round or not a member, 403 not an officer; 422 a pilot not drawn in the round. */
+/** 401 signed out, 404 no such contest/round or not a member, 403 not an officer; 422 a pilot not drawn in the round, a lodged time in the future or more than 2 days before the contest's day. */
 export const POST = route(async (request: Request, context: Context) => {
   const me = await requireUser();
   const body = await parseJson(request, lodgeDisputeSchema);
   const { round } = await requireOfficerRound(context.params);
   const done = await lodgeDispute(db, { roundId: round.id, userId: me.id, ...body });
   if (done === "no_slot") throw new ValidationError("This pilot is not drawn in this round.", []);
+  if ("problem" in done) throw new ValidationError(done.problem, [{ path: "lodgedAt", message: done.problem }]);
   return Response.json({ id: done.id }, { status: 201, headers: { "cache-control": "no-store" } });
 });
 
