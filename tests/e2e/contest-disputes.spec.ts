@@ -1,6 +1,8 @@
 import { randomBytes } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import pg from "pg";
+import { v7 as uuidv7 } from "uuid";
+import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
 import { insertTrialContest } from "./support/contest-db";
 
@@ -9,7 +11,9 @@ import { insertTrialContest } from "./support/contest-db";
  * disputes on its page (one upheld by a re-flight, one open) and the open one marked on the results; in
  * a contest of her own she records a team manager's protest on the round's page, the results and the
  * public link (signed out, no names) show the result under dispute, she rejects it with an outcome and
- * the mark goes.
+ * the mark goes. Penalties one by one: a timekeeper's phone run with a penalty, pushed, shows on the results
+ * with its cause and who gave it; on the round's page she gives a pilot a penalty (the total drops), is
+ * stopped from typing the phone's penalty again, and removes hers (struck through, the total returns).
  */
 test.describe.configure({ timeout: 180_000 });
 
@@ -86,6 +90,106 @@ test("an officer records a dispute, the results mark it (public link too, no nam
     await page.goto(`/contests/${contestId}/results`);
     await expect(rue.getByRole("cell").nth(1)).toContainText("900.0");
     await expect(rue.getByRole("cell").nth(1)).not.toContainText("result under dispute");
+  } finally {
+    await db.end();
+  }
+});
+
+/** A pushed timekeeper's run (the phone's sync body, SYNC.md): lane 0 for `entryId` in round 1, one flight of `secs`, a penalty in that attempt, signed. */
+function phoneRun(o: { userId: string; roundId: string; entryId: string; pilotName: string; task: unknown; secs: number }) {
+  const deviceId = `e2e-phone-${uuidv7()}`;
+  const t0 = Date.now() - 600_000;
+  let seq = 0;
+  const sessionId = uuidv7(), runId = uuidv7(), launchId = uuidv7();
+  const at = (ms: number, body: Record<string, unknown>, id = uuidv7()) => ({ id, runId, deviceId, seq: ++seq, stamp: { wallMs: ms, monoMs: ms, pageId: `page-${deviceId}`, offset: null }, body });
+  return {
+    deviceId,
+    sessions: [{ id: sessionId, ownerId: o.userId, fieldName: "Five Acre Meadow", conditions: { windMs: 3 }, startedAtWallMs: t0 - 60_000 }],
+    runs: [{ id: runId, sessionId, task: o.task, lanes: [{ lane: 0, pilotName: o.pilotName }], createdAtWallMs: t0 - 30_000, contest: { roundId: o.roundId, slots: [{ lane: 0, entryId: o.entryId }] } }],
+    events: [
+      at(t0, { kind: "window-start" }),
+      at(t0 + 1000, { kind: "launch", lane: 0 }, launchId),
+      at(t0 + 1000 + o.secs * 1000, { kind: "landing", lane: 0 }),
+      at(t0 + 2000 + o.secs * 1000, { kind: "penalty", lane: 0, points: 100, reason: "Launched during the no-fly time", cause: "outside-time", launchId }),
+      at(t0 + 3000 + o.secs * 1000, { kind: "signed", lane: 0 }),
+    ],
+  };
+}
+
+test("penalties one by one: the phone's on the results with its cause; an officer gives one on the round page, cannot type the phone's again, removes hers", async ({ page, baseURL }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const { contestId, round1 } = await insertTrialContest(db, { name: "Penalty Trial", startsOn: "2027-03-06", drawSeed: 6 });
+    const { rows: [ines] } = await db.query<{ id: string }>("select id from users where email = 'ines@example.com'");
+    const ids: Record<string, string> = {};
+    // invented pilots: two signed paper cards of task A (tenths); Tam is timed on Ines's phone (she keeps his time)
+    for (const [name, tenths] of [["Wren Albery", 1800], ["Sol Penhallow", 2000], ["Tam Ossory", null]] as const) {
+      const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [contestId, name]);
+      ids[name] = e!.id;
+      if (tenths === null) await db.query("insert into group_slots (round_id, group_number, entry_id, timekeeper_user_id) values ($1, 1, $2, $3)", [round1, e!.id, ines!.id]);
+      else await db.query("insert into group_slots (round_id, group_number, entry_id, paper_flights, signed_at, signed_from, recorded_at) values ($1, 1, $2, $3, now(), 'paper card', now())", [round1, e!.id, JSON.stringify([tenths])]);
+    }
+    const { rows: [round] } = await db.query<{ task: unknown }>("select task from contest_rounds where id = $1", [round1]);
+    await signInAs(page, "ines@example.com");
+    const pushed = await page.request.post("/api/sync/push", {
+      headers: sameOrigin(baseURL), data: phoneRun({ userId: ines!.id, roundId: round1, entryId: ids["Tam Ossory"]!, pilotName: "Tam Ossory", task: round!.task, secs: 150 }),
+    });
+    expect(pushed.status()).toBe(200);
+    expect(((await pushed.json()) as { acks: { status: string }[] }).acks.every((a) => a.status === "applied")).toBe(true);
+
+    // By hand (F3K.9.1, F3K.10): Sol 200.0 s = 1000.0; Wren 180.0/200.0 = 900.0; Tam 150.0/200.0 = 750.0 less the phone's 100 (F3K.9.5) = 650.0.
+    const total = (name: string) => page.getByRole("row").filter({ has: page.getByRole("rowheader", { name }) }).first().getByRole("cell").last();
+    await page.goto(`/contests/${contestId}/results`);
+    await expect(total("Tam Ossory")).toHaveText("650.0");
+    await expect(total("Wren Albery")).toHaveText("900.0");
+    await page.getByText("Penalties (1)").click();
+    const listed = page.getByRole("list", { name: "Penalties" });
+    await expect(listed).toContainText("Round 1, Tam Ossory: −100, Launched or flew outside the group's times (F3K.9.5)");
+    await expect(listed).toContainText("given on the timekeeper's phone by Ines Varga");
+
+    // The round page: the phone's penalty is listed; Ines gives Wren a penalty (300 by F3K.4.3).
+    await page.goto(`/contests/${contestId}/rounds/1`);
+    const section = page.getByRole("region", { name: "Penalties" });
+    await expect(section.getByRole("listitem", { name: "Penalty, Tam Ossory" })).toContainText("given on the timekeeper's phone by Ines Varga");
+    const form = page.getByRole("form", { name: "Give a penalty" });
+    // the choice of pilot shows the phone's penalties for that pilot once the page is interactive (a choice made before hydration is lost)
+    await expect(async () => {
+      await form.getByRole("combobox", { name: "Pilot", exact: true }).selectOption({ label: "Wren Albery (group 1)" });
+      await expect(form.getByText("No penalty from a timekeeper's phone for this pilot in this round.")).toBeVisible({ timeout: 1000 });
+    }).toPass();
+    await form.getByRole("combobox", { name: "For", exact: true }).selectOption({ label: "Model touched a person in a safety area (−300)" });
+    await form.getByLabel("Note (optional)").fill("Touched the helper in the launch area");
+    await form.getByRole("button", { name: "Give the penalty" }).click();
+    const wren = section.getByRole("listitem", { name: "Penalty, Wren Albery" });
+    await expect(wren).toContainText("Wren Albery: −300, Model touched a person in a safety area (F3K.4.3)");
+    await expect(wren).toContainText("given on the round page by Ines Varga");
+
+    // Typing the phone's penalty again is refused: it counts once.
+    await form.getByRole("combobox", { name: "Pilot", exact: true }).selectOption({ label: "Tam Ossory (group 1)" });
+    await expect(form.getByText("From the timekeeper's phone already: −100 Launched or flew outside the group's times (F3K.9.5).")).toBeVisible();
+    await form.getByRole("combobox", { name: "For", exact: true }).selectOption({ label: "Launched or flew outside the group's times (−100)" });
+    await form.getByRole("button", { name: "Give the penalty" }).click();
+    await expect(form.getByText("The timekeeper's phone already gave this pilot this penalty in this round; it counts once.", { exact: false })).toBeVisible();
+
+    // Results: Wren 900.0 − 300 = 600.0; Tam still 650.0 (no double count); each penalty listed with who.
+    await page.goto(`/contests/${contestId}/results`);
+    await expect(total("Wren Albery")).toHaveText("600.0");
+    await expect(total("Tam Ossory")).toHaveText("650.0");
+    await page.getByText("Penalties (2)").click();
+    await expect(listed).toContainText("Round 1, Wren Albery: −300, Model touched a person in a safety area (F3K.4.3)");
+
+    // Removed, saying why: struck through with who removed it; the total returns to 900.0.
+    await page.goto(`/contests/${contestId}/rounds/1`);
+    await wren.getByLabel("Why it is removed").fill("The helper was Wren's own caller");
+    await wren.getByRole("button", { name: "Remove" }).click();
+    await expect(wren).toContainText("removed by Ines Varga");
+    await expect(wren).toContainText("not counted (removed)");
+    await expect(wren.locator(".line-through")).toHaveCount(1);
+    await page.goto(`/contests/${contestId}/results`);
+    await expect(total("Wren Albery")).toHaveText("900.0");
+    await page.getByText("Penalties (2)").click();
+    await expect(listed).toContainText("removed by Ines Varga");
   } finally {
     await db.end();
   }
