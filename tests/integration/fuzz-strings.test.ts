@@ -7,6 +7,7 @@ import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
 import { insertSession } from "./support/records";
+import { replaced } from "./support/json-paths";
 import { rowCounter } from "./support/row-counts";
 
 /**
@@ -81,14 +82,6 @@ function stringPaths(v: unknown, at: (string | number)[] = []): (string | number
   if (Array.isArray(v)) return v.flatMap((x, i) => stringPaths(x, [...at, i]));
   if (v !== null && typeof v === "object") return Object.entries(v).flatMap(([k, x]) => stringPaths(x, [...at, k]));
   return [];
-}
-
-function replaced(v: unknown, at: (string | number)[], value: unknown): unknown {
-  if (at.length === 0) return value;
-  const [head, ...rest] = at;
-  const copy = (Array.isArray(v) ? [...v] : { ...(v as object) }) as Record<string | number, unknown>;
-  copy[head!] = replaced(copy[head!], rest, value);
-  return copy;
 }
 
 describe("fuzz: bad strings reach the writes", () => {

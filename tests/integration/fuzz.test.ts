@@ -11,6 +11,7 @@ import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
 import { webhookRequest } from "./support/payments";
 import { db, getPool } from "./support/db";
+import { replaced } from "./support/json-paths";
 import { rowCounter } from "./support/row-counts";
 
 /**
@@ -262,14 +263,6 @@ function paths(v: unknown, leaves: boolean, at: (string | number)[] = []): (stri
   if (Array.isArray(v)) v.forEach((x, i) => out.push(...paths(x, leaves, [...at, i])));
   else if (container) for (const [k, x] of Object.entries(v as object)) out.push(...paths(x, leaves, [...at, k]));
   return out;
-}
-
-function replaced(v: unknown, at: (string | number)[], value: unknown): unknown {
-  if (at.length === 0) return value;
-  const [head, ...rest] = at;
-  const copy = (Array.isArray(v) ? [...v] : { ...(v as object) }) as Record<string | number, unknown>;
-  copy[head!] = replaced(copy[head!], rest, value);
-  return copy;
 }
 
 /** What goes in a body: a valid body with one value replaced, or raw junk of any size. */
