@@ -32,6 +32,25 @@ export async function recordReflightRequests(tx: Executor, userId: string, event
   return added;
 }
 
+/**
+ * An undo on the phone (a `void` naming a `reflight` ruling) withdraws that ruling's request while it is still
+ * open, recorded with who undid it (the timekeeper who asked) and when (the phone's corrected time). A request the
+ * officer already decided stays as decided: the grant or dismissal is theirs. Called by the push after
+ * recordReflightRequests, so a ruling undone in the same push is withdrawn at once.
+ */
+export async function withdrawReflightRequests(tx: Executor, userId: string, voids: readonly RunEvent[]): Promise<number> {
+  let withdrawn = 0;
+  for (const e of voids) {
+    if (e.body.kind !== "void") continue;
+    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
+    const res = await tx.execute(sql`
+      update contest_reflight_requests set status = 'withdrawn', decided_by = ${userId}::uuid, decided_at = ${at.toISOString()}::timestamptz
+      where event_id = ${e.body.targetId}::uuid and asked_by = ${userId}::uuid and status = 'open'`);
+    withdrawn += res.rowCount ?? 0;
+  }
+  return withdrawn;
+}
+
 const asker = alias(users, "request_asker");
 const decider = alias(users, "request_decider");
 

@@ -6,7 +6,7 @@ import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
 import { holdDaysOfRuns } from "./club-day-locks";
-import { recordReflightRequests } from "./contest-reflight-requests";
+import { recordReflightRequests, withdrawReflightRequests } from "./contest-reflight-requests";
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { storeDerivations, type DeriveStats } from "./runs";
@@ -79,6 +79,8 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     const applied = new Set(ctx.acks.filter((a) => a.status === "applied").map((a) => a.id));
     const asks = req.events.filter((e) => e.body.kind === "reflight" && applied.has(e.id));
     if (asks.length > 0) await recordReflightRequests(tx, userId, asks);
+    const undos = req.events.filter((e) => e.body.kind === "void" && applied.has(e.id));
+    if (undos.length > 0) await withdrawReflightRequests(tx, userId, undos);
     const derive = [...load.runs.values()].filter((r) => added.has(r.id) || clock.movedRuns.has(r.id) || newRuns.includes(r.id));
     if (req.discards?.length) await applyDiscards(ctx, req.discards); // after the events: a run set up and deleted in one push goes too
     const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));

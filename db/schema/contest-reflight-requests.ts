@@ -4,7 +4,7 @@ import { contestEntries, contestRounds } from "./contests";
 import { contestReflights } from "./contest-reflights";
 import { users } from "./users";
 
-export type ReflightRequestStatus = "open" | "granted" | "dismissed";
+export type ReflightRequestStatus = "open" | "granted" | "dismissed" | "withdrawn";
 
 /**
  * A re-flight asked for on a timekeeper's phone: a `reflight` ruling event on a lane of a contest duty's

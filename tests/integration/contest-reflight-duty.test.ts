@@ -247,4 +247,23 @@ describe("a `reflight` ruling on the phone becomes a request the officer decides
     expect((await decide({ requestId: open.id, decision: "dismiss" })).status).toBe(200);
     expect((await requests()).find((r) => r.id === open.id)).toMatchObject({ status: "dismissed", decided_by: officer.id, reflight_id: null });
   });
+
+  it("an undo of the ruling on the phone withdraws its open request (who and when kept; nothing left to decide); a decided one stays decided", async () => {
+    actAs(keeper);
+    const ruling = phone.at(cyRun, T0 + 12_000, { kind: "reflight", lane: 0, cause: "rain", placement: "original-group" });
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [ruling] });
+    expect((await requests()).find((r) => r.status === "open")).toBeDefined();
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(cyRun, T0 + 14_000, { kind: "void", targetId: ruling.id })] });
+    const withdrawn = (await requests()).find((r) => r.cause === "rain" && r.asked_at.getTime() === T0 + 12_000)!;
+    expect(withdrawn).toMatchObject({ status: "withdrawn", decided_by: keeper.id, reflight_id: null });
+    expect((await requests()).filter((r) => r.status === "open")).toHaveLength(0);
+    actAs(officer);
+    expect((await decide({ requestId: withdrawn.id, decision: "dismiss" })).status).toBe(409);
+    // the request granted earlier: undoing its ruling on the phone now leaves the officer's grant as it is
+    const granted = (await requests()).find((r) => r.status === "granted")!;
+    const [grantedEvent] = (await getPool().query<{ event_id: string }>("select event_id from contest_reflight_requests where id = $1", [granted.id])).rows;
+    actAs(keeper);
+    await push({ deviceId: phone.id, sessions: [], runs: [], events: [phone.at(cyRun, T0 + 16_000, { kind: "void", targetId: grantedEvent!.event_id })] });
+    expect((await requests()).find((r) => r.id === granted.id)).toMatchObject({ status: "granted", decided_by: officer.id });
+  });
 });

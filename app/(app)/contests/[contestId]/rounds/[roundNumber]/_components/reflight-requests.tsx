@@ -6,9 +6,12 @@ import type { ReflightCause, ReflightPlacement } from "@/lib/events/schema";
 import { REFLIGHT_CAUSE_WORDS, REFLIGHT_PLACEMENT_WORDS } from "@/lib/field/ruling-words";
 import { formatClock } from "@/lib/format";
 
+/** As contest_reflight_requests.status: "withdrawn" when the timekeeper undid the ruling on the phone before anyone decided. */
+type ReflightRequestStatus = "open" | "granted" | "dismissed" | "withdrawn";
+
 export type ReflightRequestRow = {
   id: string; entryId: string; name: string; cause: ReflightCause; placement: ReflightPlacement; reason: string | null;
-  askedBy: string | null; askedAt: string; status: "open" | "granted" | "dismissed"; decidedBy: string | null; decidedAt: string | null;
+  askedBy: string | null; askedAt: string; status: ReflightRequestStatus; decidedBy: string | null; decidedAt: string | null;
 };
 
 /**
@@ -28,6 +31,10 @@ export function ReflightRequests(p: { contestId: string; roundKey: string; timeZ
   );
 }
 
+const DECIDED_WORDS: Record<Exclude<ReflightRequestStatus, "open">, string> = {
+  granted: "Granted", dismissed: "Dismissed", withdrawn: "Withdrawn on the phone (the ruling was undone)",
+};
+
 function RequestItem(p: { contestId: string; roundKey: string; timeZone: string; r: ReflightRequestRow; groupOf: Record<string, number> }) {
   const { r } = p;
   const { send, busy, error } = useSend();
@@ -46,7 +53,7 @@ function RequestItem(p: { contestId: string; roundKey: string; timeZone: string;
           <Button type="button" variant="danger" disabled={busy} onClick={() => void send("PUT", url, { requestId: r.id, decision: "dismiss" })}>Dismiss</Button>
         </div>
       ) : (
-        <p className="text-sm text-muted">{r.status === "granted" ? "Granted" : "Dismissed"} by {r.decidedBy ?? "a former officer"}{r.decidedAt ? ` at ${formatClock(new Date(r.decidedAt), p.timeZone, "short")}` : ""}.</p>
+        <p className="text-sm text-muted">{DECIDED_WORDS[r.status]} by {r.decidedBy ?? (r.status === "withdrawn" ? "a former timekeeper" : "a former officer")}{r.decidedAt ? ` at ${formatClock(new Date(r.decidedAt), p.timeZone, "short")}` : ""}.</p>
       )}
       <FormError message={error} />
     </li>
