@@ -51,6 +51,24 @@ export async function withdrawReflightRequests(tx: Executor, userId: string, voi
   return withdrawn;
 }
 
+/**
+ * When an officer links a run's lane to a pilot's slot by hand (contest-results.ts linkRun), the `reflight` rulings
+ * already stored on that lane become requests too (a ruling pushed before the link found no slot then): asked by
+ * whoever recorded the ruling, at its corrected time. A ruling undone on the phone (a `void` naming it) is left
+ * out; one request per event, as on the push.
+ */
+export async function requestsFromLinkedLane(tx: Executor, p: { roundId: string; entryId: string; runId: string; lane: number }): Promise<number> {
+  const res = await tx.execute(sql`
+    insert into contest_reflight_requests (round_id, entry_id, event_id, run_id, lane, cause, placement, reason, asked_by, asked_at)
+    select ${p.roundId}::uuid, ${p.entryId}::uuid, e.id, e.run_id, ${p.lane}::smallint, e.body ->> 'cause', e.body ->> 'placement', e.body ->> 'reason',
+      e.recorded_by, to_timestamp(e.corrected_ms / 1000.0)
+    from events e
+    where e.run_id = ${p.runId}::uuid and e.kind = 'reflight' and (e.body ->> 'lane')::int = ${p.lane}
+      and not exists (select 1 from events v where v.run_id = e.run_id and v.kind = 'void' and v.body ->> 'targetId' = e.id::text)
+    on conflict (event_id) do nothing`);
+  return res.rowCount ?? 0;
+}
+
 const asker = alias(users, "request_asker");
 const decider = alias(users, "request_decider");
 

@@ -8,6 +8,7 @@ import { listLinkableLanes } from "./contest-lanes";
 import { openDisputesOfRounds } from "./contest-disputes";
 import { officerPenaltiesOfRounds } from "./contest-penalties";
 import { reflightsOfRounds } from "./contest-reflights";
+import { requestsFromLinkedLane } from "./contest-reflight-requests";
 
 export type ResultsData = {
   contest: { id: string; name: string; startsOn: string; fieldName: string; dropRule: string; clubId: string; publicToken: string | null; flyOffPilots: number | null };
@@ -137,6 +138,7 @@ export async function linkRun(db: Database, p: {
       // another result needs its own signature (F3K.1.2)
       signedAt: null, signedFrom: null,
     }).where(eq(groupSlots.id, slot.id));
+    if (p.link) await requestsFromLinkedLane(tx, { roundId: p.roundId, entryId: p.entryId, ...p.link });
     return "linked";
   });
 }
