@@ -45,6 +45,8 @@ test("an officer records a dispute, the results mark it (public link too, no nam
     const list = page.getByRole("list", { name: "Disputes" });
     await expect(list.getByRole("listitem").first()).toContainText("Round 3, Cass Merriden: The second flight landed inside the working time but was not counted (open)");
     await expect(list).toContainText("Lodged by Team manager of Cass Merriden");
+    // when it was lodged and, apart, when an officer recorded it (club clock)
+    await expect(list.getByRole("listitem").first()).toContainText(/recorded by [^,]+ \d{1,2} \w{3}, \d{2}:\d{2}/);
     await expect(list.getByRole("listitem").nth(1)).toContainText("upheld by Ines Varga");
     await expect(list.getByRole("link", { name: "a re-flight granted" })).toHaveAttribute("href", `/contests/${demo!.id}/rounds/2#reflights-title`);
     // and the results mark Cass's round 3 (the third round column)

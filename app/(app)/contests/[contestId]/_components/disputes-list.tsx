@@ -4,7 +4,7 @@ import { roundKey, roundName } from "@/lib/contests/round-key";
 import { formatClock } from "@/lib/format";
 
 type Row = {
-  id: string; roundNumber: number; isFlyOff: boolean; name: string; subject: string; lodgedBy: string; lodgedAt: Date; recordedBy: string | null;
+  id: string; roundNumber: number; isFlyOff: boolean; name: string; subject: string; lodgedBy: string; lodgedAt: Date; recordedAt: Date; recordedBy: string | null;
   status: DisputeStatus; outcome: string | null; action: DisputeAction | null; resolvedBy: string | null; resolvedAt: Date | null;
 };
 
@@ -24,7 +24,7 @@ export function ContestDisputes({ contestId, zone, disputes }: { contestId: stri
                 <Link className="underline" href={`/contests/${contestId}/rounds/${roundKey(ref)}#disputes-title`}>{roundName(ref)}</Link>, {d.name}: {d.subject}
                 {" "}<span className="font-bold">({d.status})</span>
                 <span className="block text-sm text-muted">
-                  Lodged by {d.lodgedBy} {formatClock(d.lodgedAt, zone, "short")}, recorded by {d.recordedBy ?? "a former officer"}
+                  Lodged by {d.lodgedBy} {formatClock(d.lodgedAt, zone, "short")}, recorded by {d.recordedBy ?? "a former officer"} {formatClock(d.recordedAt, zone, "short")}
                   {d.status !== "open" && <>; {d.status} by {d.resolvedBy ?? "a former officer"} {d.resolvedAt ? formatClock(d.resolvedAt, zone, "short") : ""}: {d.outcome}</>}
                   {d.action && <> · {href ? <Link className="underline" href={href}>{DISPUTE_ACTION_WORDS[d.action]}</Link> : DISPUTE_ACTION_WORDS[d.action]}</>}
                 </span>
