@@ -2,7 +2,7 @@ import "./support/session";
 import { join } from "node:path";
 import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { clubs, coachGrants, contestReflightRequests, coachNotes, contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
+import { clubs, coachGrants, contestPenalties, contestReflightRequests, coachNotes, contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
@@ -25,11 +25,11 @@ afterAll(async () => {
 });
 
 type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
-type Method = "POST" | "PUT" | "PATCH";
+type Method = "POST" | "PUT" | "PATCH" | "DELETE";
 
 /** What one case writes on: a pilot the caller coaches; a club the caller is the only officer of, its drawn contest, the caller's model. */
 type Fixture = {
-  slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; requestId: string; modelId: string; buyerEmail: string;
+  slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; requestId: string; penaltyId: string; modelId: string; buyerEmail: string;
   /** a pilot who lets the caller coach them, a session of theirs and the caller's note on it */
   pilotId: string; sessionId: string; noteId: string;
 };
@@ -51,6 +51,10 @@ const CASES: Case[] = [
     body: (f) => ({ entryId: f.granted, flights: [900], runId: null, lane: null, signed: true }) },
   { method: "PUT", route: "/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests", params: round1, ok: 200,
     body: (f) => ({ requestId: f.requestId, decision: "grant", placement: "original-group", groupNumber: 2, entitled: true, reason: "Collision at launch" }) },
+  { method: "POST", route: "/api/contests/[contestId]/rounds/[roundNumber]/penalties", params: round1, ok: 201,
+    body: (f) => ({ entryId: f.entries[9], cause: "object-in-safety-area", points: 100, note: "Touched the flag line" }) },
+  { method: "DELETE", route: "/api/contests/[contestId]/rounds/[roundNumber]/penalties", params: round1, ok: 200,
+    body: (f) => ({ penaltyId: f.penaltyId, reason: "Given to the wrong pilot" }) },
   { method: "POST", route: "/api/contests/[contestId]/rounds/[roundNumber]/disputes", params: round1, ok: 201,
     body: (f) => ({ entryId: f.entries[4], subject: "The third flight was not counted", lodgedBy: "Team manager" }) },
   { method: "PUT", route: "/api/contests/[contestId]/rounds/[roundNumber]/disputes", params: round1, ok: 200,
@@ -108,6 +112,7 @@ describe("fuzz: bad strings reach the writes", () => {
     const [request] = await db.insert(contestReflightRequests).values({
       roundId: rounds[0]!.id, entryId: entries[7]!.id, eventId: uuidv7(), runId: uuidv7(), lane: 0, cause: "launch-collision", placement: "original-group", askedAt: new Date(),
     }).returning();
+    const [penalty] = await db.insert(contestPenalties).values({ roundId: rounds[0]!.id, entryId: entries[8]!.id, cause: "object-in-safety-area", points: 100, givenBy: me.id }).returning();
     const [model] = await db.insert(models).values({ ownerId: me.id, name: "Sweep glider", spanMm: 1490, massG: 250 }).returning();
     const buyerEmail = `sweep-buyer-${uuidv7()}@example.com`;
     await db.insert(users).values({ email: buyerEmail, name: "Sweep Buyer" });
@@ -116,7 +121,7 @@ describe("fuzz: bad strings reach the writes", () => {
     const sessionId = await insertSession(pilot!.id);
     const [note] = await db.insert(coachNotes).values({ sessionId, pilotId: pilot!.id, coachId: me.id, authorId: me.id, body: "First note" }).returning();
     return {
-      slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, requestId: request!.id, modelId: model!.id, buyerEmail,
+      slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, requestId: request!.id, penaltyId: penalty!.id, modelId: model!.id, buyerEmail,
       pilotId: pilot!.id, sessionId, noteId: note!.id,
     };
   }
