@@ -29,7 +29,7 @@ describe("seeded demo data", () => {
     });
   }
 
-  it("mara@example.com keeps time in round 1 of the demo contest: her pull's last page carries those groups", async () => {
+  it("mara@example.com keeps time in round 1 of the demo contest and for Bea's re-flight in round 2: her pull's last page carries those duties", async () => {
     actAs(await demoUser("mara@example.com"));
     let cursor: string | number = 0;
     for (let pages = 0; pages < 50; pages++) {
@@ -37,8 +37,11 @@ describe("seeded demo data", () => {
       if (body.hasMore) { cursor = body.nextCursor; continue; }
       const duties = pullReplySchema.parse(body).contestDuties ?? [];
       const cup = duties.filter((d) => d.contestName === "Heronmoor Winter Cup");
-      expect(cup.length).toBeGreaterThan(0);
-      for (const d of cup) {
+      const groups = cup.filter((d) => d.reflightId === undefined);
+      expect(groups.length).toBeGreaterThan(0);
+      // the seed's re-flight (db/seed/demo-reflights.ts): Bea flies round 2 again, timed by Mara
+      expect(cup.filter((d) => d.reflightId !== undefined).map((d) => [d.roundNumber, d.pilots.map((p) => p.name)])).toEqual([[2, ["Bea Quillfeather"]]]);
+      for (const d of groups) {
         expect(d.roundNumber).toBe(1);
         expect(d.pilots.length).toBeGreaterThan(0);
         expect(d.pilots.length).toBeLessThanOrEqual(4);
