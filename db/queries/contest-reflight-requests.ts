@@ -39,16 +39,14 @@ export async function recordReflightRequests(tx: Executor, userId: string, event
  * recordReflightRequests, so a ruling undone in the same push is withdrawn at once.
  */
 export async function withdrawReflightRequests(tx: Executor, userId: string, voids: readonly RunEvent[]): Promise<number> {
-  let withdrawn = 0;
-  for (const e of voids) {
-    if (e.body.kind !== "void") continue;
-    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
-    const res = await tx.execute(sql`
-      update contest_reflight_requests set status = 'withdrawn', decided_by = ${userId}::uuid, decided_at = ${at.toISOString()}::timestamptz
-      where event_id = ${e.body.targetId}::uuid and asked_by = ${userId}::uuid and status = 'open'`);
-    withdrawn += res.rowCount ?? 0;
-  }
-  return withdrawn;
+  const undone = voids.flatMap((e) => (e.body.kind === "void" ? [{ target: e.body.targetId, at: new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0)).toISOString() }] : []));
+  if (undone.length === 0) return 0;
+  // one statement for the push's undos, whatever their number (most name a flight, not a ruling: they match nothing)
+  const res = await tx.execute(sql`
+    update contest_reflight_requests q set status = 'withdrawn', decided_by = ${userId}::uuid, decided_at = u.at
+    from unnest(${sql.param(undone.map((u) => u.target))}::uuid[], ${sql.param(undone.map((u) => u.at))}::timestamptz[]) as u(target, at)
+    where q.event_id = u.target and q.asked_by = ${userId}::uuid and q.status = 'open'`);
+  return res.rowCount ?? 0;
 }
 
 /**
