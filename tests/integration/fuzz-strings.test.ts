@@ -4,11 +4,13 @@ import { v7 as uuidv7 } from "uuid";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { clubs, coachGrants, contestPenalties, contestReflightRequests, coachNotes, contestDisputes, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, models, users } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks";
+import type { PushReply } from "@/lib/validations/sync";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
 import { insertSession } from "./support/records";
 import { replaced } from "./support/json-paths";
 import { rowCounter } from "./support/row-counts";
+import { recorder, run, session, T0 } from "./sync-fixtures";
 
 /**
  * The random fuzz (fuzz.test.ts) rarely puts a NUL exactly where a valid body would otherwise be written: most of
@@ -17,7 +19,8 @@ import { rowCounter } from "./support/row-counts";
  * - the valid body is a 2xx (so the sweep is known to reach the writes: if it stops being one, this test says so);
  * - every string in it, replaced by a NUL, a lone surrogate or 5,000 characters, is a 2xx or a 4xx with a
  *   message, never a 5xx; a 4xx writes nothing (row counts of every table before and after).
- * A NUL in a re-flight's reason once answered 500 here (PostgreSQL's text cannot hold U+0000).
+ * A NUL in a re-flight's reason once answered 500 here (PostgreSQL's text cannot hold U+0000). The phone's push
+ * answers 200 with a verdict per item: there, the item holding the bad string must be the one refused.
  */
 
 afterAll(async () => {
@@ -31,10 +34,11 @@ type Method = "POST" | "PUT" | "PATCH" | "DELETE";
 type Fixture = {
   slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; requestId: string; penaltyId: string; modelId: string; buyerEmail: string;
   /** a pilot who lets the caller coach them, a session of theirs and the caller's note on it */
-  pilotId: string; sessionId: string; noteId: string;
+  pilotId: string; pilotEmail: string; sessionId: string; noteId: string;
 };
 
-type Case = { method: Method; route: string; params: (f: Fixture) => Record<string, string>; body: (f: Fixture) => unknown; ok: number };
+/** `as: "pilot"` sends as the fixture's pilot (a fresh account each time, so the push limit of 120 a minute is never what answers). */
+type Case = { method: Method; route: string; params: (f: Fixture) => Record<string, string>; body: (f: Fixture) => unknown; ok: number; as?: "pilot" };
 
 const contest = (f: Fixture, more: Record<string, string> = {}) => ({ contestId: f.contestId, ...more });
 const round1 = (f: Fixture) => contest(f, { roundNumber: "1" });
@@ -76,7 +80,32 @@ CASES.push(
   { method: "POST", route: "/api/notes/[noteId]/replies", params: (f) => ({ noteId: f.noteId }), ok: 201, body: () => ({ body: "And watch the turnaround." }) },
   { method: "POST", route: "/api/coach/plans", params: () => ({}), ok: 201,
     body: (f) => ({ pilotId: f.pilotId, title: "Turnarounds", items: [{ letter: "H", variant: 600, goal: "three 1-2-3-4 windows", windows: 3, measure: { kind: "median-turnaround-below", seconds: 3 } }] }) },
+  // a phone's push: a bad string in an item is that item's "rejected" verdict (200), in the envelope a 422; never stored
+  { method: "POST", route: "/api/sync/push", params: () => ({}), ok: 200, as: "pilot", body: pushBody },
 );
+
+type PushBody = ReturnType<typeof pushBody>;
+
+/** A push answered 200 with a bad string inside an item: that item is refused, with a reason; the rest of the batch may apply (SYNC.md §3). */
+async function expectItemRejected(res: Response, sent: PushBody, at: (string | number)[], where: string): Promise<void> {
+  const [list, index] = at as [keyof PushBody, number];
+  const item = (sent[list] as { id: string }[])[index]!;
+  const { acks } = (await res.clone().json()) as PushReply;
+  const ack = acks.find((a) => a.id === item.id);
+  expect(ack?.status, `${where}: the item's verdict`).toBe("rejected");
+  expect(ack?.reason, `${where}: a refused item says why`).toBeTruthy();
+}
+
+/** A phone's first push of a practice window: the session, the run (a catalogue task, the pilot on lane 0) and a flight with a penalty and a re-flight ruling. */
+function pushBody(f: Fixture) {
+  const phone = recorder(`sweep-phone-${uuidv7()}`);
+  const s = session(f.pilotId, { conditions: { windMs: 3, notes: "Gusty from the west" } });
+  const r = run(s.id, [{ lane: 0, pilotName: "Sweep Pilot", pilotUserId: f.pilotId }], getCatalogueTask("B"));
+  const [launch, landing] = phone.flights(r.id, 0, [75], T0);
+  const penalty = phone.at(r.id, T0 + 80_000, { kind: "penalty", lane: 0, points: 100, reason: "Landed over the flag line", cause: "object-in-safety-area", launchId: launch!.id });
+  const ruling = phone.at(r.id, T0 + 90_000, { kind: "reflight", lane: 0, cause: "rain", placement: "later-group", reason: "Shower over the line" });
+  return { deviceId: phone.id, sessions: [s], runs: [r], events: [launch, landing, penalty, ruling] };
+}
 
 const BAD_STRINGS: [string, string][] = [["a NUL", "a\u0000b"], ["a lone surrogate", "\ud800x"], ["5,000 characters", "x".repeat(5000)]];
 
@@ -116,19 +145,20 @@ describe("fuzz: bad strings reach the writes", () => {
     const [model] = await db.insert(models).values({ ownerId: me.id, name: "Sweep glider", spanMm: 1490, massG: 250 }).returning();
     const buyerEmail = `sweep-buyer-${uuidv7()}@example.com`;
     await db.insert(users).values({ email: buyerEmail, name: "Sweep Buyer" });
-    const [pilot] = await db.insert(users).values({ email: `sweep-pilot-${uuidv7()}@example.com`, name: "Sweep Pilot" }).returning();
+    const pilotEmail = `sweep-pilot-${uuidv7()}@example.com`;
+    const [pilot] = await db.insert(users).values({ email: pilotEmail, name: "Sweep Pilot" }).returning();
     await db.insert(coachGrants).values({ pilotId: pilot!.id, coachId: me.id });
     const sessionId = await insertSession(pilot!.id);
     const [note] = await db.insert(coachNotes).values({ sessionId, pilotId: pilot!.id, coachId: me.id, authorId: me.id, body: "First note" }).returning();
     return {
       slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, requestId: request!.id, penaltyId: penalty!.id, modelId: model!.id, buyerEmail,
-      pilotId: pilot!.id, sessionId, noteId: note!.id,
+      pilotId: pilot!.id, pilotEmail, sessionId, noteId: note!.id,
     };
   }
 
   async function send(c: Case, f: Fixture, body: unknown): Promise<Response> {
     const mod = (await import(join(process.cwd(), "app", c.route, "route.ts"))) as Partial<Record<Method, Handler>>;
-    actAs(me);
+    actAs(c.as === "pilot" ? { id: f.pilotId, email: f.pilotEmail, name: "Sweep Pilot", role: "member" } : me);
     const request = new Request(`http://test${c.route}`, { method: c.method, body: JSON.stringify(body), headers: { "content-type": "application/json" } });
     return mod[c.method]!(request, { params: Promise.resolve(c.params(f)) });
   }
@@ -144,9 +174,11 @@ describe("fuzz: bad strings reach the writes", () => {
       for (const [what, value] of BAD_STRINGS) {
         const f = await fixture();
         const before = await countAll();
-        const res = await send(c, f, replaced(c.body(f), at, value));
+        const sent = replaced(c.body(f), at, value);
+        const res = await send(c, f, sent);
         const where = `${c.method} ${c.route} with ${what} at ${at.join(".")}`;
         expect(res.status, `${where} answered ${res.status}`).toBeLessThan(500);
+        if (c.route === "/api/sync/push" && res.status === 200) await expectItemRejected(res, sent as PushBody, at, where);
         if (res.status >= 400) {
           expect(await countAll(), `${where} answered ${res.status} but wrote`).toBe(before);
           const reply = (await res.json()) as { error?: { message?: unknown } };
