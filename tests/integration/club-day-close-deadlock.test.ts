@@ -103,4 +103,50 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     const left = await db.execute<{ id: string }>(sql`select id from runs where id in (${unstarted.id}::uuid, ${flown.id}::uuid)`);
     expect(left.rows.map((r) => r.id)).toEqual([flown.id]);
   }, 30_000);
+
+  it("a push of events into a run at the day's field waits for the day before it locks the run (the close's order)", async () => {
+    const day = "2026-07-12";
+    const officer = await freshUser("close-order");
+    const [club] = await db.insert(clubs).values({ name: "Order Club", slug: `order-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
+    await db.insert(memberships).values({ clubId: club!.id, userId: officer.id, role: "officer" });
+    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Order Meadow" }).returning();
+    const opened = await openClubDay(db, { clubId: club!.id, fieldId: field!.id, day, userId: officer.id });
+    if (!opened || opened === "closed") throw new Error("the day did not open");
+    const startMs = Date.parse(`${day}T10:00:00Z`);
+    const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
+    const s = { ...session(officer.id, { fieldName: "Order Meadow" }), startedAtWallMs: startMs - 120_000 };
+    const lanes = [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }];
+    const flown = { ...run(s.id, lanes, getCatalogueTask("H")), createdAtWallMs: startMs - 60_000 };
+    const first = await applyPush(db, officer.id, { deviceId: phone.id, sessions: [s], runs: [flown], events: [phone.at(flown.id, startMs, { kind: "window-start" })] });
+    expect(first.acks.every((a) => a.status === "applied")).toBe(true);
+
+    const closingTx = pauseAfterFirstStatement();
+    const closing = closeClubDay(closingTx.db, { clubId: club!.id, day, userId: officer.id });
+    await closingTx.locked; // the close holds its day row FOR UPDATE, not yet its runs
+    const pushed = applyPush(db, officer.id, { deviceId: phone.id, sessions: [], runs: [], events: phone.flights(flown.id, 0, [45], startMs + 5_000) });
+    expect(await settledOrWaiting(pushed)).toBe("waiting"); // for the day
+    // while it waits for the day, the push must not hold the run it writes: the close will take that run's key next
+    // (with the order swapped, the push would hold the run FOR NO KEY UPDATE here and this NOWAIT would fail)
+    const probe = await getPool().connect();
+    let runFree: string;
+    try {
+      await probe.query("begin");
+      runFree = await probe.query("select id from runs where id = $1 for no key update nowait", [flown.id]).then(
+        () => "free",
+        (e: { message?: string }) => `held: ${e.message}`,
+      );
+    } finally {
+      await probe.query("rollback");
+      probe.release();
+    }
+    closingTx.release();
+    const [closed, reply] = await Promise.allSettled([closing, pushed]);
+    expect(runFree).toBe("free");
+    expect(closed.status).toBe("fulfilled");
+    expect(reply.status).toBe("fulfilled");
+    // the close kept the run; the push's events arrived after it (the day's result stays as closed)
+    const kept = await db.execute<{ run_id: string }>(sql`
+      select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club!.id}`);
+    expect(kept.rows.map((r) => r.run_id)).toEqual([flown.id]);
+  }, 30_000);
 });
