@@ -24,6 +24,11 @@ const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
 /** The same, per lane in a select list: one hashed look-up of the drawn runs instead of a scan of the draw per lane. */
 const contestColumn = sql`coalesce(r.id in (select g.run_id from group_slots g where g.run_id is not null), false)`;
 
+/** No filter at all: the pilot's whole season (what the per-pilot tables kept for it, such as season_week_turnarounds, hold). */
+export function isUnfiltered(f: SeasonFilters): boolean {
+  return !f.from && !f.to && !f.task && !f.field && !f.model && (f.kind ?? "all") === "all";
+}
+
 /** The filters as a SQL condition on `r` (runs), `s` (field_sessions) and `l` (run_lanes); dates are UTC calendar days, both ends included. */
 function filterWhere(f: SeasonFilters): SQL {
   const parts: SQL[] = [sql`true`];

@@ -3,7 +3,7 @@ import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { DURATION_BIN_SEC as BIN_SEC, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
+import { DURATION_BIN_SEC as BIN_SEC, isUnfiltered, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
 
 /** A day as the summary prints it (weeks, months, bests). */
 const day = (column: SQL) => sql`to_char(${column}, 'YYYY-MM-DD')`;
@@ -32,13 +32,19 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
   const [lastStart, nextStart] = [-1, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
   const res = await db.execute<{ summary: string }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
-    weekly_turnaround as (
+    weekly_turnaround as (${isUnfiltered(params.filters)
+      // the whole season: each week's count, median and 90th percentile as PostgreSQL keeps them (season_week_turnarounds,
+      // worked out by the same percentile_cont at every write), instead of a sort of every turnaround of the season
+      ? sql`
+      select week, turnarounds as count, round(median_ms / 100)::int as median, round(p90_ms / 100)::int as p90
+      from season_week_turnarounds where pilot_user_id = ${params.pilotId}`
+      : sql`
       select week, cardinality(turnarounds) as count, round(p[1] / 100)::int as median, round(p[2] / 100)::int as p90
       from (select week, turnarounds, (select percentile_cont(array[0.5, 0.9]) within group (order by x) from unnest(turnarounds) x) as p
         -- each week's turnarounds gathered in one hashed pass (an array, its percentiles taken from 53 small arrays
         -- instead of sorting every flight by week); OFFSET 0: the percentiles once per week (pulled up, the
         -- sub-select ran once for each of p[1] and p[2])
-        from (select week, array_agg(turnaround_ms) as turnarounds from season_turnarounds group by week) t offset 0) w
+        from (select week, array_agg(turnaround_ms) as turnarounds from season_turnarounds group by week) t offset 0) w`}
     ), month_starts as (
       select date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC' as this,
         (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
