@@ -130,15 +130,18 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
         from season_lanes sl where ${laneWhere}
       ) f
       where ${where}`;
+    // without any filter the summary reads the weekly turnarounds from season_week_turnarounds: the lanes carry no
+    // turnaround array then (less to store and scan in season_lanes) and there is no season_turnarounds
+    const weeklyKept = isUnfiltered(f);
     return sql`
-    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec, l.season_turnaround_ms, l.season_duration_bins`)}
+    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec, ${weeklyKept ? sql`` : sql`l.season_turnaround_ms, `}l.season_duration_bins`)}
     ), season_flights as not materialized (${unnested(sql`true`, sql`true`)}
     ), season_target_flights as not materialized (${unnested(sql`sl.season_target_sec is not null`, sql`f.target_sec is not null`)}
-    ), season_turnarounds as not materialized (
+    ), ${weeklyKept ? sql`` : sql`season_turnarounds as not materialized (
       -- each lane's turnarounds as PostgreSQL keeps them (run_lanes.season_turnaround_ms: the ground times that are
       -- known and not negative), none in a task launched on signals: isTurnaround, applied per lane instead of per flight
       select sl.week, unnest(sl.season_turnaround_ms) as turnaround_ms from season_lanes sl where not sl.flights_on_signal
-    ), season_durations as not materialized (
+    ), `}season_durations as not materialized (
       -- the histogram from each lane's bin counts (run_lanes.season_duration_bins), summed bin by bin in one pass over the lanes
       select unnest(array[${sql.join(Array.from({ length: LAST_DURATION_BIN + 1 }, (_, i) => sql`sum(sl.season_duration_bins[${sql.raw(String(i + 1))}])`), sql`, `)}])::int as flights,
         generate_series(0, ${sql.raw(String(LAST_DURATION_BIN))}) as bin

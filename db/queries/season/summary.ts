@@ -28,8 +28,11 @@ type SummaryParams = { pilotId: string; filters: SeasonFilters; now: Date };
  */
 export async function getSeasonSummaryJson(db: Database, params: SummaryParams): Promise<string> {
   const now = params.now.toISOString();
-  // the start of last month and of next month (UTC), as month_starts works them out: the months' flights are read from their lanes only
-  const [lastStart, nextStart] = [-1, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
+  // the start of last month, this month and next month (UTC), as month_starts works them out: the months' lanes and
+  // flights are picked by these constants (one range test per lane, not six with interval arithmetic)
+  const [lastStart, thisStart, nextStart] = [-1, 0, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
+  const inMonth = (column: SQL, m: "this" | "last") => (m === "this" ? sql`${column} >= ${thisStart}::timestamptz` : sql`${column} < ${thisStart}::timestamptz`);
+  const inMonths = (column: SQL) => sql`${column} >= ${lastStart}::timestamptz and ${column} < ${nextStart}::timestamptz`;
   const res = await db.execute<{ summary: string }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
     weekly_turnaround as (${isUnfiltered(params.filters)
@@ -50,18 +53,18 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
         (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
     ), month_lanes as (
       -- this month and last month in one pass over the lanes, and one over the flights
-      select ${sql.join(["this", "last"].map((m) => {
-        const within = sql.raw(`sl.created_at >= ms.${m} and sl.created_at < ms.${m} + interval '1 month'`);
+      select ${sql.join((["this", "last"] as const).map((m) => {
+        const within = inMonth(sql`sl.created_at`, m);
         return sql`count(*) filter (where ${within})::int as ${sql.identifier(`${m}_runs`)},
           coalesce(sum(sl.flight_count) filter (where ${within}), 0)::int as ${sql.identifier(`${m}_flights`)},
           avg(${shareOf}) filter (where ${within}) as ${sql.identifier(`${m}_share`)}`;
       }), sql`, `)}
-      from season_lanes sl, month_starts ms
+      from season_lanes sl where ${inMonths(sql`sl.created_at`)}
     ), month_flights as (
-      select ${sql.join(["this", "last"].map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
-          filter (where ${sql.raw(`f.created_at >= ms.${m} and f.created_at < ms.${m} + interval '1 month'`)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
-      from season_flights f, month_starts ms
-      where f.turnaround_ms is not null and f.created_at >= ${lastStart}::timestamptz and f.created_at < ${nextStart}::timestamptz
+      select ${sql.join((["this", "last"] as const).map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
+          filter (where ${inMonth(sql`f.created_at`, m)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
+      from season_flights f
+      where f.turnaround_ms is not null and ${inMonths(sql`f.created_at`)}
     ), weekly_lanes as (
       select sl.week, count(*)::int as windows, sum(sl.flight_count)::int as launches, count(sl.lost_tenths)::int as with_lost,
         ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)}) filter (where sl.lost_tenths is not null)::int as ${sql.identifier(k)}`), sql`, `)},
@@ -72,7 +75,7 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
       'models', coalesce((select json_agg(json_build_object('id', m.id, 'name', m.name) order by m.name, m.id) from models m where m.owner_id = ${params.pilotId}), '[]'),
       'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
       'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(flight_count), 0)::int) from season_lanes),
-      'months', (select json_build_object(${sql.join(["this", "last"].map((m) => sql`${m}::text, json_build_object('start', ${day(sql.raw(`ms.${m} at time zone 'UTC'`))},
+      'months', (select json_build_object(${sql.join((["this", "last"] as const).map((m) => sql`${m}::text, json_build_object('start', ${day(sql.raw(`ms.${m} at time zone 'UTC'`))},
           'runs', l.${sql.identifier(`${m}_runs`)}, 'flights', l.${sql.identifier(`${m}_flights`)}, 'share', l.${sql.identifier(`${m}_share`)},
           'turnaroundTenths', f.${sql.identifier(`${m}_turnaround`)})`), sql`, `)}) from month_starts ms, month_lanes l, month_flights f),
       'bests', coalesce((select json_agg(b order by b.task) from (
