@@ -65,7 +65,8 @@ function filterWhere(f: SeasonFilters): SQL {
  * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
  * the one definition), else null; `ground_ms` stays the stored ground time.
  * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target;
- * `season_turnarounds` (week, turnaround_ms) each counted turnaround; `season_durations` (bin, flights) the landed
+ * `season_turnarounds` (week, turnaround_ms) each counted turnaround (absent from the lean summary without filters, which
+ * reads each week's numbers from season_week_turnarounds, db/schema/season-weeks.ts); `season_durations` (bin, flights) the landed
  * flights per duration bin (DURATION_BIN_SEC), from run_lanes' stored per-lane aggregates when `lean`.
  * `lean` (the summary, db/queries/season/summary.ts): without a model filter, the flights come from the arrays
  * PostgreSQL generates on each lane (run_lanes.season_ground_ms, season_landed_tenths, season_target_sec), unnested
