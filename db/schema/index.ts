@@ -20,3 +20,4 @@ export * from "./contest-reflights";
 export * from "./contest-disputes";
 export * from "./contest-reflight-requests";
 export * from "./contest-penalties";
+export * from "./season-weeks";

@@ -58,7 +58,7 @@ export const runs = pgTable(
     serverSeq: bigint("server_seq", { mode: "number" }).notNull().default(nextSeq),
     xid: writtenByXact(),
   },
-  (t) => [index("runs_plan_id_idx").on(t.planId), index("runs_session_id_idx").on(t.sessionId), index("runs_created_by_idx").on(t.createdBy), index("runs_server_seq_idx").on(t.serverSeq), index("runs_xid_seq_idx").on(t.xid, t.serverSeq)],
+  (t) => [index("runs_plan_id_idx").on(t.planId), index("runs_session_id_idx").on(t.sessionId), index("runs_created_by_idx").on(t.createdBy), index("runs_created_at_idx").on(t.createdAt), index("runs_server_seq_idx").on(t.serverSeq), index("runs_xid_seq_idx").on(t.xid, t.serverSeq)],
 );
 
 /** A pilot in a run, and the server's official result for them, derived from the events. */

@@ -11,6 +11,7 @@ import { runResult } from "@/lib/results";
 import { getCatalogueTask, parseTaskDefinition, type TaskLetter } from "@/lib/tasks";
 import { db, getPool } from "./support/db";
 import { laneAggregatesBeside } from "./support/season-lane-aggregates";
+import { weekTurnaroundsBeside } from "./support/season-week-turnarounds";
 import { createSimUsers } from "./sync-sim";
 import { deviceId, recorder, run, session, T0 } from "./sync-fixtures";
 
@@ -130,6 +131,9 @@ describe("derivation per push equals derivation from scratch (property)", () => 
               for (const l of await flightsBesideJson(r.id)) {
                 expect([l.rows, l.arrays, l.aggregates], `lane ${l.lane}`).toEqual([l.rowsFromJson, l.arraysFromJson, l.aggregatesFromRows]);
               }
+              // Ada's weekly turnarounds (season_week_turnarounds, kept by triggers) follow every push
+              const weeks = await weekTurnaroundsBeside([ada!.id]);
+              expect(weeks.stored).toEqual(weeks.fromFlights);
             }
           }
         },

@@ -24,6 +24,11 @@ const contest = sql`exists (select 1 from group_slots g where g.run_id = r.id)`;
 /** The same, per lane in a select list: one hashed look-up of the drawn runs instead of a scan of the draw per lane. */
 const contestColumn = sql`coalesce(r.id in (select g.run_id from group_slots g where g.run_id is not null), false)`;
 
+/** No filter at all: the pilot's whole season (what the per-pilot tables kept for it, such as season_week_turnarounds, hold). */
+export function isUnfiltered(f: SeasonFilters): boolean {
+  return !f.from && !f.to && !f.task && !f.field && !f.model && (f.kind ?? "all") === "all";
+}
+
 /** The filters as a SQL condition on `r` (runs), `s` (field_sessions) and `l` (run_lanes); dates are UTC calendar days, both ends included. */
 function filterWhere(f: SeasonFilters): SQL {
   const parts: SQL[] = [sql`true`];
@@ -60,7 +65,8 @@ function filterWhere(f: SeasonFilters): SQL {
  * Each flight carries `turnaround_ms`: its ground time where it counts as turnaround (turnaround.ts,
  * the one definition), else null; `ground_ms` stays the stored ground time.
  * Each flight also carries `landed` (it has a landing); `season_target_flights` holds the flights with a target;
- * `season_turnarounds` (week, turnaround_ms) each counted turnaround; `season_durations` (bin, flights) the landed
+ * `season_turnarounds` (week, turnaround_ms) each counted turnaround (absent from the lean summary without filters, which
+ * reads each week's numbers from season_week_turnarounds, db/schema/season-weeks.ts); `season_durations` (bin, flights) the landed
  * flights per duration bin (DURATION_BIN_SEC), from run_lanes' stored per-lane aggregates when `lean`.
  * `lean` (the summary, db/queries/season/summary.ts): without a model filter, the flights come from the arrays
  * PostgreSQL generates on each lane (run_lanes.season_ground_ms, season_landed_tenths, season_target_sec), unnested
@@ -125,15 +131,18 @@ export function seasonScope(pilotId: string, f: SeasonFilters, opts: { lean?: bo
         from season_lanes sl where ${laneWhere}
       ) f
       where ${where}`;
+    // without any filter the summary reads the weekly turnarounds from season_week_turnarounds: the lanes carry no
+    // turnaround array then (less to store and scan in season_lanes) and there is no season_turnarounds
+    const weeklyKept = isUnfiltered(f);
     return sql`
-    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec, l.season_turnaround_ms, l.season_duration_bins`)}
+    with season_lanes as materialized (${lanes(sql`l.season_flight_count`, sql`, l.season_ground_ms, l.season_landed_tenths, l.season_target_sec, ${weeklyKept ? sql`` : sql`l.season_turnaround_ms, `}l.season_duration_bins`)}
     ), season_flights as not materialized (${unnested(sql`true`, sql`true`)}
     ), season_target_flights as not materialized (${unnested(sql`sl.season_target_sec is not null`, sql`f.target_sec is not null`)}
-    ), season_turnarounds as not materialized (
+    ), ${weeklyKept ? sql`` : sql`season_turnarounds as not materialized (
       -- each lane's turnarounds as PostgreSQL keeps them (run_lanes.season_turnaround_ms: the ground times that are
       -- known and not negative), none in a task launched on signals: isTurnaround, applied per lane instead of per flight
       select sl.week, unnest(sl.season_turnaround_ms) as turnaround_ms from season_lanes sl where not sl.flights_on_signal
-    ), season_durations as not materialized (
+    ), `}season_durations as not materialized (
       -- the histogram from each lane's bin counts (run_lanes.season_duration_bins), summed bin by bin in one pass over the lanes
       select unnest(array[${sql.join(Array.from({ length: LAST_DURATION_BIN + 1 }, (_, i) => sql`sum(sl.season_duration_bins[${sql.raw(String(i + 1))}])`), sql`, `)}])::int as flights,
         generate_series(0, ${sql.raw(String(LAST_DURATION_BIN))}) as bin

@@ -3,7 +3,7 @@ import { sql, type SQL } from "drizzle-orm";
 import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
-import { DURATION_BIN_SEC as BIN_SEC, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
+import { DURATION_BIN_SEC as BIN_SEC, isUnfiltered, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
 
 /** A day as the summary prints it (weeks, months, bests). */
 const day = (column: SQL) => sql`to_char(${column}, 'YYYY-MM-DD')`;
@@ -28,34 +28,43 @@ type SummaryParams = { pilotId: string; filters: SeasonFilters; now: Date };
  */
 export async function getSeasonSummaryJson(db: Database, params: SummaryParams): Promise<string> {
   const now = params.now.toISOString();
-  // the start of last month and of next month (UTC), as month_starts works them out: the months' flights are read from their lanes only
-  const [lastStart, nextStart] = [-1, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
+  // the start of last month, this month and next month (UTC), as month_starts works them out: the months' lanes and
+  // flights are picked by these constants (one range test per lane, not six with interval arithmetic)
+  const [lastStart, thisStart, nextStart] = [-1, 0, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
+  const inMonth = (column: SQL, m: "this" | "last") => (m === "this" ? sql`${column} >= ${thisStart}::timestamptz` : sql`${column} < ${thisStart}::timestamptz`);
+  const inMonths = (column: SQL) => sql`${column} >= ${lastStart}::timestamptz and ${column} < ${nextStart}::timestamptz`;
   const res = await db.execute<{ summary: string }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
-    weekly_turnaround as (
+    weekly_turnaround as (${isUnfiltered(params.filters)
+      // the whole season: each week's count, median and 90th percentile as PostgreSQL keeps them (season_week_turnarounds,
+      // worked out by the same percentile_cont at every write), instead of a sort of every turnaround of the season
+      ? sql`
+      select week, turnarounds as count, round(median_ms / 100)::int as median, round(p90_ms / 100)::int as p90
+      from season_week_turnarounds where pilot_user_id = ${params.pilotId}`
+      : sql`
       select week, cardinality(turnarounds) as count, round(p[1] / 100)::int as median, round(p[2] / 100)::int as p90
       from (select week, turnarounds, (select percentile_cont(array[0.5, 0.9]) within group (order by x) from unnest(turnarounds) x) as p
         -- each week's turnarounds gathered in one hashed pass (an array, its percentiles taken from 53 small arrays
         -- instead of sorting every flight by week); OFFSET 0: the percentiles once per week (pulled up, the
         -- sub-select ran once for each of p[1] and p[2])
-        from (select week, array_agg(turnaround_ms) as turnarounds from season_turnarounds group by week) t offset 0) w
+        from (select week, array_agg(turnaround_ms) as turnarounds from season_turnarounds group by week) t offset 0) w`}
     ), month_starts as (
       select date_trunc('month', ${now}::timestamptz at time zone 'UTC') at time zone 'UTC' as this,
         (date_trunc('month', ${now}::timestamptz at time zone 'UTC') - interval '1 month') at time zone 'UTC' as last
     ), month_lanes as (
       -- this month and last month in one pass over the lanes, and one over the flights
-      select ${sql.join(["this", "last"].map((m) => {
-        const within = sql.raw(`sl.created_at >= ms.${m} and sl.created_at < ms.${m} + interval '1 month'`);
+      select ${sql.join((["this", "last"] as const).map((m) => {
+        const within = inMonth(sql`sl.created_at`, m);
         return sql`count(*) filter (where ${within})::int as ${sql.identifier(`${m}_runs`)},
           coalesce(sum(sl.flight_count) filter (where ${within}), 0)::int as ${sql.identifier(`${m}_flights`)},
           avg(${shareOf}) filter (where ${within}) as ${sql.identifier(`${m}_share`)}`;
       }), sql`, `)}
-      from season_lanes sl, month_starts ms
+      from season_lanes sl where ${inMonths(sql`sl.created_at`)}
     ), month_flights as (
-      select ${sql.join(["this", "last"].map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
-          filter (where ${sql.raw(`f.created_at >= ms.${m} and f.created_at < ms.${m} + interval '1 month'`)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
-      from season_flights f, month_starts ms
-      where f.turnaround_ms is not null and f.created_at >= ${lastStart}::timestamptz and f.created_at < ${nextStart}::timestamptz
+      select ${sql.join((["this", "last"] as const).map((m) => sql`round(percentile_cont(0.5) within group (order by f.turnaround_ms)
+          filter (where ${inMonth(sql`f.created_at`, m)}) / 100)::int as ${sql.identifier(`${m}_turnaround`)}`), sql`, `)}
+      from season_flights f
+      where f.turnaround_ms is not null and ${inMonths(sql`f.created_at`)}
     ), weekly_lanes as (
       select sl.week, count(*)::int as windows, sum(sl.flight_count)::int as launches, count(sl.lost_tenths)::int as with_lost,
         ${sql.join(LOST_PARTS.map((k) => sql`sum(sl.${sql.identifier(k)}) filter (where sl.lost_tenths is not null)::int as ${sql.identifier(k)}`), sql`, `)},
@@ -66,7 +75,7 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
       'models', coalesce((select json_agg(json_build_object('id', m.id, 'name', m.name) order by m.name, m.id) from models m where m.owner_id = ${params.pilotId}), '[]'),
       'fields', coalesce((select json_agg(distinct s.field_name order by s.field_name) from field_sessions s where s.owner_id = ${params.pilotId}), '[]'),
       'totals', (select json_build_object('runs', count(*)::int, 'flights', coalesce(sum(flight_count), 0)::int) from season_lanes),
-      'months', (select json_build_object(${sql.join(["this", "last"].map((m) => sql`${m}::text, json_build_object('start', ${day(sql.raw(`ms.${m} at time zone 'UTC'`))},
+      'months', (select json_build_object(${sql.join((["this", "last"] as const).map((m) => sql`${m}::text, json_build_object('start', ${day(sql.raw(`ms.${m} at time zone 'UTC'`))},
           'runs', l.${sql.identifier(`${m}_runs`)}, 'flights', l.${sql.identifier(`${m}_flights`)}, 'share', l.${sql.identifier(`${m}_share`)},
           'turnaroundTenths', f.${sql.identifier(`${m}_turnaround`)})`), sql`, `)}) from month_starts ms, month_lanes l, month_flights f),
       'bests', coalesce((select json_agg(b order by b.task) from (

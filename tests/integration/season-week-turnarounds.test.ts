@@ -1,0 +1,82 @@
+import { sql } from "drizzle-orm";
+import { afterAll, describe, expect, it } from "vitest";
+import { getSeasonSummaryJson } from "@/db/queries/season/summary";
+import { getCatalogueTask } from "@/lib/tasks";
+import { db, demoUser, freshUser, getPool } from "./support/db";
+import { seasonRun } from "./support/season-records";
+import { weekTurnaroundsBeside } from "./support/season-week-turnarounds";
+
+/**
+ * season_week_turnarounds (db/schema/season-weeks.ts): each pilot's weekly turnaround count, median and 90th
+ * percentile, kept by triggers on run_lanes, runs and lane_consents, read by the Season's summary without filters.
+ * Checked against the values computed from lane_flights (isTurnaround, percentile_cont) on the seeded pilots and after
+ * each kind of write, and the summary read through it against the same summary computed from the lanes.
+ */
+afterAll(async () => {
+  await getPool().end();
+});
+
+const now = new Date("2026-12-05T12:00:00Z");
+/** The summary without filters (read from season_week_turnarounds) and with a filter that keeps every run (computed from the lanes). */
+async function bothSummaries(pilotId: string) {
+  return Promise.all([
+    getSeasonSummaryJson(db, { pilotId, filters: { kind: "all" }, now }),
+    getSeasonSummaryJson(db, { pilotId, filters: { kind: "all", from: "1970-01-01" }, now }),
+  ]);
+}
+
+describe("season_week_turnarounds", () => {
+  it("equals the values computed from lane_flights on the seeded pilots, and the summary reads the same as from the lanes", async () => {
+    const ids = await Promise.all(["ada@example.com", "tobi@example.com", "lena@example.com"].map(async (e) => (await demoUser(e)).id));
+    const { stored, fromFlights } = await weekTurnaroundsBeside(ids);
+    expect(stored.length).toBeGreaterThan(5); // real data: an empty table would equal an empty computation
+    expect(stored).toEqual(fromFlights);
+    for (const id of ids) {
+      const [kept, fromLanes] = await bothSummaries(id);
+      expect(kept).toBe(fromLanes);
+    }
+  });
+
+  it("follows every write: new runs, a re-derivation, consent decisions, a moved run, deleted lanes and runs", async () => {
+    const pilot = await freshUser("week-turnarounds");
+    const keeper = await freshUser("week-turnarounds-keeper");
+    const check = async () => {
+      const both = await weekTurnaroundsBeside([pilot.id]);
+      expect(both.stored).toEqual(both.fromFlights);
+      const [kept, fromLanes] = await bothSummaries(pilot.id);
+      expect(kept).toBe(fromLanes);
+      return both.stored.map(([, week, n, median, p90]) => [week, n, median, p90]);
+    };
+    // hand-computed (Tuesday 2026-05-05, week of Monday 2026-05-04): landings at 37 s and 95 s, relaunches at 40 s and
+    // 99 s: 3.0 s and 4.0 s on the ground; median 3.5 s, 90th percentile 3.0 + 0.9 × (4.0 − 3.0) = 3.9 s
+    const first = await seasonRun({ pilotId: pilot.id, at: "2026-05-05T10:00:00Z", flights: [[5, 37], [40, 95], [99, 150]] });
+    expect(await check()).toEqual([["2026-05-04", 2, 3500, 3900]]);
+    // the same week: 20 s → 22 s is 2.0 s; {2.0, 3.0, 4.0}: median 3.0 s, 90th percentile 3.0 + 0.8 × 1.0 = 3.8 s
+    const second = await seasonRun({ pilotId: pilot.id, at: "2026-05-07T10:00:00Z", flights: [[5, 20], [22, 60]] });
+    expect(await check()).toEqual([["2026-05-04", 3, 3000, 3800]]);
+    // a task C run (launched on signals) counts no turnaround (F3K.11 "Task C details"; turnaround.ts)
+    await seasonRun({ pilotId: pilot.id, at: "2026-05-08T10:00:00Z", task: getCatalogueTask("C"), signals: [0, 300], flights: [[3, 60], [303, 350]] });
+    expect(await check()).toEqual([["2026-05-04", 3, 3000, 3800]]);
+    // a re-derivation stored: the first run's second flight no longer lands, so the 4.0 s turnaround is gone
+    await db.execute(sql`update run_lanes set derived = jsonb_set(derived, '{flights,1,landMs}', 'null') where run_id = ${first}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
+    // a run recorded by a timekeeper counts once the pilot accepts it, not while pending or hidden (lib/sync/consent.ts)
+    const recorded = await seasonRun({ pilotId: pilot.id, at: "2026-05-12T10:00:00Z", flights: [[5, 30], [36, 70]], recordedBy: keeper.id });
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
+    await db.execute(sql`insert into lane_consents (run_id, lane, pilot_user_id, status) values (${recorded}::uuid, 0, ${pilot.id}::uuid, 'accepted')`);
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900], ["2026-05-11", 1, 6000, 6000]]);
+    await db.execute(sql`update lane_consents set status = 'hidden' where run_id = ${recorded}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
+    await db.execute(sql`update lane_consents set status = 'accepted' where run_id = ${recorded}::uuid`);
+    await db.execute(sql`delete from lane_consents where run_id = ${recorded}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
+    // a run moved to another week leaves the old week and joins the new one
+    await db.execute(sql`update runs set created_at = '2026-05-20T10:00:00Z' where id = ${second}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 1, 3000, 3000], ["2026-05-18", 1, 2000, 2000]]);
+    // a lane deleted, then a run deleted (its lanes with it)
+    await db.execute(sql`delete from run_lanes where run_id = ${second}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 1, 3000, 3000]]);
+    await db.execute(sql`delete from runs where id = ${first}::uuid`);
+    expect(await check()).toEqual([]);
+  });
+});
