@@ -6,6 +6,7 @@ import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
 import { holdDaysOfRuns } from "./club-day-locks";
+import { retryAborted } from "../retry";
 import { recordReflightRequests, withdrawReflightRequests } from "./contest-reflight-requests";
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
@@ -48,7 +49,8 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * derived lane and re-stamps the runs, commit.
  */
 export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = [], stats?: DeriveStats): Promise<PushReply> {
-  return db.transaction(async (tx) => {
+  // a transaction PostgreSQL aborted (a deadlock between two pushes) is run again whole (db/retry.ts)
+  return retryAborted(() => db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
     const needsClubs = req.sessions.length > 0 || req.runs.length > 0;
     const start = await deviceFacts(tx, req.deviceId, needsClubs ? userId : null);
@@ -95,7 +97,7 @@ export async function applyPush(db: Database, userId: string, req: PushRequest, 
     }
     const serverSeq = stillThere.length > 0 ? await storeDerivations(tx, stillThere, load.estimates, added, stats) : await currentServerSeq(tx);
     return { acks: ctx.acks, serverSeq };
-  });
+  }));
 }
 
 /** The pushing device's clock estimates and (when `clubsOf` names the user) their clubs, in one read after the claim. */
