@@ -1,9 +1,9 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { v7 as uuidv7 } from "uuid";
 import { officerDeviceId, type EventBody } from "@/lib/events/schema";
 import type { Database } from "../index";
-import { events } from "../schema";
+import { events, users } from "../schema";
 import { deriveAndStoreRuns } from "./runs";
 import { lockRuns } from "./sync-db";
 
@@ -15,7 +15,7 @@ export type SetAsideOutcome = { id: string; already: boolean } | "not_found" | "
  * a slot or a re-flight grant of this round). The decision is an event in the run, written here as a
  * push would write one — its own device (`officer:<penalty id>`, seq 1: one set-aside per penalty, by the
  * (device, seq) key), the officer as `recordedBy`, the server's clock as its stamp (θ = 0), a UUIDv7 id,
- * the sync stamp of the insert — a `void` of the penalty with `setAside: { reason }`. The run is then
+ * the sync stamp of the insert — a `void` of the penalty with `setAside: { reason, by }` (by: the officer's name, for phones offline). The run is then
  * derived again from all its events (deriveAndStoreRuns: run_lanes.result_tenths and derived, a new
  * server_seq and xid on the run), so F3K.4.3's highest-of-the-attempt and F3K.4.1's zero are worked out
  * by runResult afresh and every phone pulls the event and the new results.
@@ -42,7 +42,8 @@ export async function setPhonePenaltyAside(db: Database, p: { roundId: string; e
     if (before) return before.recorded_by === p.userId && before.reason === p.reason ? { id: before.id, already: true } : "set_aside_already";
     const now = Date.now();
     const id = uuidv7();
-    const body: EventBody = { kind: "void", targetId: p.eventId, setAside: { reason: p.reason } };
+    const [officer] = await tx.select({ name: users.name }).from(users).where(eq(users.id, p.userId));
+    const body: EventBody = { kind: "void", targetId: p.eventId, setAside: { reason: p.reason, by: officer?.name ?? undefined } };
     await tx.insert(events).values({
       id, runId, deviceId, seq: 1, recordedBy: p.userId, kind: "void", body,
       wallMs: now, monoMs: 0, pageId: "officer", offsetThetaMs: 0, offsetDeltaMs: 0, offsetMeasuredAtMs: now, correctedMs: now, uncertaintyMs: 0,

@@ -131,7 +131,8 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   z.object({
     kind: z.literal("void"),
     targetId: z.string().uuid(),
-    setAside: z.object({ reason: text(200).min(1) }).optional(),
+    /** `by`: the officer's name when they decided, so a phone shows who offline (recordedBy is their account). */
+    setAside: z.object({ reason: text(200).min(1), by: text(200).optional() }).optional(),
   }),
   /**
    * The lane flies this model (a hangar model's id) from now on: picked before the window, or a

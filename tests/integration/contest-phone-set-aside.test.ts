@@ -137,7 +137,7 @@ describe("an officer sets aside a phone's penalty", () => {
     const stored = await officerEvents();
     expect(stored).toHaveLength(1);
     expect(stored[0]).toMatchObject({ id, runId, deviceId: officerDeviceId(p300.id), seq: 1, recordedBy: officer.id, kind: "void" });
-    expect(stored[0]!.body).toEqual({ kind: "void", targetId: p300.id, setAside: { reason: "It was the pilot's own helper" } });
+    expect(stored[0]!.body).toEqual({ kind: "void", targetId: p300.id, setAside: { reason: "It was the pilot's own helper", by: officer.name } });
 
     // the timekeeper's phone pulls the decision and the run's new results
     actAs(keeper);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { officerDeviceId, runEventSchema, type EventBody } from "@/lib/events/schema";
-import { runResult } from "@/lib/results";
+import { runResult, setAsidePenalties } from "@/lib/results";
 import { eventRefusal } from "@/lib/sync/authorise";
 import { correctStamp, uncertaintyOf } from "@/lib/sync/correct-events";
 import type { DerivationEvent } from "@/lib/sync/types";
@@ -75,6 +75,18 @@ describe("an officer's set-aside of a phone's penalty re-derives the lane", () =
     phone.at(220_000, { kind: "void", targetId: undo.id }); // the phone's redo: the officer's decision still stands
     expect(derive([...phone.events, officer], phone).penaltyPoints).toBe(0);
     expect(derive(phone.events, phone).penaltyPoints).toBe(100); // without the officer's event the redo would count it
+  });
+
+  it("the run page lists the set-aside penalty with the officer, when and why (setAsidePenalties); a plain undo is not listed", () => {
+    const { phone, launch } = timed();
+    const p = phone.at(95_000, { kind: "penalty", lane: 0, points: 300, reason: "Touched a helper", cause: "person-in-safety-area", launchId: launch.id });
+    const other = phone.at(96_000, { kind: "penalty", lane: 0, points: 100, reason: "Early", cause: "outside-time" });
+    phone.at(97_000, { kind: "void", targetId: other.id });
+    const officer = setAside(p, 200_000, "Her own helper");
+    const named = { ...officer, body: { ...officer.body, setAside: { reason: "Her own helper", by: "Ines Varga" } } } as DerivationEvent;
+    expect(setAsidePenalties([...phone.events, named])).toEqual([{
+      penaltyId: p.id, id: officer.id, lane: 0, points: 300, cause: "person-in-safety-area", penaltyReason: "Touched a helper", by: "Ines Varga", atMs: 200_000, why: "Her own helper",
+    }]);
   });
 
   it("a phone cannot push a set-aside, nor amend one (lib/sync/authorise.ts)", () => {
