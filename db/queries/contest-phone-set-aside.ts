@@ -44,10 +44,11 @@ export async function setPhonePenaltyAside(db: Database, p: { roundId: string; e
     const id = uuidv7();
     const [officer] = await tx.select({ name: users.name }).from(users).where(eq(users.id, p.userId));
     const body: EventBody = { kind: "void", targetId: p.eventId, setAside: { reason: p.reason, by: officer?.name ?? undefined } };
-    await tx.insert(events).values({
+    const inserted = await tx.insert(events).values({
       id, runId, deviceId, seq: 1, recordedBy: p.userId, kind: "void", body,
       wallMs: now, monoMs: 0, pageId: "officer", offsetThetaMs: 0, offsetDeltaMs: 0, offsetMeasuredAtMs: now, correctedMs: now, uncertaintyMs: 0,
-    });
+    }).onConflictDoNothing().returning({ id: events.id });
+    if (inserted.length === 0) return "set_aside_already"; // the key taken meanwhile (pushes cannot use the officer's device ids: lib/validations/sync-push.ts)
     await deriveAndStoreRuns(tx, [runId]);
     return { id, already: false };
   });

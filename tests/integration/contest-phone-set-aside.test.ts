@@ -168,6 +168,11 @@ describe("an officer sets aside a phone's penalty", () => {
     const status = new Map(res.body.acks.map((a) => [a.id, a.status]));
     expect([status.get(undo.id), status.get(undoOfficer.id), status.get(forged.id)]).toEqual(["applied", "rejected", "rejected"]);
     expect((await round1Of("Wyn Carrow")).penaltyPoints).toBe(100);
+    // nor push as the officer's device (it would take the key of a later set-aside)
+    const squatter = recorder(officerDeviceId(p100.id));
+    const squat = await push({ deviceId: squatter.id, sessions: [], runs: [], events: [squatter.at(runId, T0 + 302_000, { kind: "void", targetId: p100.id })] });
+    expect(squat.status).toBe(422);
+    expect(await officerEvents()).toHaveLength(2);
   });
 
   it("the penalties CSV lists the set-aside one with who, when and why, not counting", async () => {
