@@ -43,7 +43,8 @@ export function CorrectionsList({ events, lanes, deviceId, names = {} }: Props) 
     <ol aria-label="Corrections" className="space-y-2">
       {rows.map((e) => {
         const device = e.deviceId === deviceId ? "this phone" : `phone ${e.deviceId.slice(-6)}`;
-        const who = e.recordedBy ? `${names[e.recordedBy] ?? `user ${e.recordedBy.slice(0, 8)}`} on ${device}` : device;
+        const officer = e.body.kind === "void" && e.body.setAside ? `${e.body.setAside.by ?? "an officer"}, officer, on the server` : null;
+        const who = officer ?? (e.recordedBy ? `${names[e.recordedBy] ?? `user ${e.recordedBy.slice(0, 8)}`} on ${device}` : device);
         return (
           <li key={e.id} className="rounded-lg border-2 border-line p-2">
             <p className="font-semibold">{describe(e, byId, laneName)}</p>
@@ -63,6 +64,7 @@ function describe(e: RunEvent, byId: Map<string, RunEvent>, laneName: (lane: num
   switch (b.kind) {
     case "void": {
       const t = byId.get(b.targetId);
+      if (b.setAside) return `Set aside by ${b.setAside.by ?? "an officer"} on the contest's round page: the ${t ? WORDS[t.body.kind] : "event"}${of(t)} no longer counts (${b.setAside.reason})`;
       return `Undo: the ${t ? WORDS[t.body.kind] : "event"}${of(t)} no longer counts`;
     }
     case "correct": {

@@ -14,3 +14,4 @@ export { CorrectionsList } from "./corrections-list";
 export { ClockNote } from "./clock-note";
 export { Rulings } from "./rulings";
 export { RulingNotes, describeRulingNote } from "./ruling-notes";
+export { SetAsidePenalties } from "./set-aside-penalties";

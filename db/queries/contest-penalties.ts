@@ -13,7 +13,8 @@ import { contestPenalties, groupSlots, runLanes } from "../schema";
  * (contest_penalties, removed ones too, marked), the phone's from the linked lane's derived penalties
  * (`run_lanes.derived.penalties`, lib/results runResult, only while the run is the slot's record — no
  * paper card with flights), the re-flight's run's likewise, and the paper card's penalty points with the
- * card's `recorded_by`/`recorded_at`. The round page, the results page, the penalties CSV and the PDF list them.
+ * card's `recorded_by`/`recorded_at`; a phone's penalty an officer set aside is listed from the officer's event
+ * (not counting, with who, when and why as its removal). The round page, the results page, the penalties CSV and the PDF list them.
  */
 export async function listContestPenalties(db: Database, contestId: string, roundId?: string): Promise<ContestPenalty[]> {
   const inRound = roundId ? sql`and r.id = ${roundId}` : sql``;
@@ -21,7 +22,7 @@ export async function listContestPenalties(db: Database, contestId: string, roun
     select null::uuid as id, r.number as "roundNumber", r.is_fly_off as "isFlyOff", e.id as "entryId", e.pilot_name as name, ${source}::text as source,
       (p ->> 'points')::int as points, p ->> 'cause' as cause, p ->> 'reason' as reason,
       coalesce((p ->> 'applied')::boolean, true) as applied, p ->> 'dropped' as dropped, u.name as "givenBy", ev.corrected_ms::float8 as "givenAtMs",
-      null::text as "removedBy", null::float8 as "removedAtMs", null::text as "removedReason"
+      null::text as "removedBy", null::float8 as "removedAtMs", null::text as "removedReason", ev.id as "eventId"
     from ${sql.identifier(table)} g
     join contest_rounds r on r.id = g.round_id
     join contest_entries e on e.id = g.entry_id
@@ -30,12 +31,28 @@ export async function listContestPenalties(db: Database, contestId: string, roun
     left join events ev on ev.id::text = p ->> 'eventId'
     left join users u on u.id = ev.recorded_by
     where r.contest_id = ${contestId} and g.paper_flights is null ${inRound}`;
+  // the phone's penalties an officer set aside (db/queries/contest-phone-set-aside.ts): no longer in the
+  // lane's derived list, listed from the officer's event with who, when (the server's clock) and why
+  const setAside = (table: "group_slots" | "contest_reflights", source: "phone" | "reflight-phone") => sql`
+    select null::uuid, r.number, r.is_fly_off, e.id, e.pilot_name, ${source}::text,
+      (pe.body ->> 'points')::int, pe.body ->> 'cause', pe.body ->> 'reason', false, null, pu.name, pe.corrected_ms::float8,
+      su.name, sa.corrected_ms::float8, sa.body -> 'setAside' ->> 'reason', pe.id
+    from ${sql.identifier(table)} g
+    join contest_rounds r on r.id = g.round_id
+    join contest_entries e on e.id = g.entry_id
+    join events sa on sa.run_id = g.run_id and sa.kind = 'void' and sa.device_id like 'officer:%' and sa.body ? 'setAside'
+    join events pe on pe.id::text = sa.body ->> 'targetId' and pe.kind = 'penalty' and (pe.body ->> 'lane')::int = g.lane
+    left join users pu on pu.id = pe.recorded_by
+    left join users su on su.id = sa.recorded_by
+    where r.contest_id = ${contestId} and g.paper_flights is null ${inRound}`;
   const rows = await db.execute<ContestPenalty>(sql`
     ${lanePenalties("group_slots", "phone")}
     union all ${lanePenalties("contest_reflights", "reflight-phone")}
+    union all ${setAside("group_slots", "phone")}
+    union all ${setAside("contest_reflights", "reflight-phone")}
     union all
     select null::uuid, r.number, r.is_fly_off, e.id, e.pilot_name, 'card', g.penalty_points, null, null, true, null, u.name, extract(epoch from g.recorded_at)::float8 * 1000,
-      null, null, null
+      null, null, null, null
     from group_slots g
     join contest_rounds r on r.id = g.round_id
     join contest_entries e on e.id = g.entry_id
@@ -43,7 +60,7 @@ export async function listContestPenalties(db: Database, contestId: string, roun
     where r.contest_id = ${contestId} and g.penalty_points > 0 ${inRound}
     union all
     select cp.id, r.number, r.is_fly_off, e.id, e.pilot_name, 'officer', cp.points, cp.cause, cp.note, cp.removed_at is null, null, gu.name, extract(epoch from cp.given_at)::float8 * 1000,
-      ru.name, extract(epoch from cp.removed_at)::float8 * 1000, cp.removed_reason
+      ru.name, extract(epoch from cp.removed_at)::float8 * 1000, cp.removed_reason, null
     from contest_penalties cp
     join contest_rounds r on r.id = cp.round_id
     join contest_entries e on e.id = cp.entry_id

@@ -14,22 +14,25 @@ import type { Executor } from "./sync-db";
  * phone's corrected time; one request per event (a push sent again adds nothing). Called by the push (sync-push.ts).
  */
 export async function recordReflightRequests(tx: Executor, userId: string, events: readonly RunEvent[]): Promise<number> {
-  let added = 0;
-  for (const e of events) {
-    if (e.body.kind !== "reflight") continue;
-    const at = new Date(e.stamp.wallMs + (e.stamp.offset?.thetaMs ?? 0));
-    const res = await tx.execute(sql`
-      insert into contest_reflight_requests (round_id, entry_id, event_id, run_id, lane, cause, placement, reason, asked_by, asked_at)
-      select x.round_id, x.entry_id, ${e.id}::uuid, ${e.runId}::uuid, ${e.body.lane}::smallint, ${e.body.cause}, ${e.body.placement}, ${e.body.reason ?? null}, ${userId}::uuid, ${at.toISOString()}::timestamptz
-      from (
-        select g.round_id, g.entry_id from group_slots g where g.run_id = ${e.runId}::uuid and g.lane = ${e.body.lane} and g.timekeeper_user_id = ${userId}::uuid
-        union
-        select r.round_id, r.entry_id from contest_reflights r where r.run_id = ${e.runId}::uuid and r.lane = ${e.body.lane} and r.timekeeper_user_id = ${userId}::uuid
-      ) x limit 1
-      on conflict (event_id) do nothing`);
-    added += res.rowCount ?? 0;
-  }
-  return added;
+  const rulings = events.flatMap((e) => (e.body.kind === "reflight" ? [{ e, body: e.body }] : []));
+  if (rulings.length === 0) return 0;
+  const col = <T>(pick: (r: (typeof rulings)[number]) => T) => sql.param(rulings.map(pick));
+  // one statement for the push's rulings, whatever their number: each finds its slot or grant (the first of the two) by a lateral lookup
+  const res = await tx.execute(sql`
+    insert into contest_reflight_requests (round_id, entry_id, event_id, run_id, lane, cause, placement, reason, asked_by, asked_at)
+    select x.round_id, x.entry_id, u.id, u.run_id, u.lane, u.cause, u.placement, u.reason, ${userId}::uuid, u.at
+    from unnest(${col((r) => r.e.id)}::uuid[], ${col((r) => r.e.runId)}::uuid[], ${col((r) => r.body.lane)}::smallint[], ${col((r) => r.body.cause)}::text[],
+      ${col((r) => r.body.placement)}::text[], ${col((r) => r.body.reason ?? null)}::text[],
+      ${col((r) => new Date(r.e.stamp.wallMs + (r.e.stamp.offset?.thetaMs ?? 0)).toISOString())}::timestamptz[])
+      as u(id, run_id, lane, cause, placement, reason, at)
+    cross join lateral (
+      select g.round_id, g.entry_id from group_slots g where g.run_id = u.run_id and g.lane = u.lane and g.timekeeper_user_id = ${userId}::uuid
+      union
+      select r.round_id, r.entry_id from contest_reflights r where r.run_id = u.run_id and r.lane = u.lane and r.timekeeper_user_id = ${userId}::uuid
+      limit 1
+    ) x
+    on conflict (event_id) do nothing`);
+  return res.rowCount ?? 0;
 }
 
 /**

@@ -36,7 +36,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const perRun = new Map([...load.runs.values()].map((r) => [r.id, r.eventCount]));
   const byId = new Map(clashes.map((c) => [c.id, c]));
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
-  const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy }]));
+  const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy, deviceId: t.deviceId }]));
 
   const fresh: (typeof events.$inferInsert)[] = [];
   for (const e of items) {

@@ -10,6 +10,7 @@ import { seedDemoResults } from "./demo-results";
 import { seedDemoFees } from "./demo-fees";
 import { seedDemoDisputes } from "./demo-disputes";
 import { seedDemoPenalties } from "./demo-penalties";
+import { seedDemoPhoneSetAside } from "./demo-phone-set-aside";
 import { seedDemoRecords } from "./demo-records";
 import { seedDemoReflightRequest, seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
@@ -38,6 +39,7 @@ export async function seedDemoContest(db: Database): Promise<void> {
   if (contestId) await seedDemoRecords(db, contestId);
   if (contestId) await seedDemoDisputes(db, contestId);
   if (contestId) await seedDemoPenalties(db, contestId);
+  if (contestId) await seedDemoPhoneSetAside(db, contestId);
   if (contestId) await seedDemoFlyOff(db, contestId);
 }
 

@@ -49,9 +49,14 @@ export type ContestPenalty = {
   applied: boolean; dropped: "mid-air-collision" | "higher-in-same-attempt" | null;
   /** Who gave it (the officer, the phone's account) or entered the card, and when (the officer's time, the event's corrected time, the card's recorded time). */
   givenBy: string | null; givenAtMs: number | null;
-  /** An officer's penalty removed by an officer: who, when, why (it no longer counts). */
+  /** An officer's penalty removed by an officer, or a phone's set aside by one: who, when, why (it no longer counts). */
   removedBy: string | null; removedAtMs: number | null; removedReason: string | null;
+  /** A phone's penalty's `penalty` event (what an officer sets aside); null for the officers' and the card's. */
+  eventId: string | null;
 };
+
+/** Whether a listed penalty came from a timekeeper's phone (an event in a run: set aside, not removed). */
+export const fromPhone = (p: Pick<ContestPenalty, "source">) => p.source === "phone" || p.source === "reflight-phone";
 
 const SOURCE_WORDS: Record<ContestPenalty["source"], string> = {
   officer: "given on the round page",
@@ -65,7 +70,7 @@ export const penaltySourceWords = (source: ContestPenalty["source"]) => SOURCE_W
 
 /** Why a listed penalty does not count, or null when it does. */
 export function penaltyNotCounted(p: ContestPenalty): string | null {
-  if (p.removedAtMs !== null) return "removed";
+  if (p.removedAtMs !== null) return fromPhone(p) ? "set aside" : "removed";
   if (p.applied) return null;
   return p.dropped === "mid-air-collision" ? "mid-air collision (F3K.4.3)" : "a higher penalty in the same attempt (F3K.4.3)";
 }
@@ -80,8 +85,9 @@ export function penaltyCauseText(cause: PenaltyCause | null): string {
 /** A time on the club's clock ("" when unknown). */
 export const clockText = (ms: number | null, zone: string) => (ms === null ? "" : formatClock(new Date(ms), zone, "short"));
 
-/** Who and when, e.g. "given by an officer by Ines Vale 14:02 CET" and, when removed, "; removed by … 14:10 CET: why". */
+/** Who and when, e.g. "given by an officer by Ines Vale 14:02 CET" and, when removed, "; removed by … 14:10 CET: why" ("set aside by" for a phone's). */
 export function penaltyWhoWhen(p: ContestPenalty, zone: string): string {
   const given = `${penaltySourceWords(p.source)} by ${p.givenBy ?? "someone"}${p.givenAtMs !== null ? ` ${clockText(p.givenAtMs, zone)}` : ""}`;
-  return p.removedAtMs === null ? given : `${given}; removed by ${p.removedBy ?? "someone"} ${clockText(p.removedAtMs, zone)}${p.removedReason ? `: ${p.removedReason}` : ""}`;
+  const removed = fromPhone(p) ? "set aside by" : "removed by";
+  return p.removedAtMs === null ? given : `${given}; ${removed} ${p.removedBy ?? "someone"} ${clockText(p.removedAtMs, zone)}${p.removedReason ? `: ${p.removedReason}` : ""}`;
 }

@@ -119,8 +119,21 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   }),
   /** Moves a timed event to another time (ms on the same clock as its stamp). */
   z.object({ kind: z.literal("correct"), targetId: z.string().uuid(), wallMs: epochMs }),
-  /** Undo: the named event no longer counts. */
-  z.object({ kind: z.literal("void"), targetId: z.string().uuid() }),
+  /**
+   * Undo: the named event no longer counts. With `setAside` it is an officer's decision, not a phone's
+   * undo: an officer of the contest's club set a timekeeper's penalty aside on the round page, with why
+   * (db/queries/contest-phone-set-aside.ts). The server authors it (device `officer:<penalty's id>`,
+   * recordedBy the officer, stamped with the server's clock) and phones pull it like any event; a push
+   * carrying `setAside`, or amending such an event, is refused (lib/sync/authorise.ts). It is a `void`
+   * rather than a kind of its own so a phone from before it folds it as the undo it is (zod strips the
+   * unknown key) instead of failing every pull on an unknown kind.
+   */
+  z.object({
+    kind: z.literal("void"),
+    targetId: z.string().uuid(),
+    /** `by`: the officer's name when they decided, so a phone shows who offline (recordedBy is their account). */
+    setAside: z.object({ reason: text(200).min(1), by: text(200).optional() }).optional(),
+  }),
   /**
    * The lane flies this model (a hangar model's id) from now on: picked before the window, or a
    * swap mid-window. Scoring ignores it; launch heights and the hangar's per-model figures read it.
@@ -131,6 +144,10 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
 ]);
 export type EventBody = z.infer<typeof eventBodySchema>;
 export type EventKind = EventBody["kind"];
+
+/** The device id of the event an officer's set-aside of a phone's penalty is stored under (one per penalty: a second is refused by (device, seq)). */
+export const OFFICER_DEVICE_PREFIX = "officer:";
+export const officerDeviceId = (penaltyEventId: string) => `${OFFICER_DEVICE_PREFIX}${penaltyEventId}`;
 
 /** One event as stored on the device, pushed to the server and pulled back. */
 export const runEventSchema = z.object({

@@ -7,3 +7,4 @@ export { placeEvents, placeStamp, type ClockStep, type Estimates, type PlacedEve
 export { describeClockFlags } from "./clock-flags";
 export { wasStarted } from "./started";
 export type * from "./types";
+export { setAsidePenalties, type SetAsidePenalty } from "./set-aside";

@@ -1,5 +1,5 @@
 import { ConflictError } from "@/lib/errors";
-import type { EventBody } from "@/lib/events/schema";
+import { OFFICER_DEVICE_PREFIX, type EventBody } from "@/lib/events/schema";
 
 /**
  * Who may write what in a push (SYNC.md §3; the server checks every item). Pure decisions
@@ -8,7 +8,7 @@ import type { EventBody } from "@/lib/events/schema";
  */
 
 export type RunFacts = { id: string; createdBy: string; lanes: readonly { lane: number; pilotUserId: string | null }[] };
-export type TargetFacts = { runId: string; recordedBy: string } | null;
+export type TargetFacts = { runId: string; recordedBy: string; deviceId?: string } | null;
 
 /**
  * An event may be written by the run's creator (its timekeeper: any event) or by a pilot of
@@ -25,8 +25,10 @@ export function eventRefusal(userId: string, run: RunFacts, body: EventBody, tar
     if (!isCreator && !ownLanes.has(body.lane)) return `Only the run's timekeeper or lane ${body.lane + 1}'s pilot may record for that lane.`;
     return null;
   }
+  if (body.kind === "void" && body.setAside) return "Only an officer sets a penalty aside, on the contest's round page.";
   if (body.kind === "void" || body.kind === "correct") {
     if (!target || target.runId !== run.id) return "The event it amends is not in this run on the server.";
+    if (target.deviceId?.startsWith(OFFICER_DEVICE_PREFIX)) return "An officer's decision is not changed from a phone.";
     if (!isCreator && target.recordedBy !== userId) return "Only the run's timekeeper may amend someone else's record.";
   }
   return null;

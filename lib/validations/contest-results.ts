@@ -135,6 +135,12 @@ export const removePenaltySchema = z.object({
   reason: text(200).trim().min(1, "Say why it is removed."),
 });
 
+/** An officer sets aside a penalty the timekeeper's phone gave (its `penalty` event's id), saying why. */
+export const setAsidePhonePenaltySchema = z.object({
+  eventId: z.uuid("Not a penalty from a phone."),
+  reason: text(200).trim().min(1, "Say why it is set aside."),
+});
+
 /**
  * An officer resolves an open dispute: upheld or rejected, the outcome in words; an upheld one names
  * the existing action that carries it out (lib/contests/disputes.ts), a rejected one none.

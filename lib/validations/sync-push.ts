@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { runEventSchema } from "@/lib/events/schema";
+import { OFFICER_DEVICE_PREFIX, runEventSchema } from "@/lib/events/schema";
 import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { textProblem } from "./bounds";
 import { clockEstimateSchema, PUSH_MAX_CLOCK_ESTIMATES, PUSH_MAX_ITEMS, pushRequestSchema, type Ack, type PushRequest } from "./sync";
@@ -14,7 +14,8 @@ import { clockEstimateSchema, PUSH_MAX_CLOCK_ESTIMATES, PUSH_MAX_ITEMS, pushRequ
 /** The envelope: items stay opaque here and are parsed one by one. */
 export const pushEnvelopeSchema = z
   .object({
-    deviceId: pushRequestSchema.shape.deviceId,
+    // device ids under OFFICER_DEVICE_PREFIX are the server's (an officer's set-aside of a phone's penalty): no phone pushes as one
+    deviceId: pushRequestSchema.shape.deviceId.refine((id) => !id.startsWith(OFFICER_DEVICE_PREFIX), "This device id is reserved for the server."),
     account: pushRequestSchema.shape.account,
     sessions: z.array(z.unknown()).max(PUSH_MAX_ITEMS),
     runs: z.array(z.unknown()).max(PUSH_MAX_ITEMS),

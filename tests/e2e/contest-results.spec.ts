@@ -121,11 +121,13 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   await expect(juniors.filter({ hasText: "Finn Brackley" })).toContainText("overall");
   await expect(juniors.filter({ hasText: "Gus Wendle" })).toContainText(/^[12]\. Gus Wendle/);
   await expect(page.getByRole("button", { name: "Make a public link" })).toHaveCount(0);
-  // the seeded paper card's 100-point penalty in round 2, with who entered it and when; round 3's two officer's penalties, one removed
-  await page.getByText(/^Penalties \(3\)/).click();
+  // the seeded paper card's 100-point penalty in round 2, with who entered it and when; round 3's two officer's penalties, one removed;
+  // and round 3's phone penalty (Mara's phone) that Ines set aside (db/seed/demo-phone-set-aside.ts)
+  await page.getByText(/^Penalties \(4\)/).click();
   await expect(page.getByRole("list", { name: "Penalties" })).toContainText(/^Round 2, .+: −100; on the paper card, entered by Ines Varga \d/);
   await expect(page.getByRole("list", { name: "Penalties" })).toContainText("Round 3, Dov Ashgrove: −100, Launched or flew outside the group's times (F3K.9.5) \"Launched before the working-time signal\"; given on the round page by Ines Varga");
   await expect(page.getByRole("list", { name: "Penalties" })).toContainText("removed by Ines Varga");
+  await expect(page.getByRole("list", { name: "Penalties" })).toContainText(/Round 3, Hana Roskell: −100, .+; given on the timekeeper's phone by Mara Lindqvist .+; set aside by Ines Varga .+: Hana launched on the signal/);
   await noSeriousAxe(page);
   const csv = await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=csv`);
   const csvText = await csv.text();
@@ -137,7 +139,8 @@ test("a member reads the demo contest's standings, teams and printable sheets", 
   expect(rows.find((r) => r.Pilot === "Cass Merriden")!.Note).toContain("round 3 result under dispute");
   // every penalty, one a row, with cause, who and when (the club's clock) and a removal's who and why
   const pens = Papa.parse<Record<string, string>>(await (await page.request.get(`${page.url().replace("/contests/", "/api/contests/")}?format=penalties-csv`)).text(), { header: true, skipEmptyLines: true }).data;
-  expect(pens).toHaveLength(3);
+  expect(pens).toHaveLength(4);
+  expect(pens.find((r) => r.Pilot === "Hana Roskell" && r.Round === "3")).toMatchObject({ Round: "3", Points: "100", "Given by": "Mara Lindqvist", Counts: "no: set aside", "Removed by": "Ines Varga" });
   expect(pens.find((r) => r.Pilot === "Dov Ashgrove")).toMatchObject({ Round: "3", Points: "100", Cause: "Launched or flew outside the group's times (F3K.9.5)", "Given by": "Ines Varga", Counts: "yes" });
   expect(pens.find((r) => r.Pilot === "Elin Tarrow")).toMatchObject({ Points: "300", Counts: "no: removed", "Removed by": "Ines Varga", "Why removed": "The person was Elin's own helper, not a bystander" });
   expect(pens.find((r) => r.Pilot === "Dov Ashgrove")!["Given at"]).toMatch(/\d{2}:\d{2}/);

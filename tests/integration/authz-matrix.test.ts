@@ -6,6 +6,7 @@ import { coachInvites, coachNotes, fieldSessions, mailQueue, practicePlans, runs
 import { actAs, type MockSessionUser } from "./support/session";
 import { db, freshUser, getPool } from "./support/db";
 import { insertRun, insertSession } from "./support/records";
+import { phonePenaltyContestOfOwnersClub, phonePenaltySetAside, setAsideBody } from "./support/phone-penalty";
 import { accountRow, ACTORS, freshCast, MATRIX_PASSWORD, seededCast, type Actor, type Cast } from "./support/authz-actors";
 import * as club from "./support/authz-clubs";
 import * as contest from "./support/authz-contests";
@@ -344,6 +345,9 @@ const ROWS: Record<string, Row> = {
   },
   "DELETE /api/contests/[contestId]/rounds/[roundNumber]/penalties": {
     params: contest.penaltyContestOfOwnersClub, body: contest.removePenaltyBody, check: contest.penaltyRemoved, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
+  "POST /api/contests/[contestId]/rounds/[roundNumber]/penalties/phone-set-aside": {
+    params: phonePenaltyContestOfOwnersClub, body: setAsideBody, check: phonePenaltySetAside, cast: "fresh", expect: club.OFFICERS_ONLY(201),
   },
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/records": {
     params: contest.recordsContestOfOwnersClub, body: contest.keepRecordBody, check: contest.recordDecided, cast: "fresh", expect: club.OFFICERS_ONLY(200),

@@ -8,6 +8,7 @@ import type { PushReply } from "@/lib/validations/sync";
 import { actAs } from "./support/session";
 import { db, getPool } from "./support/db";
 import { insertSession } from "./support/records";
+import { insertPhonePenalty } from "./support/phone-penalty";
 import { replaced } from "./support/json-paths";
 import { rowCounter } from "./support/row-counts";
 import { recorder, run, session, T0 } from "./sync-fixtures";
@@ -33,6 +34,8 @@ type Method = "POST" | "PUT" | "PATCH" | "DELETE";
 /** What one case writes on: a pilot the caller coaches; a club the caller is the only officer of, its drawn contest, the caller's model. */
 type Fixture = {
   slug: string; contestId: string; entries: string[]; disputeId: string; granted: string; requestId: string; penaltyId: string; modelId: string; buyerEmail: string;
+  /** a penalty the caller's phone gave Sweep Entrant 11 in round 1 (an event of a run linked to the slot) */
+  phonePenaltyId: string;
   /** a pilot who lets the caller coach them, a session of theirs and the caller's note on it */
   pilotId: string; pilotEmail: string; sessionId: string; noteId: string;
 };
@@ -59,6 +62,8 @@ const CASES: Case[] = [
     body: (f) => ({ entryId: f.entries[9], cause: "object-in-safety-area", points: 100, note: "Touched the flag line" }) },
   { method: "DELETE", route: "/api/contests/[contestId]/rounds/[roundNumber]/penalties", params: round1, ok: 200,
     body: (f) => ({ penaltyId: f.penaltyId, reason: "Given to the wrong pilot" }) },
+  { method: "POST", route: "/api/contests/[contestId]/rounds/[roundNumber]/penalties/phone-set-aside", params: round1, ok: 201,
+    body: (f) => ({ eventId: f.phonePenaltyId, reason: "Launched inside the window" }) },
   { method: "POST", route: "/api/contests/[contestId]/rounds/[roundNumber]/disputes", params: round1, ok: 201,
     body: (f) => ({ entryId: f.entries[4], subject: "The third flight was not counted", lodgedBy: "Team manager" }) },
   { method: "PUT", route: "/api/contests/[contestId]/rounds/[roundNumber]/disputes", params: round1, ok: 200,
@@ -127,7 +132,7 @@ describe("fuzz: bad strings reach the writes", () => {
     countAll = await rowCounter();
   });
 
-  /** A fresh club (the caller its only officer) with a contest drawn into two groups of six in every round, a re-flight granted and an open dispute in round 1; a model of the caller's and a buyer with an account. */
+  /** A fresh club (the caller its only officer) with a contest drawn into two groups of six in every round, a re-flight granted, an open dispute and a phone's penalty in round 1; a model of the caller's and a buyer with an account. */
   async function fixture(): Promise<Fixture> {
     const slug = `sweep-${uuidv7()}`;
     const [club] = await db.insert(clubs).values({ name: "Sweep Club", slug }).returning();
@@ -142,6 +147,7 @@ describe("fuzz: bad strings reach the writes", () => {
       roundId: rounds[0]!.id, entryId: entries[7]!.id, eventId: uuidv7(), runId: uuidv7(), lane: 0, cause: "launch-collision", placement: "original-group", askedAt: new Date(),
     }).returning();
     const [penalty] = await db.insert(contestPenalties).values({ roundId: rounds[0]!.id, entryId: entries[8]!.id, cause: "object-in-safety-area", points: 100, givenBy: me.id }).returning();
+    const phone = await insertPhonePenalty(me.id, rounds[0]!.id, entries[10]!.id, "Sweep Entrant 11");
     const [model] = await db.insert(models).values({ ownerId: me.id, name: "Sweep glider", spanMm: 1490, massG: 250 }).returning();
     const buyerEmail = `sweep-buyer-${uuidv7()}@example.com`;
     await db.insert(users).values({ email: buyerEmail, name: "Sweep Buyer" });
@@ -151,7 +157,7 @@ describe("fuzz: bad strings reach the writes", () => {
     const sessionId = await insertSession(pilot!.id);
     const [note] = await db.insert(coachNotes).values({ sessionId, pilotId: pilot!.id, coachId: me.id, authorId: me.id, body: "First note" }).returning();
     return {
-      slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, requestId: request!.id, penaltyId: penalty!.id, modelId: model!.id, buyerEmail,
+      slug, contestId: c!.id, entries: entries.map((e) => e.id), disputeId: dispute!.id, granted: entries[3]!.id, requestId: request!.id, penaltyId: penalty!.id, modelId: model!.id, buyerEmail, phonePenaltyId: phone.eventId,
       pilotId: pilot!.id, pilotEmail, sessionId, noteId: note!.id,
     };
   }

@@ -86,6 +86,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/penalties": { POST: "json", DELETE: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/penalties/phone-set-aside": { POST: "json" },
   "/api/contests/[contestId]/public-link": { POST: "none", DELETE: "none" },
   "/api/public-results/[token]": { GET: "query" },
   "/api/invitations/accept": { POST: "json" },
@@ -183,6 +184,7 @@ function template(path: string, userId: string, real: Real | null = null): Recor
   if (path.endsWith("/reflight-requests")) return { requestId: uuidv7(), decision: "grant", placement: "later-group", groupNumber: 2, entitled: true, reason: "Rain" };
   if (path.endsWith("/reflights/timekeeper")) return { entryId: entry(2), timekeeperUserId: userId };
   if (path.endsWith("/reflights")) return { entryId: entry(2), cause: "rain", placement: "later-group", entitled: true, groupNumber: 2, reason: "Shower", flights: [900], runId: null, lane: null, signed: true };
+  if (path.endsWith("/phone-set-aside")) return { eventId: uuidv7(), reason: "Launched inside the window" };
   // one body for both methods: give a penalty, or remove one
   if (path.endsWith("/penalties")) return { entryId: entry(3), cause: "outside-time", points: 100, note: "Launched early", penaltyId: uuidv7(), reason: "Wrong pilot" };
   // one body for both methods: record a dispute, or resolve one (upheld by a re-flight)

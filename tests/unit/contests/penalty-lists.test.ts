@@ -10,11 +10,16 @@ import { getCatalogueTask } from "@/lib/tasks/catalogue";
 const given = Date.parse("2027-05-08T12:05:00Z"); // Europe/Helsinki keeps summer time (UTC+3) in May: 15:05 on the club's clock (from memory of the zone rules)
 const officer: ContestPenalty = {
   id: "p1", roundNumber: 2, isFlyOff: false, entryId: "a", name: "Vera Lindqvist", source: "officer", points: 300, cause: "person-in-safety-area", reason: "=HYPERLINK(1)",
-  applied: false, dropped: null, givenBy: "Ines Varga", givenAtMs: given, removedBy: "Ola Brand", removedAtMs: given + 600_000, removedReason: "Her own helper",
+  applied: false, dropped: null, givenBy: "Ines Varga", givenAtMs: given, removedBy: "Ola Brand", removedAtMs: given + 600_000, removedReason: "Her own helper", eventId: null,
 };
 const phone: ContestPenalty = {
   id: null, roundNumber: 1, isFlyOff: true, entryId: "b", name: "Tam Ossory", source: "phone", points: 100, cause: "outside-time", reason: "Early launch",
-  applied: true, dropped: null, givenBy: "Kit Rowe", givenAtMs: given, removedBy: null, removedAtMs: null, removedReason: null,
+  applied: true, dropped: null, givenBy: "Kit Rowe", givenAtMs: given, removedBy: null, removedAtMs: null, removedReason: null, eventId: "00000000-0000-7000-8000-000000000001",
+};
+/** A phone's penalty an officer set aside on the round page (db/queries/contest-phone-set-aside.ts). */
+const setAside: ContestPenalty = {
+  ...phone, isFlyOff: false, roundNumber: 3, points: 300, cause: "person-in-safety-area", reason: "Touched a helper", applied: false,
+  removedBy: "Ola Brand", removedAtMs: given + 1_200_000, removedReason: "It was the pilot's own helper", eventId: "00000000-0000-7000-8000-000000000002",
 };
 
 describe("penaltiesCsv", () => {
@@ -28,6 +33,15 @@ describe("penaltiesCsv", () => {
     expect(rows[0]!["Removed at"]).toContain("15:15");
     expect(rows[1]).toMatchObject({ Round: "Fly-off 1", Given: "given on the timekeeper's phone", "Given by": "Kit Rowe", Counts: "yes", "Removed by": "" });
   });
+
+  it("a phone's penalty an officer set aside: not counting, \"set aside\", with the officer, when on the club's clock and why", () => {
+    const [row] = Papa.parse<Record<string, string>>(penaltiesCsv([setAside], "Europe/Helsinki"), { header: true, skipEmptyLines: true }).data;
+    expect(row).toMatchObject({
+      Round: "3", Points: "300", Given: "given on the timekeeper's phone", "Given by": "Kit Rowe", Counts: "no: set aside",
+      "Removed by": "Ola Brand", "Why removed": "It was the pilot's own helper",
+    });
+    expect(row!["Removed at"]).toContain("15:25");
+  });
 });
 
 describe("resultsPdf's penalty list", () => {
@@ -40,5 +54,11 @@ describe("resultsPdf's penalty list", () => {
     const outside = new TextDecoder("latin1").decode(resultsPdf(s, { name: "Reed Cup", day: "2027-05-08", field: "Meadow" }, { list: [phone], zone: "Europe/Helsinki", withWho: false }));
     expect(outside).toContain("Tam Ossory: -100, Launched or flew outside the group's times");
     expect(outside).not.toContain("Kit Rowe");
+  });
+
+  it("marks a phone's penalty set aside by an officer as set aside, with who for members", () => {
+    const members = new TextDecoder("latin1").decode(resultsPdf(s, { name: "Reed Cup", day: "2027-05-08", field: "Meadow" }, { list: [setAside], zone: "Europe/Helsinki", withWho: true }));
+    expect(members).toContain("set aside by Ola Brand");
+    expect(members).toContain("not counted \\(set aside\\)");
   });
 });

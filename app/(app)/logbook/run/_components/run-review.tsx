@@ -1,7 +1,8 @@
 "use client";
 
 import { useSearchParams } from "next/navigation";
-import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulings, TimelineStrip } from "@/components/run";
+import { Breakdown, ClockNote, CorrectionsList, FlightsTable, RulingNotes, Rulings, SetAsidePenalties, TimelineStrip } from "@/components/run";
+import { setAsidePenalties } from "@/lib/results";
 import { DiscardButton } from "@/components/field/discard-button";
 import { RunNotes } from "@/components/notes/run-notes";
 import { ClubDayChoice } from "@/components/run/club-day-choice";
@@ -82,6 +83,7 @@ export function RunReview() {
             <TimelineStrip definition={task} flights={lane.flights} label={l.pilotName} launchHeights={heightsForLane(altimeter.logs, l.lane)} />
             <FlightsTable flights={lane.flights} label={l.pilotName} />
             <Rulings lane={lane} label={l.pilotName} />
+            <SetAsidePenalties list={setAsidePenalties(events).filter((s) => s.lane === l.lane)} label={l.pilotName} />
             <RulingNotes notes={scored.lanes.find((d) => d.lane === l.lane)?.derived.notes} lane={l.lane} label={l.pilotName} who={who} />
             <h3 className="text-lg font-bold">Where the points went</h3>
             <Breakdown definition={task} lane={lane} />

@@ -13,7 +13,8 @@ const field = "mt-1 block min-h-12 w-full rounded-lg border border-line bg-raise
  * The round's penalties, one by one (the officers', the timekeepers' phones', the paper cards'), with
  * cause, size, who and when; a removed one struck through with who removed it and when. The officer
  * gives a pilot a penalty (the phone's penalties for that pilot are shown first, so one is not typed
- * twice) and removes an officer's penalty, saying why.
+ * twice) and removes an officer's penalty, saying why; a timekeeper's phone's penalty is set aside, saying why
+ * (an event in the run: the run's result is worked out again, F3K.4.3 and F3K.4.1 included).
  */
 export function Penalties(p: { contestId: string; roundKey: string; timeZone: string; pilots: { entryId: string; name: string; groupNumber: number }[]; penalties: ContestPenalty[] }) {
   const { send, busy, error } = useSend();
@@ -35,11 +36,12 @@ export function Penalties(p: { contestId: string; roundKey: string; timeZone: st
       <p className="text-sm text-muted">
         Each penalty is taken from the pilot&apos;s total and stays even when this round is dropped (F3K.10). Several in one attempt: give only the
         highest (F3K.4.3); none when a mid-air collision caused the contact. Contact with a person at launch makes the round score zero, plus the
-        penalty (F3K.4.1). Penalties given on a timekeeper&apos;s phone already count: do not type them again.
+        penalty (F3K.4.1). Penalties given on a timekeeper&apos;s phone already count: do not type them again. One given in error is set
+        aside here: the run&apos;s result is then worked out again, as if the timekeeper had undone it, and the phones get the decision.
       </p>
       {p.penalties.length === 0 ? <p className="text-muted">No penalties in this round.</p> : (
         <ul aria-label="Penalties of the round" className="space-y-2">
-          {p.penalties.map((x, i) => <PenaltyItem key={x.id ?? `${x.source}-${i}`} url={url} timeZone={p.timeZone} x={x} />)}
+          {p.penalties.map((x, i) => <PenaltyItem key={x.id ?? x.eventId ?? `${x.source}-${i}`} url={url} timeZone={p.timeZone} x={x} />)}
         </ul>
       )}
       <form aria-label="Give a penalty" className="space-y-2 border-t border-line pt-3" onSubmit={(e) => { e.preventDefault(); void give(); }}>
@@ -101,6 +103,16 @@ function PenaltyItem(p: { url: string; timeZone: string; x: ContestPenalty }) {
             <input className={field} value={reason} maxLength={200} required onChange={(e) => setReason(e.target.value)} />
           </label>
           <Button type="submit" disabled={busy || reason.trim() === ""}>Remove</Button>
+          <FormError message={error} />
+        </form>
+      )}
+      {x.eventId !== null && !removed && (
+        <form aria-label={`Set aside the phone's penalty, ${x.name}`} className="flex flex-wrap items-end gap-2"
+          onSubmit={(e) => { e.preventDefault(); void send("POST", `${p.url}/phone-set-aside`, { eventId: x.eventId, reason }); }}>
+          <label className="block grow">Why it is set aside
+            <input className={field} value={reason} maxLength={200} required onChange={(e) => setReason(e.target.value)} />
+          </label>
+          <Button type="submit" disabled={busy || reason.trim() === ""}>Set aside</Button>
           <FormError message={error} />
         </form>
       )}
