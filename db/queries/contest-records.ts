@@ -13,6 +13,9 @@ type HeldRecord = {
 type Holder = { kind: "slot" | "reflight"; held: HeldRecord };
 
 const recordedByName = (col: typeof groupSlots.recordedBy | typeof contestReflights.recordedBy) => sql<string | null>`(select u.name from users u where u.id = ${col})`;
+/** A run lane's flights as derived by lib/results runResult (time in tenths; the round page lists them beside a paper card's). */
+export type RecordRunFlight = { timeTenths: number; status: string };
+const runFlights = sql<RecordRunFlight[] | null>`${runLanes.derived} -> 'flights'`;
 const ofHolder = (h: Holder) => (h.kind === "slot" ? eq(slotRecords.slotId, h.held.id) : eq(slotRecords.reflightId, h.held.id));
 
 /**
@@ -25,7 +28,7 @@ export async function listPendingRecords(db: Database, roundId: string) {
   const waiting = (holder: SQL) => sql`exists (select 1 from slot_records r where ${holder} and r.outcome is null)`;
   const slotsQuery = db.select({
     holderId: groupSlots.id, entryId: groupSlots.entryId, groupNumber: groupSlots.groupNumber, name: contestEntries.pilotName,
-    paperFlights: groupSlots.paperFlights, runId: groupSlots.runId, lane: groupSlots.lane, runResultTenths: runLanes.resultTenths,
+    paperFlights: groupSlots.paperFlights, runId: groupSlots.runId, lane: groupSlots.lane, runResultTenths: runLanes.resultTenths, runFlights,
     recordedAt: groupSlots.recordedAt, recordedBy: recordedByName(groupSlots.recordedBy), signedFrom: groupSlots.signedFrom, signedAt: groupSlots.signedAt,
   }).from(groupSlots).innerJoin(contestEntries, eq(contestEntries.id, groupSlots.entryId))
     .leftJoin(runLanes, and(eq(runLanes.runId, groupSlots.runId), eq(runLanes.lane, groupSlots.lane)))
@@ -33,7 +36,7 @@ export async function listPendingRecords(db: Database, roundId: string) {
     .orderBy(asc(groupSlots.groupNumber), asc(contestEntries.pilotName));
   const grantsQuery = db.select({
     holderId: contestReflights.id, entryId: contestReflights.entryId, groupNumber: contestReflights.groupNumber, name: contestEntries.pilotName,
-    paperFlights: contestReflights.paperFlights, runId: contestReflights.runId, lane: contestReflights.lane, runResultTenths: runLanes.resultTenths,
+    paperFlights: contestReflights.paperFlights, runId: contestReflights.runId, lane: contestReflights.lane, runResultTenths: runLanes.resultTenths, runFlights,
     recordedAt: contestReflights.recordedAt, recordedBy: recordedByName(contestReflights.recordedBy), signedFrom: contestReflights.signedFrom, signedAt: contestReflights.signedAt,
   }).from(contestReflights).innerJoin(contestEntries, eq(contestEntries.id, contestReflights.entryId))
     .leftJoin(runLanes, and(eq(runLanes.runId, contestReflights.runId), eq(runLanes.lane, contestReflights.lane)))
@@ -41,7 +44,7 @@ export async function listPendingRecords(db: Database, roundId: string) {
     .orderBy(asc(contestReflights.groupNumber), asc(contestEntries.pilotName));
   const othersQuery = db.select({
     id: slotRecords.id, holderId: sql<string>`coalesce(${slotRecords.slotId}, ${slotRecords.reflightId})`, paperFlights: slotRecords.paperFlights, runId: slotRecords.runId, lane: slotRecords.lane,
-    runResultTenths: runLanes.resultTenths, recordedAt: slotRecords.recordedAt, recordedBy: users.name, signedFrom: slotRecords.signedFrom, signedAt: slotRecords.signedAt,
+    runResultTenths: runLanes.resultTenths, runFlights, recordedAt: slotRecords.recordedAt, recordedBy: users.name, signedFrom: slotRecords.signedFrom, signedAt: slotRecords.signedAt,
   }).from(slotRecords)
     .leftJoin(groupSlots, eq(groupSlots.id, slotRecords.slotId))
     .leftJoin(contestReflights, eq(contestReflights.id, slotRecords.reflightId))
