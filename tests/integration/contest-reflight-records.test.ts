@@ -1,15 +1,15 @@
 import "./support/session";
-import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as decideRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflights/records/route";
 import { PUT as reflightsRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflights/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
 import { listPendingRecords } from "@/db/queries/contest-records";
-import { clubs, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships, slotRecords } from "@/db/schema";
+import { contestReflights, groupSlots, slotRecords } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
+import { clubContest } from "./support/contest-setup";
 import { actAs, type MockSessionUser } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, getPool } from "./support/db";
 import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
 
 /**
@@ -31,32 +31,23 @@ let contestId = "";
 let round1 = "";
 const ids: Record<string, string> = {};
 const grants: Record<string, string> = {};
-const today = new Date().toISOString().slice(0, 10);
 
 beforeAll(async () => {
-  [officer, member, keeper, stranger] = (await Promise.all(["rr-officer", "rr-member", "rr-keeper", "rr-stranger"].map((l) => freshUser(l)))) as [
-    MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser,
-  ];
-  const [club] = await db.insert(clubs).values({ name: "Re-flight Records Club", slug: `rrec-${randomUUID().slice(0, 8)}` }).returning();
-  await db.insert(memberships).values([
-    { clubId: club!.id, userId: officer.id, role: "officer" }, { clubId: club!.id, userId: member.id, role: "member" }, { clubId: club!.id, userId: keeper.id, role: "member" },
-  ]);
-  const [c] = await db.insert(contests).values({ clubId: club!.id, name: "Re-flight Records Cup", startsOn: today, fieldName: "Wide Meadow", drawSeed: 5 }).returning();
-  contestId = c!.id;
-  const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
-  round1 = rounds[0]!.id;
-  const entries = await db.insert(contestEntries).values(["Ada Fenn", "Bo Marsh", "Cy Rook"].map((pilotName) => ({ contestId, pilotName, paper: true }))).returning();
-  for (const e of entries) ids[e.pilotName] = e.id;
+  const made = await clubContest("rr", { club: "Re-flight Records Club", contest: "Re-flight Records Cup", pilots: ["Ada Fenn", "Bo Marsh", "Cy Rook"].map((name) => ({ name })) });
+  ({ officer, member, keeper, stranger } = made.cast);
+  contestId = made.contestId;
+  round1 = made.rounds[0]!;
+  Object.assign(ids, made.ids);
   await db.insert(groupSlots).values([
     { roundId: round1, groupNumber: 1, entryId: ids["Ada Fenn"]!, paperFlights: [1500], signedAt: new Date(), signedFrom: "paper card" },
     { roundId: round1, groupNumber: 1, entryId: ids["Bo Marsh"]!, paperFlights: [1000], signedAt: new Date(), signedFrom: "paper card" },
     { roundId: round1, groupNumber: 1, entryId: ids["Cy Rook"]!, paperFlights: [2000], signedAt: new Date(), signedFrom: "paper card" },
   ]);
-  const made = await db.insert(contestReflights).values(["Ada Fenn", "Bo Marsh"].map((n) => ({
+  const granted = await db.insert(contestReflights).values(["Ada Fenn", "Bo Marsh"].map((n) => ({
     roundId: round1, entryId: ids[n]!, cause: "organiser" as const, placement: "original-group" as const, groupNumber: 1, grantedBy: officer.id,
     timekeeperUserId: keeper.id, timekeeperAssignedBy: officer.id, timekeeperAssignedAt: new Date(),
   }))).returning();
-  for (const g of made) grants[g.entryId === ids["Ada Fenn"] ? "Ada Fenn" : "Bo Marsh"] = g.id;
+  for (const g of granted) grants[g.entryId === ids["Ada Fenn"] ? "Ada Fenn" : "Bo Marsh"] = g.id;
 });
 
 const json = (method: string, body: unknown) => new Request("http://test/api", { method, headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
