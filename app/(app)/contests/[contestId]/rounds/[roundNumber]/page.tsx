@@ -137,9 +137,9 @@ function flyingByGroup(slots: { entryId: string; groupNumber: number; pilotUserI
   return out;
 }
 
-/** The run's flights in flown order (seconds; a flight the rules do not count marked with its status). */
+/** The run's flights in flown order (seconds; a flight the task does not count marked with its status, lib/tasks FlightStatus). */
 const runFlightsText = (flights: RecordRunFlight[] | null) =>
-  flights && flights.length > 0 ? `: ${flights.map((f) => `${(f.timeTenths / 10).toFixed(1)}${f.status === "counted" ? "" : ` (${f.status})`}`).join(" ")}` : "";
+  flights && flights.length > 0 ? `: ${flights.map((f) => `${(f.timeTenths / 10).toFixed(1)}${f.status === "counted" ? "" : ` (${f.status.replace("-", " ")})`}`).join(" ")}` : "";
 
 const stamp = (d: Date | null, zone: string) => (d ? formatClock(d, zone, "short") : "");
 
