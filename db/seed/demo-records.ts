@@ -44,6 +44,7 @@ export async function seedDemoReflightRecords(db: Database, contestId: string): 
   const [kept] = await db.select({ id: slotRecords.id }).from(slotRecords).where(eq(slotRecords.reflightId, grant.id)).limit(1);
   if (kept) return;
   const keeper = grant.keeper;
+  const [keeperUser] = await db.select({ name: users.name }).from(users).where(eq(users.id, keeper));
   const task = grant.task as TaskDefinition;
   const start = Date.parse("2027-01-16T11:50:00Z");
   const runId = uuidv7({ msecs: start });
@@ -58,7 +59,7 @@ export async function seedDemoReflightRecords(db: Database, contestId: string): 
   }
   taps.push({ atMs: t + 600_000, body: { kind: "signed", lane: 0 } });
   await db.transaction(async (tx) => {
-    await tx.insert(devices).values({ id: deviceId, userId: keeper, label: "Mara's contest timing phone" }).onConflictDoNothing();
+    await tx.insert(devices).values({ id: deviceId, userId: keeper, label: `${keeperUser?.name ?? "Mara"}'s contest timing phone` }).onConflictDoNothing();
     const sessionId = uuidv7({ msecs: start - 60_000 });
     await tx.insert(fieldSessions).values({ id: sessionId, ownerId: keeper, clubId: grant.clubId, fieldName: grant.field, startedAt: new Date(start - 60_000) });
     await tx.insert(runs).values({ id: runId, sessionId, createdBy: keeper, task, taskCode: task.letter ?? "custom", edition: task.edition, createdAt: new Date(start - 30_000) });
@@ -72,7 +73,7 @@ export async function seedDemoReflightRecords(db: Database, contestId: string): 
     const signedAt = new Date(start + t + 600_000);
     await tx.insert(slotRecords).values({
       reflightId: grant.id, runId, lane: 0, recordedBy: keeper, recordedAt: new Date(start + t), signedAt,
-      signedFrom: "on the phone: pilot Bea Quillfeather, timekeeper Mara Lindqvist", keptAt: new Date("2027-01-16T12:05:00Z"),
+      signedFrom: `on the phone: pilot Bea Quillfeather, timekeeper ${keeperUser?.name ?? "Mara"}`, keptAt: new Date("2027-01-16T12:05:00Z"),
     });
   });
 }
