@@ -1,11 +1,13 @@
 import { UNDER_DISPUTE } from "@/lib/contests/disputes";
+import { RECORDS_UNDECIDED } from "@/lib/contests/records";
 import type { PilotRow, Standings } from "@/lib/contests/standings";
 
 const pts = (tenths: number | null) => (tenths === null ? "—" : (tenths / 10).toFixed(1));
 
 function RoundCellText({ cell }: { cell: PilotRow["rounds"][number] }) {
   if (cell.pointsTenths === null) {
-    return <><span className="text-muted" aria-label="not recorded yet">—</span>{cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}</>;
+    return <><span className="text-muted" aria-label="not recorded yet">—</span>{cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}
+      {cell.undecided && <span className="block text-xs font-bold text-warn">{RECORDS_UNDECIDED}</span>}</>;
   }
   const text = pts(cell.pointsTenths);
   return (
@@ -15,6 +17,7 @@ function RoundCellText({ cell }: { cell: PilotRow["rounds"][number] }) {
       {cell.penaltyPoints > 0 && <span className="block text-xs">−{cell.penaltyPoints} pen.{cell.phonePenaltyPoints > 0 ? ` (${cell.phonePenaltyPoints} on the phone)` : ""}</span>}
       {cell.reflight && <span className="block text-xs">{cell.reflight.stands === "reflight" ? "re-flight stands" : "first flight stands"}</span>}
       {cell.disputed && <span className="block text-xs font-bold text-warn">{UNDER_DISPUTE}</span>}
+      {cell.undecided && <span className="block text-xs font-bold text-warn">{RECORDS_UNDECIDED}</span>}
     </>
   );
 }

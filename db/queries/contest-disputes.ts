@@ -49,8 +49,13 @@ export async function resolveDispute(db: Database, p: {
       if (!r) return "no_action";
     }
     if (p.action === "record-decision") {
-      const [r] = await tx.select({ id: slotRecords.id }).from(slotRecords).innerJoin(groupSlots, eq(groupSlots.id, slotRecords.slotId))
-        .where(and(eq(groupSlots.roundId, p.roundId), eq(groupSlots.entryId, d.entryId), isNotNull(slotRecords.outcome))).limit(1);
+      // a decision between the slot's records or between the re-flight grant's
+      const [r] = await tx.select({ id: slotRecords.id }).from(slotRecords)
+        .leftJoin(groupSlots, eq(groupSlots.id, slotRecords.slotId)).leftJoin(contestReflights, eq(contestReflights.id, slotRecords.reflightId))
+        .where(and(
+          sql`coalesce(${groupSlots.roundId}, ${contestReflights.roundId}) = ${p.roundId}`, sql`coalesce(${groupSlots.entryId}, ${contestReflights.entryId}) = ${d.entryId}`,
+          isNotNull(slotRecords.outcome),
+        )).limit(1);
       if (!r) return "no_action";
     }
     await tx.update(contestDisputes).set({ status: p.status, outcome: p.outcome, action: p.action, resolvedBy: p.userId, resolvedAt: new Date() })

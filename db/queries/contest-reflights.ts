@@ -36,7 +36,9 @@ export async function grantReflight(db: Database, p: {
 /**
  * Records a granted re-flight's result: a paper card's flight times, or a timed run's lane (one that
  * listLinkableLanes offers for this contest), or neither (cleared); and its signature (F3K.1.2).
- * A new link or card needs its own signature: a signature is kept only when `signed` says so.
+ * A new link or card needs its own signature: a signature is kept only when `signed` says so. A card
+ * with flights over a linked run keeps the run in slot_records for the officer's decision (as
+ * saveGroupCards does for a slot); an officer's own link is itself a decision and keeps nothing.
  */
 export async function recordReflight(db: Database, p: {
   contestId: string; roundId: string; entryId: string; userId: string; flights: number[] | null; link: { runId: string; lane: number } | null; signed: boolean;
@@ -49,6 +51,14 @@ export async function recordReflight(db: Database, p: {
       const [round] = await tx.select({ task: contestRounds.task }).from(contestRounds).where(eq(contestRounds.id, p.roundId));
       const lanes = await listLinkableLanes(tx as unknown as Database, { clubId: c!.clubId, day: c!.day, letter: (round!.task as TaskDefinition).letter });
       if (!lanes.some((l) => l.runId === p.link!.runId && l.lane === p.link!.lane)) return "no_lane";
+    }
+    // a card with flights outranks a linked timed run (a timekeeper's phone run): the run is kept for the officer's decision (once)
+    if (p.flights !== null) {
+      await tx.execute(sql`
+        insert into slot_records (reflight_id, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
+        select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from contest_reflights g
+        where g.id = ${r.id} and g.run_id is not null and g.paper_flights is null
+          and not exists (select 1 from slot_records k where k.reflight_id = g.id and k.outcome is null and k.run_id = g.run_id and k.lane = g.lane)`);
     }
     const now = new Date();
     await tx.update(contestReflights).set({

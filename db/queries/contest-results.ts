@@ -7,6 +7,7 @@ import { contestEntries, contestRounds, contests, groupSlots, runLanes } from ".
 import { listLinkableLanes } from "./contest-lanes";
 import { openDisputesOfRounds } from "./contest-disputes";
 import { officerPenaltiesOfRounds } from "./contest-penalties";
+import { undecidedOfRounds } from "./contest-records";
 import { reflightsOfRounds } from "./contest-reflights";
 import { requestsFromLinkedLane } from "./contest-reflight-requests";
 
@@ -33,7 +34,9 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
     .where(inArray(groupSlots.roundId, rounds.map((r) => r.id)))
     .orderBy(asc(groupSlots.groupNumber));
   const roundIds = rounds.map((r) => r.id);
-  const [reflights, disputed, officerPenalties] = await Promise.all([reflightsOfRounds(db, roundIds), openDisputesOfRounds(db, roundIds), officerPenaltiesOfRounds(db, roundIds)]);
+  const [reflights, disputed, officerPenalties, undecided] = await Promise.all([
+    reflightsOfRounds(db, roundIds), openDisputesOfRounds(db, roundIds), officerPenaltiesOfRounds(db, roundIds), undecidedOfRounds(db, roundIds),
+  ]);
   return {
     contest: { id: c.id, name: c.name, startsOn: c.startsOn, fieldName: c.fieldName, dropRule: c.dropRule, clubId: c.clubId, publicToken: c.publicToken, flyOffPilots: c.flyOffPilots },
     input: {
@@ -46,6 +49,7 @@ export async function getResultsData(db: Database, contestId: string): Promise<R
         paperFlights: s.paperFlights, signed: s.signedAt !== null, penaltyPoints: s.penaltyPoints, runPenaltyPoints: s.runPenaltyPoints ?? 0,
         officerPenalties: officerPenalties.get(`${s.roundId}/${s.entryId}`) ?? [],
         reflight: reflights.get(`${s.roundId}/${s.entryId}`) ?? null, disputed: disputed.has(`${s.roundId}/${s.entryId}`),
+        undecided: undecided.has(`${s.roundId}/${s.entryId}`),
       })),
     },
     flights: slots.map((s) => ({ roundId: s.roundId, groupNumber: s.groupNumber, entryId: s.entryId, runFlights: (s.runFlights as ResultsData["flights"][number]["runFlights"]) ?? null })),

@@ -170,12 +170,19 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
  * A re-flight duty's run (RunEntity.contest.reflightId): its lane becomes the re-flight grant's result
  * (not the slot's), only when the pushing account is the grant's timekeeper and the lane's entry is the
  * grant's pilot in that round. A paper card and an earlier signature on the grant are cleared (a new
- * result needs its own signature, F3K.1.2); which result stands is lib/scoring/reflight.ts, as for any
+ * result needs its own signature, F3K.1.2) and the record replaced is kept in slot_records (reflight_id)
+ * for the officer's decision; which result stands is lib/scoring/reflight.ts, as for any
  * re-flight result.
  */
 async function linkReflightLane(tx: Executor, userId: string, p: { runId: string; roundId: string; reflightId: string; slots: { lane: number; entryId: string }[] }, now: Date): Promise<number> {
   const slot = p.slots[0];
   if (!slot) return 0;
+  // the record this run replaces (a paper card, or another run) is kept for the officer's decision, as for a slot
+  await tx.execute(sql`
+    insert into slot_records (reflight_id, paper_flights, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
+    select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from contest_reflights g
+    where g.id = ${p.reflightId} and g.round_id = ${p.roundId} and g.entry_id = ${slot.entryId} and g.timekeeper_user_id = ${userId}
+      and (g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${p.runId}::uuid, ${slot.lane}::smallint)))`);
   const done = await tx.update(contestReflights).set({
     runId: p.runId, lane: slot.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
   }).where(and(

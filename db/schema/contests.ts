@@ -127,29 +127,3 @@ export const paymentEvents = pgTable("payment_events", {
   entryId: uuid("entry_id").references(() => contestEntries.id, { onDelete: "set null" }),
   receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
 });
-
-/**
- * A second record of one pilot's round result kept for the officer's decision: what a slot held
- * before a newer record replaced it (a timekeeper's phone run over a paper card or an earlier run),
- * or a timed run a paper card now outranks. Pending while `outcome` is null; the officer's decision
- * (`decided_by`, `decided_at`) counts it ("counted": it becomes the slot's record) or sets it aside.
- */
-export const slotRecords = pgTable(
-  "slot_records",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    slotId: uuid("slot_id").notNull().references(() => groupSlots.id, { onDelete: "cascade" }),
-    paperFlights: jsonb("paper_flights").$type<number[]>(),
-    runId: uuid("run_id"),
-    lane: smallint("lane"),
-    recordedBy: uuid("recorded_by").references(() => users.id, { onDelete: "set null" }),
-    recordedAt: timestamp("recorded_at", { withTimezone: true }),
-    signedAt: timestamp("signed_at", { withTimezone: true }),
-    signedFrom: text("signed_from"),
-    keptAt: timestamp("kept_at", { withTimezone: true }).notNull().defaultNow(),
-    outcome: text("outcome").$type<"counted" | "set-aside">(),
-    decidedBy: uuid("decided_by").references(() => users.id, { onDelete: "set null" }),
-    decidedAt: timestamp("decided_at", { withTimezone: true }),
-  },
-  (t) => [index("slot_records_slot_idx").on(t.slotId)],
-);

@@ -17,6 +17,7 @@ export * from "./club-days";
 export * from "./run-folds";
 export * from "./contest-draw-changes";
 export * from "./contest-reflights";
+export * from "./contest-records";
 export * from "./contest-disputes";
 export * from "./contest-reflight-requests";
 export * from "./contest-penalties";

@@ -11,7 +11,7 @@ import { seedDemoFees } from "./demo-fees";
 import { seedDemoDisputes } from "./demo-disputes";
 import { seedDemoPenalties } from "./demo-penalties";
 import { seedDemoPhoneSetAside } from "./demo-phone-set-aside";
-import { seedDemoRecords } from "./demo-records";
+import { seedDemoRecords, seedDemoReflightRecords } from "./demo-records";
 import { seedDemoReflightRequest, seedDemoReflights } from "./demo-reflights";
 import { seedDemoTimekeepers } from "./demo-timekeepers";
 
@@ -24,7 +24,7 @@ const PAPER = ["Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgro
  * 20261212), not locked; with an entry fee (demo-fees.ts); rounds 1–3 with results
  * (./demo-results.ts); in round 5 the officer had Gus Wendle trade groups with a pilot of another
  * group (a change of the draw, listed under it); round 1 with its timekeepers (./demo-timekeepers.ts); a
- * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 (./demo-records.ts);
+ * re-flight in round 2 (./demo-reflights.ts); two records of one pilot in round 1 and of the round-2 re-flight (./demo-records.ts);
  * two disputes (./demo-disputes.ts: one upheld by that re-flight, one open in round 3);
  * two officer's penalties in round 3 (./demo-penalties.ts: one counting, one removed);
  * a fly-off planned for the best 5 in 3 rounds (tasks M, A, B), not drawn yet: rounds 4 and 5 are
@@ -37,6 +37,7 @@ export async function seedDemoContest(db: Database): Promise<void> {
   if (contestId) await seedDemoReflights(db, contestId);
   if (contestId) await seedDemoReflightRequest(db, contestId);
   if (contestId) await seedDemoRecords(db, contestId);
+  if (contestId) await seedDemoReflightRecords(db, contestId);
   if (contestId) await seedDemoDisputes(db, contestId);
   if (contestId) await seedDemoPenalties(db, contestId);
   if (contestId) await seedDemoPhoneSetAside(db, contestId);

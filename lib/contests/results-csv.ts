@@ -1,5 +1,6 @@
 import Papa from "papaparse";
 import { secondsText } from "@/lib/tasks/time";
+import { RECORDS_UNDECIDED } from "./records";
 import { UNDER_DISPUTE } from "./disputes";
 import { paperCardResult } from "./paper-card";
 import { clockText, penaltyCauseText, penaltyNotCounted, penaltySourceWords, type ContestPenalty } from "./penalties";
@@ -23,7 +24,8 @@ export function resultsCsv(s: Standings): string {
     ...p.rounds.map((c) => (c.dropped ? `(${points(c.pointsTenths)})` : points(c.pointsTenths))),
     points(p.penaltyTenths), points(p.totalTenths),
     [p.unresolvedTie ? "tie: fly-off" : "", ...p.rounds.filter((c) => c.resultTenths !== null && !c.signed).map((c) => `round ${c.roundNumber} unsigned`),
-      ...p.rounds.filter((c) => c.disputed).map((c) => `round ${c.roundNumber} ${UNDER_DISPUTE}`)].filter(Boolean).join("; "),
+      ...p.rounds.filter((c) => c.disputed).map((c) => `round ${c.roundNumber} ${UNDER_DISPUTE}`),
+      ...p.rounds.filter((c) => c.undecided).map((c) => `round ${c.roundNumber} ${RECORDS_UNDECIDED}`)].filter(Boolean).join("; "),
     p.rounds.filter((c) => c.reflight).map((c) => `round ${c.roundNumber}: ${reflightNote(c)}`).join("; "),
   ]);
   return csv(fields, data);

@@ -36,6 +36,8 @@ export type StandingsSlot = RecordedResult & {
   reflight?: StandingsReflight | null;
   /** An officer recorded a dispute about this result and it is still open (lib/contests/disputes.ts); absent = none. */
   disputed?: boolean;
+  /** The slot or its re-flight grant has a second record waiting for the officer's decision (lib/contests/records.ts); absent = none. */
+  undecided?: boolean;
 };
 export type StandingsReflight = RecordedResult & {
   placement: ReflightPlacement;
@@ -75,6 +77,8 @@ export type RoundCell = {
   reflight?: { placement: ReflightPlacement; originalTenths: number; reflightTenths: number; stands: "original" | "reflight" } | null;
   /** A dispute about this result is open: shown as "result under dispute" (no names; public too). */
   disputed: boolean;
+  /** Two records wait for the officer's decision (RECORDS_UNDECIDED; public too). */
+  undecided: boolean;
 };
 export type PilotRow = Omit<Standing, "pilotId"> & { entryId: string; name: string; team: string | null; rounds: RoundCell[]; withdrawn: boolean };
 export type Standings = {
@@ -146,6 +150,7 @@ function scoreSlots(input: StandingsInput): Scored {
         groupNumber: group, resultTenths: x.resultTenths, pointsTenths: x.resultTenths === null ? null : points[i]!,
         signed: x.signed, source: x.source, penaltyPoints: x.penalty.points, phonePenaltyPoints: x.penalty.phonePoints, zeroedByPenalty: x.penalty.zeroesRound,
         reflight: x.reflight, disputed: x.slot.disputed ?? false,
+        undecided: x.slot.undecided ?? false,
       }));
     }
     byRound.set(round.id, cells);
@@ -160,7 +165,8 @@ function pilotRows(rounds: readonly StandingsRound[], scored: Scored, entries: r
     const cells = rounds.map((r): RoundCell => {
       const c = scored.get(r.id)?.get(e.id);
       return { roundNumber: r.number, groupNumber: c?.groupNumber ?? null, resultTenths: c?.resultTenths ?? null, pointsTenths: c?.pointsTenths ?? null,
-        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, phonePenaltyPoints: c?.phonePenaltyPoints ?? 0, zeroedByPenalty: c?.zeroedByPenalty ?? false, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false };
+        signed: c?.signed ?? false, source: c?.source ?? null, penaltyPoints: c?.penaltyPoints ?? 0, phonePenaltyPoints: c?.phonePenaltyPoints ?? 0, zeroedByPenalty: c?.zeroedByPenalty ?? false, dropped: false, reflight: c?.reflight ?? null, disputed: c?.disputed ?? false,
+        undecided: c?.undecided ?? false };
     });
     return { entry: e, cells };
   });

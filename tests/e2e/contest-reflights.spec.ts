@@ -1,4 +1,5 @@
 import { expect, test, type BrowserContext } from "@playwright/test";
+import Papa from "papaparse";
 import pg from "pg";
 import { signInAs } from "./support/auth";
 import { insertTrialContest } from "./support/contest-db";
@@ -189,6 +190,53 @@ test("the officer sees a re-flight asked on a timekeeper's phone and grants it (
     await expect(page.getByRole("listitem", { name: `Re-flight, ${pilot}` })).toContainText("Granted by Ines Varga");
     const { rows: [row] } = await db.query("select q.status, g.cause from contest_reflight_requests q join contest_reflights g on g.id = q.reflight_id join contest_rounds r on r.id = q.round_id where r.contest_id = $1", [demo!.id]);
     expect(row).toMatchObject({ status: "granted", cause: "launch-collision" });
+  } finally {
+    await db.end();
+  }
+});
+
+test("the officer sees both records of the seeded re-flight side by side, counts the phone's run, and the results follow", async ({ page }) => {
+  const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await db.connect();
+  try {
+    const { rows: [demo] } = await db.query<{ id: string }>("select id from contests where name = 'Heronmoor Winter Cup'");
+    const csvOf = async () => Papa.parse<Record<string, string>>(await (await page.request.get(`/api/contests/${demo!.id}/results?format=csv`)).text(), { header: true, skipEmptyLines: true }).data
+      .find((r) => r.Pilot === "Bea Quillfeather")!;
+    await signInAs(page, "ines@example.com");
+
+    // the seed (db/seed/demo-records.ts): Bea's re-flight card counts; Mara's phone run of it, with other times, waits beside it
+    await page.goto(`/contests/${demo!.id}/results`);
+    const bea = page.getByRole("row").filter({ has: page.getByRole("rowheader", { name: "Bea Quillfeather" }) }).first();
+    await expect(bea).toContainText("two records, not decided yet");
+    // task B scores the last two flights (RULES.md, task B): the card 165.5 + 173.0 = 338.5 s, the run 150.6 + 168.4 = 319.0 s (by hand)
+    expect((await csvOf())["Re-flights"]).toMatch(/^round 2: original \d+\.\d s, re-flight 338\.5 s: (re-flight|original) counted$/);
+    expect((await csvOf()).Note).toContain("round 2 two records, not decided yet");
+
+    await page.goto(`/contests/${demo!.id}/rounds/2`);
+    const records = page.getByRole("listitem", { name: "Records, Bea Quillfeather's re-flight" });
+    await expect(records).toContainText("the records disagree");
+    const counting = records.getByRole("group", { name: "Counting record, Bea Quillfeather's re-flight" });
+    await expect(counting).toContainText("Counts now: 5:38.5");
+    await expect(counting).toContainText("Paper card: 141.2 165.5 173.0");
+    await expect(counting).toContainText("recorded by Ines Varga");
+    await expect(counting).toContainText("marked by an officer");
+    const kept = records.getByRole("group", { name: "Kept record 1, Bea Quillfeather's re-flight" });
+    await expect(kept).toContainText("Kept: 5:19.0");
+    // task B counts the last two flights: the first is marked
+    await expect(kept).toContainText("Timed run, lane 1: 141.3 (not counted) 150.6 168.4");
+    await expect(kept).toContainText("recorded by Mara Lindqvist");
+    await expect(kept).toContainText("on the phone: pilot Bea Quillfeather, timekeeper Mara Lindqvist");
+    await kept.getByRole("button", { name: "Count this one" }).click();
+    await expect(records).toHaveCount(0);
+    const { rows: decided } = await db.query<{ outcome: string; who: string }>(
+      `select k.outcome, u.name as who from slot_records k join contest_reflights g on g.id = k.reflight_id join contest_rounds r on r.id = g.round_id
+       join users u on u.id = k.decided_by where r.contest_id = $1 order by k.outcome`, [demo!.id]);
+    expect(decided).toEqual([{ outcome: "counted", who: "Ines Varga" }, { outcome: "set-aside", who: "Ines Varga" }]);
+
+    // the run is the re-flight's result now; which of original and re-flight stands is still F3K.9.6's
+    await page.goto(`/contests/${demo!.id}/results`);
+    await expect(bea).not.toContainText("two records, not decided yet");
+    expect((await csvOf())["Re-flights"]).toMatch(/^round 2: original \d+\.\d s, re-flight 319\.0 s: (re-flight|original) counted$/);
   } finally {
     await db.end();
   }

@@ -352,6 +352,9 @@ const ROWS: Record<string, Row> = {
   "PUT /api/contests/[contestId]/rounds/[roundNumber]/records": {
     params: contest.recordsContestOfOwnersClub, body: contest.keepRecordBody, check: contest.recordDecided, cast: "fresh", expect: club.OFFICERS_ONLY(200),
   },
+  "PUT /api/contests/[contestId]/rounds/[roundNumber]/reflights/records": {
+    params: contest.reflightRecordsContestOfOwnersClub, body: contest.keepRecordBody, check: contest.reflightRecordDecided, cast: "fresh", expect: club.OFFICERS_ONLY(200),
+  },
   "POST /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast), check: contest.linkMade, cast: "fresh", expect: club.OFFICERS_ONLY(201) },
   "DELETE /api/contests/[contestId]/public-link": { params: (cast) => contest.contestOfOwnersClub(cast, true, true), check: contest.linkRevoked, cast: "fresh", expect: club.OFFICERS_ONLY(200) },
   "GET /api/public-results/[token]": publicByDesign("the officer's unguessable results link (32 random bytes) publishes the standings without an account; revoked → 404 (tests/integration/contest-results.test.ts)"),

@@ -1,15 +1,11 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
-import { POST as createClubRoute } from "@/app/api/clubs/route";
-import { POST as createContestRoute } from "@/app/api/clubs/[slug]/contests/route";
-import { POST as paperEntryRoute } from "@/app/api/contests/[contestId]/paper-entries/route";
-import { POST as drawRoute } from "@/app/api/contests/[contestId]/draw/route";
-import { POST as lockRoute } from "@/app/api/contests/[contestId]/draw/lock/route";
 import { POST as swapRoute } from "@/app/api/contests/[contestId]/draw/swap/route";
 import { POST as redrawRoute } from "@/app/api/contests/[contestId]/draw/redraw/route";
 import { listDrawChanges } from "@/db/queries/contest-draw-changes";
+import { drawnContest, inContest, json, reply } from "./support/contest-setup";
 import { actAs } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, getPool } from "./support/db";
 
 /** Issue #15: the officer swaps two pilots of a round and re-draws the rounds not flown yet, after the draw is locked. */
 
@@ -18,10 +14,6 @@ afterAll(async () => {
   await getPool().end();
 });
 
-const json = (body: unknown) =>
-  new Request("http://test/api", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-const reply = async (res: Response) => ({ status: res.status, body: await res.json() });
-const inContest = (contestId: string) => ({ params: Promise.resolve({ contestId }) });
 
 type Slot = { round: number; group: number; entry: string; name: string; run: string | null };
 async function slotsOf(contestId: string): Promise<Slot[]> {
@@ -32,27 +24,10 @@ async function slotsOf(contestId: string): Promise<Slot[]> {
 }
 
 /** A locked draw of 12 paper entries (two with one keep-apart word) over 5 rounds in groups of at most 6. */
-async function lockedContest(label: string, drawIt = true) {
-  const officer = await freshUser(`${label}-officer`);
-  actAs(officer);
-  const club = await reply(await createClubRoute(json({ name: `Draw Club ${label}` })));
-  const slug = club.body.club.slug as string;
-  const made = await reply(await createContestRoute(json({
-    name: `Draw Cup ${label}`, startsOn: "2027-03-06", fieldName: "Willow Flats", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })),
-    maxGroupSize: 6, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false,
-  }), { params: Promise.resolve({ slug }) }));
-  expect(made.status).toBe(201);
-  const contestId = made.body.contest.id as string;
-  for (let i = 1; i <= 12; i++) {
-    const res = await paperEntryRoute(json({ pilotName: `Pilot ${String(i).padStart(2, "0")}`, keepApart: i <= 2 ? "shared helper" : null }), inContest(contestId));
-    expect(res.status).toBe(201);
-  }
-  if (drawIt) {
-    expect((await drawRoute(json({ seed: 42 }), inContest(contestId))).status).toBe(201);
-    expect((await lockRoute(json({}), inContest(contestId))).status).toBe(200);
-  }
-  return { officer, contestId };
-}
+const lockedContest = (label: string, drawIt = true) => drawnContest({
+  officerLabel: `${label}-officer`, clubName: `Draw Club ${label}`, cupName: `Draw Cup ${label}`, draw: drawIt, lock: true,
+  pilots: Array.from({ length: 12 }, (_, i) => ({ pilotName: `Pilot ${String(i + 1).padStart(2, "0")}`, keepApart: i < 2 ? "shared helper" : null })),
+});
 
 describe("changing a locked draw", () => {
   it("swaps two pilots of different groups of one round, records who and why, and changes no other slot", async () => {

@@ -1,14 +1,12 @@
 import "./support/session";
 import { afterAll, describe, expect, it } from "vitest";
-import { POST as createClubRoute } from "@/app/api/clubs/route";
-import { POST as createContestRoute } from "@/app/api/clubs/[slug]/contests/route";
-import { POST as paperEntryRoute } from "@/app/api/contests/[contestId]/paper-entries/route";
 import { POST as drawRoute } from "@/app/api/contests/[contestId]/draw/route";
 import { POST as lockRoute } from "@/app/api/contests/[contestId]/draw/lock/route";
 import { POST as redrawRoute } from "@/app/api/contests/[contestId]/draw/redraw/route";
 import { contestReflights } from "@/db/schema";
+import { drawnContest as drawnThroughRoutes, inContest, json, reply } from "./support/contest-setup";
 import { actAs } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, getPool } from "./support/db";
 
 /**
  * Issue #15: a draw made again before the lock never deletes results flown in the preliminary rounds
@@ -21,10 +19,6 @@ afterAll(async () => {
   await getPool().end();
 });
 
-const json = (body: unknown) =>
-  new Request("http://test/api", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
-const reply = async (res: Response) => ({ status: res.status, body: await res.json() });
-const inContest = (contestId: string) => ({ params: Promise.resolve({ contestId }) });
 
 type Row = { round: number; group: number; entry: string; cards: unknown; signed: string | null };
 async function state(contestId: string) {
@@ -36,19 +30,11 @@ async function state(contestId: string) {
   return { slots: slots.rows, grants: grants.rows, seed: seed.rows[0]!.draw_seed };
 }
 
-async function drawnContest(label: string) {
-  const officer = await freshUser(`${label}-officer`);
-  actAs(officer);
-  const club = await reply(await createClubRoute(json({ name: `Draw Results Club ${label}` })));
-  const made = await reply(await createContestRoute(json({
-    name: `Draw Results Cup ${label}`, startsOn: "2027-03-06", fieldName: "Willow Flats", rounds: ["A", "B", "D", "F", "G"].map((letter) => ({ letter })),
-    maxGroupSize: 6, prepMinutes: 5, noFlySeconds: 60, dropRule: "f3k", practice: false,
-  }), { params: Promise.resolve({ slug: club.body.club.slug as string }) }));
-  const contestId = made.body.contest.id as string;
-  for (let i = 1; i <= 8; i++) expect((await paperEntryRoute(json({ pilotName: `Pilot ${i}` }), inContest(contestId))).status).toBe(201);
-  expect((await drawRoute(json({ seed: 42 }), inContest(contestId))).status).toBe(201);
-  return { officer, contestId };
-}
+/** 8 paper entries drawn over 5 rounds (seed 42), not locked. */
+const drawnContest = (label: string) => drawnThroughRoutes({
+  officerLabel: `${label}-officer`, clubName: `Draw Results Club ${label}`, cupName: `Draw Results Cup ${label}`,
+  pilots: Array.from({ length: 8 }, (_, i) => ({ pilotName: `Pilot ${i + 1}` })),
+});
 
 describe("the draw and results already entered", () => {
   it("without results the draw is made again (201); an old draw's re-flight grant without a result goes with it", async () => {

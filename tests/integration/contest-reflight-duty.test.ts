@@ -5,12 +5,11 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as decideRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests/route";
 import { PUT as keeperRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
-import { listChanges } from "@/db/queries/sync-pull";
-import { clubs, contestEntries, contestReflights, contestRounds, contests, groupSlots, memberships } from "@/db/schema";
+import { contestReflights, groupSlots } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
-import type { PullReply } from "@/lib/validations/sync";
+import { clubContest, lastPage } from "./support/contest-setup";
 import { actAs, type MockSessionUser } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, getPool } from "./support/db";
 import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
 
 /**
@@ -31,25 +30,15 @@ let contestId = "";
 let round1 = "";
 let grantId = "";
 const ids: Record<string, string> = {};
-const today = new Date().toISOString().slice(0, 10);
 
 beforeAll(async () => {
-  [officer, member, keeper, flyer, stranger] = (await Promise.all(["rd-officer", "rd-member", "rd-keeper", "rd-flyer", "rd-stranger"].map((l) => freshUser(l)))) as [
-    MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser,
-  ];
-  const [club] = await db.insert(clubs).values({ name: "Re-flight Duty Club", slug: `rduty-${randomUUID().slice(0, 8)}` }).returning();
-  await db.insert(memberships).values([
-    { clubId: club!.id, userId: officer.id, role: "officer" }, { clubId: club!.id, userId: member.id, role: "member" }, { clubId: club!.id, userId: keeper.id, role: "member" },
-  ]);
-  const [c] = await db.insert(contests).values({ clubId: club!.id, name: "Re-flight Duty Cup", startsOn: today, fieldName: "Long Acre", drawSeed: 3 }).returning();
-  contestId = c!.id;
-  const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
-  round1 = rounds[0]!.id;
-  const entries = await db.insert(contestEntries).values([
-    { contestId, pilotName: "Ada Fenn", pilotUserId: flyer.id }, { contestId, pilotName: "Bo Marsh", paper: true },
-    { contestId, pilotName: "Cy Rook", paper: true },
-  ]).returning();
-  for (const e of entries) ids[e.pilotName] = e.id;
+  const made = await clubContest("rd", {
+    club: "Re-flight Duty Club", contest: "Re-flight Duty Cup", pilots: [{ name: "Ada Fenn", user: "flyer" }, { name: "Bo Marsh" }, { name: "Cy Rook" }],
+  });
+  ({ officer, member, keeper, flyer, stranger } = made.cast);
+  contestId = made.contestId;
+  round1 = made.rounds[0]!;
+  Object.assign(ids, made.ids);
   // group 1: Ada and Bo; Bo's first flight, a signed paper card of 100.0 s (task A: the last flight)
   await db.insert(groupSlots).values([
     { roundId: round1, groupNumber: 1, entryId: ids["Ada Fenn"]!, paperFlights: [1500], signedAt: new Date(), signedFrom: "paper card" },
@@ -68,14 +57,6 @@ const put = (body: unknown) => keeperRoute(
 const grant = async () => (await db.select().from(contestReflights).where(eq(contestReflights.id, grantId)))[0]!;
 const boSlot = async () => (await db.select().from(groupSlots).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids["Bo Marsh"]!))))[0]!;
 
-async function lastPage(userId: string): Promise<PullReply> {
-  let cursor = "0";
-  for (;;) {
-    const page = await listChanges(db, { userId, cursor });
-    if (!page.hasMore) return page;
-    cursor = page.nextCursor;
-  }
-}
 
 const keeperPhone = recorder(deviceId());
 

@@ -1,17 +1,15 @@
 import "./support/session";
-import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as keepersRoute } from "@/app/api/contests/[contestId]/rounds/[roundNumber]/timekeepers/route";
 import { GET as resultsRoute } from "@/app/api/contests/[contestId]/results/route";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
 import { listContestPenalties } from "@/db/queries/contest-penalties";
-import { listChanges } from "@/db/queries/sync-pull";
-import { clubs, contestEntries, contestRounds, contests, groupSlots, memberships, runs } from "@/db/schema";
+import { groupSlots, runs } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
-import type { PullReply } from "@/lib/validations/sync";
+import { clubContest, lastPage } from "./support/contest-setup";
 import { actAs, type MockSessionUser } from "./support/session";
-import { db, freshUser, getPool } from "./support/db";
+import { db, getPool } from "./support/db";
 import { deviceId, push, recorder, run, session, T0 } from "./sync-fixtures";
 
 /**
@@ -30,27 +28,17 @@ let contestId = "";
 let clubId = "";
 let round1 = "";
 const ids: Record<string, string> = {};
-const today = new Date().toISOString().slice(0, 10);
 
 beforeAll(async () => {
-  [officer, member, keeper, flyer, stranger] = (await Promise.all(["tk-officer", "tk-member", "tk-keeper", "tk-flyer", "tk-stranger"].map((l) => freshUser(l)))) as MockSessionUser[] as [
-    MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser, MockSessionUser,
-  ];
-  const [club] = await db.insert(clubs).values({ name: "Keepers Club", slug: `keepers-${randomUUID().slice(0, 8)}` }).returning();
-  await db.insert(memberships).values([
-    { clubId: club!.id, userId: officer.id, role: "officer" }, { clubId: club!.id, userId: member.id, role: "member" }, { clubId: club!.id, userId: keeper.id, role: "member" },
-  ]);
-  clubId = club!.id;
-  const [c] = await db.insert(contests).values({ clubId: club!.id, name: "Keepers Cup", startsOn: today, fieldName: "Long Acre", drawSeed: 3 }).returning();
-  contestId = c!.id;
-  const rounds = await db.insert(contestRounds).values(["A", "B", "D", "F", "G"].map((l, i) => ({ contestId, number: i + 1, task: getCatalogueTask(l as "A") }))).returning();
-  round1 = rounds[0]!.id;
   // the flyer entered with an account (not a club member): an entered pilot may keep time in a group they do not fly in
-  const entries = await db.insert(contestEntries).values([
-    { contestId, pilotName: "Ada Fenn", pilotUserId: flyer.id }, { contestId, pilotName: "Bo Marsh", paper: true },
-    { contestId, pilotName: "Cy Rook", paper: true }, { contestId, pilotName: "Di Oakes", paper: true },
-  ]).returning();
-  for (const e of entries) ids[e.pilotName] = e.id;
+  const made = await clubContest("tk", {
+    club: "Keepers Club", contest: "Keepers Cup",
+    pilots: [{ name: "Ada Fenn", user: "flyer" }, { name: "Bo Marsh" }, { name: "Cy Rook" }, { name: "Di Oakes" }],
+  });
+  ({ officer, member, keeper, flyer, stranger } = made.cast);
+  ({ clubId, contestId } = made);
+  round1 = made.rounds[0]!;
+  Object.assign(ids, made.ids);
   await db.insert(groupSlots).values([
     { roundId: round1, groupNumber: 1, entryId: ids["Ada Fenn"]! }, { roundId: round1, groupNumber: 1, entryId: ids["Bo Marsh"]! },
     { roundId: round1, groupNumber: 2, entryId: ids["Cy Rook"]! }, { roundId: round1, groupNumber: 2, entryId: ids["Di Oakes"]! },
@@ -63,14 +51,6 @@ const put = (body: unknown) => keepersRoute(
 );
 const slot = async (name: string) => (await db.select().from(groupSlots).where(and(eq(groupSlots.roundId, round1), eq(groupSlots.entryId, ids[name]!))))[0]!;
 
-async function lastPage(userId: string): Promise<PullReply> {
-  let cursor = "0";
-  for (;;) {
-    const page = await listChanges(db, { userId, cursor });
-    if (!page.hasMore) return page;
-    cursor = page.nextCursor;
-  }
-}
 
 let keeperPhone: ReturnType<typeof recorder> | null = null;
 

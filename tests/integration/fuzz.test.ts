@@ -82,6 +82,7 @@ const ROUTES: Record<string, Partial<Record<"GET" | "POST" | "PUT" | "PATCH" | "
   "/api/contests/[contestId]/rounds/[roundNumber]/timekeepers": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights": { POST: "json", PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflights/timekeeper": { PUT: "json" },
+  "/api/contests/[contestId]/rounds/[roundNumber]/reflights/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/reflight-requests": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/records": { PUT: "json" },
   "/api/contests/[contestId]/rounds/[roundNumber]/disputes": { POST: "json", PUT: "json" },
@@ -179,6 +180,7 @@ function template(path: string, userId: string, real: Real | null = null): Recor
   if (path.endsWith("/draw/swap")) return { round: 1, a: entry(0), b: entry(1) };
   if (path.endsWith("/draw/redraw")) return { fromRound: 2, seed: 3 };
   if (path.endsWith("/runs")) return { entryId: entry(0), runId: uuidv7(), lane: 0 };
+  // a slot's records or a re-flight grant's (…/reflights/records): the same body
   if (path.endsWith("/records")) return { entryId: entry(0), recordId: uuidv7() };
   // one body for both methods (each schema reads its own fields): grant a re-flight, or record its card
   if (path.endsWith("/reflight-requests")) return { requestId: uuidv7(), decision: "grant", placement: "later-group", groupNumber: 2, entitled: true, reason: "Rain" };

@@ -284,6 +284,23 @@ export async function recordDecided(ctx: { user: { id: string } }): Promise<void
   await db.update(slotRecords).set({ outcome: null, decidedBy: null, decidedAt: null }).where(eq(slotRecords.slotId, slot!.id));
 }
 
+/** A re-flight contest (reflightContestOfOwnersClub) where Matrix One's re-flight has a second record waiting: an earlier paper card of 90.0 s. */
+export async function reflightRecordsContestOfOwnersClub(cast: Cast): Promise<Record<string, string>> {
+  const params = await reflightContestOfOwnersClub(cast);
+  const [grant] = await db.select({ id: contestReflights.id }).from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  await db.insert(slotRecords).values({ reflightId: grant!.id, paperFlights: [900] });
+  return params;
+}
+
+/** After a 2xx: the re-flight's waiting record is set aside by the caller; waiting again for the next actor. */
+export async function reflightRecordDecided(ctx: { user: { id: string } }): Promise<void> {
+  const [grant] = await db.select({ id: contestReflights.id }).from(contestReflights).where(eq(contestReflights.entryId, entryId));
+  const rows = await db.select().from(slotRecords).where(eq(slotRecords.reflightId, grant!.id));
+  expect(rows).toHaveLength(1);
+  expect(rows[0]).toMatchObject({ outcome: "set-aside", decidedBy: ctx.user.id });
+  await db.update(slotRecords).set({ outcome: null, decidedBy: null, decidedAt: null }).where(eq(slotRecords.reflightId, grant!.id));
+}
+
 /**
  * A contest ready for its fly-off: the 5 preliminary rounds all scored (Matrix One 150.0 s, Matrix Two
  * 120.0 s on signed paper cards), a fly-off of 3 rounds planned for the best 2, not drawn yet.

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { db } from "@/db";
 import { listRoundDisputes } from "@/db/queries/contest-disputes";
 import { listContestPenalties } from "@/db/queries/contest-penalties";
-import { listPendingRecords } from "@/db/queries/contest-records";
+import { listPendingRecords, type RecordRunFlight } from "@/db/queries/contest-records";
 import { listRoundReflights } from "@/db/queries/contest-reflights";
 import { listRoundReflightRequests } from "@/db/queries/contest-reflight-requests";
 import { listLinkableLanes } from "@/db/queries/contest-lanes";
@@ -72,7 +72,7 @@ export default async function RoundPage({ params }: { params: Promise<{ contestI
         <Records
           contestId={contestId}
           roundKey={key}
-          rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, current: recordView(round.task, zone, null, p), others: p.others.map((o) => recordView(round.task, zone, o.id, o)) }))}
+          rows={pending.map((p) => ({ entryId: p.entryId, name: p.name, groupNumber: p.groupNumber, reflight: p.reflight, current: recordView(round.task, zone, null, p), others: p.others.map((o) => recordView(round.task, zone, o.id, o)) }))}
         />
       )}
       <ReflightRequests
@@ -137,16 +137,20 @@ function flyingByGroup(slots: { entryId: string; groupNumber: number; pilotUserI
   return out;
 }
 
+/** The run's flights in flown order (seconds; a flight the task does not count marked with its status, lib/tasks FlightStatus). */
+const runFlightsText = (flights: RecordRunFlight[] | null) =>
+  flights && flights.length > 0 ? `: ${flights.map((f) => `${(f.timeTenths / 10).toFixed(1)}${f.status === "counted" ? "" : ` (${f.status.replace("-", " ")})`}`).join(" ")}` : "";
+
 const stamp = (d: Date | null, zone: string) => (d ? formatClock(d, zone, "short") : "");
 
 /** One record as the officer compares it: what it is, its result (a paper card through the task engine, a run's server result), who recorded it, its signature. */
 function recordView(task: TaskDefinition, zone: string, id: string | null, r: {
-  paperFlights: number[] | null; runId: string | null; lane: number | null; runResultTenths: number | null; recordedAt: Date | null; recordedBy: string | null; signedAt: Date | null; signedFrom: string | null;
+  paperFlights: number[] | null; runId: string | null; lane: number | null; runResultTenths: number | null; runFlights: RecordRunFlight[] | null; recordedAt: Date | null; recordedBy: string | null; signedAt: Date | null; signedFrom: string | null;
 }): RecordView {
   const paper = r.paperFlights !== null;
   return {
     id,
-    what: paper ? `Paper card: ${r.paperFlights!.map((t) => (t / 10).toFixed(1)).join(" ")}` : r.runId ? `Timed run, lane ${(r.lane ?? 0) + 1}` : "Nothing recorded",
+    what: paper ? `Paper card: ${r.paperFlights!.map((t) => (t / 10).toFixed(1)).join(" ")}` : r.runId ? `Timed run, lane ${(r.lane ?? 0) + 1}${runFlightsText(r.runFlights)}` : "Nothing recorded",
     resultTenths: paper ? paperCardResult(task, r.paperFlights!).tenths : r.runResultTenths,
     recorded: `recorded by ${r.recordedBy ?? "someone"} ${stamp(r.recordedAt, zone)}`.trim(),
     signed: r.signedAt ? `signed ${stamp(r.signedAt, zone)}${r.signedFrom ? `, ${r.signedFrom}` : ""}` : "not signed",
