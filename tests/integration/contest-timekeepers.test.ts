@@ -196,10 +196,11 @@ describe("the timekeeper's run becomes the round's result", () => {
     actAs(keeper);
     const [launch] = (await getPool().query<{ id: string }>(`select id from events where run_id = $1 and body ->> 'kind' = 'launch' and body ->> 'lane' = '0' order by id limit 1`, [runId])).rows;
     // two penalties in one attempt (Ada's launch): 100 (object in a safety area) and 300 (a person in a safety area) → only the 300 counts (F3K.4.3)
-    const res = await push({ deviceId: phone.id, sessions: [], runs: [], events: [
+    const given = [
       phone.at(runId, T0 + 450_000, { kind: "penalty", lane: 0, points: 100, reason: "Model touched the safety fence", cause: "object-in-safety-area", launchId: launch!.id }),
       phone.at(runId, T0 + 451_000, { kind: "penalty", lane: 0, points: 300, reason: "Model touched a spectator in the safety area", cause: "person-in-safety-area", launchId: launch!.id }),
-    ] });
+    ];
+    const res = await push({ deviceId: phone.id, sessions: [], runs: [], events: given });
     expect(res.body.acks.every((x) => x.status === "applied")).toBe(true);
     actAs(member);
     const body = (await (await resultsRoute(new Request("http://test/api?format=json"), { params: Promise.resolve({ contestId }) })).json()) as {
@@ -214,9 +215,9 @@ describe("the timekeeper's run becomes the round's result", () => {
     const listed = (await listContestPenalties(db, contestId)).filter((p) => p.name === "Ada Fenn");
     expect(listed).toEqual([
       { id: null, entryId: ids["Ada Fenn"], removedBy: null, removedAtMs: null, removedReason: null, roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 100, cause: "object-in-safety-area", reason: "Model touched the safety fence",
-        applied: false, dropped: "higher-in-same-attempt", givenBy: keeper.name, givenAtMs: T0 + 450_000 },
+        applied: false, dropped: "higher-in-same-attempt", givenBy: keeper.name, givenAtMs: T0 + 450_000, eventId: given[0]!.id },
       { id: null, entryId: ids["Ada Fenn"], removedBy: null, removedAtMs: null, removedReason: null, roundNumber: 1, isFlyOff: false, name: "Ada Fenn", source: "phone", points: 300, cause: "person-in-safety-area", reason: "Model touched a spectator in the safety area",
-        applied: true, dropped: null, givenBy: keeper.name, givenAtMs: T0 + 451_000 },
+        applied: true, dropped: null, givenBy: keeper.name, givenAtMs: T0 + 451_000, eventId: given[1]!.id },
     ]);
   });
 });
