@@ -5,6 +5,7 @@ import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { deriveAndStoreRuns } from "../queries/runs";
 import { contestEntries, contestRounds, events, fieldSessions, groupSlots, runLanes, runs, users } from "../schema";
+import { DEMO_CONTEST_PHONE, insertDemoTaps, type DemoTap } from "./demo-phone-taps";
 
 /**
  * A phone's penalty set aside by an officer in the demo contest (invented): Mara kept Hana Roskell's time in
@@ -32,25 +33,21 @@ export async function seedDemoPhoneSetAside(db: Database, contestId: string): Pr
   await db.insert(runs).values({ id: runId, sessionId, createdBy: keeper.id, task, taskCode: task.letter ?? "custom", edition: String(task.edition), createdAt: new Date(start - 60_000) });
   await db.insert(runLanes).values({ runId, lane: 0, pilotUserId: null, pilotName: "Hana Roskell" });
   // the card's flights, timed on the phone one after another from the working-time signal
-  const taps: { at: number; body: Record<string, unknown>; id?: string }[] = [{ at: 0, body: { kind: "window-start" } }];
+  const taps: DemoTap[] = [{ atMs: 0, body: { kind: "window-start" } }];
   let t = 1000;
   let firstLaunch = "";
   for (const tenths of slot.flights) {
     const id = uuidv7({ msecs: start + t });
     if (!firstLaunch) firstLaunch = id;
-    taps.push({ at: t, body: { kind: "launch", lane: 0 }, id });
+    taps.push({ atMs: t, body: { kind: "launch", lane: 0 }, id });
     t += tenths * 100;
-    taps.push({ at: t, body: { kind: "landing", lane: 0 } });
+    taps.push({ atMs: t, body: { kind: "landing", lane: 0 } });
     t += 1000;
   }
   const penaltyId = uuidv7({ msecs: start + t });
-  taps.push({ at: t, body: { kind: "penalty", lane: 0, points: 100, reason: "Launched before the signal", cause: "outside-time", launchId: firstLaunch }, id: penaltyId });
-  taps.push({ at: t + 60_000, body: { kind: "signed", lane: 0 } });
-  const deviceId = "demo-phone-mara-contest";
-  await db.insert(events).values(taps.map((tap, i) => ({
-    id: tap.id ?? uuidv7({ msecs: start + tap.at }), runId, deviceId, seq: i + 1, recordedBy: keeper.id, kind: String(tap.body.kind), body: tap.body,
-    wallMs: start + tap.at, monoMs: 5000 + tap.at, pageId: `demo-${runId}`, offsetThetaMs: 0, offsetDeltaMs: 24, offsetMeasuredAtMs: start - 120_000, correctedMs: start + tap.at, uncertaintyMs: 12,
-  })));
+  taps.push({ atMs: t, body: { kind: "penalty", lane: 0, points: 100, reason: "Launched before the signal", cause: "outside-time", launchId: firstLaunch }, id: penaltyId });
+  taps.push({ atMs: t + 60_000, body: { kind: "signed", lane: 0 } });
+  await insertDemoTaps(db, { deviceId: DEMO_CONTEST_PHONE, keeperId: keeper.id, keeperName: keeper.name, runId, startMs: start, taps });
   // the officer's decision, as the round page writes it
   const decidedAt = Date.parse("2027-01-16T13:40:00Z");
   await db.insert(events).values({

@@ -3,7 +3,8 @@ import { v7 as uuidv7 } from "uuid";
 import type { TaskDefinition } from "@/lib/tasks/definition";
 import type { Database } from "../index";
 import { deriveAndStoreRuns } from "../queries/runs";
-import { contestEntries, contestReflights, contestRounds, contests, devices, events, fieldSessions, groupSlots, runLanes, runs, slotRecords, users } from "../schema";
+import { contestEntries, contestReflights, contestRounds, contests, fieldSessions, groupSlots, runLanes, runs, slotRecords, users } from "../schema";
+import { DEMO_CONTEST_PHONE, insertDemoTaps, type DemoTap } from "./demo-phone-taps";
 
 /**
  * Two records for one pilot in round 1 of the demo contest (invented): Oren Halloway's card was
@@ -48,10 +49,9 @@ export async function seedDemoReflightRecords(db: Database, contestId: string): 
   const task = grant.task as TaskDefinition;
   const start = Date.parse("2027-01-16T11:50:00Z");
   const runId = uuidv7({ msecs: start });
-  const deviceId = "demo-phone-mara-contest";
   // window start, then three flights of 141.3 s, 150.6 s and 168.4 s (the paper card says 141.2, 165.5, 173.0), then both sign
   const flights = [1413, 1506, 1684];
-  const taps: { atMs: number; body: Record<string, unknown> }[] = [{ atMs: 0, body: { kind: "window-start" } }];
+  const taps: DemoTap[] = [{ atMs: 0, body: { kind: "window-start" } }];
   let t = 5_000;
   for (const tenths of flights) {
     taps.push({ atMs: t, body: { kind: "launch", lane: 0 } }, { atMs: t + tenths * 100, body: { kind: "landing", lane: 0 } });
@@ -59,16 +59,11 @@ export async function seedDemoReflightRecords(db: Database, contestId: string): 
   }
   taps.push({ atMs: t + 600_000, body: { kind: "signed", lane: 0 } });
   await db.transaction(async (tx) => {
-    await tx.insert(devices).values({ id: deviceId, userId: keeper, label: `${keeperUser?.name ?? "Mara"}'s contest timing phone` }).onConflictDoNothing();
     const sessionId = uuidv7({ msecs: start - 60_000 });
     await tx.insert(fieldSessions).values({ id: sessionId, ownerId: keeper, clubId: grant.clubId, fieldName: grant.field, startedAt: new Date(start - 60_000) });
     await tx.insert(runs).values({ id: runId, sessionId, createdBy: keeper, task, taskCode: task.letter ?? "custom", edition: task.edition, createdAt: new Date(start - 30_000) });
     await tx.insert(runLanes).values({ runId, lane: 0, pilotName: "Bea Quillfeather" });
-    await tx.insert(events).values(taps.map((tap, i) => ({
-      id: uuidv7({ msecs: start + tap.atMs }), runId, deviceId, seq: i + 1, recordedBy: keeper, kind: tap.body.kind as string, body: tap.body,
-      wallMs: start + tap.atMs, monoMs: tap.atMs + 1000, pageId: `demo-${runId}`,
-      offsetThetaMs: 0, offsetDeltaMs: 20, offsetMeasuredAtMs: start - 120_000, correctedMs: start + tap.atMs, uncertaintyMs: 10,
-    })));
+    await insertDemoTaps(tx, { deviceId: DEMO_CONTEST_PHONE, keeperId: keeper, keeperName: keeperUser?.name ?? "Mara", runId, startMs: start, taps });
     await deriveAndStoreRuns(tx, [runId]);
     const signedAt = new Date(start + t + 600_000);
     await tx.insert(slotRecords).values({
