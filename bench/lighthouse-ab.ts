@@ -86,5 +86,9 @@ try {
   const closed = new Promise((resolve) => chromium.once("exit", resolve));
   chromium.kill("SIGTERM");
   await closed;
-  rmSync(profile, { recursive: true, force: true, maxRetries: 5 });
+  try {
+    rmSync(profile, { recursive: true, force: true, maxRetries: 5 });
+  } catch {
+    // Chromium's helpers may still be writing into the profile as they exit; it is in the temp folder
+  }
 }
