@@ -27,6 +27,42 @@ test("a wrong password gets one generic message and no session", async ({ page }
   await expect(page).toHaveURL(/\/sign-in$/);
 });
 
+test.describe("no signal on the first send", () => {
+  // the service worker would answer the chunks from its precache; this is a phone that has none yet
+  test.use({ serviceWorkers: "block" });
+
+  test("with no signal on the first send, the form says so and sends nothing; the next send works", async ({ page }) => {
+    await page.goto("/sign-in", { waitUntil: "networkidle" });
+    // the form's check and next-auth's client load on the first send: their code cannot arrive
+    let refused = 0;
+    await page.route("**/_next/static/chunks/**", (route) => {
+      refused++;
+      return route.abort("internetdisconnected");
+    });
+    const sent = writes(page, "/api/auth/callback/credentials");
+    await page.getByLabel("E-mail").fill("ada@example.com");
+    await page.getByLabel("Password").fill("windowcall-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect(page.getByRole("main").getByRole("alert")).toHaveText("No connection: try again when you have a signal.");
+    await expect(page.getByRole("button", { name: "Sign in" })).toBeEnabled();
+    expect(refused).toBeGreaterThan(0);
+    expect(sent()).toBe(0);
+    await page.unroute("**/_next/static/chunks/**");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect(page).not.toHaveURL(/\/sign-in/);
+    expect(sent()).toBe(1);
+  });
+});
+
+/** How many requests the page sent to `path` so far. */
+function writes(page: Page, path: string): () => number {
+  let n = 0;
+  page.on("request", (r) => {
+    if (new URL(r.url()).pathname === path) n++;
+  });
+  return () => n;
+}
+
 /** Fills the sign-up form and sends it. */
 async function signUp(page: Page, name: string, email: string, password: string) {
   await page.goto("/sign-up");
