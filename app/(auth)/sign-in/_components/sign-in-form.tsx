@@ -10,6 +10,8 @@ import { safeNextPath } from "@/lib/security/safe-next";
 import type { SignInInput } from "@/lib/validations/auth";
 
 const WRONG = "E-mail or password is wrong.";
+/** The form's check or next-auth's client did not load (a phone with no signal on its first send): nothing was sent. */
+const NO_SIGNAL = "No connection: try again when you have a signal.";
 
 // zod, the form's schema and next-auth's client load when the form is first sent, not with the page.
 const resolver = lazyResolver<SignInInput>(async () => {
@@ -50,7 +52,7 @@ export function SignInForm({ initialEmail = "" }: { initialEmail?: string }) {
   }
 
   return (
-    <form onSubmit={handleSubmit(onValid)} className="space-y-4" noValidate>
+    <form onSubmit={(e) => handleSubmit(onValid)(e).catch(() => setError(NO_SIGNAL))} className="space-y-4" noValidate>
       <TextField id="email" type="email" label="E-mail" autoComplete="email" required {...register("email")} error={fe.email?.message} />
       <TextField id="password" type="password" label="Password" autoComplete="current-password" required {...register("password")} error={fe.password?.message} />
       <FormFooter error={error} submitting={formState.isSubmitting} label="Sign in" busyLabel="Signing in…" />
