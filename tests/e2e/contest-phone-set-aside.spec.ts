@@ -1,9 +1,8 @@
 import { expect, test } from "@playwright/test";
 import pg from "pg";
-import { v7 as uuidv7 } from "uuid";
 import { sameOrigin } from "./support/api";
 import { signInAs } from "./support/auth";
-import { insertTrialContest } from "./support/contest-db";
+import { insertPenaltyTrial, phonePenaltyRun } from "./support/phone-penalty";
 
 /**
  * Issue #15: an officer sets aside a penalty a timekeeper's phone gave. Ines (the demo club's officer) keeps
@@ -14,46 +13,16 @@ import { insertTrialContest } from "./support/contest-db";
  */
 test.describe.configure({ timeout: 180_000 });
 
-function phoneRun(o: { userId: string; roundId: string; entryId: string; pilotName: string; task: unknown; secs: number }) {
-  const deviceId = `e2e-phone-${uuidv7()}`;
-  const t0 = Date.now() - 600_000;
-  let seq = 0;
-  const sessionId = uuidv7(), runId = uuidv7(), launchId = uuidv7();
-  const at = (ms: number, body: Record<string, unknown>, id = uuidv7()) => ({ id, runId, deviceId, seq: ++seq, stamp: { wallMs: ms, monoMs: ms, pageId: `page-${deviceId}`, offset: null }, body });
-  return {
-    runId,
-    body: {
-      deviceId,
-      sessions: [{ id: sessionId, ownerId: o.userId, fieldName: "Five Acre Meadow", conditions: { windMs: 3 }, startedAtWallMs: t0 - 60_000 }],
-      runs: [{ id: runId, sessionId, task: o.task, lanes: [{ lane: 0, pilotName: o.pilotName }], createdAtWallMs: t0 - 30_000, contest: { roundId: o.roundId, slots: [{ lane: 0, entryId: o.entryId }] } }],
-      events: [
-        at(t0, { kind: "window-start" }),
-        at(t0 + 1000, { kind: "launch", lane: 0 }, launchId),
-        at(t0 + 1000 + o.secs * 1000, { kind: "landing", lane: 0 }),
-        at(t0 + 2000 + o.secs * 1000, { kind: "penalty", lane: 0, points: 100, reason: "Model hit a helper at launch", cause: "launch-contact", launchId }),
-        at(t0 + 3000 + o.secs * 1000, { kind: "signed", lane: 0 }),
-      ],
-    },
-  };
-}
-
 test("an officer sets aside the phone's launch-contact penalty: struck through with who and why, the run scores again, her phone shows the decision", async ({ page, baseURL }) => {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   try {
-    const { contestId, round1 } = await insertTrialContest(db, { name: "Set Aside Trial", startsOn: "2027-03-13", drawSeed: 7 });
-    const { rows: [ines] } = await db.query<{ id: string }>("select id from users where email = 'ines@example.com'");
-    const ids: Record<string, string> = {};
     // invented pilots: two signed paper cards of task A (tenths); Tam is timed on Ines's phone
-    for (const [name, tenths] of [["Wren Albery", 1800], ["Sol Penhallow", 2000], ["Tam Ossory", null]] as const) {
-      const { rows: [e] } = await db.query<{ id: string }>("insert into contest_entries (contest_id, pilot_name, paper) values ($1, $2, true) returning id", [contestId, name]);
-      ids[name] = e!.id;
-      if (tenths === null) await db.query("insert into group_slots (round_id, group_number, entry_id, timekeeper_user_id) values ($1, 1, $2, $3)", [round1, e!.id, ines!.id]);
-      else await db.query("insert into group_slots (round_id, group_number, entry_id, paper_flights, signed_at, signed_from, recorded_at) values ($1, 1, $2, $3, now(), 'paper card', now())", [round1, e!.id, JSON.stringify([tenths])]);
-    }
-    const { rows: [round] } = await db.query<{ task: unknown }>("select task from contest_rounds where id = $1", [round1]);
+    const { contestId, round1, inesId, ids, task } = await insertPenaltyTrial(db, { name: "Set Aside Trial", startsOn: "2027-03-13", drawSeed: 7 });
     await signInAs(page, "ines@example.com");
-    const run = phoneRun({ userId: ines!.id, roundId: round1, entryId: ids["Tam Ossory"]!, pilotName: "Tam Ossory", task: round!.task, secs: 150 });
+    const run = phonePenaltyRun({
+      userId: inesId, roundId: round1, entryId: ids["Tam Ossory"]!, pilotName: "Tam Ossory", task, secs: 150, penalty: { reason: "Model hit a helper at launch", cause: "launch-contact" },
+    });
     const pushed = await page.request.post("/api/sync/push", { headers: sameOrigin(baseURL), data: run.body });
     expect(pushed.status()).toBe(200);
     expect(((await pushed.json()) as { acks: { status: string }[] }).acks.every((a) => a.status === "applied")).toBe(true);
