@@ -9,7 +9,8 @@ const latin1 = (s: string) => s.replace(/[^\u0020-\u007e\u00a0-\u00ff]/g, "?");
 
 /**
  * The results as a PDF (jsPDF, A4 landscape): place, pilot, team, every round's points (a
- * dropped one in brackets, an unsigned one marked "u", one under an open dispute "d", a re-flown one "r"
+ * dropped one in brackets, an unsigned one marked "u", one under an open dispute "d", a re-flown one "r", one
+ * whose two records wait for the officer's decision "t"
  * with both results and which counted listed below, F3K.9.6), penalties, total; then the fly-off and
  * the teams; every penalty is listed under the table with its cause and, with `withWho`, who gave it
  * and when (the club's clock). The same numbers as the standings screen (one `Standings` value).
@@ -43,7 +44,7 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
       const place = places?.get(p.entryId) ?? p.rank;
       doc.text(`${place}${p.unresolvedTie ? "=" : ""}`, cols[0]!.x, y).text(latin1(p.name).slice(0, 30), cols[1]!.x, y).text(latin1(p.team ?? "").slice(0, 18), cols[2]!.x, y);
       p.rounds.forEach((c, i) => {
-        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}${c.disputed ? " d" : ""}${c.reflight ? " r" : ""}`;
+        const text = `${c.dropped ? `(${pts(c.pointsTenths)})` : pts(c.pointsTenths)}${c.resultTenths !== null && !c.signed ? " u" : ""}${c.disputed ? " d" : ""}${c.reflight ? " r" : ""}${c.undecided ? " t" : ""}`;
         doc.text(text, xRound(i) + roundW - 2, y, { align: "right" });
       });
       doc.text(p.penaltyTenths > 0 ? `-${pts(p.penaltyTenths)}` : "0", xPen + 14, y, { align: "right" });
@@ -55,7 +56,7 @@ export function resultsPdf(s: Standings, title: { name: string; day: string; fie
 
   const places = new Map(s.final.map((f) => [f.pilotId, f.rank]));
   table(s.rounds, [...s.pilots].sort((a, b) => (places.get(a.entryId) ?? 0) - (places.get(b.entryId) ?? 0)), places);
-  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). d: result under dispute. r: re-flown (below). (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
+  doc.setFontSize(8).text("Points: result / best in the group x 1000 (F3K.9.1). u: not signed, scores 0 (F3K.1.2). d: result under dispute. r: re-flown (below). t: two records, not decided yet (the one held now counts). (x): dropped round; penalties count even so (F3K.10). =: tie for a fly-off.", left, Math.min(y, bottom + 8));
   y += 8;
   doc.setFontSize(9);
   const reflown = s.pilots.flatMap((p) => p.rounds.filter((c) => c.reflight).map((c) => `${p.name}, round ${c.roundNumber}: ${reflightNote(c)}`));

@@ -24,4 +24,17 @@ describe("resultsPdf", () => {
     expect(text).toContain("(?ma Test)");
     expect(text).toContain("(1. Marsh Larks: 1000.0 \\(Vera Lindqvist\\))");
   });
+
+  it("marks a round whose two records wait for the officer's decision, as the CSV's Note does", () => {
+    const s = contestStandings({
+      rounds: [{ id: "r1", number: 1, isFlyOff: false, task: A }], dropRule: "f3k",
+      entries: [{ id: "a", name: "Vera Lindqvist", team: null, withdrawn: false }, { id: "b", name: "Noor Halden", team: null, withdrawn: false }],
+      slots: [slot("a", 3000), { ...slot("b", 2400), undecided: true }],
+    });
+    const text = new TextDecoder("latin1").decode(resultsPdf(s, { name: "Reed Cup", day: "2027-05-08", field: "Five Acre Meadow" }));
+    // the held record counts meanwhile: 240.0 / 300.0 x 1000 = 800.0 (F3K.9.1)
+    expect(text).toContain("(800.0 t)");
+    expect(text).toContain("(1000.0)");
+    expect(text).toContain("t: two records, not decided yet");
+  });
 });
