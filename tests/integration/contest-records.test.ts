@@ -85,7 +85,10 @@ describe("two records for one pilot and round", () => {
     actAs(member);
     expect((await decide({ entryId: ada, recordId: null })).status).toBe(403);
     actAs(officer);
-    expect((await decide({ entryId: ada, recordId: randomUUID() })).status).toBe(422);
+    // a record that is not one of the waiting ones: a stale page, a conflict with the stored state (as for a re-flight's records)
+    const stale = await decide({ entryId: ada, recordId: randomUUID() });
+    expect(stale.status).toBe(409);
+    expect(((await stale.json()) as { error: { code: string } }).error.code).toBe("decided");
     expect((await decide({ entryId: randomUUID(), recordId: null })).status).toBe(422);
     expect((await listPendingRecords(db, round1))[0]!.others).toHaveLength(2);
   });
