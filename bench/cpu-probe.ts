@@ -4,17 +4,11 @@
  * (default 6000), and long tasks (PerformanceObserver). Prints the long tasks and the top functions by
  * inclusive and self time, named by script (chunk) and function.
  */
-import puppeteer from "puppeteer-core";
+import { openProbePage } from "./probe-page";
 
 type Node = { id: number; callFrame: { functionName: string; url: string; lineNumber: number; columnNumber: number }; children?: number[] };
-const url = process.env.PROBE_URL!;
-const browser = await puppeteer.launch({ executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
+const { url, browser, page, cdp } = await openProbePage();
 try {
-  const context = await browser.createBrowserContext();
-  const page = await context.newPage();
-  const cdp = await page.createCDPSession();
-  await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
-  if (process.env.PROBE_COOKIE) await page.setExtraHTTPHeaders({ cookie: process.env.PROBE_COOKIE });
   await page.evaluateOnNewDocument(() => {
     (window as unknown as { __lt: unknown[] }).__lt = [];
     new PerformanceObserver((l) => {

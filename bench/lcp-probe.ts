@@ -4,16 +4,10 @@
  * Debian's Chromium with 4× CPU throttling, and prints every LCP candidate (time, element, size) and the
  * fonts' and scripts' response ends, since Lighthouse's largest-contentful-paint-element audit fails on it.
  */
-import puppeteer from "puppeteer-core";
+import { openProbePage } from "./probe-page";
 
-const url = process.env.PROBE_URL!;
-const browser = await puppeteer.launch({ executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
+const { url, browser, page } = await openProbePage();
 try {
-  const context = await browser.createBrowserContext();
-  const page = await context.newPage();
-  const cdp = await page.createCDPSession();
-  await cdp.send("Emulation.setCPUThrottlingRate", { rate: 4 });
-  if (process.env.PROBE_COOKIE) await page.setExtraHTTPHeaders({ cookie: process.env.PROBE_COOKIE });
   await page.evaluateOnNewDocument(() => {
     (window as unknown as { __lcp: unknown[] }).__lcp = [];
     new PerformanceObserver((list) => {
