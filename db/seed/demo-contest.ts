@@ -1,4 +1,5 @@
 import { and, eq, inArray } from "drizzle-orm";
+import { v7 as uuidv7 } from "uuid";
 import { drawEntries } from "@/lib/contests/entries-draw";
 import { getCatalogueTask } from "@/lib/tasks/catalogue";
 import type { Database } from "../index";
@@ -68,10 +69,14 @@ async function seedContest(db: Database): Promise<string | null> {
     clubId: club.id, name: NAME, startsOn: "2027-01-16", fieldName: DEMO_CLUB.homeField, status: "open", maxGroupSize: 6, createdBy: officer[0]?.id ?? null,
   }).returning();
   await db.insert(contestRounds).values((["A", "B", "D", "F", "H"] as const).map((l, i) => ({ contestId: contest!.id, number: i + 1, task: getCatalogueTask(l) })));
-  const entries = await db.insert(contestEntries).values([
-    ...pilots.map((p) => ({ contestId: contest!.id, pilotUserId: p.id, pilotName: p.name })),
+  // The draw orders entries by id: ids handed out in this fixed order make the demo draw the same on
+  // every install (random ids once gave round 2's card penalty to a different pilot on each seed).
+  const rows = [
+    ...[...pilots].sort((a, b) => a.name.localeCompare(b.name)).map((p) => ({ contestId: contest!.id, pilotUserId: p.id, pilotName: p.name })),
     ...PAPER.map((pilotName, i) => ({ contestId: contest!.id, pilotName, paper: true, keepApart: i < 2 ? "shared timekeeper" : null })),
-  ]).returning();
+  ];
+  const ids = rows.map(() => uuidv7()).sort();
+  const entries = await db.insert(contestEntries).values(rows.map((r, i) => ({ ...r, id: ids[i]! }))).returning();
   const seed = 20261212;
   const drawn = drawEntries({ entries, rounds: [1, 2, 3, 4, 5], maxGroupSize: 6, seed });
   await saveDraw(db, { contestId: contest!.id, seed, rounds: drawn.rounds, replaceResults: false });

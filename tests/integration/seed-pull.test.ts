@@ -50,4 +50,19 @@ describe("seeded demo data", () => {
     }
     throw new Error("more than 50 pages");
   });
+
+  it("the demo contest's entries are drawn in the same order on every install: their ids sort as the seed lists them", async () => {
+    // the draw orders entries by id (lib/contests/entries-draw.ts), so with the seed's fixed draw seed
+    // this order is what makes the demo's groups — and which pilot gets round 2's card penalty — the same everywhere
+    const pool = getPool();
+    const members = await pool.query<{ name: string }>(
+      "select name from users where email in ('ada@example.com', 'tobi@example.com', 'lena@example.com') order by name collate \"C\"");
+    const entries = await pool.query<{ pilot_name: string }>(
+      `select e.pilot_name from contest_entries e join contests c on c.id = e.contest_id
+       where c.name = 'Heronmoor Winter Cup' and e.withdrawn_at is null order by e.id`);
+    expect(entries.rows.map((r) => r.pilot_name)).toEqual([
+      ...members.rows.map((r) => r.name),
+      "Oren Halloway", "Bea Quillfeather", "Cass Merriden", "Dov Ashgrove", "Elin Tarrow", "Finn Brackley", "Gus Wendle", "Hana Roskell", "Ivo Pettaway",
+    ]);
+  });
 });
