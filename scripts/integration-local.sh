@@ -8,6 +8,8 @@ s3_up
 payments_up
 trap fakes_stop_if_started EXIT
 export DATABASE_URL="$(bash scripts/db.sh url windowcall_test)"
-psql "$DATABASE_URL" -tAc "select 1 from users limit 1" 2>/dev/null | grep -q 1 || { npx tsx scripts/migrate.ts && npx tsx --conditions=react-server scripts/seed.ts; }
 npx tsx scripts/migrate.ts >/dev/null
+# always: the seed is idempotent (each part adds only what is missing), so a seed that failed halfway
+# is finished here instead of being taken for done, and a part added since the last run is added
+npx tsx --conditions=react-server scripts/seed.ts
 npx vitest run --project integration "$@"
