@@ -1,7 +1,7 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { FIELD_RADIUS_M } from "@/lib/days/matching";
-import type { Tx } from "./sync-db";
+import { lockRuns, type Tx } from "./sync-db";
 
 /**
  * Whether a session may be at a club field by the day matching's rule (lib/days/matching.ts
@@ -60,4 +60,16 @@ export async function holdDaysOfRuns(tx: Tx, runIds: readonly string[]): Promise
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
   await tx.execute(sql`${holdOpenDays(sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `))}`);
+}
+
+/**
+ * The lock order for any writer that re-derives runs outside a push (db/queries/runs.ts
+ * deriveAndStoreRuns, an officer's set-aside): the open days those runs may belong to FOR SHARE first,
+ * then the runs' rows (lockRuns), as the push and the close take them — taking the runs first would let
+ * a close that holds the day and waits for the run's key deadlock with this writer, which holds the run
+ * and waits for the day when it stores the results.
+ */
+export async function holdDaysThenLockRuns(tx: Tx, runIds: readonly string[]): Promise<void> {
+  await holdDaysOfRuns(tx, runIds);
+  await lockRuns(tx, runIds);
 }

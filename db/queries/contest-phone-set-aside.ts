@@ -5,7 +5,7 @@ import { officerDeviceId, type EventBody } from "@/lib/events/schema";
 import type { Database } from "../index";
 import { events, users } from "../schema";
 import { deriveAndStoreRuns } from "./runs";
-import { lockRuns } from "./sync-db";
+import { holdDaysThenLockRuns } from "./club-day-locks";
 
 /** What an officer's set-aside of a phone's penalty answered. */
 export type SetAsideOutcome = { id: string; already: boolean } | "not_found" | "set_aside_already";
@@ -22,7 +22,7 @@ export type SetAsideOutcome = { id: string; already: boolean } | "not_found" | "
  *
  * Idempotent: a repeat by the same officer with the same reason (a double click, a retry) answers the
  * stored event (`already`), anything else once set aside is "set_aside_already" — the first decision
- * stands (reinstating is not offered). The run's row lock is taken before the check, so two at once
+ * stands (reinstating is not offered). The run's open club days and then its row lock are taken before the check (the close's order), so two at once
  * take turns. "not_found": no such penalty event on a lane of this round.
  */
 export async function setPhonePenaltyAside(db: Database, p: { roundId: string; eventId: string; userId: string; reason: string }): Promise<SetAsideOutcome> {
@@ -34,7 +34,7 @@ export async function setPhonePenaltyAside(db: Database, p: { roundId: string; e
           or exists (select 1 from contest_reflights cr where cr.round_id = ${p.roundId} and cr.run_id = ev.run_id and cr.lane = (ev.body ->> 'lane')::int))`);
     const runId = found.rows[0]?.run_id;
     if (!runId) return "not_found";
-    await lockRuns(tx, [runId]);
+    await holdDaysThenLockRuns(tx, [runId]);
     const deviceId = officerDeviceId(p.eventId);
     const prior = await tx.execute<{ id: string; recorded_by: string; reason: string | null }>(sql`
       select id, recorded_by, body -> 'setAside' ->> 'reason' as reason from events where device_id = ${deviceId} and seq = 1`);

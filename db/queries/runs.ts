@@ -7,8 +7,8 @@ import { deriveRun, type DerivationEvent, type LaneDerivation } from "@/lib/sync
 import { uncertaintyOf } from "@/lib/sync/correct-events";
 import { parseTaskDefinition } from "@/lib/tasks";
 import { deviceClockEstimates, events, runs } from "../schema";
-import { holdOpenDays } from "./club-day-locks";
-import { currentServerSeq, lockRuns, type Tx } from "./sync-db";
+import { holdDaysThenLockRuns, holdOpenDays } from "./club-day-locks";
+import { currentServerSeq, type Tx } from "./sync-db";
 import { loadForPush, loadRunEvents, type LoadedRun } from "./sync-push-load";
 
 type EventRow = typeof events.$inferSelect;
@@ -53,14 +53,14 @@ const NO_OFFICIALS: ReadonlySet<string> = new Set();
 
 /**
  * Re-derive the results of these runs from their stored events (lib/sync/derive.ts) and store
- * them (storeDerivations). Locks the runs' rows (lockRuns) first, so a concurrent writer of the
+ * them (storeDerivations). Holds the runs' open club days, then locks the runs' rows (holdDaysThenLockRuns) first, so a concurrent writer of the
  * same run waits and then derives from everything committed — nothing else is locked. A push
  * does not come here: it locks, loads and derives its runs itself (db/queries/sync-push.ts).
  */
 export async function deriveAndStoreRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
   const ids = [...new Set(runIds)];
   if (ids.length === 0) return;
-  await lockRuns(tx, ids);
+  await holdDaysThenLockRuns(tx, ids);
   const load = await loadForPush(tx, { runIds: ids, eventIds: [], deviceId: "", seqs: [], allEvents: true });
   await storeDerivations(tx, [...load.runs.values()], load.estimates);
 }

@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { closeClubDay, openClubDay } from "@/db/queries/club-days";
 import { applyPush } from "@/db/queries/sync-push";
+import { deriveAndStoreRuns } from "@/db/queries/runs";
 import type { Database } from "@/db";
 import { clubFields, clubs, memberships } from "@/db/schema";
 import { getCatalogueTask } from "@/lib/tasks";
@@ -55,6 +56,21 @@ function pauseAfterFirstStatement(): { db: Database; locked: Promise<void>; rele
     },
   });
   return { db: held, locked: first, release };
+}
+
+/** Whether another connection could take the run's row lock right now ("free"), or who holds it. */
+async function runLockFree(runId: string): Promise<string> {
+  const probe = await getPool().connect();
+  try {
+    await probe.query("begin");
+    return await probe.query("select id from runs where id = $1 for no key update nowait", [runId]).then(
+      () => "free",
+      (e: { message?: string }) => `held: ${e.message}`,
+    );
+  } finally {
+    await probe.query("rollback");
+    probe.release();
+  }
 }
 
 describe("closing a day while a phone deletes a window and stores a run there (two connections)", () => {
@@ -127,18 +143,7 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     expect(await settledOrWaiting(pushed)).toBe("waiting"); // for the day
     // while it waits for the day, the push must not hold the run it writes: the close will take that run's key next
     // (with the order swapped, the push would hold the run FOR NO KEY UPDATE here and this NOWAIT would fail)
-    const probe = await getPool().connect();
-    let runFree: string;
-    try {
-      await probe.query("begin");
-      runFree = await probe.query("select id from runs where id = $1 for no key update nowait", [flown.id]).then(
-        () => "free",
-        (e: { message?: string }) => `held: ${e.message}`,
-      );
-    } finally {
-      await probe.query("rollback");
-      probe.release();
-    }
+    const runFree = await runLockFree(flown.id);
     closingTx.release();
     const [closed, reply] = await Promise.allSettled([closing, pushed]);
     expect(runFree).toBe("free");
@@ -148,5 +153,35 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     const kept = await db.execute<{ run_id: string }>(sql`
       select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club!.id}`);
     expect(kept.rows.map((r) => r.run_id)).toEqual([flown.id]);
+  }, 30_000);
+
+  it("a re-derivation outside a push (deriveAndStoreRuns, as an officer's set-aside calls it) also waits for the day before it locks the run", async () => {
+    const day = "2026-07-19";
+    const officer = await freshUser("close-derive");
+    const [club] = await db.insert(clubs).values({ name: "Derive Club", slug: `derive-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
+    await db.insert(memberships).values({ clubId: club!.id, userId: officer.id, role: "officer" });
+    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Derive Meadow" }).returning();
+    const opened = await openClubDay(db, { clubId: club!.id, fieldId: field!.id, day, userId: officer.id });
+    if (!opened || opened === "closed") throw new Error("the day did not open");
+    const startMs = Date.parse(`${day}T10:00:00Z`);
+    const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
+    const s = { ...session(officer.id, { fieldName: "Derive Meadow" }), startedAtWallMs: startMs - 120_000 };
+    const flown = { ...run(s.id, [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }], getCatalogueTask("H")), createdAtWallMs: startMs - 60_000 };
+    const first = await applyPush(db, officer.id, {
+      deviceId: phone.id, sessions: [s], runs: [flown], events: [phone.at(flown.id, startMs, { kind: "window-start" }), ...phone.flights(flown.id, 0, [45], startMs + 5_000)],
+    });
+    expect(first.acks.every((a) => a.status === "applied")).toBe(true);
+
+    const closingTx = pauseAfterFirstStatement();
+    const closing = closeClubDay(closingTx.db, { clubId: club!.id, day, userId: officer.id });
+    await closingTx.locked;
+    const derived = db.transaction((tx) => deriveAndStoreRuns(tx, [flown.id]));
+    expect(await settledOrWaiting(derived)).toBe("waiting");
+    const runFree = await runLockFree(flown.id); // with the runs locked first: "held: could not obtain lock…"
+    closingTx.release();
+    const [closed, rederived] = await Promise.allSettled([closing, derived]);
+    expect(runFree).toBe("free");
+    expect(closed.status).toBe("fulfilled");
+    expect(rederived.status).toBe("fulfilled");
   }, 30_000);
 });
