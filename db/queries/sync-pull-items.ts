@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { consentStatus, type ConsentDecision } from "@/lib/sync/consent";
@@ -20,29 +20,32 @@ const inList = (list: ReturnType<typeof ids>) => (list.length ? sql.join(list, s
  * are events on those lanes (an undo or correction belongs to the lane of the event it amends).
  */
 export async function loadItems(db: Executor, userId: string, rows: ChangeRow[]): Promise<PullItem[]> {
-  const runIds = inList(ids(rows, "run"));
-  const eventIds = inList(ids(rows, "event"));
+  const sessionIds = ids(rows, "session");
+  const runIds = ids(rows, "run");
+  const eventIds = ids(rows, "event");
+  // a query with nothing to look up is not sent: an idle pull (no change since the cursor) sends none
+  const rowsOf = async <T extends Record<string, unknown>>(needed: boolean, query: SQL) => (needed ? (await db.execute<T>(query)).rows : []);
   // one connection may be a transaction: queries run one after another
-  const sessions = await db.execute<SessionRow>(sql`select ${SESSION_COLS} from field_sessions s
-      where s.id in (${inList(ids(rows, "session"))})
-         or s.id in (select session_id from runs where id in (${runIds}))`);
-  const runs = await db.execute<RunRow>(sql`select r.id, r.session_id, r.task, r.created_at, r.created_by, u.name as creator_name, r.plan_id, r.plan_item,
+  const sessions = await rowsOf<SessionRow>(sessionIds.length + runIds.length > 0, sql`select ${SESSION_COLS} from field_sessions s
+      where s.id in (${inList(sessionIds)})
+         or s.id in (select session_id from runs where id in (${inList(runIds)}))`);
+  const runs = await rowsOf<RunRow>(runIds.length > 0, sql`select r.id, r.session_id, r.task, r.created_at, r.created_by, u.name as creator_name, r.plan_id, r.plan_item,
         (select json_agg(json_build_object('lane', l.lane, 'pilotName', l.pilot_name, 'pilotUserId', l.pilot_user_id,
            'resultTenths', l.result_tenths, 'needsReview', l.needs_review, 'reviewReason', l.review_reason,
            'penaltyPoints', l.derived->'breakdown'->'penaltyPoints', 'versions', l.derived->'versions', 'notes', l.derived->'notes',
            'derived', l.derived is not null, 'decision', c.status, 'reason', c.reason)
            order by l.lane) from run_lanes l left join lane_consents c on c.run_id = l.run_id and c.lane = l.lane
            where l.run_id = r.id) as lanes
-      from runs r join users u on u.id = r.created_by where r.id in (${runIds})`);
-  const events = await db.execute<EventRow>(sql`select e.id, e.run_id, e.device_id, e.seq, e.recorded_by, e.body, e.wall_ms, e.mono_ms, e.page_id,
+      from runs r join users u on u.id = r.created_by where r.id in (${inList(runIds)})`);
+  const events = await rowsOf<EventRow>(eventIds.length > 0, sql`select e.id, e.run_id, e.device_id, e.seq, e.recorded_by, e.body, e.wall_ms, e.mono_ms, e.page_id,
         e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms
-      from events e where e.id in (${eventIds})`);
-  const limited = await coachLanes(db, userId, [...new Set([...runs.rows.map((r) => r.id), ...events.rows.map((e) => e.run_id)])]);
-  const eventLane = await eventLanes(db, events.rows.filter((e) => limited.has(e.run_id)));
+      from events e where e.id in (${inList(eventIds)})`);
+  const limited = await coachLanes(db, userId, [...new Set([...runs.map((r) => r.id), ...events.map((e) => e.run_id)])]);
+  const eventLane = await eventLanes(db, events.filter((e) => limited.has(e.run_id)));
 
-  const sessionById = new Map(sessions.rows.map((s) => [s.id, s]));
-  const runById = new Map(runs.rows.map((r) => [r.id, r]));
-  const eventById = new Map(events.rows.map((e) => [e.id, e]));
+  const sessionById = new Map(sessions.map((s) => [s.id, s]));
+  const runById = new Map(runs.map((r) => [r.id, r]));
+  const eventById = new Map(events.map((e) => [e.id, e]));
   const out: PullItem[] = [];
   for (const row of rows) {
     const seq = Number(row.seq);
