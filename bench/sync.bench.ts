@@ -3,7 +3,8 @@
  * DATABASE_URL set to a migrated database; it creates its own users, club and rows). In one run,
  * each measure printed beside its goal (SYNC.md §5, issue "Sync at club scale"):
  *  1. push throughput of 10,000 events against a raw multi-row insert of the same rows;
- *  2. 100 devices × 50 events pushing at once while 20 readers pull: errors, p50/p99;
+ *  2. 100 devices × 50 events pushing at once (batches of 10) while 20 readers pull: errors, p50/p99; then the
+ *     same as the phone's outbox batches them (one push a device), printed for reference;
  *  3. one account pushing a 5,000-event run: other accounts' push p50 with and without it;
  *  4. the seeded sync fault run (tests/integration/sync-sim*.ts) over SYNC_BENCH_RUNS runs (1,000).
  * The route handlers' work runs in process (bench/sync-serve.ts), without next-auth.
@@ -14,6 +15,7 @@ import fc from "fast-check";
 import { db, getPool } from "@/db";
 import { createSimUsers } from "../tests/integration/sync-sim";
 import { runScenario, scenarioArb } from "../tests/integration/sync-sim-run";
+import { PUSH_BATCH_SIZE } from "@/lib/validations/sync";
 import { bigRun, crowd, throughput, type Measure } from "./sync-measures";
 import { serveInProcess } from "./sync-serve";
 
@@ -52,6 +54,9 @@ try {
   const fresh = async (n: number) => (await createSimUsers(db, n)).map((u) => u.id);
   show(await throughput((await fresh(1))[0]!, EVENTS));
   show(await crowd(await fresh(10), 20, DEVICES, 50));
+  // the same crowd as the phone's outbox would send it: each device's 52 items (its session, run and 50 events) in one push (reference only)
+  const phone = await crowd(await fresh(10), 20, DEVICES, 50, PUSH_BATCH_SIZE);
+  console.log(`  ref   ${phone.line}   [as the phone batches; the goal is judged on the line above]`);
   const [big, ...rest] = await fresh(5);
   show(await bigRun(big!, rest, BIG_RUN));
   if (PROPERTY_RUNS > 0) show(await property());
