@@ -19,7 +19,7 @@ const inList = (list: ReturnType<typeof ids>) => (list.length ? sql.join(list, s
  * the lanes they may see: other pilots' lanes, names, results and consents are left out, and so
  * are events on those lanes (an undo or correction belongs to the lane of the event it amends).
  */
-export async function loadItems(db: Executor, userId: string, rows: ChangeRow[]): Promise<PullItem[]> {
+export async function loadItems(db: Executor, userId: string, rows: ChangeRow[], opts: { coaches: boolean }): Promise<PullItem[]> {
   const sessionIds = ids(rows, "session");
   const runIds = ids(rows, "run");
   const eventIds = ids(rows, "event");
@@ -40,7 +40,8 @@ export async function loadItems(db: Executor, userId: string, rows: ChangeRow[])
   const events = await rowsOf<EventRow>(eventIds.length > 0, sql`select e.id, e.run_id, e.device_id, e.seq, e.recorded_by, e.body, e.wall_ms, e.mono_ms, e.page_id,
         e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms
       from events e where e.id in (${inList(eventIds)})`);
-  const limited = await coachLanes(db, userId, [...new Set([...runs.map((r) => r.id), ...events.map((e) => e.run_id)])]);
+  // a user who coaches nobody (no active grant: the pull's scope is "") sees every run it gets whole
+  const limited = opts.coaches ? await coachLanes(db, userId, [...new Set([...runs.map((r) => r.id), ...events.map((e) => e.run_id)])]) : new Map<string, Set<number>>();
   const eventLane = await eventLanes(db, events.filter((e) => limited.has(e.run_id)));
 
   const sessionById = new Map(sessions.map((s) => [s.id, s]));

@@ -79,7 +79,9 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
   const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes(null)} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
   const deleted = rows.filter((r) => r.type === "deleted").map((r) => r.id);
   const changed = rows.filter((r): r is ChangeRow & { xid: string } => r.type !== "deleted");
-  const [items, scope] = await Promise.all([loadItems(db, userId, changed), visibilityScope(db, userId)]);
+  // "" when the user coaches nobody: then no run is cut to a coach's lanes and loadItems skips that look-up
+  const scope = await visibilityScope(db, userId);
+  const items = await loadItems(db, userId, changed, { coaches: scope !== "" });
   const last = rows.at(-1);
   const reply: PullReply = { items, nextCursor: last ? `${last.xid}.${last.seq}` : `${at.xid}.${at.seq}`, hasMore, scope };
   if (total !== undefined) reply.total = total;
