@@ -71,16 +71,20 @@ async function changesPage(db: Executor, params: PullParams): Promise<PullReply>
       select 'deleted', d.xid, d.server_seq, d.run_id from run_deletions d
         where ${after("d")} and ${userId}::uuid = any(d.seen_by)
     )`;
-  const res = await db.execute<{ type: ChangeRow["type"] | "deleted"; seq: string; id: string; xid: string }>(
-    sql`${changes(limit + 1)} select type, xid::text as xid, seq, id::text as id from changes order by changes.xid, seq limit ${limit + 1}`,
+  // the page's rows and the user's scope in one statement: one row with a null type when nothing changed
+  const res = await db.execute<{ scope: string; type: ChangeRow["type"] | "deleted" | null; seq: string; id: string; xid: string }>(
+    sql`${changes(limit + 1)}, page as (select type, xid, seq, id from changes order by changes.xid, seq limit ${limit + 1})
+      select ${SCOPE} as scope, p.type, p.xid::text as xid, p.seq, p.id::text as id
+      from (select 1) one left join page p on true order by p.xid, p.seq`,
   );
-  const rows = res.rows.slice(0, limit);
-  const hasMore = res.rows.length > limit;
+  // "" when the user coaches nobody: then no run is cut to a coach's lanes and loadItems skips that look-up
+  const scope = res.rows[0]?.scope ?? "";
+  const found = res.rows.flatMap(({ type, seq, id, xid }) => (type === null ? [] : [{ type, seq, id, xid }]));
+  const rows = found.slice(0, limit);
+  const hasMore = found.length > limit;
   const total = params.total ? Number((await db.execute<{ n: string }>(sql`${changes(null)} select count(*) as n from changes`)).rows[0]?.n ?? 0) : undefined;
   const deleted = rows.filter((r) => r.type === "deleted").map((r) => r.id);
   const changed = rows.filter((r): r is ChangeRow & { xid: string } => r.type !== "deleted");
-  // "" when the user coaches nobody: then no run is cut to a coach's lanes and loadItems skips that look-up
-  const scope = await visibilityScope(db, userId);
   const items = await loadItems(db, userId, changed, { coaches: scope !== "" });
   const last = rows.at(-1);
   const reply: PullReply = { items, nextCursor: last ? `${last.xid}.${last.seq}` : `${at.xid}.${at.seq}`, hasMore, scope };
@@ -113,17 +117,10 @@ async function hangarOf(db: Executor, userId: string): Promise<PulledModel[]> {
 
 /**
  * Fingerprint of what the user sees as a coach ("" with no grants): the granting pilots and the
- * lanes others recorded for them that they accepted.
+ * lanes others recorded for them that they accepted. An expression over visibility()'s `coached`.
  */
-async function visibilityScope(db: Executor, userId: string): Promise<string> {
-  const res = await db.execute<{ scope: string }>(sql`
-    with coached as (
-      select pilot_id from coach_grants where coach_id = ${userId} and revoked_at is null
-    )
-    select case when not exists (select 1 from coached) then '' else md5(
+const SCOPE = sql`case when not exists (select 1 from coached) then '' else md5(
       coalesce((select string_agg(pilot_id::text, ',' order by pilot_id) from coached), '') || '|' ||
       coalesce((select string_agg(c.run_id::text || ':' || c.lane, ',' order by c.run_id, c.lane) from lane_consents c
                 where c.pilot_user_id in (select pilot_id from coached) and c.status = 'accepted'), '')
-    ) end as scope`);
-  return res.rows[0]?.scope ?? "";
-}
+    ) end`;
