@@ -5,7 +5,8 @@ import { runLanes } from "./sessions";
  * Each derived flight of a lane as a row, with the values the season reads (db/queries/season):
  * duration, credited time, target and the ground time since the lane's previous landing
  * (`ground_ms`: null for the first flight or when the previous one never landed). Never written
- * by the app: a trigger on `run_lanes` (migration "lane-flights-trigger") keeps it equal to
+ * by the app: triggers on `run_lanes` (migration "lane-flights-trigger" for a new lane, and since
+ * "run-lanes-season-columns-by-trigger" the BEFORE trigger that keeps the Season columns) keep it equal to
  * `run_lanes.derived -> 'flights'` whenever any code stores a lane's derivation, touching only
  * the rows that changed, so a push into a long run rewrites only its new or changed flights.
  */
