@@ -98,7 +98,8 @@ export async function storeDerivations(
   for (const run of loaded) {
     const more = added.get(run.id) ?? [];
     if (run.fold) {
-      const r = resumeFold(run.fold, { ...factsOf(run), estimatesByDevice: estimates }, more, run.eventCount + more.length);
+      // the state was read for this derivation alone: folded in place, not copied (owned)
+      const r = resumeFold(run.fold, { ...factsOf(run), estimatesByDevice: estimates }, more, run.eventCount + more.length, true);
       if (r.ok) {
         done.push({ run, lanes: r.lanes, fold: r.fold });
         if (stats) stats.resumed++;

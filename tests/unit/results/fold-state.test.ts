@@ -165,7 +165,13 @@ function replay(letter: TaskLetter, batches: readonly RecordedEvent[][], estimat
     const all = [...stored.values()].sort(byId);
     const full = runResult({ ...facts, events: all }).lanes;
     let lanes;
+    const before = fold && json(fold);
     const resumed = fold ? resumeFold(fold, facts, fresh, all.length) : null;
+    if (fold) {
+      expect(json(fold)).toBe(before); // not owned: the stored state is left as it was
+      // owned (as the server resumes a state it just read): folded in place, the same outcome as on a copy
+      expect(json(resumeFold(JSON.parse(before!) as RunFold, facts, fresh, all.length, true))).toBe(json(resumed));
+    }
     if (resumed?.ok) {
       tally.resumed++;
       lanes = resumed.lanes;
