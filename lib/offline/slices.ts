@@ -45,3 +45,17 @@ export async function parseInSlices<S extends z.ZodType>(
   }
   return { ok: true, value: out };
 }
+
+/**
+ * Run `fn` once the browser is idle (requestIdleCallback; at most `timeoutMs` later when it never is),
+ * or after a zero timer where there is no idle callback (Safari, Node). Returns a function that cancels it.
+ */
+export function whenIdle(fn: () => void, timeoutMs = 2000): () => void {
+  const g = globalThis as { requestIdleCallback?: (cb: () => void, o: { timeout: number }) => number; cancelIdleCallback?: (h: number) => void };
+  if (typeof g.requestIdleCallback === "function" && typeof g.cancelIdleCallback === "function") {
+    const h = g.requestIdleCallback(fn, { timeout: timeoutMs });
+    return () => g.cancelIdleCallback!(h);
+  }
+  const t = setTimeout(fn, 0);
+  return () => clearTimeout(t);
+}
