@@ -1,12 +1,17 @@
 import type { RunEvent } from "@/lib/events/schema";
 import { z } from "zod";
 import { lazySchema } from "@/lib/events/lazy-schema";
-import { cursorAfter, pullItemSchema, pullReplySchema, type PullItem } from "@/lib/validations/sync";
+import { cursorAfter, laneResultSchema, pulledModelSchema, pullItemSchema, pullReplySchema, type PullItem } from "@/lib/validations/sync";
+import { pulledNoteSchema, pulledPlanSchema } from "@/lib/validations/coaching-sync";
+import { pulledDutySchema } from "@/lib/validations/contest-sync";
+import { eventBodySchema, runEventSchema, stampSchema } from "@/lib/events/schema";
+import { runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
+import { laneConsentSchema } from "@/lib/validations/consent";
 import { getMeta, setMeta, type StoredRun, type WindowcallDb } from "./db";
 import type { SessionEntity } from "@/lib/events/entities";
 import { forgetLanes, forgetRuns } from "./forget";
 import { requestJson, type FetchLike, type HttpResult } from "./http";
-import { parseInSlices, yieldToMain } from "./slices";
+import { buildInSlices, parseInSlices, yieldToMain } from "./slices";
 
 /** How far a pull has come: pages stored, about how many in all (null: unknown), items stored. */
 export type PullProgress = { page: number; pages: number | null; items: number };
@@ -41,6 +46,12 @@ export const PULL_WRITE_SLICE = 100;
 /** A page as it arrives: its items are checked a slice at a time (parseInSlices), not in one go. */
 const pageSchema = lazySchema(() => pullReplySchema.extend({ items: z.array(z.unknown()) }));
 
+/** The schemas a pull reply and its items are checked with, inner ones first: built one per task before the first page. */
+const pullParts = () => [
+  pulledNoteSchema, pulledPlanSchema, pulledDutySchema, pulledModelSchema, pullReplySchema, pageSchema,
+  stampSchema, eventBodySchema, runEventSchema, sessionEntitySchema, runEntitySchema, laneResultSchema, laneConsentSchema, pullItemSchema,
+];
+
 /** Safety stop for a server that keeps saying "more" (pages of a normal catch-up are far fewer). */
 const MAX_PAGES = 1000;
 
@@ -66,6 +77,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     const total = pages === null ? "&total=1" : "";
     const held = coaching ? `&coaching=${coaching}` : "";
     const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}${held}`;
+    if (page === 0) await buildInSlices(pullParts());
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pageSchema);
     if (r.kind !== "ok") return r;
     const checked = await parseInSlices(r.value.items, pullItemSchema);
