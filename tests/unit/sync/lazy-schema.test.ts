@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
+import { zodResolver } from "@hookform/resolvers/zod";
 import { lazySchema } from "@/lib/events/lazy-schema";
 
 // lib/events/lazy-schema.ts: the sync contract's schemas are built on first use (issue #10). A lazy schema
@@ -56,5 +57,16 @@ describe("lazySchema", () => {
     try { eager().parse({}); } catch (e) { a = (e as z.ZodError).issues; }
     try { lazy.parse({}); } catch (e) { b = (e as z.ZodError).issues; }
     expect(b).toEqual(a);
+  });
+
+  it("works with the forms' zod resolver as the eager schema does (react-hook-form; the hangar and plan forms)", async () => {
+    const options = { fields: {}, shouldUseNativeValidation: false } as Parameters<ReturnType<typeof zodResolver>>[2];
+    const faults: string[][] = [];
+    for (const values of [{ id: "0190a7e2-9a3c-7d1e-8f00-000000000001", kind: "a", n: 3 }, { id: "x", kind: "a", n: 30 }]) {
+      const [a, b] = await Promise.all([zodResolver(eager())(values, undefined, options), zodResolver(lazySchema(eager))(values, undefined, options)]);
+      expect(b).toEqual(a);
+      faults.push(Object.keys(b.errors));
+    }
+    expect(faults).toEqual([[], ["id", "n"]]);
   });
 });
