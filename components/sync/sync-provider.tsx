@@ -16,7 +16,7 @@ const SyncContext = createContext<SyncContextValue | null>(null);
 
 /**
  * The page's one sync client (SYNC.md §2): created once its code has loaded (sync-runtime.ts,
- * fetched once the page is drawn and idle so no screen waits for it), started in the browser (flush on
+ * fetched after the page's own work so no screen waits for it), started in the browser (flush on
  * start, on `online`, on becoming visible), with persistent storage requested once. Also keeps
  * the signed-in user's profile in the device database while online, so pages that open offline
  * know who is timing, and moves to that account's own device database when a different account
@@ -39,9 +39,9 @@ export function SyncProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     let live = true;
-    // once the page is idle (its islands hydrated and drawn, at most 2 s on): the screen answers a tap
-    // before the sync runtime's code is evaluated and its first pull starts (issue #10). A tap made
-    // before is in the outbox already; the client's start flushes it
+    // after the page's pending work (a background-priority task: its islands hydrated and drawn): the screen
+    // answers a tap before the sync runtime's code is evaluated and its first pull starts (issue #10). A tap
+    // made before is in the outbox already; the client's start flushes it
     const cancel = whenIdle(() => {
       void import("./sync-runtime").then((loaded) => {
         if (!live) return;

@@ -47,14 +47,17 @@ export async function parseInSlices<S extends z.ZodType>(
 }
 
 /**
- * Run `fn` once the browser is idle (requestIdleCallback; at most `timeoutMs` later when it never is),
- * or after a zero timer where there is no idle callback (Safari, Node). Returns a function that cancels it.
+ * Run `fn` after the page's pending work: a background-priority task (`scheduler.postTask`), which the
+ * browser runs after its normal-priority tasks (React's hydration and renders, input); a zero timer where
+ * there is no postTask. Not requestIdleCallback: a page under test with a controlled clock would never get
+ * its idle callback until the test moves the clock. Returns a function that cancels it.
  */
-export function whenIdle(fn: () => void, timeoutMs = 2000): () => void {
-  const g = globalThis as { requestIdleCallback?: (cb: () => void, o: { timeout: number }) => number; cancelIdleCallback?: (h: number) => void };
-  if (typeof g.requestIdleCallback === "function" && typeof g.cancelIdleCallback === "function") {
-    const h = g.requestIdleCallback(fn, { timeout: timeoutMs });
-    return () => g.cancelIdleCallback!(h);
+export function whenIdle(fn: () => void): () => void {
+  const scheduler = (globalThis as { scheduler?: { postTask?: (cb: () => void, o: { priority: string; signal: AbortSignal }) => Promise<void> } }).scheduler;
+  if (typeof scheduler?.postTask === "function") {
+    const abort = new AbortController();
+    scheduler.postTask(fn, { priority: "background", signal: abort.signal }).catch(() => undefined); // rejects when aborted
+    return () => abort.abort();
   }
   const t = setTimeout(fn, 0);
   return () => clearTimeout(t);

@@ -60,9 +60,9 @@ describe("lazySchema", () => {
   });
 
   it("works with the forms' zod resolver as the eager schema does (react-hook-form; the hangar and plan forms)", async () => {
-    const options = { fields: {}, shouldUseNativeValidation: false } as Parameters<ReturnType<typeof zodResolver>>[2];
+    const options = { fields: {}, shouldUseNativeValidation: false } as never; // the resolver reads only these two
     const faults: string[][] = [];
-    for (const values of [{ id: "0190a7e2-9a3c-7d1e-8f00-000000000001", kind: "a", n: 3 }, { id: "x", kind: "a", n: 30 }]) {
+    for (const values of [{ id: "0190a7e2-9a3c-7d1e-8f00-000000000001", kind: "a" as const, n: 3 }, { id: "x", kind: "a" as const, n: 30 }]) {
       const [a, b] = await Promise.all([zodResolver(eager())(values, undefined, options), zodResolver(lazySchema(eager))(values, undefined, options)]);
       expect(b).toEqual(a);
       faults.push(Object.keys(b.errors));
