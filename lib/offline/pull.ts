@@ -38,8 +38,8 @@ export type PullOutcome = { kind: "ok"; items: number } | Exclude<HttpResult<unk
 export const PULL_PAGE_LIMIT = 500;
 
 /**
- * Records a page stores per transaction: ~100 took 20–60 ms at 4× CPU with the live queries they
- * wake (issue #10), where a page's 500 in one transaction was one task of 0.1–0.3 s.
+ * Records a page stores per transaction (issue #10): a page's 500 in one transaction was one task of
+ * 0.09–0.28 s at 4× CPU (cpu-probe of /field, DEVELOPERS.md "Page load"); a fifth of a page per task.
  */
 export const PULL_WRITE_SLICE = 100;
 
@@ -96,8 +96,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     if (r.value.total !== undefined) pages = Math.max(1, Math.ceil(r.value.total / limit));
     const { events, sessions, runs } = split(items);
     const tables = [db.events, db.sessions, db.runs, db.meta, db.outbox];
-    // the page's records in small transactions, a yield between them (a page of 500 in one took 0.1–0.3 s
-    // of main thread at 4× CPU): what to forget first, as before; then sessions, runs, events. A tab
+    // the page's records in small transactions, a yield between them (PULL_WRITE_SLICE): what to forget first, as before; then sessions, runs, events. A tab
     // killed between two of them has stored part of a page and not moved the cursor, so its next pull
     // asks for the same page again and bulkPut stores it whole (a record seen twice changes nothing)
     const writes = writeSlices(db, sessions, runs, events, deps.writeSlice ?? PULL_WRITE_SLICE);
