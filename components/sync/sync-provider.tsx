@@ -3,7 +3,6 @@
 import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
 import { useSessionState } from "@/components/auth/session-state";
 import { switchDeviceUser } from "@/lib/offline/device-user";
-import { whenIdle } from "@/lib/offline/slices";
 import type { SyncClient, SyncStatus } from "@/lib/offline/sync-client";
 import { useOnline } from "./use-online";
 
@@ -16,7 +15,7 @@ const SyncContext = createContext<SyncContextValue | null>(null);
 
 /**
  * The page's one sync client (SYNC.md §2): created once its code has loaded (sync-runtime.ts,
- * fetched after the page's own work so no screen waits for it), started in the browser (flush on
+ * fetched after the page is drawn so no screen waits for it), started in the browser (flush on
  * start, on `online`, on becoming visible), with persistent storage requested once. Also keeps
  * the signed-in user's profile in the device database while online, so pages that open offline
  * know who is timing, and moves to that account's own device database when a different account
@@ -39,19 +38,13 @@ export function SyncProvider({ children }: { children: ReactNode }) {
 
   useEffect(() => {
     let live = true;
-    // after the page's pending work (a background-priority task: its islands hydrated and drawn): the screen
-    // answers a tap before the sync runtime's code is evaluated and its first pull starts (issue #10). A tap
-    // made before is in the outbox already; the client's start flushes it
-    const cancel = whenIdle(() => {
-      void import("./sync-runtime").then((loaded) => {
-        if (!live) return;
-        setRuntime(loaded);
-        setClient((c) => c ?? loaded.newClient());
-      });
+    void import("./sync-runtime").then((loaded) => {
+      if (!live) return;
+      setRuntime(loaded);
+      setClient((c) => c ?? loaded.newClient());
     });
     return () => {
       live = false;
-      cancel();
     };
   }, []);
   useEffect(() => client?.subscribe(setStatus), [client]);

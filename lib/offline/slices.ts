@@ -47,23 +47,6 @@ export async function parseInSlices<S extends z.ZodType>(
 }
 
 /**
- * Run `fn` after the page's pending work: a background-priority task (`scheduler.postTask`), which the
- * browser runs after its normal-priority tasks (React's hydration and renders, input); a zero timer where
- * there is no postTask. Not requestIdleCallback: a page under test with a controlled clock would never get
- * its idle callback until the test moves the clock. Returns a function that cancels it.
- */
-export function whenIdle(fn: () => void): () => void {
-  const scheduler = (globalThis as { scheduler?: { postTask?: (cb: () => void, o: { priority: string; signal: AbortSignal }) => Promise<void> } }).scheduler;
-  if (typeof scheduler?.postTask === "function") {
-    const abort = new AbortController();
-    scheduler.postTask(fn, { priority: "background", signal: abort.signal }).catch(() => undefined); // rejects when aborted
-    return () => abort.abort();
-  }
-  const t = setTimeout(fn, 0);
-  return () => clearTimeout(t);
-}
-
-/**
  * Build lazy schemas (lib/events/lazy-schema.ts) one per task, yielding between them: listed inner ones
  * first, each build is a short task, where the first parse building them all at once was one long task.
  */

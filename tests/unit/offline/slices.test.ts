@@ -68,16 +68,3 @@ describe("buildInSlices (the pull's lazy schemas built one per task)", () => {
     expect(order).toHaveLength(3); // built once
   });
 });
-
-describe("whenIdle (the sync runtime loads after the page's own work)", () => {
-  it("runs later, not at once, and not at all once cancelled", async () => {
-    const { whenIdle } = await import("@/lib/offline/slices");
-    const ran: string[] = [];
-    whenIdle(() => ran.push("kept"));
-    const cancel = whenIdle(() => ran.push("cancelled"));
-    cancel();
-    expect(ran).toEqual([]);
-    await new Promise((r) => setTimeout(r, 5));
-    expect(ran).toEqual(["kept"]);
-  });
-});
