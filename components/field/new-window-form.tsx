@@ -23,8 +23,7 @@ import { useIsClient } from "./use-is-client";
 import { useNotifyWrite } from "./use-notify-write";
 import { WhoFliesFields } from "./who-flies-fields";
 import { openNewRun } from "./open-new-run";
-
-export const LAST_FIELD_KEY = "windowcall.field.last-field";
+import { LAST_FIELD_KEY } from "@/lib/field/last-field";
 
 /** /field/new: where, conditions, who flies, which task, and an optional countdown. */
 export function NewWindowForm() {

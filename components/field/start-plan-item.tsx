@@ -4,7 +4,7 @@ import { useState } from "react";
 import { itemTaskText, type PlanItem } from "@/lib/coach/plan-goals";
 import { planNewWindow } from "@/lib/field/new-window";
 import { DEFAULT_RULE_SETTINGS, taskDefinitionSchema, withRuleSettings } from "@/lib/tasks";
-import { LAST_FIELD_KEY } from "./new-window-form";
+import { LAST_FIELD_KEY } from "@/lib/field/last-field";
 import { openNewRun } from "./open-new-run";
 import { useFieldProfile } from "./use-field-profile";
 import { useNotifyWrite } from "./use-notify-write";

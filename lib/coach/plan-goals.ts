@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { text } from "@/lib/events/bounds";
 import { median } from "@/lib/hangar/stats";
 import { listVariants, taskLetterSchema, type TaskLetter } from "@/lib/tasks";
@@ -17,15 +18,15 @@ export const PLAN_GOAL_MAX = 200;
 export const PLAN_WINDOWS_MAX = 20;
 
 /** What can be measured, and the number it is held to. */
-export const planMeasureSchema = z.discriminatedUnion("kind", [
+export const planMeasureSchema = lazySchema(() => z.discriminatedUnion("kind", [
   /** Median ground time from a landing to the next launch in the same window, under `seconds`. */
   z.object({ kind: z.literal("median-turnaround-below"), seconds: z.number().min(0.5).max(600) }),
   /** Median result as a share of the task's maximum, at least `percent`. */
   z.object({ kind: z.literal("median-share-at-least"), percent: z.number().min(1).max(100) }),
-]);
+]));
 export type PlanMeasure = z.infer<typeof planMeasureSchema>;
 
-export const planItemSchema = z
+export const planItemSchema = lazySchema(() => z
   .object({
     letter: taskLetterSchema,
     /** The catalogue variant: working time in seconds (task C: attempts). */
@@ -35,13 +36,13 @@ export const planItemSchema = z
     windows: z.number().int().min(1).max(PLAN_WINDOWS_MAX),
     measure: planMeasureSchema.nullable(),
   })
-  .refine((i) => listVariants(i.letter).includes(i.variant), { message: "That task has no such working time.", path: ["variant"] });
+  .refine((i) => listVariants(i.letter).includes(i.variant), { message: "That task has no such working time.", path: ["variant"] }));
 export type PlanItem = z.infer<typeof planItemSchema>;
 
-export const planInputSchema = z.object({
+export const planInputSchema = lazySchema(() => z.object({
   title: text(PLAN_TITLE_MAX).trim().min(1, "Give the plan a title."),
   items: z.array(planItemSchema).min(1, "Add at least one item.").max(PLAN_ITEMS_MAX, `A plan holds at most ${PLAN_ITEMS_MAX} items.`),
-});
+}));
 export type PlanInput = z.infer<typeof planInputSchema>;
 
 /** One run set up from a plan item, as derived (lib/results runResult, through the stored lane). */

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { epochMs, jsonProblem, text } from "./bounds";
 
 /**
@@ -13,7 +14,7 @@ const userId = text(64).min(1);
 export const TASK_LIMITS = { maxBytes: 8192, maxDepth: 6 } as const;
 
 /** One outing to a field: where, when, in what conditions. */
-export const sessionEntitySchema = z.object({
+export const sessionEntitySchema = lazySchema(() => z.object({
   id: z.uuid(), // UUIDv7, client-generated
   ownerId: userId,
   fieldName: text(120).trim().min(1),
@@ -27,19 +28,19 @@ export const sessionEntitySchema = z.object({
   /** Device wall clock when the session started (ms since the Unix epoch). */
   startedAtWallMs: epochMs,
   clubId: text(64).min(1).optional(),
-});
+}));
 export type SessionEntity = z.infer<typeof sessionEntitySchema>;
 
 /** One pilot's lane in a run. */
-export const runLaneSchema = z.object({
+export const runLaneSchema = lazySchema(() => z.object({
   lane: z.number().int().min(0).max(3),
   pilotName: text(120).trim().min(1),
   pilotUserId: userId.optional(),
-});
+}));
 export type RunLane = z.infer<typeof runLaneSchema>;
 
 /** One task window timed on the line, for 1–4 pilots (see lib/events/schema.ts). */
-export const runEntitySchema = z.object({
+export const runEntitySchema = lazySchema(() => z.object({
   id: z.uuid(), // UUIDv7, client-generated
   sessionId: z.uuid(),
   /**
@@ -74,7 +75,7 @@ export const runEntitySchema = z.object({
     slots: z.array(z.object({ lane: z.number().int().min(0).max(3), entryId: z.uuid() })).min(1).max(4),
     reflightId: z.uuid().optional(),
   }).optional(),
-});
+}));
 export type RunEntity = z.infer<typeof runEntitySchema>;
 
 /**
@@ -83,5 +84,5 @@ export type RunEntity = z.infer<typeof runEntitySchema>;
  * that counts (lib/results wasStarted, the same rule the phone applies), and phones that pulled
  * it drop it at their next pull.
  */
-export const runDiscardSchema = z.object({ id: z.uuid() });
+export const runDiscardSchema = lazySchema(() => z.object({ id: z.uuid() }));
 export type RunDiscard = z.infer<typeof runDiscardSchema>;

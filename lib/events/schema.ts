@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { durationMs, epochMs, int4, MAX_DELAY_MS, MAX_OFFSET_MS, text } from "./bounds";
 
 /**
@@ -17,14 +18,14 @@ import { durationMs, epochMs, int4, MAX_DELAY_MS, MAX_OFFSET_MS, text } from "./
  * A device's clock offset estimate (lib/clock ClockEstimate): θ = server time − device time,
  * δ the round trip of the exchange it came from, and when (device wall time) it was measured.
  */
-export const clockEstimateSchema = z.object({
+export const clockEstimateSchema = lazySchema(() => z.object({
   thetaMs: z.number().finite().min(-MAX_OFFSET_MS).max(MAX_OFFSET_MS),
   deltaMs: z.number().finite().min(0).max(MAX_DELAY_MS),
   measuredAtWallMs: epochMs,
-});
+}));
 
 /** When and where an event was recorded, kept raw so the server can re-correct it later (SYNC.md §4). */
-export const stampSchema = z.object({
+export const stampSchema = lazySchema(() => z.object({
   /** Device wall clock (ms since the Unix epoch) at the input event's own timestamp. */
   wallMs: epochMs,
   /** Monotonic time (performance.timeOrigin-relative ms) of the input event. */
@@ -33,13 +34,13 @@ export const stampSchema = z.object({
   pageId: text(64).min(1),
   /** The device's best offset estimate at that moment (server time − device time), if any. */
   offset: clockEstimateSchema.nullable(),
-});
+}));
 export type Stamp = z.infer<typeof stampSchema>;
 
 const lane = z.number().int().min(0).max(3);
 
 /** Why a flight is marked invalid (F3K.6.2 landing outside the field, F3K.2.2 a lost part, F3K.4.4 airspace). */
-export const invalidReasonSchema = z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]);
+export const invalidReasonSchema = lazySchema(() => z.enum(["landing-outside-field", "part-lost", "forbidden-airspace", "other"]));
 export type InvalidReason = z.infer<typeof invalidReasonSchema>;
 /** What a penalty was given for (RULES.md "Penalties"); "launch-contact" also zeroes the round. */
 export const PENALTY_CAUSES = [
@@ -61,7 +62,7 @@ export const REFLIGHT_PLACEMENTS = ["later-group", "new-group", "original-group"
 export type ReflightPlacement = (typeof REFLIGHT_PLACEMENTS)[number];
 
 /** What happened, by kind. Times of timed kinds are in the envelope's `stamp`. */
-export const eventBodySchema = z.discriminatedUnion("kind", [
+export const eventBodySchema = lazySchema(() => z.discriminatedUnion("kind", [
   /** The working-time start signal (for task C: the launch signal of the next attempt). */
   z.object({ kind: z.literal("window-start") }),
   /** A model left the hand. */
@@ -141,7 +142,7 @@ export const eventBodySchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("model"), lane, modelId: z.string().uuid() }),
   /** The run was closed by its timekeeper (after the landing window). */
   z.object({ kind: z.literal("run-end") }),
-]);
+]));
 export type EventBody = z.infer<typeof eventBodySchema>;
 export type EventKind = EventBody["kind"];
 
@@ -150,7 +151,7 @@ export const OFFICER_DEVICE_PREFIX = "officer:";
 export const officerDeviceId = (penaltyEventId: string) => `${OFFICER_DEVICE_PREFIX}${penaltyEventId}`;
 
 /** One event as stored on the device, pushed to the server and pulled back. */
-export const runEventSchema = z.object({
+export const runEventSchema = lazySchema(() => z.object({
   id: z.string().uuid(), // UUIDv7, client-generated
   runId: z.string().uuid(),
   deviceId: text(64).min(1),
@@ -160,5 +161,5 @@ export const runEventSchema = z.object({
   recordedBy: text(64).optional(),
   stamp: stampSchema,
   body: eventBodySchema,
-});
+}));
 export type RunEvent = z.infer<typeof runEventSchema>;

@@ -1,10 +1,11 @@
 import type { ConsentChoice } from "@/lib/sync/consent";
 import { laneConsentSchema, type LaneConsent } from "@/lib/validations/consent";
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import type { StoredRun, WindowcallDb } from "./db";
 import { describeFailure, postJson, requestJson, type FetchLike } from "./http";
 
-const replySchema = z.object({ consent: laneConsentSchema });
+const replySchema = lazySchema(() => z.object({ consent: laneConsentSchema }));
 
 /**
  * Runs recorded for someone else, on the phone (lib/sync/consent.ts): the lane of `run` that

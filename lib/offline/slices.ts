@@ -45,3 +45,14 @@ export async function parseInSlices<S extends z.ZodType>(
   }
   return { ok: true, value: out };
 }
+
+/**
+ * Build lazy schemas (lib/events/lazy-schema.ts) one per task, yielding between them: listed inner ones
+ * first, each build is a short task, where the first parse building them all at once was one long task.
+ */
+export async function buildInSlices(schemas: readonly object[]): Promise<void> {
+  for (const schema of schemas) {
+    Reflect.has(schema, "_zod"); // any look at a lazy schema builds it
+    await yieldToMain();
+  }
+}

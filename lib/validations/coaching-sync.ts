@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { planItemSchema } from "@/lib/coach/plan-goals";
 
 /**
@@ -7,7 +8,7 @@ import { planItemSchema } from "@/lib/coach/plan-goals";
  * drops off the phone at its next pull.
  */
 
-export const pulledNoteSchema = z.object({
+export const pulledNoteSchema = lazySchema(() => z.object({
   id: z.uuid(),
   pilotId: z.uuid(),
   coachId: z.uuid(),
@@ -18,12 +19,12 @@ export const pulledNoteSchema = z.object({
   replyTo: z.uuid().nullable(),
   body: z.string().max(4000),
   createdAtMs: z.number().int(),
-});
+}));
 export type PulledNote = z.infer<typeof pulledNoteSchema>;
 
-export const itemProgressSchema = z.object({ flown: z.number().int(), windows: z.number().int(), value: z.number().nullable(), met: z.boolean() });
+export const itemProgressSchema = lazySchema(() => z.object({ flown: z.number().int(), windows: z.number().int(), value: z.number().nullable(), met: z.boolean() }));
 
-export const pulledPlanSchema = z.object({
+export const pulledPlanSchema = lazySchema(() => z.object({
   id: z.uuid(),
   pilotId: z.uuid(),
   pilotName: z.string().max(500),
@@ -38,5 +39,5 @@ export const pulledPlanSchema = z.object({
   /** the progress is as of the pilot's last push (their devices' latest); null when they never synced */
   pilotSyncedAtMs: z.number().int().nullable().default(null),
   progress: z.object({ items: z.array(itemProgressSchema), done: z.boolean() }),
-});
+}));
 export type PulledPlan = z.infer<typeof pulledPlanSchema>;

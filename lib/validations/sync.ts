@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { clockEstimateSchema, REFLIGHT_CAUSES, REFLIGHT_PLACEMENTS, runEventSchema } from "@/lib/events/schema";
 import { runDiscardSchema, runEntitySchema, sessionEntitySchema } from "@/lib/events/entities";
 import { EPOCH_MS_MAX, text } from "./bounds";
@@ -23,7 +24,7 @@ export const PUSH_BATCH_SIZE = 200;
 export const PUSH_MAX_CLOCK_ESTIMATES = 64;
 
 // POST /api/sync/push — body
-export const pushRequestSchema = z
+export const pushRequestSchema = lazySchema(() => z
   .object({
     deviceId: text(64).min(1),
     /** The account whose device database this is (see device-user.ts); refused if not the session's. */
@@ -41,22 +42,22 @@ export const pushRequestSchema = z
   })
   .refine((r) => r.sessions.length + r.runs.length + r.events.length + (r.discards?.length ?? 0) <= PUSH_MAX_ITEMS, {
     message: `at most ${PUSH_MAX_ITEMS} items per push`,
-  });
+  }));
 export type PushRequest = z.infer<typeof pushRequestSchema>;
 
 /** The server's verdict on one pushed item, by its id. */
-export const ackSchema = z.object({
+export const ackSchema = lazySchema(() => z.object({
   id: z.string().min(1),
   status: z.enum(["applied", "duplicate", "rejected"]),
   reason: z.string().max(500).optional(),
-});
+}));
 export type Ack = z.infer<typeof ackSchema>;
 
 // POST /api/sync/push — reply
-export const pushReplySchema = z.object({
+export const pushReplySchema = lazySchema(() => z.object({
   acks: z.array(ackSchema),
   serverSeq: z.number().int().nonnegative(),
-});
+}));
 export type PushReply = z.infer<typeof pushReplySchema>;
 
 /** Most items one pull page may carry; the default page size. */
@@ -72,11 +73,11 @@ const BIGINT_MAX = (1n << 63n) - 1n;
  * counts as "<0>.<seq>" (so such a device gets everything again, once). "0" is the start.
  */
 const CURSOR = /^\d{1,20}(\.\d{1,19})?$/;
-export const pullCursorSchema = z.string().refine((c) => {
+export const pullCursorSchema = lazySchema(() => z.string().refine((c) => {
   if (!CURSOR.test(c)) return false;
   const [a, b] = c.split(".");
   return b === undefined ? BigInt(a!) <= BIGINT_MAX : BigInt(a!) <= XID8_MAX && BigInt(b) <= BIGINT_MAX;
-}, "a cursor is <xid>.<seq> (or a number) within range");
+}, "a cursor is <xid>.<seq> (or a number) within range"));
 export type PullCursor = { xid: string; seq: string };
 
 /** The position a cursor names (validated by pullCursorSchema). */
@@ -92,7 +93,7 @@ export function cursorAfter(a: string, b: string): boolean {
 }
 
 // GET /api/sync/pull?cursor=C&limit=N&total=1 — query
-export const pullQuerySchema = z.object({
+export const pullQuerySchema = lazySchema(() => z.object({
   cursor: pullCursorSchema.default("0"),
   /** Items per page (the last page may hold fewer; a coach's copy may hold fewer still). */
   limit: z.coerce.number().int().min(1).max(PULL_MAX_LIMIT).default(PULL_DEFAULT_LIMIT),
@@ -105,33 +106,33 @@ export const pullQuerySchema = z.object({
    * when it still matches, the last page leaves them out. Absent (an older phone, or none held yet): sent whole.
    */
   coaching: z.string().regex(/^[0-9a-f]{64}$/, "a coaching fingerprint is 64 hex digits").optional(),
-});
+}));
 export type PullQuery = z.infer<typeof pullQuerySchema>;
 
 const seq = z.number().int().positive();
 
 /** One device's account of a lane, as the server derived it (every version is kept; SYNC.md §3). */
-export const laneVersionSchema = z.object({
+export const laneVersionSchema = lazySchema(() => z.object({
   deviceId: z.string(),
   /** Recorded by a timekeeper a contest assigned to the run (lib/sync/sources.ts). */
   official: z.boolean(),
   /** The version the official result uses. */
   chosen: z.boolean(),
   resultTenths: z.number().int(),
-});
+}));
 
 /** A ruling recorded for the lane that does not count (lib/results RulingNote). */
-export const rulingNoteSchema = z.object({
+export const rulingNoteSchema = lazySchema(() => z.object({
   kind: z.enum(["penalty", "invalid", "unsigned", "reflight"]),
   reflight: z.object({ cause: z.enum(REFLIGHT_CAUSES), placement: z.enum(REFLIGHT_PLACEMENTS) }).optional(),
   recordedBy: z.string().max(64),
   points: z.number().int().nullable(),
   flightIndex: z.number().int().nullable(),
   reason: z.string().max(200),
-});
+}));
 
 /** The server's result for one lane of a run (derived from every device's events). */
-export const laneResultSchema = z.object({
+export const laneResultSchema = lazySchema(() => z.object({
   lane: z.number().int().min(0).max(3),
   resultTenths: z.number().int().nullable(),
   penaltyPoints: z.number().int().nonnegative(),
@@ -141,11 +142,11 @@ export const laneResultSchema = z.object({
   versions: z.array(laneVersionSchema),
   /** Rulings that do not count: a non-official's penalties and invalid marks. */
   notes: z.array(rulingNoteSchema).optional(),
-});
+}));
 export type LaneResult = z.infer<typeof laneResultSchema>;
 
 /** One changed record, tagged with the server sequence number it was assigned. */
-export const pullItemSchema = z.discriminatedUnion("type", [
+export const pullItemSchema = lazySchema(() => z.discriminatedUnion("type", [
   z.object({ type: z.literal("event"), seq, data: runEventSchema }),
   z.object({ type: z.literal("session"), seq, data: sessionEntitySchema }),
   z.object({
@@ -161,15 +162,15 @@ export const pullItemSchema = z.discriminatedUnion("type", [
     /** Each named pilot's lane: counted as their own, pending their decision, or decided. */
     consents: z.array(laneConsentSchema).optional(),
   }),
-]);
+]));
 export type PullItem = z.infer<typeof pullItemSchema>;
 
 /** A model as the phone keeps it for the lane's picker. */
-export const pulledModelSchema = z.object({ id: z.string().uuid(), name: z.string().min(1).max(500), status: z.enum(MODEL_STATUSES) });
+export const pulledModelSchema = lazySchema(() => z.object({ id: z.string().uuid(), name: z.string().min(1).max(500), status: z.enum(MODEL_STATUSES) }));
 export type PulledModel = z.infer<typeof pulledModelSchema>;
 
 // GET /api/sync/pull — reply
-export const pullReplySchema = z.object({
+export const pullReplySchema = lazySchema(() => z.object({
   items: z.array(pullItemSchema),
   /** Where the next page starts; the same position when nothing was served. */
   nextCursor: pullCursorSchema,
@@ -219,13 +220,13 @@ export const pullReplySchema = z.object({
   plans: z.array(pulledPlanSchema).max(1_000).optional(),
   /** Contest groups the user keeps time for, with the pilots to time, on the last page of every pull (the Field shows them offline). */
   contestDuties: z.array(pulledDutySchema).max(1_000).optional(),
-});
+}));
 export type PullReply = z.infer<typeof pullReplySchema>;
 
 // POST /api/time — body: the device's send time T1
-export const timeRequestSchema = z.object({ t1: z.number().finite().min(-EPOCH_MS_MAX).max(EPOCH_MS_MAX) });
+export const timeRequestSchema = lazySchema(() => z.object({ t1: z.number().finite().min(-EPOCH_MS_MAX).max(EPOCH_MS_MAX) }));
 export type TimeRequest = z.infer<typeof timeRequestSchema>;
 
 // POST /api/time — reply: T1 echoed, server receive time T2 and send time T3
-export const timeReplySchema = z.object({ t1: z.number(), t2: z.number(), t3: z.number() });
+export const timeReplySchema = lazySchema(() => z.object({ t1: z.number(), t2: z.number(), t3: z.number() }));
 export type TimeReply = z.infer<typeof timeReplySchema>;

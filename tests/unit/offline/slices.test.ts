@@ -48,3 +48,23 @@ describe("parseInSlices (a pulled page is checked a slice at a time)", () => {
     if (!r.ok) expect(r.message).toMatch(/^item 3: /);
   });
 });
+
+describe("buildInSlices (the pull's lazy schemas built one per task)", () => {
+  it("builds each lazy schema in turn, giving other work a turn between builds", async () => {
+    const { lazySchema } = await import("@/lib/events/lazy-schema");
+    const { buildInSlices } = await import("@/lib/offline/slices");
+    const order: string[] = [];
+    const lazy = (name: string) =>
+      lazySchema(() => {
+        order.push(`build ${name}`);
+        return z.object({ name: z.literal(name) });
+      });
+    const [a, b] = [lazy("a"), lazy("b")];
+    expect(order).toEqual([]);
+    setTimeout(() => order.push("timer"), 0);
+    await buildInSlices([a, b]);
+    expect(order).toEqual(["build a", "timer", "build b"]);
+    expect(a.safeParse({ name: "a" }).success).toBe(true);
+    expect(order).toHaveLength(3); // built once
+  });
+});
