@@ -73,19 +73,26 @@ async function runLockFree(runId: string): Promise<string> {
   }
 }
 
+/** A club with an officer and one field, its day opened; a phone with a clock estimate and a session at that field. */
+async function openDayAtField(day: string, name: string) {
+  const officer = await freshUser(`close-${name}`);
+  const [made] = await db.insert(clubs).values({ name: `${name} Club`, slug: `${name.toLowerCase()}-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
+  const club = made!;
+  await db.insert(memberships).values({ clubId: club.id, userId: officer.id, role: "officer" });
+  const [field] = await db.insert(clubFields).values({ clubId: club.id, name: `${name} Meadow` }).returning();
+  const opened = await openClubDay(db, { clubId: club.id, fieldId: field!.id, day, userId: officer.id });
+  if (!opened || opened === "closed") throw new Error("the day did not open");
+  const startMs = Date.parse(`${day}T10:00:00Z`);
+  const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
+  const s = { ...session(officer.id, { fieldName: `${name} Meadow` }), startedAtWallMs: startMs - 120_000 };
+  const lanes = [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }];
+  return { officer, club, startMs, phone, s, lanes };
+}
+
 describe("closing a day while a phone deletes a window and stores a run there (two connections)", () => {
   it("takes the day before the runs, as the close does: no deadlock, both finish", async () => {
     const day = "2026-07-11";
-    const officer = await freshUser("close-deadlock");
-    const [club] = await db.insert(clubs).values({ name: "Deadlock Club", slug: `deadlock-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
-    await db.insert(memberships).values({ clubId: club!.id, userId: officer.id, role: "officer" });
-    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Lock Meadow" }).returning();
-    const opened = await openClubDay(db, { clubId: club!.id, fieldId: field!.id, day, userId: officer.id });
-    if (!opened || opened === "closed") throw new Error("the day did not open");
-    const startMs = Date.parse(`${day}T10:00:00Z`);
-    const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
-    const s = { ...session(officer.id, { fieldName: "Lock Meadow" }), startedAtWallMs: startMs - 120_000 };
-    const lanes = [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }];
+    const { officer, club, startMs, phone, s, lanes } = await openDayAtField(day, "Lock");
     // a window set up at the field that day and synced, never started: it belongs to the day (set-up time)
     const unstarted = { ...run(s.id, lanes, getCatalogueTask("H")), createdAtWallMs: startMs - 90_000 };
     const first = await applyPush(db, officer.id, { deviceId: phone.id, sessions: [s], runs: [unstarted], events: [] });
@@ -95,7 +102,7 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     const events = [phone.at(flown.id, startMs, { kind: "window-start" }), ...phone.flights(flown.id, 0, [45], startMs + 5_000)];
 
     const closingTx = pauseAfterFirstStatement();
-    const closing = closeClubDay(closingTx.db, { clubId: club!.id, day, userId: officer.id });
+    const closing = closeClubDay(closingTx.db, { clubId: club.id, day, userId: officer.id });
     await closingTx.locked; // the close holds its day row FOR UPDATE, not yet its runs
     const pushed = applyPush(db, officer.id, { deviceId: phone.id, sessions: [], runs: [flown], events, discards: [{ id: unstarted.id }] });
     expect(await settledOrWaiting(pushed)).toBe("waiting"); // for the day
@@ -114,7 +121,7 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     ]);
     // the close kept the window (it belonged then); its deletion took it out with it; the flown run came after the close
     const kept = await db.execute<{ run_id: string }>(sql`
-      select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club!.id}`);
+      select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club.id}`);
     expect(kept.rows).toEqual([]);
     const left = await db.execute<{ id: string }>(sql`select id from runs where id in (${unstarted.id}::uuid, ${flown.id}::uuid)`);
     expect(left.rows.map((r) => r.id)).toEqual([flown.id]);
@@ -122,22 +129,13 @@ describe("closing a day while a phone deletes a window and stores a run there (t
 
   it("a push of events into a run at the day's field waits for the day before it locks the run (the close's order)", async () => {
     const day = "2026-07-12";
-    const officer = await freshUser("close-order");
-    const [club] = await db.insert(clubs).values({ name: "Order Club", slug: `order-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
-    await db.insert(memberships).values({ clubId: club!.id, userId: officer.id, role: "officer" });
-    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Order Meadow" }).returning();
-    const opened = await openClubDay(db, { clubId: club!.id, fieldId: field!.id, day, userId: officer.id });
-    if (!opened || opened === "closed") throw new Error("the day did not open");
-    const startMs = Date.parse(`${day}T10:00:00Z`);
-    const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
-    const s = { ...session(officer.id, { fieldName: "Order Meadow" }), startedAtWallMs: startMs - 120_000 };
-    const lanes = [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }];
+    const { officer, club, startMs, phone, s, lanes } = await openDayAtField(day, "Order");
     const flown = { ...run(s.id, lanes, getCatalogueTask("H")), createdAtWallMs: startMs - 60_000 };
     const first = await applyPush(db, officer.id, { deviceId: phone.id, sessions: [s], runs: [flown], events: [phone.at(flown.id, startMs, { kind: "window-start" })] });
     expect(first.acks.every((a) => a.status === "applied")).toBe(true);
 
     const closingTx = pauseAfterFirstStatement();
-    const closing = closeClubDay(closingTx.db, { clubId: club!.id, day, userId: officer.id });
+    const closing = closeClubDay(closingTx.db, { clubId: club.id, day, userId: officer.id });
     await closingTx.locked; // the close holds its day row FOR UPDATE, not yet its runs
     const pushed = applyPush(db, officer.id, { deviceId: phone.id, sessions: [], runs: [], events: phone.flights(flown.id, 0, [45], startMs + 5_000) });
     expect(await settledOrWaiting(pushed)).toBe("waiting"); // for the day
@@ -151,29 +149,21 @@ describe("closing a day while a phone deletes a window and stores a run there (t
     expect(reply.status).toBe("fulfilled");
     // the close kept the run; the push's events arrived after it (the day's result stays as closed)
     const kept = await db.execute<{ run_id: string }>(sql`
-      select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club!.id}`);
+      select k.run_id from club_day_closed_runs k join club_days d on d.id = k.day_id where d.club_id = ${club.id}`);
     expect(kept.rows.map((r) => r.run_id)).toEqual([flown.id]);
   }, 30_000);
 
   it("a re-derivation outside a push (deriveAndStoreRuns, as an officer's set-aside calls it) also waits for the day before it locks the run", async () => {
     const day = "2026-07-19";
-    const officer = await freshUser("close-derive");
-    const [club] = await db.insert(clubs).values({ name: "Derive Club", slug: `derive-club-${Date.now()}-${Math.random().toString(36).slice(2, 6)}` }).returning();
-    await db.insert(memberships).values({ clubId: club!.id, userId: officer.id, role: "officer" });
-    const [field] = await db.insert(clubFields).values({ clubId: club!.id, name: "Derive Meadow" }).returning();
-    const opened = await openClubDay(db, { clubId: club!.id, fieldId: field!.id, day, userId: officer.id });
-    if (!opened || opened === "closed") throw new Error("the day did not open");
-    const startMs = Date.parse(`${day}T10:00:00Z`);
-    const phone = recorder(deviceId(), { estimate: { thetaMs: 0, deltaMs: 20, measuredAtWallMs: startMs - 60_000 } });
-    const s = { ...session(officer.id, { fieldName: "Derive Meadow" }), startedAtWallMs: startMs - 120_000 };
-    const flown = { ...run(s.id, [{ lane: 0, pilotName: officer.name, pilotUserId: officer.id }], getCatalogueTask("H")), createdAtWallMs: startMs - 60_000 };
+    const { officer, club, startMs, phone, s, lanes } = await openDayAtField(day, "Derive");
+    const flown = { ...run(s.id, lanes, getCatalogueTask("H")), createdAtWallMs: startMs - 60_000 };
     const first = await applyPush(db, officer.id, {
       deviceId: phone.id, sessions: [s], runs: [flown], events: [phone.at(flown.id, startMs, { kind: "window-start" }), ...phone.flights(flown.id, 0, [45], startMs + 5_000)],
     });
     expect(first.acks.every((a) => a.status === "applied")).toBe(true);
 
     const closingTx = pauseAfterFirstStatement();
-    const closing = closeClubDay(closingTx.db, { clubId: club!.id, day, userId: officer.id });
+    const closing = closeClubDay(closingTx.db, { clubId: club.id, day, userId: officer.id });
     await closingTx.locked;
     const derived = db.transaction((tx) => deriveAndStoreRuns(tx, [flown.id]));
     expect(await settledOrWaiting(derived)).toBe("waiting");
