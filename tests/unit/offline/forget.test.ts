@@ -1,18 +1,12 @@
 import { v7 as uuidv7 } from "uuid";
-import { afterEach, describe, expect, it } from "vitest";
-import { getMeta, setMeta, type WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
+import { getMeta, setMeta } from "@/lib/offline/db";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
 import { forgetLanes } from "@/lib/offline/forget";
 import { SyncClient } from "@/lib/offline/sync-client";
-import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
+import { FakeServer, freshDbsPerTest, ManualTimers, stamp } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
-const open = () => {
-  const db = freshDb();
-  dbs.push(db);
-  return db;
-};
+const open = freshDbsPerTest();
 
 const PILOT = "0190a7c2-0000-7000-8000-00000000000a";
 const COACH = "0190a7c2-0000-7000-8000-00000000000c";

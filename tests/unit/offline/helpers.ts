@@ -1,13 +1,44 @@
 import { v7 as uuidv7 } from "uuid";
+import { afterEach } from "vitest";
 import type { RunEvent, Stamp } from "@/lib/events/schema";
 import { createWindowcallDb, type WindowcallDb } from "@/lib/offline/db";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
-import type { Timers } from "@/lib/offline/sync-client";
+import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
+import { SyncClient, type Timers } from "@/lib/offline/sync-client";
 import { pushRequestSchema, type Ack, type PushRequest } from "@/lib/validations/sync";
 
 /** A fresh, uniquely named database (fake-indexeddb, see tests/unit/setup.ts). */
 export function freshDb(): WindowcallDb {
   return createWindowcallDb(`test-${uuidv7()}`);
+}
+
+/** Opens fresh databases for the calling test file; each is closed after the test that opened it. */
+export function freshDbsPerTest(): () => WindowcallDb {
+  const dbs: WindowcallDb[] = [];
+  afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+  return () => {
+    const db = freshDb();
+    dbs.push(db);
+    return db;
+  };
+}
+
+/** A server that already holds, pushed by another phone, a session at each of `fields`, a run in each and `n` launches per run. */
+export async function serverWithData(open: () => WindowcallDb, n: number, fields: readonly string[] = ["East field"]) {
+  const server = new FakeServer();
+  const other = open();
+  const phone = new SyncClient({ db: other, fetch: server.fetch, timers: new ManualTimers() });
+  const sessions: SessionEntity[] = [];
+  const runs: RunEntity[] = [];
+  for (const fieldName of fields) {
+    const session = await createSessionLocal(other, { ownerId: "u1", fieldName, conditions: {}, startedAtWallMs: 1 });
+    const run = await createRunLocal(other, { sessionId: session.id, task: {}, lanes: [{ lane: 0, pilotName: "P" }], createdAtWallMs: 2 });
+    for (let i = 0; i < n; i++) await recordEvent(other, { runId: run.id, body: { kind: "launch", lane: 0 }, stamp: stamp() });
+    sessions.push(session);
+    runs.push(run);
+  }
+  await phone.flush();
+  return { server, sessions, runs };
 }
 
 export const stamp = (wallMs = 1_700_000_000_000): Stamp => ({ wallMs, monoMs: 1234.5, pageId: "page-1", offset: null });

@@ -1,35 +1,13 @@
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getMeta, type WindowcallDb } from "@/lib/offline/db";
-import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
 import { pullAll } from "@/lib/offline/pull";
-import { SyncClient } from "@/lib/offline/sync-client";
-import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
+import { freshDbsPerTest, serverWithData } from "./helpers";
 
 // A pulled page is stored in small transactions with a yield between them (issue #10: one transaction per
 // page of 500 was one long task of /field's load), and the cursor last, on its own. A tab killed between two
 // of them must lose nothing: the next pull asks for the same page again and ends with the same store.
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
-const open = () => {
-  const db = freshDb();
-  dbs.push(db);
-  return db;
-};
-
-/** A server holding two sessions, a run in each and `n` events, pushed by another phone. */
-async function serverWithData(n: number) {
-  const server = new FakeServer();
-  const other = open();
-  const phone = new SyncClient({ db: other, fetch: server.fetch, timers: new ManualTimers() });
-  for (const fieldName of ["East field", "West field"]) {
-    const session = await createSessionLocal(other, { ownerId: "u1", fieldName, conditions: {}, startedAtWallMs: 1 });
-    const run = await createRunLocal(other, { sessionId: session.id, task: {}, lanes: [{ lane: 0, pilotName: "P" }], createdAtWallMs: 2 });
-    for (let i = 0; i < n; i++) await recordEvent(other, { runId: run.id, body: { kind: i % 2 ? "landing" : "launch", lane: 0 }, stamp: stamp() });
-  }
-  await phone.flush();
-  return server;
-}
+const open = freshDbsPerTest();
 
 const store = async (db: WindowcallDb) => ({
   events: await db.events.orderBy("id").toArray(),
@@ -42,7 +20,7 @@ class Killed extends Error {}
 
 describe("pull in slices", () => {
   it("stores a page in transactions of at most writeSlice records, the cursor after them", async () => {
-    const server = await serverWithData(6); // 2 sessions + 2 runs + 12 events = 16 items
+    const { server } = await serverWithData(open, 6, ["East field", "West field"]); // 2 sessions + 2 runs + 12 events = 16 items
     server.pullPageSize = 7;
     const db = open();
     const cursors: unknown[] = [];
@@ -63,7 +41,7 @@ describe("pull in slices", () => {
   });
 
   it("a pull killed between any two slices resumes and ends with the same store as an uninterrupted one", async () => {
-    const server = await serverWithData(6);
+    const { server } = await serverWithData(open, 6, ["East field", "West field"]);
     server.pullPageSize = 7;
     const whole = open();
     expect(await pullAll({ db: whole, fetch: server.fetch, writeSlice: 3 })).toEqual({ kind: "ok", items: 16 });

@@ -1,36 +1,17 @@
 import { v7 as uuidv7 } from "uuid";
-import { afterEach, describe, expect, it } from "vitest";
-import { getMeta, setMeta, type WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
+import { getMeta, setMeta } from "@/lib/offline/db";
 import { recordEvent } from "@/lib/offline/record";
 import { pullAll, type PullProgress } from "@/lib/offline/pull";
 import { SyncClient } from "@/lib/offline/sync-client";
 import { describePull } from "@/components/sync/describe-sync";
-import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
+import { FakeServer, freshDbsPerTest, ManualTimers, serverWithData, stamp } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
-const open = () => {
-  const db = freshDb();
-  dbs.push(db);
-  return db;
-};
-
-/** A server that already holds a session, a run and `n` events pushed by another phone. */
-async function serverWithData(n: number) {
-  const server = new FakeServer();
-  const other = open();
-  const phone = new SyncClient({ db: other, fetch: server.fetch, timers: new ManualTimers() });
-  const { createSessionLocal, createRunLocal } = await import("@/lib/offline/record");
-  const session = await createSessionLocal(other, { ownerId: "u1", fieldName: "East field", conditions: {}, startedAtWallMs: 1 });
-  const run = await createRunLocal(other, { sessionId: session.id, task: {}, lanes: [{ lane: 0, pilotName: "P" }], createdAtWallMs: 2 });
-  for (let i = 0; i < n; i++) await recordEvent(other, { runId: run.id, body: { kind: "launch", lane: 0 }, stamp: stamp() });
-  await phone.flush();
-  return { server, session, run };
-}
+const open = freshDbsPerTest();
 
 describe("pull", () => {
   it("pages until hasMore is false, storing every item and the cursor", async () => {
-    const { server, session, run } = await serverWithData(5); // 7 items in the log
+    const { server, sessions: [session], runs: [run] } = await serverWithData(open, 5); // 7 items in the log
     server.pullPageSize = 3;
     const db = open();
     const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
@@ -40,14 +21,14 @@ describe("pull", () => {
       "GET /api/sync/pull?cursor=1.3&limit=500",
       "GET /api/sync/pull?cursor=1.6&limit=500",
     ]);
-    expect(await db.sessions.get(session.id)).toEqual(session);
-    expect(await db.runs.get(run.id)).toEqual(run);
+    expect(await db.sessions.get(session!.id)).toEqual(session);
+    expect(await db.runs.get(run!.id)).toEqual(run);
     expect(await db.events.count()).toBe(5);
     expect(await getMeta(db, "pullCursor")).toBe("1.7");
   });
 
   it("reports its progress page by page: about how many pages in all, then how far it got", async () => {
-    const { server } = await serverWithData(5); // 7 items in the log
+    const { server } = await serverWithData(open, 5); // 7 items in the log
     server.pullPageSize = 3;
     const db = open();
     const progress: (PullProgress | null)[] = [];
@@ -71,7 +52,7 @@ describe("pull", () => {
   });
 
   it("is idempotent: pulling the same pages again changes nothing", async () => {
-    const { server } = await serverWithData(4);
+    const { server } = await serverWithData(open, 4);
     server.pullPageSize = 2;
     const db = open();
     const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
@@ -83,7 +64,7 @@ describe("pull", () => {
   });
 
   it("continues from the stored cursor", async () => {
-    const { server } = await serverWithData(2);
+    const { server } = await serverWithData(open, 2);
     const db = open();
     const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
     await client.pull();
@@ -92,7 +73,7 @@ describe("pull", () => {
   });
 
   it("pulls from 0 again when what the user may see changed (a new coach grant), then carries on", async () => {
-    const { server } = await serverWithData(3);
+    const { server } = await serverWithData(open, 3);
     server.scope = "";
     const db = open();
     const client = new SyncClient({ db, fetch: server.fetch, timers: new ManualTimers() });
@@ -146,7 +127,7 @@ describe("pull", () => {
   });
 
   it("keeps what earlier pages stored when a later page fails", async () => {
-    const { server } = await serverWithData(3);
+    const { server } = await serverWithData(open, 3);
     server.pullPageSize = 2;
     const db = open();
     const flaky = async (url: string, init?: RequestInit) =>
