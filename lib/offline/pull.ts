@@ -52,6 +52,9 @@ const pullParts = () => [
   stampSchema, eventBodySchema, runEventSchema, sessionEntitySchema, runEntitySchema, laneResultSchema, laneConsentSchema, pullItemSchema,
 ];
 
+/** Once per page load: later pulls find the schemas built and need not yield fourteen times for nothing. */
+let partsBuilt: Promise<void> | null = null;
+
 /** Safety stop for a server that keeps saying "more" (pages of a normal catch-up are far fewer). */
 const MAX_PAGES = 1000;
 
@@ -77,7 +80,7 @@ export async function pullAll(deps: PullDeps): Promise<PullOutcome> {
     const total = pages === null ? "&total=1" : "";
     const held = coaching ? `&coaching=${coaching}` : "";
     const url = `${deps.baseUrl ?? ""}/api/sync/pull?cursor=${cursor}&limit=${limit}${total}${account}${held}`;
-    if (page === 0) await buildInSlices(pullParts());
+    if (page === 0) await (partsBuilt ??= buildInSlices(pullParts()));
     const r = await requestJson(deps.fetch, url, { method: "GET" }, pageSchema);
     if (r.kind !== "ok") return r;
     const checked = await parseInSlices(r.value.items, pullItemSchema);
