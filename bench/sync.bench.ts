@@ -53,12 +53,17 @@ console.log(`machine: ${cpus.length} cores (${cpus[0]?.model.trim() ?? "?"}), ${
 try {
   const fresh = async (n: number) => (await createSimUsers(db, n)).map((u) => u.id);
   show(await throughput((await fresh(1))[0]!, EVENTS));
-  show(await crowd(await fresh(10), 20, DEVICES, 50));
+  const tens = await crowd(await fresh(10), 20, DEVICES, 50);
+  show(tens);
+  console.log(`  floor ${tens.floor}`);
   // the same crowd as the phone's outbox would send it: each device's 52 items (its session, run and 50 events) in one push (reference only)
   const phone = await crowd(await fresh(10), 20, DEVICES, 50, PUSH_BATCH_SIZE);
   console.log(`  ref   ${phone.line}   [as the phone batches; the goal is judged on the line above]`);
+  console.log(`  floor ${phone.floor}`);
   const [big, ...rest] = await fresh(5);
-  show(await bigRun(big!, rest, BIG_RUN));
+  const bigOne = await bigRun(big!, rest, BIG_RUN);
+  show(bigOne);
+  console.log(`  floor ${bigOne.floor}`);
   if (PROPERTY_RUNS > 0) show(await property());
 } finally {
   await getPool().end();
