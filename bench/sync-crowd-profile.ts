@@ -5,6 +5,7 @@
  * statements grouped by their first words: count, total and mean milliseconds (round trip as the
  * client sees it, queueing on the server included).
  */
+import "./scratch-db";
 import { Client } from "pg";
 import { db, getPool } from "@/db";
 import { createSimUsers } from "../tests/integration/sync-sim";

@@ -6,6 +6,7 @@
  * WAL it wrote (pg_current_wal_lsn before and after: bytes written, a proxy that load does not move; the
  * whole cluster's, so run it alone on its cluster), and their median time and WAL.
  */
+import "./scratch-db";
 import { Client, Pool } from "pg";
 import { db, getPool } from "@/db";
 import { applyPush } from "@/db/queries/sync-push";

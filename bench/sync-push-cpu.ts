@@ -7,6 +7,7 @@
  * runs of 50. A few pushes warm up first; `SYNC_CPU_PROFILE=dir` also writes a CPU profile (100 µs
  * sampling) of the measured pushes into dir.
  */
+import "./scratch-db";
 import fs from "node:fs";
 import { Session } from "node:inspector/promises";
 import { db, getPool } from "@/db";

@@ -5,13 +5,21 @@
 # at the end (also when a bench fails or the run is interrupted), and runs the Chromium benches (tap,
 # Lighthouse) only when Debian's Chromium is there (the path tests use).
 # Arguments pick benches by name: `npm run bench -- season sync` runs bench/season.bench.ts and bench/sync.bench.ts.
+# A path runs that one script on the same fresh database with the arguments after it:
+# `npm run bench -- bench/sync-push-cpu.ts long` (the profile scripts refuse any other database).
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 ensure_node_modules
 say "machine: $(nproc) cores, $(awk '/MemTotal/ { printf "%.1f GB RAM", $2 / 1048576 }' /proc/meminfo), $(uname -sm), node $(node -v)"
 # picked: no arguments, or the bench's name among them
 picked() { [ ${#BENCHES[@]} -eq 0 ] && return 0; local b; for b in "${BENCHES[@]}"; do [ "$b" = "$1" ] && return 0; done; return 1; }
 BENCHES=("$@")
-for b in "${BENCHES[@]}"; do [ -f "bench/$b.bench.ts" ] || die "no bench/$b.bench.ts"; done
+SCRIPT=()
+if [ $# -gt 0 ] && [[ "$1" == bench/*.ts ]]; then
+  [ -f "$1" ] || die "no $1"
+  SCRIPT=("$@")
+  BENCHES=(none)
+fi
+for b in "${BENCHES[@]}"; do [ ${#SCRIPT[@]} -gt 0 ] || [ -f "bench/$b.bench.ts" ] || die "no bench/$b.bench.ts"; done
 if picked engine; then
   say "task engine and contest scoring"
   npx tsx bench/engine.bench.ts
@@ -34,6 +42,11 @@ npx tsx scripts/migrate.ts
 npx tsx --conditions=react-server scripts/seed.ts
 
 CHROMIUM="${CHROMIUM_PATH:-/usr/bin/chromium}"
+if [ ${#SCRIPT[@]} -gt 0 ]; then
+  say "${SCRIPT[0]}"
+  CHROMIUM_PATH="$CHROMIUM" npx tsx --conditions=react-server "${SCRIPT[@]}"
+  exit
+fi
 for extra in bench/*.bench.ts; do
   case "$extra" in bench/engine.bench.ts) continue ;; esac
   [ -f "$extra" ] || continue
