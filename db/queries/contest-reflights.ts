@@ -53,11 +53,13 @@ export async function recordReflight(db: Database, p: {
       if (!lanes.some((l) => l.runId === p.link!.runId && l.lane === p.link!.lane)) return "no_lane";
     }
     // a card with flights outranks a linked timed run (a timekeeper's phone run): the run is kept for the officer's decision (once)
+    // (the grant locked first and read as committed: a run a phone linked meanwhile is kept)
     if (p.flights !== null) {
       await tx.execute(sql`
+        with g as (select * from contest_reflights where id = ${r.id} for update)
         insert into slot_records (reflight_id, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
-        select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from contest_reflights g
-        where g.id = ${r.id} and g.run_id is not null and g.paper_flights is null
+        select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from g
+        where g.run_id is not null and g.paper_flights is null
           and not exists (select 1 from slot_records k where k.reflight_id = g.id and k.outcome is null and k.run_id = g.run_id and k.lane = g.lane)`);
     }
     const now = new Date();

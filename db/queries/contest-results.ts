@@ -89,12 +89,14 @@ export async function saveGroupCards(db: Database, p: { roundId: string; groupNu
     if (p.cards.some((c) => !ids.has(c.entryId)) || new Set(p.cards.map((c) => c.entryId)).size !== p.cards.length) return "not_in_group";
     const now = new Date();
     for (const card of p.cards) {
-      // a card with flights outranks a linked timed run: the run is kept for the officer's decision (once)
+      // a card with flights outranks a linked timed run: the run is kept for the officer's decision (once); the slot is
+      // locked first and read as committed (FOR UPDATE), so a run a phone linked meanwhile is kept, not lost
       if (card.flights !== null) {
         await tx.execute(sql`
+          with g as (select * from group_slots where round_id = ${p.roundId} and entry_id = ${card.entryId} for update)
           insert into slot_records (slot_id, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
-          select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from group_slots g
-          where g.round_id = ${p.roundId} and g.entry_id = ${card.entryId} and g.run_id is not null and g.paper_flights is null
+          select g.id, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from g
+          where g.run_id is not null and g.paper_flights is null
             and not exists (select 1 from slot_records r where r.slot_id = g.id and r.outcome is null and r.run_id = g.run_id and r.lane = g.lane)`);
       }
       await tx.update(groupSlots).set({

@@ -151,12 +151,13 @@ export async function linkTimedLanes(tx: Executor, userId: string, pushed: reado
     }
     for (const s of slots) {
       if (!lanes.has(s.lane)) continue;
-      // the record this run replaces (a paper card, or another run) is kept for the officer's decision
+      // the record this run replaces (a paper card, or another run) is kept for the officer's decision; the slot is
+      // locked first and read as committed by whoever held it (FOR UPDATE), so a card saved meanwhile is kept, not lost
       await tx.execute(sql`
+        with g as (select * from group_slots where round_id = ${roundId} and entry_id = ${s.entryId} and timekeeper_user_id = ${userId} for update)
         insert into slot_records (slot_id, paper_flights, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
-        select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from group_slots g
-        where g.round_id = ${roundId} and g.entry_id = ${s.entryId} and g.timekeeper_user_id = ${userId}
-          and (g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${run.id}::uuid, ${s.lane}::smallint)))`);
+        select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from g
+        where g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${run.id}::uuid, ${s.lane}::smallint))`);
       const done = await tx.update(groupSlots).set({
         runId: run.id, lane: s.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
       }).where(and(eq(groupSlots.roundId, roundId), eq(groupSlots.entryId, s.entryId), eq(groupSlots.timekeeperUserId, userId))).returning({ id: groupSlots.id });
@@ -178,11 +179,13 @@ async function linkReflightLane(tx: Executor, userId: string, p: { runId: string
   const slot = p.slots[0];
   if (!slot) return 0;
   // the record this run replaces (a paper card, or another run) is kept for the officer's decision, as for a slot
+  // (the grant locked first and read as committed: a card recorded meanwhile is kept)
   await tx.execute(sql`
+    with g as (select * from contest_reflights
+      where id = ${p.reflightId} and round_id = ${p.roundId} and entry_id = ${slot.entryId} and timekeeper_user_id = ${userId} for update)
     insert into slot_records (reflight_id, paper_flights, run_id, lane, recorded_by, recorded_at, signed_at, signed_from)
-    select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from contest_reflights g
-    where g.id = ${p.reflightId} and g.round_id = ${p.roundId} and g.entry_id = ${slot.entryId} and g.timekeeper_user_id = ${userId}
-      and (g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${p.runId}::uuid, ${slot.lane}::smallint)))`);
+    select g.id, g.paper_flights, g.run_id, g.lane, g.recorded_by, g.recorded_at, g.signed_at, g.signed_from from g
+    where g.paper_flights is not null or (g.run_id is not null and (g.run_id, g.lane) is distinct from (${p.runId}::uuid, ${slot.lane}::smallint))`);
   const done = await tx.update(contestReflights).set({
     runId: p.runId, lane: slot.lane, paperFlights: null, recordedBy: userId, recordedAt: now, signedAt: null, signedFrom: null,
   }).where(and(
