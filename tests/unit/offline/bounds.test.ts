@@ -1,17 +1,14 @@
-import { afterEach, describe, expect, it } from "vitest";
-import type { WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
 import { listPending, loadPayload } from "@/lib/offline/outbox";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
 import { getCatalogueTask } from "@/lib/tasks";
-import { freshDb, stamp } from "./helpers";
+import { freshDbsPerTest, stamp } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = freshDbsPerTest();
 
 describe("the device never builds a push the server must refuse whole", () => {
   it("keeps each push under the byte budget, leaving the rest queued for the next", async () => {
-    const db = freshDb();
-    dbs.push(db);
+    const db = open();
     const s = await createSessionLocal(db, { ownerId: "u1", fieldName: "Meadow", conditions: { notes: "é".repeat(2000) }, startedAtWallMs: 1_700_000_000_000 });
     for (let i = 0; i < 30; i++) await createSessionLocal(db, { ownerId: "u1", fieldName: `Meadow ${i}`, conditions: { notes: "ü".repeat(2000) }, startedAtWallMs: 1_700_000_000_000 });
     const entries = await listPending(db, 200);
@@ -24,8 +21,7 @@ describe("the device never builds a push the server must refuse whole", () => {
   });
 
   it("records a tap whose offset estimate is absurd without the offset, instead of losing it", async () => {
-    const db = freshDb();
-    dbs.push(db);
+    const db = open();
     const s = await createSessionLocal(db, { ownerId: "u1", fieldName: "Meadow", conditions: {}, startedAtWallMs: 1_700_000_000_000 });
     const r = await createRunLocal(db, { sessionId: s.id, task: getCatalogueTask("A"), lanes: [{ lane: 0, pilotName: "Ada" }], createdAtWallMs: 1_700_000_000_000 });
     const bad = { ...stamp(), offset: { thetaMs: 1.7e308, deltaMs: 3_600_000, measuredAtWallMs: 1_700_000_000_000 } };

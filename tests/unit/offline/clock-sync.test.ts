@@ -1,11 +1,10 @@
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { listClockEstimates } from "@/lib/offline/clock-sync";
-import { getMeta, type WindowcallDb } from "@/lib/offline/db";
+import { getMeta } from "@/lib/offline/db";
 import { SyncClient } from "@/lib/offline/sync-client";
-import { freshDb, ManualTimers } from "./helpers";
+import { freshDbsPerTest, ManualTimers } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = freshDbsPerTest();
 
 const SKEW = 250; // server clock = device clock + 250 ms
 
@@ -32,8 +31,7 @@ function clockWorld(legs: [number, number][], tweak?: (i: number, reply: { t1: n
     if (replaced instanceof Error) throw replaced;
     return Response.json(replaced ?? reply);
   };
-  const db = freshDb();
-  dbs.push(db);
+  const db = open();
   const client = new SyncClient({ db, fetch, clock: { now: () => device }, timers: new ManualTimers() });
   return { client, db, bodies };
 }

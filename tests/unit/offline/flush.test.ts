@@ -1,16 +1,13 @@
 import { v7 as uuidv7 } from "uuid";
-import { afterEach, describe, expect, it } from "vitest";
-import type { WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
 import { SyncClient } from "@/lib/offline/sync-client";
-import { FakeServer, freshDb, ManualTimers, stamp } from "./helpers";
+import { FakeServer, freshDbsPerTest, ManualTimers, stamp } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = freshDbsPerTest();
 
 function setup() {
-  const db = freshDb();
-  dbs.push(db);
+  const db = open();
   const server = new FakeServer();
   const timers = new ManualTimers();
   let now = 1_700_000_000_000;

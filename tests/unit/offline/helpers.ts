@@ -12,12 +12,14 @@ export function freshDb(): WindowcallDb {
   return createWindowcallDb(`test-${uuidv7()}`);
 }
 
-/** Opens fresh databases for the calling test file; each is closed after the test that opened it. */
-export function freshDbsPerTest(): () => WindowcallDb {
+/**
+ * Opens databases for the calling test file (a fresh one, or the one given: e.g. a second tab on the same name);
+ * each is closed after the test that opened it.
+ */
+export function freshDbsPerTest(): (db?: WindowcallDb) => WindowcallDb {
   const dbs: WindowcallDb[] = [];
   afterEach(() => dbs.splice(0).forEach((db) => db.close()));
-  return () => {
-    const db = freshDb();
+  return (db = freshDb()) => {
     dbs.push(db);
     return db;
   };

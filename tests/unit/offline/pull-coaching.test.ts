@@ -1,12 +1,11 @@
 import { v7 as uuidv7 } from "uuid";
-import { afterEach, describe, expect, it } from "vitest";
-import { getMeta, type WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
+import { getMeta } from "@/lib/offline/db";
 import { pullAll } from "@/lib/offline/pull";
 import type { PulledNote, PulledPlan } from "@/lib/validations/coaching-sync";
-import { freshDb } from "./helpers";
+import { freshDbsPerTest } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = freshDbsPerTest();
 
 const note = (pilotId: string, body: string): PulledNote => ({
   id: uuidv7(), pilotId, coachId: uuidv7(), authorId: uuidv7(), authorName: "Coach", sessionId: uuidv7(), runId: uuidv7(), replyTo: null, body, createdAtMs: 1,
@@ -26,8 +25,7 @@ function serverOf(lists: () => { notes: PulledNote[]; plans: PulledPlan[] }) {
 
 describe("pull: coach notes and assigned plans", () => {
   it("keeps the last page's whole lists, so notes the user may no longer read drop off the phone", async () => {
-    const db = freshDb();
-    dbs.push(db);
+    const db = open();
     const lena = uuidv7();
     const ada = uuidv7();
     let lists = { notes: [note(lena, "Relaunch faster"), note(ada, "Nice ladder")], plans: [plan()] };
@@ -43,8 +41,7 @@ describe("pull: coach notes and assigned plans", () => {
   });
 
   it("sends back the fingerprint it keeps with both lists, keeps its lists when the reply leaves them out, and takes a new set with its fingerprint", async () => {
-    const db = freshDb();
-    dbs.push(db);
+    const db = open();
     const asked: string[] = [];
     let reply: Record<string, unknown> = { notes: [note(uuidv7(), "Relaunch faster")], plans: [plan()], coaching: "a".repeat(64) };
     const fetch = async (url: string) => {

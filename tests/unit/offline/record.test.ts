@@ -1,13 +1,11 @@
 import { v7 as uuidv7 } from "uuid";
-import { afterEach, describe, expect, it } from "vitest";
-import { createWindowcallDb, getMeta, type WindowcallDb } from "@/lib/offline/db";
+import { describe, expect, it } from "vitest";
+import { createWindowcallDb, getMeta } from "@/lib/offline/db";
 import { getDeviceId } from "@/lib/offline/device";
 import { createRunLocal, createSessionLocal, recordEvent } from "@/lib/offline/record";
-import { freshDb, stamp } from "./helpers";
+import { freshDbsPerTest, stamp } from "./helpers";
 
-const dbs: WindowcallDb[] = [];
-const open = (db = freshDb()) => (dbs.push(db), db);
-afterEach(() => dbs.splice(0).forEach((db) => db.close()));
+const open = freshDbsPerTest();
 
 const runId = uuidv7();
 
