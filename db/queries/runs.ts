@@ -119,7 +119,8 @@ export async function storeDerivations(
       estimatesByDevice: estimates,
     };
     const lanes = deriveRun(input);
-    let fold = buildFold(input);
+    // a run's first events, when they are few, get no folded state yet (foldsLater)
+    let fold = foldsLater(run, added, input.events.length) ? null : buildFold(input);
     if (fold && JSON.stringify(lanesOfFold(fold, input)) !== JSON.stringify(lanes)) fold = null;
     done.push({ run, lanes, fold });
     if (stats) stats.full++;
@@ -161,6 +162,18 @@ export async function storeDerivations(
   }
   return last;
 }
+
+/**
+ * Events a run may hold when its first push stores no folded state: up to this many, the state is folded on the run's
+ * next push instead (which reads them back in its one load: no statement more). Most runs are pushed whole, once — a
+ * phone back from the field sends each run in one push — so folding (and checking) a state for them did work nothing
+ * read; a run that grows folds on its second push and resumes from its third.
+ */
+export const FOLD_LATER_EVENTS = 500;
+
+/** Whether this full derivation stores no folded state: the push stored the run's first events, and they are few. */
+const foldsLater = (run: LoadedRun, added: ReadonlyMap<string, readonly DerivationEvent[]>, events: number) =>
+  run.eventCount === 0 && (added.get(run.id)?.length ?? 0) > 0 && events <= FOLD_LATER_EVENTS;
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
 
