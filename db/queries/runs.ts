@@ -80,8 +80,8 @@ export type DeriveStats = { resumed: number; full: number; reasons: string[] };
  * state and those events only (lib/results/fold-state.ts resumeFold). Any other run — no state, or
  * a state that cannot take them (an undo, an earlier event arriving late, new clock estimates…) —
  * is derived in full from all its events (read here in one statement when the load did not) and
- * its state is folded again from them; a state that does not give exactly the full result is
- * not stored. Events go to the full derivation in id order (UUIDv7: creation order, as a phone
+ * its state is folded again from them (not on a run's first push of few events: foldsLater); a state that does not
+ * give exactly the full result is not stored. Events go to the full derivation in id order (UUIDv7: creation order, as a phone
  * holds them), so the same events give the same result however they were read. Returns the last
  * server sequence number as the statement saw it.
  */
