@@ -80,8 +80,8 @@ export type DeriveStats = { resumed: number; full: number; reasons: string[] };
  * state and those events only (lib/results/fold-state.ts resumeFold). Any other run — no state, or
  * a state that cannot take them (an undo, an earlier event arriving late, new clock estimates…) —
  * is derived in full from all its events (read here in one statement when the load did not) and
- * its state is folded again from them; a state that does not give exactly the full result is
- * not stored. Events go to the full derivation in id order (UUIDv7: creation order, as a phone
+ * its state is folded again from them (not on a run's first push of few events: foldsLater); a state that does not
+ * give exactly the full result is not stored. Events go to the full derivation in id order (UUIDv7: creation order, as a phone
  * holds them), so the same events give the same result however they were read. Returns the last
  * server sequence number as the statement saw it.
  */
@@ -119,7 +119,8 @@ export async function storeDerivations(
       estimatesByDevice: estimates,
     };
     const lanes = deriveRun(input);
-    let fold = buildFold(input);
+    // a run's first events, when they are few, get no folded state yet (foldsLater)
+    let fold = foldsLater(run, added, input.events.length) ? null : buildFold(input);
     if (fold && JSON.stringify(lanesOfFold(fold, input)) !== JSON.stringify(lanes)) fold = null;
     done.push({ run, lanes, fold });
     if (stats) stats.full++;
@@ -161,6 +162,18 @@ export async function storeDerivations(
   }
   return last;
 }
+
+/**
+ * Events a run may hold when its first push stores no folded state: up to this many, the state is folded on the run's
+ * next push instead (which reads them back in its one load: no statement more). Most runs are pushed whole, once — a
+ * phone back from the field sends each run in one push — so folding (and checking) a state for them did work nothing
+ * read; a run that grows folds on its second push and resumes from its third.
+ */
+export const FOLD_LATER_EVENTS = 500;
+
+/** Whether this full derivation stores no folded state: the push stored the run's first events, and they are few. */
+const foldsLater = (run: LoadedRun, added: ReadonlyMap<string, readonly DerivationEvent[]>, events: number) =>
+  run.eventCount === 0 && (added.get(run.id)?.length ?? 0) > 0 && events <= FOLD_LATER_EVENTS;
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
 

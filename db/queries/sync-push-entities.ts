@@ -97,8 +97,10 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
     ctx.acks.push({ id: r.id, status: "applied" });
   }
   if (freshRuns.length > 0) {
-    await tx.insert(runs).values(freshRuns).onConflictDoNothing();
-    await tx.insert(runLanes).values(freshLanes).onConflictDoNothing();
+    // the runs and their lanes in one statement (one round trip; the lanes' foreign keys are checked at its end)
+    const runsInsert = tx.insert(runs).values(freshRuns).onConflictDoNothing();
+    if (freshLanes.length === 0) await runsInsert;
+    else await tx.execute(sql`with fresh_runs as (${runsInsert.getSQL()}) ${tx.insert(runLanes).values(freshLanes).onConflictDoNothing().getSQL()}`);
     // a contest timekeeper's window: its lanes become the pilots' official results
     if (items.some((r) => r.contest)) await linkTimedLanes(tx, ctx.userId, items.filter((r) => r.contest && seen.has(r.id)));
   }

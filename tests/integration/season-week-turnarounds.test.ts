@@ -60,6 +60,11 @@ describe("season_week_turnarounds", () => {
     // a re-derivation stored: the first run's second flight no longer lands, so the 4.0 s turnaround is gone
     await db.execute(sql`update run_lanes set derived = jsonb_set(derived, '{flights,1,landMs}', 'null') where run_id = ${first}::uuid`);
     expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
+    // a lane that loses its result leaves its week, and counts again once it has one (the old row's week and the new row's)
+    await db.execute(sql`update run_lanes set result_tenths = null where run_id = ${second}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 1, 3000, 3000]]);
+    await db.execute(sql`update run_lanes set result_tenths = 500 where run_id = ${second}::uuid`);
+    expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);
     // a run recorded by a timekeeper counts once the pilot accepts it, not while pending or hidden (lib/sync/consent.ts)
     const recorded = await seasonRun({ pilotId: pilot.id, at: "2026-05-12T10:00:00Z", flights: [[5, 30], [36, 70]], recordedBy: keeper.id });
     expect(await check()).toEqual([["2026-05-04", 2, 2500, 2900]]);

@@ -4,8 +4,8 @@ import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import { applyPush } from "@/db/queries/sync-push";
 import type { DeriveStats } from "@/db/queries/runs";
-import { listDeviceEstimates, toDerivationEvent } from "@/db/queries/runs";
-import { events, runLanes, runs } from "@/db/schema";
+import { FOLD_LATER_EVENTS, listDeviceEstimates, toDerivationEvent } from "@/db/queries/runs";
+import { events, runFolds, runLanes, runs } from "@/db/schema";
 import type { EventBody, RunEvent } from "@/lib/events/schema";
 import { runResult } from "@/lib/results";
 import { getCatalogueTask, parseTaskDefinition, type TaskLetter } from "@/lib/tasks";
@@ -143,6 +143,40 @@ describe("derivation per push equals derivation from scratch (property)", () => 
     expect(stats.resumed).toBeGreaterThan(0);
     expect(stats.full).toBeGreaterThan(0);
   }, 300_000);
+
+  it("stores no folded state for a run's first few events: its next push folds one, the push after resumes from it", async () => {
+    const [ada] = await createSimUsers(db, 1);
+    const phone = recorder(deviceId());
+    const s = session(ada!.id);
+    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
+    const big = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
+    const flights = (runId: string, n: number, from: number) => phone.flights(runId, 0, Array.from({ length: n }, (_, i) => 20 + (i % 7)), from);
+    const folded = async (runId: string) => (await db.select({ n: sql<number>`count(*)::int` }).from(runFolds).where(eq(runFolds.runId, runId)))[0]!.n;
+    const storedBeside = async (runId: string) => {
+      const stored = await db.select().from(runLanes).where(eq(runLanes.runId, runId)).orderBy(asc(runLanes.lane));
+      expect(stored.map((l) => [l.resultTenths, l.derived])).toEqual((await fromScratch(runId)).map((l) => [l.resultTenths, JSON.parse(JSON.stringify(l.derived))]));
+    };
+    const pushed = async (events: RunEvent[], entities: boolean) => {
+      const stats: DeriveStats = { resumed: 0, full: 0, reasons: [] };
+      const reply = await applyPush(db, ada!.id, { deviceId: phone.id, sessions: entities ? [s] : [], runs: entities ? [r, big] : [], events }, [], stats);
+      expect(reply.acks.every((a) => a.status === "applied")).toBe(true);
+      return stats;
+    };
+    const bigEvents = flights(big.id, FOLD_LATER_EVENTS / 2 + 1, T0); // one flight more than FOLD_LATER_EVENTS events
+    // the first push: both runs derived in full; only the run with more than FOLD_LATER_EVENTS events gets a state
+    expect(await pushed([phone.at(r.id, T0, { kind: "window-start" }), ...flights(r.id, 10, T0 + 1_000), ...bigEvents], true)).toMatchObject({ resumed: 0, full: 2 });
+    expect([await folded(r.id), await folded(big.id)]).toEqual([0, 1]);
+    await storedBeside(r.id);
+    // the next push reads the small run's events back (in the load), derives it in full and folds it; the big one resumes
+    const t = T0 + 400_000;
+    expect(await pushed([...flights(r.id, 3, t), ...flights(big.id, 1, t + 10_000_000)], false)).toMatchObject({ resumed: 1, full: 1 });
+    expect(await folded(r.id)).toBe(1);
+    await storedBeside(r.id);
+    // and the one after resumes from it
+    expect(await pushed(flights(r.id, 2, t + 100_000), false)).toMatchObject({ resumed: 1, full: 0 });
+    await storedBeside(r.id);
+    await storedBeside(big.id);
+  });
 
   it("stores each pushed event as sent: quotes, backslashes and emoji in a body, no clock estimate (nulls)", async () => {
     const [ada] = await createSimUsers(db, 1);
