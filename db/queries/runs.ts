@@ -98,6 +98,7 @@ export async function storeDerivations(
   for (const run of loaded) {
     const more = added.get(run.id) ?? [];
     if (run.fold) {
+      if (run.eventCount >= LONG_RUN_EVENTS) await yieldToOthers();
       // the state was read for this derivation alone: folded in place, not copied (owned)
       const r = resumeFold(run.fold, { ...factsOf(run), estimatesByDevice: estimates }, more, run.eventCount + more.length, true);
       if (r.ok) {
@@ -129,7 +130,7 @@ export async function storeDerivations(
   for (const { run, lanes } of done) {
     for (const d of lanes) {
       updates.push(
-        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${JSON.stringify(d.derived)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
+        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${await jsonText(d.derived, run)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
       );
     }
   }
@@ -140,7 +141,8 @@ export async function storeDerivations(
   const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
   // each state a parameter of its own: in an array parameter the driver escapes every quote of
   // the JSON (a long run's state is ~440 kB) and the database unescapes it again
-  const foldRows = kept.map((d) => sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${JSON.stringify(d.fold)}::jsonb)`);
+  const foldRows = [];
+  for (const d of kept) foldRows.push(sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${await jsonText(d.fold, d.run)}::jsonb)`);
   const folds = sql`${kept.length === 0 ? sql`` : sql`, folds as (insert into run_folds (run_id, version, state)
       values ${sql.join(foldRows, sql`, `)}
       on conflict (run_id) do update set version = excluded.version, state = excluded.state returning 1)`}${dropped.length === 0 ? sql`` : sql`, unfold as (delete from run_folds where run_id in (${sql.join(dropped, sql`, `)}) returning 1)`}`;
@@ -160,6 +162,30 @@ export async function storeDerivations(
     last = row && row.is_called ? Number(row.last_value) : 0;
   }
   return last;
+}
+
+/**
+ * A run of this many stored events or more is long: its push yields the event loop between its heavy
+ * synchronous stages (resuming the fold, each lane's JSON, the state's JSON), so the other pushes and pulls
+ * served by this process run in between instead of waiting for the whole stretch (DEVELOPERS.md, Sync).
+ */
+const LONG_RUN_EVENTS = 1_000;
+
+/** Lets every callback already waiting in this process run first (a macrotask, not a microtask). */
+const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * The JSON text of a value for a statement's parameter. For a long run it is made flat here and the event
+ * loop yielded after: V8's `JSON.stringify` of a large value returns a rope, which node-postgres's
+ * `Buffer.byteLength` would flatten inside the bind's one synchronous stretch (~6 ms per MB measured).
+ */
+async function jsonText(value: unknown, run: LoadedRun): Promise<string> {
+  const text = JSON.stringify(value);
+  if (run.eventCount < LONG_RUN_EVENTS) return text;
+  await yieldToOthers();
+  Buffer.byteLength(text); // flattens the rope in place
+  await yieldToOthers();
+  return text;
 }
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
