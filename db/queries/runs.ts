@@ -98,6 +98,7 @@ export async function storeDerivations(
   for (const run of loaded) {
     const more = added.get(run.id) ?? [];
     if (run.fold) {
+      if (run.eventCount >= LONG_RUN_EVENTS) await yieldToOthers();
       // the state was read for this derivation alone: folded in place, not copied (owned)
       const r = resumeFold(run.fold, { ...factsOf(run), estimatesByDevice: estimates }, more, run.eventCount + more.length, true);
       if (r.ok) {
@@ -130,7 +131,7 @@ export async function storeDerivations(
   for (const { run, lanes } of done) {
     for (const d of lanes) {
       updates.push(
-        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${JSON.stringify(d.derived)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
+        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${await jsonParam(d.derived, "jsonb", run)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
       );
     }
   }
@@ -140,8 +141,10 @@ export async function storeDerivations(
   // the lanes' results, the runs' folded states and new stamps and the sequence's position in one statement
   const restamp = sql`restamp as (update runs set server_seq = nextval('sync_seq'), xid = pg_current_xact_id() where id in (${idList}) returning 1)`;
   // each state a parameter of its own: in an array parameter the driver escapes every quote of
-  // the JSON (a long run's state is ~440 kB) and the database unescapes it again
-  const foldRows = kept.map((d) => sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${JSON.stringify(d.fold)}::jsonb)`);
+  // the JSON (a long run's state is ~440 kB) and the database unescapes it again; json, not jsonb:
+  // the column keeps the text as sent (db/schema/run-folds.ts)
+  const foldRows = [];
+  for (const d of kept) foldRows.push(sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${await jsonParam(d.fold, "json", d.run)}::json)`);
   const folds = sql`${kept.length === 0 ? sql`` : sql`, folds as (insert into run_folds (run_id, version, state)
       values ${sql.join(foldRows, sql`, `)}
       on conflict (run_id) do update set version = excluded.version, state = excluded.state returning 1)`}${dropped.length === 0 ? sql`` : sql`, unfold as (delete from run_folds where run_id in (${sql.join(dropped, sql`, `)}) returning 1)`}`;
@@ -174,6 +177,36 @@ export const FOLD_LATER_EVENTS = 500;
 /** Whether this full derivation stores no folded state: the push stored the run's first events, and they are few. */
 const foldsLater = (run: LoadedRun, added: ReadonlyMap<string, readonly DerivationEvent[]>, events: number) =>
   run.eventCount === 0 && (added.get(run.id)?.length ?? 0) > 0 && events <= FOLD_LATER_EVENTS;
+
+/**
+ * A run of this many stored events or more is long: its push yields the event loop between its heavy
+ * synchronous stages (resuming the fold, each lane's JSON, the state's JSON), so the other pushes and pulls
+ * served by this process run in between instead of waiting for the whole stretch (DEVELOPERS.md, Sync).
+ */
+const LONG_RUN_EVENTS = 1_000;
+
+/** Lets every callback already waiting in this process run first (a macrotask, not a microtask). */
+const yieldToOthers = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * A value's JSON as a statement's parameter in PostgreSQL's binary input of `type` (jsonb_recv: a version
+ * byte, 1, then the text; json_recv: the text), UTF-8 in a Buffer, which node-postgres copies into the bind
+ * as it is. Passed as a string, a long run's ~1.2 MB of JSON took node-postgres ~15–30 ms of one
+ * synchronous stretch to write into the bind, against well under a millisecond for the Buffer (DEVELOPERS.md,
+ * Sync). For a long run the event loop is yielded after the text and after its bytes: V8's `JSON.stringify` of a
+ * large value returns a rope, and making its UTF-8 flattens it (~6 ms per MB).
+ */
+async function jsonParam(value: unknown, type: "json" | "jsonb", run: LoadedRun): Promise<Buffer> {
+  const text = JSON.stringify(value);
+  const long = run.eventCount >= LONG_RUN_EVENTS;
+  if (long) await yieldToOthers();
+  const head = type === "jsonb" ? 1 : 0;
+  const bytes = Buffer.allocUnsafe(head + Buffer.byteLength(text));
+  if (head) bytes[0] = 1;
+  bytes.write(text, head);
+  if (long) await yieldToOthers();
+  return bytes;
+}
 
 const factsOf = (run: LoadedRun) => ({ task: parseTaskDefinition(run.task), createdBy: run.createdBy, lanes: run.lanes, officials: NO_OFFICIALS });
 

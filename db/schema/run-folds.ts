@@ -1,4 +1,4 @@
-import { integer, jsonb, pgTable, uuid } from "drizzle-orm/pg-core";
+import { integer, json, pgTable, uuid } from "drizzle-orm/pg-core";
 import { runs } from "./sessions";
 
 /**
@@ -11,5 +11,5 @@ import { runs } from "./sessions";
 export const runFolds = pgTable("run_folds", {
   runId: uuid("run_id").primaryKey().references(() => runs.id, { onDelete: "cascade" }),
   version: integer("version").notNull(),
-  state: jsonb("state").notNull(),
+  state: json("state").notNull(),
 });

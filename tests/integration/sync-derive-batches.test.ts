@@ -178,6 +178,29 @@ describe("derivation per push equals derivation from scratch (property)", () => 
     await storedBeside(big.id);
   });
 
+  it("stores and resumes a derivation whose JSON is not ASCII: a device and page named with quotes, a backslash and emoji", async () => {
+    // the lanes' derived and the folded state travel as UTF-8 bytes (db/queries/runs.ts jsonParam); the device id is in both
+    const [ada] = await createSimUsers(db, 1);
+    const phone = recorder(`phone \u00fc "q" \\ 🛩 ${deviceId()}`);
+    const s = session(ada!.id);
+    const r = run(s.id, [{ lane: 0, pilotName: "Ada", pilotUserId: ada!.id }]);
+    const stats: DeriveStats = { resumed: 0, full: 0, reasons: [] };
+    const first = [phone.at(r.id, T0, { kind: "window-start" }), ...phone.flights(r.id, 0, [40, 50, 60], T0 + 5_000)];
+    const second = phone.flights(r.id, 0, [70, 80], T0 + 600_000);
+    const third = phone.flights(r.id, 0, [90], T0 + 900_000);
+    for (const [i, batch] of [first, second, third].entries()) {
+      const reply = await applyPush(db, ada!.id, { deviceId: phone.id, sessions: i === 0 ? [s] : [], runs: i === 0 ? [r] : [], events: batch }, [], stats);
+      expect(reply.acks.every((a) => a.status === "applied")).toBe(true);
+      const stored = await db.select().from(runLanes).where(eq(runLanes.runId, r.id)).orderBy(asc(runLanes.lane));
+      const expected = await fromScratch(r.id);
+      expect(stored.map((l) => l.derived)).toEqual(expected.map((l) => JSON.parse(JSON.stringify(l.derived))));
+      expect(JSON.stringify(stored[0]!.derived)).toContain(JSON.stringify(phone.id));
+    }
+    // the second push folded a state (the first, of few events, stored none: FOLD_LATER_EVENTS) and the third resumed
+    // it (read back from run_folds, not derived in full)
+    expect([stats.full, stats.resumed]).toEqual([2, 1]);
+  });
+
   it("stores each pushed event as sent: quotes, backslashes and emoji in a body, no clock estimate (nulls)", async () => {
     const [ada] = await createSimUsers(db, 1);
     const phone = recorder(deviceId(), { estimate: null });
