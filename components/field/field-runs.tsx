@@ -1,10 +1,9 @@
 "use client";
 
+import { weekdayDateTimeText } from "@/lib/field/clock-text";
 import { secondsText } from "@/lib/field/display";
 import { DiscardButton } from "./discard-button";
 import { useFieldRuns, type FieldRunRow } from "./use-field-runs";
-
-const when = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
 
 /** /field: windows still open on this phone (nothing while there are none). Loaded after first paint (field-islands.tsx). */
 export function OpenWindows() {
@@ -64,7 +63,7 @@ function RunLine({ row }: { row: FieldRunRow }) {
       <span className="block truncate text-sm text-muted">
         {row.run.lanes.map((l) => l.pilotName).join(", ")} · {row.session?.fieldName ?? "field not synced"}
       </span>
-      <span className="figures block text-sm text-muted">{when.format(new Date(row.run.createdAtWallMs))}</span>
+      <span className="figures block text-sm text-muted">{weekdayDateTimeText(row.run.createdAtWallMs)}</span>
     </span>
   );
 }
