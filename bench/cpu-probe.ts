@@ -2,7 +2,8 @@
  * Where a page's main-thread time goes while it loads: `PROBE_URL=… [PROBE_COOKIE=…] npx tsx bench/cpu-probe.ts`.
  * Fresh context of Debian's Chromium, 4× CPU throttling, a CPU profile over the load and PROBE_MS after it
  * (default 6000), and long tasks (PerformanceObserver). Prints the long tasks and the top functions by
- * inclusive and self time, named by script (chunk) and function.
+ * inclusive and self time, named by script (chunk) and function. PROBE_SKIP (a regular expression) leaves matching
+ * frames out of each task's list, e.g. `chunks/(4bd1b696|5254)-` for React's and Next's own.
  */
 import { openProbePage } from "./probe-page";
 
@@ -67,8 +68,10 @@ try {
   });
   if (cur && (cur as { ms: number }).ms > 50) tasks.push(cur);
   console.log("--- tasks over 50 ms (profile) ---");
+  // PROBE_SKIP: frames left out of each task's list (e.g. React's and Next's chunks, to see the app's own frames under them)
+  const skip = process.env.PROBE_SKIP ? new RegExp(process.env.PROBE_SKIP) : null;
   for (const t of tasks) {
-    const heavy = [...t.frames].sort((a, b) => b[1] - a[1]).filter(([k]) => !/^(d|n|d\.O|s|a|r|t|e|\(anon\)) chunks\/(webpack|main-app)/.test(k)).slice(0, Number(process.env.PROBE_FRAMES ?? 8));
+    const heavy = [...t.frames].sort((a, b) => b[1] - a[1]).filter(([k]) => !/^(d|n|d\.O|s|a|r|t|e|\(anon\)) chunks\/(webpack|main-app)/.test(k) && !(skip && skip.test(k))).slice(0, Number(process.env.PROBE_FRAMES ?? 8));
     console.log(`${Math.round(t.start)} ms +${Math.round(t.ms)} ms: ${heavy.map(([k, v]) => `${k} ${Math.round(v)}`).join(" | ")}`);
   }
   const top = (m: Map<string, number>, n: number) => [...m].sort((a, b) => b[1] - a[1]).slice(0, n).map(([k, v]) => `${v.toFixed(0).padStart(6)} ms  ${k}`).join("\n");

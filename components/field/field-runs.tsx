@@ -1,14 +1,13 @@
 "use client";
 
+import { weekdayDateTimeText } from "@/lib/field/clock-text";
 import { secondsText } from "@/lib/field/display";
 import { DiscardButton } from "./discard-button";
 import { useFieldRuns, type FieldRunRow } from "./use-field-runs";
 
-const when = new Intl.DateTimeFormat("en-GB", { weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
-
 /** /field: windows still open on this phone (nothing while there are none). Loaded after first paint (field-islands.tsx). */
 export function OpenWindows() {
-  const open = useFieldRuns()?.filter((r) => r.open) ?? [];
+  const open = useFieldRuns()?.open ?? [];
   if (open.length === 0) return null;
   return (
     <section aria-labelledby="open-title" className="space-y-2">
@@ -32,10 +31,10 @@ export function OpenWindows() {
 
 /** /field: the latest finished windows on this phone with their results. Loaded after first paint (field-islands.tsx). */
 export function RecentResults() {
-  const rows = useFieldRuns();
+  const runs = useFieldRuns();
   // A window set up but never started is left out of results (it can be deleted while open).
-  const done = rows?.filter((r) => !r.open && r.started).slice(0, 10) ?? [];
-  if (rows === undefined) return <ReadingWindows />;
+  const done = runs?.recent ?? [];
+  if (runs === undefined) return <ReadingWindows />;
   if (done.length === 0) return <p className="text-muted">No finished windows yet.</p>;
   return (
     <ul className="space-y-2">
@@ -64,7 +63,7 @@ function RunLine({ row }: { row: FieldRunRow }) {
       <span className="block truncate text-sm text-muted">
         {row.run.lanes.map((l) => l.pilotName).join(", ")} · {row.session?.fieldName ?? "field not synced"}
       </span>
-      <span className="figures block text-sm text-muted">{when.format(new Date(row.run.createdAtWallMs))}</span>
+      <span className="figures block text-sm text-muted">{weekdayDateTimeText(row.run.createdAtWallMs)}</span>
     </span>
   );
 }

@@ -1,9 +1,5 @@
+import { hourMinuteText as formatTime } from "@/lib/field/clock-text";
 import type { SyncStatus } from "@/lib/offline/sync-client";
-
-// Made on first use, not when the top bar's code loads: a formatter is costly to build, and the
-// hydration of every signed-in page would carry it before there is anything to format (issue #10).
-let timeFormat: Intl.DateTimeFormat | undefined;
-const formatTime = (at: number | Date) => (timeFormat ??= new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit" })).format(at);
 
 /**
  * Short words for the sync state: an icon alone (or a colour) never carries it. `online` is the

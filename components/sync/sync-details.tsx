@@ -2,12 +2,8 @@
 
 import type { Ref } from "react";
 import type { SyncStatus } from "@/lib/offline/sync-client";
+import { dateTimeSecondsText as formatDateTime } from "@/lib/field/clock-text";
 import { useSync } from "./sync-provider";
-
-// made on first use (see describe-sync.ts)
-let dateTime: Intl.DateTimeFormat | undefined;
-const formatDateTime = (at: number | Date) =>
-  (dateTime ??= new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", second: "2-digit" })).format(at);
 
 const KIND: Record<SyncStatus["rejected"][number]["kind"], string> = { event: "Tap", run: "Run", session: "Session", discard: "Deleted window" };
 
