@@ -8,6 +8,7 @@
  * long the event loop was held (delay of a 1 ms timer: p99 and max) and the Node process's CPU per push: what the
  * other accounts wait on, far less noisy than their p50 on a loaded machine.
  */
+import "./scratch-db";
 import os from "node:os";
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import { db, getPool } from "@/db";
