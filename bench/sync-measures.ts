@@ -14,7 +14,7 @@ export type Measure = { line: string; goal: string; met: boolean };
 const ms = (n: number) => `${n.toFixed(1)} ms`;
 
 /** Push one request and fail loudly on any refusal (the bench's items are all allowed). */
-async function pushOk(userId: string, p: PushRequest): Promise<void> {
+export async function pushOk(userId: string, p: PushRequest): Promise<void> {
   const reply = await applyPush(db, userId, p);
   const bad = reply.acks.find((a) => a.status === "rejected");
   if (bad) throw new Error(`bench push refused an item: ${bad.reason}`);

@@ -3,9 +3,9 @@ import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import type { RunEvent } from "@/lib/events/schema";
 import { wasStarted } from "@/lib/results";
 import { parseTaskDefinition, type TaskDefinition } from "@/lib/tasks";
-import { getMeta, type WindowcallDb } from "./db";
+import type { WindowcallDb } from "./db";
 import { LaneTenthsMemo } from "./lane-tenths";
-import type { PhoneView } from "./run-result";
+import { readPhoneView } from "./run-result";
 
 export type FieldRunRow = {
   run: RunEntity;
@@ -37,11 +37,7 @@ export class FieldRunsReader {
 
   async read(db: WindowcallDb): Promise<FieldRuns> {
     const runs = (await db.runs.toArray()).sort((a, b) => b.createdAtWallMs - a.createdAtWallMs).slice(0, FIELD_RUNS_READ);
-    const view: PhoneView = {
-      deviceId: (await getMeta(db, "deviceId")) ?? null,
-      me: (await getMeta(db, "profile"))?.id ?? null,
-      estimate: (await getMeta(db, "clockEstimate")) ?? null,
-    };
+    const view = await readPhoneView(db);
     const ids = runs.map((r) => r.id);
     this.scored.retain(ids);
     const keep = new Set(ids);

@@ -2,10 +2,20 @@ import type { ClockEstimate } from "@/lib/clock";
 import type { RunEvent, Stamp } from "@/lib/events/schema";
 import { placeEvents, placeStamp, runResult, type Estimates, type RecordedEvent, type RunResult } from "@/lib/results";
 import { foldRun, type FoldedRun, type TaskDefinition, type TimelineEvent } from "@/lib/tasks";
-import type { StoredRun } from "./db";
+import type { MetaValues, StoredRun, WindowcallDb } from "./db";
 
 /** What this phone knows about itself when it scores a run: its id, its user, its clock estimate. */
 export type PhoneView = { deviceId: string | null; me: string | null; estimate: ClockEstimate | null };
+
+/** The phone's view, its three meta values in one read (one transaction, not one each: live queries re-read it on every write). */
+export async function readPhoneView(db: WindowcallDb): Promise<PhoneView> {
+  const [deviceId, profile, estimate] = await db.meta.bulkGet(["deviceId", "profile", "clockEstimate"]);
+  return {
+    deviceId: (deviceId?.value as MetaValues["deviceId"] | undefined) ?? null,
+    me: (profile?.value as MetaValues["profile"] | undefined)?.id ?? null,
+    estimate: (estimate?.value as MetaValues["clockEstimate"] | undefined) ?? null,
+  };
+}
 
 /** The run's events as the one result function reads them (an unsynced own event has no recordedBy yet). */
 export function recordedEvents(events: readonly RunEvent[], view: PhoneView): RecordedEvent[] {

@@ -9,7 +9,8 @@ import { secondsText } from "@/lib/field/display";
 import { choices, filtersQuery, localDay, matchesFilters, readFilters, type LogbookFilters } from "@/lib/field/logbook-filter";
 import { formatDate } from "@/lib/format";
 import { consentFor, listedInLogbook } from "@/lib/offline/consent";
-import { getMeta, getWindowcallDb, type StoredRun } from "@/lib/offline/db";
+import { getWindowcallDb, type StoredRun } from "@/lib/offline/db";
+import { readPhoneView } from "@/lib/offline/run-result";
 import type { SessionEntity } from "@/lib/events/entities";
 import { ConsentBar, RecordedFor } from "./consent-bar";
 import { DiscardButton } from "@/components/field/discard-button";
@@ -33,7 +34,8 @@ export function LogbookList() {
   };
   const data = useLiveQuery(async () => {
     const db = getWindowcallDb();
-    const me = (await getMeta(db, "profile"))?.id ?? null;
+    const view = await readPhoneView(db);
+    const me = view.me;
     const stored = await db.sessions.orderBy("startedAtWallMs").reverse().toArray();
     const all = await db.runs.where("sessionId").anyOf(stored.map((s) => s.id)).toArray();
     const hidden = all.filter((r) => !listedInLogbook(r, me)).length;
@@ -42,7 +44,7 @@ export function LogbookList() {
     // A window someone else set up for this pilot and never started is not theirs to see.
     const runs = listed.filter((r) => !r.recordedBy || r.recordedBy.id === me || wasStarted(events.filter((e) => e.runId === r.id)));
     const sessions = stored.filter((s) => runs.some((r) => r.sessionId === s.id) || !all.some((r) => r.sessionId === s.id));
-    return { sessions, runs, hidden, events, me, deviceId: (await getMeta(db, "deviceId")) ?? null, estimate: (await getMeta(db, "clockEstimate")) ?? null };
+    return { sessions, runs, hidden, events, me, deviceId: view.deviceId, estimate: view.estimate };
   }, [showHidden]);
 
   if (!data) return <p aria-busy="true">Reading this phone’s logbook…</p>;
