@@ -13,7 +13,8 @@ import os from "node:os";
 import { monitorEventLoopDelay } from "node:perf_hooks";
 import { db, getPool } from "@/db";
 import { createSimUsers } from "../tests/integration/sync-sim";
-import { bigRun, pushOk } from "./sync-measures";
+import { pushGate } from "@/lib/sync/push-gate";
+import { bigRun, gateSince, pushOk } from "./sync-measures";
 import { deviceWorkload } from "./sync-workload";
 
 /** The run pushed alone: event-loop delay while it runs, and CPU per push. */
@@ -21,6 +22,7 @@ async function alone(user: string): Promise<string> {
   const pushes = deviceWorkload(user, 1, SIZE, 200);
   const h = monitorEventLoopDelay({ resolution: 1 });
   const cpu0 = process.cpuUsage();
+  const gate0 = pushGate.stats();
   const t0 = performance.now();
   h.enable();
   for (const p of pushes) await pushOk(user, p);
@@ -29,7 +31,7 @@ async function alone(user: string): Promise<string> {
   const cpu = process.cpuUsage(cpu0);
   const ms = (ns: number) => (ns / 1e6).toFixed(1);
   return `alone: ${(wall / 1000).toFixed(1)} s, Node CPU ${((cpu.user + cpu.system) / 1000 / pushes.length).toFixed(1)} ms a push; ` +
-    `event loop held p50 ${ms(h.percentile(50))} p99 ${ms(h.percentile(99))} max ${ms(h.max)} ms`;
+    `event loop held p50 ${ms(h.percentile(50))} p99 ${ms(h.percentile(99))} max ${ms(h.max)} ms; ${gateSince(gate0)}`;
 }
 
 const SIZE = Number(process.env.SYNC_BENCH_BIG_RUN ?? 5_000);
