@@ -6,7 +6,8 @@
  * (the bench's own, windowcall_bench: scripts/bench.sh makes one; never windowcall_test). `SYNC_BIG_RUN_TURNS`
  * repeats the measure (default 1), each with fresh accounts. Each turn also pushes the same run alone and prints how
  * long the event loop was held (delay of a 1 ms timer: p99 and max) and the Node process's CPU per push: what the
- * other accounts wait on, far less noisy than their p50 on a loaded machine.
+ * other accounts wait on, far less noisy than their p50 on a loaded machine. `SYNC_GATE_REST_FACTORS=1,2,3` (tuning the
+ * push gate, lib/sync/push-gate.ts) measures each turn once per rest factor, in that order; by default the gate's own.
  */
 import "./scratch-db";
 import os from "node:os";
@@ -36,8 +37,11 @@ async function alone(user: string): Promise<string> {
 
 const SIZE = Number(process.env.SYNC_BENCH_BIG_RUN ?? 5_000);
 const TURNS = Number(process.env.SYNC_BIG_RUN_TURNS ?? 1);
+const FACTORS = (process.env.SYNC_GATE_REST_FACTORS ?? String(pushGate.policy.restFactor)).split(",").map(Number);
 try {
-  for (let t = 0; t < TURNS; t++) {
+  for (let t = 0; t < TURNS; t++) for (const f of FACTORS) {
+    pushGate.policy.restFactor = f;
+    if (FACTORS.length > 1) console.log(`rest factor ${f}`);
     const load = os.loadavg()[0]!.toFixed(1);
     const [big, lone, ...rest] = (await createSimUsers(db, 6)).map((u) => u.id);
     console.log(`load ${load}: ${await alone(lone!)}`);
