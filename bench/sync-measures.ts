@@ -4,6 +4,7 @@ import { db, getPool } from "@/db";
 import { listChanges } from "@/db/queries/sync-pull";
 import { applyPush } from "@/db/queries/sync-push";
 import { correctStamp } from "@/lib/sync/correct-events";
+import { pushGate, type PushGateStats } from "@/lib/sync/push-gate";
 import type { PushRequest } from "@/lib/validations/sync";
 import { deviceWorkload, percentile } from "./sync-workload";
 
@@ -182,9 +183,11 @@ async function slowdown(otherIds: string[], alone: number[], load: () => Promise
  */
 export async function bigRun(bigUser: string, otherIds: string[], size: number): Promise<Measure & { floor: string }> {
   const alone = await others(otherIds, null, 40);
+  const gate0 = pushGate.stats();
   const pushed = await slowdown(otherIds, alone, async () => {
     for (const p of deviceWorkload(bigUser, 1, size, 200)) await pushOk(bigUser, p);
   });
+  const gate = gateSince(gate0);
   const raw = await slowdown(otherIds, alone, async () => {
     const [first, ...rest] = deviceWorkload(bigUser, 1, size, 200);
     await pushOk(bigUser, first!);
@@ -195,9 +198,16 @@ export async function bigRun(bigUser: string, otherIds: string[], size: number):
     `their p50 ${ms(percentile(r.withLoad, 0.5))} (p99 ${ms(percentile(r.withLoad, 0.99))}) against ${ms(percentile(alone, 0.5))} alone = ${r.ratio.toFixed(2)}×`;
   return {
     line: `one account pushes a ${size}-event run (${(pushed.loadMs / 1000).toFixed(1)} s) while ${otherIds.length} others push: ` +
-      `${p50s(pushed)} (alone p99 ${ms(percentile(alone, 0.99))})`,
+      `${p50s(pushed)} (alone p99 ${ms(percentile(alone, 0.99))}); ${gate}`,
     floor: `the same run's events as raw multi-row inserts (${(raw.loadMs / 1000).toFixed(1)} s): ${p50s(raw)}`,
     goal: "≤ 1.2×",
     met: pushed.ratio <= 1.2,
   };
+}
+
+/** What the push gate (lib/sync/push-gate.ts) made bulk pushes wait since `from`. */
+export function gateSince(from: PushGateStats): string {
+  const to = pushGate.stats();
+  const n = to.bulkPushes - from.bulkPushes;
+  return `${n} bulk pushes waited ${((to.waitedMs - from.waitedMs) / 1000).toFixed(1)} s for small ones (longest wait so far ${to.longestWaitMs.toFixed(0)} ms)`;
 }

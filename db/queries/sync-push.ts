@@ -2,6 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import { ForbiddenError } from "@/lib/errors";
+import { pushGate } from "@/lib/sync/push-gate";
 import type { Ack, PushReply, PushRequest } from "@/lib/validations/sync";
 import type { Database } from "../index";
 import { devices, syncRejections } from "../schema";
@@ -49,6 +50,16 @@ export async function claimDevice(tx: Tx, deviceId: string, userId: string): Pro
  * derived lane and re-stamps the runs, commit.
  */
 export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = [], stats?: DeriveStats): Promise<PushReply> {
+  // small pushes first: a bulk upload waits its turn here, before it takes a connection (lib/sync/push-gate.ts)
+  return pushGate.run(pushItems(req), () => storePush(db, userId, req, refused, stats));
+}
+
+/** What the push gate counts: the items a push carries (its clock estimates are not items). */
+export function pushItems(req: PushRequest): number {
+  return req.sessions.length + req.runs.length + req.events.length + (req.discards?.length ?? 0);
+}
+
+function storePush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[], stats: DeriveStats | undefined): Promise<PushReply> {
   // a transaction PostgreSQL aborted (a deadlock between two pushes) is run again whole (db/retry.ts)
   return retryAborted(() => db.transaction(async (tx) => {
     await claimDevice(tx, req.deviceId, userId);
