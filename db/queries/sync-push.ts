@@ -172,7 +172,7 @@ const pipelines = (req: PushRequest) =>
  *    the club days, the locks and the load in one message;
  * 3. the events' insert (plain: a clash fails it), the refusals, the statement(s) storing every derived lane and
  *    `commit`, in one message.
- * So a push of events makes 2 round trips (9 the careful way) and one that creates runs 5 (12). It gives up
+ * So a push of events makes 2 round trips (9 the careful way) and one that creates runs 6 (12). It gives up
  * (TakeCarefulWay: rolled back, then applyPush runs it the careful way) when the device brings clock estimates
  * the server does not hold (storing them moves stored events, and with them the runs to lock); a clash of the
  * plain insert (an event some other push stored since the load) fails it and it goes the careful way too, so
