@@ -160,24 +160,25 @@ const MORE_THAN_THE_EVENT = new Set(["signed", "void", "reflight"]);
  * Whether a push may try the pipelined way: it carries no session and no discard (first pushes and
  * deletions go the careful way) and no event whose storing writes elsewhere.
  */
-const pipelines = (req: PushRequest) =>
-  req.sessions.length === 0 && !req.discards?.length && !req.events.some((e) => MORE_THAN_THE_EVENT.has(e.body.kind));
+const pipelines = (req: PushRequest) => !req.discards?.length && !req.events.some((e) => MORE_THAN_THE_EVENT.has(e.body.kind));
 
 /**
  * A push in as few round trips as the order of its locks allows (db/queries/sync-pipeline.ts sends several
- * statements as one message; each still reads after the ones before it):
- * 1. begin; the claim; the device's estimates (and the user's clubs); then, when the push creates no run, the
- *    runs' open club days (FOR SHARE), the runs' locks and the load — the lock order of the careful way;
- * 2. when it creates runs: their checks and insert (applyRuns: the account's key, the facts, the insert), then
- *    the club days, the locks and the load in one message;
+ * statements as one message; each still reads after the ones before it), in the careful way's order:
+ * 1. begin; the claim; the device's estimates (and the user's clubs); then, when the push creates no session or
+ *    run and names no clock estimate of its own, the runs' open club days (FOR SHARE), the runs' locks and the load;
+ * 2. otherwise (staged): the estimates stored (storeClockEstimates: the events they move name more runs), the
+ *    sessions and runs checked and inserted (applySessions, applyRuns), then the club days, the locks and the load
+ *    in one message;
  * 3. the events' insert (plain: a clash fails it), the refusals, the statement(s) storing every derived lane and
  *    `commit`, in one message.
- * So a push of events makes 2 round trips (9 the careful way) and one that creates runs 6 (12). It gives up
- * (TakeCarefulWay: rolled back, then applyPush runs it the careful way) when the device brings clock estimates
- * the server does not hold (storing them moves stored events, and with them the runs to lock); a clash of the
- * plain insert (an event some other push stored since the load) fails it and it goes the careful way too, so
- * the event is acked a duplicate or refused as before. A run of LONG_RUN_EVENTS or more stores its lanes with
- * binary parameters after the insert, then commits: one round trip more.
+ * So a push of events makes 2 round trips (9 the careful way), one that creates runs 6 (12) and a device's first
+ * push (a session, a run, a new estimate) 10 (16). A push taking step 1's locks and load gives up (TakeCarefulWay:
+ * rolled back, then applyPush runs it the careful way) when its events' stamps bring an estimate the server does
+ * not hold (storing it may move stored events of other runs, which are then not locked); a clash of the plain insert
+ * (an event some other push stored since the load) fails it and it goes the careful way too, so the event is acked
+ * a duplicate or refused as before. A run of LONG_RUN_EVENTS or more stores its lanes with binary parameters after
+ * the insert, then commits: one round trip more.
  */
 async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refused: readonly Ack[], stats: DeriveStats): Promise<PushReply> {
   const { tx, send } = p;
@@ -189,20 +190,27 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
     deviceId: req.deviceId,
     seqs: [...new Set(req.events.map((e) => e.seq))],
   });
-  const locksAndLoad = (runIds: readonly string[]) => [holdDaysSql(runIds), lockRunsSql(eventRuns), loadOf(runIds)].filter((x): x is SQL => x !== null);
-  const creates = req.runs.length > 0;
-  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...(creates ? [] : locksAndLoad(eventRuns))]);
+  const locksAndLoad = (locked: readonly string[], loaded: readonly string[]) =>
+    [holdDaysSql(loaded), lockRunsSql(locked), loadOf(loaded)].filter((x): x is SQL => x !== null);
+  const creates = req.sessions.length > 0 || req.runs.length > 0;
+  const staged = creates || (req.clockEstimates?.length ?? 0) > 0;
+  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...(staged ? [] : locksAndLoad(eventRuns, eventRuns))]);
   if ((first[0]!.rows[0] as { user_id?: string } | undefined)?.user_id !== userId) throw new ForbiddenError(NOT_YOUR_DEVICE);
   const facts = readDeviceFacts(first[1]!.rows[0] as DeviceFactsRow);
   const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
-  if (estimatesChange(facts.estimates, [...(req.clockEstimates ?? []), ...offsets])) throw new TakeCarefulWay();
+  const incoming = [...(req.clockEstimates ?? []), ...offsets];
+  if (!staged && estimatesChange(facts.estimates, incoming)) throw new TakeCarefulWay();
   const ctx: PushContext = { tx, userId, deviceId: req.deviceId, clubIds: facts.clubIds, acks: [...refused] };
 
   let load: PushLoad;
   let newRuns: string[] = [];
-  if (creates) {
+  let moved: string[] = [];
+  if (staged) {
+    // the careful way's order: estimates, sessions, runs, then the days, the locks and the load
+    moved = [...(await storeClockEstimates(tx, req.deviceId, incoming, facts.estimates)).movedRuns];
+    await applySessions(ctx, req.sessions);
     newRuns = await applyRuns(ctx, req.runs);
-    const locked = await send(locksAndLoad([...eventRuns, ...newRuns]));
+    const locked = await send(locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns]));
     load = readLoad(locked.at(-1)!.rows as Parameters<typeof readLoad>[0]);
   } else {
     load = readLoad(first.at(-1)!.rows as Parameters<typeof readLoad>[0]);
@@ -216,7 +224,7 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
     .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] })
     .getSQL();
   const writes = [insert, refusals].filter((x): x is SQL => x !== null);
-  const derive = [...load.runs.values()].filter((r) => added.has(r.id) || newRuns.includes(r.id));
+  const derive = [...load.runs.values()].filter((r) => added.has(r.id) || moved.includes(r.id) || newRuns.includes(r.id));
   if (derive.length > 0 && !inlineable(derive)) {
     // a long run's lanes go as binary parameters, after the insert (they then read its events from the table)
     if (writes.length > 0) await send(writes);

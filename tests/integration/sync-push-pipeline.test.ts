@@ -32,15 +32,16 @@ describe("pipelined push", () => {
     await getPool().end();
   });
 
-  it("stores a push of events in 2 round trips and a push that creates runs in 6, with the same acks and results", async () => {
+  it("stores a first push in 10 round trips, a push of events in 2 and a push that creates runs in 6, with the same acks and results", async () => {
     const [user] = await createSimUsers(db, 1);
     const phone = recorder(deviceId());
     const s = session(user!.id);
     const r1 = run(s.id, [{ lane: 0, pilotName: "Test pilot", pilotUserId: user!.id }]);
     const first = [phone.at(r1.id, T0, { kind: "window-start" }), ...phone.flights(r1.id, 0, [30], T0 + 1000)];
-    // the first push (a session, new estimates): the careful way
-    const a = await applyPush(db, user!.id, { deviceId: phone.id, sessions: [s], runs: [r1], events: first });
-    expect(a.acks.every((x) => x.status === "applied")).toBe(true);
+    // the first push (a session, a run, a new estimate): staged, 10 round trips (16 the careful way)
+    const a = await roundTrips(() => applyPush(db, user!.id, { deviceId: phone.id, sessions: [s], runs: [r1], events: first }));
+    expect(a.trips).toBe(10);
+    expect(a.out.acks).toEqual([s, r1, ...first].map((x) => ({ id: x.id, status: "applied" })));
 
     const later = phone.flights(r1.id, 0, [40, 50], T0 + 60_000);
     const b = await roundTrips(() => applyPush(db, user!.id, { deviceId: phone.id, sessions: [], runs: [], events: later }));
