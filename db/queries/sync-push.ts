@@ -50,10 +50,12 @@ const claimSql = (tx: Tx, deviceId: string, userId: string): SQL =>
  * their reason and recorded in sync_rejections once per device and item. Returns one ack per
  * item and the last server sequence number.
  *
- * Round trips of a push that only carries events (bench/sync-profile.ts counts them): begin,
- * claim, the device's estimates, hold the runs' open club days, lock the runs, one load (runs, their events, clashes, estimates:
- * sync-push-load.ts), one multi-row insert per 500 events, one statement that stores every
- * derived lane and re-stamps the runs, commit.
+ * Most pushes go the pipelined way (pipelinedPush below: the same statements in the same order, several to a
+ * message; 2 round trips for a push of events); the rest, and any that gives up there, the careful way
+ * (carefulPush). Round trips of a push that only carries events the careful way (bench/sync-profile.ts counts
+ * them): begin, claim, the device's estimates, hold the runs' open club days, lock the runs, one load (runs, their
+ * events, clashes, estimates: sync-push-load.ts), one multi-row insert per 500 events, one statement that stores
+ * every derived lane and re-stamps the runs, commit.
  */
 export async function applyPush(db: Database, userId: string, req: PushRequest, refused: readonly Ack[] = [], stats?: DeriveStats): Promise<PushReply> {
   if (pipelines(req)) {
