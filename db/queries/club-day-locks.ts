@@ -57,9 +57,15 @@ export function holdOpenDays(runIds: SQL): SQL {
  * (tests/integration/club-day-close-deadlock.test.ts). storeDerivations takes them again (held already).
  */
 export async function holdDaysOfRuns(tx: Tx, runIds: readonly string[]): Promise<void> {
+  const statement = holdDaysSql(runIds);
+  if (statement) await tx.execute(statement);
+}
+
+/** holdDaysOfRuns' statement (null when there is no run). */
+export function holdDaysSql(runIds: readonly string[]): SQL | null {
   const ids = [...new Set(runIds)];
-  if (ids.length === 0) return;
-  await tx.execute(sql`${holdOpenDays(sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `))}`);
+  if (ids.length === 0) return null;
+  return sql`${holdOpenDays(sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `))}`;
 }
 
 /**

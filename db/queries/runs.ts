@@ -1,5 +1,5 @@
 import "server-only";
-import { inArray, sql } from "drizzle-orm";
+import { inArray, sql, type SQL } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
 import { buildFold, FOLD_VERSION, lanesOfFold, resumeFold, type RunFold } from "@/lib/results/fold-state";
@@ -93,6 +93,35 @@ export async function storeDerivations(
   stats?: DeriveStats,
 ): Promise<number> {
   if (loaded.length === 0) return currentServerSeq(tx);
+  let last = 0;
+  for (const statement of await derivationStatements(tx, loaded, estimates, added, { stats, inline: false, stored: true })) {
+    const r = await tx.execute<{ last_value: string; is_called: boolean }>(statement);
+    last = seqOf(r.rows[0]);
+  }
+  return last;
+}
+
+/** The server sequence number a store statement's row (`last_value`, `is_called` of sync_seq) names. */
+export const seqOf = (row: { last_value: string; is_called: boolean } | undefined) => (row && row.is_called ? Number(row.last_value) : 0);
+
+/** Whether every run here is short enough for its derivation to travel as literal text (derivationStatements `inline`). */
+export const inlineable = (loaded: readonly LoadedRun[]) => loaded.every((r) => r.eventCount < LONG_RUN_EVENTS);
+
+/**
+ * storeDerivations' derivations and the statements that store them (each answers `last_value`, `is_called`
+ * of sync_seq; the first also holds the club days). `inline`: the JSON goes as text (for a pipelined message,
+ * db/queries/sync-pipeline.ts: short runs only, inlineable), not as binary parameters. `stored` false: the
+ * push's events (`added`) are not in the table yet (they go in the same message as these statements), so
+ * a run read here for a full derivation gets them added.
+ */
+export async function derivationStatements(
+  tx: Tx,
+  loaded: readonly LoadedRun[],
+  estimates: ReadonlyMap<string, readonly ClockEstimate[]>,
+  added: ReadonlyMap<string, readonly DerivationEvent[]>,
+  opts: { stats?: DeriveStats; inline: boolean; stored: boolean },
+): Promise<SQL[]> {
+  const { stats } = opts;
   const done: { run: LoadedRun; lanes: LaneDerivation[]; fold: RunFold | null }[] = [];
   const full: LoadedRun[] = [];
   for (const run of loaded) {
@@ -115,8 +144,8 @@ export async function storeDerivations(
   for (const run of full) {
     const input = {
       ...factsOf(run),
-      // read here, after the push's insert, the run's events include the added ones
-      events: (run.events ? [...run.events, ...(added.get(run.id) ?? [])] : (read.get(run.id) ?? [])).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
+      // read here after the push's insert, the run's events include the added ones (not when they are still to be stored)
+      events: (run.events || !opts.stored ? [...(run.events ?? read.get(run.id) ?? []), ...(added.get(run.id) ?? [])] : (read.get(run.id) ?? [])).sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)),
       estimatesByDevice: estimates,
     };
     const lanes = deriveRun(input);
@@ -131,7 +160,7 @@ export async function storeDerivations(
   for (const { run, lanes } of done) {
     for (const d of lanes) {
       updates.push(
-        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${await jsonParam(d.derived, "jsonb", run)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
+        sql`(${run.id}::uuid, ${d.lane}::smallint, ${d.resultTenths}::integer, ${opts.inline ? JSON.stringify(d.derived) : await jsonParam(d.derived, "jsonb", run)}::jsonb, ${d.needsReview}::boolean, ${d.reviewReason}::text)`,
       );
     }
   }
@@ -144,12 +173,12 @@ export async function storeDerivations(
   // the JSON (a long run's state is ~440 kB) and the database unescapes it again; json, not jsonb:
   // the column keeps the text as sent (db/schema/run-folds.ts)
   const foldRows = [];
-  for (const d of kept) foldRows.push(sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${await jsonParam(d.fold, "json", d.run)}::json)`);
+  for (const d of kept) foldRows.push(sql`(${d.run.id}::uuid, ${FOLD_VERSION}::int, ${opts.inline ? JSON.stringify(d.fold) : await jsonParam(d.fold, "json", d.run)}::json)`);
   const folds = sql`${kept.length === 0 ? sql`` : sql`, folds as (insert into run_folds (run_id, version, state)
       values ${sql.join(foldRows, sql`, `)}
       on conflict (run_id) do update set version = excluded.version, state = excluded.state returning 1)`}${dropped.length === 0 ? sql`` : sql`, unfold as (delete from run_folds where run_id in (${sql.join(dropped, sql`, `)}) returning 1)`}`;
   const seq = sql`select last_value, is_called from sync_seq`;
-  let last = 0;
+  const statements: SQL[] = [];
   for (let i = 0; i === 0 || i < updates.length; i += 500) {
     const chunk = updates.slice(i, i + 500);
     const lanes = chunk.length === 0 ? sql`` : sql`, lanes as (
@@ -159,11 +188,9 @@ export async function storeDerivations(
     // the first statement also holds the club days these runs may belong to against a concurrent close (club-day-locks.ts)
     const first = sql`with ${restamp}${folds}${lanes}, held_days as (${holdOpenDays(idList)})
       select last_value, is_called, (select count(*) from held_days) as held_days from sync_seq`;
-    const r = await tx.execute<{ last_value: string; is_called: boolean }>(i === 0 ? first : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
-    const row = r.rows[0];
-    last = row && row.is_called ? Number(row.last_value) : 0;
+    statements.push(i === 0 ? first : sql`with ${sql.raw("x as (select 1)")}${lanes} ${seq}`);
   }
-  return last;
+  return statements;
 }
 
 /**

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { Database } from "../index";
 
 /** The client or an open transaction: sync writes run inside one transaction per push. */
@@ -23,9 +23,15 @@ export const syncStamp = () => ({ serverSeq: sql<number>`nextval('sync_seq')`, x
  * inserts take on the run through the foreign key.
  */
 export async function lockRuns(tx: Tx, runIds: Iterable<string>): Promise<void> {
+  const statement = lockRunsSql(runIds);
+  if (statement) await tx.execute(statement);
+}
+
+/** lockRuns' statement (null when there is no run to lock). */
+export function lockRunsSql(runIds: Iterable<string>): SQL | null {
   const ids = [...new Set(runIds)].sort();
-  if (ids.length === 0) return;
-  await tx.execute(sql`select id from runs where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)}) order by id for no key update`);
+  if (ids.length === 0) return null;
+  return sql`select id from runs where id in (${sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)}) order by id for no key update`;
 }
 
 /**

@@ -27,9 +27,7 @@ export async function storeClockEstimates(
         .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
         .from(deviceClockEstimates)
         .where(eq(deviceClockEstimates.deviceId, deviceId));
-  const known = new Set(existing.map((e) => e.measuredAtWallMs));
-  const fresh = new Map<number, ClockEstimate>();
-  for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);
+  const fresh = freshEstimates(existing, incoming);
   if (fresh.size === 0 && existing.length <= MAX_ESTIMATES_PER_DEVICE) return { estimates: existing, movedRuns };
 
   const candidates = [...existing, ...fresh.values()];
@@ -65,4 +63,17 @@ export async function storeClockEstimates(
       where events.id = v.id`);
   }
   return { estimates: all, movedRuns };
+}
+
+/** The incoming estimates the device's stored ones do not hold yet (by measurement time), first of each time. */
+function freshEstimates(existing: readonly ClockEstimate[], incoming: readonly ClockEstimate[]): Map<number, ClockEstimate> {
+  const known = new Set(existing.map((e) => e.measuredAtWallMs));
+  const fresh = new Map<number, ClockEstimate>();
+  for (const e of incoming) if (!known.has(e.measuredAtWallMs) && !fresh.has(e.measuredAtWallMs)) fresh.set(e.measuredAtWallMs, e);
+  return fresh;
+}
+
+/** Whether storeClockEstimates would write anything (and so may move stored events) for these estimates. */
+export function estimatesChange(stored: readonly ClockEstimate[], incoming: readonly ClockEstimate[]): boolean {
+  return freshEstimates(stored, incoming).size > 0 || stored.length > MAX_ESTIMATES_PER_DEVICE;
 }

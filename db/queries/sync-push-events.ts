@@ -1,5 +1,5 @@
 import "server-only";
-import { inArray, sql } from "drizzle-orm";
+import { inArray, sql, type SQL } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
 import { correctStamp, uncertaintyOf } from "@/lib/sync/correct-events";
@@ -25,6 +25,59 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const added = new Map<string, DerivationEvent[]>();
   if (items.length === 0) return added;
   const { tx } = ctx;
+  const fresh = checkEvents(ctx, items, load);
+  for (let i = 0; i < fresh.length; i += 500) {
+    const chunk = fresh.slice(i, i + 500);
+    const inserted = await insertEvents(ctx.tx, chunk);
+    // a conflict here is a row another transaction committed since the checks above: the same
+    // event (a repeat) or an id some other event took first
+    const raced = chunk.filter((row) => !inserted.has(row.id!));
+    const stored = raced.length === 0 ? [] : await tx
+      .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
+      .from(events)
+      .where(inArray(events.id, raced.map((r) => r.id!)));
+    const storedById = new Map(stored.map((r) => [r.id, r]));
+    for (const row of chunk) {
+      if (inserted.has(row.id!)) {
+        ctx.acks.push({ id: row.id!, status: "applied" });
+        addTo(added, row);
+        continue;
+      }
+      const other = storedById.get(row.id!);
+      if (other && other.deviceId === row.deviceId && other.seq === row.seq) ctx.acks.push({ id: row.id!, status: "duplicate" });
+      else if (other) reject(ctx, row.id!, "This event id is already used by another event.");
+      else reject(ctx, row.id!, `Sequence number ${row.seq} of this device is already used by another event.`);
+    }
+  }
+
+  return added;
+}
+
+const addTo = (added: Map<string, DerivationEvent[]>, row: EventInsert) => {
+  const list = added.get(row.runId);
+  if (list) list.push(asDerivationEvent(row));
+  else added.set(row.runId, [asDerivationEvent(row)]);
+};
+
+/**
+ * The pipelined push's events (db/queries/sync-push.ts): the same checks, then every fresh event acked
+ * `applied` before it is stored, by ONE plain insert (no `on conflict`) that the caller sends with the
+ * results: a row another transaction committed since the load makes it fail, and the push is then run
+ * again the careful way (applyEvents), so such an event is still acked a duplicate or refused.
+ */
+export function eventsToInsert(ctx: PushContext, items: readonly RunEvent[], load: PushLoad): { insert: SQL | null; added: Map<string, DerivationEvent[]> } {
+  const added = new Map<string, DerivationEvent[]>();
+  if (items.length === 0) return { insert: null, added };
+  const fresh = checkEvents(ctx, items, load);
+  for (const row of fresh) {
+    ctx.acks.push({ id: row.id!, status: "applied" });
+    addTo(added, row);
+  }
+  return { insert: fresh.length === 0 ? null : insertEventsSql(fresh, false), added };
+}
+
+/** Each pushed event checked against the load (the refused and the duplicates acked); the rows to store. */
+function checkEvents(ctx: PushContext, items: readonly RunEvent[], load: PushLoad): EventInsert[] {
   const estimates = load.estimates.get(ctx.deviceId) ?? [];
   const targetIds = items.flatMap((e) => (e.body.kind === "void" || e.body.kind === "correct" ? [e.body.targetId] : []));
   const pushedIds = new Set(items.map((e) => e.id));
@@ -38,7 +91,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
   const bySeq = new Map(clashes.filter((c) => c.deviceId === ctx.deviceId).map((c) => [c.seq, c.id]));
   const targets = new Map<string, NonNullable<TargetFacts>>(targetRows.map((t) => [t.id, { runId: t.runId, recordedBy: t.recordedBy, deviceId: t.deviceId }]));
 
-  const fresh: (typeof events.$inferInsert)[] = [];
+  const fresh: EventInsert[] = [];
   for (const e of items) {
     const stored = byId.get(e.id);
     if (stored) {
@@ -83,32 +136,7 @@ export async function applyEvents(ctx: PushContext, items: readonly RunEvent[], 
     bySeq.set(e.seq, e.id);
     targets.set(e.id, { runId: e.runId, recordedBy: ctx.userId });
   }
-  for (let i = 0; i < fresh.length; i += 500) {
-    const chunk = fresh.slice(i, i + 500);
-    const inserted = await insertEvents(ctx.tx, chunk);
-    // a conflict here is a row another transaction committed since the checks above: the same
-    // event (a repeat) or an id some other event took first
-    const raced = chunk.filter((row) => !inserted.has(row.id!));
-    const stored = raced.length === 0 ? [] : await tx
-      .select({ id: events.id, deviceId: events.deviceId, seq: events.seq })
-      .from(events)
-      .where(inArray(events.id, raced.map((r) => r.id!)));
-    const storedById = new Map(stored.map((r) => [r.id, r]));
-    for (const row of chunk) {
-      if (inserted.has(row.id!)) {
-        ctx.acks.push({ id: row.id!, status: "applied" });
-        const list = added.get(row.runId);
-        if (list) list.push(asDerivationEvent(row));
-        else added.set(row.runId, [asDerivationEvent(row)]);
-        continue;
-      }
-      const other = storedById.get(row.id!);
-      if (other && other.deviceId === row.deviceId && other.seq === row.seq) ctx.acks.push({ id: row.id!, status: "duplicate" });
-      else if (other) reject(ctx, row.id!, "This event id is already used by another event.");
-      else reject(ctx, row.id!, `Sequence number ${row.seq} of this device is already used by another event.`);
-    }
-  }
-  return added;
+  return fresh;
 }
 
 /** An inserted row as the derivation reads it (the same shape loadForPush gives stored ones). */
@@ -132,8 +160,14 @@ type EventInsert = typeof events.$inferInsert;
  * grows with the rows (a multi-row VALUES list has 15 parameters per row to build and bind).
  */
 async function insertEvents(tx: PushContext["tx"], rows: readonly EventInsert[]): Promise<Set<string>> {
+  const res = await tx.execute<{ id: string }>(insertEventsSql(rows, true));
+  return new Set(res.rows.map((r) => r.id));
+}
+
+/** The insert of insertEvents; `onConflict` false: plain, so any clash fails the statement. */
+function insertEventsSql(rows: readonly EventInsert[], onConflict: boolean): SQL {
   const col = <T>(pick: (r: EventInsert) => T) => sql.param(rows.map(pick));
-  const res = await tx.execute<{ id: string }>(sql`
+  return sql`
     insert into events (id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id,
       offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms)
     select id, run_id, device_id, seq, recorded_by, kind, body::jsonb, wall_ms, mono_ms, page_id,
@@ -145,7 +179,6 @@ async function insertEvents(tx: PushContext["tx"], rows: readonly EventInsert[])
       ${col((r) => r.correctedMs)}::float8[], ${col((r) => r.uncertaintyMs ?? null)}::float8[])
       as v(id, run_id, device_id, seq, recorded_by, kind, body, wall_ms, mono_ms, page_id,
         offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms)
-    on conflict do nothing
-    returning id::text`);
-  return new Set(res.rows.map((r) => r.id));
+    ${onConflict ? sql`on conflict do nothing` : sql``}
+    returning id::text`;
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import type { ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
 import type { DerivationEvent } from "@/lib/sync/derive";
@@ -41,16 +41,21 @@ const ids = (list: readonly string[]) => (list.length ? sql.join(list.map((id) =
  * row; the events as plain rows after it (building JSON of thousands of events costs the database
  * more than sending them as rows).
  */
-export async function loadForPush(
-  tx: Tx,
-  p: { runIds: readonly string[]; eventIds: readonly string[]; deviceId: string; seqs: readonly number[]; allEvents?: boolean },
-): Promise<PushLoad> {
+export async function loadForPush(tx: Tx, p: LoadInput): Promise<PushLoad> {
+  return readLoad((await tx.execute<LoadRow>(loadSql(p))).rows);
+}
+
+type LoadInput = { runIds: readonly string[]; eventIds: readonly string[]; deviceId: string; seqs: readonly number[]; allEvents?: boolean };
+type LoadRow = EventRow & { f: boolean; runs: LoadedRunRow[] | null; stored: StoredEvent[] | null; estimates: [string, number, number, number][] | null };
+
+/** loadForPush's statement. */
+export function loadSql(p: LoadInput): SQL {
   const runList = ids(p.runIds);
   // the pushed ids and seqs (hundreds) as one array parameter each: building a `$n::uuid` fragment per item cost more JavaScript than the lookup
   const eventIds = sql.param(p.eventIds);
   const seqs = sql.param(p.seqs);
   // the facts ride on one extra row (f = true) before the events' own rows: one statement, one snapshot
-  const res = await tx.execute<EventRow & { f: boolean; runs: LoadedRunRow[] | null; stored: StoredEvent[] | null; estimates: [string, number, number, number][] | null }>(sql`
+  return sql`
     with facts as (select
       (select coalesce(json_agg(json_build_object('id', r.id, 'createdBy', r.created_by, 'task', r.task,
           'lanes', (select coalesce(json_agg(json_build_object('lane', l.lane, 'pilotUserId', l.pilot_user_id) order by l.lane), '[]')
@@ -72,11 +77,15 @@ export async function loadForPush(
     select false, null, null, null, e.id::text, e.run_id::text, e.device_id, e.seq, e.recorded_by::text, e.body, e.wall_ms, e.mono_ms, e.page_id,
       e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms, e.corrected_ms, e.uncertainty_ms
     from events e where e.run_id in (${runList})
-      ${p.allEvents ? sql`` : sql`and not exists (select 1 from run_folds f where f.run_id = e.run_id and f.version = ${FOLD_VERSION})`}`);
-  const facts = res.rows.find((r) => r.f)!;
+      ${p.allEvents ? sql`` : sql`and not exists (select 1 from run_folds f where f.run_id = e.run_id and f.version = ${FOLD_VERSION})`}`;
+}
+
+/** loadForPush's answer from the rows of its statement. */
+export function readLoad(rows: readonly LoadRow[]): PushLoad {
+  const facts = rows.find((r) => r.f)!;
   const row = { runs: facts.runs ?? [], stored: facts.stored ?? [], estimates: facts.estimates ?? [] };
   const runs = new Map<string, LoadedRun>(row.runs.map((r) => [r.id, { ...r, events: r.fold ? null : [] }]));
-  for (const e of res.rows) if (!e.f) runs.get(e.run_id)?.events?.push(fromRow(e));
+  for (const e of rows) if (!e.f) runs.get(e.run_id)?.events?.push(fromRow(e));
   const estimates = new Map<string, ClockEstimate[]>();
   for (const [deviceId, thetaMs, deltaMs, measuredAtWallMs] of row.estimates) {
     const list = estimates.get(deviceId) ?? [];

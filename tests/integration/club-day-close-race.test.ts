@@ -1,4 +1,5 @@
 import { sql } from "drizzle-orm";
+import { Client } from "pg";
 import { afterAll, describe, expect, it } from "vitest";
 import { getDayBoard } from "@/db/queries/club-day-board";
 import { closeClubDay, openClubDay } from "@/db/queries/club-days";
@@ -26,12 +27,25 @@ afterAll(async () => {
 
 type Held = { db: Database; worked: Promise<void>; release: () => void };
 
-/** `db` whose transactions do all their work, then wait for `release()` before committing. */
-function holdBeforeCommit(): Held {
+/**
+ * `db` whose transactions do all their work, then wait for `release()` before committing. A pipelined push
+ * (db/queries/sync-pipeline.ts) sends its last statements and `commit` in one message: that message waits instead
+ * when `pipelined` (its run written, its club days held; its events' insert and store go with the commit).
+ */
+function holdBeforeCommit(pipelined = false): Held {
   let release!: () => void;
   let worked!: () => void;
   const gate = new Promise<void>((r) => (release = r));
   const done = new Promise<void>((r) => (worked = r));
+  const query = Client.prototype.query;
+  if (pipelined) Client.prototype.query = function held(this: Client, ...args: unknown[]) {
+    const send = () => (query as (...a: unknown[]) => unknown).apply(this, args);
+    if (typeof args[0] !== "string" || !args[0].endsWith(";\ncommit")) return send();
+    Client.prototype.query = query; // one push's message only
+    worked();
+    return gate.then(send);
+  } as typeof Client.prototype.query;
+  void gate.then(() => (Client.prototype.query = query));
   const held = new Proxy(db, {
     get(target, key, receiver) {
       if (key !== "transaction") return Reflect.get(target, key, receiver);
@@ -70,7 +84,7 @@ describe("closing a day while a phone syncs (two connections)", () => {
   it("a push written before the close commits is in the closed day: the close waits for it", async () => {
     const day = "2026-07-04";
     const t = await setUp(day);
-    const pushing = holdBeforeCommit();
+    const pushing = holdBeforeCommit(true);
     const pushed = t.push(pushing.db);
     await pushing.worked; // the run and its events are written, not committed
     const closing = closeClubDay(db, { clubId: t.clubId, day, userId: t.officer.id });
