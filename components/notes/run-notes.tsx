@@ -25,14 +25,14 @@ async function post(url: string, body: unknown): Promise<PulledNote> {
  * the run as a coach's copy writes a new note for its pilot.
  */
 export function RunNotes({ run, me }: { run: StoredRun; me: string | null }) {
-  const { client } = useSync();
+  const { client, wake } = useSync();
   const notes = useLiveQuery(async () => (await getMeta(getWindowcallDb(), "notes")) ?? [], []);
   if (!notes) return null;
   const threads = threadsOf(notesOn(notes, run));
   // a coach's copy: the run is neither recorded by nor flown by this account
   const coachedLanes = me && run.recordedBy && run.recordedBy.id !== me && !run.lanes.some((l) => l.pilotUserId === me)
     ? run.lanes.filter((l) => l.pilotUserId) : [];
-  const after = () => void client?.sync();
+  const after = () => (client ? void client.sync() : wake()); // a client loaded later syncs when it starts
   return (
     <section aria-labelledby="notes-h" className="space-y-3">
       <h2 id="notes-h" className="text-lg font-bold">Coach notes</h2>

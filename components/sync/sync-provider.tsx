@@ -1,28 +1,43 @@
 "use client";
 
-import { createContext, Fragment, useContext, useEffect, useState, type ReactNode } from "react";
+import { createContext, Fragment, useCallback, useContext, useEffect, useRef, useState, type ReactNode } from "react";
 import { useSessionState } from "@/components/auth/session-state";
 import { switchDeviceUser } from "@/lib/offline/device-user";
 import type { SyncClient, SyncStatus } from "@/lib/offline/sync-client";
 import { useOnline } from "./use-online";
+import { whenSettled } from "./when-settled";
 
 type Runtime = typeof import("./sync-runtime");
 
-/** The page's sync client (null until its code has loaded, just after the page is drawn) and its latest status. */
-type SyncContextValue = { client: SyncClient | null; status: SyncStatus | null };
+/**
+ * The page's sync client (null until its code has loaded: once the page has settled, or sooner on
+ * first need), its latest status, and `wake` to load it now.
+ */
+type SyncContextValue = { client: SyncClient | null; status: SyncStatus | null; wake: () => void };
 
 const SyncContext = createContext<SyncContextValue | null>(null);
 
 /**
- * The page's one sync client (SYNC.md §2): created once its code has loaded (sync-runtime.ts,
- * fetched after the page is drawn so no screen waits for it), started in the browser (flush on
- * start, on `online`, on becoming visible), with persistent storage requested once. Also keeps
- * the signed-in user's profile in the device database while online, so pages that open offline
- * know who is timing, and moves to that account's own device database when a different account
- * signs in on this browser (device-user.ts). Nothing here touches storage while rendering.
+ * The page's one sync client (SYNC.md §2), started in the browser (flush on start, on `online`, on
+ * becoming visible), with persistent storage requested once. Two halves, in this order (issue #10):
+ *
+ * 1. **The account check**, as soon as the session is known: which account's device database this
+ *    page uses (device-user.ts, localStorage, synchronous) and whether that database holds another
+ *    account's records (account-check.ts, one IndexedDB read). Either one switching remounts the
+ *    pages below on the right database (`generation`) — early, before anyone types into a form.
+ *    It also keeps the signed-in user's profile in the device database, so pages that open
+ *    offline know who is timing.
+ * 2. **The sync runtime** (sync-runtime.ts: the pull/push loop, its schemas, the pull's writes),
+ *    loaded once the page has settled (`whenSettled`) or on first need (`wake`: a recorded tap, the
+ *    sync details opened), so its evaluation and the first pull are not part of the page's load.
+ *    Nothing waits for it: taps are stored in IndexedDB by the screens themselves, and the client
+ *    flushes the outbox when it starts.
+ *
+ * Signed-out pages (online) load neither. Nothing here touches storage while rendering.
  */
 export function SyncProvider({ children }: { children: ReactNode }) {
   const [runtime, setRuntime] = useState<Runtime | null>(null);
+  const runtimeRef = useRef<Runtime | null>(null);
   const [client, setClient] = useState<SyncClient | null>(null);
   const [status, setStatus] = useState<SyncStatus | null>(null);
   // Bumped when another account signs in here: the pages below remount on its database.
@@ -35,51 +50,70 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   // once started it stays started: the signal returning must not stop a client started offline
   const [started, setStarted] = useState(false);
   if (!started && (authStatus === "authenticated" || (authStatus === "unauthenticated" && !online))) setStarted(true);
+  // the runtime is wanted once the page has settled after sync started, or at once on first need
+  const [wanted, setWanted] = useState(false);
+  const wake = useCallback(() => setWanted(true), []);
 
   useEffect(() => {
+    if (!started || wanted) return;
+    return whenSettled(() => setWanted(true));
+  }, [started, wanted]);
+
+  useEffect(() => {
+    if (!wanted) return;
     let live = true;
     void import("./sync-runtime").then((loaded) => {
       if (!live) return;
+      runtimeRef.current = loaded;
       setRuntime(loaded);
       setClient((c) => c ?? loaded.newClient());
     });
     return () => {
       live = false;
     };
-  }, []);
+  }, [wanted]);
   useEffect(() => client?.subscribe(setStatus), [client]);
   useEffect(() => {
     if (!started || !client || !runtime) return;
     return runtime.startSync(client);
   }, [client, started, runtime]);
 
+  // The account check: needs the session, not the runtime.
   useEffect(() => {
-    if (authStatus !== "authenticated" || !user?.id || !runtime || !client) return;
+    if (authStatus !== "authenticated" || !user?.id) return;
+    let live = true;
     // Another account signed in (rare): the stored choice changed outside React, so the client
-    // and the pages below must follow it now.
+    // (if loaded) and the pages below must follow it now.
     const follow = () => {
+      if (!live) return;
       setStatus(null);
-      setClient(runtime.newClient());
+      setClient(runtimeRef.current ? runtimeRef.current.newClient() : null);
       setGeneration((g) => g + 1);
     };
     if (switchDeviceUser(user.id)) {
       follow();
-      return; // this effect runs again with the new client
+      return; // this effect runs again on the next generation's render
     }
     const profile = { id: user.id, name: user.name, email: user.email };
-    void runtime.keepProfile(profile, follow).catch(() => undefined);
-    // signed in again after the server said 401: leave the signed-out state and sync
-    if (client.status().state === "signed-out") void client.resume();
-  }, [authStatus, user?.id, user?.name, user?.email, client, runtime]);
+    void import("./account-check").then((check) => (live ? check.keepProfile(profile, follow) : undefined)).catch(() => undefined);
+    return () => {
+      live = false;
+    };
+  }, [authStatus, user?.id, user?.name, user?.email, generation]);
+
+  // signed in again after the server said 401: leave the signed-out state and sync
+  useEffect(() => {
+    if (authStatus === "authenticated" && client?.status().state === "signed-out") void client.resume();
+  }, [authStatus, client]);
 
   return (
-    <SyncContext.Provider value={{ client, status }}>
+    <SyncContext.Provider value={{ client, status, wake }}>
       <Fragment key={generation}>{children}</Fragment>
     </SyncContext.Provider>
   );
 }
 
-/** The sync client (null until loaded) and its latest status (null until the first report). */
+/** The sync client (null until loaded), its latest status (null until the first report), and `wake` to load it now. */
 export function useSync(): SyncContextValue {
   const value = useContext(SyncContext);
   if (!value) throw new Error("useSync needs <SyncProvider> above it");

@@ -1,13 +1,14 @@
-import { getMeta, getWindowcallDb, setMeta, type MetaValues } from "@/lib/offline/db";
-import { currentDeviceUser, giveOwnDatabase } from "@/lib/offline/device-user";
+import { getWindowcallDb } from "@/lib/offline/db";
+import { currentDeviceUser } from "@/lib/offline/device-user";
 import { requestPersistence } from "@/lib/offline/storage";
 import { startSyncInBrowser } from "@/lib/offline/sync-browser";
 import { createSyncClient, type SyncClient } from "@/lib/offline/sync-client";
 
 /**
- * The sync provider's heavy half (the device database, the sync client and the schemas it
- * checks the server's answers with), loaded once the page is drawn: no screen needs it to
- * paint, and the first load of every signed-in page stays small.
+ * The sync provider's heavy half (the sync client, its pull/push loop and the schemas it checks
+ * the server's answers with), loaded once the page has settled or on first need (a recorded tap,
+ * the sync details opened): see sync-provider.tsx. Which account's database the page uses is
+ * decided before it, apart from it (device-user.ts, account-check.ts).
  */
 
 /**
@@ -24,19 +25,4 @@ export function startSync(client: SyncClient): () => void {
   const stop = startSyncInBrowser(client);
   void requestPersistence();
   return stop;
-}
-
-/**
- * Keeps the signed-in user's profile in the device database, so pages that open offline know
- * who is timing; calls `follow` when this database holds another account's records
- * (localStorage was cleared) and a fresh one was chosen.
- */
-export async function keepProfile(profile: MetaValues["profile"], follow: () => void): Promise<void> {
-  const db = getWindowcallDb();
-  const cached = await getMeta(db, "profile");
-  if (cached && cached.id !== profile.id) {
-    if (giveOwnDatabase(profile.id)) follow();
-    return;
-  }
-  if (cached?.name !== profile.name || cached.email !== profile.email) await setMeta(db, "profile", profile);
 }

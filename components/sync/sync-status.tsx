@@ -12,7 +12,7 @@ import { useSync } from "./sync-provider";
  * Changes are announced politely to screen readers.
  */
 export function SyncStatusBadge() {
-  const { status } = useSync();
+  const { status, wake } = useSync();
   const dialog = useRef<HTMLDialogElement>(null);
   const online = useOnline();
   const main = describeSync(status, online);
@@ -21,7 +21,10 @@ export function SyncStatusBadge() {
     <>
       <button
         type="button"
-        onClick={() => dialog.current?.showModal()}
+        onClick={() => {
+          wake(); // the details' "Sync now" needs the client: load it now if the page has not settled yet
+          dialog.current?.showModal();
+        }}
         className="flex min-h-11 flex-col items-end rounded-lg px-2 py-1 text-right leading-tight"
         aria-haspopup="dialog"
       >
