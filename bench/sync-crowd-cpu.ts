@@ -6,45 +6,23 @@
  * migrated database (never windowcall_test), or `npm run bench -- bench/sync-crowd-cpu.ts`. For two checkouts in
  * alternating turns, where a loaded machine makes the p99 swing more than the change does.
  */
-import fs from "node:fs";
 import os from "node:os";
 import "./scratch-db";
 import { db, getPool } from "@/db";
 import { createSimUsers } from "../tests/integration/sync-sim";
+import { cpuText, withCpu } from "./turn-cpu";
 import { crowd } from "./sync-measures";
 
 const TURNS = Number(process.env.TURNS ?? 2);
 const DEVICES = Number(process.env.SYNC_BENCH_DEVICES ?? 100);
-const TICK_MS = 1000 / 100; // USER_HZ
-
-/** CPU ms (user + system) of this database's backends, by pid. */
-async function backendCpu(): Promise<Map<number, number>> {
-  const r = await getPool().query<{ pid: number }>("select pid from pg_stat_activity where datname = current_database()");
-  const out = new Map<number, number>();
-  for (const { pid } of r.rows) {
-    try {
-      const f = fs.readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]!.split(" ");
-      out.set(pid, (Number(f[11]) + Number(f[12])) * TICK_MS);
-    } catch {
-      // not on this machine, or gone
-    }
-  }
-  return out;
-}
 
 try {
   const users = (await createSimUsers(db, 10)).map((u) => u.id);
   for (let i = 0; i < TURNS; i++) {
     // the pool's connections all open first, so every backend the turn uses is counted
     await Promise.all(Array.from({ length: getPool().options.max ?? 10 }, () => db.execute("select pg_sleep(0.05)")));
-    const before = await backendCpu();
-    const cpu0 = process.cpuUsage();
-    const m = await crowd(users, 20, DEVICES, 50);
-    const cpu = process.cpuUsage(cpu0);
-    const after = await backendCpu();
-    let pg = 0;
-    for (const [pid, ms] of after) pg += ms - (before.get(pid) ?? 0);
-    console.log(`load ${os.loadavg()[0]!.toFixed(2)}  ${m.line}\n  floor ${m.floor}\n  CPU ms (pushes, pulls and floor): node ${((cpu.user + cpu.system) / 1000).toFixed(0)}, postgres ${pg.toFixed(0)}`);
+    const { result: m, cpu } = await withCpu(() => crowd(users, 20, DEVICES, 50));
+    console.log(`load ${os.loadavg()[0]!.toFixed(2)}  ${m.line}\n  floor ${m.floor}\n  CPU ms (pushes, pulls and floor): ${cpuText(cpu)}`);
   }
 } finally {
   await getPool().end();
