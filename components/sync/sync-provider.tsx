@@ -13,7 +13,7 @@ type Runtime = typeof import("./sync-runtime");
  * The page's sync client (null until its code has loaded: once the page has settled, or sooner on
  * first need), its latest status, and `wake` to load it now.
  */
-type SyncContextValue = { client: SyncClient | null; status: SyncStatus | null; wake: () => void };
+type SyncContextValue = { client: SyncClient | null; status: SyncStatus | null; wake: () => void; loadClient: () => Promise<SyncClient> };
 
 const SyncContext = createContext<SyncContextValue | null>(null);
 
@@ -53,6 +53,14 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   // the runtime is wanted once the page has settled after sync started, or at once on first need
   const [wanted, setWanted] = useState(false);
   const wake = useCallback(() => setWanted(true), []);
+  // `loadClient`: the client now (loading the runtime if it has not loaded yet), for work that needs it at once (sign-out's last push)
+  const clientRef = useRef<SyncClient | null>(null);
+  const waiters = useRef<((c: SyncClient) => void)[]>([]);
+  const loadClient = useCallback((): Promise<SyncClient> => {
+    if (clientRef.current) return Promise.resolve(clientRef.current);
+    setWanted(true);
+    return new Promise((resolve) => waiters.current.push(resolve));
+  }, []);
 
   useEffect(() => {
     if (!started || wanted) return;
@@ -77,6 +85,13 @@ export function SyncProvider({ children }: { children: ReactNode }) {
     if (!started || !client || !runtime) return;
     return runtime.startSync(client);
   }, [client, started, runtime]);
+  useEffect(() => {
+    clientRef.current = client;
+    if (!client) return;
+    const waiting = waiters.current;
+    waiters.current = [];
+    for (const resolve of waiting) resolve(client);
+  }, [client]);
 
   // The account check: needs the session, not the runtime.
   useEffect(() => {
@@ -107,13 +122,13 @@ export function SyncProvider({ children }: { children: ReactNode }) {
   }, [authStatus, client]);
 
   return (
-    <SyncContext.Provider value={{ client, status, wake }}>
+    <SyncContext.Provider value={{ client, status, wake, loadClient }}>
       <Fragment key={generation}>{children}</Fragment>
     </SyncContext.Provider>
   );
 }
 
-/** The sync client (null until loaded), its latest status (null until the first report), and `wake` to load it now. */
+/** The sync client (null until loaded), its latest status (null until the first report), `wake` to load it now, and `loadClient` to wait for it. */
 export function useSync(): SyncContextValue {
   const value = useContext(SyncContext);
   if (!value) throw new Error("useSync needs <SyncProvider> above it");

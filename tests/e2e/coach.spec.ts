@@ -251,9 +251,12 @@ test("a plan's next item starts in one tap on the pilot's Field; the coach sees 
   await expect(item.getByRole("button", { name: "Reopen “Tobi's launch week, shorter”" })).toBeVisible();
 
   // after Tobi's next sync it is no longer ready to fly: closed, with nothing to start
+  // each load pulls once its page has settled (components/sync/when-settled.ts): give every load that long
+  const closedList = ready.getByText("Finished or closed plans (");
   await expect.poll(async () => {
     await pilot.goto("/field");
-    return ready.getByText("Finished or closed plans (").count();
+    await closedList.waitFor({ timeout: 10_000 }).catch(() => undefined);
+    return closedList.count();
   }, { timeout: 60_000 }).toBeGreaterThan(0);
   await expect(ready.getByRole("article", { name: "Tobi's launch week, shorter" })).toBeHidden();
   await ready.getByText("Finished or closed plans (").click();

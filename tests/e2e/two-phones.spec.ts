@@ -53,7 +53,8 @@ test("a signal on one phone and flights on another, clocks 15 min apart, score a
     await expect
       .poll(async () => {
         await b.goto("/field");
-        await b.waitForTimeout(1500);
+        // the page pulls once it has settled (components/sync/when-settled.ts): give each load that long
+        await link.waitFor({ timeout: 10_000 }).catch(() => undefined);
         return link.count();
       }, { timeout: 45_000 })
       .toBe(1);

@@ -13,8 +13,11 @@ import { signOutHere } from "./account-session";
  * unsent are counted, kept sealed, and sent when this account signs in here again. Stays on the
  * origin in use: no redirect from the server, a relative navigation to /sign-in.
  */
+/** How long sign-out waits for the sync runtime to load before counting what is still unsent. */
+const LOAD_WAIT_MS = 5_000;
+
 export function SignOutButton() {
-  const { client } = useSync();
+  const { client, loadClient } = useSync();
   const [unsent, setUnsent] = useState<number | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -25,7 +28,11 @@ export function SignOutButton() {
 
   async function start() {
     setBusy(true);
-    if (navigator.onLine && client) await client.flush().catch(() => undefined);
+    if (navigator.onLine) {
+      // the sync runtime may not have loaded yet (it loads once the page has settled): load it for this last push
+      const ready = client ?? (await Promise.race([loadClient(), new Promise<null>((r) => setTimeout(() => r(null), LOAD_WAIT_MS))]));
+      await ready?.flush().catch(() => undefined);
+    }
     const kept = await countKeptAtSignOut(getWindowcallDb()).catch(() => 0);
     if (kept > 0) {
       setBusy(false);
