@@ -24,12 +24,8 @@ import { pipelineTransaction, type Pipeline } from "./sync-pipeline";
  * 403 (their items are not looked at). Refreshes last_seen_at for the owner.
  */
 export async function claimDevice(tx: Tx, deviceId: string, userId: string): Promise<void> {
-  const [row] = await tx
-    .insert(devices)
-    .values({ id: deviceId, userId })
-    .onConflictDoUpdate({ target: devices.id, set: { lastSeenAt: sql`now()` } })
-    .returning({ userId: devices.userId });
-  if (row?.userId !== userId) throw new ForbiddenError(NOT_YOUR_DEVICE);
+  const [row] = (await tx.execute<{ user_id: string }>(claimSql(tx, deviceId, userId))).rows;
+  if (row?.user_id !== userId) throw new ForbiddenError(NOT_YOUR_DEVICE);
 }
 
 const NOT_YOUR_DEVICE = "This device is registered to another account. Sign in as that account to send its records.";
@@ -132,13 +128,8 @@ async function carefulPush(db: Database, userId: string, req: PushRequest, refus
     const deleted = new Set(ctx.acks.filter((a) => a.status === "applied" && req.discards?.some((d) => d.id === a.id)).map((a) => a.id));
     const stillThere = derive.filter((r) => !deleted.has(r.id));
 
-    const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
-    if (rejections.size > 0) {
-      await tx
-        .insert(syncRejections)
-        .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
-        .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] });
-    }
+    const refusals = refusalsSql(ctx);
+    if (refusals) await tx.execute(refusals);
     const serverSeq = stillThere.length > 0 ? await storeDerivations(tx, stillThere, load.estimates, added, stats) : await currentServerSeq(tx);
     return { acks: ctx.acks, serverSeq };
   }));
@@ -162,6 +153,17 @@ function readDeviceFacts(row: DeviceFactsRow): { estimates: ClockEstimate[]; clu
   };
 }
 
+/** The push's refusals recorded once per device and item (null when none): both ways store them with this. */
+function refusalsSql(ctx: PushContext): SQL | null {
+  const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
+  if (rejections.size === 0) return null;
+  return ctx.tx
+    .insert(syncRejections)
+    .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: ctx.deviceId, userId: ctx.userId, reason })))
+    .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] })
+    .getSQL();
+}
+
 /** Thrown inside the pipelined push when it must not go on that way: rolled back, the push goes the careful way. */
 class TakeCarefulWay extends Error {}
 
@@ -171,8 +173,8 @@ const UNIQUE_VIOLATION = "23505";
 const MORE_THAN_THE_EVENT = new Set(["signed", "void", "reflight"]);
 
 /**
- * Whether a push may try the pipelined way: it carries no session and no discard (first pushes and
- * deletions go the careful way) and no event whose storing writes elsewhere.
+ * Whether a push may try the pipelined way: it carries no discard (deletions go the careful way) and no
+ * event whose storing writes elsewhere. Pushes that create sessions or runs are pipelined in stages (below).
  */
 const pipelines = (req: PushRequest) => !req.discards?.length && !req.events.some((e) => MORE_THAN_THE_EVENT.has(e.body.kind));
 
@@ -231,12 +233,7 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
   }
 
   const { insert, added } = eventsToInsert(ctx, req.events, load);
-  const rejections = new Map(ctx.acks.filter((a) => a.status === "rejected").map((a) => [a.id, a.reason ?? "rejected"]));
-  const refusals = rejections.size === 0 ? null : tx
-    .insert(syncRejections)
-    .values([...rejections].map(([itemId, reason]) => ({ itemId, deviceId: req.deviceId, userId, reason })))
-    .onConflictDoNothing({ target: [syncRejections.deviceId, syncRejections.itemId] })
-    .getSQL();
+  const refusals = refusalsSql(ctx);
   const writes = [insert, refusals].filter((x): x is SQL => x !== null);
   const derive = [...load.runs.values()].filter((r) => added.has(r.id) || moved.includes(r.id) || newRuns.includes(r.id));
   if (derive.length > 0 && !inlineable(derive)) {
