@@ -124,7 +124,8 @@ mail_try() {
   smtp="$(free_port $((${WINDOWCALL_SMTP_PORT:-2525} + $1 - 1)))"
   http="$(free_port $((${WINDOWCALL_MAILBOX_PORT:-8025} + $1 - 1)))"
   [ "$http" = "$smtp" ] && http="$(free_port $((smtp + 1)))"
-  fake_start "$MAIL_DIR" mail-server.ts "port_in_use $http" "$smtp $http" \
+  # ready once it says so in its own log: a port answering may be another checkout's fake
+  fake_start "$MAIL_DIR" mail-server.ts "grep -q 'mailbox on' '$MAIL_DIR/server.log'" "$smtp $http" \
     MAIL_SMTP_PORT="$smtp" MAIL_HTTP_PORT="$http" MAIL_DIR="$MAIL_DIR"
 }
 mail_up() {
@@ -152,11 +153,12 @@ s3_up() {
 
 # Payments: scripts/payments-server.ts (state in .data/payments). Exports STRIPE_API_URL (the SDK's host, port and
 # protocol come from it) unless it is already set or the key is a live one (the real service).
-PAY_RUN="$ROOT/.data/payments-server"
+PAY_RUN="$ROOT/.data/payments-server" PAY_STATE="$ROOT/.data/payments"
 payments_try() {
   local port
   port="$(free_port $((${WINDOWCALL_PAYMENTS_PORT:-4580} + $1 - 1)))"
-  fake_start "$PAY_RUN" payments-server.ts "port_in_use $port" "$port" PAYMENTS_PORT="$port" PAYMENTS_DIR="$ROOT/.data/payments"
+  # ready once it says so in its own log: a port answering may be another checkout's fake
+  fake_start "$PAY_RUN" payments-server.ts "grep -q 'fake payments API on' '$PAY_RUN/server.log'" "$port" PAYMENTS_PORT="$port" PAYMENTS_DIR="$PAY_STATE"
 }
 payments_up() {
   [ -n "${STRIPE_API_URL:-}" ] && return 0
