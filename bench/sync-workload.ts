@@ -7,12 +7,14 @@ import type { PushRequest } from "@/lib/validations/sync";
 /**
  * One device's pushes: a session, `runs` runs and `perRun` events each (a window start, then
  * alternating launches and landings a minute apart), in requests of at most `batch` items,
- * in the order the outbox would send them.
+ * in the order the outbox would send them. `day`: that many days later (the server takes at most MAX_RUNS_PER_DAY
+ * runs of one account per day).
  */
-export function deviceWorkload(userId: string, runs: number, perRun: number, batch: number): PushRequest[] {
+export function deviceWorkload(userId: string, runs: number, perRun: number, batch: number, day = 0): PushRequest[] {
   const deviceId = `bench-${uuidv7()}`;
-  const estimate = { thetaMs: 120, deltaMs: 30, measuredAtWallMs: 1_767_000_000_000 };
-  const session: SessionEntity = { id: uuidv7(), ownerId: userId, fieldName: "Bench field", conditions: {}, startedAtWallMs: 1_767_000_000_000 };
+  const at = 1_767_000_000_000 + day * 86_400_000;
+  const estimate = { thetaMs: 120, deltaMs: 30, measuredAtWallMs: at };
+  const session: SessionEntity = { id: uuidv7(), ownerId: userId, fieldName: "Bench field", conditions: {}, startedAtWallMs: at };
   const items: ({ kind: "session"; v: SessionEntity } | { kind: "run"; v: RunEntity } | { kind: "event"; v: RunEvent })[] = [
     { kind: "session", v: session },
   ];
@@ -20,10 +22,10 @@ export function deviceWorkload(userId: string, runs: number, perRun: number, bat
   for (let r = 0; r < runs; r++) {
     const run: RunEntity = {
       id: uuidv7(), sessionId: session.id, task: getCatalogueTask("H"),
-      lanes: [{ lane: 0, pilotName: "Bench pilot", pilotUserId: userId }], createdAtWallMs: 1_767_000_000_000 + r,
+      lanes: [{ lane: 0, pilotName: "Bench pilot", pilotUserId: userId }], createdAtWallMs: at + r,
     };
     items.push({ kind: "run", v: run });
-    const t0 = 1_767_000_100_000 + r * 3_600_000;
+    const t0 = at + 100_000 + r * 3_600_000;
     for (let i = 0; i < perRun; i++) {
       const body: RunEvent["body"] = i === 0 ? { kind: "window-start" } : { kind: i % 2 === 1 ? "launch" : "landing", lane: 0 };
       items.push({

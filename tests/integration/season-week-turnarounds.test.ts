@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { getSeasonSummaryJson } from "@/db/queries/season/summary";
+import { settleSeasonWeeks, weeklyTurnaroundsKept } from "@/db/queries/season/weeks";
 import { getCatalogueTask } from "@/lib/tasks";
 import { db, demoUser, freshUser, getPool } from "./support/db";
 import { seasonRun } from "./support/season-records";
@@ -83,5 +84,84 @@ describe("season_week_turnarounds", () => {
     expect(await check()).toEqual([["2026-05-04", 1, 3000, 3000]]);
     await db.execute(sql`delete from runs where id = ${first}::uuid`);
     expect(await check()).toEqual([]);
+  });
+
+  /** The pilot's rows and marks as they are, without settling them. */
+  const unsettled = async (pilotId: string) => {
+    const res = await db.execute<{ rows: [string, number, number, number][]; marks: string[] }>(sql`select
+      (select coalesce(json_agg(json_build_array(week, turnarounds, median_ms, p90_ms) order by week), '[]') from season_week_turnarounds where pilot_user_id = ${pilotId}::uuid) as rows,
+      (select coalesce(json_agg(week order by week), '[]') from season_week_stale where pilot_user_id = ${pilotId}::uuid) as marks`);
+    return res.rows[0]!;
+  };
+
+  it("a write only marks its week stale; the Season's read works it out again and shows the new numbers", async () => {
+    const pilot = await freshUser("week-turnarounds-stale");
+    const run = await seasonRun({ pilotId: pilot.id, at: "2026-05-05T10:00:00Z", flights: [[5, 37], [40, 95], [99, 150]] });
+    // the derivation's write marked the week (one mark per writing transaction) and worked nothing out
+    const before = await unsettled(pilot.id);
+    expect(before.rows).toEqual([]);
+    expect(before.marks.length).toBeGreaterThan(0);
+    expect(new Set(before.marks)).toEqual(new Set(["2026-05-04"]));
+    const [kept, fromLanes] = await bothSummaries(pilot.id);
+    expect(kept).toBe(fromLanes);
+    expect(JSON.parse(kept).turnaroundByWeek).toEqual([{ week: "2026-05-04", count: 2, medianTenths: 35, p90Tenths: 39 }]);
+    expect(await unsettled(pilot.id)).toEqual({ rows: [["2026-05-04", 2, 3500, 3900]], marks: [] });
+    // a later change (the second flight no longer lands: the 4.0 s turnaround is gone) is shown by the next read
+    await db.execute(sql`update run_lanes set derived = jsonb_set(derived, '{flights,1,landMs}', 'null') where run_id = ${run}::uuid`);
+    expect((await unsettled(pilot.id)).rows).toEqual([["2026-05-04", 2, 3500, 3900]]);
+    const [keptAgain, fromLanesAgain] = await bothSummaries(pilot.id);
+    expect(keptAgain).toBe(fromLanesAgain);
+    expect(JSON.parse(keptAgain).turnaroundByWeek).toEqual([{ week: "2026-05-04", count: 1, medianTenths: 30, p90Tenths: 30 }]);
+  });
+
+  it("keeps the mark of a write that commits while a reader settles the week, and reads a marked week from its lanes", async () => {
+    const pilot = await freshUser("week-turnarounds-race");
+    const first = await seasonRun({ pilotId: pilot.id, at: "2026-05-05T10:00:00Z", flights: [[5, 37], [40, 95], [99, 150]] });
+    const second = await seasonRun({ pilotId: pilot.id, at: "2026-05-07T10:00:00Z", flights: [[5, 20], [22, 60]] });
+    await settleSeasonWeeks(db, [pilot.id]);
+    expect((await unsettled(pilot.id)).rows).toEqual([["2026-05-04", 3, 3000, 3800]]);
+    const kept = async () => (await db.execute<{ week: string; turnarounds: number; median_ms: number; p90_ms: number }>(
+      sql`select to_char(week, 'YYYY-MM-DD') as week, turnarounds, median_ms, p90_ms from (${weeklyTurnaroundsKept(pilot.id)}) k order by week`)).rows;
+    const pusher = await getPool().connect();
+    const locker = await getPool().connect();
+    try {
+      // 1. a committed mark is there (a write that changed nothing of the numbers), then a push's transaction changes the
+      // week (the second run loses its result) and is still open while a reader settles: the reader cannot see the
+      // change, and must not delete the only mark that stands for it
+      await db.execute(sql`update run_lanes set result_tenths = result_tenths + 1 where run_id = ${first}::uuid`);
+      expect((await unsettled(pilot.id)).marks).toEqual(["2026-05-04"]);
+      await pusher.query("begin");
+      await pusher.query("update run_lanes set result_tenths = null where run_id = $1", [second]);
+      await settleSeasonWeeks(db, [pilot.id]);
+      await pusher.query("commit");
+      const afterCommit = await unsettled(pilot.id);
+      expect(afterCommit.rows).toEqual([["2026-05-04", 3, 3000, 3800]]); // worked out without the change
+      expect(afterCommit.marks).toEqual(["2026-05-04"]); // the push's own mark
+      // read in one snapshot, the marked week comes from its lanes: the change is there before anyone settles it
+      expect(await kept()).toEqual([{ week: "2026-05-04", turnarounds: 2, median_ms: 3500, p90_ms: 3900 }]);
+      const [summary, fromLanes] = await bothSummaries(pilot.id);
+      expect(summary).toBe(fromLanes);
+      expect(await unsettled(pilot.id)).toEqual({ rows: [["2026-05-04", 2, 3500, 3900]], marks: [] });
+
+      // 2. a reader that has deleted the marks waits for the week's lock (held here) while a push commits a change: the
+      // week is read after the lock, so the push's change is in it (and the push's mark is left for the next reader)
+      await db.execute(sql`update run_lanes set result_tenths = 500 where run_id = ${second}::uuid`); // back: {2.0, 3.0, 4.0}
+      await locker.query("begin");
+      await locker.query("select pg_advisory_xact_lock(hashtextextended('season_week_turnarounds/' || $1 || '/' || '2026-05-04', 0))", [pilot.id]);
+      const settling = settleSeasonWeeks(db, [pilot.id]);
+      await new Promise((resolve) => setTimeout(resolve, 300)); // the reader is at the lock
+      expect((await unsettled(pilot.id)).rows).toEqual([["2026-05-04", 2, 3500, 3900]]);
+      await pusher.query("update run_lanes set result_tenths = null where run_id = $1", [first]); // {2.0} alone
+      await locker.query("commit");
+      await settling;
+      const settled = await unsettled(pilot.id);
+      expect(settled.rows).toEqual([["2026-05-04", 1, 2000, 2000]]);
+      expect(settled.marks).toEqual(["2026-05-04"]);
+      const both = await weekTurnaroundsBeside([pilot.id]);
+      expect(both.stored).toEqual(both.fromFlights);
+    } finally {
+      pusher.release();
+      locker.release();
+    }
   });
 });

@@ -131,7 +131,7 @@ describe("derivation per push equals derivation from scratch (property)", () => 
               for (const l of await flightsBesideJson(r.id)) {
                 expect([l.rows, l.arrays, l.aggregates], `lane ${l.lane}`).toEqual([l.rowsFromJson, l.arraysFromJson, l.aggregatesFromRows]);
               }
-              // Ada's weekly turnarounds (season_week_turnarounds, kept by triggers) follow every push
+              // Ada's weekly turnarounds (season_week_turnarounds: marked stale by every push, settled as the Season reads them) follow every push
               const weeks = await weekTurnaroundsBeside([ada!.id]);
               expect(weeks.stored).toEqual(weeks.fromFlights);
             }

@@ -4,6 +4,7 @@ import type { SeasonFilters } from "@/lib/validations/season";
 import type { SeasonSummary } from "@/lib/season/types";
 import type { Database } from "../../index";
 import { DURATION_BIN_SEC as BIN_SEC, isUnfiltered, LAST_DURATION_BIN as LAST_BIN, LOST_PARTS, seasonScope, shareOf } from "./scope";
+import { settleSeasonWeeks, weeklyTurnaroundsKept } from "./weeks";
 
 /** A day as the summary prints it (weeks, months, bests). */
 const day = (column: SQL) => sql`to_char(${column}, 'YYYY-MM-DD')`;
@@ -32,15 +33,18 @@ export async function getSeasonSummaryJson(db: Database, params: SummaryParams):
   // flights are picked by these constants (one range test per lane, not six with interval arithmetic)
   const [lastStart, thisStart, nextStart] = [-1, 0, 1].map((k) => new Date(Date.UTC(params.now.getUTCFullYear(), params.now.getUTCMonth() + k, 1)).toISOString());
   const inMonth = (column: SQL, m: "this" | "last") => (m === "this" ? sql`${column} >= ${thisStart}::timestamptz` : sql`${column} < ${thisStart}::timestamptz`);
+  // the weeks pushes marked stale since the last read, worked out again before the summary reads them (weeks.ts)
+  if (isUnfiltered(params.filters)) await settleSeasonWeeks(db, [params.pilotId]);
   const inMonths = (column: SQL) => sql`${column} >= ${lastStart}::timestamptz and ${column} < ${nextStart}::timestamptz`;
   const res = await db.execute<{ summary: string }>(sql`
     ${seasonScope(params.pilotId, params.filters, { lean: true })},
     weekly_turnaround as (${isUnfiltered(params.filters)
       // the whole season: each week's count, median and 90th percentile as PostgreSQL keeps them (season_week_turnarounds,
-      // worked out by the same percentile_cont at every write), instead of a sort of every turnaround of the season
+      // worked out by the same percentile_cont, settled above; a week marked since then from its lanes: weeks.ts), instead
+      // of a sort of every turnaround of the season
       ? sql`
       select week, turnarounds as count, round(median_ms / 100)::int as median, round(p90_ms / 100)::int as p90
-      from season_week_turnarounds where pilot_user_id = ${params.pilotId}`
+      from (${weeklyTurnaroundsKept(params.pilotId)}) k`
       : sql`
       select week, cardinality(turnarounds) as count, round(p[1] / 100)::int as median, round(p[2] / 100)::int as p90
       from (select week, turnarounds, (select percentile_cont(array[0.5, 0.9]) within group (order by x) from unnest(turnarounds) x) as p

@@ -1,17 +1,20 @@
 import { sql } from "drizzle-orm";
 import { weekOf } from "@/db/queries/season/scope";
 import { flightsOnSignal, isTurnaround } from "@/db/queries/season/turnaround";
+import { settleSeasonWeeks } from "@/db/queries/season/weeks";
 import { db } from "./db";
 
 type Week = [pilot: string, week: string, turnarounds: number, medianMs: number, p90Ms: number];
 
 /**
- * The pilots' rows of season_week_turnarounds (kept by triggers; migration "season-week-turnarounds-triggers") beside
+ * The pilots' rows of season_week_turnarounds (marked stale by triggers, settled here first as every reader does:
+ * db/queries/season/weeks.ts) beside
  * the same values computed here from lane_flights: the season's lanes as db/queries/season/scope.ts picks them (the
  * pilot's, created by them or accepted, with a result), their flights' ground times where isTurnaround holds
  * (db/queries/season/turnaround.ts, the task's part included), per week (weekOf), with percentile_cont.
  */
 export async function weekTurnaroundsBeside(pilotIds: string[]): Promise<{ stored: Week[]; fromFlights: Week[] }> {
+  await settleSeasonWeeks(db, pilotIds);
   const ids = sql`array[${sql.join(pilotIds.map((id) => sql`${id}::uuid`), sql`, `)}]::uuid[]`;
   const res = await db.execute<{ stored: Week[]; fromFlights: Week[] }>(sql`
     select
