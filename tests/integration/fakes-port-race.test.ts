@@ -52,7 +52,7 @@ async function setUp(kind: "payments" | "mail", name: string, base: number): Pro
   ].join("\n");
   started.push(runDir);
   const { stdout } = await run("bash", ["-c", script], { cwd: process.cwd(), timeout: 60_000 });
-  const [port, pid] = stdout.trim().split(" ").map(Number);
+  const [port = NaN, pid = NaN] = stdout.trim().split(" ").map(Number);
   return { port, pid };
 }
 
