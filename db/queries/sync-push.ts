@@ -12,9 +12,9 @@ import { recordReflightRequests, withdrawReflightRequests } from "./contest-refl
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { derivationStatements, inlineable, seqOf, storeDerivations, type DeriveStats } from "./runs";
-import { currentServerSeq, isUuid, lockRuns, lockRunsSql, type Tx } from "./sync-db";
+import { currentServerSeq, isUuid, lockAccountRunsSql, lockRuns, lockRunsSql, type Tx } from "./sync-db";
 import { estimatesChange, storeClockEstimates } from "./sync-estimates";
-import { applyRuns, applySessions, type PushContext } from "./sync-push-entities";
+import { applyRuns, applySessions, decideRuns, decideSessions, linkContestRuns, readRunFacts, runFactsSql, sessionOwnersSql, type PushContext } from "./sync-push-entities";
 import { applyEvents, eventsToInsert } from "./sync-push-events";
 import { loadForPush, loadSql, readLoad, type PushLoad } from "./sync-push-load";
 import { pipelineTransaction, type Pipeline } from "./sync-pipeline";
@@ -210,7 +210,9 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
     [holdDaysSql(loaded), lockRunsSql(locked), loadOf(loaded)].filter((x): x is SQL => x !== null);
   const creates = req.sessions.length > 0 || req.runs.length > 0;
   const staged = creates || (req.clockEstimates?.length ?? 0) > 0;
-  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...(staged ? [] : locksAndLoad(eventRuns, eventRuns))]);
+  // the pushed sessions' stored owners are read in the first message too (a read by id: no lock, no order to keep)
+  const owners = req.sessions.length > 0 ? [sessionOwnersSql(tx, req.sessions)] : [];
+  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...owners, ...(staged ? [] : locksAndLoad(eventRuns, eventRuns))]);
   if ((first[0]!.rows[0] as { user_id?: string } | undefined)?.user_id !== userId) throw new ForbiddenError(NOT_YOUR_DEVICE);
   const facts = readDeviceFacts(first[1]!.rows[0] as DeviceFactsRow);
   const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
@@ -224,9 +226,22 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
   if (staged) {
     // the careful way's order: estimates, sessions, runs, then the days, the locks and the load
     moved = [...(await storeClockEstimates(tx, req.deviceId, incoming, facts.estimates)).movedRuns];
-    await applySessions(ctx, req.sessions);
-    newRuns = await applyRuns(ctx, req.runs);
-    const locked = await send(locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns]));
+    // the sessions' insert, then the account's key and the runs' facts (read once the key is granted) in one message;
+    // the runs' insert goes in front of the days, the locks and the load (a run with a contest window: on its own, then linked)
+    const sessions = req.sessions.length > 0 ? decideSessions(ctx, req.sessions, first[2]!.rows as Parameters<typeof decideSessions>[2]).insert : null;
+    let inserts = [sessions].filter((x): x is SQL => x !== null);
+    if (req.runs.length > 0) {
+      const checked = await send([...inserts, lockAccountRunsSql(userId), runFactsSql(ctx, req.runs)]);
+      const runs = decideRuns(ctx, req.runs, readRunFacts(checked.at(-1)!.rows[0] as Parameters<typeof readRunFacts>[0]));
+      newRuns = runs.newRuns;
+      inserts = runs.insert ? [runs.insert] : [];
+      if (runs.insert && req.runs.some((r) => r.contest)) {
+        await send(inserts);
+        inserts = [];
+        await linkContestRuns(ctx, req.runs, newRuns);
+      }
+    }
+    const locked = await send([...inserts, ...locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns])]);
     load = readLoad(locked.at(-1)!.rows as Parameters<typeof readLoad>[0]);
   } else {
     load = readLoad(first.at(-1)!.rows as Parameters<typeof readLoad>[0]);
