@@ -13,7 +13,7 @@ import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { derivationStatements, inlineable, seqOf, storeDerivations, type DeriveStats } from "./runs";
 import { currentServerSeq, isUuid, lockAccountRunsSql, lockRuns, lockRunsSql, type Tx } from "./sync-db";
-import { estimatesChange, storeClockEstimates } from "./sync-estimates";
+import { clockEstimateStatements, estimatesChange, movedStamps, storeClockEstimates, type StampRow } from "./sync-estimates";
 import { applyRuns, applySessions, decideRuns, decideSessions, linkContestRuns, readRunFacts, runFactsSql, sessionOwnersSql, type PushContext } from "./sync-push-entities";
 import { applyEvents, eventsToInsert } from "./sync-push-events";
 import { loadForPush, loadSql, readLoad, type PushLoad } from "./sync-push-load";
@@ -224,21 +224,30 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
   let newRuns: string[] = [];
   let moved: string[] = [];
   if (staged) {
-    // the careful way's order: estimates, sessions, runs, then the days, the locks and the load
-    moved = [...(await storeClockEstimates(tx, req.deviceId, incoming, facts.estimates)).movedRuns];
-    // the sessions' insert, then the account's key and the runs' facts (read once the key is granted) in one message;
-    // the runs' insert goes in front of the days, the locks and the load (a run with a contest window: on its own, then linked)
+    // the careful way's order (estimates, sessions, runs, then the days, the locks and the load) in two messages: the estimates' writes and the read of the stamps they may move, the sessions' insert, the account's
+    // key and the runs' facts (read once the key is granted); the moved stamps' updates and the runs' insert go in front of
+    // the days, the locks and the load (a run with a contest window: on its own, then linked)
+    const clock = clockEstimateStatements(tx, req.deviceId, facts.estimates, incoming);
     const sessions = req.sessions.length > 0 ? decideSessions(ctx, req.sessions, first[2]!.rows as Parameters<typeof decideSessions>[2]).insert : null;
-    let inserts = [sessions].filter((x): x is SQL => x !== null);
-    if (req.runs.length > 0) {
-      const checked = await send([...inserts, lockAccountRunsSql(userId), runFactsSql(ctx, req.runs)]);
-      const runs = decideRuns(ctx, req.runs, readRunFacts(checked.at(-1)!.rows[0] as Parameters<typeof readRunFacts>[0]));
-      newRuns = runs.newRuns;
-      inserts = runs.insert ? [runs.insert] : [];
-      if (runs.insert && req.runs.some((r) => r.contest)) {
-        await send(inserts);
-        inserts = [];
-        await linkContestRuns(ctx, req.runs, newRuns);
+    let inserts = [...clock.writes, ...[sessions].filter((x): x is SQL => x !== null)];
+    if (clock.read || req.runs.length > 0) {
+      const checks = req.runs.length > 0 ? [lockAccountRunsSql(userId), runFactsSql(ctx, req.runs)] : [];
+      const sent = await send([...clock.writes, ...(clock.read ? [clock.read] : []), ...(sessions ? [sessions] : []), ...checks]);
+      inserts = [];
+      if (clock.read) {
+        const stamps = movedStamps(sent[clock.writes.length]!.rows as StampRow[], clock.estimates);
+        moved = [...stamps.movedRuns];
+        inserts.push(...stamps.updates);
+      }
+      if (req.runs.length > 0) {
+        const runs = decideRuns(ctx, req.runs, readRunFacts(sent.at(-1)!.rows[0] as Parameters<typeof readRunFacts>[0]));
+        newRuns = runs.newRuns;
+        if (runs.insert) inserts.push(runs.insert);
+        if (runs.insert && req.runs.some((r) => r.contest)) {
+          await send(inserts);
+          inserts = [];
+          await linkContestRuns(ctx, req.runs, newRuns);
+        }
       }
     }
     const locked = await send([...inserts, ...locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns])]);

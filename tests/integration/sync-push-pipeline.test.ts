@@ -32,17 +32,17 @@ describe("pipelined push", () => {
     await getPool().end();
   });
 
-  it("stores a first push in 6 round trips, a push of events in 2 and a push that creates runs in 4, with the same acks and results", async () => {
+  it("stores a first push in 4 round trips, a push of events in 2 and a push that creates runs in 4, with the same acks and results", async () => {
     const [user] = await createSimUsers(db, 1);
     const phone = recorder(deviceId());
     const s = session(user!.id);
     const r1 = run(s.id, [{ lane: 0, pilotName: "Test pilot", pilotUserId: user!.id }]);
     const first = [phone.at(r1.id, T0, { kind: "window-start" }), ...phone.flights(r1.id, 0, [30], T0 + 1000)];
-    // the first push (a session, a run, a new estimate): staged, 6 round trips (16 the careful way): the claim with the
-    // session's owner read, the estimate's 2, the session's insert with the account key and the run's facts, the run's
-    // insert with the locks and the load, the last message
+    // the first push (a session, a run, a new estimate): staged, 4 round trips (16 the careful way): the claim with the
+    // session's owner read; the estimate's insert and the read of the stamps it moves, the session's insert, the account
+    // key and the run's facts; the run's insert with the locks and the load; the last message
     const a = await roundTrips(() => applyPush(db, user!.id, { deviceId: phone.id, sessions: [s], runs: [r1], events: first }));
-    expect(a.trips).toBe(6);
+    expect(a.trips).toBe(4);
     expect(a.out.acks).toEqual([s, r1, ...first].map((x) => ({ id: x.id, status: "applied" })));
 
     const later = phone.flights(r1.id, 0, [40, 50], T0 + 60_000);
