@@ -181,15 +181,17 @@ const pipelines = (req: PushRequest) => !req.discards?.length && !req.events.som
 /**
  * A push in as few round trips as the order of its locks allows (db/queries/sync-pipeline.ts sends several
  * statements as one message; each still reads after the ones before it), in the careful way's order:
- * 1. begin; the claim; the device's estimates (and the user's clubs); then, when the push creates no session or
- *    run and names no clock estimate of its own, the runs' open club days (FOR SHARE), the runs' locks and the load;
- * 2. otherwise (staged): the estimates stored (storeClockEstimates: the events they move name more runs), the
- *    sessions and runs checked and inserted (applySessions, applyRuns), then the club days, the locks and the load
- *    in one message;
+ * 1. begin; the claim; the device's estimates (and the user's clubs, and the pushed sessions' stored owners); then,
+ *    when the push creates no session or run and names no clock estimate of its own, the runs' open club days (FOR
+ *    SHARE), the runs' locks and the load;
+ * 2. otherwise (staged), in one message: the new estimates' writes and the read of the device's stamps they may move
+ *    (clockEstimateStatements), the new sessions' insert, the account's key and the runs' facts (left out when the
+ *    push creates no run and moves no stamp); then in the next: the moved stamps' updates (their runs join the
+ *    locks), the runs' insert, the club days, the locks and the load;
  * 3. the events' insert (plain: a clash fails it), the refusals, the statement(s) storing every derived lane and
  *    `commit`, in one message.
- * So a push of events makes 2 round trips (9 the careful way), one that creates runs 6 (12) and a device's first
- * push (a session, a run, a new estimate) 10 (16). A push taking step 1's locks and load gives up (TakeCarefulWay:
+ * So a push of events makes 2 round trips (9 the careful way), one that creates runs 4 (12) and a device's first
+ * push (a session, a run, a new estimate) 4 (16). A push taking step 1's locks and load gives up (TakeCarefulWay:
  * rolled back, then applyPush runs it the careful way) when its events' stamps bring an estimate the server does
  * not hold (storing it may move stored events of other runs, which are then not locked); a clash of the plain insert
  * (an event some other push stored since the load) fails it and it goes the careful way too, so the event is acked
