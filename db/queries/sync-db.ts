@@ -39,8 +39,11 @@ export function lockRunsSql(runIds: Iterable<string>): SQL | null {
  * key made from the account id, until the end of the transaction. Other accounts never wait.
  */
 export async function lockAccountRuns(tx: Tx, userId: string): Promise<void> {
-  await tx.execute(sql`select pg_advisory_xact_lock(hashtextextended(${`runs-per-day:${userId}`}, 0))`);
+  await tx.execute(lockAccountRunsSql(userId));
 }
+
+/** lockAccountRuns' statement, for a pipelined message (the statements after it in the message run once it is granted). */
+export const lockAccountRunsSql = (userId: string): SQL => sql`select pg_advisory_xact_lock(hashtextextended(${`runs-per-day:${userId}`}, 0))`;
 
 /** The last server sequence number handed out (0 before the first). */
 export async function currentServerSeq(tx: Executor): Promise<number> {

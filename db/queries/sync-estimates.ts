@@ -1,9 +1,8 @@
 import "server-only";
-import { and, eq, gt, inArray, lt, sql } from "drizzle-orm";
+import { and, eq, inArray, sql, type SQL } from "drizzle-orm";
 import { MAX_ESTIMATES_PER_DEVICE, pruneEstimates, type ClockEstimate } from "@/lib/clock";
 import { affectedWallRange, correctStamp } from "@/lib/sync/correct-events";
-import { deviceClockEstimates, events } from "../schema";
-import { toDerivationEvent } from "./runs";
+import { deviceClockEstimates } from "../schema";
 import type { Tx } from "./sync-db";
 
 /**
@@ -20,49 +19,87 @@ export async function storeClockEstimates(
   incoming: readonly ClockEstimate[],
   stored?: readonly ClockEstimate[],
 ): Promise<{ estimates: ClockEstimate[]; movedRuns: Set<string> }> {
-  const movedRuns = new Set<string>();
   const existing: ClockEstimate[] = stored
     ? [...stored]
     : await tx
         .select({ thetaMs: deviceClockEstimates.thetaMs, deltaMs: deviceClockEstimates.deltaMs, measuredAtWallMs: deviceClockEstimates.measuredAtWallMs })
         .from(deviceClockEstimates)
         .where(eq(deviceClockEstimates.deviceId, deviceId));
+  const plan = clockEstimateStatements(tx, deviceId, existing, incoming);
+  for (const write of plan.writes) await tx.execute(write);
+  if (!plan.read) return { estimates: plan.estimates, movedRuns: new Set() };
+  const moved = movedStamps((await tx.execute<StampRow>(plan.read)).rows, plan.estimates);
+  for (const update of moved.updates) await tx.execute(update);
+  return { estimates: plan.estimates, movedRuns: moved.movedRuns };
+}
+
+/**
+ * storeClockEstimates as statements, for a pipelined message: the estimates kept (`estimates`), the writes that
+ * store them (insert, delete), and `read` (null when no stored stamp can move), the device's events whose corrected
+ * time the change may move — its rows go to movedStamps, whose updates must follow in the same transaction.
+ */
+export function clockEstimateStatements(
+  tx: Tx,
+  deviceId: string,
+  existing: readonly ClockEstimate[],
+  incoming: readonly ClockEstimate[],
+): { estimates: ClockEstimate[]; writes: SQL[]; read: SQL | null } {
   const fresh = freshEstimates(existing, incoming);
-  if (fresh.size === 0 && existing.length <= MAX_ESTIMATES_PER_DEVICE) return { estimates: existing, movedRuns };
+  if (fresh.size === 0 && existing.length <= MAX_ESTIMATES_PER_DEVICE) return { estimates: [...existing], writes: [], read: null };
 
   const candidates = [...existing, ...fresh.values()];
   const all = pruneEstimates(candidates);
   const keep = new Set(all.map((e) => e.measuredAtWallMs));
   const added = [...fresh.values()].filter((e) => keep.has(e.measuredAtWallMs));
   const dropped = existing.filter((e) => !keep.has(e.measuredAtWallMs));
-  if (added.length > 0) await tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing();
+  const writes: SQL[] = [];
+  if (added.length > 0) writes.push(tx.insert(deviceClockEstimates).values(added.map((e) => ({ deviceId, ...e }))).onConflictDoNothing().getSQL());
   if (dropped.length > 0) {
-    await tx
+    writes.push(tx
       .delete(deviceClockEstimates)
-      .where(and(eq(deviceClockEstimates.deviceId, deviceId), inArray(deviceClockEstimates.measuredAtWallMs, dropped.map((e) => e.measuredAtWallMs))));
+      .where(and(eq(deviceClockEstimates.deviceId, deviceId), inArray(deviceClockEstimates.measuredAtWallMs, dropped.map((e) => e.measuredAtWallMs))))
+      .getSQL());
   }
   const range = affectedWallRange(candidates, [...added, ...dropped]);
-  if (!range) return { estimates: all, movedRuns };
+  if (!range) return { estimates: all, writes, read: null };
 
   const [lo, hi] = range;
-  const where = [eq(events.deviceId, deviceId)];
-  if (Number.isFinite(lo)) where.push(gt(events.wallMs, lo));
-  if (Number.isFinite(hi)) where.push(lt(events.wallMs, hi));
-  const rows = await tx.select().from(events).where(and(...where));
+  const where = [sql`device_id = ${deviceId}`];
+  if (Number.isFinite(lo)) where.push(sql`wall_ms > ${lo}`);
+  if (Number.isFinite(hi)) where.push(sql`wall_ms < ${hi}`);
+  const read = sql`select id, run_id, wall_ms, mono_ms, page_id, offset_theta_ms, offset_delta_ms, offset_measured_at_ms, corrected_ms, uncertainty_ms
+    from events where ${sql.join(where, sql` and `)}`;
+  return { estimates: all, writes, read };
+}
+
+/** A row of clockEstimateStatements' `read` (float8 columns come back as numbers). */
+export type StampRow = {
+  id: string; run_id: string; wall_ms: number; mono_ms: number; page_id: string;
+  offset_theta_ms: number | null; offset_delta_ms: number | null; offset_measured_at_ms: number | null;
+  corrected_ms: number; uncertainty_ms: number | null;
+};
+
+/** The events among `rows` whose corrected time the device's estimates `all` move: their updates and their runs. */
+export function movedStamps(rows: readonly StampRow[], all: readonly ClockEstimate[]): { updates: SQL[]; movedRuns: Set<string> } {
+  const movedRuns = new Set<string>();
   const changes = [];
   for (const row of rows) {
-    const c = correctStamp(toDerivationEvent(row).stamp, all);
-    if (c.correctedMs === row.correctedMs && c.uncertaintyMs === row.uncertaintyMs) continue;
+    const offset = row.offset_theta_ms !== null && row.offset_delta_ms !== null && row.offset_measured_at_ms !== null
+      ? { thetaMs: row.offset_theta_ms, deltaMs: row.offset_delta_ms, measuredAtWallMs: row.offset_measured_at_ms }
+      : null;
+    const c = correctStamp({ wallMs: row.wall_ms, monoMs: row.mono_ms, pageId: row.page_id, offset }, all);
+    if (c.correctedMs === row.corrected_ms && c.uncertaintyMs === row.uncertainty_ms) continue;
     changes.push(sql`(${row.id}::uuid, ${c.correctedMs}::double precision, ${c.uncertaintyMs}::double precision)`);
-    movedRuns.add(row.runId);
+    movedRuns.add(row.run_id);
   }
+  const updates: SQL[] = [];
   for (let i = 0; i < changes.length; i += 500) {
-    await tx.execute(sql`
+    updates.push(sql`
       update events set corrected_ms = v.corrected, uncertainty_ms = v.uncertainty
       from (values ${sql.join(changes.slice(i, i + 500), sql`, `)}) as v(id, corrected, uncertainty)
       where events.id = v.id`);
   }
-  return { estimates: all, movedRuns };
+  return { updates, movedRuns };
 }
 
 /** The incoming estimates the device's stored ones do not hold yet (by measurement time), first of each time. */

@@ -1,6 +1,6 @@
 import "server-only";
 import { linkTimedLanes } from "./contest-timekeepers";
-import { inArray, sql } from "drizzle-orm";
+import { inArray, sql, type SQL } from "drizzle-orm";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
 import { pilotRefusal, runSessionRefusal } from "@/lib/sync/authorise";
 import { taskDefinitionSchema } from "@/lib/tasks";
@@ -17,13 +17,26 @@ export const reject = (ctx: PushContext, id: string, reason: string) => ctx.acks
 
 /** Apply pushed sessions; returns the ids the server now holds for this user (applied or duplicate). */
 export async function applySessions(ctx: PushContext, sessions: readonly SessionEntity[]): Promise<Set<string>> {
+  if (sessions.length === 0) return new Set();
+  const owners = (await ctx.tx.execute<SessionOwnerRow>(sessionOwnersSql(ctx.tx, sessions))).rows;
+  const { ok, insert } = decideSessions(ctx, sessions, owners);
+  if (insert) await ctx.tx.execute(insert);
+  return ok;
+}
+
+type SessionOwnerRow = { id: string; owner_id: string };
+
+/** The pushed sessions already stored and their owners (rows `{ id, owner_id }`): what decideSessions reads. */
+export const sessionOwnersSql = (tx: Tx, sessions: readonly SessionEntity[]): SQL =>
+  tx.select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId }).from(fieldSessions).where(inArray(fieldSessions.id, sessions.map((s) => s.id))).getSQL();
+
+/**
+ * Each pushed session checked against the stored owners (sessionOwnersSql's rows), its ack pushed; returns the ids
+ * the server holds for this user once `insert` (null when nothing is new) has run.
+ */
+export function decideSessions(ctx: PushContext, sessions: readonly SessionEntity[], rows: readonly SessionOwnerRow[]): { ok: Set<string>; insert: SQL | null } {
   const ok = new Set<string>();
-  if (sessions.length === 0) return ok;
-  const existing = await ctx.tx
-    .select({ id: fieldSessions.id, ownerId: fieldSessions.ownerId })
-    .from(fieldSessions)
-    .where(inArray(fieldSessions.id, sessions.map((s) => s.id)));
-  const owners = new Map(existing.map((r) => [r.id, r.ownerId]));
+  const owners = new Map(rows.map((r) => [r.id, r.owner_id]));
   const fresh: (typeof fieldSessions.$inferInsert)[] = [];
   for (const s of sessions) {
     const owner = owners.get(s.id);
@@ -44,8 +57,7 @@ export async function applySessions(ctx: PushContext, sessions: readonly Session
       ok.add(s.id);
     }
   }
-  if (fresh.length > 0) await ctx.tx.insert(fieldSessions).values(fresh).onConflictDoNothing();
-  return ok;
+  return { ok, insert: fresh.length > 0 ? ctx.tx.insert(fieldSessions).values(fresh).onConflictDoNothing().getSQL() : null };
 }
 
 /** Apply pushed runs (with their lanes); returns the ids of runs newly created. */
@@ -53,7 +65,27 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
   if (items.length === 0) return [];
   const { tx } = ctx;
   await lockAccountRuns(tx, ctx.userId); // the runs-per-day count below holds until this push commits
-  const facts = await runFacts(ctx, items);
+  const facts = readRunFacts((await tx.execute<RunFactsRow>(runFactsSql(ctx, items))).rows[0]!);
+  const { insert, newRuns } = decideRuns(ctx, items, facts);
+  if (insert) {
+    await tx.execute(insert);
+    await linkContestRuns(ctx, items, newRuns);
+  }
+  return newRuns;
+}
+
+/** A contest timekeeper's window: its lanes become the pilots' official results (after the runs' insert). */
+export async function linkContestRuns(ctx: PushContext, items: readonly RunEntity[], newRuns: readonly string[]): Promise<void> {
+  const fresh = new Set(newRuns);
+  if (items.some((r) => r.contest)) await linkTimedLanes(ctx.tx, ctx.userId, items.filter((r) => r.contest && fresh.has(r.id)));
+}
+
+/**
+ * Each pushed run checked against runFacts' facts, its ack pushed; returns the runs' and their lanes' insert (ONE
+ * statement; null when no run is new) and the ids of the runs it creates.
+ */
+export function decideRuns(ctx: PushContext, items: readonly RunEntity[], facts: RunFacts): { insert: SQL | null; newRuns: string[] } {
+  const { tx } = ctx;
   const { creators, sessionsById, pilots, perDay, planItems } = facts;
   const freshRuns: (typeof runs.$inferInsert)[] = [];
   const freshLanes: (typeof runLanes.$inferInsert)[] = [];
@@ -96,15 +128,11 @@ export async function applyRuns(ctx: PushContext, items: readonly RunEntity[]): 
     for (const l of r.lanes) freshLanes.push({ runId: r.id, lane: l.lane, pilotUserId: l.pilotUserId ?? null, pilotName: l.pilotName });
     ctx.acks.push({ id: r.id, status: "applied" });
   }
-  if (freshRuns.length > 0) {
-    // the runs and their lanes in one statement (one round trip; the lanes' foreign keys are checked at its end)
-    const runsInsert = tx.insert(runs).values(freshRuns).onConflictDoNothing();
-    if (freshLanes.length === 0) await runsInsert;
-    else await tx.execute(sql`with fresh_runs as (${runsInsert.getSQL()}) ${tx.insert(runLanes).values(freshLanes).onConflictDoNothing().getSQL()}`);
-    // a contest timekeeper's window: its lanes become the pilots' official results
-    if (items.some((r) => r.contest)) await linkTimedLanes(tx, ctx.userId, items.filter((r) => r.contest && seen.has(r.id)));
-  }
-  return freshRuns.map((r) => r.id!);
+  if (freshRuns.length === 0) return { insert: null, newRuns: [] };
+  // the runs and their lanes in one statement (one round trip; the lanes' foreign keys are checked at its end)
+  const runsInsert = tx.insert(runs).values(freshRuns).onConflictDoNothing().getSQL();
+  const insert = freshLanes.length === 0 ? runsInsert : sql`with fresh_runs as (${runsInsert}) ${tx.insert(runLanes).values(freshLanes).onConflictDoNothing().getSQL()}`;
+  return { insert, newRuns: freshRuns.map((r) => r.id!) };
 }
 
 const DAY_MS = 86_400_000;
@@ -117,16 +145,14 @@ const utcDay = (ms: number) => Math.floor(ms / DAY_MS);
  * with the pushing user, how many runs the user already has on each UTC day the runs fall on, and the
  * number of items of each named practice plan that is the user's own.
  */
-async function runFacts(ctx: PushContext, items: readonly RunEntity[]) {
+export function runFactsSql(ctx: PushContext, items: readonly RunEntity[]): SQL {
   const uuids = (list: Iterable<string>) => sql`${sql.param([...new Set(list)])}::uuid[]`;
   const pilotIds = [...new Set(items.flatMap((r) => r.lanes.flatMap((l) => (l.pilotUserId && isUuid(l.pilotUserId) ? [l.pilotUserId] : []))))];
   const planIds = items.flatMap((r) => (r.plan ? [r.plan.id] : []));
   const days = items.map((r) => utcDay(r.createdAtWallMs));
   // the last day may end past what the schema lets a date be (EPOCH_MS_MAX): clamp
   const [from, to] = [Math.min(...days) * DAY_MS, Math.min((Math.max(...days) + 1) * DAY_MS, EPOCH_MS_MAX)];
-  const res = await ctx.tx.execute<{
-    runs: [string, string][]; sessions: [string, string][]; pilots: string[]; mates: string[]; days: [number, number][]; plans: [string, number][];
-  }>(sql`select
+  return sql`select
     (select coalesce(json_agg(json_build_array(id, created_by)), '[]') from runs where id = any(${uuids(items.map((r) => r.id))})) as runs,
     (select coalesce(json_agg(json_build_array(id, owner_id)), '[]') from field_sessions where id = any(${uuids(items.map((r) => r.sessionId))})) as sessions,
     (select coalesce(json_agg(id), '[]') from users where id = any(${uuids(pilotIds)})) as pilots,
@@ -136,8 +162,14 @@ async function runFacts(ctx: PushContext, items: readonly RunEntity[]) {
       where created_by = ${ctx.userId} and created_at >= ${new Date(from).toISOString()}::timestamptz and created_at <= ${new Date(to).toISOString()}::timestamptz
       group by 1) d) as days,
     (select coalesce(json_agg(json_build_array(id, jsonb_array_length(items))), '[]') from practice_plans
-      where pilot_id = ${ctx.userId} and id = any(${uuids(planIds)})) as plans`);
-  const row = res.rows[0]!;
+      where pilot_id = ${ctx.userId} and id = any(${uuids(planIds)})) as plans`;
+}
+
+type RunFactsRow = { runs: [string, string][]; sessions: [string, string][]; pilots: string[]; mates: string[]; days: [number, number][]; plans: [string, number][] };
+export type RunFacts = ReturnType<typeof readRunFacts>;
+
+/** runFactsSql's row as the checks read it. */
+export function readRunFacts(row: RunFactsRow) {
   return {
     creators: new Map(row.runs),
     sessionsById: new Map(row.sessions.map(([id, ownerId]) => [id, { id, ownerId }])),

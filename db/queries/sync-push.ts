@@ -12,9 +12,9 @@ import { recordReflightRequests, withdrawReflightRequests } from "./contest-refl
 import { signLanes } from "./contest-timekeepers";
 import { applyDiscards } from "./run-discard";
 import { derivationStatements, inlineable, seqOf, storeDerivations, type DeriveStats } from "./runs";
-import { currentServerSeq, isUuid, lockRuns, lockRunsSql, type Tx } from "./sync-db";
-import { estimatesChange, storeClockEstimates } from "./sync-estimates";
-import { applyRuns, applySessions, type PushContext } from "./sync-push-entities";
+import { currentServerSeq, isUuid, lockAccountRunsSql, lockRuns, lockRunsSql, type Tx } from "./sync-db";
+import { clockEstimateStatements, estimatesChange, movedStamps, storeClockEstimates, type StampRow } from "./sync-estimates";
+import { applyRuns, applySessions, decideRuns, decideSessions, linkContestRuns, readRunFacts, runFactsSql, sessionOwnersSql, type PushContext } from "./sync-push-entities";
 import { applyEvents, eventsToInsert } from "./sync-push-events";
 import { loadForPush, loadSql, readLoad, type PushLoad } from "./sync-push-load";
 import { pipelineTransaction, type Pipeline } from "./sync-pipeline";
@@ -181,15 +181,17 @@ const pipelines = (req: PushRequest) => !req.discards?.length && !req.events.som
 /**
  * A push in as few round trips as the order of its locks allows (db/queries/sync-pipeline.ts sends several
  * statements as one message; each still reads after the ones before it), in the careful way's order:
- * 1. begin; the claim; the device's estimates (and the user's clubs); then, when the push creates no session or
- *    run and names no clock estimate of its own, the runs' open club days (FOR SHARE), the runs' locks and the load;
- * 2. otherwise (staged): the estimates stored (storeClockEstimates: the events they move name more runs), the
- *    sessions and runs checked and inserted (applySessions, applyRuns), then the club days, the locks and the load
- *    in one message;
+ * 1. begin; the claim; the device's estimates (and the user's clubs, and the pushed sessions' stored owners); then,
+ *    when the push creates no session or run and names no clock estimate of its own, the runs' open club days (FOR
+ *    SHARE), the runs' locks and the load;
+ * 2. otherwise (staged), in one message: the new estimates' writes and the read of the device's stamps they may move
+ *    (clockEstimateStatements), the new sessions' insert, the account's key and the runs' facts (left out when the
+ *    push creates no run and moves no stamp); then in the next: the moved stamps' updates (their runs join the
+ *    locks), the runs' insert, the club days, the locks and the load;
  * 3. the events' insert (plain: a clash fails it), the refusals, the statement(s) storing every derived lane and
  *    `commit`, in one message.
- * So a push of events makes 2 round trips (9 the careful way), one that creates runs 6 (12) and a device's first
- * push (a session, a run, a new estimate) 10 (16). A push taking step 1's locks and load gives up (TakeCarefulWay:
+ * So a push of events makes 2 round trips (9 the careful way), one that creates runs 4 (12) and a device's first
+ * push (a session, a run, a new estimate) 4 (16). A push taking step 1's locks and load gives up (TakeCarefulWay:
  * rolled back, then applyPush runs it the careful way) when its events' stamps bring an estimate the server does
  * not hold (storing it may move stored events of other runs, which are then not locked); a clash of the plain insert
  * (an event some other push stored since the load) fails it and it goes the careful way too, so the event is acked
@@ -210,7 +212,9 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
     [holdDaysSql(loaded), lockRunsSql(locked), loadOf(loaded)].filter((x): x is SQL => x !== null);
   const creates = req.sessions.length > 0 || req.runs.length > 0;
   const staged = creates || (req.clockEstimates?.length ?? 0) > 0;
-  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...(staged ? [] : locksAndLoad(eventRuns, eventRuns))]);
+  // the pushed sessions' stored owners are read in the first message too (a read by id: no lock, no order to keep)
+  const owners = req.sessions.length > 0 ? [sessionOwnersSql(tx, req.sessions)] : [];
+  const first = await send([claimSql(tx, req.deviceId, userId), deviceFactsSql(req.deviceId, creates ? userId : null), ...owners, ...(staged ? [] : locksAndLoad(eventRuns, eventRuns))]);
   if ((first[0]!.rows[0] as { user_id?: string } | undefined)?.user_id !== userId) throw new ForbiddenError(NOT_YOUR_DEVICE);
   const facts = readDeviceFacts(first[1]!.rows[0] as DeviceFactsRow);
   const offsets: ClockEstimate[] = req.events.flatMap((e) => (e.deviceId === req.deviceId && e.stamp.offset ? [e.stamp.offset] : []));
@@ -222,11 +226,33 @@ async function pipelinedPush(p: Pipeline, userId: string, req: PushRequest, refu
   let newRuns: string[] = [];
   let moved: string[] = [];
   if (staged) {
-    // the careful way's order: estimates, sessions, runs, then the days, the locks and the load
-    moved = [...(await storeClockEstimates(tx, req.deviceId, incoming, facts.estimates)).movedRuns];
-    await applySessions(ctx, req.sessions);
-    newRuns = await applyRuns(ctx, req.runs);
-    const locked = await send(locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns]));
+    // the careful way's order (estimates, sessions, runs, then the days, the locks and the load) in two messages: the estimates' writes and the read of the stamps they may move, the sessions' insert, the account's
+    // key and the runs' facts (read once the key is granted); the moved stamps' updates and the runs' insert go in front of
+    // the days, the locks and the load (a run with a contest window: on its own, then linked)
+    const clock = clockEstimateStatements(tx, req.deviceId, facts.estimates, incoming);
+    const sessions = req.sessions.length > 0 ? decideSessions(ctx, req.sessions, first[2]!.rows as Parameters<typeof decideSessions>[2]).insert : null;
+    let inserts = [...clock.writes, ...[sessions].filter((x): x is SQL => x !== null)];
+    if (clock.read || req.runs.length > 0) {
+      const checks = req.runs.length > 0 ? [lockAccountRunsSql(userId), runFactsSql(ctx, req.runs)] : [];
+      const sent = await send([...clock.writes, ...(clock.read ? [clock.read] : []), ...(sessions ? [sessions] : []), ...checks]);
+      inserts = [];
+      if (clock.read) {
+        const stamps = movedStamps(sent[clock.writes.length]!.rows as StampRow[], clock.estimates);
+        moved = [...stamps.movedRuns];
+        inserts.push(...stamps.updates);
+      }
+      if (req.runs.length > 0) {
+        const runs = decideRuns(ctx, req.runs, readRunFacts(sent.at(-1)!.rows[0] as Parameters<typeof readRunFacts>[0]));
+        newRuns = runs.newRuns;
+        if (runs.insert) inserts.push(runs.insert);
+        if (runs.insert && req.runs.some((r) => r.contest)) {
+          await send(inserts);
+          inserts = [];
+          await linkContestRuns(ctx, req.runs, newRuns);
+        }
+      }
+    }
+    const locked = await send([...inserts, ...locksAndLoad([...eventRuns, ...moved], [...eventRuns, ...moved, ...newRuns])]);
     load = readLoad(locked.at(-1)!.rows as Parameters<typeof readLoad>[0]);
   } else {
     load = readLoad(first.at(-1)!.rows as Parameters<typeof readLoad>[0]);

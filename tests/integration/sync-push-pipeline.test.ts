@@ -32,15 +32,17 @@ describe("pipelined push", () => {
     await getPool().end();
   });
 
-  it("stores a first push in 10 round trips, a push of events in 2 and a push that creates runs in 6, with the same acks and results", async () => {
+  it("stores a first push in 4 round trips, a push of events in 2 and a push that creates runs in 4, with the same acks and results", async () => {
     const [user] = await createSimUsers(db, 1);
     const phone = recorder(deviceId());
     const s = session(user!.id);
     const r1 = run(s.id, [{ lane: 0, pilotName: "Test pilot", pilotUserId: user!.id }]);
     const first = [phone.at(r1.id, T0, { kind: "window-start" }), ...phone.flights(r1.id, 0, [30], T0 + 1000)];
-    // the first push (a session, a run, a new estimate): staged, 10 round trips (16 the careful way)
+    // the first push (a session, a run, a new estimate): staged, 4 round trips (16 the careful way): the claim with the
+    // session's owner read; the estimate's insert and the read of the stamps it moves, the session's insert, the account
+    // key and the run's facts; the run's insert with the locks and the load; the last message
     const a = await roundTrips(() => applyPush(db, user!.id, { deviceId: phone.id, sessions: [s], runs: [r1], events: first }));
-    expect(a.trips).toBe(10);
+    expect(a.trips).toBe(4);
     expect(a.out.acks).toEqual([s, r1, ...first].map((x) => ({ id: x.id, status: "applied" })));
 
     const later = phone.flights(r1.id, 0, [40, 50], T0 + 60_000);
@@ -51,7 +53,7 @@ describe("pipelined push", () => {
     const r2 = run(s.id, [{ lane: 0, pilotName: "Test pilot", pilotUserId: user!.id }]);
     const more = [phone.at(r2.id, T0 + 3_600_000, { kind: "window-start" }), ...phone.flights(r2.id, 0, [20], T0 + 3_601_000)];
     const c = await roundTrips(() => applyPush(db, user!.id, { deviceId: phone.id, sessions: [], runs: [r2], events: [...more, later[0]!] }));
-    expect(c.trips).toBe(6);
+    expect(c.trips).toBe(4);
     expect(c.out.acks).toEqual([{ id: r2.id, status: "applied" }, { id: later[0]!.id, status: "duplicate" }, ...more.map((e) => ({ id: e.id, status: "applied" }))]);
 
     const lanes = await db.execute<{ run_id: string; result_tenths: number }>(
