@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { lazySchema } from "@/lib/events/lazy-schema";
 import { halfRoundingSchema, pokerTaskSchema, type TaskDefinition } from "./definition";
 
 /**
@@ -8,10 +9,12 @@ import { halfRoundingSchema, pokerTaskSchema, type TaskDefinition } from "./defi
  * - `halves`: how an exact half of 0.1 point rounds in normalised scores (F3K.9.1 does not say);
  * - `endCall`: what task E's "end of working time" call credits (F3K.11.5 does not say).
  */
-export const ruleSettingsSchema = z.object({
-  halves: halfRoundingSchema,
-  endCall: pokerTaskSchema.shape.endCall,
-});
+export const ruleSettingsSchema = lazySchema(() =>
+  z.object({
+    halves: halfRoundingSchema,
+    endCall: pokerTaskSchema.shape.endCall,
+  }),
+);
 export type RuleSettings = z.infer<typeof ruleSettingsSchema>;
 
 /** Ours, where the rules are silent: halves round up (in the pilot's favour); the end call credits the time flown. */
