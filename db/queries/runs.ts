@@ -1,6 +1,6 @@
 import "server-only";
 import { inArray, sql, type SQL } from "drizzle-orm";
-import type { ClockEstimate } from "@/lib/clock";
+import { storedOffset, type ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
 import { buildFold, FOLD_VERSION, lanesOfFold, resumeFold, type RunFold } from "@/lib/results/fold-state";
 import { deriveRun, type DerivationEvent, type LaneDerivation } from "@/lib/sync/derive";
@@ -15,10 +15,7 @@ type EventRow = typeof events.$inferSelect;
 
 /** A stored event row as the derivation reads it (raw stamp, corrected time, bound). */
 export function toDerivationEvent(row: EventRow): DerivationEvent {
-  const offset =
-    row.offsetThetaMs !== null && row.offsetDeltaMs !== null && row.offsetMeasuredAtMs !== null
-      ? { thetaMs: row.offsetThetaMs, deltaMs: row.offsetDeltaMs, measuredAtWallMs: row.offsetMeasuredAtMs }
-      : null;
+  const offset = storedOffset(row.offsetThetaMs, row.offsetDeltaMs, row.offsetMeasuredAtMs);
   return {
     id: row.id,
     deviceId: row.deviceId,

@@ -1,6 +1,6 @@
 import "server-only";
 import { and, eq, inArray, sql, type SQL } from "drizzle-orm";
-import { MAX_ESTIMATES_PER_DEVICE, pruneEstimates, type ClockEstimate } from "@/lib/clock";
+import { MAX_ESTIMATES_PER_DEVICE, pruneEstimates, storedOffset, type ClockEstimate } from "@/lib/clock";
 import { affectedWallRange, correctStamp } from "@/lib/sync/correct-events";
 import { deviceClockEstimates } from "../schema";
 import type { Tx } from "./sync-db";
@@ -84,9 +84,7 @@ export function movedStamps(rows: readonly StampRow[], all: readonly ClockEstima
   const movedRuns = new Set<string>();
   const changes = [];
   for (const row of rows) {
-    const offset = row.offset_theta_ms !== null && row.offset_delta_ms !== null && row.offset_measured_at_ms !== null
-      ? { thetaMs: row.offset_theta_ms, deltaMs: row.offset_delta_ms, measuredAtWallMs: row.offset_measured_at_ms }
-      : null;
+    const offset = storedOffset(row.offset_theta_ms, row.offset_delta_ms, row.offset_measured_at_ms);
     const c = correctStamp({ wallMs: row.wall_ms, monoMs: row.mono_ms, pageId: row.page_id, offset }, all);
     if (c.correctedMs === row.corrected_ms && c.uncertaintyMs === row.uncertainty_ms) continue;
     changes.push(sql`(${row.id}::uuid, ${c.correctedMs}::double precision, ${c.uncertaintyMs}::double precision)`);

@@ -1,4 +1,5 @@
 import "server-only";
+import { storedOffset } from "@/lib/clock";
 import { sql, type SQL } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import type { RunEntity, SessionEntity } from "@/lib/events/entities";
@@ -164,10 +165,7 @@ function toResults(lanes: LaneJson[]): LaneResult[] | null {
 }
 
 function toEvent(e: EventRow): RunEvent {
-  const offset =
-    e.offset_theta_ms !== null && e.offset_delta_ms !== null && e.offset_measured_at_ms !== null
-      ? { thetaMs: e.offset_theta_ms, deltaMs: e.offset_delta_ms, measuredAtWallMs: e.offset_measured_at_ms }
-      : null;
+  const offset = storedOffset(e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms);
   return {
     id: e.id, runId: e.run_id, deviceId: e.device_id, seq: e.seq, recordedBy: e.recorded_by,
     stamp: { wallMs: e.wall_ms, monoMs: e.mono_ms, pageId: e.page_id, offset },

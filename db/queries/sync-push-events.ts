@@ -1,4 +1,5 @@
 import "server-only";
+import { storedOffset } from "@/lib/clock";
 import { inArray, sql, type SQL } from "drizzle-orm";
 import type { RunEvent } from "@/lib/events/schema";
 import { eventRefusal, type RunFacts, type TargetFacts } from "@/lib/sync/authorise";
@@ -141,10 +142,7 @@ function checkEvents(ctx: PushContext, items: readonly RunEvent[], load: PushLoa
 
 /** An inserted row as the derivation reads it (the same shape loadForPush gives stored ones). */
 function asDerivationEvent(row: typeof events.$inferInsert): DerivationEvent {
-  const offset =
-    row.offsetThetaMs != null && row.offsetDeltaMs != null && row.offsetMeasuredAtMs != null
-      ? { thetaMs: row.offsetThetaMs, deltaMs: row.offsetDeltaMs, measuredAtWallMs: row.offsetMeasuredAtMs }
-      : null;
+  const offset = storedOffset(row.offsetThetaMs, row.offsetDeltaMs, row.offsetMeasuredAtMs);
   return {
     id: row.id!, deviceId: row.deviceId, seq: row.seq, recordedBy: row.recordedBy, body: row.body as DerivationEvent["body"],
     stamp: { wallMs: row.wallMs, monoMs: row.monoMs, pageId: row.pageId, offset },

@@ -1,6 +1,6 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
-import type { ClockEstimate } from "@/lib/clock";
+import { storedOffset, type ClockEstimate } from "@/lib/clock";
 import type { EventBody } from "@/lib/events/schema";
 import type { DerivationEvent } from "@/lib/sync/derive";
 import { uncertaintyOf } from "@/lib/sync/correct-events";
@@ -114,10 +114,7 @@ type EventRow = {
 };
 
 function fromRow(e: EventRow): DerivationEvent {
-  const offset =
-    e.offset_theta_ms !== null && e.offset_delta_ms !== null && e.offset_measured_at_ms !== null
-      ? { thetaMs: e.offset_theta_ms, deltaMs: e.offset_delta_ms, measuredAtWallMs: e.offset_measured_at_ms }
-      : null;
+  const offset = storedOffset(e.offset_theta_ms, e.offset_delta_ms, e.offset_measured_at_ms);
   return {
     id: e.id, deviceId: e.device_id, seq: e.seq, recordedBy: e.recorded_by, body: e.body,
     stamp: { wallMs: e.wall_ms, monoMs: e.mono_ms, pageId: e.page_id, offset },

@@ -18,6 +18,11 @@ export type ClockEstimate = {
   measuredAtWallMs: number;
 };
 
+/** An event's stored offset columns (theta, delta, measured at) as its stamp's offset: null unless all three are set. */
+export function storedOffset(thetaMs: number | null | undefined, deltaMs: number | null | undefined, measuredAtWallMs: number | null | undefined): ClockEstimate | null {
+  return thetaMs != null && deltaMs != null && measuredAtWallMs != null ? { thetaMs, deltaMs, measuredAtWallMs } : null;
+}
+
 /** How much the offset may have drifted `ageMs` after (or before) a measurement. */
 export function driftMs(ageMs: number): number {
   return DRIFT_RATE * Math.abs(ageMs);

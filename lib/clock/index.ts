@@ -11,7 +11,7 @@ export {
   type TimeSample,
   type OffsetEstimate,
 } from "./offset";
-export { DRIFT_RATE, driftMs, boundAt, type ClockEstimate } from "./drift";
+export { DRIFT_RATE, driftMs, boundAt, storedOffset, type ClockEstimate } from "./drift";
 export { interpolateOffset, holdOffset, offsetAt, type OffsetAt } from "./interpolate";
 export {
   correctTime,
